@@ -1,0 +1,88 @@
+// The one entry to the core: text → { tree, model, sweep, findings, readouts }.
+// Pure: takes a string, returns values; no IO, no editor or protocol types.
+import { parse } from "./syntax/parser";
+import { buildModel } from "./model/build";
+import { solveSweep } from "./mechanics/sweep";
+import { runChecks } from "./checks/index";
+import type { SyntaxTree } from "./syntax/ast";
+import type { ArmModel } from "./model/types";
+import type { SweepResult } from "./mechanics/types";
+import type { Finding } from "./checks/finding";
+import { finding } from "./checks/finding";
+import type { Readouts } from "./checks/readout";
+
+export interface AnalysisOptions {
+  /** Overrides the spec's `sweep steps` (e.g. a quick pass while typing). */
+  stepsOverride?: number;
+  /** Wall-clock budget for solving and checking, ms; past it the results are partial. */
+  budgetMs?: number;
+  /** Stop after building the model (syntax and model findings only). */
+  modelOnly?: boolean;
+}
+
+export interface Analysis {
+  text: string;
+  tree: SyntaxTree;
+  model?: ArmModel;
+  sweep?: SweepResult;
+  findings: Finding[];
+  readouts: Readouts;
+  /** Milliseconds spent in each phase. */
+  timings: { parse: number; model: number; solve: number; checks: number };
+}
+
+/** Findings of these codes mean the model cannot be solved meaningfully. */
+function blocksSolving(findings: readonly Finding[]): boolean {
+  return findings.some((f) => f.severity === "error" && f.code !== "balance.unbalanced");
+}
+
+export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
+  const timings = { parse: 0, model: 0, solve: 0, checks: 0 };
+  const findings: Finding[] = [];
+  let t = performance.now();
+  const tree = parse(text);
+  for (const e of tree.errors) findings.push(finding("syntax.error", e.span, e.message));
+  timings.parse = performance.now() - t;
+
+  t = performance.now();
+  const built = guard(() => buildModel(tree, text), findings, "building the model");
+  timings.model = performance.now() - t;
+  const result: Analysis = { text, tree, findings, readouts: {}, timings };
+  if (!built) return result;
+  findings.push(...built.findings);
+  if (!built.model) return result;
+  result.model = built.model;
+  if (options.modelOnly || blocksSolving(findings)) return result;
+
+  const deadline = options.budgetMs !== undefined ? performance.now() + options.budgetMs : Infinity;
+  t = performance.now();
+  const sweep = guard(
+    () => solveSweep(built.model!, { ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}), deadline }),
+    findings,
+    "solving the poses",
+  );
+  timings.solve = performance.now() - t;
+  if (!sweep) return result;
+  result.sweep = sweep;
+  findings.push(...sweep.findings);
+
+  t = performance.now();
+  const checked = guard(() => runChecks(built.model!, sweep, { deadline }), findings, "running the checks");
+  timings.checks = performance.now() - t;
+  if (checked) {
+    findings.push(...checked.findings);
+    result.readouts = checked.readouts;
+  }
+  return result;
+}
+
+/** Runs a phase; an exception becomes an `analysis.internal` finding instead of a crash. */
+function guard<T>(phase: () => T, findings: Finding[], what: string): T | undefined {
+  try {
+    return phase();
+  } catch (err) {
+    const detail = err instanceof Error ? err.message : String(err);
+    findings.push(finding("analysis.internal", { start: 0, end: 0 }, `Internal fault while ${what}: ${detail}`));
+    return undefined;
+  }
+}

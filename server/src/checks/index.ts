@@ -1,0 +1,30 @@
+// Runs every check family over a solved sweep. Each family lives in its own file and is listed
+// here once.
+import type { ArmModel } from "../model/types";
+import type { SweepResult } from "../mechanics/types";
+import type { Finding } from "./finding";
+import type { Readouts } from "./readout";
+
+export interface CheckOptions {
+  /** performance.now() value past which checks should stop early. */
+  deadline: number;
+}
+
+export interface CheckContext {
+  model: ArmModel;
+  sweep: SweepResult;
+  options: CheckOptions;
+  findings: Finding[];
+  readouts: Readouts;
+}
+
+export type CheckFamily = (ctx: CheckContext) => void;
+
+/** Filled in by the check families (balance, strength, geometry, stiffness, ...). */
+const FAMILIES: CheckFamily[] = [];
+
+export function runChecks(model: ArmModel, sweep: SweepResult, options: CheckOptions): { findings: Finding[]; readouts: Readouts } {
+  const ctx: CheckContext = { model, sweep, options, findings: [], readouts: {} };
+  for (const family of FAMILIES) family(ctx);
+  return { findings: ctx.findings, readouts: ctx.readouts };
+}

@@ -1,0 +1,42 @@
+// Readouts: the figures a hover, an inlay hint, the preview and the report show for a part.
+// Values in SI; the editor layer formats them in the user's unit system.
+import type { DimensionName } from "../units/dimension";
+
+export interface Figure {
+  label: string;
+  value: number;
+  dimension: DimensionName;
+  /** Where in the range, e.g. "at shoulder 35 deg". */
+  where?: string;
+  /** A second value for a span, e.g. a min..max range. */
+  high?: number;
+}
+
+export type PartKind = "base" | "link" | "bar" | "head" | "joint" | "parallelogram" | "spring" | "payload" | "material";
+
+export interface PartReadout {
+  id: string;
+  kind: PartKind;
+  figures: Figure[];
+  /** Plain sentences (limits of the model for this part, cautions such as rubber creep). */
+  notes: string[];
+  /** The smallest safety factor of the part over the range, if any check computes one. */
+  worstSafety?: { value: number; what: string; where?: string };
+}
+
+export type Readouts = Record<string, PartReadout>;
+
+/** Adds figures to a part's readout, creating it on first use. */
+export function addFigures(readouts: Readouts, id: string, kind: PartKind, figures: Figure[], notes: string[] = []): PartReadout {
+  const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
+  r.figures.push(...figures);
+  r.notes.push(...notes);
+  return r;
+}
+
+/** Keeps the lowest safety factor seen for a part. */
+export function noteSafety(readouts: Readouts, id: string, kind: PartKind, value: number, what: string, where?: string): void {
+  const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
+  if (!Number.isFinite(value)) return;
+  if (!r.worstSafety || value < r.worstSafety.value) r.worstSafety = { value, what, ...(where ? { where } : {}) };
+}

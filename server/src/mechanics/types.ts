@@ -1,0 +1,77 @@
+// Results of the kinematic and static sweep: plain data keyed by model ids, SI units.
+// Hover, inlay hints, checks, the preview, the report and `poise sweep` all read these.
+import type { Vec2 } from "../model/types";
+import type { Finding } from "../checks/finding";
+
+/** Origin of a body's frame in world coordinates and its x axis angle from horizontal, rad. */
+export interface BodyPose {
+  x: number;
+  y: number;
+  phi: number;
+}
+
+/** A degree of freedom: a joint with a range. A parallelogram's is named after it. */
+export interface Dof {
+  id: string;
+  jointId: string;
+  range: [number, number];
+  reference: number;
+}
+
+/** One assignment of payload masses; the nominal case first, then the ends of mass ranges. */
+export interface LoadCase {
+  id: string;
+  label: string;
+  payloadMass: Record<string, number>;
+}
+
+export interface SpringState {
+  /** Hook-to-hook length, m (torsion: NaN). */
+  length: number;
+  /** World hook points (torsion: the pivot, twice). */
+  a: Vec2;
+  b: Vec2;
+  /** Torsion springs: wind-up angle from free, rad. */
+  windUp?: number;
+}
+
+export interface PoseStatics {
+  /** Torque a hand or brake must apply at each degree of freedom to hold the pose, N*m, CCW
+   * positive (applied to the child relative to the parent), by dof id. */
+  holdingTorque: Record<string, number>;
+  /** Least force at each payload's centre that holds the pose, N, by payload id. */
+  handForce: Record<string, number>;
+  /** Force the parent exerts on the child at each joint, world, N, by joint id. */
+  reactions: Record<string, Vec2>;
+  /** Torque the parent exerts on the child at locked (fixed) joints, N*m, by joint id. */
+  lockedTorque: Record<string, number>;
+  /** Spring tension (N, positive pulls the hooks together) or torsion torque (N*m), by spring id. */
+  springForce: Record<string, number>;
+}
+
+export interface Pose {
+  /** Position in `poses`. */
+  index: number;
+  /** Value of each degree of freedom, rad, by dof id. */
+  angles: Record<string, number>;
+  /** Relative angle of every joint (child x from parent x), rad, by joint id. */
+  jointAngles: Record<string, number>;
+  bodies: Record<string, BodyPose>;
+  springs: Record<string, SpringState>;
+  /** Statics per load case, same order as `SweepResult.loadCases`. */
+  cases: PoseStatics[];
+}
+
+export interface SweepResult {
+  dofs: Dof[];
+  loadCases: LoadCase[];
+  /** The reference pose (every joint at its angle), when it assembles. */
+  reference?: Pose;
+  /** Poses in sweep order: a grid (last dof fastest) or each dof alone, others at reference. */
+  poses: Pose[];
+  /** Steps actually used per dof. */
+  steps: number;
+  grid: boolean;
+  /** Kinematic findings: geometry.loop-open, geometry.cannot-reach, joint.unheld, ... */
+  findings: Finding[];
+}

@@ -1,0 +1,207 @@
+// What each declaration accepts: property names, the shape of their values, the dimension a
+// quantity must have, whether required. One table serves the model builder, completion, hover
+// and the language reference, so they cannot disagree.
+import type { DimensionName } from "../units/dimension";
+import type { DeclarationKeyword } from "../syntax/ast";
+
+/** How a property's values read, position by position. */
+export type ValueShape =
+  | { type: "quantity"; dimension: DimensionName }
+  | { type: "quantity-or"; dimensions: DimensionName[] } // e.g. torsion preload: angle or torque
+  | { type: "range"; dimension: DimensionName }
+  | { type: "point" } // (x, y) lengths
+  | { type: "vector"; dimension: DimensionName } // (Fx, Fy)
+  | { type: "named-point" } // NAME (x, y)
+  | { type: "section" } // rect D x W | tube OD x WALL | rod D
+  | { type: "dims"; dimension: DimensionName } // A x B
+  | { type: "reference"; to: "body" | "point" | "joint" | "joint-or-parallelogram" | "payload" } // body, body.point, body(x, y), body.point(x, y)
+  | { type: "material" }
+  | { type: "word"; words: string[] }
+  | { type: "flag" } // the key alone, e.g. `fixed`, `yaw`, `extension`
+  | { type: "sequence"; items: (ValueShape | { type: "keyword"; word: string })[] };
+
+export interface PropertySpec {
+  key: string;
+  shape: ValueShape;
+  required?: boolean;
+  /** Only for these spring kinds (spring declarations). */
+  springKinds?: string[];
+  /** One line for hover and completion. */
+  doc: string;
+  /** Example as it would be typed, for snippets and docs. */
+  example: string;
+}
+
+export interface DeclarationSpec {
+  keyword: DeclarationKeyword;
+  named: boolean;
+  doc: string;
+  properties: PropertySpec[];
+}
+
+const q = (dimension: DimensionName): ValueShape => ({ type: "quantity", dimension });
+const kw = (word: string) => ({ type: "keyword" as const, word });
+
+export const SPRING_KINDS = ["extension", "zero_length", "elastic", "gas", "torsion"] as const;
+
+export const DECLARATIONS: readonly DeclarationSpec[] = [
+  {
+    keyword: "material",
+    named: true,
+    doc: "A material of your own (the built-in library supplies common ones by name).",
+    properties: [
+      { key: "density", shape: q("density"), required: true, doc: "Mass per volume.", example: "density 1.24 g/cm^3" },
+      { key: "modulus", shape: q("pressure"), required: true, doc: "Young's modulus.", example: "modulus 3.4 GPa" },
+      { key: "shear_modulus", shape: q("pressure"), doc: "Shear modulus (else from poisson).", example: "shear_modulus 1.3 GPa" },
+      { key: "poisson", shape: q("dimensionless"), doc: "Poisson's ratio (default 0.3).", example: "poisson 0.35" },
+      { key: "strength", shape: q("pressure"), required: true, doc: "Yield strength, or tensile strength for brittle prints.", example: "strength 50 MPa" },
+      { key: "layer_strength", shape: q("pressure"), doc: "Strength across printed layers; marks the material as printed.", example: "layer_strength 25 MPa" },
+    ],
+  },
+  {
+    keyword: "base",
+    named: true,
+    doc: "The fixed ground: world coordinates, x to the reach side, y up.",
+    properties: [
+      { key: "mass", shape: q("mass"), doc: "Mass of the base (resists tipping).", example: "mass 4 kg" },
+      { key: "footprint", shape: { type: "dims", dimension: "length" }, doc: "Footprint width (along x) x depth, centred on the origin.", example: "footprint 240 mm x 200 mm" },
+      { key: "yaw", shape: { type: "flag" }, doc: "The arm turns about a vertical axis through the base: adds thrust-bearing and tipping checks for every heading.", example: "yaw" },
+      { key: "surface", shape: q("length"), doc: "Height of the bench surface (default 0).", example: "surface 0 mm" },
+      { key: "point", shape: { type: "named-point" }, doc: "A named point in world coordinates.", example: "point top (0 mm, 300 mm)" },
+    ],
+  },
+  {
+    keyword: "link",
+    named: true,
+    doc: "A rigid bar from `start` (0, 0) to `end` (length, 0).",
+    properties: [
+      { key: "length", shape: q("length"), required: true, doc: "Pivot-to-pivot length.", example: "length 300 mm" },
+      { key: "section", shape: { type: "section" }, doc: "Cross-section: rect DEPTH x WIDTH, tube OD x WALL, rod D.", example: "section rect 20 mm x 6 mm" },
+      { key: "material", shape: { type: "material" }, doc: "Material name (built-in or declared).", example: "material pla" },
+      { key: "mass", shape: q("mass"), doc: "Overrides section x length x density.", example: "mass 120 g" },
+      { key: "point", shape: { type: "named-point" }, doc: "A named point in the link's frame.", example: "point hook (100 mm, 10 mm)" },
+      { key: "holes", shape: q("length"), doc: "Wall thickness the pins bear on (default: the section's width).", example: "holes 6 mm" },
+    ],
+  },
+  {
+    keyword: "joint",
+    named: true,
+    doc: "A revolute pivot between a parent and a child body.",
+    properties: [
+      { key: "connects", shape: { type: "sequence", items: [{ type: "reference", to: "point" }, kw("to"), { type: "reference", to: "point" }] }, required: true, doc: "Parent point to child point.", example: "connects post.top to arm.start" },
+      { key: "angle", shape: q("angle"), doc: "Child x axis from parent x axis (CCW positive): the reference pose.", example: "angle 30 deg" },
+      { key: "range", shape: { type: "range", dimension: "angle" }, doc: "Makes the joint a degree of freedom swept over this range.", example: "range -30 deg .. 60 deg" },
+      { key: "fixed", shape: { type: "flag" }, doc: "Locks the joint at `angle`.", example: "fixed" },
+      { key: "pin", shape: { type: "sequence", items: [q("length"), { type: "material" }] }, doc: "Pin diameter and material.", example: "pin 5 mm steel_1018" },
+      { key: "shear", shape: { type: "word", words: ["single", "double"] }, doc: "Shear planes of the pin (default single).", example: "shear double" },
+      { key: "friction", shape: q("torque"), doc: "Holding torque of the pivot's friction.", example: "friction 0.2 N*m" },
+    ],
+  },
+  {
+    keyword: "parallelogram",
+    named: true,
+    doc: "A four-bar stage whose far upright keeps the root's orientation; creates NAME.lower, NAME.upper and NAME.head.",
+    properties: [
+      { key: "on", shape: { type: "reference", to: "point" }, required: true, doc: "Where the lower root pivot sits on the parent.", example: "on base.top" },
+      { key: "length", shape: q("length"), required: true, doc: "Pivot-to-pivot length of the bars.", example: "length 350 mm" },
+      { key: "upper_length", shape: q("length"), doc: "Upper bar length, for a stage whose bars differ.", example: "upper_length 352 mm" },
+      { key: "spacing", shape: q("length"), required: true, doc: "Distance between the bars' root pivots, along the parent's y axis.", example: "spacing 40 mm" },
+      { key: "angle", shape: q("angle"), doc: "Reference angle of the bars from the parent's x axis.", example: "angle 20 deg" },
+      { key: "range", shape: { type: "range", dimension: "angle" }, doc: "Range of the bars' angle (the stage's degree of freedom).", example: "range -30 deg .. 50 deg" },
+      { key: "fixed", shape: { type: "flag" }, doc: "Locks the stage at `angle`.", example: "fixed" },
+      { key: "bars", shape: { type: "sequence", items: [{ type: "section" }, { type: "material" }] }, required: true, doc: "Section and material of both bars.", example: "bars rect 16 mm x 5 mm petg" },
+      { key: "head_mass", shape: q("mass"), doc: "Mass of the far upright (default 0).", example: "head_mass 50 g" },
+      { key: "pins", shape: { type: "sequence", items: [q("length"), { type: "material" }] }, doc: "Diameter and material of the four pins.", example: "pins 4 mm steel_1018" },
+      { key: "shear", shape: { type: "word", words: ["single", "double"] }, doc: "Shear planes of the pins (default single).", example: "shear double" },
+      { key: "friction", shape: q("torque"), doc: "Holding torque of the root pivot's friction.", example: "friction 0.1 N*m" },
+    ],
+  },
+  {
+    keyword: "spring",
+    named: true,
+    doc: "A force element between two points (or, for torsion, at a joint).",
+    properties: [
+      { key: "extension", shape: { type: "flag" }, doc: "Helical extension spring.", example: "extension" },
+      { key: "zero_length", shape: { type: "flag" }, doc: "Ideal zero-free-length spring (e.g. led over a pulley).", example: "zero_length" },
+      { key: "elastic", shape: { type: "flag" }, doc: "Rubber cord or tubing (neo-Hookean).", example: "elastic" },
+      { key: "gas", shape: { type: "flag" }, doc: "Gas strut.", example: "gas" },
+      { key: "torsion", shape: { type: "flag" }, doc: "Torsion spring at a pivot.", example: "torsion" },
+      { key: "between", shape: { type: "sequence", items: [{ type: "reference", to: "point" }, kw("and"), { type: "reference", to: "point" }] }, springKinds: ["extension", "zero_length", "elastic", "gas"], doc: "The two hook points.", example: "between base.anchor and arm(80 mm, 0 mm)" },
+      { key: "at", shape: { type: "reference", to: "joint-or-parallelogram" }, springKinds: ["torsion"], doc: "The joint (or parallelogram) it acts at.", example: "at shoulder" },
+      { key: "rate", shape: { type: "quantity-or", dimensions: ["stiffness", "angular_stiffness"] }, springKinds: ["extension", "zero_length", "torsion"], doc: "Spring rate (angular for torsion).", example: "rate 0.8 N/mm" },
+      { key: "free_length", shape: q("length"), springKinds: ["extension", "elastic"], doc: "Unloaded length.", example: "free_length 60 mm" },
+      { key: "initial_tension", shape: q("force"), springKinds: ["extension", "zero_length"], doc: "Force the coils hold closed before stretching.", example: "initial_tension 4 N" },
+      { key: "max_length", shape: q("length"), springKinds: ["extension"], doc: "Longest safe length.", example: "max_length 140 mm" },
+      { key: "wire", shape: q("length"), springKinds: ["extension"], doc: "Wire diameter (coil geometry instead of rate).", example: "wire 1.2 mm" },
+      { key: "coil", shape: q("length"), springKinds: ["extension"], doc: "Mean coil diameter.", example: "coil 9.6 mm" },
+      { key: "coils", shape: q("dimensionless"), springKinds: ["extension"], doc: "Number of body coils.", example: "coils 20" },
+      { key: "material", shape: { type: "material" }, springKinds: ["extension", "elastic"], doc: "Wire material, or the cord's rubber.", example: "material music_wire" },
+      { key: "area", shape: q("area"), springKinds: ["elastic"], doc: "Unstretched cross-section of the cord.", example: "area 12 mm^2" },
+      { key: "tube", shape: { type: "dims", dimension: "length" }, springKinds: ["elastic"], doc: "Rubber tube outer diameter x wall.", example: "tube 6 mm x 1.5 mm" },
+      { key: "max_stretch", shape: q("dimensionless"), springKinds: ["elastic"], doc: "Largest safe stretch ratio L / L0.", example: "max_stretch 2.5" },
+      { key: "force", shape: q("force"), springKinds: ["gas"], doc: "Force at full extension.", example: "force 100 N" },
+      { key: "progression", shape: q("dimensionless"), springKinds: ["gas"], doc: "Compressed force / extended force.", example: "progression 1.3" },
+      { key: "stroke", shape: q("length"), springKinds: ["gas"], doc: "Stroke.", example: "stroke 60 mm" },
+      { key: "extended_length", shape: q("length"), springKinds: ["gas"], doc: "Eye-to-eye length fully extended.", example: "extended_length 180 mm" },
+      { key: "preload", shape: { type: "quantity-or", dimensions: ["angle", "torque"] }, springKinds: ["torsion"], doc: "Wind-up angle or torque at the reference pose.", example: "preload 90 deg" },
+      { key: "max_angle", shape: q("angle"), springKinds: ["torsion"], doc: "Largest safe wind-up angle.", example: "max_angle 270 deg" },
+    ],
+  },
+  {
+    keyword: "payload",
+    named: true,
+    doc: "What the arm carries: a mass at a point, with an optional steady working force.",
+    properties: [
+      { key: "mass", shape: q("mass"), required: true, doc: "Mass of the payload.", example: "mass 450 g" },
+      { key: "at", shape: { type: "reference", to: "point" }, required: true, doc: "Its centre of mass.", example: "at reach.head(40 mm, -20 mm)" },
+      { key: "force", shape: { type: "vector", dimension: "force" }, doc: "Steady working force (Fx, Fy), world.", example: "force (0 N, -5 N)" },
+      { key: "range", shape: { type: "range", dimension: "mass" }, doc: "Range of masses (a holder for several tools).", example: "range 300 g .. 700 g" },
+    ],
+  },
+  {
+    keyword: "require",
+    named: false,
+    doc: "The design's acceptance limits; each omitted one takes its documented default.",
+    properties: [
+      { key: "balance", shape: { type: "sequence", items: [q("force"), kw("at"), { type: "reference", to: "payload" }] }, doc: "Largest hand force to hold the payload anywhere in range (default 1 N; `at` optional).", example: "balance 2 N at camera" },
+      { key: "safety", shape: q("dimensionless"), doc: "Least safety factor on every part (default 2).", example: "safety 2.5" },
+      { key: "tilt", shape: { type: "sequence", items: [q("angle"), kw("at"), { type: "reference", to: "payload" }] }, doc: "Largest head orientation change (default 2 deg).", example: "tilt 1 deg at camera" },
+      { key: "deflection", shape: { type: "sequence", items: [q("length"), kw("at"), { type: "reference", to: "payload" }] }, doc: "Largest elastic deflection (default 2 mm).", example: "deflection 1 mm at camera" },
+      { key: "frequency", shape: q("frequency"), doc: "Lowest natural frequency of the loaded arm (default 4 Hz).", example: "frequency 6 Hz" },
+      { key: "tipping", shape: q("dimensionless"), doc: "Safety against tipping the base (default 1.5).", example: "tipping 2" },
+      { key: "clearance", shape: q("length"), doc: "Least distance between bodies and to the bench (default 3 mm).", example: "clearance 5 mm" },
+    ],
+  },
+  {
+    keyword: "sweep",
+    named: false,
+    doc: "How densely the analysis visits the range of motion.",
+    properties: [
+      { key: "steps", shape: q("dimensionless"), doc: "Poses per degree of freedom, both ends included (default 37, at most 2001).", example: "steps 37" },
+      { key: "grid", shape: { type: "word", words: ["on", "off"] }, doc: "Sweep the grid of all degrees of freedom (on) or each alone (off). Default on.", example: "grid on" },
+    ],
+  },
+];
+
+/** Properties allowed directly inside `arm { }`. */
+export const ARM_PROPERTIES: readonly PropertySpec[] = [
+  { key: "gravity", shape: q("acceleration"), doc: "Acceleration of gravity (default standard gravity 9.80665 m/s^2).", example: "gravity 9.81 m/s^2" },
+];
+
+export function declarationSpec(keyword: string): DeclarationSpec | undefined {
+  return DECLARATIONS.find((d) => d.keyword === keyword);
+}
+
+/** Documented defaults of the `require` block (SI). Common practice with no source: a designer's
+ * starting points, stated in docs/language.md. */
+export const REQUIREMENT_DEFAULTS = {
+  balanceN: 1.0,
+  safety: 2.0,
+  tiltRad: (2 * Math.PI) / 180,
+  deflectionM: 0.002,
+  frequencyHz: 4,
+  tipping: 1.5,
+  clearanceM: 0.003,
+} as const;
+
+export const SWEEP_DEFAULTS = { steps: 37, maxSteps: 2001, grid: true } as const;
