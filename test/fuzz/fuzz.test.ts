@@ -1,0 +1,25 @@
+// The CI-size fuzz run: a few thousand generated and mutated texts through the core, in a worker
+// under a watchdog (see long-run.ts), with a fixed seed so CI is repeatable. `npm run fuzz` runs
+// the same campaign at 100,000 cases and writes what it finds to test/fuzz/failures/.
+import { describe, expect, it } from "vitest";
+import { spawnSync } from "node:child_process";
+import { join } from "node:path";
+
+const root = join(__dirname, "..", "..");
+/** Cases in the CI run, and its wall-clock cap: ~60 s on 2 shared cores is the budget. */
+const CI_RUNS = Number(process.env.FUZZ_CI_RUNS ?? 3000);
+const CI_TIME_LIMIT_MS = 45_000;
+const CI_SEED = Number(process.env.FUZZ_SEED ?? 20261202);
+
+describe("fuzzing the core", () => {
+  it(`holds the robustness properties on ${CI_RUNS} texts`, () => {
+    const run = spawnSync(process.execPath, [join(root, "scripts", "fuzz.mjs"), "--runs", String(CI_RUNS), "--seed", String(CI_SEED), "--time-limit-ms", String(CI_TIME_LIMIT_MS), "--no-write", "--json"], { cwd: root, encoding: "utf8", timeout: 120_000 });
+    const line = run.stdout.trim().split("\n").pop() ?? "";
+    expect(line, `fuzzer output:\n${run.stderr}`).toMatch(/^\{/);
+    const summary = JSON.parse(line) as { cases: number; failures: number; details: { property: string; family: string; message: string; text: string }[] };
+    const report = summary.details.map((d) => `${d.property} (${d.family}): ${d.message}\ninput: ${JSON.stringify(d.text)}`).join("\n\n");
+    expect(summary.failures, report).toBe(0);
+    // The run must really have exercised the core, not stopped early.
+    expect(summary.cases).toBeGreaterThan(Math.min(CI_RUNS, 500));
+  }, 150_000);
+});

@@ -1,0 +1,172 @@
+// The robustness properties every text must satisfy: the core never throws and never faults
+// internally, every finding lies inside the document, the same text gives the same findings, and
+// no figure that reaches the user is NaN or infinite.
+import { analyse, type Analysis } from "../../server/src/analysis";
+import { parse } from "../../server/src/syntax/parser";
+import { buildModel } from "../../server/src/model/build";
+import { solveSweep } from "../../server/src/mechanics/sweep";
+import { runChecks } from "../../server/src/checks/index";
+import { CODES } from "../../server/src/checks/codes";
+import type { Finding } from "../../server/src/checks/finding";
+import type { Span } from "../../server/src/syntax/span";
+import type { Pose } from "../../server/src/mechanics/types";
+
+/** Poses per degree of freedom during fuzzing: enough to walk a range (ends and middle), few
+ * enough that thousands of cases fit in the CI budget. */
+export const FUZZ_STEPS = 3;
+
+/** A single case slower than this is reported as a failure: the editor re-analyses on every
+ * keystroke, so a text that takes seconds at 3 steps is a hang in the making. Common practice,
+ * no source: generous against a 2-core CI box shared with other jobs. */
+export const SLOW_CASE_MS = 4000;
+
+export interface Violation {
+  property: "no-throw" | "no-internal-fault" | "span-in-document" | "deterministic" | "finite-figures" | "finite-model" | "well-formed-finding" | "fast";
+  message: string;
+}
+
+export function checkText(text: string): Violation[] {
+  const violations: Violation[] = [];
+  const t0 = performance.now();
+  let first: Analysis;
+  try {
+    first = analyse(text, { stepsOverride: FUZZ_STEPS });
+  } catch (err) {
+    return [{ property: "no-throw", message: `analyse threw: ${describeError(err)}` }];
+  }
+  const elapsed = performance.now() - t0;
+  if (elapsed > SLOW_CASE_MS) violations.push({ property: "fast", message: `analyse took ${elapsed.toFixed(0)} ms at ${FUZZ_STEPS} steps` });
+
+  for (const f of first.findings) {
+    if (f.code === "analysis.internal") violations.push({ property: "no-internal-fault", message: `${f.message}${internalStack(text)}` });
+    checkFindingShape(f, text, violations);
+  }
+  for (const e of first.tree.errors) checkSpan(e.span, text, `syntax error "${e.message}"`, violations);
+
+  checkFiniteResults(first, violations);
+
+  let second: Analysis;
+  try {
+    second = analyse(text, { stepsOverride: FUZZ_STEPS });
+  } catch (err) {
+    violations.push({ property: "deterministic", message: `second analyse threw: ${describeError(err)}` });
+    return violations;
+  }
+  const a = findingsDigest(first.findings);
+  const b = findingsDigest(second.findings);
+  if (a !== b) violations.push({ property: "deterministic", message: `findings differ between two runs:\n  ${a}\n  ${b}` });
+  return violations;
+}
+
+function checkSpan(s: Span, text: string, what: string, violations: Violation[]): void {
+  const ok = s && Number.isInteger(s.start) && Number.isInteger(s.end) && 0 <= s.start && s.start <= s.end && s.end <= text.length;
+  if (!ok) violations.push({ property: "span-in-document", message: `${what}: span ${JSON.stringify(s)} outside 0..${text.length}` });
+}
+
+function checkFindingShape(f: Finding, text: string, violations: Violation[]): void {
+  const what = `${f.code} "${f.message}"`;
+  checkSpan(f.span, text, what, violations);
+  for (const r of f.related ?? []) checkSpan(r.span, text, `${what} related "${r.message}"`, violations);
+  if (!(f.code in CODES)) violations.push({ property: "well-formed-finding", message: `unknown code ${f.code}` });
+  if (typeof f.message !== "string" || f.message.trim() === "") violations.push({ property: "well-formed-finding", message: `${f.code} has an empty message` });
+  // A message may quote the user's own words; only flag NaN/undefined the text did not contain.
+  for (const word of ["NaN", "Infinity", "undefined", "[object Object]"]) {
+    if (f.message.includes(word) && !text.includes(word)) violations.push({ property: "finite-figures", message: `${what} shows ${word}` });
+  }
+}
+
+function finiteOr(value: unknown, path: string, out: string[]): void {
+  if (typeof value === "number" && !Number.isFinite(value)) out.push(`${path} = ${value}`);
+}
+
+function recordFinite(rec: Record<string, number> | undefined, path: string, out: string[]): void {
+  for (const [k, v] of Object.entries(rec ?? {})) finiteOr(v, `${path}.${k}`, out);
+}
+
+function checkPose(p: Pose, torsion: Set<string>, path: string, out: string[]): void {
+  recordFinite(p.angles, `${path}.angles`, out);
+  recordFinite(p.jointAngles, `${path}.jointAngles`, out);
+  for (const [id, b] of Object.entries(p.bodies)) {
+    finiteOr(b.x, `${path}.bodies.${id}.x`, out);
+    finiteOr(b.y, `${path}.bodies.${id}.y`, out);
+    finiteOr(b.phi, `${path}.bodies.${id}.phi`, out);
+  }
+  for (const [id, s] of Object.entries(p.springs)) {
+    // The contract makes a torsion spring's hook-to-hook length NaN; everything else is reported.
+    if (!torsion.has(id)) finiteOr(s.length, `${path}.springs.${id}.length`, out);
+    for (const v of [s.a.x, s.a.y, s.b.x, s.b.y]) finiteOr(v, `${path}.springs.${id}.hooks`, out);
+    if (s.windUp !== undefined) finiteOr(s.windUp, `${path}.springs.${id}.windUp`, out);
+  }
+  p.cases.forEach((c, i) => {
+    recordFinite(c.holdingTorque, `${path}.cases[${i}].holdingTorque`, out);
+    recordFinite(c.handForce, `${path}.cases[${i}].handForce`, out);
+    recordFinite(c.lockedTorque, `${path}.cases[${i}].lockedTorque`, out);
+    recordFinite(c.springForce, `${path}.cases[${i}].springForce`, out);
+    for (const [id, r] of Object.entries(c.reactions)) {
+      finiteOr(r.x, `${path}.cases[${i}].reactions.${id}.x`, out);
+      finiteOr(r.y, `${path}.cases[${i}].reactions.${id}.y`, out);
+    }
+  });
+}
+
+/** Walks a plain value and lists every non-finite number in it. */
+function nonFiniteNumbers(value: unknown, path: string, out: string[], depth = 0): void {
+  if (depth > 8 || out.length > 5) return;
+  if (typeof value === "number") finiteOr(value, path, out);
+  else if (Array.isArray(value)) value.forEach((v, i) => nonFiniteNumbers(v, `${path}[${i}]`, out, depth + 1));
+  else if (value && typeof value === "object") for (const [k, v] of Object.entries(value)) nonFiniteNumbers(v, `${path}.${k}`, out, depth + 1);
+}
+
+function checkFiniteResults(a: Analysis, violations: Violation[]): void {
+  const out: string[] = [];
+  for (const [id, r] of Object.entries(a.readouts)) {
+    for (const f of r.figures) {
+      finiteOr(f.value, `readouts.${id}.${f.label}`, out);
+      if (f.high !== undefined) finiteOr(f.high, `readouts.${id}.${f.label}.high`, out);
+      if (typeof f.value !== "number") out.push(`readouts.${id}.${f.label} is ${typeof f.value}`);
+    }
+    if (r.worstSafety) finiteOr(r.worstSafety.value, `readouts.${id}.worstSafety`, out);
+  }
+  if (a.sweep) {
+    const torsion = new Set((a.model?.springs ?? []).filter((s) => s.kind === "torsion").map((s) => s.id));
+    if (a.sweep.reference) checkPose(a.sweep.reference, torsion, "sweep.reference", out);
+    a.sweep.poses.forEach((p, i) => checkPose(p, torsion, `sweep.poses[${i}]`, out));
+    for (const d of a.sweep.dofs) for (const v of [...d.range, d.reference]) finiteOr(v, `sweep.dofs.${d.id}`, out);
+  }
+  if (out.length) violations.push({ property: "finite-figures", message: out.slice(0, 5).join("; ") });
+
+  // The solver is only ever fed a model whose numbers are all finite.
+  if (a.sweep && a.model) {
+    const bad: string[] = [];
+    nonFiniteNumbers(a.model, "model", bad);
+    if (bad.length) violations.push({ property: "finite-model", message: `solved a model with ${bad.slice(0, 5).join("; ")}` });
+  }
+}
+
+function findingsDigest(findings: readonly Finding[]): string {
+  return JSON.stringify(findings.filter((f) => f.code !== "analysis.budget").map((f) => [f.code, f.severity, f.span.start, f.span.end, f.message]));
+}
+
+export function describeError(err: unknown): string {
+  if (err instanceof Error) return `${err.message}\n${(err.stack ?? "").split("\n").slice(1, 8).join("\n")}`;
+  return String(err);
+}
+
+/** Re-runs the phases without the analysis guard to recover the stack of an internal fault. */
+function internalStack(text: string): string {
+  try {
+    const tree = parse(text);
+    const built = buildModel(tree, text);
+    if (!built.model) return "";
+    const sweep = solveSweep(built.model, { stepsOverride: FUZZ_STEPS });
+    runChecks(built.model, sweep, { deadline: Infinity });
+    return "";
+  } catch (err) {
+    return `\n${describeError(err)}`;
+  }
+}
+
+/** A failure's signature, for deduplication: the property and the message without numbers. */
+export function signature(v: Violation): string {
+  return `${v.property}:${v.message.split("\n")[0]!.replace(/-?\d[\d.e+-]*/g, "#").replace(/"[^"]*"/g, '"…"').slice(0, 160)}`;
+}
