@@ -1,0 +1,182 @@
+// The grammar as a Chevrotain CST parser. It is deliberately permissive: every line is an item
+// (`word values... { block }?`), and what does not fit is kept as a `junk` node, so that one typo
+// costs one diagnostic and the builder (build-tree.ts) can say precisely what is wrong.
+import { CstParser, type IToken } from "chevrotain";
+import {
+  ALL_TOKENS,
+  Comma,
+  CompoundUnit,
+  Cross,
+  Dot,
+  DotDot,
+  Identifier,
+  LCurly,
+  LineToken,
+  LParen,
+  NewLine,
+  NonWord,
+  NumberLiteral,
+  RCurly,
+  RParen,
+  Semicolon,
+  StrayStart,
+  StringLiteral,
+  UnclosedString,
+} from "./tokens";
+import { DECLARATION_KEYWORDS } from "./keywords";
+import { isUnitSymbol } from "../units/unit-table";
+
+/** Blocks nest: the file (0) holds the arm, the arm's body (1) holds declarations, a declaration's
+ * body (2) holds properties. */
+const DECLARATION_BODY_DEPTH = 2;
+
+const DECLARATION_STARTERS: ReadonlySet<string> = new Set([...DECLARATION_KEYWORDS, "arm"]);
+
+export class ArmGrammar extends CstParser {
+  /** Open blocks at the current position (reset with each input). */
+  private depth = 0;
+
+  constructor() {
+    super(ALL_TOKENS, { recoveryEnabled: true, maxLookahead: 3 });
+    this.performSelfAnalysis();
+  }
+
+  resetDepth(): void {
+    this.depth = 0;
+  }
+
+  /** A line inside a declaration's body that starts a new declaration (`link arm2 {`, `require {`)
+   * means the body's closing brace is missing: end the body there instead of swallowing the rest. */
+  private startsDeclarationLine(): boolean {
+    const first = this.LA(1);
+    if (first.tokenType !== Identifier || !DECLARATION_STARTERS.has(first.image)) return false;
+    const second = this.LA(2);
+    if (second.tokenType === LCurly) return true;
+    const third = this.LA(3);
+    return (second.tokenType === Identifier || second.tokenType === StringLiteral) && third.tokenType === LCurly;
+  }
+
+  private isUnitWord(token: IToken): boolean {
+    return token.tokenType === CompoundUnit || (token.tokenType === Identifier && isUnitSymbol(token.image));
+  }
+
+  public document = this.RULE("document", () => {
+    this.MANY(() => {
+      this.OR([
+        { ALT: () => this.CONSUME(NewLine) },
+        { ALT: () => this.CONSUME(Semicolon) },
+        { ALT: () => this.CONSUME(RCurly) },
+        { ALT: () => this.SUBRULE(this.item) },
+        { ALT: () => this.SUBRULE(this.block) },
+        { ALT: () => this.SUBRULE(this.strayLine) },
+      ]);
+    });
+  });
+
+  /** `{ ... }`; the closing brace may be missing (the builder reports it). */
+  public block = this.RULE("block", () => {
+    this.CONSUME(LCurly);
+    this.ACTION(() => this.depth++);
+    this.SUBRULE(this.body);
+    this.ACTION(() => this.depth--);
+    this.OPTION(() => this.CONSUME(RCurly));
+  });
+
+  public body = this.RULE("body", () => {
+    this.MANY({
+      GATE: () => !(this.depth >= DECLARATION_BODY_DEPTH && this.startsDeclarationLine()),
+      DEF: () => {
+        this.OR([
+          { ALT: () => this.CONSUME(NewLine) },
+          { ALT: () => this.CONSUME(Semicolon) },
+          { ALT: () => this.SUBRULE(this.item) },
+          { ALT: () => this.SUBRULE(this.block) },
+          { ALT: () => this.SUBRULE(this.strayLine) },
+        ]);
+      },
+    });
+  });
+
+  /** A property (`key values`) or, with a block, a declaration (`keyword name { }`). */
+  public item = this.RULE("item", () => {
+    this.CONSUME(Identifier);
+    this.MANY(() => this.SUBRULE(this.value));
+    this.OPTION(() => this.SUBRULE(this.junk));
+    this.OPTION2(() => this.SUBRULE(this.block));
+  });
+
+  /** A line that starts with something other than a word. */
+  public strayLine = this.RULE("strayLine", () => {
+    this.CONSUME(NonWord);
+    this.MANY(() => this.CONSUME(LineToken));
+  });
+
+  /** The rest of a line that fits nothing. */
+  public junk = this.RULE("junk", () => {
+    this.CONSUME(StrayStart);
+    this.MANY(() => this.CONSUME(LineToken));
+  });
+
+  public value = this.RULE("value", () => {
+    this.OR([
+      { ALT: () => this.SUBRULE(this.quantityForm) },
+      { ALT: () => this.SUBRULE(this.point) },
+      { ALT: () => this.SUBRULE(this.reference) },
+      { ALT: () => this.CONSUME(StringLiteral) },
+      { ALT: () => this.CONSUME(UnclosedString) },
+    ]);
+  });
+
+  /** A quantity, a range `lo .. hi` or dims `a x b`; the second quantity may be missing. */
+  public quantityForm = this.RULE("quantityForm", () => {
+    this.SUBRULE(this.quantity);
+    this.OPTION(() => {
+      this.OR([
+        {
+          ALT: () => {
+            this.CONSUME(DotDot);
+            this.OPTION2(() => this.SUBRULE2(this.quantity));
+          },
+        },
+        {
+          ALT: () => {
+            this.CONSUME(Cross);
+            this.OPTION3(() => this.SUBRULE3(this.quantity));
+          },
+        },
+      ]);
+    });
+  });
+
+  public quantity = this.RULE("quantity", () => {
+    this.CONSUME(NumberLiteral);
+    this.OPTION({
+      GATE: () => this.isUnitWord(this.LA(1)),
+      DEF: () => {
+        this.OR([{ ALT: () => this.CONSUME(CompoundUnit) }, { ALT: () => this.CONSUME(Identifier) }]);
+      },
+    });
+  });
+
+  /** `(x, y)`; every part may be missing (the builder reports which). */
+  public point = this.RULE("point", () => {
+    this.CONSUME(LParen);
+    this.OPTION(() => this.SUBRULE(this.quantity));
+    this.OPTION2(() => this.CONSUME(Comma));
+    this.OPTION3(() => this.SUBRULE2(this.quantity));
+    this.OPTION4(() => this.CONSUME(RParen));
+  });
+
+  /** `name`, `body.point`, `body(x, y)`; a trailing dot without a name is kept for the message. */
+  public reference = this.RULE("reference", () => {
+    this.CONSUME(Identifier);
+    this.MANY(() => {
+      this.CONSUME(Dot);
+      this.OPTION(() => this.CONSUME2(Identifier));
+    });
+    this.OPTION2(() => this.SUBRULE(this.point));
+  });
+}
+
+/** One parser instance, reused: parse() resets its input. */
+export const armGrammar = new ArmGrammar();
