@@ -1,0 +1,276 @@
+// Builds the arm view model (view-model.ts) from an analysis: model + sweep + findings + readouts.
+// Pure: no IO; the preview request and `poise report` both call it.
+import type { ArmModel, Body, Vec2 } from "../model/types";
+import type { SweepResult } from "../mechanics/types";
+import type { Finding } from "../checks/finding";
+import type { Readouts } from "../checks/readout";
+import type { Span } from "../syntax/span";
+import { LineIndex } from "../syntax/span";
+import { sectionProperties } from "../model/section";
+import type { PartStatus, ViewBody, ViewFinding, ViewModel, ViewPart, ViewPose, ViewRange, SafetyRow } from "./view-model";
+import { linesPerDof, nearestPose } from "./pose-lines";
+import { splitHoldingTorque, TORQUE_METHOD } from "./torque-split";
+import { payloadPaths, viewBounds } from "./envelope";
+
+/** What the view needs of an analysis (an `Analysis` fits). */
+export interface ViewInput {
+  text: string;
+  model?: ArmModel;
+  sweep?: SweepResult;
+  findings: readonly Finding[];
+  readouts: Readouts;
+}
+
+const MM = 1000;
+const DEG = 180 / Math.PI;
+/** Attachment points nearer the centre line than this need no bracket drawn, m. */
+const BRACKET_MIN_M = 0.0005;
+
+/** Rounds to 1e-4 of the display unit: far below what a drawing or a table shows, and it keeps
+ * the JSON sent to the panel small. */
+function r4(x: number): number {
+  return Number.isFinite(x) ? Math.round(x * 1e4) / 1e4 : x;
+}
+
+function toRange(index: LineIndex, s: Span): ViewRange {
+  return { start: index.position(s.start), end: index.position(s.end) };
+}
+
+function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; spans: Map<string, Span> } {
+  const parts: ViewPart[] = [];
+  const spans = new Map<string, Span>();
+  const add = (id: string, kind: ViewPart["kind"], origin: { declaration: Span; name?: Span; generatedBy?: string }) => {
+    if (origin.generatedBy) return;
+    spans.set(id, origin.declaration);
+    parts.push({ id, kind, range: toRange(index, origin.name ?? origin.declaration), status: "ok", codes: [] });
+  };
+  for (const b of model.bodies) if (b.kind === "base" || b.kind === "link") add(b.id, b.kind, b.origin);
+  for (const j of model.joints) add(j.id, "joint", j.origin);
+  for (const p of model.parallelograms) add(p.id, "parallelogram", p.origin);
+  for (const s of model.springs) add(s.id, "spring", s.origin);
+  for (const p of model.payloads) add(p.id, "payload", p.origin);
+  return { parts, spans };
+}
+
+/** The part a finding is about: the smallest declaration holding its start. */
+function partAt(spans: Map<string, Span>, offset: number): string | undefined {
+  let best: string | undefined;
+  let bestSize = Infinity;
+  for (const [id, s] of spans) {
+    if (offset >= s.start && offset < Math.max(s.end, s.start + 1) && s.end - s.start < bestSize) {
+      best = id;
+      bestSize = s.end - s.start;
+    }
+  }
+  return best;
+}
+
+const RANK: Record<PartStatus, number> = { ok: 0, warning: 1, error: 2 };
+
+/** The part a body, joint or readout id belongs to (generated ids belong to their parallelogram). */
+function partOfFactory(model: ArmModel, known: Set<string>): (id: string) => string {
+  const generated = new Map<string, string>();
+  for (const b of model.bodies) if (b.origin.generatedBy) generated.set(b.id, b.origin.generatedBy);
+  for (const j of model.joints) if (j.origin.generatedBy) generated.set(j.id, j.origin.generatedBy);
+  return (id) => generated.get(id) ?? (known.has(id) ? id : id.split(".")[0]!);
+}
+
+function attachmentsOf(model: ArmModel, bodyId: string): Vec2[] {
+  const pts: Vec2[] = [];
+  for (const j of model.joints) {
+    if (j.parent === bodyId) pts.push(j.parentPoint);
+    if (j.child === bodyId) pts.push(j.childPoint);
+  }
+  for (const s of model.springs) {
+    if (s.kind === "torsion") continue;
+    if (s.a.body === bodyId) pts.push(s.a.point);
+    if (s.b.body === bodyId) pts.push(s.b.point);
+  }
+  for (const p of model.payloads) if (p.body === bodyId) pts.push(p.point);
+  return pts;
+}
+
+function nearestOnSegment(p: Vec2, a: Vec2, b: Vec2): Vec2 {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  const len2 = dx * dx + dy * dy;
+  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / len2)) : 0;
+  return { x: a.x + t * dx, y: a.y + t * dy };
+}
+
+/** The centre line of a body in local m: a link's start to end, a head's two far pivots, the
+ * base's post from the bench up to its highest attachment. */
+function centreLine(model: ArmModel, body: Body, attachments: Vec2[]): Vec2[] {
+  if (body.kind === "link" || body.kind === "bar") return [{ x: 0, y: 0 }, { x: body.length, y: 0 }];
+  if (body.kind === "head") {
+    const stage = model.parallelograms.find((p) => p.bodies.head === body.id);
+    return [{ x: 0, y: 0 }, { x: 0, y: stage ? stage.spacing : 0 }];
+  }
+  if (attachments.length === 0) return [];
+  const first = attachments[0]!;
+  const top = Math.max(...attachments.filter((p) => p.x === first.x).map((p) => p.y));
+  return [{ x: first.x, y: model.base?.surface ?? 0 }, { x: first.x, y: top }];
+}
+
+function depthOf(model: ArmModel, body: Body): number | undefined {
+  if (body.section) return sectionProperties(body.section).depth;
+  if (body.kind === "head") {
+    const stage = model.parallelograms.find((p) => p.bodies.head === body.id);
+    const bar = stage ? model.bodies.find((b) => b.id === stage.bodies.lower) : undefined;
+    if (bar?.section) return sectionProperties(bar.section).depth;
+  }
+  return undefined;
+}
+
+function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): ViewBody {
+  const attachments = attachmentsOf(model, body.id);
+  const line = centreLine(model, body, attachments);
+  const brackets: ViewBody["brackets"] = [];
+  for (const p of attachments) {
+    let near: Vec2 | undefined;
+    for (let i = 0; i + 1 < line.length; i++) near = nearestOnSegment(p, line[i]!, line[i + 1]!);
+    if (near && Math.hypot(p.x - near.x, p.y - near.y) > BRACKET_MIN_M) brackets.push([r4(near.x * MM), r4(near.y * MM), r4(p.x * MM), r4(p.y * MM)]);
+  }
+  const depth = depthOf(model, body);
+  return {
+    id: body.id,
+    partId: partOf(body.id),
+    kind: body.kind,
+    line: line.map((p) => [r4(p.x * MM), r4(p.y * MM)]),
+    brackets,
+    ...(depth !== undefined ? { depthMm: r4(depth * MM) } : {}),
+  };
+}
+
+function viewPoses(model: ArmModel, sweep: SweepResult, lines: number[][][]): ViewPose[] {
+  const split = splitHoldingTorque(model, sweep, lines);
+  return sweep.poses.map((pose, p) => {
+    const bodies: ViewPose["bodies"] = {};
+    for (const [id, b] of Object.entries(pose.bodies)) bodies[id] = [r4(b.x * MM), r4(b.y * MM), r4(b.phi * DEG)];
+    const springs: ViewPose["springs"] = {};
+    for (const [id, s] of Object.entries(pose.springs)) springs[id] = [r4(s.a.x * MM), r4(s.a.y * MM), r4(s.b.x * MM), r4(s.b.y * MM)];
+    const handForce: ViewPose["handForce"] = {};
+    for (const payload of model.payloads) handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
+    const nominal = pose.cases[0];
+    return {
+      anglesDeg: sweep.dofs.map((d) => r4((pose.angles[d.id] ?? d.reference) * DEG)),
+      bodies,
+      springs,
+      netTorque: sweep.dofs.map((d) => r4(nominal?.holdingTorque[d.id] ?? NaN)),
+      gravityTorque: sweep.dofs.map((_, d) => r4(split.gravity[d]![p]!)),
+      springTorque: sweep.dofs.map((_, d) => r4(split.spring[d]![p]!)),
+      loadTorque: sweep.dofs.map((_, d) => r4(split.load[d]![p]!)),
+      handForce,
+      springForce: Object.fromEntries(Object.entries(nominal?.springForce ?? {}).map(([k, v]) => [k, r4(v)])),
+    };
+  });
+}
+
+function safetyRows(model: ArmModel, readouts: Readouts, partOf: (id: string) => string): SafetyRow[] {
+  const rows: SafetyRow[] = [];
+  for (const r of Object.values(readouts)) {
+    if (!r.worstSafety) continue;
+    rows.push({
+      partId: partOf(r.id),
+      id: r.id,
+      kind: r.kind,
+      value: r.worstSafety.value,
+      what: r.worstSafety.what,
+      ...(r.worstSafety.where ? { where: r.worstSafety.where } : {}),
+      required: model.require.safety,
+    });
+  }
+  return rows.sort((a, b) => a.value - b.value);
+}
+
+export function buildViewModel(input: ViewInput): ViewModel {
+  const index = new LineIndex(input.text);
+  const model = input.model;
+  const vm: ViewModel = {
+    version: 1,
+    title: model?.title ?? "Untitled arm",
+    surfaceMm: r4((model?.base?.surface ?? 0) * MM),
+    bounds: [-100, -20, 400, 400],
+    parts: [],
+    bodies: [],
+    pivots: [],
+    springs: [],
+    payloads: [],
+    dofs: [],
+    loadCases: [],
+    poses: [],
+    referencePose: 0,
+    lines: [],
+    envelope: {},
+    balanceLimitN: {},
+    requiredSafety: model?.require.safety ?? 0,
+    safety: [],
+    findings: [],
+    torqueMethod: TORQUE_METHOD,
+  };
+  const spans = new Map<string, Span>();
+  if (model) {
+    const collected = collectParts(model, index);
+    vm.parts = collected.parts;
+    for (const [k, v] of collected.spans) spans.set(k, v);
+  }
+  const partIds = new Set(vm.parts.map((p) => p.id));
+  const byId = new Map(vm.parts.map((p) => [p.id, p]));
+  for (const f of input.findings) {
+    const partId = partAt(spans, f.span.start);
+    vm.findings.push({ code: f.code, severity: f.severity, message: f.message, range: toRange(index, f.span), ...(partId ? { partId } : {}) });
+    const part = partId ? byId.get(partId) : undefined;
+    if (!part || (f.severity !== "error" && f.severity !== "warning")) continue;
+    if (RANK[f.severity] > RANK[part.status]) part.status = f.severity;
+    if (!part.codes.includes(f.code)) part.codes.push(f.code);
+  }
+  if (!model) {
+    vm.emptyReason = "The text does not describe an arm yet: see the findings below.";
+    return vm;
+  }
+  const partOf = partOfFactory(model, partIds);
+  if (model.base?.footprint) vm.footprintMm = r4(model.base.footprint.width * MM);
+  vm.bodies = model.bodies.map((b) => viewBody(model, b, partOf));
+  vm.pivots = model.joints.map((j) => ({
+    jointId: j.id,
+    partId: partOf(j.id),
+    body: j.child,
+    local: [r4(j.childPoint.x * MM), r4(j.childPoint.y * MM)] as [number, number],
+    mode: j.mode,
+    ...(j.pin ? { pinMm: r4(j.pin.diameter * MM) } : {}),
+  }));
+  vm.springs = model.springs.map((s) => ({
+    id: s.id,
+    kind: s.kind,
+    ...(s.kind === "torsion" ? { jointId: s.joint } : {}),
+    ...(s.kind === "gas" ? { cylinderMm: r4(Math.max(0, s.extendedLength - s.stroke) * MM) } : {}),
+  }));
+  vm.payloads = model.payloads.map((p) => ({ id: p.id, body: p.body, local: [r4(p.point.x * MM), r4(p.point.y * MM)] as [number, number], massKg: p.mass }));
+  for (const p of model.payloads) vm.balanceLimitN[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
+  vm.safety = safetyRows(model, input.readouts, partOf);
+
+  const sweep = input.sweep;
+  const poses = sweep && sweep.poses.length === 0 && sweep.reference ? { ...sweep, poses: [sweep.reference] } : sweep;
+  if (!poses || poses.poses.length === 0) {
+    vm.emptyReason = "The arm has no solved pose yet: fix the errors listed below.";
+    return vm;
+  }
+  const dofIds = poses.dofs.map((d) => d.id);
+  vm.lines = linesPerDof(poses.poses, dofIds);
+  vm.loadCases = poses.loadCases.map((c) => ({ id: c.id, label: c.label }));
+  vm.poses = viewPoses(model, poses, vm.lines);
+  vm.dofs = poses.dofs.map((d, i) => ({
+    id: d.id,
+    rangeDeg: [r4(d.range[0] * DEG), r4(d.range[1] * DEG)],
+    referenceDeg: r4(d.reference * DEG),
+    valuesDeg: [...new Set(vm.poses.map((p) => p.anglesDeg[i]!))].sort((a, b) => a - b),
+  }));
+  vm.referencePose = nearestPose(
+    vm.poses.map((p) => p.anglesDeg),
+    vm.dofs.map((d) => d.referenceDeg),
+    vm.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]),
+  );
+  vm.envelope = payloadPaths(vm);
+  vm.bounds = viewBounds(vm);
+  return vm;
+}

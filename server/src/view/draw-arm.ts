@@ -1,0 +1,242 @@
+// Draws the arm in its plane, to scale, for one pose of the view model: an SVG string with
+// presentation attributes only (no style attributes, so a strict content-security policy holds).
+import type { ViewModel, ViewPose, ViewSpring, PartStatus } from "./view-model";
+import { place } from "./geometry";
+import { PALETTE } from "./palette";
+import { c2, esc, fig } from "./text";
+
+/** Bodies without a section are drawn this thick, mm (a schematic bar). */
+const DEFAULT_DEPTH_MM = 6;
+/** Coil count drawn for an extension spring: enough to read as a coil, not a true count. */
+const ZIGZAGS = 12;
+
+interface Frame {
+  /** About one screen pixel at the panel's usual width, in mm: sizes labels and marks. */
+  u: number;
+}
+
+const statusColour = (s: PartStatus | undefined) => (s === "error" ? PALETTE.error : s === "warning" ? PALETTE.warning : undefined);
+
+/** SVG y runs down; the arm's y runs up. */
+const Y = (y: number) => -y;
+
+function pts(list: readonly [number, number][]): string {
+  return list.map(([x, y]) => `${c2(x)},${c2(Y(y))}`).join(" ");
+}
+
+function bench(vm: ViewModel, f: Frame): string {
+  const [minX, , maxX] = vm.bounds;
+  const y = vm.surfaceMm;
+  const hatch: string[] = [];
+  const step = 12 * f.u;
+  for (let x = minX; x < maxX; x += step) hatch.push(`M${c2(x)} ${c2(Y(y))}l${c2(-step * 0.7)} ${c2(step * 0.7)}`);
+  let out = `<g class="bench"><path d="${hatch.join("")}" stroke="${PALETTE.benchHatch}" stroke-width="${c2(f.u)}" fill="none"/>`;
+  out += `<line x1="${c2(minX)}" y1="${c2(Y(y))}" x2="${c2(maxX)}" y2="${c2(Y(y))}" stroke="${PALETTE.bench}" stroke-width="${c2(2.5 * f.u)}"/>`;
+  if (vm.footprintMm !== undefined) {
+    const h = 8 * f.u;
+    out += `<rect class="footprint" x="${c2(-vm.footprintMm / 2)}" y="${c2(Y(y + h))}" width="${c2(vm.footprintMm)}" height="${c2(h)}" fill="${PALETTE.base}" opacity="0.55"/>`;
+  }
+  return out + "</g>";
+}
+
+function envelope(vm: ViewModel, f: Frame): string {
+  let out = `<g class="envelope">`;
+  for (const [id, paths] of Object.entries(vm.envelope)) {
+    for (const path of paths) {
+      out += `<polyline data-payload="${esc(id)}" points="${pts(path)}" fill="none" stroke="${PALETTE.envelope}" stroke-width="${c2(1.5 * f.u)}" stroke-dasharray="${c2(5 * f.u)} ${c2(3 * f.u)}"/>`;
+    }
+  }
+  return out + "</g>";
+}
+
+function bodies(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
+  let out = "";
+  // Base first, then bars, links and heads on top, so pivots sit over everything.
+  const order = { base: 0, bar: 1, link: 2, head: 3 } as const;
+  for (const body of [...vm.bodies].sort((a, b) => order[a.kind] - order[b.kind])) {
+    const line = body.line.map((p) => place(pose, body.id, p)).filter((w): w is [number, number] => w !== undefined);
+    if (line.length < 2) continue;
+    const st = status.get(body.partId);
+    const depth = Math.max(body.depthMm ?? DEFAULT_DEPTH_MM, 2 * f.u);
+    const colour = body.kind === "base" ? PALETTE.base : body.kind === "bar" ? PALETTE.bar : body.kind === "head" ? PALETTE.head : PALETTE.link;
+    const mark = statusColour(st);
+    out += `<g class="part body" data-part="${esc(body.partId)}" data-body="${esc(body.id)}" data-status="${st ?? "ok"}"><title>${esc(body.id)}${st && st !== "ok" ? ` (${st})` : ""}</title>`;
+    if (mark) out += `<polyline class="halo" points="${pts(line)}" fill="none" stroke="${mark}" stroke-opacity="0.35" stroke-width="${c2(depth + 8 * f.u)}" stroke-linecap="round" stroke-linejoin="round"/>`;
+    for (const br of body.brackets) {
+      const a = place(pose, body.id, [br[0], br[1]]);
+      const b = place(pose, body.id, [br[2], br[3]]);
+      if (a && b) out += `<line class="bracket" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${colour}" stroke-width="${c2(Math.max(depth * 0.35, 1.5 * f.u))}" stroke-linecap="round"/>`;
+    }
+    out += `<polyline class="centre" points="${pts(line)}" fill="none" stroke="${colour}" stroke-width="${c2(depth)}" stroke-linecap="round" stroke-linejoin="round"/>`;
+    if (mark) out += `<polyline points="${pts(line)}" fill="none" stroke="${mark}" stroke-width="${c2(1.6 * f.u)}" stroke-dasharray="${c2(4 * f.u)} ${c2(2.5 * f.u)}"/>`;
+    out += "</g>";
+  }
+  return out;
+}
+
+function coilPath(a: [number, number], b: [number, number], f: Frame): string {
+  const dx = b[0] - a[0];
+  const dy = b[1] - a[1];
+  const len = Math.hypot(dx, dy) || 1;
+  const ux = dx / len, uy = dy / len, nx = -uy, ny = ux;
+  const amp = Math.min(Math.max(0.06 * len, 3 * f.u), 10 * f.u);
+  const lead = 0.12 * len;
+  const p: [number, number][] = [a, [a[0] + ux * lead, a[1] + uy * lead]];
+  for (let i = 1; i <= ZIGZAGS; i++) {
+    const t = lead + ((len - 2 * lead) * (i - 0.5)) / ZIGZAGS;
+    const side = i % 2 ? 1 : -1;
+    p.push([a[0] + ux * t + nx * amp * side, a[1] + uy * t + ny * amp * side]);
+  }
+  p.push([b[0] - ux * lead, b[1] - uy * lead], b);
+  return pts(p);
+}
+
+function cordPath(a: [number, number], b: [number, number], f: Frame): string {
+  const dx = b[0] - a[0];
+  const dy = b[1] - a[1];
+  const len = Math.hypot(dx, dy) || 1;
+  const nx = -dy / len, ny = dx / len;
+  const amp = Math.min(Math.max(0.025 * len, 1.5 * f.u), 5 * f.u);
+  const p: [number, number][] = [];
+  for (let i = 0; i <= 48; i++) {
+    const t = i / 48;
+    const w = Math.sin(t * Math.PI * 6) * amp * Math.sin(t * Math.PI);
+    p.push([a[0] + dx * t + nx * w, a[1] + dy * t + ny * w]);
+  }
+  return pts(p);
+}
+
+function springMark(spring: ViewSpring, hooks: [number, number, number, number], st: PartStatus | undefined, force: number | undefined, f: Frame): string {
+  const a: [number, number] = [hooks[0], hooks[1]];
+  const b: [number, number] = [hooks[2], hooks[3]];
+  const mark = statusColour(st);
+  const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${fig(Math.abs(force))} ${spring.kind === "torsion" ? "N*m" : "N"}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
+  let out = `<g class="part spring" data-part="${esc(spring.id)}" data-spring="${esc(spring.id)}" data-kind="${spring.kind}" data-status="${st ?? "ok"}"><title>${esc(tip)}</title>`;
+  const w = 1.8 * f.u;
+  if (spring.kind === "torsion") {
+    const r = 9 * f.u;
+    let d = `M${c2(a[0] + r)} ${c2(Y(a[1]))}`;
+    for (let i = 1; i <= 40; i++) {
+      const t = (i / 40) * Math.PI * 3.5;
+      const rr = r * (1 - i / 60);
+      d += `L${c2(a[0] + rr * Math.cos(t))} ${c2(Y(a[1] + rr * Math.sin(t)))}`;
+    }
+    out += `<path d="${d}" fill="none" stroke="${mark ?? PALETTE.coil}" stroke-width="${c2(w)}"/>`;
+  } else if (spring.kind === "gas") {
+    const len = Math.hypot(b[0] - a[0], b[1] - a[1]) || 1;
+    const cyl = Math.min(spring.cylinderMm ?? len * 0.55, len * 0.9) / len;
+    const m: [number, number] = [a[0] + (b[0] - a[0]) * cyl, a[1] + (b[1] - a[1]) * cyl];
+    out += `<line x1="${c2(m[0])}" y1="${c2(Y(m[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${PALETTE.gasRod}" stroke-width="${c2(3 * f.u)}" stroke-linecap="round"/>`;
+    out += `<line class="cylinder" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(m[0])}" y2="${c2(Y(m[1]))}" stroke="${mark ?? PALETTE.gasBody}" stroke-width="${c2(8 * f.u)}" stroke-linecap="butt"/>`;
+  } else if (spring.kind === "elastic") {
+    out += `<polyline points="${cordPath(a, b, f)}" fill="none" stroke="${mark ?? PALETTE.cord}" stroke-width="${c2(w * 1.4)}" stroke-linecap="round"/>`;
+  } else {
+    out += `<polyline points="${coilPath(a, b, f)}" fill="none" stroke="${mark ?? PALETTE.coil}" stroke-width="${c2(w)}" stroke-linejoin="round"/>`;
+  }
+  for (const h of spring.kind === "torsion" ? [] : [a, b]) out += `<circle cx="${c2(h[0])}" cy="${c2(Y(h[1]))}" r="${c2(2 * f.u)}" fill="${PALETTE.coil}"/>`;
+  return out + "</g>";
+}
+
+function pivots(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
+  let out = "";
+  for (const pv of vm.pivots) {
+    const w = place(pose, pv.body, pv.local);
+    if (!w) continue;
+    const st = status.get(pv.partId);
+    const ring = statusColour(st) ?? PALETTE.pivotRing;
+    const r = Math.max((pv.pinMm ?? 4) / 2 + 1, 3 * f.u);
+    out += `<g class="part pivot" data-part="${esc(pv.partId)}" data-joint="${esc(pv.jointId)}" data-status="${st ?? "ok"}"><title>${esc(pv.jointId)} (${pv.mode})${st && st !== "ok" ? ` (${st})` : ""}</title>`;
+    if (pv.mode === "fixed") out += `<rect x="${c2(w[0] - r)}" y="${c2(Y(w[1]) - r)}" width="${c2(2 * r)}" height="${c2(2 * r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2(1.6 * f.u)}"/>`;
+    else out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1.6) * f.u)}"/>`;
+    if (pv.mode === "range") out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r * 0.35)}" fill="${ring}"/>`;
+    out += "</g>";
+  }
+  return out;
+}
+
+function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
+  let out = "";
+  for (const p of vm.payloads) {
+    const w = place(pose, p.body, p.local);
+    if (!w) continue;
+    const st = status.get(p.id);
+    const r = Math.min(Math.max(7 * f.u * Math.cbrt(Math.max(p.massKg, 0.01) / 0.5), 4 * f.u), 16 * f.u);
+    const grams = p.massKg < 1 ? `${fig(p.massKg * 1000)} g` : `${fig(p.massKg)} kg`;
+    out += `<g class="part payload" data-part="${esc(p.id)}" data-payload="${esc(p.id)}" data-status="${st ?? "ok"}"><title>${esc(p.id)}, ${grams}</title>`;
+    out += `<line x1="${c2(w[0])}" y1="${c2(Y(w[1]))}" x2="${c2(w[0])}" y2="${c2(Y(w[1]) + r * 2.2)}" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
+    out += `<path d="M${c2(w[0] - r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}L${c2(w[0])} ${c2(Y(w[1]) + r * 2.4)}L${c2(w[0] + r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}" fill="none" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
+    out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.payload}" fill-opacity="0.85" stroke="${statusColour(st) ?? PALETTE.ink}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1) * f.u)}"/>`;
+    out += `<text x="${c2(w[0] + r + 3 * f.u)}" y="${c2(Y(w[1]) + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.ink}">${esc(p.id)} ${esc(grams)}</text>`;
+    out += "</g>";
+  }
+  return out;
+}
+
+/** Small flags naming each failing part next to it, so the trouble reads without hovering. */
+function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
+  let out = `<g class="trouble">`;
+  for (const part of vm.parts) {
+    if (part.status === "ok") continue;
+    let at: [number, number] | undefined;
+    const body = vm.bodies.find((b) => b.partId === part.id && b.line.length >= 2);
+    if (body) {
+      const a = place(pose, body.id, body.line[0]!);
+      const b = place(pose, body.id, body.line[body.line.length - 1]!);
+      if (a && b) at = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+    }
+    const pivot = vm.pivots.find((p) => p.partId === part.id);
+    if (!at && pivot) at = place(pose, pivot.body, pivot.local);
+    const hooks = pose.springs[part.id];
+    if (!at && hooks) at = [(hooks[0] + hooks[2]) / 2, (hooks[1] + hooks[3]) / 2];
+    const payload = vm.payloads.find((p) => p.id === part.id);
+    if (!at && payload) at = place(pose, payload.body, payload.local);
+    if (!at) continue;
+    const colour = part.status === "error" ? PALETTE.error : PALETTE.warning;
+    const x = at[0] + 6 * f.u;
+    const y = Y(at[1]) - 10 * f.u;
+    out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
+    out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
+    out += `<text x="${c2(x + 9 * f.u)}" y="${c2(y + 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${colour}">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
+  }
+  return out + "</g>";
+}
+
+function scaleBar(vm: ViewModel, f: Frame): string {
+  const [minX, minY, maxX] = vm.bounds;
+  const span = maxX - minX;
+  const nice = [10, 20, 50, 100, 200, 500, 1000].find((s) => s >= span / 6) ?? 1000;
+  const x = minX + 8 * f.u;
+  const y = Y(minY) - 8 * f.u;
+  return `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
+    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${nice} mm</text></g>`;
+}
+
+export interface DrawOptions {
+  /** Rendered width in CSS pixels (the height follows the arm's proportions). */
+  widthPx?: number;
+}
+
+/** The arm in pose `poseIndex` as an SVG string. */
+export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOptions = {}): string {
+  const [minX, minY, maxX, maxY] = vm.bounds;
+  const w = maxX - minX;
+  const h = maxY - minY;
+  const widthPx = options.widthPx ?? 640;
+  const f: Frame = { u: w / widthPx };
+  const heightPx = Math.round((widthPx * h) / w);
+  const head = `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing" viewBox="${c2(minX)} ${c2(-maxY)} ${c2(w)} ${c2(h)}" width="${widthPx}" height="${heightPx}" role="img" aria-label="${esc(vm.title)}">`;
+  const ground = `<rect x="${c2(minX)}" y="${c2(-maxY)}" width="${c2(w)}" height="${c2(h)}" fill="${PALETTE.paper}"/>`;
+  const pose = vm.poses[poseIndex];
+  if (!pose) {
+    return `${head}${ground}<text x="${c2(minX + w / 2)}" y="${c2(-maxY + h / 2)}" text-anchor="middle" font-size="${c2(14 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(vm.emptyReason ?? "Nothing to draw")}</text></svg>`;
+  }
+  const status = new Map(vm.parts.map((p) => [p.id, p.status]));
+  let springs = "";
+  for (const s of vm.springs) {
+    const hooks = pose.springs[s.id];
+    if (hooks) springs += springMark(s, hooks, status.get(s.id), pose.springForce[s.id], f);
+  }
+  const angles = vm.dofs.map((d, i) => `${d.id} ${fig(pose.anglesDeg[i]!)}°`).join(", ");
+  const caption = `<text class="pose-caption" x="${c2(minX + 8 * f.u)}" y="${c2(-maxY + 16 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(angles)}</text>`;
+  return head + ground + bench(vm, f) + envelope(vm, f) + bodies(vm, pose, status, f) + springs + pivots(vm, pose, status, f) + payloads(vm, pose, status, f) + trouble(vm, pose, f) + scaleBar(vm, f) + caption + "</svg>";
+}

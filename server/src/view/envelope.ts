@@ -1,0 +1,48 @@
+// The reach envelope: each payload's path along the outer edges of the swept range, and the
+// world extent of every pose for the drawing's frame.
+import type { ViewModel } from "./view-model";
+import { place, posePoints } from "./geometry";
+
+/** Share of the extent added round the drawing so pivots and labels are not cut at the edge. */
+const FRAME_MARGIN = 0.08;
+
+/** A run lies on the edge of the range when every other dof sits at one end of its values. */
+function onEdge(vm: ViewModel, d: number, run: readonly number[]): boolean {
+  const pose = vm.poses[run[0]!]!;
+  return vm.dofs.every((dof, i) => {
+    if (i === d) return true;
+    const v = pose.anglesDeg[i]!;
+    return v === dof.valuesDeg[0] || v === dof.valuesDeg[dof.valuesDeg.length - 1];
+  });
+}
+
+export function payloadPaths(vm: ViewModel): ViewModel["envelope"] {
+  const runs: number[][] = [];
+  vm.lines.forEach((perDof, d) => {
+    for (const run of perDof) if (run.length >= 2 && onEdge(vm, d, run)) runs.push(run);
+  });
+  // Each dof swept alone (grid off): its runs are not on an edge; trace them all.
+  if (runs.length === 0) for (const perDof of vm.lines) for (const run of perDof) if (run.length >= 2) runs.push(run);
+  const paths: ViewModel["envelope"] = {};
+  for (const payload of vm.payloads) {
+    paths[payload.id] = runs.map((run) =>
+      run.map((p) => place(vm.poses[p]!, payload.body, payload.local)).filter((w): w is [number, number] => w !== undefined),
+    );
+  }
+  return paths;
+}
+
+export function viewBounds(vm: ViewModel): [number, number, number, number] {
+  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  const take = (x: number, y: number) => {
+    if (!Number.isFinite(x) || !Number.isFinite(y)) return;
+    minX = Math.min(minX, x); maxX = Math.max(maxX, x);
+    minY = Math.min(minY, y); maxY = Math.max(maxY, y);
+  };
+  for (const pose of vm.poses) for (const [x, y] of posePoints(vm, pose)) take(x, y);
+  take(0, vm.surfaceMm);
+  if (vm.footprintMm !== undefined) { take(-vm.footprintMm / 2, vm.surfaceMm); take(vm.footprintMm / 2, vm.surfaceMm); }
+  if (!Number.isFinite(minX)) return [-100, -20, 400, 400];
+  const margin = FRAME_MARGIN * Math.max(maxX - minX, maxY - minY, 50);
+  return [minX - margin, minY - margin, maxX + margin, maxY + margin];
+}

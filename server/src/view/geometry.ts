@@ -1,0 +1,35 @@
+// Places local body points (mm) into the world frame of a view pose: the one transform the
+// drawing, the envelope and the bounds share.
+import type { ViewModel, ViewPose } from "./view-model";
+
+const RAD = Math.PI / 180;
+
+/** World mm of a local point (mm) on a body in a pose; undefined when the pose lacks the body. */
+export function place(pose: ViewPose, bodyId: string, local: readonly [number, number]): [number, number] | undefined {
+  const b = pose.bodies[bodyId];
+  if (!b) return undefined;
+  const c = Math.cos(b[2] * RAD);
+  const s = Math.sin(b[2] * RAD);
+  return [b[0] + c * local[0] - s * local[1], b[1] + s * local[0] + c * local[1]];
+}
+
+/** Every world point the drawing of one pose touches, for the bounds. */
+export function posePoints(vm: ViewModel, pose: ViewPose): [number, number][] {
+  const pts: [number, number][] = [];
+  for (const body of vm.bodies) {
+    for (const p of body.line) {
+      const w = place(pose, body.id, p);
+      if (w) pts.push(w);
+    }
+    for (const br of body.brackets) {
+      const w = place(pose, body.id, [br[2], br[3]]);
+      if (w) pts.push(w);
+    }
+  }
+  for (const s of Object.values(pose.springs)) pts.push([s[0], s[1]], [s[2], s[3]]);
+  for (const p of vm.payloads) {
+    const w = place(pose, p.body, p.local);
+    if (w) pts.push(w);
+  }
+  return pts;
+}

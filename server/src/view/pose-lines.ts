@@ -1,0 +1,68 @@
+// Finds, in a sweep's pose list, the runs along which one degree of freedom moves and the others
+// stay put (for plots and finite differences), and the pose nearest a set of slider values.
+import type { Pose } from "../mechanics/types";
+
+/** Angles closer than this are the same grid value: the sweep writes each grid value once, so
+ * anything far below a step (a step of 2001 over a full turn is 3e-3 rad) is round-off. */
+const SAME_ANGLE_RAD = 1e-7;
+
+function keyOfOthers(pose: Pose, dofIds: readonly string[], moving: number): string {
+  let key = "";
+  for (let i = 0; i < dofIds.length; i++) {
+    if (i === moving) continue;
+    key += Math.round((pose.angles[dofIds[i]!] ?? 0) / SAME_ANGLE_RAD) + "|";
+  }
+  return key;
+}
+
+/** For each dof, the runs of pose indices with every other dof equal, sorted by that dof's angle
+ * (duplicates of the same angle dropped). */
+export function linesPerDof(poses: readonly Pose[], dofIds: readonly string[]): number[][][] {
+  return dofIds.map((id, d) => {
+    const groups = new Map<string, number[]>();
+    for (let p = 0; p < poses.length; p++) {
+      const key = keyOfOthers(poses[p]!, dofIds, d);
+      let g = groups.get(key);
+      if (!g) groups.set(key, (g = []));
+      g.push(p);
+    }
+    const runs: number[][] = [];
+    for (const g of groups.values()) {
+      g.sort((a, b) => (poses[a]!.angles[id] ?? 0) - (poses[b]!.angles[id] ?? 0));
+      const run: number[] = [];
+      for (const p of g) {
+        const last = run[run.length - 1];
+        if (last !== undefined && Math.abs((poses[last]!.angles[id] ?? 0) - (poses[p]!.angles[id] ?? 0)) < SAME_ANGLE_RAD) continue;
+        run.push(p);
+      }
+      runs.push(run);
+    }
+    return runs;
+  });
+}
+
+/** The pose whose dof values are nearest the targets, each dof weighted by its range so that
+ * degrees of freedom with short ranges count as much as long ones. */
+export function nearestPose(anglesPerPose: readonly (readonly number[])[], target: readonly number[], spans: readonly number[]): number {
+  let best = 0;
+  let bestDistance = Infinity;
+  for (let p = 0; p < anglesPerPose.length; p++) {
+    const a = anglesPerPose[p]!;
+    let distance = 0;
+    for (let d = 0; d < target.length; d++) {
+      const span = spans[d]! > 0 ? spans[d]! : 1;
+      const e = ((a[d] ?? 0) - target[d]!) / span;
+      distance += e * e;
+    }
+    if (distance < bestDistance) {
+      bestDistance = distance;
+      best = p;
+    }
+  }
+  return best;
+}
+
+/** The run (of `lines[d]`) that holds pose `p`, or the first run. */
+export function runThrough(lines: readonly (readonly number[])[], p: number): readonly number[] {
+  return lines.find((run) => run.includes(p)) ?? lines[0] ?? [];
+}

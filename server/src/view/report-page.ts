@@ -1,0 +1,99 @@
+// The self-contained HTML report of `poise report`: drawing, plots, tables, diagnostics, limits
+// and cautions, with inline SVG and CSS, no script and nothing fetched.
+import type { ViewModel } from "./view-model";
+import { renderArmSvg } from "./draw-arm";
+import { renderPlotSvg } from "./draw-plot";
+import { torquePlot, handForcePlot } from "./plots";
+import { nearestPose } from "./pose-lines";
+import { findingsHtml, poseSummaryHtml, poseTableHtml, safetyTableHtml } from "./tables";
+import { MODEL_LIMITS, SAFETY_CAUTIONS } from "./limits";
+import { PALETTE } from "./palette";
+import { esc } from "./text";
+
+const REPORT_CSS = `
+body { font: 14px/1.45 system-ui, -apple-system, "Segoe UI", sans-serif; color: ${PALETTE.ink}; background: #fbf9f4; margin: 0; }
+main { max-width: 1120px; margin: 0 auto; padding: 20px 28px 40px; }
+h1 { font-size: 22px; margin: 0 0 4px; } h2 { font-size: 17px; margin: 28px 0 8px; border-bottom: 2px solid ${PALETTE.grid}; padding-bottom: 3px; }
+.sub { color: ${PALETTE.muted}; margin: 0 0 12px; }
+.verdict { display: inline-block; padding: 3px 10px; border-radius: 3px; font-weight: 600; color: #fff; }
+.verdict.error { background: ${PALETTE.error}; } .verdict.warning { background: ${PALETTE.warning}; } .verdict.ok { background: ${PALETTE.payload}; }
+.drawing svg { max-width: 100%; height: auto; border: 1px solid ${PALETTE.grid}; }
+.ends { display: flex; flex-wrap: wrap; gap: 12px; } .ends figure { margin: 0; } .ends figcaption { font-size: 12px; color: ${PALETTE.muted}; }
+.ends svg { border: 1px solid ${PALETTE.grid}; }
+.plots { display: flex; flex-wrap: wrap; gap: 12px; } .plots svg { border: 1px solid ${PALETTE.grid}; }
+table { border-collapse: collapse; margin: 6px 0; font-size: 13px; } th, td { padding: 3px 9px; border-bottom: 1px solid ${PALETTE.grid}; text-align: left; vertical-align: top; }
+th { background: #efe9dc; } td.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+tr.fail td { color: ${PALETTE.error}; font-weight: 600; }
+ul.findings { list-style: none; padding: 0; } ul.findings li { padding: 3px 0 3px 10px; border-left: 4px solid ${PALETTE.grid}; margin: 4px 0; }
+ul.findings li.error { border-color: ${PALETTE.error}; } ul.findings li.warning { border-color: ${PALETTE.warning}; }
+.where { color: ${PALETTE.muted}; font-variant-numeric: tabular-nums; } .severity { font-weight: 600; }
+.note, .none { color: ${PALETTE.muted}; font-size: 13px; }
+.cautions { background: #fff4e0; border: 1px solid ${PALETTE.warning}; padding: 8px 16px; }
+`;
+
+function verdict(vm: ViewModel): string {
+  const errors = vm.findings.filter((f) => f.severity === "error").length;
+  const warnings = vm.findings.filter((f) => f.severity === "warning").length;
+  if (errors) return `<span class="verdict error">${errors} error${errors > 1 ? "s" : ""}${warnings ? `, ${warnings} warning${warnings > 1 ? "s" : ""}` : ""}</span>`;
+  if (warnings) return `<span class="verdict warning">${warnings} warning${warnings > 1 ? "s" : ""}</span>`;
+  return `<span class="verdict ok">no errors or warnings</span>`;
+}
+
+/** Small drawings at each end of every dof's range, the others as near their reference as the sweep has. */
+function rangeEnds(vm: ViewModel): string {
+  if (vm.poses.length < 2) return "";
+  const spans = vm.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]);
+  const angles = vm.poses.map((p) => p.anglesDeg);
+  let out = `<div class="ends">`;
+  vm.dofs.forEach((d, i) => {
+    for (const end of [d.valuesDeg[0]!, d.valuesDeg[d.valuesDeg.length - 1]!]) {
+      const target = vm.dofs.map((o, k) => (k === i ? end : o.referenceDeg));
+      const p = nearestPose(angles, target, spans);
+      out += `<figure>${renderArmSvg(vm, p, { widthPx: 260 })}<figcaption>${esc(d.id)} at ${end}°</figcaption></figure>`;
+    }
+  });
+  return out + "</div>";
+}
+
+export interface ReportOptions {
+  /** The spec's path as the user gave it. */
+  file: string;
+}
+
+export function renderReportHtml(vm: ViewModel, options: ReportOptions): string {
+  const plots = vm.dofs
+    .map((_, d) => renderPlotSvg(torquePlot(vm, d, vm.referencePose)) + (vm.payloads.length ? renderPlotSvg(handForcePlot(vm, d, vm.referencePose)) : ""))
+    .join("");
+  const body = [
+    `<h1>${esc(vm.title)}</h1>`,
+    `<p class="sub">Counterpoise report for <code>${esc(options.file)}</code> — ${verdict(vm)}</p>`,
+    `<h2>The arm</h2>`,
+    `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts marked in ${"red"} fail a check.</p>`,
+    `<div class="drawing">${renderArmSvg(vm, vm.referencePose, { widthPx: 760 })}</div>`,
+    rangeEnds(vm),
+    `<h2>Torques and hand force</h2>`,
+    vm.poses.length ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the shaded band is the hand force <code>require balance</code> allows.</p>` : `<p class="none">No poses were solved.</p>`,
+    `<h2>Safety factors</h2>`,
+    `<p class="note">Required: ${vm.requiredSafety}. Lowest first.</p>`,
+    safetyTableHtml(vm),
+    `<h2>Diagnostics</h2>`,
+    findingsHtml(vm),
+    `<h2>Over the range</h2>`,
+    poseSummaryHtml(vm),
+    poseTableHtml(vm),
+    `<h2>Limits of the model</h2>`,
+    `<ul class="limits">${MODEL_LIMITS.map((l) => `<li>${esc(l)}</li>`).join("")}</ul>`,
+    `<h2>Before you build</h2>`,
+    `<div class="cautions"><ul>${SAFETY_CAUTIONS.map((c) => `<li>${esc(c)}</li>`).join("")}</ul></div>`,
+  ].join("\n");
+  return `<!DOCTYPE html>
+<html lang="en"><head><meta charset="utf-8">
+<meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:">
+<meta name="viewport" content="width=device-width, initial-scale=1">
+<title>${esc(vm.title)} — Counterpoise report</title>
+<style>${REPORT_CSS}</style></head>
+<body><main>
+${body}
+</main></body></html>
+`;
+}

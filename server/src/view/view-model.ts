@@ -1,0 +1,143 @@
+// The arm view model: plain JSON the preview panel and the HTML report draw from. Built once per
+// analysis (build-view-model.ts); fixed display units (mm, N, N*m, deg) like `poise sweep`.
+
+/** 0-based line/character range, as editors count them (so the client can reveal it as is). */
+export interface ViewRange {
+  start: { line: number; character: number };
+  end: { line: number; character: number };
+}
+
+export type PartStatus = "ok" | "warning" | "error";
+
+/** A declaration the reader can point at: clicking it in the drawing reveals this range. */
+export interface ViewPart {
+  id: string;
+  kind: "base" | "link" | "joint" | "parallelogram" | "spring" | "payload";
+  range: ViewRange;
+  status: PartStatus;
+  /** Codes of the findings on this part (for the drawing's tooltip). */
+  codes: string[];
+}
+
+/** A drawable body: its centre line in local mm and its drawn thickness (section depth). */
+export interface ViewBody {
+  id: string;
+  /** The part it belongs to (a parallelogram's bars and head belong to the parallelogram). */
+  partId: string;
+  kind: "base" | "link" | "bar" | "head";
+  /** Centre line, local mm: a polyline of [x, y] points. */
+  line: [number, number][];
+  /** Thin brackets from the centre line out to points off it (hooks, payload seats), local mm. */
+  brackets: [number, number, number, number][];
+  /** Section depth in the arm's plane, mm (drawn to scale); undefined when the section is not given. */
+  depthMm?: number;
+}
+
+export interface ViewPivot {
+  jointId: string;
+  partId: string;
+  /** The child body and the pivot's point on it, local mm. */
+  body: string;
+  local: [number, number];
+  mode: "range" | "fixed" | "passive";
+  /** Pin diameter, mm, when given. */
+  pinMm?: number;
+}
+
+export interface ViewSpring {
+  id: string;
+  kind: "extension" | "zero_length" | "elastic" | "gas" | "torsion";
+  /** Torsion springs: the joint they act at. */
+  jointId?: string;
+  /** Gas struts: length of the cylinder, mm (the rest of the eye-to-eye length is rod). */
+  cylinderMm?: number;
+}
+
+export interface ViewPayload {
+  id: string;
+  body: string;
+  local: [number, number];
+  massKg: number;
+}
+
+export interface ViewDof {
+  id: string;
+  rangeDeg: [number, number];
+  referenceDeg: number;
+  /** The distinct values the sweep visited, deg, ascending. */
+  valuesDeg: number[];
+}
+
+/** One solved pose, in display units, nominal load case for the torques. */
+export interface ViewPose {
+  /** Value of each dof, deg, in `dofs` order. */
+  anglesDeg: number[];
+  /** Body frame origin (mm) and x-axis angle (deg), by body id. */
+  bodies: Record<string, [number, number, number]>;
+  /** World hook points [ax, ay, bx, by] mm, by spring id (torsion: the pivot twice). */
+  springs: Record<string, [number, number, number, number]>;
+  /** Holding torque from the sweep, N*m, in `dofs` order. */
+  netTorque: number[];
+  /** Its parts by virtual work (see torque-split.ts), N*m, in `dofs` order. */
+  gravityTorque: number[];
+  springTorque: number[];
+  loadTorque: number[];
+  /** Hand force per payload, N, one value per load case. */
+  handForce: Record<string, number[]>;
+  /** Spring tension N (torsion: torque N*m), by spring id, nominal case. */
+  springForce: Record<string, number>;
+}
+
+export interface SafetyRow {
+  partId: string;
+  /** The readout's id (a parallelogram's bar or pin may be listed under its own id). */
+  id: string;
+  kind: string;
+  value: number;
+  what: string;
+  where?: string;
+  required: number;
+}
+
+export interface ViewFinding {
+  code: string;
+  severity: "error" | "warning" | "information" | "hint";
+  message: string;
+  range: ViewRange;
+  partId?: string;
+}
+
+export interface ViewModel {
+  version: 1;
+  title: string;
+  /** Bench surface height, mm. */
+  surfaceMm: number;
+  /** Base footprint width along x, mm, centred on x = 0, when given. */
+  footprintMm?: number;
+  /** World extent over every pose, mm: [minX, minY, maxX, maxY]. */
+  bounds: [number, number, number, number];
+  parts: ViewPart[];
+  bodies: ViewBody[];
+  pivots: ViewPivot[];
+  springs: ViewSpring[];
+  payloads: ViewPayload[];
+  dofs: ViewDof[];
+  loadCases: { id: string; label: string }[];
+  poses: ViewPose[];
+  /** Index into `poses` of the pose nearest the reference. */
+  referencePose: number;
+  /** For each dof (same order), runs of pose indices along which only that dof changes, sorted by
+   * its angle: a plot against that dof uses the run through the current pose. */
+  lines: number[][][];
+  /** Payload paths: polylines (world mm) along the outer edges of the swept range, by payload. */
+  envelope: Record<string, [number, number][][]>;
+  /** `require balance` per payload, N. */
+  balanceLimitN: Record<string, number>;
+  requiredSafety: number;
+  safety: SafetyRow[];
+  findings: ViewFinding[];
+  /** How the torque split was computed, for the plots' caption. */
+  torqueMethod: string;
+  /** Why there is nothing to draw, when there is nothing. */
+  emptyReason?: string;
+}

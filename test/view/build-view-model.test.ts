@@ -1,0 +1,87 @@
+// The view model from a hand-built analysis: the torque split against the published closed form,
+// parts marked, slices and the envelope.
+import { describe, expect, it } from "vitest";
+import { buildViewModel } from "../../server/src/view/build-view-model";
+import { nearestPose } from "../../server/src/view/pose-lines";
+import { A, B, G, L_ARM, M, PIVOT_Y, pendulumAnalysis } from "./pendulum-fixture";
+
+const RATE = 550;
+const vm = buildViewModel(pendulumAnalysis(RATE));
+const rad = (deg: number) => (deg * Math.PI) / 180;
+
+describe("torque split by virtual work", () => {
+  it("gravity part is m g l cos(theta)", () => {
+    for (const pose of vm.poses) {
+      const theta = rad(pose.anglesDeg[0]!);
+      // Streit and Gilmore 1989 (references.md, gravity balancing): the payload's share of the
+      // holding torque of a pivoting link is m g l cos(theta). Central differences over a 5 deg
+      // grid carry an error of order (h^2/6), so 1 % of m g l.
+      expect(pose.gravityTorque[0]!).toBeCloseTo(M * G * L_ARM * Math.cos(theta), 1);
+    }
+  });
+
+  it("spring part is -k a b cos(theta) and the parts add up to the sweep's net torque", () => {
+    for (const pose of vm.poses) {
+      const theta = rad(pose.anglesDeg[0]!);
+      // Streit and Gilmore 1989: a zero-free-length spring from a point a above the pivot to b
+      // along the link contributes -k a b cos(theta) to the holding torque.
+      expect(pose.springTorque[0]!).toBeCloseTo(-RATE * A * B * Math.cos(theta), 1);
+      // Same source: tau = (m g l - k a b) cos(theta), the sum of both parts.
+      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo((M * G * L_ARM - RATE * A * B) * Math.cos(theta), 1);
+      expect(pose.netTorque[0]!).toBeCloseTo((M * G * L_ARM - RATE * A * B) * Math.cos(theta), 3);
+    }
+  });
+});
+
+describe("view model", () => {
+  it("marks the part a failing finding points at", () => {
+    const shoulder = vm.parts.find((p) => p.id === "shoulder")!;
+    expect(shoulder.status).toBe("error");
+    expect(shoulder.codes).toContain("strength.overstress");
+    const lift = vm.parts.find((p) => p.id === "lift")!;
+    expect(lift.codes).toContain("balance.unbalanced");
+    expect(vm.parts.find((p) => p.id === "lamp")!.status).toBe("ok");
+  });
+
+  it("gives each part the editor range of its name", () => {
+    const lift = vm.parts.find((p) => p.id === "lift")!;
+    const lines = pendulumAnalysis().text.split("\n");
+    expect(lines[lift.range.start.line]!.slice(lift.range.start.character, lift.range.end.character)).toBe("lift");
+  });
+
+  it("places the payload path on a circle of radius l about the pivot", () => {
+    const path = vm.envelope.lamp!.flat();
+    expect(path.length).toBe(vm.poses.length);
+    // Geometry of a rigid link: the end stays at distance l from the pivot.
+    for (const [x, y] of path) expect(Math.hypot(x, y - PIVOT_Y * 1000)).toBeCloseTo(L_ARM * 1000, 2);
+  });
+
+  it("finds the nearest pose for a slider value", () => {
+    const angles = vm.poses.map((p) => p.anglesDeg);
+    const p = nearestPose(angles, [31], [105]);
+    // 22 poses over -45..60 deg are 5 deg apart: 31 deg is nearest 30 deg.
+    expect(vm.poses[p]!.anglesDeg[0]).toBeCloseTo(30, 6);
+    expect(vm.poses[vm.referencePose]!.anglesDeg[0]).toBeCloseTo(0, 6);
+  });
+
+  it("lists safety factors lowest first with the requirement", () => {
+    expect(vm.safety.map((r) => r.id)).toEqual(["shoulder", "boom"]);
+    expect(vm.safety[0]!.required).toBe(2);
+  });
+
+  it("draws the section depth and brackets to off-line hooks", () => {
+    const boom = vm.bodies.find((b) => b.id === "boom")!;
+    expect(boom.depthMm).toBe(20);
+    expect(boom.line).toEqual([[0, 0], [400, 0]]);
+    const post = vm.bodies.find((b) => b.id === "post")!;
+    // The post stands from the bench to the anchor, 350 mm.
+    expect(post.line).toEqual([[0, 0], [0, (PIVOT_Y + A) * 1000]]);
+    expect(B).toBeGreaterThan(0);
+  });
+
+  it("says why nothing is drawn when there is no model", () => {
+    const empty = buildViewModel({ text: "arm {", findings: [], readouts: {} });
+    expect(empty.emptyReason).toBeDefined();
+    expect(empty.poses).toHaveLength(0);
+  });
+});
