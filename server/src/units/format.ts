@@ -1,0 +1,96 @@
+// Formats an SI value for display in the user's unit system, and gives the same value in the
+// other system (hover: "the value in the other unit system").
+import type { DimensionName } from "./dimension";
+import { parseUnit } from "./quantity";
+import type { UnitSystem } from "./unit-table";
+
+interface DisplayUnit {
+  symbol: string;
+  /** SI value / factor = displayed value */
+  factor: number;
+}
+
+/** The unit shown for each dimension; mass and US pressure switch unit with size. */
+function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI: number): DisplayUnit {
+  const unit = (symbol: string): DisplayUnit => {
+    const parsed = parseUnit(symbol);
+    return { symbol, factor: parsed.ok ? parsed.unit.factor : 1 };
+  };
+  const big = Math.abs(valueSI);
+  if (system === "si") {
+    switch (dimension) {
+      case "length": return unit("mm");
+      case "area": return unit("mm^2");
+      case "mass": return unit(big >= 1 ? "kg" : "g");
+      case "force": return unit("N");
+      case "torque": return unit("N*m");
+      case "stiffness": return unit("N/mm");
+      case "angular_stiffness": return unit("N*mm/deg");
+      case "angle": return unit("deg");
+      case "pressure": return unit("MPa");
+      case "density": return unit("g/cm^3");
+      case "acceleration": return unit("m/s^2");
+      case "frequency": return unit("Hz");
+      case "dimensionless": return { symbol: "", factor: 1 };
+    }
+  }
+  switch (dimension) {
+    case "length": return unit("in");
+    case "area": return unit("in^2");
+    case "mass": return unit(big >= unit("lb").factor ? "lb" : "oz");
+    case "force": return unit("lbf");
+    case "torque": return unit("lbf*in");
+    case "stiffness": return unit("lbf/in");
+    case "angular_stiffness": return unit("lbf*in/deg");
+    case "angle": return unit("deg");
+    case "pressure": return unit(big >= unit("ksi").factor ? "ksi" : "psi");
+    case "density": return unit("lb/in^3");
+    case "acceleration": return unit("ft/s^2");
+    case "frequency": return unit("Hz");
+    case "dimensionless": return { symbol: "", factor: 1 };
+  }
+}
+
+/** Significant figures shown: enough to compare designs, few enough to read at a glance
+ * (common practice, no source). */
+const SIGNIFICANT_FIGURES = 4;
+/** Below this magnitude a number is shown in exponent form (more zeros than digits otherwise). */
+const SMALL_NUMBER = 1e-3;
+/** From this magnitude on, whole numbers: 4 significant figures would round away digits people
+ * read (12345 mm, not 1.235e+4). */
+const LARGE_NUMBER = 1e4;
+
+export function formatNumber(v: number): string {
+  if (!Number.isFinite(v)) return Number.isNaN(v) ? "NaN" : v > 0 ? "infinity" : "-infinity";
+  if (v === 0) return "0";
+  const a = Math.abs(v);
+  if (a >= LARGE_NUMBER) return String(Math.round(v));
+  if (a < SMALL_NUMBER) return v.toPrecision(SIGNIFICANT_FIGURES - 1);
+  return String(Number(v.toPrecision(SIGNIFICANT_FIGURES)));
+}
+
+/** e.g. formatQuantity(12.4, "torque", "si") → "12.4 N*m"; (12.4, "torque", "us") → "109.7 lbf*in". */
+export function formatQuantity(valueSI: number, dimension: DimensionName, system: UnitSystem): string {
+  const u = displayUnit(dimension, system, valueSI);
+  const n = formatNumber(valueSI / u.factor);
+  return u.symbol ? `${n} ${u.symbol}` : n;
+}
+
+export function otherSystem(system: UnitSystem): UnitSystem {
+  return system === "si" ? "us" : "si";
+}
+
+/** Which system a unit as written belongs to ("us" if any part is US customary); units both
+ * systems share (deg, Hz) count as SI. Undefined if the unit cannot be read. */
+export function unitSystemOf(unitText: string): UnitSystem | undefined {
+  const parsed = parseUnit(unitText);
+  return parsed.ok ? parsed.unit.system : undefined;
+}
+
+/** The value as it reads in the other unit system than the one it was written in, for hovers;
+ * undefined where both systems show the same (angles, frequencies, plain numbers). */
+export function formatInOtherSystem(valueSI: number, dimension: DimensionName, writtenUnit: string): string | undefined {
+  if (dimension === "angle" || dimension === "frequency" || dimension === "dimensionless") return undefined;
+  const written = unitSystemOf(writtenUnit) ?? "si";
+  return formatQuantity(valueSI, dimension, otherSystem(written));
+}
