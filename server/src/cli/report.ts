@@ -1,0 +1,66 @@
+// `poise report FILE [-o OUT]`: the arm's drawing, curves, safety factors, diagnostics, limits and
+// cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
+import { readFileSync, writeFileSync } from "node:fs";
+import { analyse } from "../analysis";
+import { buildViewModel } from "../view/build-view-model";
+import { renderReportHtml } from "../view/report-page";
+
+const USAGE = "usage: poise report FILE [-o OUT.html]   (without -o the page goes to stdout)";
+
+interface ReportArgs {
+  file: string;
+  out?: string;
+}
+
+function parseArgs(args: readonly string[]): ReportArgs | string {
+  let file: string | undefined;
+  let out: string | undefined;
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    if (a === "-o" || a === "--output") {
+      const next = args[++i];
+      if (next === undefined) return `poise report: ${a} needs a file name`;
+      out = next;
+    } else if (a.startsWith("--output=")) out = a.slice("--output=".length);
+    else if (a === "-h" || a === "--help") return USAGE;
+    else if (a.startsWith("-")) return `poise report: unknown option ${a}`;
+    else if (file === undefined) file = a;
+    else return `poise report: one file at a time (got ${file} and ${a})`;
+  }
+  if (file === undefined) return `poise report: no file given`;
+  return out !== undefined ? { file, out } : { file };
+}
+
+/** Builds the report page for a spec's text: the part the tests call without touching files. */
+export function reportHtml(text: string, file: string): { html: string; errors: number } {
+  const analysis = analyse(text);
+  const vm = buildViewModel(analysis);
+  return { html: renderReportHtml(vm, { file }), errors: analysis.findings.filter((f) => f.severity === "error").length };
+}
+
+export async function runReport(args: string[]): Promise<number> {
+  const parsed = parseArgs(args);
+  if (typeof parsed === "string") {
+    process.stderr.write(parsed === USAGE ? `${USAGE}\n` : `${parsed}\n${USAGE}\n`);
+    return 2;
+  }
+  let text: string;
+  try {
+    text = readFileSync(parsed.file, "utf8");
+  } catch (err) {
+    process.stderr.write(`poise report: cannot read ${parsed.file}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`);
+    return 2;
+  }
+  const { html, errors } = reportHtml(text, parsed.file);
+  if (parsed.out === undefined) process.stdout.write(html);
+  else {
+    try {
+      writeFileSync(parsed.out, html, "utf8");
+    } catch (err) {
+      process.stderr.write(`poise report: cannot write ${parsed.out}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`);
+      return 2;
+    }
+    process.stderr.write(`poise report: wrote ${parsed.out}${errors ? ` (${errors} error${errors > 1 ? "s" : ""} in the spec)` : ""}\n`);
+  }
+  return errors > 0 ? 1 : 0;
+}
