@@ -1,0 +1,166 @@
+// The real server over stdio, fed fuzzed texts: it answers every request it announced at random
+// positions (also past the end of a line or of the document), publishes diagnostics inside the
+// document, logs no handler fault and stays alive.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import fc from "fast-check";
+import { existsSync, readFileSync, readdirSync } from "node:fs";
+import { join } from "node:path";
+import { spawnSync } from "node:child_process";
+import { TextDocument } from "vscode-languageserver-textdocument";
+import { ServerSession, positionInDocument, protocolLines } from "../fuzz/lsp-client";
+import { familyArbitrary, type FamilyName } from "../fuzz/campaign";
+
+const root = join(__dirname, "..", "..");
+const serverPath = join(root, "dist", "server.js");
+/** Texts sent to the server, spread over the families; each costs one analysis and a dozen requests. */
+const CASES = Number(process.env.FUZZ_LSP_CASES ?? 48);
+/** Waiting longer than this for a document's diagnostics means the server is stuck. Common
+ * practice, no source: far above any analysis at 3 steps. */
+const DIAGNOSTICS_TIMEOUT_MS = 10_000;
+const SEED = 4242;
+
+const samples = readdirSync(join(root, "samples"))
+  .filter((f) => f.endsWith(".poise"))
+  .map((f) => readFileSync(join(root, "samples", f), "utf8"));
+
+function ensureBuilt(): void {
+  if (existsSync(serverPath) && !process.env.ROBUSTNESS_REBUILD) return;
+  const r = spawnSync(process.execPath, [join(root, "scripts", "build.mjs")], { cwd: root, encoding: "utf8" });
+  if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
+}
+
+/** Every range-like object anywhere in a response. */
+function rangesIn(value: unknown, out: { start: { line: number; character: number }; end: { line: number; character: number } }[] = [], depth = 0): typeof out {
+  if (!value || typeof value !== "object" || depth > 12) return out;
+  if (Array.isArray(value)) {
+    for (const v of value) rangesIn(v, out, depth + 1);
+    return out;
+  }
+  const o = value as Record<string, unknown>;
+  const isPos = (p: unknown) => !!p && typeof p === "object" && typeof (p as { line?: unknown }).line === "number" && typeof (p as { character?: unknown }).character === "number";
+  if (isPos(o.start) && isPos(o.end)) out.push(o as (typeof out)[number]);
+  for (const v of Object.values(o)) rangesIn(v, out, depth + 1);
+  return out;
+}
+
+interface Probe {
+  method: string;
+  capability: string;
+  params: (uri: string, pos: { line: number; character: number }, lines: string[]) => unknown;
+}
+
+const whole = (lines: string[]) => ({ start: { line: 0, character: 0 }, end: { line: lines.length - 1, character: lines[lines.length - 1]!.length } });
+
+const PROBES: Probe[] = [
+  { method: "textDocument/hover", capability: "hoverProvider", params: (uri, position) => ({ textDocument: { uri }, position }) },
+  { method: "textDocument/completion", capability: "completionProvider", params: (uri, position) => ({ textDocument: { uri }, position }) },
+  { method: "textDocument/definition", capability: "definitionProvider", params: (uri, position) => ({ textDocument: { uri }, position }) },
+  { method: "textDocument/references", capability: "referencesProvider", params: (uri, position) => ({ textDocument: { uri }, position, context: { includeDeclaration: true } }) },
+  { method: "textDocument/documentHighlight", capability: "documentHighlightProvider", params: (uri, position) => ({ textDocument: { uri }, position }) },
+  { method: "textDocument/prepareRename", capability: "renameProvider", params: (uri, position) => ({ textDocument: { uri }, position }) },
+  { method: "textDocument/rename", capability: "renameProvider", params: (uri, position) => ({ textDocument: { uri }, position, newName: "renamed_part" }) },
+  { method: "textDocument/documentSymbol", capability: "documentSymbolProvider", params: (uri) => ({ textDocument: { uri } }) },
+  { method: "textDocument/formatting", capability: "documentFormattingProvider", params: (uri) => ({ textDocument: { uri }, options: { tabSize: 2, insertSpaces: true } }) },
+  { method: "textDocument/foldingRange", capability: "foldingRangeProvider", params: (uri) => ({ textDocument: { uri } }) },
+  { method: "textDocument/semanticTokens/full", capability: "semanticTokensProvider", params: (uri) => ({ textDocument: { uri } }) },
+  { method: "textDocument/inlayHint", capability: "inlayHintProvider", params: (uri, _p, lines) => ({ textDocument: { uri }, range: whole(lines) }) },
+  { method: "textDocument/codeAction", capability: "codeActionProvider", params: (uri, position) => ({ textDocument: { uri }, range: { start: position, end: position }, context: { diagnostics: [] } }) },
+];
+
+/** Positions to probe: mostly inside the text, some past a line's end or the last line. */
+function positionsFor(text: string, seed: number): { line: number; character: number }[] {
+  const lines = protocolLines(text);
+  return fc.sample(
+    fc.oneof(
+      { weight: 5, arbitrary: fc.nat(lines.length - 1).chain((line) => fc.record({ line: fc.constant(line), character: fc.nat(lines[line]!.length) })) },
+      { weight: 1, arbitrary: fc.record({ line: fc.nat(lines.length + 3), character: fc.nat(400) }) },
+    ),
+    { seed, numRuns: 3 },
+  );
+}
+
+let session: ServerSession;
+
+beforeAll(async () => {
+  ensureBuilt();
+  session = new ServerSession({ serverPath, settings: { diagnosticsDelayMs: 0, stepsWhileTyping: 3 } });
+  await session.initialize();
+}, 60_000);
+
+afterAll(async () => {
+  await session?.stop();
+});
+
+describe("the server over stdio, on fuzzed texts", () => {
+  it(`answers, publishes in-document diagnostics and stays alive for ${CASES} texts`, async () => {
+    const families: FamilyName[] = ["valid", "nearly-valid", "byte-mutant", "junk"];
+    const texts = families.flatMap((f, i) => fc.sample(familyArbitrary(f, samples), { seed: SEED + i, numRuns: Math.ceil(CASES / families.length) }));
+    const uri = "file:///fuzz/robustness.poise";
+    const problems: string[] = [];
+    let version = 1;
+    let mirror = TextDocument.create(uri, "counterpoise", version, texts[0]!);
+    await session.open(uri, texts[0]!, version);
+
+    for (let k = 0; k < texts.length && problems.length < 10; k++) {
+      const text = texts[k]!;
+      if (k > 0) {
+        version++;
+        // Every other text arrives as an incremental edit of the previous one (as typing does).
+        if (k % 2 === 0) {
+          const range = { start: { line: 0, character: 0 }, end: mirror.positionAt(mirror.getText().length) };
+          await session.edit(uri, version, range, text);
+        } else await session.change(uri, version, text);
+        mirror = TextDocument.update(mirror, [{ text }], version);
+      }
+      const lines = protocolLines(text);
+      const published = await session.waitForDiagnostics(uri, version, DIAGNOSTICS_TIMEOUT_MS);
+      const label = `text #${k} ${JSON.stringify(text.slice(0, 80))}`;
+      if (!published) problems.push(`${label}: no diagnostics within ${DIAGNOSTICS_TIMEOUT_MS} ms`);
+      for (const d of published?.diagnostics ?? []) {
+        if (!positionInDocument(lines, d.range.start) || !positionInDocument(lines, d.range.end)) problems.push(`${label}: diagnostic ${String(d.code)} at ${JSON.stringify(d.range)} lies outside the document`);
+      }
+      for (const position of positionsFor(text, SEED + k)) {
+        for (const probe of PROBES) {
+          if (!(session.capabilities as Record<string, unknown>)[probe.capability]) continue;
+          try {
+            const result = await session.request<unknown>(probe.method, probe.params(uri, position, lines), DIAGNOSTICS_TIMEOUT_MS);
+            for (const r of rangesIn(result)) {
+              if (!positionInDocument(lines, r.start) || !positionInDocument(lines, r.end)) problems.push(`${label}: ${probe.method} at ${JSON.stringify(position)} returned range ${JSON.stringify(r)} outside the document`);
+            }
+          } catch (err) {
+            const code = (err as { code?: number }).code;
+            // A refusal (e.g. "cannot rename here") is an answer; an internal error or silence is not.
+            if (code === undefined || code === -32603) problems.push(`${label}: ${probe.method} at ${JSON.stringify(position)}: ${String((err as Error).message)}`);
+          }
+        }
+      }
+      if (!session.alive) {
+        problems.push(`${label}: the server exited (${JSON.stringify(session.exited)}); stderr: ${session.stderr.join("").slice(-2000)}`);
+        break;
+      }
+    }
+    for (const log of session.errorLogs.slice(0, 5)) problems.push(`server logged a fault: ${log.slice(0, 1500)}`);
+    expect(problems, problems.join("\n\n")).toEqual([]);
+    expect(session.alive).toBe(true);
+  }, 240_000);
+
+  it("answers a request for a document it was never sent, and one for a closed document", async () => {
+    const ghost = "file:///fuzz/never-opened.poise";
+    for (const probe of PROBES) {
+      if (!(session.capabilities as Record<string, unknown>)[probe.capability]) continue;
+      try {
+        await session.request(probe.method, probe.params(ghost, { line: 0, character: 0 }, [""]), DIAGNOSTICS_TIMEOUT_MS);
+      } catch (err) {
+        expect((err as { code?: number }).code, `${probe.method}: ${String(err)}`).not.toBe(-32603);
+        expect((err as { code?: number }).code, `${probe.method}: ${String(err)}`).toBeDefined();
+      }
+    }
+    const uri = "file:///fuzz/closed.poise";
+    await session.open(uri, samples[0]!, 1);
+    await session.waitForDiagnostics(uri, 1, DIAGNOSTICS_TIMEOUT_MS);
+    await session.close(uri);
+    const hover = await session.request("textDocument/hover", { textDocument: { uri }, position: { line: 3, character: 5 } }).catch((e: unknown) => e);
+    expect((hover as { code?: number } | null)?.code).not.toBe(-32603);
+    expect(session.alive).toBe(true);
+  }, 60_000);
+});
