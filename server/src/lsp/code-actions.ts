@@ -1,0 +1,315 @@
+// Quick fixes, found by the finding code riding in a diagnostic's data: write the best-fit spring
+// rate (and initial tension), add a missing unit, take the suggested name, widen a pin to the
+// smallest standard size that meets `require safety`.
+import { CodeActionKind, type CodeAction, type CodeActionParams, type Diagnostic, type TextEdit } from "vscode-languageserver";
+import type { FeatureContext, ServerFeature } from "./context";
+import type { DiagnosticData } from "./convert";
+import { DIAGNOSTIC_SOURCE } from "./convert";
+import { guarded } from "./safe";
+import { analyse, type Analysis } from "../analysis";
+import { parse } from "../syntax/parser";
+import type { DeclarationNode, PropertyNode, QuantityNode, SyntaxTree, ValueNode } from "../syntax/ast";
+import { LineIndex, type Span } from "../syntax/span";
+import { ARM_PROPERTIES, declarationSpec, type PropertySpec, type ValueShape } from "../model/schema";
+import type { DimensionName } from "../units/dimension";
+import { fromSI, USUAL_UNIT } from "../units/quantity";
+import { formatNumber } from "../units/format";
+
+/** A fix as offsets into the text: the protocol layer below turns it into a workspace edit. */
+export interface TextFix {
+  title: string;
+  edits: { span: Span; newText: string }[];
+  preferred?: boolean;
+}
+
+/** Standard metric pin diameters, m: ISO 2338-style preferred sizes as commonly stocked (common
+ * practice, no source). */
+export const STANDARD_PIN_DIAMETERS_M = [2, 2.5, 3, 4, 5, 6, 8, 10, 12, 16, 20].map((mm) => mm / 1000);
+/** Sizes tried beyond the first candidate before giving up: each try is a whole analysis. */
+const PIN_TRIES = 4;
+
+// ---- syntax helpers -------------------------------------------------------------------------
+
+function declarations(tree: SyntaxTree): readonly DeclarationNode[] {
+  return tree.arms[0]?.declarations ?? [];
+}
+
+function declarationNamed(tree: SyntaxTree, keyword: string, name: string): DeclarationNode | undefined {
+  return declarations(tree).find((d) => d.keyword.text === keyword && d.name?.text === name);
+}
+
+function declarationAt(tree: SyntaxTree, offset: number): DeclarationNode | undefined {
+  return declarations(tree).find((d) => offset >= d.span.start && offset < d.span.end);
+}
+
+function propertyOf(decl: DeclarationNode, key: string): PropertyNode | undefined {
+  return decl.properties.find((p) => p.key.text === key);
+}
+
+function quantitiesIn(v: ValueNode): QuantityNode[] {
+  switch (v.kind) {
+    case "quantity": return [v];
+    case "range": return [v.low, v.high];
+    case "point": return [v.x, v.y];
+    case "dims": return [v.first, v.second];
+    case "reference": return v.point ? [v.point.x, v.point.y] : [];
+    default: return [];
+  }
+}
+
+/** The first dimension a property's shape expects (a sequence: its first quantity). */
+function dimensionOfShape(shape: ValueShape): DimensionName | undefined {
+  switch (shape.type) {
+    case "quantity": case "range": case "vector": case "dims": return shape.dimension;
+    case "quantity-or": return shape.dimensions[0];
+    case "point": case "named-point": return "length";
+    case "sequence":
+      for (const item of shape.items) if (item.type !== "keyword") {
+        const d = dimensionOfShape(item);
+        if (d) return d;
+      }
+      return undefined;
+    default: return undefined;
+  }
+}
+
+/** Text of a new property line after `after`, indented like it. */
+function lineAfter(text: string, after: PropertyNode, line: string): { span: Span; newText: string } {
+  const lineStart = text.lastIndexOf("\n", after.span.start - 1) + 1;
+  const indent = /^[ \t]*/.exec(text.slice(lineStart))![0];
+  let end = text.indexOf("\n", after.span.end);
+  if (end < 0) end = text.length;
+  return { span: { start: end, end }, newText: `\n${indent}${line}` };
+}
+
+/** The value written in the same unit as an existing quantity (or the usual unit). */
+function writeIn(valueSI: number, written: QuantityNode | undefined, dimension: DimensionName): string {
+  const unit = written?.unit?.text ?? USUAL_UNIT[dimension];
+  const v = fromSI(valueSI, unit);
+  return v === undefined ? "" : `${formatNumber(v)} ${unit}`;
+}
+
+// ---- balance: best-fit rate and initial tension ---------------------------------------------
+
+function num(x: unknown): number | undefined {
+  return typeof x === "number" && Number.isFinite(x) ? x : undefined;
+}
+
+export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string, unknown> | undefined): TextFix | undefined {
+  const springId = typeof detail?.["springId"] === "string" ? (detail["springId"] as string) : undefined;
+  const rate = num(detail?.["bestRate"]);
+  if (!springId || rate === undefined || rate <= 0) return undefined;
+  const decl = declarationNamed(tree, "spring", springId);
+  const rateProp = decl && propertyOf(decl, "rate");
+  const rateValue = rateProp?.values[0];
+  if (!decl || !rateProp || rateValue?.kind !== "quantity") return undefined;
+  const isTorsion = !!propertyOf(decl, "torsion");
+  const rateDim: DimensionName = isTorsion ? "angular_stiffness" : "stiffness";
+  const rateText = writeIn(rate, rateValue, rateDim);
+  if (!rateText) return undefined;
+  const edits: TextFix["edits"] = [{ span: rateValue.span, newText: rateText }];
+  let what = `${springId}'s rate to ${rateText}`;
+  const tension = num(detail?.["bestInitialTension"]);
+  if (tension !== undefined && propertyOf(decl, "extension")) {
+    const existing = propertyOf(decl, "initial_tension");
+    const v = existing?.values[0];
+    const tensionText = writeIn(tension, v?.kind === "quantity" ? v : undefined, "force");
+    if (existing && v?.kind === "quantity") edits.push({ span: v.span, newText: tensionText });
+    else if (!existing) edits.push(lineAfter(text, rateProp, `initial_tension ${tensionText}`));
+    what += ` and initial tension to ${tensionText}`;
+  }
+  const before = num(detail?.["worstHandForceBefore"]);
+  const after = num(detail?.["worstHandForceAfter"]);
+  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${formatNumber(before)} N → ${formatNumber(after)} N)` : "";
+  return { title: `Set ${what}${forces}`, edits, preferred: true };
+}
+
+// ---- a missing unit ----------------------------------------------------------------------------
+
+export function missingUnitFix(tree: SyntaxTree, span: Span, detail: Record<string, unknown> | undefined): TextFix | undefined {
+  for (const arm of tree.arms) {
+    const scopes: { keyword?: string; properties: readonly PropertyNode[] }[] = [
+      { properties: arm.properties },
+      ...arm.declarations.map((d) => ({ keyword: d.keyword.text, properties: d.properties })),
+    ];
+    for (const scope of scopes) {
+      for (const prop of scope.properties) {
+        if (span.start < prop.span.start || span.start >= prop.span.end) continue;
+        const quantities = prop.values.flatMap(quantitiesIn);
+        const q = quantities.find((n) => !n.unit && span.start >= n.span.start && span.start < Math.max(n.span.end, n.span.start + 1));
+        if (!q) continue;
+        // A sibling that has a unit (the other end of a range, the other coordinate) says it best.
+        let unit = quantities.find((n) => n.unit)?.unit?.text;
+        const suggestion = typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+        if (!unit && suggestion?.startsWith(q.numberText + " ")) unit = suggestion.slice(q.numberText.length + 1);
+        if (!unit) {
+          const specs: readonly PropertySpec[] = scope.keyword ? declarationSpec(scope.keyword)?.properties ?? [] : ARM_PROPERTIES;
+          const spec = specs.find((p) => p.key === prop.key.text);
+          const dim = spec && dimensionOfShape(spec.shape);
+          unit = dim ? USUAL_UNIT[dim] : undefined;
+        }
+        if (!unit) return undefined;
+        return { title: `Add the unit: ${q.numberText} ${unit}`, edits: [{ span: { start: q.numberSpan.end, end: q.numberSpan.end }, newText: ` ${unit}` }], preferred: true };
+      }
+    }
+  }
+  return undefined;
+}
+
+// ---- an unknown name ---------------------------------------------------------------------------
+
+/** The suggestion of a name or unit finding: from its data, else the "did you mean" of its message. */
+export function suggestionOf(message: string, detail: Record<string, unknown> | undefined): string | undefined {
+  for (const key of ["suggestion", "closest", "didYouMean"]) {
+    const v = detail?.[key];
+    if (typeof v === "string" && v) return v;
+  }
+  const m = /did you mean [`'"]?([A-Za-z_][A-Za-z0-9_.*/^]*)[`'"]?\??/i.exec(message);
+  return m?.[1];
+}
+
+export function unknownNameFix(text: string, span: Span, message: string, detail: Record<string, unknown> | undefined): TextFix | undefined {
+  const suggestion = suggestionOf(message, detail);
+  if (!suggestion || span.end <= span.start) return undefined;
+  const written = text.slice(span.start, span.end);
+  if (written === suggestion) return undefined;
+  // A finding on a whole dotted reference whose suggestion is one part: replace the last part.
+  if (written.includes(".") && !suggestion.includes(".")) {
+    const dot = written.lastIndexOf(".");
+    return { title: `Change ${written.slice(dot + 1)} to ${suggestion}`, edits: [{ span: { start: span.start + dot + 1, end: span.end }, newText: suggestion }], preferred: true };
+  }
+  return { title: `Change ${written} to ${suggestion}`, edits: [{ span, newText: suggestion }], preferred: true };
+}
+
+// ---- a pin too small ---------------------------------------------------------------------------
+
+/** The pin property of the declaration a strength finding sits in, when the finding is about the pin. */
+function pinOf(tree: SyntaxTree, span: Span, message: string): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
+  const decl = declarationAt(tree, span.start);
+  if (!decl) return undefined;
+  const prop = propertyOf(decl, "pin") ?? propertyOf(decl, "pins");
+  const diameter = prop?.values[0];
+  if (!prop || diameter?.kind !== "quantity" || !diameter.unit) return undefined;
+  const onPin = span.start >= prop.span.start && span.start < prop.span.end;
+  if (!onPin && !/\bpins?\b/i.test(message)) return undefined;
+  return { decl, prop, diameter };
+}
+
+function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boolean {
+  return analysis.findings.some(
+    (f) => f.code === "strength.overstress" && f.span.start >= declSpan.start && f.span.start < declSpan.end &&
+      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) || /\bpins?\b/i.test(f.message)),
+  );
+}
+
+/**
+ * The smallest standard pin that meets `require safety`, confirmed by analysing the edited text.
+ * Shear stress goes as 1/d^2 and bearing as 1/d (mechanics.md section 4), so the shear-governed
+ * size d sqrt(S_req / S) is a lower bound and the search starts at the first standard size above it.
+ */
+export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined, budgetMs = 4000): TextFix | undefined {
+  const pin = pinOf(tree, span, message);
+  if (!pin) return undefined;
+  const unit = pin.diameter.unit!.text;
+  const d = fromSI(1, unit);
+  if (d === undefined) return undefined;
+  const current = pin.diameter.value / d; // SI
+  const safety = num(detail?.["safety"]) ?? num(detail?.["value"]);
+  const required = num(detail?.["required"]);
+  const lowest = safety && required && safety > 0 ? current * Math.sqrt(required / safety) : current;
+  const candidates = STANDARD_PIN_DIAMETERS_M.filter((c) => c > current * (1 + 1e-9) && c >= lowest * (1 - 1e-9)).slice(0, PIN_TRIES);
+  for (const c of candidates) {
+    const newText = `${formatNumber(fromSI(c, unit)!)} ${unit}`;
+    const edited = text.slice(0, pin.diameter.span.start) + newText + text.slice(pin.diameter.span.end);
+    const shift = newText.length - (pin.diameter.span.end - pin.diameter.span.start);
+    const declSpan = { start: pin.decl.span.start, end: pin.decl.span.end + shift };
+    const pinSpan = { start: pin.prop.span.start, end: pin.prop.span.end + shift };
+    const analysis = analyse(edited, { budgetMs });
+    if (!analysis.sweep || analysis.findings.some((f) => f.code === "analysis.budget" || f.code === "analysis.internal")) return undefined;
+    if (!pinStillFails(analysis, declSpan, pinSpan)) {
+      const name = pin.decl.name?.text ?? "the joint";
+      return {
+        title: `Widen ${name}'s pin to ${newText}, the smallest standard size that meets the required safety (checked)`,
+        edits: [{ span: pin.diameter.span, newText }],
+        preferred: true,
+      };
+    }
+  }
+  return undefined;
+}
+
+// ---- dispatch ------------------------------------------------------------------------------
+
+export interface FixRequest {
+  code: string;
+  span: Span;
+  message: string;
+  detail?: Record<string, unknown>;
+}
+
+export function fixesFor(text: string, tree: SyntaxTree, req: FixRequest): TextFix[] {
+  let fix: TextFix | undefined;
+  switch (req.code) {
+    case "balance.unbalanced": fix = balanceFix(text, tree, req.detail); break;
+    case "unit.missing": fix = missingUnitFix(tree, req.span, req.detail); break;
+    case "name.unknown": case "name.unknown-point": case "unit.unknown": fix = unknownNameFix(text, req.span, req.message, req.detail); break;
+    case "strength.overstress": fix = widenPinFix(text, tree, req.span, req.message, req.detail); break;
+  }
+  return fix ? [fix] : [];
+}
+
+/** Pin fixes analyse the text again; remember the answer per text and diagnostic. */
+const PIN_CACHE_SIZE = 32;
+const pinCache = new Map<string, TextFix[]>();
+
+function cachedFixes(text: string, tree: SyntaxTree, req: FixRequest): TextFix[] {
+  if (req.code !== "strength.overstress") return fixesFor(text, tree, req);
+  const key = `${text.length}:${hash(text)}:${req.span.start}:${req.message}`;
+  const hit = pinCache.get(key);
+  if (hit) return hit;
+  const fixes = fixesFor(text, tree, req);
+  if (pinCache.size >= PIN_CACHE_SIZE) pinCache.delete(pinCache.keys().next().value!);
+  pinCache.set(key, fixes);
+  return fixes;
+}
+
+function hash(s: string): number {
+  let h = 2166136261;
+  for (let i = 0; i < s.length; i++) h = Math.imul(h ^ s.charCodeAt(i), 16777619);
+  return h >>> 0;
+}
+
+function toAction(uri: string, index: LineIndex, fix: TextFix, diagnostic: Diagnostic): CodeAction {
+  const edits: TextEdit[] = fix.edits.map((e) => ({ range: { start: index.position(e.span.start), end: index.position(e.span.end) }, newText: e.newText }));
+  return { title: fix.title, kind: CodeActionKind.QuickFix, diagnostics: [diagnostic], isPreferred: fix.preferred ?? false, edit: { changes: { [uri]: edits } } };
+}
+
+export const codeActionsFeature: ServerFeature = {
+  name: "quick fixes",
+  capabilities: () => ({ codeActionProvider: { codeActionKinds: [CodeActionKind.QuickFix] } }),
+  register(ctx: FeatureContext) {
+    ctx.connection.onCodeAction(
+      guarded("code actions", [] as CodeAction[], (params: CodeActionParams) => {
+        const doc = ctx.documents.get(params.textDocument.uri);
+        if (!doc) return [];
+        const text = doc.getText();
+        const index = new LineIndex(text);
+        const tree = ctx.syntax(doc.uri)?.tree ?? parse(text);
+        const actions: CodeAction[] = [];
+        for (const diagnostic of params.context.diagnostics) {
+          if (diagnostic.source !== DIAGNOSTIC_SOURCE) continue;
+          const data = diagnostic.data as DiagnosticData | undefined;
+          const code = data?.code ?? (typeof diagnostic.code === "string" ? diagnostic.code : undefined);
+          if (!code) continue;
+          // The editor keeps the diagnostic's range in step with edits; the data's span is of the
+          // analysed text, which may be older.
+          const span = { start: index.offset(diagnostic.range.start), end: index.offset(diagnostic.range.end) };
+          const message = typeof diagnostic.message === "string" ? diagnostic.message : diagnostic.message.value;
+          const req: FixRequest = { code, span, message, ...(data?.detail ? { detail: data.detail } : {}) };
+          for (const fix of cachedFixes(text, tree, req)) actions.push(toAction(doc.uri, index, fix, diagnostic));
+        }
+        return actions;
+      }),
+    );
+  },
+};

@@ -1,0 +1,68 @@
+// Quick fixes as text edits, on the real parser: the balance fix writes the best-fit values in the
+// user's own units, the unit fix the property's usual unit, the name fix the suggestion.
+import { describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
+import { parse } from "../../server/src/syntax/parser";
+import { balanceFix, missingUnitFix, unknownNameFix, suggestionOf, type TextFix } from "../../server/src/lsp/code-actions";
+import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
+
+function apply(text: string, fix: TextFix): string {
+  let out = text;
+  for (const e of [...fix.edits].sort((a, b) => b.span.start - a.span.start)) out = out.slice(0, e.span.start) + e.newText + out.slice(e.span.end);
+  return out;
+}
+
+describe("balance quick fix", () => {
+  it("writes the best-fit rate in the unit the rate was written in, and names both hand forces", () => {
+    const tree = parse(PENDULUM_TEXT);
+    const fix = balanceFix(PENDULUM_TEXT, tree, { springId: "lift", bestRate: K_BALANCED, bestInitialTension: 0, worstHandForceBefore: 4.41, worstHandForceAfter: 0.02 })!;
+    expect(fix).toBeDefined();
+    const edited = apply(PENDULUM_TEXT, fix);
+    // Exact unit definition: 1 N/mm = 1000 N/m (SI prefixes, SI Brochure 9th ed.).
+    const written = Number(/rate ([\d.]+) N\/mm/.exec(edited)![1]);
+    expect(written).toBeCloseTo(K_BALANCED / 1000, 3);
+    expect(fix.title).toContain("4.41 N");
+    expect(fix.title).toContain("0.02 N");
+    // A zero-length spring gets no initial tension line (only extension springs take one here).
+    expect(edited).not.toContain("initial_tension");
+  });
+
+  it("adds an initial tension line to an extension spring that has none, indented like its rate", () => {
+    const text = PENDULUM_TEXT.replace("zero_length", "extension").replace("rate 0.55 N/mm", "rate 3.1 lbf/in\n    free_length 40 mm");
+    const fix = balanceFix(text, parse(text), { springId: "lift", bestRate: 600, bestInitialTension: 22.2, worstHandForceBefore: 3, worstHandForceAfter: 0.5 })!;
+    const edited = apply(text, fix);
+    // NIST SP 811: 1 lbf/in = 4.4482216152605 N / 0.0254 m = 175.1268 N/m.
+    expect(Number(/rate ([\d.]+) lbf\/in/.exec(edited)![1])).toBeCloseTo(600 / (4.4482216152605 / 0.0254), 2);
+    expect(edited).toContain("\n    rate ");
+    expect(edited).toMatch(/\n    initial_tension 22\.2 N\n/);
+  });
+
+  it("offers nothing without the finding's data", () => {
+    expect(balanceFix(PENDULUM_TEXT, parse(PENDULUM_TEXT), undefined)).toBeUndefined();
+  });
+});
+
+describe("unit and name quick fixes", () => {
+  const mistakes = readFileSync("samples/mistakes.poise", "utf8");
+  it("adds the usual unit of a length to `length 250`", () => {
+    const at = spanOf(mistakes, "length 250");
+    const number = { start: at.start + 7, end: at.end };
+    const fix = missingUnitFix(parse(mistakes), number, undefined)!;
+    expect(fix.title).toBe("Add the unit: 250 mm");
+    expect(apply(mistakes, fix)).toContain("length 250 mm   ");
+  });
+
+  it("takes the suggestion from the data, else from the message", () => {
+    expect(suggestionOf("unknown material", { suggestion: "pla" })).toBe("pla");
+    expect(suggestionOf("unknown material `plaa`; did you mean `pla`?", undefined)).toBe("pla");
+    const span = spanOf(mistakes, "plaa");
+    const fix = unknownNameFix(mistakes, span, "unknown material `plaa`; did you mean `pla`?", undefined)!;
+    expect(apply(mistakes, fix)).toContain("material pla   ");
+  });
+
+  it("replaces only the point of a dotted reference", () => {
+    const span = spanOf(mistakes, "boom.tip");
+    const fix = unknownNameFix(mistakes, span, "boom has no point tip", { suggestion: "end" })!;
+    expect(apply(mistakes, fix)).toContain("connects boom.end to forearm.start");
+  });
+});
