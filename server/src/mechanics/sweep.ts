@@ -1,11 +1,208 @@
-// PLACEHOLDER until the solver lands.
+// The sweep: every degree of freedom across its range (the grid of all of them, or each alone
+// with the others at reference), kinematics and statics at every pose, for every load case.
 import type { ArmModel } from "../model/types";
-import type { SweepResult } from "./types";
+import type { LoadCase, Pose, SweepResult } from "./types";
+import { finding, type Finding } from "../checks/finding";
+import { SWEEP_DEFAULTS } from "../model/schema";
+import { buildLinkage } from "./linkage";
+import { PoseSolver } from "./pose-solver";
+import { formatAngle } from "./format";
+
 export interface SolveOptions {
   stepsOverride?: number;
   /** performance.now() value past which the sweep stops early (partial result). */
   deadline?: number;
 }
-export function solveSweep(_model: ArmModel, _options: SolveOptions = {}): SweepResult {
-  return { dofs: [], loadCases: [], poses: [], steps: 0, grid: false, findings: [] };
+
+/** The grid of several degrees of freedom is capped at this many poses (conventions). */
+export const MAX_GRID_POSES = 20000;
+
+/** Load cases: nominal masses first, then the low and high end of each payload's mass range. */
+export function loadCases(model: ArmModel): LoadCase[] {
+  const nominal: Record<string, number> = {};
+  for (const p of model.payloads) nominal[p.id] = p.mass;
+  const cases: LoadCase[] = [{ id: "nominal", label: "nominal masses", payloadMass: nominal }];
+  for (const p of model.payloads) {
+    if (!p.massRange) continue;
+    const [lo, hi] = p.massRange;
+    cases.push({ id: `${p.id}.low`, label: `${p.id} at ${(lo * 1000).toFixed(0)} g`, payloadMass: { ...nominal, [p.id]: lo } });
+    cases.push({ id: `${p.id}.high`, label: `${p.id} at ${(hi * 1000).toFixed(0)} g`, payloadMass: { ...nominal, [p.id]: hi } });
+  }
+  return cases;
+}
+
+/** Sample angles of a range, both ends included. */
+export function rangeSamples(range: [number, number], steps: number): number[] {
+  const [lo, hi] = range;
+  if (hi === lo || steps < 2) return [lo];
+  return Array.from({ length: steps }, (_, i) => (i === steps - 1 ? hi : lo + ((hi - lo) * i) / (steps - 1)));
+}
+
+interface SweepNode {
+  angles: Float64Array;
+  /** Node it continues from (-1: the reference pose). */
+  pred: number;
+  /** Position in the output order. */
+  output: number;
+}
+
+function nearestIndex(samples: number[], value: number): number {
+  let best = 0;
+  for (let i = 1; i < samples.length; i++) if (Math.abs(samples[i]! - value) < Math.abs(samples[best]! - value)) best = i;
+  return best;
+}
+
+/** Indices outward from r: r, r+1 .. last, r-1 .. 0 (so each pose continues from a neighbour). */
+function outward(r: number, count: number): number[] {
+  const out = [r];
+  for (let x = r + 1; x < count; x++) out.push(x);
+  for (let x = r - 1; x >= 0; x--) out.push(x);
+  return out;
+}
+
+/** Grid poses, solved outward from the sample nearest the reference in every dof. */
+function planGrid(samples: number[][], reference: number[]): SweepNode[] {
+  const k = samples.length;
+  const r = samples.map((s, d) => nearestIndex(s, reference[d]!));
+  const strides = samples.map((_, d) => samples.slice(d + 1).reduce((p, s) => p * s.length, 1));
+  const idx = new Int32Array(k);
+  const nodes: SweepNode[] = [];
+  const block = (d: number, pred: number): number => {
+    if (d === k) {
+      let output = 0;
+      for (let e = 0; e < k; e++) output += idx[e]! * strides[e]!;
+      nodes.push({ angles: Float64Array.from(samples, (s, e) => s[idx[e]!]!), pred, output });
+      return nodes.length - 1;
+    }
+    const entries = new Map<number, number>();
+    for (const x of outward(r[d]!, samples[d]!.length)) {
+      idx[d] = x;
+      const p = x === r[d] ? pred : entries.get(x > r[d]! ? x - 1 : x + 1)!;
+      entries.set(x, block(d + 1, p));
+    }
+    idx[d] = r[d]!;
+    return entries.get(r[d]!)!;
+  };
+  block(0, -1);
+  return nodes;
+}
+
+/** Each dof alone, the others at their reference angle. */
+function planEachAlone(samples: number[][], reference: number[]): SweepNode[] {
+  const nodes: SweepNode[] = [];
+  let offset = 0;
+  samples.forEach((s, d) => {
+    const r = nearestIndex(s, reference[d]!);
+    const made = new Map<number, number>();
+    for (const x of outward(r, s.length)) {
+      const angles = Float64Array.from(reference);
+      angles[d] = s[x]!;
+      const pred = x === r ? -1 : made.get(x > r ? x - 1 : x + 1)!;
+      nodes.push({ angles, pred, output: offset + x });
+      made.set(x, nodes.length - 1);
+    }
+    offset += s.length;
+  });
+  return nodes;
+}
+
+export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepResult {
+  const findings: Finding[] = [];
+  const cases = loadCases(model);
+  const grid = model.sweep?.grid ?? SWEEP_DEFAULTS.grid;
+  const linkage = buildLinkage(model);
+  if (!linkage) return { dofs: [], loadCases: cases, poses: [], steps: 0, grid, findings };
+  findings.push(...linkage.findings);
+  const dofs = linkage.dofs;
+  if (!linkage.ok) return { dofs, loadCases: cases, poses: [], steps: 0, grid, findings };
+
+  const solver = new PoseSolver(linkage, cases);
+  const refAngles = Float64Array.from(dofs, (d) => d.reference);
+  if (!solver.setCurrent(linkage.qReference, refAngles)) {
+    const j = linkage.graph.joints[linkage.driveJoint[linkage.dofDrive[0] ?? 0] ?? 0];
+    findings.push(
+      finding("geometry.cannot-reach", j ? (j.origin.name ?? j.origin.declaration) : model.span, "The linkage is locked at its reference pose (its constraint Jacobian is singular there): it cannot move from it.", {
+        data: { jointId: j?.id },
+      }),
+    );
+    return { dofs, loadCases: cases, poses: [], steps: 0, grid, findings };
+  }
+  const reference = solver.record(-1);
+  if (dofs.length === 0) {
+    return { dofs, loadCases: cases, reference, poses: [{ ...reference, index: 0 }], steps: 1, grid, findings };
+  }
+
+  let steps = Math.round(options.stepsOverride ?? model.sweep?.steps ?? SWEEP_DEFAULTS.steps);
+  steps = Math.min(Math.max(steps, 2), SWEEP_DEFAULTS.maxSteps);
+  const useGrid = grid && dofs.length > 1;
+  if (useGrid && steps ** dofs.length > MAX_GRID_POSES) {
+    const capped = Math.max(2, Math.floor(MAX_GRID_POSES ** (1 / dofs.length) + 1e-9));
+    findings.push(
+      finding(
+        "sweep.capped",
+        model.sweep?.origin?.properties["steps"] ?? model.sweep?.origin?.declaration ?? model.span,
+        `The grid of ${dofs.length} degrees of freedom at ${steps} steps each would be ${steps ** dofs.length} poses; it is capped at ${capped} steps each (${capped ** dofs.length} poses, limit ${MAX_GRID_POSES}).`,
+        { data: { requested: steps, used: capped } },
+      ),
+    );
+    steps = capped;
+  }
+  const samples = dofs.map((d) => rangeSamples(d.range, steps));
+  const reference0 = dofs.map((d) => d.reference);
+  const nodes = useGrid ? planGrid(samples, reference0) : planEachAlone(samples, reference0);
+
+  const deadline = options.deadline ?? Infinity;
+  const solvedQ: (Float64Array | undefined)[] = new Array(nodes.length);
+  const out: (Pose | undefined)[] = [];
+  const reported = new Set<string>();
+  let current = -1;
+  for (let i = 0; i < nodes.length; i++) {
+    if (performance.now() > deadline) {
+      findings.push(
+        finding("analysis.budget", model.span, `The sweep stopped at its time budget after ${out.filter(Boolean).length} of ${nodes.length} poses; results are partial.`, {
+          data: { solved: out.filter(Boolean).length, planned: nodes.length },
+        }),
+      );
+      break;
+    }
+    const node = nodes[i]!;
+    if (node.pred >= 0 && !solvedQ[node.pred]) continue; // beyond a lock: unreachable this way
+    if (current !== node.pred) {
+      const q = node.pred >= 0 ? solvedQ[node.pred]! : linkage.qReference;
+      const a = node.pred >= 0 ? nodes[node.pred]!.angles : refAngles;
+      if (!solver.setCurrent(q, a)) continue;
+    }
+    const from = Float64Array.from(solver.angles);
+    if (solver.moveTo(node.angles)) {
+      solvedQ[i] = Float64Array.from(solver.q);
+      out[node.output] = solver.record(node.output);
+      current = i;
+      continue;
+    }
+    current = -2; // the solver now sits at the lock, not at a node
+    let moved = 0;
+    for (let d = 1; d < dofs.length; d++) if (Math.abs(node.angles[d]! - from[d]!) > Math.abs(node.angles[moved]! - from[moved]!)) moved = d;
+    const dir = node.angles[moved]! > from[moved]! ? "up" : "down";
+    const key = `${moved}:${dir}`;
+    if (reported.has(key)) continue;
+    reported.add(key);
+    const dof = dofs[moved]!;
+    const joint = linkage.graph.joints.find((j) => j.id === dof.jointId)!;
+    const lock = solver.angles[moved]!;
+    const others = dofs
+      .map((d, e) => (e === moved ? "" : `${d.id} at ${formatAngle(solver.angles[e]!)}`))
+      .filter(Boolean)
+      .join(", ");
+    findings.push(
+      finding(
+        "geometry.cannot-reach",
+        joint.origin.properties["range"] ?? joint.origin.name ?? joint.origin.declaration,
+        `Joint ${joint.id} locks at ${formatAngle(lock)}${others ? ` (with ${others})` : ""}: the linkage cannot reach ${formatAngle(node.angles[moved]!)} and beyond, inside its range ${formatAngle(dof.range[0])} .. ${formatAngle(dof.range[1])}.`,
+        { data: { jointId: joint.id, lockAngle: lock, direction: dir } },
+      ),
+    );
+  }
+  const poses = out.filter((p): p is Pose => p !== undefined);
+  poses.forEach((p, i) => (p.index = i));
+  return { dofs, loadCases: cases, reference, poses, steps, grid: useGrid, findings };
 }

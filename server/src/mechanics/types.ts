@@ -47,6 +47,9 @@ export interface PoseStatics {
   lockedTorque: Record<string, number>;
   /** Spring tension (N, positive pulls the hooks together) or torsion torque (N*m), by spring id. */
   springForce: Record<string, number>;
+  /** The hand force itself, world, N, by payload id: the least force at the payload's centre
+   * that holds the pose (its magnitude is `handForce`). Added by the mechanics core. */
+  handForceVector?: Record<string, Vec2>;
 }
 
 export interface Pose {
@@ -60,6 +63,13 @@ export interface Pose {
   springs: Record<string, SpringState>;
   /** Statics per load case, same order as `SweepResult.loadCases`. */
   cases: PoseStatics[];
+  /** dp/dtheta of each payload's centre per degree of freedom, m/rad, by payload then dof id.
+   * Added by the mechanics core. */
+  payloadJacobian?: Record<string, Record<string, Vec2>>;
+  /** Change of each dof's holding torque per unit of a spring's force (N*m per N of tension;
+   * torsion: per N*m of its torque T), by spring then dof id: holding torque is affine in each
+   * spring's force, which the best-fit readouts use. Added by the mechanics core. */
+  springTorquePerUnit?: Record<string, Record<string, number>>;
 }
 
 export interface SweepResult {

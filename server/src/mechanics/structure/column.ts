@@ -1,5 +1,7 @@
 // Column buckling of bars in compression: Euler for slender columns, the Johnson parabola for
 // intermediate ones (Shigley's Mechanical Engineering Design, 9th-11th ed., ch. 4, "Columns").
+import type { Section } from "../../model/types";
+import { sectionProperties } from "../../model/section";
 
 /** Euler critical load P_cr = pi^2 E I / (K L)^2, N. */
 export function eulerCriticalLoad(modulus: number, secondMoment: number, effectiveLength: number): number {
@@ -41,4 +43,15 @@ export function columnCriticalLoad(
     return { criticalLoad: eulerCriticalLoad(modulus, secondMoment, effectiveLength), slenderness, method: "Euler" };
   }
   return { criticalLoad: johnsonCriticalLoad(area, yieldStrength, modulus, slenderness), slenderness, method: "Johnson" };
+}
+
+/** The least second moment of area of a section, m^4: a bar buckles about its weaker axis, and
+ * a rectangle's out-of-plane axis (depth width^3 / 12) is often the weaker (Roark 8th ed.,
+ * table of section properties). Round sections are the same about every axis. */
+export function leastSecondMoment(section: Section): number {
+  if (section.shape === "rect") {
+    const { depth, width } = section;
+    return Math.min((width * depth ** 3) / 12, (depth * width ** 3) / 12);
+  }
+  return sectionProperties(section).secondMoment;
 }

@@ -314,3 +314,15 @@ export class FrameSolution {
     };
   }
 }
+
+/** Strain energy of element `index` in a solution, J: 1/2 u^T K u over its six end dofs. */
+export function elementStrainEnergy(frame: PlaneFrame, solution: FrameSolution, index: number): number {
+  const e = frame.elements[index]!;
+  const k = frame.elementStiffness(e);
+  const a = solution.displacement(e.i);
+  const b = solution.displacement(e.j);
+  const u = [a.ux, a.uy, a.rotation, b.ux, b.uy, b.rotation];
+  let energy = 0;
+  for (let p = 0; p < 6; p++) for (let q = 0; q < 6; q++) energy += u[p]! * k[p * 6 + q]! * u[q]!;
+  return energy / 2;
+}

@@ -1,0 +1,104 @@
+// Every load acting on one body at a solved pose, for the strength checks: gravity at its centre
+// of mass, payload weight and steady forces, spring hook forces, torsion spring couples, joint
+// reactions (the parent's force on the child, and its opposite on the parent), and the holding
+// and locking couples at degrees of freedom and locked joints. For any body but the base, the
+// forces and the moments of one pose and load case sum to zero (the base's support is not listed).
+import type { ArmModel, Vec2 } from "../model/types";
+import type { Pose, SweepResult } from "./types";
+
+export type LoadKind = "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
+
+export interface AppliedLoad {
+  kind: LoadKind;
+  /** The body, payload, spring or joint the load comes from. */
+  id: string;
+  /** Where it acts, world, m (for a pure couple: the joint's pivot). */
+  point: Vec2;
+  /** Force, world, N (zero for a couple). */
+  force: Vec2;
+  /** Pure couple, N*m, CCW positive (zero for a force). */
+  couple: number;
+}
+
+/** World position of a body's local point at a pose (the base's frame is the world). */
+export function worldPoint(pose: Pose, bodyId: string, localPoint: Vec2, model: ArmModel): Vec2 {
+  const body = model.bodies.find((b) => b.id === bodyId);
+  if (body?.kind === "base") return { x: localPoint.x, y: localPoint.y };
+  const bp = pose.bodies[bodyId];
+  if (!bp) return { x: NaN, y: NaN };
+  const c = Math.cos(bp.phi);
+  const s = Math.sin(bp.phi);
+  return { x: bp.x + c * localPoint.x - s * localPoint.y, y: bp.y + s * localPoint.x + c * localPoint.y };
+}
+
+export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" | "dofs">, pose: Pose, caseIndex: number, bodyId: string): AppliedLoad[] {
+  const loads: AppliedLoad[] = [];
+  const statics = pose.cases[caseIndex];
+  const loadCase = sweep.loadCases[caseIndex];
+  if (!statics || !loadCase || !pose.bodies[bodyId]) return loads;
+  const g = model.gravity;
+  const zero = { x: 0, y: 0 };
+  const body = model.bodies.find((b) => b.id === bodyId);
+  if (body && body.mass !== 0 && body.kind !== "base") {
+    loads.push({ kind: "gravity", id: body.id, point: worldPoint(pose, bodyId, body.centreOfMass, model), force: { x: 0, y: -body.mass * g }, couple: 0 });
+  }
+  for (const p of model.payloads) {
+    if (p.body !== bodyId) continue;
+    const at = worldPoint(pose, bodyId, p.point, model);
+    const mass = loadCase.payloadMass[p.id] ?? p.mass;
+    loads.push({ kind: "payload", id: p.id, point: at, force: { x: 0, y: -mass * g }, couple: 0 });
+    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) loads.push({ kind: "payload-force", id: p.id, point: at, force: { ...p.force }, couple: 0 });
+  }
+  const jointsById = new Map(model.joints.map((j) => [j.id, j]));
+  for (const s of model.springs) {
+    const state = pose.springs[s.id];
+    const force = statics.springForce[s.id];
+    if (!state || force === undefined) continue;
+    if (s.kind === "torsion") {
+      const j = jointsById.get(s.joint);
+      if (!j) continue;
+      if (j.parent === bodyId) loads.push({ kind: "torsion", id: s.id, point: state.a, force: zero, couple: force });
+      if (j.child === bodyId) loads.push({ kind: "torsion", id: s.id, point: state.a, force: zero, couple: -force });
+      continue;
+    }
+    const dx = state.b.x - state.a.x;
+    const dy = state.b.y - state.a.y;
+    const len = Math.hypot(dx, dy);
+    if (!(len > 0)) continue;
+    const ux = (force * dx) / len;
+    const uy = (force * dy) / len;
+    if (s.a.body === bodyId) loads.push({ kind: "spring", id: s.id, point: state.a, force: { x: ux, y: uy }, couple: 0 });
+    if (s.b.body === bodyId) loads.push({ kind: "spring", id: s.id, point: state.b, force: { x: -ux, y: -uy }, couple: 0 });
+  }
+  const holdingByJoint = new Map<string, number>();
+  for (const d of sweep.dofs) {
+    const t = statics.holdingTorque[d.id];
+    if (t !== undefined) holdingByJoint.set(d.jointId, t);
+  }
+  for (const j of model.joints) {
+    const r = statics.reactions[j.id];
+    if (!r) continue;
+    if (j.child !== bodyId && j.parent !== bodyId) continue;
+    const sign = j.child === bodyId ? 1 : -1;
+    const pivot = j.child === bodyId ? worldPoint(pose, j.child, j.childPoint, model) : worldPoint(pose, j.parent, j.parentPoint, model);
+    loads.push({ kind: "reaction", id: j.id, point: pivot, force: { x: sign * r.x, y: sign * r.y }, couple: 0 });
+    const hold = holdingByJoint.get(j.id);
+    if (hold !== undefined) loads.push({ kind: "holding", id: j.id, point: pivot, force: zero, couple: sign * hold });
+    const locked = statics.lockedTorque[j.id];
+    if (locked !== undefined) loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: sign * locked });
+  }
+  return loads;
+}
+
+/** Resultant force and moment about a point of a list of loads. */
+export function resultant(loads: readonly AppliedLoad[], about: Vec2): { force: Vec2; moment: number } {
+  let fx = 0;
+  let fy = 0;
+  let m = 0;
+  for (const l of loads) {
+    fx += l.force.x;
+    fy += l.force.y;
+    m += (l.point.x - about.x) * l.force.y - (l.point.y - about.y) * l.force.x + l.couple;
+  }
+  return { force: { x: fx, y: fy }, moment: m };
+}

@@ -1,0 +1,61 @@
+// The hand force at a payload: the least force at its centre that holds the pose. With the
+// payload's Jacobian J (columns dp/dtheta per degree of freedom) the force must satisfy
+// J^T F = tau (the holding torques). Rule: the least-squares, least-norm solution
+// F = pinv(J^T) tau = (J J^T)^+ J tau. One dof: |F| = |tau| / |dp/dtheta|. Two dofs that move the
+// payload independently: the exact solution. A dof that does not move the payload (or only along
+// the same line as another) cannot be held from it: that share of its torque is not counted here
+// (the holding torque readouts still show it).
+import type { Vec2 } from "../model/types";
+
+/** Eigenvalues of J J^T below this fraction of the largest count as zero: directions in which
+ * the payload barely moves would otherwise ask for unbounded forces from round-off. */
+export const HAND_FORCE_PINV_TOLERANCE = 1e-9;
+
+export function handForceVector(jacobian: ArrayLike<number>, holdingTorque: ArrayLike<number>, dofCount: number): Vec2 {
+  let a = 0;
+  let b = 0;
+  let c = 0;
+  let vx = 0;
+  let vy = 0;
+  for (let d = 0; d < dofCount; d++) {
+    const jx = jacobian[2 * d]!;
+    const jy = jacobian[2 * d + 1]!;
+    const t = holdingTorque[d]!;
+    a += jx * jx;
+    b += jx * jy;
+    c += jy * jy;
+    vx += jx * t;
+    vy += jy * t;
+  }
+  const half = (a + c) / 2;
+  const disc = Math.hypot((a - c) / 2, b);
+  const l1 = half + disc;
+  const l2 = half - disc;
+  if (!(l1 > 0)) return { x: 0, y: 0 };
+  let e1x: number;
+  let e1y: number;
+  if (b !== 0) {
+    e1x = l1 - c;
+    e1y = b;
+    const m = Math.hypot(e1x, e1y);
+    e1x /= m;
+    e1y /= m;
+  } else if (a >= c) {
+    e1x = 1;
+    e1y = 0;
+  } else {
+    e1x = 0;
+    e1y = 1;
+  }
+  const e2x = -e1y;
+  const e2y = e1x;
+  const p1 = (e1x * vx + e1y * vy) / l1;
+  let fx = p1 * e1x;
+  let fy = p1 * e1y;
+  if (l2 > HAND_FORCE_PINV_TOLERANCE * l1) {
+    const p2 = (e2x * vx + e2y * vy) / l2;
+    fx += p2 * e2x;
+    fy += p2 * e2y;
+  }
+  return { x: fx, y: fy };
+}

@@ -1,0 +1,126 @@
+// The joint graph of an arm: which bodies the base reaches, the spanning tree walked from the
+// base (each joint at its angle places the next body) and the joints that close loops.
+import type { ArmModel, Joint } from "../model/types";
+
+export interface JointGraph {
+  baseId: string;
+  /** Moving bodies reached from the base, in coordinate order. */
+  bodyIds: string[];
+  /** Body id to coordinate index; the base is -1. */
+  bodyIndex: Map<string, number>;
+  /** Joints between reached bodies, in model order. */
+  joints: Joint[];
+  parent: Int32Array;
+  child: Int32Array;
+  /** Joint positions (into `joints`) in tree-walk order, and whether walked parent to child. */
+  tree: { joint: number; forward: boolean }[];
+  /** Joint positions that close a loop. */
+  closing: number[];
+}
+
+export function jointGraph(model: ArmModel): JointGraph | undefined {
+  const base = model.bodies.find((b) => b.kind === "base");
+  if (!base) return undefined;
+  const known = new Set(model.bodies.map((b) => b.id));
+  const usable = model.joints.filter((j) => known.has(j.parent) && known.has(j.child) && j.parent !== j.child);
+  const incident = new Map<string, number[]>();
+  usable.forEach((j, i) => {
+    for (const id of [j.parent, j.child]) {
+      const list = incident.get(id) ?? [];
+      list.push(i);
+      incident.set(id, list);
+    }
+  });
+  const reached = new Set<string>([base.id]);
+  const used = new Uint8Array(usable.length);
+  const treeRaw: { joint: number; forward: boolean }[] = [];
+  const closingRaw: number[] = [];
+  const order: string[] = [];
+  const queue = [base.id];
+  while (queue.length > 0) {
+    const u = queue.shift()!;
+    for (const ji of incident.get(u) ?? []) {
+      if (used[ji]) continue;
+      used[ji] = 1;
+      const j = usable[ji]!;
+      const forward = j.parent === u;
+      const v = forward ? j.child : j.parent;
+      if (reached.has(v)) {
+        closingRaw.push(ji);
+        continue;
+      }
+      reached.add(v);
+      order.push(v);
+      queue.push(v);
+      treeRaw.push({ joint: ji, forward });
+    }
+  }
+  // Keep only joints among reached bodies (all of them are, by construction of the walk).
+  const keep = usable.map((_, i) => used[i] === 1);
+  const remap = new Int32Array(usable.length).fill(-1);
+  const joints: Joint[] = [];
+  usable.forEach((j, i) => {
+    if (keep[i]) {
+      remap[i] = joints.length;
+      joints.push(j);
+    }
+  });
+  const bodyIds = model.bodies.filter((b) => b.id !== base.id && reached.has(b.id)).map((b) => b.id);
+  const bodyIndex = new Map<string, number>([[base.id, -1]]);
+  bodyIds.forEach((id, i) => bodyIndex.set(id, i));
+  return {
+    baseId: base.id,
+    bodyIds,
+    bodyIndex,
+    joints,
+    parent: Int32Array.from(joints, (j) => bodyIndex.get(j.parent)!),
+    child: Int32Array.from(joints, (j) => bodyIndex.get(j.child)!),
+    tree: treeRaw.map((t) => ({ joint: remap[t.joint]!, forward: t.forward })),
+    closing: closingRaw.map((c) => remap[c]!),
+  };
+}
+
+/** Places every reached body by walking the tree with the given joint angles; q gets
+ * (x, y, phi) per moving body. */
+export function placeTree(graph: JointGraph, angles: Float64Array, q: Float64Array): void {
+  for (const { joint, forward } of graph.tree) {
+    const j = graph.joints[joint]!;
+    const from = forward ? graph.parent[joint]! : graph.child[joint]!;
+    const to = forward ? graph.child[joint]! : graph.parent[joint]!;
+    const sFrom = forward ? j.parentPoint : j.childPoint;
+    const sTo = forward ? j.childPoint : j.parentPoint;
+    const xf = from >= 0 ? q[3 * from]! : 0;
+    const yf = from >= 0 ? q[3 * from + 1]! : 0;
+    const pf = from >= 0 ? q[3 * from + 2]! : 0;
+    const pt = forward ? pf + angles[joint]! : pf - angles[joint]!;
+    const cf = Math.cos(pf);
+    const sf = Math.sin(pf);
+    const wx = xf + cf * sFrom.x - sf * sFrom.y;
+    const wy = yf + sf * sFrom.x + cf * sFrom.y;
+    const ct = Math.cos(pt);
+    const st = Math.sin(pt);
+    q[3 * to] = wx - (ct * sTo.x - st * sTo.y);
+    q[3 * to + 1] = wy - (st * sTo.x + ct * sTo.y);
+    q[3 * to + 2] = pt;
+  }
+}
+
+/** World position of a body's local point from q (base: local = world). */
+export function worldPointFromQ(q: Float64Array, body: number, x: number, y: number): { x: number; y: number } {
+  if (body < 0) return { x, y };
+  const phi = q[3 * body + 2]!;
+  const c = Math.cos(phi);
+  const s = Math.sin(phi);
+  return { x: q[3 * body]! + c * x - s * y, y: q[3 * body + 1]! + s * x + c * y };
+}
+
+/** Relative angle child minus parent from q. */
+export function relativeAngle(q: Float64Array, parent: number, child: number): number {
+  return (child >= 0 ? q[3 * child + 2]! : 0) - (parent >= 0 ? q[3 * parent + 2]! : 0);
+}
+
+/** An angle brought within pi of a reference angle. */
+export function wrapNear(angle: number, near: number): number {
+  const twoPi = 2 * Math.PI;
+  return angle - twoPi * Math.round((angle - near) / twoPi);
+}

@@ -1,0 +1,217 @@
+// Turns an arm model into a solvable linkage: coordinates for the bodies the base reaches, the
+// reference pose, and an independent, square set of constraint rows (redundant rows dropped,
+// passive joints that no loop holds are held at their angle and reported).
+import type { ArmModel, Joint } from "../model/types";
+import type { Dof } from "./types";
+import { finding, type Finding } from "../checks/finding";
+import { createConstraintSet, constraintJacobian, updateAngles, ROW_DRIVE, ROW_REVOLUTE_X, ROW_REVOLUTE_Y, type ConstraintSet } from "./constraints";
+import { jointGraph, type JointGraph } from "./joint-graph";
+import { referencePose, LOOP_ANGLE_TOLERANCE, LOOP_GAP_TOLERANCE } from "./reference-pose";
+import { formatAngle, formatLength } from "./format";
+
+/** A row counts as independent of the rows kept before it when more than this fraction of it
+ * is left after projecting out theirs: rows are scaled to order 1, so 1e-8 separates true
+ * dependence (round-off, ~1e-14) from near-singular but real geometry. */
+const RANK_TOLERANCE = 1e-8;
+
+export type DriveKind = "dof" | "fixed" | "hold";
+
+export interface Linkage {
+  model: ArmModel;
+  graph: JointGraph;
+  cs: ConstraintSet;
+  /** Position of each joint's x and y rows (-1: dropped as redundant), by graph joint index. */
+  revRow: Int32Array;
+  /** Drive index per graph joint (-1: none). */
+  driveOfJoint: Int32Array;
+  driveKind: DriveKind[];
+  driveJoint: number[];
+  /** Row of each drive. */
+  driveRow: Int32Array;
+  dofs: Dof[];
+  /** Drive index per dof. */
+  dofDrive: Int32Array;
+  qReference: Float64Array;
+  /** Angles of every graph joint at the reference pose. */
+  referenceAngles: Float64Array;
+  /** A typical length of the arm, m (scales radians against metres). */
+  lengthScale: number;
+  findings: Finding[];
+  /** False when the reference pose does not assemble (no sweep is possible). */
+  ok: boolean;
+}
+
+function jointSpan(j: Joint) {
+  return j.origin.name ?? j.origin.declaration;
+}
+
+export function armLengthScale(model: ArmModel): number {
+  let l = 0;
+  for (const b of model.bodies) l = Math.max(l, b.length);
+  for (const p of model.parallelograms) l = Math.max(l, p.spacing, p.length);
+  // Arms are decimetres; the floor keeps a model of massless stubs sensible.
+  return Math.max(l, 0.05);
+}
+
+export function buildLinkage(model: ArmModel): Linkage | undefined {
+  const graph = jointGraph(model);
+  if (!graph) return undefined;
+  const findings: Finding[] = [];
+  const lengthScale = armLengthScale(model);
+  const ref = referencePose(graph, lengthScale);
+  const nb = graph.bodyIds.length;
+  const n = 3 * nb;
+  const nj = graph.joints.length;
+
+  let ok = true;
+  for (const g of ref.gaps) {
+    const j = graph.joints[g.joint]!;
+    if (g.gap > LOOP_GAP_TOLERANCE) {
+      ok = false;
+      findings.push(
+        finding(
+          "geometry.loop-open",
+          jointSpan(j),
+          `The loop closed by joint ${j.id} does not meet at the reference pose: its pivots are ${formatLength(g.gap)} apart.`,
+          { data: { jointId: j.id, gap: g.gap } },
+        ),
+      );
+    } else if (g.angleMismatch > LOOP_ANGLE_TOLERANCE) {
+      ok = false;
+      findings.push(
+        finding(
+          "geometry.loop-open",
+          jointSpan(j),
+          `The loop closed by joint ${j.id} meets only with the joint at ${formatAngle(ref.angles[g.joint]!)}, not at its angle ${formatAngle(j.angle)}.`,
+          { data: { jointId: j.id, gap: 0, angle: ref.angles[g.joint] } },
+        ),
+      );
+    }
+  }
+
+  // Candidate rows, in order of precedence: every revolute (tree joints first), then fixed
+  // joints, then degrees of freedom; a later row that repeats earlier ones is dropped.
+  const treeFirst = [...graph.tree.map((t) => t.joint), ...graph.closing];
+  const candidates: { kind: number; joint: number; driveKind?: DriveKind }[] = [];
+  for (const ji of treeFirst) {
+    candidates.push({ kind: ROW_REVOLUTE_X, joint: ji }, { kind: ROW_REVOLUTE_Y, joint: ji });
+  }
+  for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "fixed") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "fixed" });
+  for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "range") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "dof" });
+
+  const rowVector = (kind: number, ji: number): Float64Array => {
+    // One row of Phi_q at the reference pose, phi columns divided by the length scale and drive
+    // rows multiplied by it, so that every entry is of order 1.
+    const revolutes = [{ parent: graph.parent[ji]!, child: graph.child[ji]!, parentPoint: graph.joints[ji]!.parentPoint, childPoint: graph.joints[ji]!.childPoint }];
+    const drives = [{ parent: graph.parent[ji]!, child: graph.child[ji]!, theta: 0 }];
+    const one = createConstraintSet(nb, revolutes, drives, [{ kind, ref: 0 }]);
+    updateAngles(one, ref.q);
+    const jac = new Float64Array(n * n);
+    constraintJacobian(one, jac);
+    const v = jac.slice(0, n);
+    for (let b = 0; b < nb; b++) v[3 * b + 2]! /= lengthScale;
+    if (kind === ROW_DRIVE) for (let i = 0; i < n; i++) v[i]! *= lengthScale;
+    return v;
+  };
+  const basis: Float64Array[] = [];
+  const independent = (v0: Float64Array): boolean => {
+    const v = Float64Array.from(v0);
+    const norm0 = Math.hypot(...v);
+    if (norm0 === 0) return false;
+    for (let pass = 0; pass < 2; pass++) {
+      for (const b of basis) {
+        let d = 0;
+        for (let i = 0; i < n; i++) d += v[i]! * b[i]!;
+        for (let i = 0; i < n; i++) v[i]! -= d * b[i]!;
+      }
+    }
+    const norm = Math.hypot(...v);
+    if (norm <= RANK_TOLERANCE * norm0) return false;
+    for (let i = 0; i < n; i++) v[i]! /= norm;
+    basis.push(v);
+    return true;
+  };
+
+  const revRow = new Int32Array(2 * nj).fill(-1);
+  const driveOfJoint = new Int32Array(nj).fill(-1);
+  const rows: { kind: number; ref: number }[] = [];
+  const drives: { parent: number; child: number; theta: number }[] = [];
+  const driveKind: DriveKind[] = [];
+  const driveJoint: number[] = [];
+  const addDrive = (ji: number, kind: DriveKind) => {
+    driveOfJoint[ji] = drives.length;
+    drives.push({ parent: graph.parent[ji]!, child: graph.child[ji]!, theta: ref.angles[ji]! });
+    driveKind.push(kind);
+    driveJoint.push(ji);
+    rows.push({ kind: ROW_DRIVE, ref: drives.length - 1 });
+  };
+  for (const c of candidates) {
+    if (basis.length >= n) {
+      if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
+      continue;
+    }
+    if (!independent(rowVector(c.kind, c.joint))) {
+      if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
+      continue;
+    }
+    if (c.kind === ROW_DRIVE) addDrive(c.joint, c.driveKind!);
+    else {
+      revRow[2 * c.joint + (c.kind === ROW_REVOLUTE_X ? 0 : 1)] = rows.length;
+      rows.push({ kind: c.kind, ref: c.joint });
+    }
+  }
+  // Mobility left over: passive joints whose angle nothing determines are held where they are.
+  for (let ji = 0; ji < nj && basis.length < n; ji++) {
+    const j = graph.joints[ji]!;
+    if (j.mode !== "passive") continue;
+    if (!independent(rowVector(ROW_DRIVE, ji))) continue;
+    addDrive(ji, "hold");
+    findings.push(
+      finding(
+        "joint.unheld",
+        jointSpan(j),
+        `Joint ${j.id} is free but no closed loop holds it: give it a range or make it fixed (the analysis holds it at ${formatAngle(j.angle)}).`,
+        { data: { jointId: j.id } },
+      ),
+    );
+  }
+
+  const revolutes = graph.joints.map((j, i) => ({ parent: graph.parent[i]!, child: graph.child[i]!, parentPoint: j.parentPoint, childPoint: j.childPoint }));
+  const cs = createConstraintSet(nb, revolutes, drives, rows);
+  if (rows.length !== n) ok = false; // cannot happen for a connected model; keep the solver safe
+  const dofs: Dof[] = [];
+  const dofDrive: number[] = [];
+  driveKind.forEach((k, d) => {
+    if (k !== "dof") return;
+    const j = graph.joints[driveJoint[d]!]!;
+    const range: [number, number] = j.range ? [j.range[0], j.range[1]] : [j.angle, j.angle];
+    dofs.push({ id: j.id, jointId: j.id, range, reference: ref.angles[driveJoint[d]!]! });
+    dofDrive.push(d);
+  });
+  return {
+    model,
+    graph,
+    cs,
+    revRow,
+    driveOfJoint,
+    driveKind,
+    driveJoint,
+    driveRow: Int32Array.from(drives, (_, d) => rows.findIndex((r) => r.kind === ROW_DRIVE && r.ref === d)),
+    dofs,
+    dofDrive: Int32Array.from(dofDrive),
+    qReference: ref.q,
+    referenceAngles: ref.angles,
+    lengthScale,
+    findings,
+    ok,
+  };
+}
+
+function lockedDofFinding(j: Joint): Finding {
+  return finding(
+    "geometry.cannot-reach",
+    jointSpan(j),
+    `Joint ${j.id} cannot move: the loop it is in is already held by other fixed joints or degrees of freedom, so its range is never reached.`,
+    { data: { jointId: j.id } },
+  );
+}

@@ -1,0 +1,407 @@
+// Moves the linkage from pose to pose and records kinematics and statics at each. Continuation:
+// a tangent predictor dq/dtheta, then corrector iterations with the last factored Jacobian
+// (chord method), falling back to full Newton-Raphson; the step halves on failure and the
+// angle where it can go no further is where the linkage locks (Nikravesh 1988, ch. 4; Haug 1989,
+// ch. 4). Statics: Phi_q^T lambda = Q with the same factorization (Lagrange multipliers).
+import type { ArmModel, Spring, Vec2 } from "../model/types";
+import type { LoadCase, Pose, PoseStatics, SpringState } from "./types";
+import { DenseLu } from "./dense-lu";
+import { constraintJacobian, constraintResidual, updateAngles } from "./constraints";
+import { springTension, torsionSpringTorque } from "./forces";
+import { handForceVector } from "./hand-force";
+import { wrapNear } from "./joint-graph";
+import type { Linkage } from "./linkage";
+
+/** Converged when every constraint is met within 1e-10 (m, or rad for drives): a tenth of a
+ * nanometre, far below any displayed digit and about 1e4 x the round-off of arm-sized numbers. */
+export const NEWTON_TOLERANCE = 1e-10;
+/** Chord iterations before switching to full Newton: with a 5 deg step the chord contracts by
+ * about 0.1 per iteration, so 8 reach the tolerance from a tangent-predicted start. */
+const CHORD_MAX_ITERATIONS = 8;
+/** Full Newton converges quadratically in 3-6 iterations from a close start; 25 means lost. */
+const NEWTON_MAX_ITERATIONS = 25;
+/** Largest continuation step of a degree of freedom, rad (5 deg): small enough for the tangent
+ * predictor to land in Newton's basin on an arm-sized linkage. */
+export const MAX_CONTINUATION_STEP = (5 * Math.PI) / 180;
+/** Where a step no longer succeeds, halving stops at this size (0.01 deg): the lock angle is
+ * reported to this resolution. */
+export const LOCK_RESOLUTION = (0.01 * Math.PI) / 180;
+/** A body turning more than this (rad) away from the predicted pose within one step means Newton
+ * jumped to another assembly branch: treated as a failed step. */
+const BRANCH_JUMP = 0.25;
+
+interface PointSpring {
+  spring: Spring;
+  a: number;
+  ax: number;
+  ay: number;
+  b: number;
+  bx: number;
+  by: number;
+}
+interface TorsionAt {
+  spring: Spring & { kind: "torsion" };
+  /** Graph joint index. */
+  joint: number;
+}
+
+export class PoseSolver {
+  readonly n: number;
+  readonly ndof: number;
+  readonly q: Float64Array;
+  private readonly qTrial: Float64Array;
+  private readonly qPredicted: Float64Array;
+  private readonly residual: Float64Array;
+  private readonly step: Float64Array;
+  private readonly jac: Float64Array;
+  private luCurrent: DenseLu;
+  private luTrial: DenseLu;
+  /** Tangent dq/dtheta_d per dof at the current pose, dof-major. */
+  private readonly tangents: Float64Array;
+  private readonly unit: Float64Array;
+  readonly angles: Float64Array;
+  private readonly rhs: Float64Array;
+  private readonly lambda: Float64Array;
+  private readonly qSprings: Float64Array;
+  private readonly qBodies: Float64Array;
+  private readonly qCase: Float64Array;
+  private readonly pointSprings: PointSpring[] = [];
+  private readonly torsions: TorsionAt[] = [];
+  private readonly model: ArmModel;
+  /** Number of LU factorizations so far (for the benchmark). */
+  factorizations = 0;
+
+  constructor(
+    readonly linkage: Linkage,
+    readonly loadCases: LoadCase[],
+  ) {
+    const n = linkage.cs.n;
+    this.model = linkage.model;
+    this.n = n;
+    this.ndof = linkage.dofs.length;
+    this.q = Float64Array.from(linkage.qReference);
+    this.qTrial = new Float64Array(n);
+    this.qPredicted = new Float64Array(n);
+    this.residual = new Float64Array(n);
+    this.step = new Float64Array(n);
+    this.jac = new Float64Array(n * n);
+    this.luCurrent = new DenseLu(n);
+    this.luTrial = new DenseLu(n);
+    this.tangents = new Float64Array(Math.max(1, this.ndof) * n);
+    this.unit = new Float64Array(n);
+    this.angles = Float64Array.from(linkage.dofs, (d) => d.reference);
+    this.rhs = new Float64Array(n);
+    this.lambda = new Float64Array(n);
+    this.qSprings = new Float64Array(n);
+    this.qBodies = new Float64Array(n);
+    this.qCase = new Float64Array(n);
+    const idx = linkage.graph.bodyIndex;
+    for (const s of this.model.springs) {
+      if (s.kind === "torsion") {
+        const joint = linkage.graph.joints.findIndex((j) => j.id === s.joint);
+        if (joint >= 0) this.torsions.push({ spring: s, joint });
+        continue;
+      }
+      const a = idx.get(s.a.body);
+      const b = idx.get(s.b.body);
+      if (a === undefined || b === undefined) continue;
+      this.pointSprings.push({ spring: s, a, ax: s.a.point.x, ay: s.a.point.y, b, bx: s.b.point.x, by: s.b.point.y });
+    }
+  }
+
+  /** Springs the solver applies (both ends on bodies the base reaches). */
+  activeSprings(): Spring[] {
+    return [...this.pointSprings.map((p) => p.spring), ...this.torsions.map((t) => t.spring)];
+  }
+
+  private setDriveAngles(angles: Float64Array): void {
+    const cs = this.linkage.cs;
+    for (let d = 0; d < this.ndof; d++) cs.driveTheta[this.linkage.dofDrive[d]!] = angles[d]!;
+  }
+
+  /** Makes `q` (with dof values `angles`) the current pose: factors its Jacobian and computes
+   * the tangents. False when the Jacobian is singular there. */
+  setCurrent(q: Float64Array, angles: Float64Array): boolean {
+    this.q.set(q);
+    this.angles.set(angles);
+    this.setDriveAngles(angles);
+    return this.factorCurrent();
+  }
+
+  private factorCurrent(): boolean {
+    updateAngles(this.linkage.cs, this.q);
+    constraintJacobian(this.linkage.cs, this.jac);
+    this.factorizations++;
+    const ok = this.luCurrent.factor(this.jac);
+    if (ok) this.computeTangents(this.luCurrent);
+    return ok;
+  }
+
+  private computeTangents(lu: DenseLu): void {
+    const n = this.n;
+    for (let d = 0; d < this.ndof; d++) {
+      this.unit.fill(0);
+      this.unit[this.linkage.driveRow[this.linkage.dofDrive[d]!]!] = 1;
+      lu.solve(this.unit, this.rhs);
+      this.tangents.set(this.rhs, d * n);
+    }
+  }
+
+  /** Moves from the current pose to dof values `target` by continuation. On failure the current
+   * pose stays at the last angles reached (the lock) and false is returned. */
+  moveTo(target: Float64Array): boolean {
+    const ndof = this.ndof;
+    const n = this.n;
+    const start = Float64Array.from(this.angles);
+    let span = 0;
+    for (let d = 0; d < ndof; d++) span = Math.max(span, Math.abs(target[d]! - start[d]!));
+    if (span === 0) return true;
+    const maxFraction = MAX_CONTINUATION_STEP / span;
+    const minFraction = LOCK_RESOLUTION / span;
+    let s = 0;
+    let h = Math.min(1, maxFraction);
+    const trialAngles = new Float64Array(ndof);
+    while (s < 1) {
+      const sNew = Math.min(1, s + h);
+      const ds = sNew - s;
+      this.qPredicted.set(this.q);
+      for (let d = 0; d < ndof; d++) {
+        trialAngles[d] = start[d]! + sNew * (target[d]! - start[d]!);
+        const move = ds * (target[d]! - start[d]!);
+        if (move === 0) continue;
+        const t = this.tangents.subarray(d * n, (d + 1) * n);
+        for (let i = 0; i < n; i++) this.qPredicted[i]! += t[i]! * move;
+      }
+      this.setDriveAngles(trialAngles);
+      if (this.correct()) {
+        // Accept: the trial factorization becomes the current one.
+        const swap = this.luCurrent;
+        this.luCurrent = this.luTrial;
+        this.luTrial = swap;
+        this.q.set(this.qTrial);
+        this.angles.set(trialAngles);
+        this.computeTangents(this.luCurrent);
+        s = sNew;
+        h = Math.min(2 * h, maxFraction);
+      } else {
+        this.setDriveAngles(this.angles);
+        h /= 2;
+        if (h < minFraction) return false;
+      }
+    }
+    return true;
+  }
+
+  /** Corrects qPredicted into qTrial and factors the Jacobian there into luTrial. */
+  private correct(): boolean {
+    const cs = this.linkage.cs;
+    const q = this.qTrial;
+    q.set(this.qPredicted);
+    let converged = false;
+    let previous = Infinity;
+    for (let it = 0; it < CHORD_MAX_ITERATIONS; it++) {
+      const r = constraintResidual(cs, q, this.residual);
+      if (r < NEWTON_TOLERANCE) {
+        converged = true;
+        break;
+      }
+      if (!(r < previous)) break;
+      previous = r;
+      this.luCurrent.solve(this.residual, this.step);
+      for (let i = 0; i < this.n; i++) q[i]! -= this.step[i]!;
+    }
+    if (!converged) {
+      q.set(this.qPredicted);
+      for (let it = 0; it < NEWTON_MAX_ITERATIONS; it++) {
+        const r = constraintResidual(cs, q, this.residual);
+        if (r < NEWTON_TOLERANCE) {
+          converged = true;
+          break;
+        }
+        if (!Number.isFinite(r)) return false;
+        constraintJacobian(cs, this.jac);
+        this.factorizations++;
+        if (!this.luTrial.factor(this.jac)) return false;
+        this.luTrial.solve(this.residual, this.step);
+        for (let i = 0; i < this.n; i++) q[i]! -= this.step[i]!;
+      }
+      if (!converged) return false;
+    }
+    for (let b = 0; b < cs.bodyCount; b++) if (Math.abs(q[3 * b + 2]! - this.qPredicted[3 * b + 2]!) > BRANCH_JUMP) return false;
+    updateAngles(cs, q);
+    constraintJacobian(cs, this.jac);
+    this.factorizations++;
+    return this.luTrial.factor(this.jac);
+  }
+
+  /** World position of a body's local point at the current pose (needs updateAngles). */
+  private world(body: number, x: number, y: number): Vec2 {
+    if (body < 0) return { x, y };
+    const cs = this.linkage.cs;
+    const c = cs.cos[body]!;
+    const s = cs.sin[body]!;
+    return { x: this.q[3 * body]! + c * x - s * y, y: this.q[3 * body + 1]! + s * x + c * y };
+  }
+
+  private addForce(Q: Float64Array, body: number, x: number, y: number, fx: number, fy: number, scale = 1): void {
+    if (body < 0) return;
+    const cs = this.linkage.cs;
+    const c = cs.cos[body]!;
+    const s = cs.sin[body]!;
+    const rx = c * x - s * y;
+    const ry = s * x + c * y;
+    Q[3 * body]! += scale * fx;
+    Q[3 * body + 1]! += scale * fy;
+    Q[3 * body + 2]! += scale * (rx * fy - ry * fx);
+  }
+
+  private jointAngle(joint: number): number {
+    const g = this.linkage.graph;
+    const p = g.parent[joint]!;
+    const c = g.child[joint]!;
+    const rel = (c >= 0 ? this.q[3 * c + 2]! : 0) - (p >= 0 ? this.q[3 * p + 2]! : 0);
+    return wrapNear(rel, this.linkage.referenceAngles[joint]!);
+  }
+
+  /** Kinematics and statics of the current pose, for every load case. */
+  record(index: number): Pose {
+    const L = this.linkage;
+    const g = L.graph;
+    const cs = L.cs;
+    const n = this.n;
+    const ndof = this.ndof;
+    const model = this.model;
+    const gravity = model.gravity;
+    updateAngles(cs, this.q);
+
+    const angles: Record<string, number> = {};
+    L.dofs.forEach((d, i) => (angles[d.id] = this.angles[i]!));
+    const jointAngles: Record<string, number> = {};
+    g.joints.forEach((j, i) => (jointAngles[j.id] = this.jointAngle(i)));
+    const bodies: Pose["bodies"] = { [g.baseId]: { x: 0, y: 0, phi: 0 } };
+    g.bodyIds.forEach((id, b) => (bodies[id] = { x: this.q[3 * b]!, y: this.q[3 * b + 1]!, phi: this.q[3 * b + 2]! }));
+
+    // Springs: state, tension, generalized force and the holding torque per unit of tension.
+    const springs: Record<string, SpringState> = {};
+    const springForce: Record<string, number> = {};
+    const springTorquePerUnit: Record<string, Record<string, number>> = {};
+    this.qSprings.fill(0);
+    for (const ps of this.pointSprings) {
+      const wa = this.world(ps.a, ps.ax, ps.ay);
+      const wb = this.world(ps.b, ps.bx, ps.by);
+      const dx = wb.x - wa.x;
+      const dy = wb.y - wa.y;
+      const length = Math.hypot(dx, dy);
+      const tension = springTension(model, ps.spring as Exclude<Spring, { kind: "torsion" }>, length);
+      springs[ps.spring.id] = { length, a: wa, b: wb };
+      springForce[ps.spring.id] = tension;
+      this.unit.fill(0);
+      if (length > 0) {
+        const ux = dx / length;
+        const uy = dy / length;
+        this.addForce(this.unit, ps.a, ps.ax, ps.ay, ux, uy);
+        this.addForce(this.unit, ps.b, ps.bx, ps.by, -ux, -uy);
+      }
+      for (let i = 0; i < n; i++) this.qSprings[i]! += tension * this.unit[i]!;
+      springTorquePerUnit[ps.spring.id] = this.holdingPerUnit();
+    }
+    for (const t of this.torsions) {
+      const theta = this.jointAngle(t.joint);
+      const torque = torsionSpringTorque(t.spring, theta, g.joints[t.joint]!.angle);
+      const j = g.joints[t.joint]!;
+      const pivot = this.world(g.parent[t.joint]!, j.parentPoint.x, j.parentPoint.y);
+      springs[t.spring.id] = { length: NaN, a: pivot, b: pivot, windUp: t.spring.rate !== 0 ? torque / t.spring.rate : theta - j.angle };
+      springForce[t.spring.id] = torque;
+      this.unit.fill(0);
+      const p = g.parent[t.joint]!;
+      const c = g.child[t.joint]!;
+      if (p >= 0) this.unit[3 * p + 2]! += 1;
+      if (c >= 0) this.unit[3 * c + 2]! -= 1;
+      for (let i = 0; i < n; i++) this.qSprings[i]! += torque * this.unit[i]!;
+      springTorquePerUnit[t.spring.id] = this.holdingPerUnit();
+    }
+
+    // Gravity on every body's centre of mass.
+    this.qBodies.fill(0);
+    for (const body of model.bodies) {
+      const b = g.bodyIndex.get(body.id);
+      if (b === undefined || b < 0 || body.mass === 0) continue;
+      this.addForce(this.qBodies, b, body.centreOfMass.x, body.centreOfMass.y, 0, -body.mass * gravity);
+    }
+
+    // Payload Jacobians dp/dtheta from the tangents.
+    const payloadJacobian: Record<string, Record<string, Vec2>> = {};
+    const payloadJ: Float64Array[] = [];
+    const payloadBody: number[] = [];
+    for (const p of model.payloads) {
+      const b = g.bodyIndex.get(p.body);
+      payloadBody.push(b ?? -2);
+      const jac = new Float64Array(2 * Math.max(ndof, 1));
+      if (b !== undefined && b >= 0) {
+        const c = cs.cos[b]!;
+        const s = cs.sin[b]!;
+        const rx = c * p.point.x - s * p.point.y;
+        const ry = s * p.point.x + c * p.point.y;
+        for (let d = 0; d < ndof; d++) {
+          const o = d * n + 3 * b;
+          const w = this.tangents[o + 2]!;
+          jac[2 * d] = this.tangents[o]! - ry * w;
+          jac[2 * d + 1] = this.tangents[o + 1]! + rx * w;
+        }
+      }
+      payloadJ.push(jac);
+      const rec: Record<string, Vec2> = {};
+      L.dofs.forEach((d, i) => (rec[d.id] = { x: jac[2 * i]!, y: jac[2 * i + 1]! }));
+      payloadJacobian[p.id] = rec;
+    }
+
+    const tau = new Float64Array(Math.max(ndof, 1));
+    const cases: PoseStatics[] = this.loadCases.map((lc) => {
+      this.qCase.set(this.qSprings);
+      for (let i = 0; i < n; i++) this.qCase[i]! += this.qBodies[i]!;
+      model.payloads.forEach((p, k) => {
+        const b = payloadBody[k]!;
+        if (b < 0) return;
+        const mass = lc.payloadMass[p.id] ?? p.mass;
+        this.addForce(this.qCase, b, p.point.x, p.point.y, p.force?.x ?? 0, (p.force?.y ?? 0) - mass * gravity);
+      });
+      this.luCurrent.solveTransposed(this.qCase, this.lambda);
+      const holdingTorque: Record<string, number> = {};
+      L.dofs.forEach((d, i) => {
+        const v = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!;
+        tau[i] = v;
+        holdingTorque[d.id] = v;
+      });
+      const lockedTorque: Record<string, number> = {};
+      L.driveKind.forEach((k, di) => {
+        if (k === "dof") return;
+        lockedTorque[g.joints[L.driveJoint[di]!]!.id] = -this.lambda[L.driveRow[di]!]!;
+      });
+      const reactions: Record<string, Vec2> = {};
+      g.joints.forEach((j, ji) => {
+        const rx = L.revRow[2 * ji]!;
+        const ry = L.revRow[2 * ji + 1]!;
+        reactions[j.id] = { x: rx >= 0 ? this.lambda[rx]! : 0, y: ry >= 0 ? this.lambda[ry]! : 0 };
+      });
+      const handForce: Record<string, number> = {};
+      const handForceVectorRec: Record<string, Vec2> = {};
+      model.payloads.forEach((p, k) => {
+        if (payloadBody[k]! < -1) return;
+        const f = handForceVector(payloadJ[k]!, tau, ndof);
+        handForce[p.id] = Math.hypot(f.x, f.y);
+        handForceVectorRec[p.id] = f;
+      });
+      return { holdingTorque, handForce, handForceVector: handForceVectorRec, reactions, lockedTorque, springForce };
+    });
+    return { index, angles, jointAngles, bodies, springs, cases, payloadJacobian, springTorquePerUnit };
+  }
+
+  /** Holding torque per dof caused by the generalized force in `unit` (sign: what the hand adds). */
+  private holdingPerUnit(): Record<string, number> {
+    const L = this.linkage;
+    this.luCurrent.solveTransposed(this.unit, this.lambda);
+    const out: Record<string, number> = {};
+    L.dofs.forEach((d, i) => (out[d.id] = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!));
+    return out;
+  }
+}
