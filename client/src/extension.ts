@@ -1,0 +1,65 @@
+// The VS Code side of Counterpoise: starts the bundled language server (dist/server.js) over node
+// IPC, passes the settings, and shows the active spec's summary in the status bar. All the work
+// is in the server.
+import * as path from "node:path";
+import * as vscode from "vscode";
+import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from "vscode-languageclient/node";
+import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type SpecSummary } from "../../server/src/lsp/custom-protocol";
+import { createStatusBar } from "./status-bar";
+
+let client: LanguageClient | undefined;
+
+function serverOptions(context: vscode.ExtensionContext): ServerOptions {
+  const module = context.asAbsolutePath(path.join("dist", "server.js"));
+  return {
+    run: { module, transport: TransportKind.ipc },
+    debug: { module, transport: TransportKind.ipc, options: { execArgv: ["--nolazy", "--inspect=6019"] } },
+  };
+}
+
+function clientOptions(output: vscode.LogOutputChannel): LanguageClientOptions {
+  return {
+    documentSelector: [
+      { scheme: "file", language: "counterpoise" },
+      { scheme: "untitled", language: "counterpoise" },
+    ],
+    synchronize: { configurationSection: "counterpoise" },
+    initializationOptions: { settings: vscode.workspace.getConfiguration("counterpoise") },
+    outputChannel: output,
+  };
+}
+
+export async function activate(context: vscode.ExtensionContext): Promise<void> {
+  const output = vscode.window.createOutputChannel("Counterpoise", { log: true });
+  const status = createStatusBar();
+  context.subscriptions.push(output, status);
+
+  const start = async () => {
+    client = new LanguageClient("counterpoise", "Counterpoise", serverOptions(context), clientOptions(output));
+    client.onNotification(SPEC_SUMMARY_NOTIFICATION, (summary: SpecSummary) => status.update(summary));
+    await client.start();
+  };
+
+  context.subscriptions.push(
+    vscode.commands.registerCommand("counterpoise.restartServer", async () => {
+      status.clear();
+      if (client) await client.restart();
+      else await start();
+    }),
+    vscode.commands.registerCommand("counterpoise.showServerLog", () => output.show(true)),
+    vscode.commands.registerCommand("counterpoise.reanalyse", async () => {
+      const doc = vscode.window.activeTextEditor?.document;
+      if (client && doc?.languageId === "counterpoise") await client.sendRequest(REANALYSE_REQUEST, { uri: doc.uri.toString() });
+    }),
+    vscode.window.onDidChangeActiveTextEditor(() => status.follow(vscode.window.activeTextEditor?.document)),
+    vscode.workspace.onDidCloseTextDocument((doc) => status.forget(doc.uri.toString())),
+  );
+
+  await start();
+  status.follow(vscode.window.activeTextEditor?.document);
+}
+
+export async function deactivate(): Promise<void> {
+  await client?.stop();
+  client = undefined;
+}

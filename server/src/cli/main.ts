@@ -1,0 +1,77 @@
+// The `poise` command (bundled to dist/cli.js; bin/poise.js launches it): check, sweep, report,
+// and the language server over stdio for editors other than VS Code.
+import { runCheck } from "./check";
+import { runSweep } from "./sweep";
+import { runReport } from "./report";
+import { processOutput, type Output } from "./io";
+import packageJson from "../../../package.json";
+
+const HELP = `poise — checks spring-balanced arm specs (*.poise)
+
+usage:
+  poise check FILE... [--json]     diagnostics, one per line (path:line:column: severity code: message)
+  poise sweep FILE [--json|--csv]  the pose table: angles deg, lengths mm, forces N, torques N*m
+  poise report FILE [-o OUT.html]  a self-contained HTML report
+  poise lsp --stdio                the language server over stdin/stdout, for any editor
+  poise --help | --version
+
+exit status: 0 no errors, 1 the spec has errors, 2 the command could not run
+`;
+
+async function runLsp(args: string[], out: Output): Promise<number> {
+  if (!args.includes("--stdio")) {
+    out.err("poise lsp: only --stdio is supported (poise lsp --stdio)\n");
+    return 2;
+  }
+  const { createConnection, StreamMessageReader, StreamMessageWriter, ProposedFeatures } = await import("vscode-languageserver/node");
+  const { startServer } = await import("../lsp/server");
+  startServer(createConnection(ProposedFeatures.all, new StreamMessageReader(process.stdin), new StreamMessageWriter(process.stdout)));
+  return new Promise<number>(() => {}); // runs until the client ends it (exit notification)
+}
+
+export async function main(argv: string[], out: Output = processOutput): Promise<number> {
+  const [command, ...rest] = argv;
+  switch (command) {
+    case "check": {
+      const json = rest.includes("--json");
+      const unknown = rest.find((a) => a.startsWith("-") && a !== "--json");
+      if (unknown) {
+        out.err(`poise check: unknown option ${unknown} (poise check FILE... [--json])\n`);
+        return 2;
+      }
+      return runCheck(rest.filter((a) => a !== "--json"), json, out);
+    }
+    case "sweep":
+      return runSweep(rest, out);
+    case "report":
+      return runReport(rest);
+    case "lsp":
+      return runLsp(rest, out);
+    case "--version":
+    case "-v":
+    case "version":
+      out.out(`${packageJson.version}\n`);
+      return 0;
+    case "--help":
+    case "-h":
+    case "help":
+      out.out(HELP);
+      return 0;
+    case undefined:
+      out.err(HELP);
+      return 2;
+    default:
+      out.err(`poise: unknown command ${command}\n\n${HELP}`);
+      return 2;
+  }
+}
+
+main(process.argv.slice(2)).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (err: unknown) => {
+    process.stderr.write(`poise: internal fault: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`);
+    process.exitCode = 2;
+  },
+);

@@ -1,0 +1,109 @@
+// `poise sweep FILE [--json|--csv]`: the pose table behind the checks, in the fixed units of
+// cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa).
+import { analyse } from "../analysis";
+import type { Pose, SweepResult } from "../mechanics/types";
+import { readSpec, type Output } from "./io";
+
+const RAD_TO_DEG = 180 / Math.PI;
+const M_TO_MM = 1000;
+/** Digits kept in the table: well past the model's accuracy, short enough to read. */
+const SIGNIFICANT = 6;
+
+function round(v: number): number | null {
+  if (!Number.isFinite(v)) return null;
+  const r = Number(v.toPrecision(SIGNIFICANT));
+  return Object.is(r, -0) ? 0 : r;
+}
+
+function mapValues<T, U>(record: Record<string, T>, f: (v: T, key: string) => U): Record<string, U> {
+  const out: Record<string, U> = {};
+  for (const [k, v] of Object.entries(record)) out[k] = f(v, k);
+  return out;
+}
+
+export interface SweepTablePose {
+  angles: Record<string, number | null>;
+  bodies: Record<string, { x: number | null; y: number | null; angle: number | null }>;
+  holding_torque: Record<string, number | null>;
+  hand_force: Record<string, number | null>;
+  reactions: Record<string, [number | null, number | null]>;
+  springs: Record<string, { length: number | null; force: number | null }>;
+}
+
+export interface SweepTable {
+  dofs: string[];
+  poses: SweepTablePose[];
+}
+
+/** One pose in cli.md's shape, for the nominal load case (the first). Torsion springs have no
+ * length (null) and give their torque, N*m, as `force`. */
+function tablePose(pose: Pose): SweepTablePose {
+  const statics = pose.cases[0];
+  return {
+    angles: mapValues(pose.angles, (a) => round(a * RAD_TO_DEG)),
+    bodies: mapValues(pose.bodies, (b) => ({ x: round(b.x * M_TO_MM), y: round(b.y * M_TO_MM), angle: round(b.phi * RAD_TO_DEG) })),
+    holding_torque: mapValues(statics?.holdingTorque ?? {}, round),
+    hand_force: mapValues(statics?.handForce ?? {}, round),
+    reactions: mapValues(statics?.reactions ?? {}, (r) => [round(r.x), round(r.y)] as [number | null, number | null]),
+    springs: mapValues(pose.springs, (s, id) => ({ length: round(s.length * M_TO_MM), force: round(statics?.springForce[id] ?? NaN) })),
+  };
+}
+
+export function sweepTable(sweep: SweepResult): SweepTable {
+  return { dofs: sweep.dofs.map((d) => d.id), poses: sweep.poses.map(tablePose) };
+}
+
+function csvCell(v: number | null | undefined): string {
+  return v === null || v === undefined ? "" : String(v);
+}
+
+function csvName(s: string): string {
+  return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/** Columns named after the JSON paths, with `/` between the parts: `angles/reach`,
+ * `bodies/reach.lower/x`, `reactions/reach/x`, `springs/lift/force`. */
+export function sweepCsv(table: SweepTable): string {
+  const first = table.poses[0];
+  if (!first) return `${table.dofs.map((d) => csvName(`angles/${d}`)).join(",")}\n`;
+  const columns: { name: string; get: (p: SweepTablePose) => number | null | undefined }[] = [];
+  for (const d of Object.keys(first.angles)) columns.push({ name: `angles/${d}`, get: (p) => p.angles[d] });
+  for (const b of Object.keys(first.bodies)) for (const c of ["x", "y", "angle"] as const) columns.push({ name: `bodies/${b}/${c}`, get: (p) => p.bodies[b]?.[c] });
+  for (const d of Object.keys(first.holding_torque)) columns.push({ name: `holding_torque/${d}`, get: (p) => p.holding_torque[d] });
+  for (const h of Object.keys(first.hand_force)) columns.push({ name: `hand_force/${h}`, get: (p) => p.hand_force[h] });
+  for (const j of Object.keys(first.reactions)) for (const [i, c] of ["x", "y"].entries()) columns.push({ name: `reactions/${j}/${c}`, get: (p) => p.reactions[j]?.[i] });
+  for (const s of Object.keys(first.springs)) for (const c of ["length", "force"] as const) columns.push({ name: `springs/${s}/${c}`, get: (p) => p.springs[s]?.[c] });
+  const rows = [columns.map((c) => csvName(c.name)).join(",")];
+  for (const p of table.poses) rows.push(columns.map((c) => csvCell(c.get(p))).join(","));
+  return `${rows.join("\n")}\n`;
+}
+
+export function runSweep(args: string[], out: Output): number {
+  let format: "json" | "csv" = "json";
+  const files: string[] = [];
+  for (const a of args) {
+    if (a === "--json") format = "json";
+    else if (a === "--csv") format = "csv";
+    else if (a.startsWith("-")) {
+      out.err(`poise sweep: unknown option ${a} (poise sweep FILE [--json|--csv])\n`);
+      return 2;
+    } else files.push(a);
+  }
+  if (files.length !== 1) {
+    out.err(`poise sweep: name exactly one .poise file (poise sweep FILE [--json|--csv])\n`);
+    return 2;
+  }
+  const file = files[0]!;
+  const text = readSpec(file, out, "sweep");
+  if (text === undefined) return 2;
+  const analysis = analyse(text);
+  const errors = analysis.findings.filter((f) => f.severity === "error");
+  if (!analysis.sweep) {
+    out.err(`poise sweep: ${file} cannot be swept: ${errors.length ? errors.map((e) => e.message).slice(0, 3).join("; ") : "no model"} (run poise check ${file})\n`);
+    return errors.length > 0 ? 1 : 2;
+  }
+  const table = sweepTable(analysis.sweep);
+  out.out(format === "csv" ? sweepCsv(table) : `${JSON.stringify(table, null, 2)}\n`);
+  if (errors.length > 0) out.err(`poise sweep: ${file} has ${errors.length} error${errors.length === 1 ? "" : "s"} (run poise check ${file})\n`);
+  return errors.length > 0 ? 1 : 0;
+}

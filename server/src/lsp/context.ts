@@ -1,0 +1,29 @@
+// What every editor feature of the server is handed: the connection, the open documents, the
+// analyses, the fast parse of the current text, and the settings.
+import type { ClientCapabilities, Connection, ServerCapabilities, TextDocuments } from "vscode-languageserver";
+import type { TextDocument } from "vscode-languageserver-textdocument";
+import type { Analysis } from "../analysis";
+import type { AnalysisScheduler } from "./scheduler";
+import type { Settings } from "./settings";
+import type { SyntaxView } from "./syntax-view";
+
+export interface FeatureContext {
+  connection: Connection;
+  documents: TextDocuments<TextDocument>;
+  scheduler: AnalysisScheduler;
+  settings(): Settings;
+  client(): ClientCapabilities;
+  /** The fast parse of the document's current text (undefined if the document is not open). */
+  syntax(uri: string): SyntaxView | undefined;
+  /** The best analysis to read figures from now (may be of an earlier text). */
+  figures(uri: string): Analysis | undefined;
+  log(message: string): void;
+}
+
+/** One editor feature: the capabilities it announces and the handlers it installs. Handlers must
+ * be wrapped with `guarded` (safe.ts) so that no exception reaches the connection. */
+export interface ServerFeature {
+  name: string;
+  capabilities(client: ClientCapabilities): ServerCapabilities;
+  register(ctx: FeatureContext): void;
+}

@@ -1,0 +1,203 @@
+// Hover: a quantity in both unit systems; a name with what it is, its key properties and the
+// analysis figures (readouts, worst safety); a property's meaning; the explanation of the finding
+// under the cursor. Figures come from the last good analysis while a new one runs.
+import type { Hover } from "vscode-languageserver";
+import type { Analysis } from "../analysis";
+import { CODES } from "../checks/codes";
+import type { PartReadout } from "../checks/readout";
+import type { ArmModel, Body, Spring } from "../model/types";
+import { ARM_PROPERTIES, declarationSpec } from "../model/schema";
+import { spanContains } from "../syntax/span";
+import type { QuantityNode } from "../syntax/ast";
+import { formatNumber, formatQuantity, otherSystem } from "../units/format";
+import { parseUnit, dimensionNameOf } from "../units/quantity";
+import type { UnitSystem } from "../units/unit-table";
+import type { ServerFeature } from "./context";
+import { spanToRange } from "./convert";
+import { occurrenceAt, type NameSymbol } from "./names";
+import { guarded } from "./safe";
+import type { SyntaxView } from "./syntax-view";
+import { spotAt } from "./tree-walk";
+
+const f = formatQuantity;
+
+function quantityHover(q: QuantityNode, system: UnitSystem): string | undefined {
+  if (!q.unit) return undefined;
+  const parsed = parseUnit(q.unit.text);
+  if (!parsed.ok) return undefined;
+  const dimension = dimensionNameOf(parsed.unit.dimension);
+  if (!dimension) return undefined;
+  const si = q.value * parsed.unit.factor;
+  const lines = [`**${q.numberText} ${q.unit.text}** (${dimension.replace("_", " ")})`];
+  const written = parsed.unit.system;
+  lines.push(`= ${f(si, dimension, written)} · ${f(si, dimension, otherSystem(written))}`);
+  if (system !== written && system !== otherSystem(written)) lines.push(f(si, dimension, system));
+  return lines.join("\n\n");
+}
+
+function bodyFacts(b: Body, system: UnitSystem): string[] {
+  const facts: string[] = [];
+  if (b.length > 0) facts.push(`length ${f(b.length, "length", system)}`);
+  facts.push(`mass ${f(b.mass, "mass", system)}${b.massGiven ? " (given)" : b.material ? ` (${b.material})` : ""}`);
+  const pts = Object.keys(b.points);
+  if (pts.length) facts.push(`points ${pts.join(", ")}`);
+  return facts;
+}
+
+function springFacts(s: Spring, system: UnitSystem): string[] {
+  switch (s.kind) {
+    case "extension":
+      return [`extension spring`, `rate ${f(s.rate, "stiffness", system)}`, `free length ${f(s.freeLength, "length", system)}`, `initial tension ${f(s.initialTension, "force", system)}`];
+    case "zero_length":
+      return [`zero-free-length spring`, `rate ${f(s.rate, "stiffness", system)}`];
+    case "elastic":
+      return [`elastic cord`, `free length ${f(s.freeLength, "length", system)}`, `area ${f(s.area, "area", system)}`, `material ${s.material}`];
+    case "gas":
+      return [`gas strut`, `force ${f(s.force, "force", system)} extended`, `progression ${formatNumber(s.progression)}`, `stroke ${f(s.stroke, "length", system)}`];
+    case "torsion":
+      return [`torsion spring at ${s.joint}`, `rate ${f(s.rate, "angular_stiffness", system)}`, `preload ${f(s.preloadTorque, "torque", system)}`];
+  }
+}
+
+function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): string[] {
+  const id = symbol.id;
+  switch (symbol.kind) {
+    case "base":
+    case "link":
+    case "bar":
+    case "head": {
+      const b = model.bodies.find((x) => x.id === id);
+      return b ? bodyFacts(b, system) : [];
+    }
+    case "joint": {
+      const j = model.joints.find((x) => x.id === id);
+      if (!j) return [];
+      const facts = [`${j.parent} → ${j.child}`, `angle ${f(j.angle, "angle", system)}`];
+      if (j.mode === "range" && j.range) facts.push(`range ${f(j.range[0], "angle", system)} .. ${f(j.range[1], "angle", system)}`);
+      else facts.push(j.mode);
+      if (j.pin) facts.push(`pin ${f(j.pin.diameter, "length", system)} ${j.pin.material}`);
+      return facts;
+    }
+    case "parallelogram": {
+      const p = model.parallelograms.find((x) => x.id === id);
+      if (!p) return [];
+      const facts = [`on ${p.parent}`, `length ${f(p.length, "length", system)}`, `spacing ${f(p.spacing, "length", system)}`, `angle ${f(p.angle, "angle", system)}`];
+      if (p.range) facts.push(`range ${f(p.range[0], "angle", system)} .. ${f(p.range[1], "angle", system)}`);
+      facts.push(`bodies ${p.bodies.lower}, ${p.bodies.upper}, ${p.bodies.head}`);
+      return facts;
+    }
+    case "spring": {
+      const s = model.springs.find((x) => x.id === id);
+      return s ? springFacts(s, system) : [];
+    }
+    case "payload": {
+      const p = model.payloads.find((x) => x.id === id);
+      if (!p) return [];
+      const facts = [`mass ${f(p.mass, "mass", system)}`, `on ${p.body}`];
+      if (p.massRange) facts.push(`mass range ${f(p.massRange[0], "mass", system)} .. ${f(p.massRange[1], "mass", system)}`);
+      return facts;
+    }
+    case "material": {
+      const m = model.materials[id];
+      if (!m) return [];
+      const facts = [`density ${f(m.density, "density", system)}`, `modulus ${f(m.modulus, "pressure", system)}`, `strength ${f(m.strength, "pressure", system)}`];
+      if (m.layerStrength !== undefined) facts.push(`across layers ${f(m.layerStrength, "pressure", system)}`);
+      if (m.source) facts.push(`source: ${m.source}`);
+      return facts;
+    }
+    case "point": {
+      const body = model.bodies.find((b) => b.id === symbol.parent);
+      const p = body?.points[symbol.name];
+      return p ? [`(${f(p.x, "length", system)}, ${f(p.y, "length", system)}) on ${body!.id}`] : [];
+    }
+  }
+}
+
+function readoutLines(r: PartReadout, system: UnitSystem): string[] {
+  const lines = r.figures.map((fig) => {
+    const value = fig.high !== undefined ? `${f(fig.value, fig.dimension, system)} .. ${f(fig.high, fig.dimension, system)}` : f(fig.value, fig.dimension, system);
+    return `- ${fig.label}: ${value}${fig.where ? ` (${fig.where})` : ""}`;
+  });
+  if (r.worstSafety) lines.push(`- least safety factor: ${formatNumber(r.worstSafety.value)} (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`);
+  for (const note of r.notes) lines.push(`- ${note}`);
+  return lines;
+}
+
+const KIND_WORDS: Record<string, string> = {
+  material: "material",
+  base: "base (fixed ground)",
+  link: "link (rigid bar)",
+  joint: "joint (revolute pivot)",
+  parallelogram: "parallelogram stage",
+  spring: "spring",
+  payload: "payload",
+  bar: "parallelogram bar",
+  head: "parallelogram head (far upright)",
+  point: "point",
+};
+
+function nameHover(symbol: NameSymbol, analysis: Analysis | undefined, system: UnitSystem): string {
+  const title = `**${symbol.id}** — ${KIND_WORDS[symbol.kind] ?? symbol.kind}${symbol.builtin ? " (built in)" : ""}`;
+  const parts = [title];
+  const model = analysis?.model;
+  if (model) {
+    const facts = modelFacts(model, symbol, system);
+    if (facts.length) parts.push(facts.join(" · "));
+  }
+  const readout = analysis?.readouts[symbol.id];
+  if (readout) {
+    const lines = readoutLines(readout, system);
+    if (lines.length) parts.push(lines.join("\n"));
+  }
+  if (!model) parts.push("_Figures appear once the spec builds a model._");
+  return parts.join("\n\n");
+}
+
+export function hoverAt(view: SyntaxView, offset: number, analysis: Analysis | undefined, current: Analysis | undefined, system: UnitSystem): Hover | null {
+  const sections: string[] = [];
+  let range = undefined;
+  const occ = occurrenceAt(view.names, offset);
+  const symbol = occ && view.names.symbols.get(occ.symbolId);
+  const spot = spotAt(view.tree, offset);
+  if (occ && symbol) {
+    sections.push(nameHover(symbol, analysis, system));
+    range = spanToRange(view.lines, occ.span);
+  } else if (spot.quantity) {
+    const text = quantityHover(spot.quantity, system);
+    if (text) sections.push(text);
+    range = spanToRange(view.lines, spot.quantity.span);
+  } else if (spot.property && spanContains(spot.property.key.span, offset)) {
+    const key = spot.property.key.text;
+    const spec = spot.declaration ? declarationSpec(spot.declaration.keyword.text)?.properties.find((p) => p.key === key) : ARM_PROPERTIES.find((p) => p.key === key);
+    if (spec) sections.push(`**${key}**${spec.required ? " (required)" : ""} — ${spec.doc}\n\n\`${spec.example}\``);
+    range = spanToRange(view.lines, spot.property.key.span);
+  } else if (spot.declaration && spanContains(spot.declaration.keyword.span, offset)) {
+    const spec = declarationSpec(spot.declaration.keyword.text);
+    if (spec) sections.push(`**${spec.keyword}** — ${spec.doc}`);
+    range = spanToRange(view.lines, spot.declaration.keyword.span);
+  }
+  // The findings under the cursor, with what their code means (only if they are of this text).
+  if (current && current.text === view.text) {
+    for (const finding of current.findings) {
+      if (!spanContains(finding.span, offset)) continue;
+      sections.push(`\`${finding.code}\` — ${CODES[finding.code]?.explanation ?? ""}`);
+    }
+  }
+  if (sections.length === 0) return null;
+  return { contents: { kind: "markdown", value: sections.join("\n\n---\n\n") }, ...(range ? { range } : {}) };
+}
+
+export const hoverFeature: ServerFeature = {
+  name: "hover",
+  capabilities: () => ({ hoverProvider: true }),
+  register(ctx) {
+    ctx.connection.onHover(
+      guarded("hover", null as Hover | null, (params) => {
+        const uri = params.textDocument.uri;
+        const view = ctx.syntax(uri);
+        if (!view) return null;
+        return hoverAt(view, view.lines.offset(params.position), ctx.figures(uri), ctx.scheduler.current(uri), ctx.settings().displayUnits);
+      }),
+    );
+  },
+};

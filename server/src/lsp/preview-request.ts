@@ -1,0 +1,38 @@
+// Answers the preview panel's request for a document's arm view model: the analysis of the
+// document's current version (waiting briefly for it), else the latest one there is.
+import type { FeatureContext, ServerFeature } from "./context";
+import { guarded } from "./safe";
+import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "./preview-protocol";
+import { buildViewModel } from "../view/build-view-model";
+import type { Analysis } from "../analysis";
+
+/** How long the request waits for the current text's analysis before answering with an older
+ * one: a little over the usual typing debounce plus a sweep (common practice, no source). */
+const WAIT_FOR_CURRENT_MS = 4000;
+
+function within<T>(promise: Promise<T>, ms: number): Promise<T | undefined> {
+  return new Promise((resolve) => {
+    const timer = setTimeout(() => resolve(undefined), ms);
+    void promise.then((v) => {
+      clearTimeout(timer);
+      resolve(v);
+    });
+  });
+}
+
+export const previewFeature: ServerFeature = {
+  name: "arm preview",
+  capabilities: () => ({}),
+  register(ctx: FeatureContext) {
+    ctx.connection.onRequest(
+      ARM_VIEW_REQUEST,
+      guarded("arm view", null as ArmViewResult, async (params: ArmViewParams): Promise<ArmViewResult> => {
+        const doc = params?.uri ? ctx.documents.get(params.uri) : undefined;
+        if (!doc) return null;
+        const current: Analysis | undefined = await within(ctx.scheduler.whenAnalysed(doc.uri, doc.version), WAIT_FOR_CURRENT_MS);
+        const analysis = current?.model ? current : ctx.scheduler.latest(doc.uri) ?? current;
+        return analysis ? buildViewModel(analysis) : null;
+      }),
+    );
+  },
+};

@@ -1,0 +1,212 @@
+// Bounded analysis per document: debounce keystrokes, run only the latest text, drop results that
+// arrive for a text already changed, stop a stale run that has gone on too long, and keep the last
+// good analysis to answer hover and completion while a new run is under way.
+import type { Analysis, AnalysisOptions } from "../analysis";
+import { finding } from "../checks/finding";
+import type { SyntaxTree } from "../syntax/ast";
+import type { AnalysisRunner, RunHandle } from "./runner";
+import type { Settings } from "./settings";
+
+/** A stale run younger than this is left to finish (its result is dropped): restarting the
+ * worker costs about as much as a small analysis. Common practice, no source. */
+const STALE_RUN_GRACE_MS = 150;
+/** After a quick while-typing run, the spec's own sweep density is run once typing pauses this
+ * long. Common practice, no source: about the pause between typed phrases. */
+const IDLE_FULL_RUN_MS = 1200;
+/** The hard stop of a run beyond its cooperative budget (a hung phase): budget plus this. */
+const HARD_LIMIT_MARGIN_MS = 2000;
+
+export type Density = "typing" | "full";
+
+export interface PublishedAnalysis {
+  uri: string;
+  version: number;
+  analysis: Analysis;
+}
+
+interface DocEntry {
+  uri: string;
+  version: number;
+  text: string;
+  density: Density;
+  debounce?: ReturnType<typeof setTimeout>;
+  idle?: ReturnType<typeof setTimeout>;
+  running?: { version: number; density: Density; handle: RunHandle };
+  /** The analysis of the current version, once it has arrived. */
+  current?: Analysis;
+  /** The newest analysis that built a model (answers hover figures while the text is broken). */
+  lastGood?: Analysis;
+  waiters: { version: number; resolve: (a: Analysis | undefined) => void }[];
+}
+
+export class AnalysisScheduler {
+  private readonly docs = new Map<string, DocEntry>();
+
+  constructor(
+    private readonly runner: AnalysisRunner,
+    private readonly settings: () => Settings,
+    private readonly onAnalysed: (result: PublishedAnalysis) => void,
+    /** The spec's own `sweep steps`, read from a fast parse, so the while-typing density never
+     * raises it. */
+    private readonly specSteps: (text: string) => number | undefined,
+  ) {}
+
+  /** A new text for a document: analysed after the debounce delay (0 for `immediate`). */
+  update(uri: string, version: number, text: string, density: Density, immediate = false): void {
+    let entry = this.docs.get(uri);
+    if (!entry) {
+      entry = { uri, version, text, density, waiters: [] };
+      this.docs.set(uri, entry);
+    }
+    const changed = entry.text !== text || entry.version !== version;
+    entry.version = version;
+    entry.text = text;
+    entry.density = density;
+    if (changed) entry.current = undefined;
+    this.clearTimers(entry);
+    this.stopIfStale(entry, false);
+    const delay = immediate ? 0 : this.settings().diagnosticsDelayMs;
+    entry.debounce = setTimeout(() => this.start(entry!), delay);
+  }
+
+  /** Runs the current text again at the spec's own density (e.g. on save). */
+  refresh(uri: string): void {
+    const entry = this.docs.get(uri);
+    if (entry) this.update(uri, entry.version, entry.text, "full", true);
+  }
+
+  refreshAll(): void {
+    for (const uri of this.docs.keys()) this.refresh(uri);
+  }
+
+  close(uri: string): void {
+    const entry = this.docs.get(uri);
+    if (!entry) return;
+    this.clearTimers(entry);
+    entry.running?.handle.cancel();
+    for (const w of entry.waiters) w.resolve(undefined);
+    this.docs.delete(uri);
+  }
+
+  /** The analysis of the document's current text, if it has arrived. */
+  current(uri: string): Analysis | undefined {
+    return this.docs.get(uri)?.current;
+  }
+
+  /** The best analysis to read figures from now: the current one, else the last that built a
+   * model. */
+  latest(uri: string): Analysis | undefined {
+    const entry = this.docs.get(uri);
+    if (!entry) return undefined;
+    if (entry.current?.model) return entry.current;
+    return entry.lastGood ?? entry.current;
+  }
+
+  /** Resolves with the analysis of `version` (or a later one) once it is published. */
+  whenAnalysed(uri: string, version: number): Promise<Analysis | undefined> {
+    const entry = this.docs.get(uri);
+    if (!entry) return Promise.resolve(undefined);
+    if (entry.current && entry.version >= version) return Promise.resolve(entry.current);
+    return new Promise((resolve) => entry.waiters.push({ version, resolve }));
+  }
+
+  dispose(): void {
+    for (const uri of [...this.docs.keys()]) this.close(uri);
+    this.runner.dispose();
+  }
+
+  private clearTimers(entry: DocEntry): void {
+    if (entry.debounce) clearTimeout(entry.debounce);
+    if (entry.idle) clearTimeout(entry.idle);
+    entry.debounce = entry.idle = undefined;
+  }
+
+  /** Cancels a run of an older text once it has run past the grace (or always, if `force`). */
+  private stopIfStale(entry: DocEntry, force: boolean): void {
+    const run = entry.running;
+    if (!run || run.version === entry.version) return;
+    const startedAt = run.handle.started();
+    if (startedAt === undefined || force || performance.now() - startedAt > STALE_RUN_GRACE_MS) {
+      run.handle.cancel();
+      entry.running = undefined;
+    }
+  }
+
+  private options(entry: DocEntry): AnalysisOptions {
+    const s = this.settings();
+    const options: AnalysisOptions = { budgetMs: s.analysisBudgetMs };
+    if (entry.density === "typing" && s.stepsWhileTyping > 0) {
+      const own = this.specSteps(entry.text);
+      if (own === undefined || own > s.stepsWhileTyping) options.stepsOverride = s.stepsWhileTyping;
+    }
+    return options;
+  }
+
+  private start(entry: DocEntry): void {
+    entry.debounce = undefined;
+    if (this.docs.get(entry.uri) !== entry) return;
+    if (entry.running) {
+      if (entry.running.version === entry.version && entry.running.density === entry.density) return;
+      // A run of an older text is still going: stop it now if it is long, else let it end first.
+      this.stopIfStale(entry, false);
+      if (entry.running) return;
+    }
+    const version = entry.version;
+    const density = entry.density;
+    const options = this.options(entry);
+    const hardLimit = (options.budgetMs ?? 0) + HARD_LIMIT_MARGIN_MS;
+    const handle = this.runner.run(entry.text, options, hardLimit);
+    entry.running = { version, density, handle };
+    void handle.outcome.then(async (outcome) => {
+      if (entry.running?.handle === handle) entry.running = undefined;
+      if (this.docs.get(entry.uri) !== entry) return;
+      if (outcome.kind === "cancelled") return this.startIfBehind(entry);
+      let analysis: Analysis;
+      if (outcome.kind === "done") analysis = outcome.analysis;
+      else analysis = await this.fallbackAnalysis(entry.text, outcome.kind === "timeout" ? hardLimit : undefined, outcome.kind === "failed" ? outcome.message : undefined);
+      if (this.docs.get(entry.uri) !== entry) return;
+      if (entry.version !== version) return this.startIfBehind(entry); // stale: drop it
+      this.accept(entry, version, density, analysis);
+    });
+  }
+
+  private startIfBehind(entry: DocEntry): void {
+    if (!entry.running && !entry.debounce && !entry.current) this.start(entry);
+  }
+
+  private accept(entry: DocEntry, version: number, density: Density, analysis: Analysis): void {
+    entry.current = analysis;
+    if (analysis.model) entry.lastGood = analysis;
+    const ready = entry.waiters.filter((w) => w.version <= version);
+    entry.waiters = entry.waiters.filter((w) => w.version > version);
+    for (const w of ready) w.resolve(analysis);
+    this.onAnalysed({ uri: entry.uri, version, analysis });
+    if (density === "typing" && this.settings().stepsWhileTyping > 0) {
+      entry.idle = setTimeout(() => {
+        entry.idle = undefined;
+        if (entry.version === version && this.docs.get(entry.uri) === entry) this.update(entry.uri, version, entry.text, "full", true);
+      }, IDLE_FULL_RUN_MS);
+    }
+  }
+
+  /** After a run timed out or failed: the syntax and model findings at least, from a model-only
+   * run under its own hard limit, plus a finding that says what happened. */
+  private async fallbackAnalysis(text: string, timedOutAfterMs: number | undefined, failure: string | undefined): Promise<Analysis> {
+    const limit = this.settings().analysisBudgetMs + HARD_LIMIT_MARGIN_MS;
+    const outcome = await this.runner.run(text, { modelOnly: true }, limit).outcome;
+    const base: Analysis =
+      outcome.kind === "done"
+        ? outcome.analysis
+        : { text, tree: emptyTree(), findings: [], readouts: {}, timings: { parse: 0, model: 0, solve: 0, checks: 0 } };
+    const message =
+      timedOutAfterMs !== undefined
+        ? `The analysis was stopped after ${Math.round(timedOutAfterMs)} ms; only the text and model were checked. Raise counterpoise.analysisBudgetMs or lower the sweep steps.`
+        : `The analysis failed (${failure ?? "unknown fault"}); only the text and model were checked. This is a bug in Counterpoise.`;
+    const code = timedOutAfterMs !== undefined ? "analysis.budget" : "analysis.internal";
+    return { ...base, findings: [...base.findings, finding(code, { start: 0, end: 0 }, message)] };
+  }
+}
+
+function emptyTree(): SyntaxTree {
+  return { arms: [], comments: [], errors: [] };
+}

@@ -1,0 +1,157 @@
+// The language server: wires documents, the analysis scheduler, diagnostics and every feature in
+// FEATURES to a connection. Protocol handling only; all the work is in the core.
+import {
+  TextDocuments,
+  TextDocumentSyncKind,
+  DidChangeConfigurationNotification,
+  type ClientCapabilities,
+  type Connection,
+  type InitializeResult,
+  type ServerCapabilities,
+} from "vscode-languageserver";
+import { TextDocument } from "vscode-languageserver-textdocument";
+import type { Analysis } from "../analysis";
+import { findingsToDiagnostics } from "./convert";
+import type { FeatureContext } from "./context";
+import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type ReanalyseParams } from "./custom-protocol";
+import { FEATURES } from "./features";
+import { createRunner } from "./runner";
+import { attempt, guarded, setFaultLogger } from "./safe";
+import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
+import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
+import { specSummary } from "./summary";
+import { SyntaxViews, specSweepSteps } from "./syntax-view";
+import { parse } from "../syntax/parser";
+
+export const SERVER_NAME = "counterpoise";
+export const SERVER_VERSION = "0.1.0";
+
+export function startServer(connection: Connection): void {
+  const documents = new TextDocuments(TextDocument);
+  const views = new SyntaxViews();
+  let settings: Settings = { ...DEFAULT_SETTINGS };
+  let client: ClientCapabilities = {};
+  const log = (message: string) => attempt("logging", () => connection.console.error(message));
+  setFaultLogger(log);
+
+  const scheduler = new AnalysisScheduler(
+    createRunner(log),
+    () => settings,
+    (result) => attempt("publishing diagnostics", () => publish(result)),
+    (text) => {
+      try {
+        return specSweepSteps(parse(text));
+      } catch {
+        return undefined;
+      }
+    },
+  );
+
+  const builtinMaterials = (analysis: Analysis | undefined): string[] =>
+    Object.values(analysis?.model?.materials ?? {})
+      .filter((m) => m.builtin)
+      .map((m) => m.id);
+
+  const ctx: FeatureContext = {
+    connection,
+    documents,
+    scheduler,
+    settings: () => settings,
+    client: () => client,
+    syntax: (uri) => {
+      const doc = documents.get(uri);
+      return doc ? views.view(doc, builtinMaterials(scheduler.latest(uri))) : undefined;
+    },
+    figures: (uri) => scheduler.latest(uri),
+    log,
+  };
+
+  function publish({ uri, version, analysis }: PublishedAnalysis): void {
+    const doc = documents.get(uri);
+    if (!doc || doc.version !== version) return; // the text moved on: a newer run will publish
+    const diagnostics = findingsToDiagnostics(analysis.findings, analysis.text, uri);
+    void connection.sendDiagnostics({ uri, version, diagnostics });
+    void connection.sendNotification(SPEC_SUMMARY_NOTIFICATION, specSummary(uri, version, analysis, settings));
+    if (client.workspace?.inlayHint?.refreshSupport) void connection.languages.inlayHint.refresh().catch(() => undefined);
+  }
+
+  async function pullSettings(): Promise<void> {
+    if (!client.workspace?.configuration) return;
+    try {
+      const raw: unknown = await connection.workspace.getConfiguration({ section: "counterpoise" });
+      settings = readSettings(raw);
+    } catch (err) {
+      log(`Counterpoise: could not read settings: ${String(err)}`);
+    }
+  }
+
+  connection.onInitialize(
+    (params): InitializeResult => {
+      client = params.capabilities ?? {};
+      const init = params.initializationOptions as Record<string, unknown> | undefined;
+      if (init) settings = readSettings(init["settings"] ?? init);
+      let capabilities: ServerCapabilities = {
+        textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental, save: { includeText: false } },
+      };
+      for (const feature of FEATURES) {
+        try {
+          capabilities = { ...capabilities, ...feature.capabilities(client) };
+        } catch (err) {
+          log(`Counterpoise: feature ${feature.name} could not state its capabilities: ${String(err)}`);
+        }
+      }
+      return { capabilities, serverInfo: { name: SERVER_NAME, version: SERVER_VERSION } };
+    },
+  );
+
+  connection.onInitialized(
+    guarded("initialized", undefined, async () => {
+      if (client.workspace?.didChangeConfiguration?.dynamicRegistration) {
+        await connection.client.register(DidChangeConfigurationNotification.type, { section: "counterpoise" });
+      }
+      await pullSettings();
+    }),
+  );
+
+  connection.onDidChangeConfiguration(
+    guarded("configuration change", undefined, async (change) => {
+      const pushed = (change.settings as Record<string, unknown> | null | undefined)?.["counterpoise"];
+      if (pushed) settings = readSettings(pushed);
+      else await pullSettings();
+      scheduler.refreshAll();
+    }),
+  );
+
+  const justOpened = new Set<string>();
+  documents.onDidOpen((e) => justOpened.add(e.document.uri));
+  documents.onDidChangeContent((e) =>
+    attempt("document change", () => {
+      const doc = e.document;
+      const opened = justOpened.delete(doc.uri);
+      scheduler.update(doc.uri, doc.version, doc.getText(), opened ? "full" : "typing", opened);
+    }),
+  );
+  documents.onDidSave((e) => attempt("document save", () => scheduler.refresh(e.document.uri)));
+  documents.onDidClose((e) =>
+    attempt("document close", () => {
+      justOpened.delete(e.document.uri);
+      scheduler.close(e.document.uri);
+      views.forget(e.document.uri);
+      void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
+    }),
+  );
+
+  connection.onRequest(
+    REANALYSE_REQUEST,
+    guarded("reanalyse", null, (params: ReanalyseParams) => {
+      if (params?.uri) scheduler.refresh(params.uri);
+      return null;
+    }),
+  );
+
+  for (const feature of FEATURES) attempt(`registering ${feature.name}`, () => feature.register(ctx));
+
+  connection.onShutdown(guarded("shutdown", undefined, () => scheduler.dispose()));
+  documents.listen(connection);
+  connection.listen();
+}
