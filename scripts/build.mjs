@@ -25,3 +25,17 @@ for (const entry of entries) {
     logLevel: "warning",
   });
 }
+
+// The arm preview's webview script, for the browser (client/media/preview-page.ts → dist/preview-page.js).
+if (existsSync("client/media/preview-page.ts")) {
+  await build({
+    entryPoints: ["client/media/preview-page.ts"],
+    outfile: "dist/preview-page.js",
+    bundle: true,
+    platform: "browser",
+    target: "es2020",
+    format: "iife",
+    sourcemap: true,
+    logLevel: "warning",
+  });
+}

@@ -6,6 +6,7 @@ import * as vscode from "vscode";
 import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from "vscode-languageclient/node";
 import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type SpecSummary } from "../../server/src/lsp/custom-protocol";
 import { createStatusBar } from "./status-bar";
+import { registerArmPreview } from "./preview";
 
 let client: LanguageClient | undefined;
 
@@ -56,6 +57,7 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   );
 
   await start();
+  if (client) registerArmPreview(context, client);
   status.follow(vscode.window.activeTextEditor?.document);
 }
 

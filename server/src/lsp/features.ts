@@ -9,6 +9,8 @@ import { foldingFeature } from "./folding";
 import { semanticTokensFeature } from "./semantic-tokens";
 import { formattingFeature } from "./formatting";
 import { inlayHintsFeature } from "./inlay-hints";
+import { codeActionsFeature } from "./code-actions";
+import { previewFeature } from "./preview-request";
 
 export const FEATURES: ServerFeature[] = [
   documentSymbolsFeature,
@@ -21,4 +23,6 @@ export const FEATURES: ServerFeature[] = [
   inlayHintsFeature,
   // ---- Features added by later work go here, one line each (e.g. code actions from
   // ---- ./code-actions, the preview's requests from ./preview-*).
+  codeActionsFeature,
+  previewFeature,
 ];

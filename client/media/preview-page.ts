@@ -1,0 +1,122 @@
+// The arm preview's webview script (bundled for the browser into dist/preview-page.js): draws the
+// view model the extension posts, poses the drawing from the sliders, and asks the extension to
+// reveal a part's declaration when it is clicked. Rendering is the shared pure view layer.
+import type { ViewModel } from "../../server/src/view/view-model";
+import { renderArmSvg } from "../../server/src/view/draw-arm";
+import { renderPlotSvg } from "../../server/src/view/draw-plot";
+import { handForcePlot, torquePlot } from "../../server/src/view/plots";
+import { nearestPose } from "../../server/src/view/pose-lines";
+import { findingsHtml, safetyTableHtml } from "../../server/src/view/tables";
+
+/** What the extension posts to the page, and what the page posts back. */
+export type ToPage = { type: "view"; model: ViewModel | null; uri: string };
+export type FromPage = { type: "ready" } | { type: "reveal"; uri: string; partId: string; range?: ViewModel["parts"][number]["range"] };
+
+interface HostApi {
+  postMessage(message: FromPage): void;
+  getState(): unknown;
+  setState(state: unknown): void;
+}
+declare function acquireVsCodeApi(): HostApi;
+
+const host = acquireVsCodeApi();
+let vm: ViewModel | null = null;
+let uri = "";
+/** Slider value per dof id, deg: kept across updates so editing does not snap the pose back. */
+const sliderDeg = new Map<string, number>();
+let pose = 0;
+
+const $ = (id: string) => document.getElementById(id)!;
+
+function currentPose(model: ViewModel): number {
+  const target = model.dofs.map((d) => sliderDeg.get(d.id) ?? d.referenceDeg);
+  return nearestPose(model.poses.map((p) => p.anglesDeg), target, model.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]));
+}
+
+function renderStatus(model: ViewModel): void {
+  const errors = model.findings.filter((f) => f.severity === "error").length;
+  const warnings = model.findings.filter((f) => f.severity === "warning").length;
+  const el = $("status");
+  el.textContent = "";
+  const span = document.createElement("span");
+  span.className = errors ? "bad" : warnings ? "warn" : "";
+  span.textContent = errors || warnings ? `${errors} error(s), ${warnings} warning(s)` : "No errors or warnings";
+  el.append(span, document.createTextNode(model.poses.length ? ` — ${model.poses.length} poses` : ""));
+}
+
+function renderSliders(model: ViewModel): void {
+  const box = $("sliders");
+  box.textContent = "";
+  model.dofs.forEach((d, i) => {
+    const label = document.createElement("label");
+    label.htmlFor = `dof-${i}`;
+    label.textContent = d.id;
+    const input = document.createElement("input");
+    input.type = "range";
+    input.id = `dof-${i}`;
+    input.dataset["dof"] = d.id;
+    input.min = "0";
+    input.max = String(Math.max(0, d.valuesDeg.length - 1));
+    input.step = "1";
+    const value = model.poses[pose]?.anglesDeg[i] ?? d.referenceDeg;
+    input.value = String(Math.max(0, d.valuesDeg.indexOf(value)));
+    const out = document.createElement("output");
+    out.id = `dof-${i}-value`;
+    out.textContent = `${value.toFixed(1)}°`;
+    input.addEventListener("input", () => {
+      const deg = d.valuesDeg[Number(input.value)] ?? d.referenceDeg;
+      sliderDeg.set(d.id, deg);
+      out.textContent = `${deg.toFixed(1)}°`;
+      pose = currentPose(model);
+      renderPose(model);
+    });
+    box.append(label, input, out);
+  });
+}
+
+function renderPose(model: ViewModel): void {
+  $("drawing").innerHTML = renderArmSvg(model, pose, { widthPx: 720 });
+  const plots: string[] = [];
+  model.dofs.forEach((_, d) => {
+    plots.push(renderPlotSvg(torquePlot(model, d, pose)));
+    if (model.payloads.length) plots.push(renderPlotSvg(handForcePlot(model, d, pose)));
+  });
+  $("plots").innerHTML = plots.join("");
+}
+
+function render(): void {
+  if (!vm) {
+    $("title").textContent = "No arm to show";
+    $("status").textContent = "Open a .poise file to see its arm.";
+    for (const id of ["drawing", "sliders", "plots", "safety", "findings"]) $(id).textContent = "";
+    return;
+  }
+  $("title").textContent = vm.title;
+  renderStatus(vm);
+  pose = vm.poses.length ? currentPose(vm) : 0;
+  renderSliders(vm);
+  renderPose(vm);
+  $("safety").innerHTML = safetyTableHtml(vm);
+  $("findings").innerHTML = findingsHtml(vm);
+  $("method").textContent = vm.poses.length ? vm.torqueMethod : vm.emptyReason ?? "";
+}
+
+window.addEventListener("message", (event: MessageEvent<ToPage>) => {
+  const msg = event.data;
+  if (msg?.type !== "view") return;
+  if (msg.uri !== uri) sliderDeg.clear();
+  uri = msg.uri;
+  vm = msg.model;
+  host.setState({ uri });
+  render();
+});
+
+document.addEventListener("click", (event) => {
+  const el = (event.target as Element | null)?.closest("[data-part]");
+  const partId = el?.getAttribute("data-part");
+  if (!vm || !partId) return;
+  const part = vm.parts.find((p) => p.id === partId);
+  host.postMessage({ type: "reveal", uri, partId, ...(part ? { range: part.range } : {}) });
+});
+
+host.postMessage({ type: "ready" });
