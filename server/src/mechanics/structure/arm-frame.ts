@@ -6,7 +6,8 @@ import type { ArmModel, Body, Spring, Vec2 } from "../../model/types";
 import type { Pose, PoseStatics } from "../types";
 import { sectionProperties } from "../../model/section";
 import { PlaneFrame } from "./frame";
-import { worldPointOf } from "./body-loads";
+import { worldPoint } from "../body-loads";
+import { gasStrutStrokePosition, cordShearModulus } from "../forces";
 
 /** Elements per link at least, so its mass spreads along it and its bending shape shows in the
  * lowest mode (4 lumped elements put a cantilever's first frequency within about 1 %). */
@@ -34,14 +35,17 @@ export function springTangentRate(model: ArmModel, spring: Spring, length: numbe
     case "zero_length":
       return spring.rate;
     case "elastic": {
-      const G = model.materials[spring.material]?.shearModulus ?? 0;
+      const G = cordShearModulus(model, spring);
       const s = length / spring.freeLength;
       // d/dL of G A0 (s - s^-2) (Treloar neo-Hookean) is G A0 (1 + 2 s^-3) / L0
       return s > 1 ? (G * spring.area * (1 + 2 / s ** 3)) / spring.freeLength : 0;
     }
-    case "gas":
-      // force rises linearly from `force` to progression x force over the stroke
-      return ((spring.progression - 1) * spring.force) / spring.stroke;
+    case "gas": {
+      // force rises linearly from `force` to progression x force over the stroke, and stays
+      // at the end value when the strut is topped or bottomed out
+      const x = gasStrutStrokePosition(spring, length);
+      return x > 0 && x < spring.stroke ? ((spring.progression - 1) * spring.force) / spring.stroke : 0;
+    }
     case "torsion":
       return 0;
   }
@@ -73,7 +77,7 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
     const k = key(body.id, p);
     let n = nodes.get(k);
     if (n === undefined) {
-      const w = worldPointOf(pose.bodies[body.id]!, p);
+      const w = worldPoint(pose, body.id, p, model);
       n = frame.addNode(w.x, w.y);
       nodes.set(k, n);
       if (body.kind === "base") frame.fix(n);
@@ -108,8 +112,9 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
   };
   const endNode: Record<string, number> = {};
 
+  const placed = (id: string) => id === model.base?.bodyId || pose.bodies[id] !== undefined;
   for (const body of model.bodies) {
-    if (!pose.bodies[body.id]) continue;
+    if (!placed(body.id)) continue;
     const pts = interestPoints(model, body);
     if (body.kind === "base") {
       for (const p of pts) nodeAt(body, p);
@@ -146,7 +151,7 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
   for (const j of model.joints) {
     const parent = bodyById.get(j.parent);
     const child = bodyById.get(j.child);
-    if (!parent || !child || !pose.bodies[parent.id] || !pose.bodies[child.id]) continue;
+    if (!parent || !child || !placed(parent.id) || !placed(child.id)) continue;
     const a = nodeAt(parent, j.parentPoint);
     const b = nodeAt(child, j.childPoint);
     frame.tieTranslations(a, b);
@@ -162,7 +167,7 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
     }
     const A = bodyById.get(sp.a.body);
     const B = bodyById.get(sp.b.body);
-    if (!A || !B || !pose.bodies[A.id] || !pose.bodies[B.id]) continue;
+    if (!A || !B || !placed(A.id) || !placed(B.id)) continue;
     const na = nodeAt(A, sp.a.point);
     const nb = nodeAt(B, sp.b.point);
     const dx = frame.x[nb]! - frame.x[na]!;
@@ -177,7 +182,7 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
   const payloadNode: Record<string, number> = {};
   for (const p of model.payloads) {
     const body = bodyById.get(p.body);
-    if (!body || !pose.bodies[body.id]) continue;
+    if (!body || !placed(body.id)) continue;
     const n = nodeAt(body, p.point);
     payloadNode[p.id] = n;
     const m = payloadMass[p.id] ?? p.mass;

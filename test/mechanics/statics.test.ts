@@ -1,0 +1,217 @@
+// Statics by Lagrange multipliers against virtual work (holding torque = dV/dtheta of the total
+// potential energy, by central differences) on seeded random linkages, and the free-body balance
+// of every body from the listed loads; force laws against their published forms.
+import { describe, expect, it } from "vitest";
+import type { ArmModel, Spring } from "../../server/src/model/types";
+import type { Pose } from "../../server/src/mechanics/types";
+import { solveSweep } from "../../server/src/mechanics/sweep";
+import { bodyLoads, resultant } from "../../server/src/mechanics/body-loads";
+import { elasticCordTension, gasStrutTension } from "../../server/src/mechanics/forces";
+import { ArmBuilder, deg, G0, seededRandom } from "./arm-builder";
+
+function world(pose: Pose, model: ArmModel, body: string, p: { x: number; y: number }) {
+  if (body === model.bodies[0]!.id) return p;
+  const b = pose.bodies[body]!;
+  return { x: b.x + Math.cos(b.phi) * p.x - Math.sin(b.phi) * p.y, y: b.y + Math.sin(b.phi) * p.x + Math.cos(b.phi) * p.y };
+}
+
+/** Potential energy of a spring, by integrating its published force law over its length. */
+function springEnergy(model: ArmModel, s: Spring, pose: Pose): number {
+  if (s.kind === "torsion") {
+    const j = model.joints.find((x) => x.id === s.joint)!;
+    const turn = pose.jointAngles[j.id]! - j.angle;
+    // T = preload + k (theta - theta_ref): V = preload turn + k turn^2 / 2
+    return s.preloadTorque * turn + (s.rate * turn * turn) / 2;
+  }
+  const A = world(pose, model, s.a.body, s.a.point);
+  const B = world(pose, model, s.b.body, s.b.point);
+  const L = Math.hypot(B.x - A.x, B.y - A.y);
+  switch (s.kind) {
+    case "extension": {
+      const x = Math.max(0, L - s.freeLength);
+      return s.initialTension * x + (s.rate * x * x) / 2;
+    }
+    case "zero_length":
+      return s.initialTension * L + (s.rate * L * L) / 2;
+    case "elastic": {
+      // Treloar 3rd ed.: F = G A0 (s - s^-2); V = G A0 L0 (s^2/2 + 1/s - 3/2)
+      const st = L / s.freeLength;
+      const G = model.materials[s.material]!.shearModulus;
+      return st > 1 ? G * s.area * s.freeLength * (st * st / 2 + 1 / st - 1.5) : 0;
+    }
+    case "gas": {
+      // Push F1 (1 + (p - 1) x / stroke) over stroke position x = Le - L: V = F1 (x + (p - 1) x^2 / (2 stroke))
+      const x = s.extendedLength - L;
+      return s.force * (x + ((s.progression - 1) * x * x) / (2 * s.stroke));
+    }
+  }
+}
+
+function potential(model: ArmModel, pose: Pose): number {
+  let v = 0;
+  for (const b of model.bodies) if (b.kind !== "base") v += b.mass * G0 * world(pose, model, b.id, b.centreOfMass).y;
+  for (const p of model.payloads) {
+    const at = world(pose, model, p.body, p.point);
+    v += p.mass * G0 * at.y - (p.force?.x ?? 0) * at.x - (p.force?.y ?? 0) * at.y;
+  }
+  for (const s of model.springs) v += springEnergy(model, s, pose);
+  return v;
+}
+
+/** A random arm: either an open chain of two or three links or a four-bar with a tail, with
+ * every kind of spring and a payload with a steady force. */
+function randomArm(seed: number): ArmModel {
+  const rnd = seededRandom(seed);
+  const u = (lo: number, hi: number) => lo + (hi - lo) * rnd();
+  const b = new ArmBuilder("ground", { anchor: { x: u(-0.05, 0.05), y: u(0.05, 0.12) } });
+  const fourBar = seed % 2 === 0;
+  if (!fourBar) {
+    const n = 2 + (seed % 3 === 0 ? 1 : 0);
+    let parent = "ground";
+    let at = { x: 0, y: 0 };
+    for (let i = 0; i < n; i++) {
+      const len = u(0.15, 0.35);
+      b.link(`l${i}`, len, u(0.05, 0.6), { com: { x: u(0.2, 0.8) * len, y: u(-0.02, 0.02) } });
+      b.joint(`j${i}`, parent, at, `l${i}`, { x: 0, y: 0 }, u(-0.8, 0.8), { range: [-2, 2] });
+      parent = `l${i}`;
+      at = { x: len, y: u(-0.01, 0.01) };
+    }
+    b.payload("tool", parent, { x: at.x + u(0, 0.05), y: u(-0.05, 0.05) }, u(0.1, 1), { force: { x: u(-2, 2), y: u(-3, 1) } });
+  } else {
+    const [a, c, d] = [u(0.04, 0.06), u(0.12, 0.16), u(0.15, 0.18)];
+    const cb = u(0.14, 0.17);
+    const th2 = u(0.5, 2.5);
+    // Assemble approximately; the solver closes the loop.
+    const A = { x: a * Math.cos(th2), y: a * Math.sin(th2) };
+    const e = Math.hypot(d - A.x, A.y);
+    const along = (cb * cb - c * c + e * e) / (2 * e);
+    const h = Math.sqrt(Math.max(0, cb * cb - along * along));
+    const ux = (d - A.x) / e;
+    const uy = -A.y / e;
+    const B = { x: A.x + along * ux - h * uy, y: A.y + along * uy + h * ux };
+    const th3 = Math.atan2(B.y - A.y, B.x - A.x);
+    const th4 = Math.atan2(B.y, B.x - d);
+    b.link("crank", a, u(0.02, 0.1)).link("coupler", cb, u(0.05, 0.3), { com: { x: cb * u(0.3, 0.7), y: u(-0.03, 0.03) } }).link("rocker", c, u(0.05, 0.2));
+    b.joint("crank", "ground", { x: 0, y: 0 }, "crank", { x: 0, y: 0 }, th2, { range: [0, 3] })
+      .joint("coupler_pin", "crank", { x: a, y: 0 }, "coupler", { x: 0, y: 0 }, th3 - th2 + 0.02, "passive")
+      .joint("rocker", "ground", { x: d, y: 0 }, "rocker", { x: 0, y: 0 }, th4 - 0.02, "passive")
+      .joint("rocker_pin", "coupler", { x: cb, y: 0 }, "rocker", { x: c, y: 0 }, th4 - th3, "passive");
+    b.link("tail", 0.2, u(0.05, 0.2)).joint("wrist", "coupler", { x: cb / 2, y: 0.01 }, "tail", { x: 0, y: 0 }, u(-1, 1), { range: [-2, 2] });
+    b.payload("tool", "tail", { x: 0.2, y: u(-0.03, 0.03) }, u(0.1, 0.8), { force: { x: u(-2, 2), y: u(-3, 1) } });
+  }
+  const bodies = b.model.bodies.filter((x) => x.kind !== "base").map((x) => x.id);
+  const pick = () => bodies[Math.floor(rnd() * bodies.length)]!;
+  const anchor = b.model.bodies[0]!.points["anchor"]!;
+  b.zeroLength("zl", ["ground", anchor], [pick(), { x: u(0.02, 0.1), y: 0 }], u(100, 900), u(0, 5));
+  b.extension("ext", ["ground", { x: u(-0.1, 0), y: u(0.15, 0.3) }], [pick(), { x: u(0.02, 0.12), y: 0 }], u(100, 800), 0.01, u(0, 8));
+  b.elastic("cord", ["ground", { x: u(0.05, 0.15), y: u(0.15, 0.3) }], [pick(), { x: u(0.02, 0.12), y: 0 }], 0.03, u(5e-6, 3e-5));
+  b.gas("strut", ["ground", { x: u(-0.1, 0.1), y: u(-0.3, -0.2) }], [pick(), { x: u(0.05, 0.12), y: 0 }], u(20, 60), u(1.1, 1.5), 0.6, 0.9);
+  const jointWithDof = b.model.joints.find((j) => j.mode === "range")!;
+  b.torsion("coil", jointWithDof.id, u(0.05, 0.5), u(-0.3, 0.3));
+  const model = b.build();
+  // Place the cord's free length and the strut's stroke about their reference lengths so that
+  // the cord is taut and the strut within its stroke (where the energies above hold).
+  const first = solveSweep({ ...model, sweep: { steps: 2, grid: false } }).reference!;
+  for (const s of model.springs) {
+    if (s.kind === "elastic") s.freeLength = 0.6 * first.springs[s.id]!.length;
+    if (s.kind === "gas") {
+      s.extendedLength = first.springs[s.id]!.length + 0.04;
+      s.stroke = 0.08;
+    }
+  }
+  return model;
+}
+
+describe("holding torque equals dV/dtheta (virtual work)", () => {
+  for (const seed of [1, 2, 3, 4, 5, 6, 7, 8]) {
+    it(`random linkage ${seed}`, () => {
+      const model = randomArm(seed);
+      const h = 1e-4;
+      // Sweep each dof alone over ref +- h in 3 steps: the middle pose is the reference.
+      for (const j of model.joints) if (j.mode === "range") j.range = [j.angle - h, j.angle + h];
+      model.sweep = { steps: 3, grid: false };
+      const sweep = solveSweep(model);
+      expect(sweep.findings).toEqual([]);
+      // The cord and the strut must act (taut / within stroke) for the test to mean anything.
+      const ref = sweep.reference!;
+      expect(ref.cases[0]!.springForce["cord"]).toBeGreaterThan(0);
+      expect(ref.cases[0]!.springForce["strut"]).toBeLessThan(0);
+      sweep.dofs.forEach((dof, d) => {
+        const lo = sweep.poses[3 * d]!;
+        const mid = sweep.poses[3 * d + 1]!;
+        const hi = sweep.poses[3 * d + 2]!;
+        const dVdTheta = (potential(model, hi) - potential(model, lo)) / (2 * h);
+        // Principle of virtual work (e.g. Haug 1989, ch. 6; mechanics.md section 3): tau = dV/dtheta
+        expect(mid.cases[0]!.holdingTorque[dof.id]).toBeCloseTo(dVdTheta, 5);
+      });
+    });
+  }
+});
+
+describe("free-body balance of every body", () => {
+  for (const seed of [11, 12, 13, 14, 15, 16]) {
+    it(`random linkage ${seed}: forces and moments of each body sum to zero`, () => {
+      const model = randomArm(seed);
+      model.sweep = { steps: 5, grid: true };
+      const sweep = solveSweep(model);
+      expect(sweep.poses.length).toBeGreaterThan(0);
+      let checked = 0;
+      for (const pose of sweep.poses) {
+        for (const body of model.bodies) {
+          if (body.kind === "base") continue;
+          const loads = bodyLoads(model, sweep, pose, 0, body.id);
+          const r = resultant(loads, { x: 0.37, y: -0.21 });
+          const scale = Math.max(1, ...loads.map((l) => Math.hypot(l.force.x, l.force.y)));
+          // Newton's first law for a body at rest: sum of forces = 0 and sum of moments = 0 (any statics text)
+          expect(Math.hypot(r.force.x, r.force.y) / scale).toBeLessThan(1e-9);
+          expect(Math.abs(r.moment) / scale).toBeLessThan(1e-9);
+          checked++;
+        }
+      }
+      expect(checked).toBeGreaterThan(10);
+    });
+  }
+
+  it("gives the pin of a single link the weight it carries", () => {
+    const m = 0.7;
+    const model = new ArmBuilder().link("arm", 0.3, m).joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, deg(20), { range: [0, 1] }).sweep(3).build();
+    const sweep = solveSweep(model);
+    for (const pose of sweep.poses) {
+      // Equilibrium of the link: the pivot pushes up with its weight m g
+      expect(pose.cases[0]!.reactions["shoulder"]!.y).toBeCloseTo(m * G0, 10);
+      expect(pose.cases[0]!.reactions["shoulder"]!.x).toBeCloseTo(0, 10);
+    }
+  });
+});
+
+describe("force laws", () => {
+  it("neo-Hookean cord matches Treloar's worked numbers for a 6 x 3 mm bore tube", () => {
+    const A0 = (Math.PI / 4) * (0.006 ** 2 - 0.003 ** 2);
+    const G = 0.4e6;
+    const L0 = 0.1;
+    // references.md: tube 6 x 3 mm bore, A0 = 21.21 mm^2
+    expect(A0 * 1e6).toBeCloseTo(21.21, 2);
+    const worked: [number, number][] = [
+      [1.5, 8.954],
+      [2, 14.84],
+      [3, 24.5],
+    ];
+    for (const [lambda, force] of worked) {
+      const F = elasticCordTension({ freeLength: L0, area: A0 }, G, lambda * L0);
+      // Treloar, The Physics of Rubber Elasticity, 3rd ed. (1975): F = G A0 (lambda - lambda^-2)
+      expect(F).toBeCloseTo(G * A0 * (lambda - lambda ** -2), 9);
+      // references.md worked values 8.954, 14.84, 24.50 N (three or four figures)
+      expect(Math.abs(F - force) / force).toBeLessThan(6e-4);
+    }
+    // Slack below its free length
+    expect(elasticCordTension({ freeLength: L0, area: A0 }, G, 0.9 * L0)).toBe(0);
+  });
+
+  it("gas strut pushes with force linear in stroke from F1 to progression x F1", () => {
+    const s = { force: 100, progression: 1.3, stroke: 0.06, extendedLength: 0.18 };
+    // Common practice, no source: a gas spring's force rises linearly over its stroke to its progression
+    expect(gasStrutTension(s, 0.18)).toBeCloseTo(-100, 12);
+    expect(gasStrutTension(s, 0.12)).toBeCloseTo(-130, 12);
+    expect(gasStrutTension(s, 0.15)).toBeCloseTo(-115, 12);
+  });
+});
