@@ -166,7 +166,7 @@ function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>
     out += `<line x1="${c2(w[0])}" y1="${c2(Y(w[1]))}" x2="${c2(w[0])}" y2="${c2(Y(w[1]) + r * 2.2)}" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<path d="M${c2(w[0] - r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}L${c2(w[0])} ${c2(Y(w[1]) + r * 2.4)}L${c2(w[0] + r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}" fill="none" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.payload}" fill-opacity="0.85" stroke="${statusColour(st) ?? PALETTE.ink}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1) * f.u)}"/>`;
-    out += `<text x="${c2(w[0] + r + 3 * f.u)}" y="${c2(Y(w[1]) + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.ink}">${esc(p.id)} ${esc(grams)}</text>`;
+    out += `<text x="${c2(w[0] + r + 3 * f.u)}" y="${c2(Y(w[1]) + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.ink}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(p.id)} ${esc(grams)}</text>`;
     out += "</g>";
   }
   return out;
@@ -196,7 +196,7 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
     const y = Y(at[1]) - 10 * f.u;
     out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
     out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
-    out += `<text x="${c2(x + 9 * f.u)}" y="${c2(y + 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${colour}">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
+    out += `<text x="${c2(x + 9 * f.u)}" y="${c2(y + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
   }
   return out + "</g>";
 }

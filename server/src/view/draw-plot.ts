@@ -1,7 +1,7 @@
 // A small line plot as an SVG string: axes with round ticks, series, an optional shaded band and a
 // marker at the current pose. Presentation attributes only (strict content-security policy).
 import { PALETTE } from "./palette";
-import { c2, esc, fig } from "./text";
+import { c2, esc } from "./text";
 
 export interface PlotSeries {
   name: string;
@@ -34,6 +34,11 @@ function tickStep(span: number, count: number): number {
   return (m < 1.5 ? 1 : m < 3.5 ? 2 : m < 7.5 ? 5 : 10) * p;
 }
 
+/** A tick label with just the decimals its step needs (0.5 → "0.5", 20 → "20"). */
+function tickLabel(t: number, step: number): string {
+  return t.toFixed(Math.max(0, Math.min(6, -Math.floor(Math.log10(step) + 1e-9))));
+}
+
 export function renderPlotSvg(spec: PlotSpec): string {
   const W = spec.widthPx ?? 420;
   const H = spec.heightPx ?? 230;
@@ -63,13 +68,13 @@ export function renderPlotSvg(spec: PlotSpec): string {
   const xs = tickStep(x1 - x0, 6);
   for (let t = Math.ceil(x0 / xs) * xs; t <= x1 + 1e-9; t += xs) {
     out += `<line x1="${c2(sx(t))}" y1="${PAD.top}" x2="${c2(sx(t))}" y2="${H - PAD.bottom}" stroke="${PALETTE.grid}"/>`;
-    out += `<text x="${c2(sx(t))}" y="${H - PAD.bottom + 14}" text-anchor="middle" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${fig(t)}</text>`;
+    out += `<text x="${c2(sx(t))}" y="${H - PAD.bottom + 14}" text-anchor="middle" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${tickLabel(t, xs)}</text>`;
   }
   const ys = tickStep(y1 - y0, 5);
   for (let t = Math.ceil(y0 / ys) * ys; t <= y1 + 1e-12; t += ys) {
     const v = Math.abs(t) < ys * 1e-6 ? 0 : t;
     out += `<line x1="${PAD.left}" y1="${c2(sy(v))}" x2="${W - PAD.right}" y2="${c2(sy(v))}" stroke="${v === 0 ? PALETTE.muted : PALETTE.grid}"/>`;
-    out += `<text x="${PAD.left - 5}" y="${c2(sy(v) + 3)}" text-anchor="end" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${fig(v)}</text>`;
+    out += `<text x="${PAD.left - 5}" y="${c2(sy(v) + 3)}" text-anchor="end" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${tickLabel(v, ys)}</text>`;
   }
   out += `<text x="${c2((PAD.left + W - PAD.right) / 2)}" y="${H - 6}" text-anchor="middle" font-size="11" font-family="sans-serif" fill="${PALETTE.ink}">${esc(spec.xLabel)}</text>`;
   out += `<text x="12" y="${c2((PAD.top + H - PAD.bottom) / 2)}" text-anchor="middle" font-size="11" font-family="sans-serif" fill="${PALETTE.ink}" transform="rotate(-90 12 ${c2((PAD.top + H - PAD.bottom) / 2)})">${esc(spec.yLabel)}</text>`;

@@ -1,0 +1,106 @@
+// The preview webview page in headless Chromium, outside the editor: the real HTML shell with its
+// content-security policy, the real bundled page script, a stand-in for the editor's webview API,
+// and a hand-built analysis (test/view/pendulum-fixture.ts). Screenshots go to test-artifacts/.
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { build } from "esbuild";
+import { readFileSync } from "node:fs";
+import type { Page } from "playwright-core";
+import { previewHtml } from "../../client/src/preview-html";
+import { buildViewModel } from "../../server/src/view/build-view-model";
+import type { ViewModel } from "../../server/src/view/view-model";
+import { ARTIFACTS, openBrowser, type Browser } from "./browser";
+import { pendulumAnalysis } from "./pendulum-fixture";
+
+const ORIGIN = "http://preview.test";
+const NONCE = "testnonce0123456789abcdefghijklmn";
+
+async function pageScript(): Promise<string> {
+  const out = await build({ entryPoints: ["client/media/preview-page.ts"], bundle: true, write: false, platform: "browser", format: "iife", target: "es2020", logLevel: "silent" });
+  return out.outputFiles[0]!.text;
+}
+
+let browser: Browser;
+let page: Page;
+const vm: ViewModel = buildViewModel(pendulumAnalysis());
+
+beforeAll(async () => {
+  const html = previewHtml({ cspSource: ORIGIN, nonce: NONCE, scriptUri: `${ORIGIN}/dist/preview-page.js`, styleUri: `${ORIGIN}/media/preview.css` });
+  browser = await openBrowser({
+    [`${ORIGIN}/index.html`]: { body: html, contentType: "text/html" },
+    [`${ORIGIN}/dist/preview-page.js`]: { body: await pageScript(), contentType: "text/javascript" },
+    [`${ORIGIN}/media/preview.css`]: { body: readFileSync("client/media/preview.css"), contentType: "text/css" },
+  });
+  page = await browser.context.newPage();
+  await page.addInitScript(() => {
+    const w = window as unknown as { __sent: unknown[]; __violations: string[]; acquireVsCodeApi: () => unknown };
+    w.__sent = [];
+    w.__violations = [];
+    document.addEventListener("securitypolicyviolation", (e) => w.__violations.push(`${e.violatedDirective} ${e.blockedURI}`));
+    w.acquireVsCodeApi = () => ({ postMessage: (m: unknown) => w.__sent.push(m), getState: () => undefined, setState: () => undefined });
+  });
+  await page.goto(`${ORIGIN}/index.html`);
+  await page.waitForFunction(() => (window as unknown as { __sent: { type: string }[] }).__sent.some((m) => m.type === "ready"));
+  await page.evaluate((model) => window.postMessage({ type: "view", model, uri: "file:///work/pendulum.poise" }, "*"), vm);
+  await page.waitForSelector("svg.arm-drawing");
+}, 60000);
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+const boomPoints = () => page.getAttribute('[data-body="boom"] polyline.centre', "points");
+
+describe("preview page", () => {
+  it("draws the arm with the failing pivot marked and names the trouble", async () => {
+    expect(await page.textContent("#title")).toBe("Test pendulum");
+    expect(await page.locator('[data-joint="shoulder"][data-status="error"]').count()).toBe(1);
+    expect(await page.locator('.flag[data-part="shoulder"]').count()).toBe(1);
+    expect(await page.locator('[data-spring="lift"][data-kind="zero_length"]').count()).toBe(1);
+    expect(await page.locator('g.payload[data-payload="lamp"]').count()).toBe(1);
+    await page.screenshot({ path: `${ARTIFACTS}/preview-pendulum.png`, fullPage: true });
+  });
+
+  it("poses the drawing from the slider: the boom's coordinates change", async () => {
+    const before = await boomPoints();
+    const slider = page.locator('input[data-dof="shoulder"]');
+    await slider.fill(String(vm.dofs[0]!.valuesDeg.length - 1));
+    const after = await boomPoints();
+    expect(after).not.toBe(before);
+    expect(await page.textContent("#dof-0-value")).toBe("60.0°");
+    // The boom's far end at 60 deg: (l cos 60, -(y0 + l sin 60)) in SVG coordinates (y down).
+    const [, end] = after!.split(" ");
+    const [x, y] = end!.split(",").map(Number);
+    expect(x).toBeCloseTo(400 * Math.cos(Math.PI / 3), 1);
+    expect(y).toBeCloseTo(-(300 + 400 * Math.sin(Math.PI / 3)), 1);
+    // The plots' marker follows the pose.
+    const marker = await page.getAttribute('svg[data-plot="torque-shoulder"] line.marker', "x1");
+    await slider.fill("0");
+    expect(await page.getAttribute('svg[data-plot="torque-shoulder"] line.marker', "x1")).not.toBe(marker);
+    await page.screenshot({ path: `${ARTIFACTS}/preview-pendulum-low.png`, fullPage: true });
+  });
+
+  it("plots gravity, spring and net torque and the hand force with its band", async () => {
+    for (const s of ["gravity", "springs", "net"]) expect(await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count()).toBeGreaterThan(0);
+    expect(await page.locator('svg[data-plot="hand-shoulder"] polyline[data-series="lamp"]').count()).toBe(1);
+    expect(await page.locator('svg[data-plot="hand-shoulder"] rect.band').count()).toBe(1);
+    const points = (await page.getAttribute('svg[data-plot="torque-shoulder"] polyline[data-series="net"]', "points"))!.split(" ");
+    expect(points.length).toBe(vm.poses.length);
+  });
+
+  it("lists every safety factor, the failing one marked", async () => {
+    expect(await page.locator("table.safety tbody tr").count()).toBe(2);
+    expect(await page.locator('table.safety tr.fail[data-part="shoulder"]').count()).toBe(1);
+  });
+
+  it("asks the editor to reveal a part's declaration when it is clicked", async () => {
+    await page.click('g.payload[data-payload="lamp"] circle');
+    const sent = await page.evaluate(() => (window as unknown as { __sent: { type: string; partId?: string; range?: unknown }[] }).__sent.filter((m) => m.type === "reveal"));
+    expect(sent.at(-1)?.partId).toBe("lamp");
+    expect(sent.at(-1)?.range).toEqual(vm.parts.find((p) => p.id === "lamp")!.range);
+  });
+
+  it("runs under its content-security policy and fetches nothing else", async () => {
+    expect(await page.evaluate(() => (window as unknown as { __violations: string[] }).__violations)).toEqual([]);
+    expect(browser.blocked).toEqual([]);
+  });
+});
