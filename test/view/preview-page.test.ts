@@ -31,16 +31,17 @@ beforeAll(async () => {
     [`${ORIGIN}/media/preview.css`]: { body: readFileSync("client/media/preview.css"), contentType: "text/css" },
   });
   page = await browser.context.newPage();
-  await page.addInitScript(() => {
-    const w = window as unknown as { __sent: unknown[]; __violations: string[]; acquireVsCodeApi: () => unknown };
-    w.__sent = [];
-    w.__violations = [];
-    document.addEventListener("securitypolicyviolation", (e) => w.__violations.push(`${e.violatedDirective} ${e.blockedURI}`));
-    w.acquireVsCodeApi = () => ({ postMessage: (m: unknown) => w.__sent.push(m), getState: () => undefined, setState: () => undefined });
+  // Runs in the page (as text: the test's own type-check has no DOM library).
+  await page.addInitScript({
+    content: `
+      window.__sent = [];
+      window.__violations = [];
+      document.addEventListener("securitypolicyviolation", (e) => window.__violations.push(e.violatedDirective + " " + e.blockedURI));
+      window.acquireVsCodeApi = () => ({ postMessage: (m) => window.__sent.push(m), getState: () => undefined, setState: () => undefined });`,
   });
   await page.goto(`${ORIGIN}/index.html`);
-  await page.waitForFunction(() => (window as unknown as { __sent: { type: string }[] }).__sent.some((m) => m.type === "ready"));
-  await page.evaluate((model) => window.postMessage({ type: "view", model, uri: "file:///work/pendulum.poise" }, "*"), vm);
+  await page.waitForFunction("window.__sent.some((m) => m.type === 'ready')");
+  await page.evaluate(`window.postMessage({ type: "view", model: ${JSON.stringify(vm)}, uri: "file:///work/pendulum.poise" }, "*")`);
   await page.waitForSelector("svg.arm-drawing");
 }, 60000);
 
@@ -94,13 +95,13 @@ describe("preview page", () => {
 
   it("asks the editor to reveal a part's declaration when it is clicked", async () => {
     await page.click('g.payload[data-payload="lamp"] circle');
-    const sent = await page.evaluate(() => (window as unknown as { __sent: { type: string; partId?: string; range?: unknown }[] }).__sent.filter((m) => m.type === "reveal"));
+    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as { partId?: string; range?: unknown }[];
     expect(sent.at(-1)?.partId).toBe("lamp");
     expect(sent.at(-1)?.range).toEqual(vm.parts.find((p) => p.id === "lamp")!.range);
   });
 
   it("runs under its content-security policy and fetches nothing else", async () => {
-    expect(await page.evaluate(() => (window as unknown as { __violations: string[] }).__violations)).toEqual([]);
+    expect(await page.evaluate("window.__violations")).toEqual([]);
     expect(browser.blocked).toEqual([]);
   });
 });
