@@ -175,6 +175,7 @@ function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>
 /** Small flags naming each failing part next to it, so the trouble reads without hovering. */
 function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
   let out = `<g class="trouble">`;
+  let k = 0;
   for (const part of vm.parts) {
     if (part.status === "ok") continue;
     let at: [number, number] | undefined;
@@ -193,7 +194,8 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
     if (!at) continue;
     const colour = part.status === "error" ? PALETTE.error : PALETTE.warning;
     const x = at[0] + 6 * f.u;
-    const y = Y(at[1]) - 10 * f.u;
+    // Stack the flags so that two failing parts close together do not print over each other.
+    const y = Y(at[1]) - 10 * f.u - 15 * f.u * k++;
     out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
     out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
     out += `<text x="${c2(x + 9 * f.u)}" y="${c2(y + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;

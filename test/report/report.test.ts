@@ -1,0 +1,87 @@
+// `poise report`: the page renders with scripts switched off and nothing fetched, shows the
+// drawing with the failing part marked, the plots, the tables, the limits and the cautions; the
+// command's exit status follows cli.md (0 no errors, 1 errors, 2 could not run).
+import { afterAll, beforeAll, describe, expect, it } from "vitest";
+import { mkdtempSync, readFileSync, existsSync } from "node:fs";
+import { tmpdir } from "node:os";
+import { join } from "node:path";
+import type { Page } from "playwright-core";
+import { buildViewModel } from "../../server/src/view/build-view-model";
+import { renderReportHtml } from "../../server/src/view/report-page";
+import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
+import { runReport } from "../../server/src/cli/report";
+import { analyse } from "../../server/src/analysis";
+import { ARTIFACTS, openBrowser, type Browser } from "../view/browser";
+import { pendulumAnalysis } from "../view/pendulum-fixture";
+
+const ORIGIN = "http://report.test";
+const html = renderReportHtml(buildViewModel(pendulumAnalysis()), { file: "pendulum.poise" });
+let browser: Browser;
+let page: Page;
+
+beforeAll(async () => {
+  browser = await openBrowser({ [`${ORIGIN}/report.html`]: { body: html, contentType: "text/html" } }, { javaScriptEnabled: false });
+  page = await browser.context.newPage();
+  await page.goto(`${ORIGIN}/report.html`);
+}, 60000);
+
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe("report page", () => {
+  it("is self-contained: no script, no external resource, nothing fetched", async () => {
+    expect(html).not.toMatch(/<script/i);
+    expect(html).not.toMatch(/\s(src|href)=/i);
+    expect(browser.blocked).toEqual([]);
+  });
+
+  it("draws the arm with the failing part marked and both plots", async () => {
+    expect(await page.locator("svg.arm-drawing").count()).toBeGreaterThanOrEqual(1);
+    expect(await page.locator('.drawing [data-joint="shoulder"][data-status="error"]').count()).toBe(1);
+    for (const s of ["gravity", "springs", "net"]) expect(await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count()).toBeGreaterThan(0);
+    expect(await page.locator('svg[data-plot="hand-shoulder"] rect.band').count()).toBe(1);
+    // The drawings at both ends of the range.
+    expect(await page.locator(".ends figure").count()).toBe(2);
+    await page.screenshot({ path: `${ARTIFACTS}/report-pendulum.png`, fullPage: true });
+  });
+
+  it("tabulates safety factors, diagnostics, the pose summary, limits and cautions", async () => {
+    expect(await page.locator("table.safety tr.fail").count()).toBe(1);
+    expect(await page.locator("ul.findings li.error").count()).toBe(2);
+    expect(await page.locator("table.summary tbody tr").count()).toBeGreaterThan(2);
+    expect(await page.locator("table.poses tbody tr").count()).toBeGreaterThan(5);
+    const text = (await page.textContent("body"))!;
+    for (const line of [...MODEL_LIMITS, ...SAFETY_CAUTIONS]) expect(text).toContain(line);
+    expect(text).toMatch(/keep hands.*clear of the arm's swing/i);
+    expect(text).toMatch(/reduced height/);
+    expect(text).toMatch(/local codes/);
+    expect(text).toMatch(/licensed/);
+  });
+});
+
+describe("poise report command", () => {
+  const dir = mkdtempSync(join(tmpdir(), "counterpoise-report-"));
+
+  it("exits 2 when it cannot run", async () => {
+    expect(await runReport([])).toBe(2);
+    expect(await runReport(["--frobnicate", "samples/camera-arm.poise"])).toBe(2);
+    expect(await runReport([join(dir, "no-such.poise")])).toBe(2);
+    expect(await runReport(["samples/camera-arm.poise", "-o"])).toBe(2);
+    expect(await runReport(["samples/camera-arm.poise", "-o", join(dir, "no-such-dir", "r.html")])).toBe(2);
+  });
+
+  it("writes the page for every sample, exit 1 exactly when the spec has errors", async () => {
+    for (const sample of ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"]) {
+      const out = join(dir, `${sample}.html`);
+      const file = `samples/${sample}.poise`;
+      const code = await runReport([file, "-o", out]);
+      const errors = analyse(readFileSync(file, "utf8")).findings.filter((f) => f.severity === "error").length;
+      expect(code).toBe(errors > 0 ? 1 : 0);
+      expect(existsSync(out)).toBe(true);
+      const page = readFileSync(out, "utf8");
+      expect(page).toContain("<!DOCTYPE html>");
+      expect(page).toContain("Limits of the model");
+    }
+  });
+});
