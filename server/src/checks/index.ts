@@ -4,6 +4,11 @@ import type { ArmModel } from "../model/types";
 import type { SweepResult } from "../mechanics/types";
 import type { Finding } from "./finding";
 import type { Readouts } from "./readout";
+import { checkStrength } from "./strength";
+import { checkSpringStrength } from "./spring-strength";
+import { checkGeometry } from "./geometry";
+import { checkTipping } from "./tipping";
+import { checkStiffness } from "./stiffness";
 
 export interface CheckOptions {
   /** performance.now() value past which checks should stop early. */
@@ -21,7 +26,13 @@ export interface CheckContext {
 export type CheckFamily = (ctx: CheckContext) => void;
 
 /** Filled in by the check families (balance, strength, geometry, stiffness, ...). */
-const FAMILIES: CheckFamily[] = [];
+const FAMILIES: CheckFamily[] = [
+  checkStrength,
+  checkSpringStrength,
+  checkGeometry,
+  checkTipping,
+  checkStiffness,
+];
 
 export function runChecks(model: ArmModel, sweep: SweepResult, options: CheckOptions): { findings: Finding[]; readouts: Readouts } {
   const ctx: CheckContext = { model, sweep, options, findings: [], readouts: {} };

@@ -1,0 +1,284 @@
+// Geometry over the swept range: springs whose line of action passes close to the pivot they
+// work about (`geometry.spring-toggle`), slack extension springs (`geometry.spring-slack`),
+// head orientation change of parallelograms (`geometry.tilt`), bodies too close to each other
+// or below the bench (`geometry.clearance`).
+import type { ArmModel, Body, Spring } from "../model/types";
+import type { Pose, SweepResult } from "../mechanics/types";
+import { worldPoint } from "../mechanics/body-loads";
+import { wrapNear } from "../mechanics/joint-graph";
+import { sectionProperties } from "../model/section";
+import type { CheckContext } from "./index";
+import { finding } from "./finding";
+import { addFigures } from "./readout";
+import { carrierHead, jointsBetween, parallelogramOfHead } from "./arm-paths";
+import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from "./part-words";
+
+/** A spring toggles where its lever arm about the pivot falls below this share of its shorter
+ * hook radius: the line of action is then within about 6 degrees of the dead-centre line
+ * (sin 5.7 deg = 0.1), and the spring must pull ten times harder than at a right angle for the
+ * same torque (common practice, no source). */
+export const TOGGLE_LEVER_SHARE = 0.1;
+/** Below this force (N) a spring is not working and its line of action does not matter. */
+const IDLE_SPRING_N = 1e-6;
+/** Extension springs within this of their free length count as slack (sweep rounding). */
+const SLACK_MARGIN_M = 1e-9;
+
+export function checkGeometry(ctx: CheckContext): void {
+  for (const s of ctx.model.springs) {
+    if (s.kind === "torsion") continue;
+    checkToggle(ctx, s);
+    if (s.kind === "extension") checkSlack(ctx, s);
+  }
+  checkTilt(ctx);
+  checkClearance(ctx);
+}
+
+/** Perpendicular distance from a point to the line through a and b. */
+export function leverArm(a: { x: number; y: number }, b: { x: number; y: number }, p: { x: number; y: number }): number {
+  const dx = b.x - a.x;
+  const dy = b.y - a.y;
+  const L = Math.hypot(dx, dy);
+  return L > 0 ? Math.abs(dx * (p.y - a.y) - dy * (p.x - a.x)) / L : Math.hypot(p.x - a.x, p.y - a.y);
+}
+
+/** The degree of freedom the spring mainly works about: of the dof joints on the chain between
+ * its two bodies, the one with the longest lever arm at the reference pose. */
+function workingJoint(model: ArmModel, sweep: SweepResult, s: Exclude<Spring, { kind: "torsion" }>) {
+  const ref = sweep.reference ?? sweep.poses[0];
+  if (!ref) return undefined;
+  const candidates = jointsBetween(model, s.a.body, s.b.body).filter((j) => j.mode === "range");
+  let best: { joint: (typeof candidates)[number]; arm: number } | undefined;
+  const st = ref.springs[s.id];
+  for (const j of candidates) {
+    const p = worldPoint(ref, j.parent, j.parentPoint, model);
+    const arm = st ? leverArm(st.a, st.b, p) : 0;
+    if (!best || arm > best.arm) best = { joint: j, arm };
+  }
+  return best?.joint;
+}
+
+function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>): void {
+  const { model, sweep } = ctx;
+  const j = workingJoint(model, sweep, s);
+  if (!j) return;
+  let worst: { share: number; arm: number; radius: number; pose: Pose } | undefined;
+  let smallest: { arm: number; pose: Pose } | undefined;
+  for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    const st = pose.springs[s.id];
+    if (!st) continue;
+    const working = pose.cases.some((c) => Math.abs(c.springForce[s.id] ?? 0) > IDLE_SPRING_N);
+    if (!working) continue;
+    const p = worldPoint(pose, j.parent, j.parentPoint, model);
+    const arm = leverArm(st.a, st.b, p);
+    const radius = Math.min(Math.hypot(st.a.x - p.x, st.a.y - p.y), Math.hypot(st.b.x - p.x, st.b.y - p.y));
+    const share = radius > 0 ? arm / radius : 1;
+    if (!worst || share < worst.share) worst = { share, arm, radius, pose };
+    if (!smallest || arm < smallest.arm) smallest = { arm, pose };
+  }
+  if (smallest) addFigures(ctx.readouts, s.id, "spring", [{ label: `least lever arm about ${j.id}`, value: smallest.arm, dimension: "length", where: describePose(sweep, smallest.pose) }]);
+  if (!worst || worst.share >= TOGGLE_LEVER_SHARE) return;
+  ctx.findings.push(
+    finding(
+      "geometry.spring-toggle",
+      spanOf(s.origin, "between"),
+      `spring ${s.id}: its line of action passes ${show(worst.arm, "length")} from the pivot of ${j.id} (lever arm ${Math.round(worst.share * 100)} % of its ${show(worst.radius, "length")} hook radius) ${describePose(sweep, worst.pose)}: there it has almost no leverage`,
+      { related: [{ span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` }], data: { spring: s.id, joint: j.id, leverArm: worst.arm } },
+    ),
+  );
+}
+
+function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" }>): void {
+  const { sweep } = ctx;
+  const slack: Pose[] = [];
+  let shortest = Infinity;
+  for (const pose of sweep.poses) {
+    const st = pose.springs[s.id];
+    if (!st || !Number.isFinite(st.length)) continue;
+    if (st.length <= s.freeLength + SLACK_MARGIN_M) {
+      slack.push(pose);
+      shortest = Math.min(shortest, st.length);
+    }
+  }
+  if (slack.length === 0) return;
+  const first = describePose(sweep, slack[0]!);
+  const last = describePose(sweep, slack[slack.length - 1]!);
+  const span = slack.length === 1 ? first : `from ${first.replace(/^at /, "")} to ${last.replace(/^at /, "")}`;
+  ctx.findings.push(
+    finding(
+      "geometry.spring-slack",
+      spanOf(s.origin, "free_length"),
+      `spring ${s.id}: slack over ${slack.length} of ${sweep.poses.length} poses (${span}): as short as ${show(shortest, "length")} against its free length ${show(s.freeLength, "length")}, so it pulls nothing there`,
+      { data: { spring: s.id, poses: slack.length } },
+    ),
+  );
+}
+
+interface TiltRange {
+  change: number;
+  low: { phi: number; pose: Pose };
+  high: { phi: number; pose: Pose };
+}
+
+/** Range of a body's world orientation over the sweep. */
+export function orientationRange(sweep: SweepResult, bodyId: string): TiltRange | undefined {
+  const ref = sweep.reference?.bodies[bodyId]?.phi ?? sweep.poses.find((p) => p.bodies[bodyId])?.bodies[bodyId]?.phi;
+  if (ref === undefined) return undefined;
+  let low: TiltRange["low"] | undefined;
+  let high: TiltRange["high"] | undefined;
+  for (const pose of sweep.poses) {
+    const bp = pose.bodies[bodyId];
+    if (!bp) continue;
+    const phi = wrapNear(bp.phi, ref);
+    if (!low || phi < low.phi) low = { phi, pose };
+    if (!high || phi > high.phi) high = { phi, pose };
+  }
+  return low && high ? { change: high.phi - low.phi, low, high } : undefined;
+}
+
+/** The tilt limit for a head: the tightest `require tilt` of the payloads it carries. */
+function tiltLimitForHead(model: ArmModel, headId: string): { limit: number; payload?: string } {
+  let limit = model.require.tilt.default;
+  let payload: string | undefined;
+  for (const p of model.payloads) {
+    if (carrierHead(model, p.body)?.id !== headId) continue;
+    const l = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
+    if (payload === undefined || l < limit) (limit = l), (payload = p.id);
+  }
+  return payload ? { limit, payload } : { limit };
+}
+
+function checkTilt(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  for (const par of model.parallelograms) {
+    const r = orientationRange(sweep, par.bodies.head);
+    if (!r) continue;
+    const { limit, payload } = tiltLimitForHead(model, par.bodies.head);
+    addFigures(ctx.readouts, par.id, "parallelogram", [{ label: "head orientation change", value: r.change, dimension: "angle" }]);
+    if (r.change <= limit) continue;
+    const unequal = Math.abs(par.upperLength - par.length) > 1e-9;
+    const why = unequal
+      ? `its bars differ (${show(par.length, "length")} and ${show(par.upperLength, "length")})`
+      : `its root, ${par.parent}, turns over the range`;
+    const deg = (v: number) => show(v, "angle");
+    ctx.findings.push(
+      finding(
+        "geometry.tilt",
+        unequal ? spanOf(par.origin, "upper_length") : spanOf(par.origin, "on"),
+        `parallelogram ${par.id}: the head turns ${deg(r.change)} over the range, more than the ${deg(limit)} allowed${payload ? ` at ${payload}` : ""}, because ${why} (${deg(r.low.phi)} ${describePose(sweep, r.low.pose)}; ${deg(r.high.phi)} ${describePose(sweep, r.high.pose)})`,
+        {
+          related: payload ? [{ span: model.payloads.find((p) => p.id === payload)!.origin.name ?? par.origin.declaration, message: `payload ${payload} rides on the head` }] : [],
+          data: { parallelogram: par.id, change: r.change, limit },
+        },
+      ),
+    );
+  }
+}
+
+interface Segment {
+  body: Body;
+  a: { x: number; y: number };
+  b: { x: number; y: number };
+  halfThickness: number;
+}
+
+/** Distance between two segments in the plane (0 where they cross). */
+export function segmentDistance(p1: Segment["a"], p2: Segment["a"], q1: Segment["a"], q2: Segment["a"]): number {
+  const cross = (o: Segment["a"], a: Segment["a"], b: Segment["a"]) => (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x);
+  const d1 = cross(q1, q2, p1);
+  const d2 = cross(q1, q2, p2);
+  const d3 = cross(p1, p2, q1);
+  const d4 = cross(p1, p2, q2);
+  if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return 0;
+  const toSeg = (p: Segment["a"], a: Segment["a"], b: Segment["a"]) => {
+    const dx = b.x - a.x;
+    const dy = b.y - a.y;
+    const L2 = dx * dx + dy * dy;
+    const t = L2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / L2)) : 0;
+    return Math.hypot(p.x - (a.x + t * dx), p.y - (a.y + t * dy));
+  };
+  return Math.min(toSeg(p1, q1, q2), toSeg(p2, q1, q2), toSeg(q1, p1, p2), toSeg(q2, p1, p2));
+}
+
+/** Pairs of bodies that meet by design: joined directly, or both pinned to a third body at the
+ * same point (a shared pivot). Their segments touch and say nothing about clearance. */
+function joinedPairs(model: ArmModel): Set<string> {
+  const pairs = new Set<string>();
+  const key = (a: string, b: string) => (a < b ? `${a}|${b}` : `${b}|${a}`);
+  const sites = new Map<string, string[]>();
+  const site = (body: string, p: { x: number; y: number }) => `${body}|${p.x.toFixed(5)}|${p.y.toFixed(5)}`;
+  for (const j of model.joints) {
+    pairs.add(key(j.parent, j.child));
+    for (const [on, other, p] of [
+      [j.parent, j.child, j.parentPoint],
+      [j.child, j.parent, j.childPoint],
+    ] as const) {
+      const list = sites.get(site(on, p)) ?? [];
+      list.push(other);
+      sites.set(site(on, p), list);
+    }
+  }
+  for (const list of sites.values()) for (let i = 0; i < list.length; i++) for (let k = i + 1; k < list.length; k++) pairs.add(key(list[i]!, list[k]!));
+  return pairs;
+}
+
+function bodySegment(model: ArmModel, pose: Pose, body: Body): Segment | undefined {
+  if (!pose.bodies[body.id]) return undefined;
+  const half = body.section ? sectionProperties(body.section).depth / 2 : 0;
+  if (body.length > 0) return { body, a: worldPoint(pose, body.id, { x: 0, y: 0 }, model), b: worldPoint(pose, body.id, { x: body.length, y: 0 }, model), halfThickness: half };
+  // a head: from its origin to its farthest named point
+  let far = { x: 0, y: 0 };
+  for (const p of Object.values(body.points)) if (Math.hypot(p.x, p.y) > Math.hypot(far.x, far.y)) far = p;
+  return { body, a: worldPoint(pose, body.id, { x: 0, y: 0 }, model), b: worldPoint(pose, body.id, far, model), halfThickness: half };
+}
+
+function checkClearance(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const need = model.require.clearance;
+  const surface = model.base?.surface ?? 0;
+  const joined = joinedPairs(model);
+  const moving = model.bodies.filter((b) => b.kind !== "base");
+  const pairWorst = new Map<string, { gap: number; pose: Pose; a: Body; b: Body }>();
+  const belowWorst = new Map<string, { depth: number; pose: Pose; what: string; span: { start: number; end: number } }>();
+  for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    const segs = moving.map((b) => bodySegment(model, pose, b)).filter((s): s is Segment => !!s);
+    for (let i = 0; i < segs.length; i++) {
+      const s = segs[i]!;
+      const lowest = Math.min(s.a.y, s.b.y) - s.halfThickness;
+      if (lowest < surface) {
+        const prev = belowWorst.get(s.body.id);
+        if (!prev || surface - lowest > prev.depth) belowWorst.set(s.body.id, { depth: surface - lowest, pose, what: bodyWord(s.body), span: s.body.origin.name ?? s.body.origin.declaration });
+      }
+      for (let k = i + 1; k < segs.length; k++) {
+        const t = segs[k]!;
+        const key = s.body.id < t.body.id ? `${s.body.id}|${t.body.id}` : `${t.body.id}|${s.body.id}`;
+        if (joined.has(key)) continue;
+        const gap = segmentDistance(s.a, s.b, t.a, t.b) - s.halfThickness - t.halfThickness;
+        const prev = pairWorst.get(key);
+        if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: s.body, b: t.body });
+      }
+    }
+    for (const p of model.payloads) {
+      if (!pose.bodies[p.body]) continue;
+      const at = worldPoint(pose, p.body, p.point, model);
+      if (at.y < surface) {
+        const prev = belowWorst.get(`payload ${p.id}`);
+        if (!prev || surface - at.y > prev.depth) belowWorst.set(`payload ${p.id}`, { depth: surface - at.y, pose, what: `payload ${p.id}`, span: spanOf(p.origin, "at") });
+      }
+    }
+  }
+  for (const w of pairWorst.values()) {
+    if (w.gap >= need) continue;
+    const msg =
+      w.gap <= 0
+        ? `${bodyWord(w.b)} runs into ${bodyWord(w.a)} (they overlap by ${show(-w.gap, "length")}) ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`
+        : `${bodyWord(w.b)} comes within ${show(w.gap, "length")} of ${bodyWord(w.a)} ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`;
+    ctx.findings.push(finding("geometry.clearance", w.b.origin.name ?? w.b.origin.declaration, msg, { related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)], data: { a: w.a.id, b: w.b.id, gap: w.gap } }));
+  }
+  for (const w of belowWorst.values()) {
+    ctx.findings.push(
+      finding("geometry.clearance", w.span, `${w.what} goes ${show(w.depth, "length")} below the bench surface ${describePose(sweep, w.pose)}`, { data: { below: w.depth } }),
+    );
+  }
+}

@@ -1,0 +1,159 @@
+// Stiffness and vibration of the loaded arm with its degrees of freedom held (mechanics.md
+// section 7): deflection and tilt at each payload, lowest natural frequency, at a few
+// representative poses (the reference and the ends of each range), not every pose.
+import type { ArmModel, Body } from "../model/types";
+import type { Pose, SweepResult } from "../mechanics/types";
+import { buildArmFrame } from "../mechanics/structure/arm-frame";
+import { elementStrainEnergy } from "../mechanics/structure/frame";
+import type { CheckContext } from "./index";
+import { finding } from "./finding";
+import { addFigures } from "./readout";
+import { carrierHead, parallelogramOfHead } from "./arm-paths";
+import { orientationRange } from "./geometry";
+import { bodyWord, describePose, pastDeadline, payloadMasses, sectionSpan, show, spanOf } from "./part-words";
+
+/** The reference pose, then for each degree of freedom the poses at the two ends of its range
+ * (of those, the one whose other dofs sit nearest their reference). */
+export function representativePoses(sweep: SweepResult): Pose[] {
+  const out: Pose[] = [];
+  const add = (p: Pose | undefined) => p && !out.includes(p) && out.push(p);
+  add(sweep.reference ?? sweep.poses[0]);
+  for (const d of sweep.dofs) {
+    for (const end of [d.range[0], d.range[1]]) {
+      let best: { pose: Pose; score: number } | undefined;
+      for (const p of sweep.poses) {
+        const a = p.angles[d.id];
+        if (a === undefined) continue;
+        let score = Math.abs(a - end) * 1e3;
+        for (const o of sweep.dofs) if (o !== d) score += Math.abs((p.angles[o.id] ?? o.reference) - o.reference);
+        if (!best || score < best.score) best = { pose: p, score };
+      }
+      add(best?.pose);
+    }
+  }
+  return out;
+}
+
+interface PayloadWorst {
+  deflection: number;
+  deflectionPose?: Pose;
+  deflectionCase: number;
+  tilt: number;
+  tiltPose?: Pose;
+  tiltCase: number;
+}
+
+/** The body whose bending and stretching stores most of the strain energy: the part whose
+ * stiffening helps most (for the lowest mode too, by Rayleigh's static-deflection shape). */
+function mostCompliantBody(model: ArmModel, energy: Map<string, number>): Body | undefined {
+  let best: { id: string; e: number } | undefined;
+  for (const [id, e] of energy) if (!best || e > best.e) best = { id, e };
+  return best ? model.bodies.find((b) => b.id === best.id) : undefined;
+}
+
+export function checkStiffness(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const poses = representativePoses(sweep);
+  const worst = new Map<string, PayloadWorst>();
+  let lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> } | undefined;
+  const energyForDeflection = new Map<string, Map<string, number>>();
+  let mechanism: Pose | undefined;
+  for (const pose of poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
+      const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci));
+      const sol = af.frame.solveStatic();
+      if (!sol) {
+        mechanism ??= pose;
+        continue;
+      }
+      const energy = new Map<string, number>();
+      af.elementBody.forEach((id, k) => id && energy.set(id, (energy.get(id) ?? 0) + elementStrainEnergy(af.frame, sol, k)));
+      if (pose === poses[0] && ci === 0)
+        for (const [id, n] of Object.entries(af.endNode)) {
+          const u = sol.displacement(n);
+          const b = model.bodies.find((bb) => bb.id === id)!;
+          addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [{ label: "tip deflection under load", value: Math.hypot(u.ux, u.uy), dimension: "length", where: describePose(sweep, pose) }]);
+        }
+      for (const [pid, n] of Object.entries(af.payloadNode)) {
+        const u = sol.displacement(n);
+        const d = Math.hypot(u.ux, u.uy);
+        const w = worst.get(pid) ?? { deflection: -1, deflectionCase: 0, tilt: -1, tiltCase: 0 };
+        if (d > w.deflection) Object.assign(w, { deflection: d, deflectionPose: pose, deflectionCase: ci }), energyForDeflection.set(pid, energy);
+        if (Math.abs(u.rotation) > w.tilt) Object.assign(w, { tilt: Math.abs(u.rotation), tiltPose: pose, tiltCase: ci });
+        worst.set(pid, w);
+      }
+      const w2 = af.frame.naturalFrequencies(1)?.[0];
+      if (w2 !== undefined) {
+        const f = Math.sqrt(w2) / (2 * Math.PI);
+        if (!lowest || f < lowest.f) lowest = { f, pose, ci, energy };
+      }
+    }
+  }
+  if (mechanism) addFigures(ctx.readouts, model.base?.bodyId ?? "arm", "base", [], [`With its degrees of freedom held the arm is still a mechanism ${describePose(sweep, mechanism)}: stiffness not computed there.`]);
+  reportPayloads(ctx, worst, energyForDeflection);
+  if (lowest) reportFrequency(ctx, lowest);
+}
+
+function reportPayloads(ctx: CheckContext, worst: Map<string, PayloadWorst>, energies: Map<string, Map<string, number>>): void {
+  const { model, sweep } = ctx;
+  for (const p of model.payloads) {
+    const w = worst.get(p.id);
+    if (!w || !w.deflectionPose || !w.tiltPose) continue;
+    const head = carrierHead(model, p.body);
+    const par = head ? parallelogramOfHead(model, head.id) : undefined;
+    const geometric = head ? (orientationRange(sweep, head.id)?.change ?? 0) : 0;
+    const totalTilt = geometric + w.tilt;
+    addFigures(ctx.readouts, p.id, "payload", [
+      { label: "deflection under load", value: w.deflection, dimension: "length", where: describePose(sweep, w.deflectionPose, w.deflectionCase) },
+      { label: "elastic tilt", value: w.tilt, dimension: "angle", where: describePose(sweep, w.tiltPose, w.tiltCase) },
+      ...(head ? [{ label: "head orientation change over the range", value: geometric, dimension: "angle" as const }] : []),
+    ]);
+    const compliant = mostCompliantBody(model, energies.get(p.id) ?? new Map());
+    const partSpan = compliant ? sectionSpan(model, compliant) : spanOf(p.origin, "at");
+    const related = [{ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id}` }];
+    const dLimit = model.require.deflection.byPayload[p.id] ?? model.require.deflection.default;
+    if (w.deflection > dLimit)
+      ctx.findings.push(
+        finding(
+          "stiffness.deflection",
+          partSpan,
+          `payload ${p.id} deflects ${show(w.deflection, "length")} under load, more than the ${show(dLimit, "length")} allowed (${describePose(sweep, w.deflectionPose, w.deflectionCase)})${compliant ? `; ${bodyWord(compliant)} gives most of it` : ""}`,
+          { related, data: { payload: p.id, deflection: w.deflection, limit: dLimit } },
+        ),
+      );
+    const tLimit = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
+    if (totalTilt > tLimit) {
+      const span = par ? spanOf(par.origin, "bars") : partSpan;
+      ctx.findings.push(
+        finding(
+          "stiffness.tilt",
+          span,
+          `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describePose(sweep, w.tiltPose, w.tiltCase)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}`,
+          { related, data: { payload: p.id, tilt: totalTilt, elastic: w.tilt, geometric, limit: tLimit } },
+        ),
+      );
+    }
+  }
+}
+
+function reportFrequency(ctx: CheckContext, lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> }): void {
+  const { model, sweep } = ctx;
+  const where = describePose(sweep, lowest.pose, lowest.ci);
+  const ids = [model.base?.bodyId, ...model.payloads.map((p) => p.id)].filter((x): x is string => !!x);
+  for (const id of ids) addFigures(ctx.readouts, id, id === model.base?.bodyId ? "base" : "payload", [{ label: "lowest natural frequency of the arm", value: lowest.f, dimension: "frequency", where }]);
+  const need = model.require.frequency;
+  if (lowest.f >= need) return;
+  const compliant = mostCompliantBody(model, lowest.energy);
+  ctx.findings.push(
+    finding(
+      "stiffness.low-frequency",
+      compliant ? sectionSpan(model, compliant) : (model.require.origin?.properties["frequency"] ?? model.span),
+      `the loaded arm's lowest natural frequency is ${show(lowest.f, "frequency")}, below the ${show(need, "frequency")} required (${where}): it will bounce when the tool moves${compliant ? `; ${bodyWord(compliant)} is the most flexible part` : ""}`,
+      {
+        related: model.require.origin?.properties["frequency"] ? [{ span: model.require.origin.properties["frequency"], message: "the required frequency" }] : [],
+        data: { frequency: lowest.f, required: need },
+      },
+    ),
+  );
+}

@@ -1,0 +1,223 @@
+// Strength of links, bars and pins over the swept range: largest normal stress along each body
+// (free body from the sweep's statics), column buckling of bodies in compression, pin shear and
+// hole bearing. Rules in docs/checks.md; formulas in mechanics/structure/.
+import type { ArmModel, Body, Joint, Material } from "../model/types";
+import type { Pose, SweepResult } from "../mechanics/types";
+import { sectionProperties, type SectionProperties } from "../model/section";
+import { beamStress, type BeamPointLoad } from "../mechanics/structure/beam";
+import { bodyLoads } from "../mechanics/body-loads";
+import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
+import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
+import type { CheckContext } from "./index";
+import { finding } from "./finding";
+import { addFigures, noteSafety, type Figure } from "./readout";
+import { bodyWord, describePose, owningOrigin, pastDeadline, pinSpan, relatedBody, sectionSpan, show, showSafety } from "./part-words";
+
+/** Share of in-plane strength a print keeps across its layers when the material gives no
+ * `layer_strength`: 0.5 is the conservative default of references.md (Ahn et al., Rapid
+ * Prototyping J. 8(4), 2002: 40-80 %, from memory). */
+export const PRINTED_LAYER_SHARE = 0.5;
+
+/** Effective-length factor of a bar with a locked end and a free tip (flagpole): K = 2
+ * (Shigley ch. 4, end-condition table, theoretical value for fixed-free). */
+const FLAGPOLE_LENGTH_FACTOR = 2;
+/** Every other bar: pinned ends, K = 1. A locked joint would allow less in theory (0.7), but the
+ * parent's own flexibility and a held pivot's brake do not make a rigid clamp. */
+const PINNED_LENGTH_FACTOR = 1;
+/** A joint point within this of a body's end counts as at that end (pivots are drawn to 0.1 mm). */
+const END_MATCH_M = 1e-4;
+
+/** Strength against normal stress: printed bodies that bend have layers in tension across the
+ * print (orientation unknown), so they use the layer strength. */
+export function normalStrength(material: Material, bends: boolean): { value: number; word: string } {
+  if (material.printed && bends) {
+    const v = material.layerStrength ?? PRINTED_LAYER_SHARE * material.strength;
+    return { value: v, word: `layer strength ${show(v, "pressure")} of printed ${material.id}` };
+  }
+  return { value: material.strength, word: `strength ${show(material.strength, "pressure")} of ${material.id}` };
+}
+
+interface Worst {
+  safety: number;
+  pose: Pose;
+  caseIndex: number;
+  detail: string;
+  figure: number;
+}
+
+function keepWorst(prev: Worst | undefined, next: Worst): Worst {
+  return !prev || next.safety < prev.safety ? next : prev;
+}
+
+function lengthFactor(model: ArmModel, body: Body): number {
+  const at = (p: { x: number; y: number }, x: number) => Math.hypot(p.x - x, p.y) < END_MATCH_M;
+  let start = false;
+  let end = false;
+  let locked = false;
+  for (const j of model.joints) {
+    const p = j.child === body.id ? j.childPoint : j.parent === body.id ? j.parentPoint : undefined;
+    if (!p) continue;
+    if (at(p, 0)) start = true;
+    if (at(p, body.length)) end = true;
+    if (j.mode !== "passive") locked = true;
+  }
+  return locked && start !== end ? FLAGPOLE_LENGTH_FACTOR : PINNED_LENGTH_FACTOR;
+}
+
+/** Local beam loads of a body at a pose from the world loads on it; its own weight is left out
+ * (the caller spreads it along the body). */
+function localLoads(model: ArmModel, sweep: SweepResult, pose: Pose, caseIndex: number, body: Body): BeamPointLoad[] {
+  const bp = pose.bodies[body.id]!;
+  const c = Math.cos(bp.phi);
+  const s = Math.sin(bp.phi);
+  const loads = bodyLoads(model, sweep, pose, caseIndex, body.id).filter((l) => !(l.kind === "gravity" && l.id === body.id));
+  return loads.map((l) => {
+    const dx = l.point.x - bp.x;
+    const dy = l.point.y - bp.y;
+    return { s: c * dx + s * dy, offset: -s * dx + c * dy, fx: c * l.force.x + s * l.force.y, fy: -s * l.force.x + c * l.force.y, couple: l.couple };
+  });
+}
+
+export function checkStrength(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const beams = model.bodies.filter((b) => (b.kind === "link" || b.kind === "bar") && b.section && b.material && model.materials[b.material] && b.length > 0);
+  const pinned = model.joints.filter((j) => j.pin && model.materials[j.pin.material]);
+  const stressWorst = new Map<string, Worst>();
+  const columnWorst = new Map<string, Worst>();
+  const largestStress = new Map<string, Worst>();
+  const pinWorst = new Map<string, Worst>();
+  const reactionMax = new Map<string, Worst>();
+  const sections = new Map<string, SectionProperties>(beams.map((b) => [b.id, sectionProperties(b.section!)]));
+
+  outer: for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break outer;
+    for (let ci = 0; ci < pose.cases.length; ci++) {
+      for (const body of beams) {
+        if (!pose.bodies[body.id]) continue;
+        const sec = sections.get(body.id)!;
+        const mat = model.materials[body.material!]!;
+        const bp = pose.bodies[body.id]!;
+        const w = (body.mass * model.gravity) / body.length;
+        const r = beamStress(localLoads(model, sweep, pose, ci, body), { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) }, body.length, sec);
+        const allow = normalStrength(mat, r.bendingShare > 0);
+        const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
+        stressWorst.set(body.id, keepWorst(stressWorst.get(body.id), { safety: sf, pose, caseIndex: ci, detail: allow.word, figure: r.stress }));
+        const prevLargest = largestStress.get(body.id);
+        if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: "", figure: r.stress });
+        if (r.compression > 0) {
+          const K = lengthFactor(model, body);
+          const col = columnCriticalLoad(mat.modulus, sec.area, leastSecondMoment(body.section!), normalStrength(mat, true).value, K * body.length);
+          const csf = col.criticalLoad / r.compression;
+          const detail = `compression ${show(r.compression, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`;
+          columnWorst.set(body.id, keepWorst(columnWorst.get(body.id), { safety: csf, pose, caseIndex: ci, detail, figure: r.compression }));
+        }
+      }
+      for (const j of pinned) {
+        const reaction = pose.cases[ci]?.reactions[j.id];
+        if (!reaction) continue;
+        const F = Math.hypot(reaction.x, reaction.y);
+        const prevR = reactionMax.get(j.id);
+        if (!prevR || F > prevR.figure) reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: "", figure: F });
+        const pw = pinSafety(model, j, F);
+        pinWorst.set(j.id, keepWorst(pinWorst.get(j.id), { ...pw, pose, caseIndex: ci, figure: F }));
+      }
+    }
+  }
+  reportBodies(ctx, beams, stressWorst, columnWorst, largestStress);
+  reportPins(ctx, pinned, pinWorst, reactionMax);
+}
+
+/** Least of the pin's shear safety and the bearing safety of each hole it passes through. */
+export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: number; detail: string } {
+  const pin = j.pin!;
+  const pinMat = model.materials[pin.material]!;
+  const tau = pinShearStress(force, pin.diameter, pin.shearPlanes);
+  const shearAllow = shearYieldStrength(pinMat.strength);
+  let safety = tau > 0 ? shearAllow / tau : Infinity;
+  let detail = `${pin.shearPlanes === 2 ? "double" : "single"}-shear stress ${show(tau, "pressure")} against ${show(shearAllow, "pressure")}`;
+  for (const id of [j.parent, j.child]) {
+    const b = model.bodies.find((bb) => bb.id === id);
+    if (!b || b.kind === "base") continue;
+    const t = b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined);
+    const bm = b.material ? model.materials[b.material] : undefined;
+    if (!t || !bm) continue;
+    const sigma = bearingStress(force, pin.diameter, t);
+    const allow = Math.min(pinMat.strength, normalStrength(bm, true).value);
+    const sf = sigma > 0 ? allow / sigma : Infinity;
+    if (sf < safety) {
+      safety = sf;
+      detail = `bearing stress ${show(sigma, "pressure")} in the ${show(t, "length")} wall of ${bodyWord(b)} against ${show(allow, "pressure")}`;
+    }
+  }
+  return { safety, detail };
+}
+
+function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string, Worst>, columnWorst: Map<string, Worst>, largest: Map<string, Worst>): void {
+  const { model, sweep } = ctx;
+  const need = model.require.safety;
+  for (const body of beams) {
+    const kind = body.kind === "bar" ? "bar" : "link";
+    const s = stressWorst.get(body.id);
+    const big = largest.get(body.id);
+    const figures: Figure[] = [{ label: "mass", value: body.mass, dimension: "mass" }];
+    if (big) figures.push({ label: "largest stress", value: big.figure, dimension: "pressure", where: describePose(sweep, big.pose, big.caseIndex) });
+    addFigures(ctx.readouts, body.id, kind, figures);
+    const own = owningOrigin(model, body.origin);
+    for (const [w, what] of [
+      [s, "stress"],
+      [columnWorst.get(body.id), "buckling"],
+    ] as const) {
+      if (!w) continue;
+      const where = describePose(sweep, w.pose, w.caseIndex);
+      noteSafety(ctx.readouts, body.id, kind, w.safety, what, where);
+      if (own.parallelogram) noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `${what} of ${body.id}`, where);
+      addFigures(ctx.readouts, body.id, kind, [{ label: `${what} safety factor`, value: w.safety, dimension: "dimensionless", where }]);
+      if (w.safety < need) {
+        const msg =
+          what === "stress"
+            ? `${bodyWord(body)}: largest stress ${show(w.figure, "pressure")} against the ${w.detail}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`
+            : `${bodyWord(body)}: ${w.detail}: buckling safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`;
+        ctx.findings.push(
+          finding("strength.overstress", sectionSpan(model, body), msg, {
+            related: model.payloads.filter((p) => p.body === body.id).map((p) => ({ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id} loads it` })),
+            data: { part: body.id, check: what, safety: w.safety, required: need },
+          }),
+        );
+      }
+    }
+  }
+}
+
+function reportPins(ctx: CheckContext, pinned: Joint[], pinWorst: Map<string, Worst>, reactionMax: Map<string, Worst>): void {
+  const { model, sweep } = ctx;
+  const need = model.require.safety;
+  for (const j of pinned) {
+    const w = pinWorst.get(j.id);
+    const r = reactionMax.get(j.id);
+    if (!w || !r) continue;
+    const pin = j.pin!;
+    const where = describePose(sweep, w.pose, w.caseIndex);
+    addFigures(ctx.readouts, j.id, "joint", [
+      { label: "largest reaction", value: r.figure, dimension: "force", where: describePose(sweep, r.pose, r.caseIndex) },
+      { label: "pin shear stress", value: pinShearStress(r.figure, pin.diameter, pin.shearPlanes), dimension: "pressure" },
+      { label: "pin safety factor", value: w.safety, dimension: "dimensionless", where },
+    ]);
+    noteSafety(ctx.readouts, j.id, "joint", w.safety, "pin", where);
+    const own = owningOrigin(model, j.origin);
+    if (own.parallelogram) noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `pin of ${j.id}`, where);
+    if (w.safety < need) {
+      const related = [j.parent, j.child]
+        .map((id) => model.bodies.find((b) => b.id === id))
+        .filter((b): b is Body => !!b && b.kind !== "base")
+        .map((b) => relatedBody(b, `${bodyWord(b)} holds this pin`));
+      ctx.findings.push(
+        finding(
+          "strength.overstress",
+          pinSpan(model, j),
+          `pin of joint ${j.id}: ${w.detail}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (reaction ${show(w.figure, "force")} ${where})`,
+          { related, data: { part: j.id, check: "pin", safety: w.safety, required: need } },
+        ),
+      );
+    }
+  }
+}

@@ -1,0 +1,121 @@
+// Tipping of the base and the loads on its bearing (mechanics.md section 5): the overturning
+// moment of the arm about the footprint's edge against the base's restoring moment W e
+// (statics, e.g. Meriam and Kraige, Engineering Mechanics: Statics, ch. 3). With `yaw` the arm
+// can face any heading, so the worst edge is the nearest one in every direction.
+import type { ArmModel } from "../model/types";
+import type { Pose } from "../mechanics/types";
+import { worldPoint } from "../mechanics/body-loads";
+import type { CheckContext } from "./index";
+import { finding } from "./finding";
+import { addFigures, noteSafety } from "./readout";
+import { describePose, pastDeadline, payloadMasses, show, showSafety, spanOf } from "./part-words";
+
+/** A load of the arm on the base in the arm's plane: a force at a point (x along the reach). */
+export interface PlaneLoad {
+  x: number;
+  y: number;
+  fx: number;
+  fy: number;
+}
+
+/** Overturning moment about the edge at distance `edge` from the base's centre along the
+ * heading (sign +1 toward +x, -1 toward -x), at bench height `surface`: positive tips. */
+export function overturningMoment(loads: readonly PlaneLoad[], edge: number, sign: 1 | -1, surface: number): number {
+  let m = 0;
+  for (const l of loads) {
+    const u = sign * l.x; // distance along the heading
+    const fu = sign * l.fx;
+    // clockwise moment (seen with the heading to the right) about the edge point (edge, surface)
+    m -= (u - edge) * l.fy - (l.y - surface) * fu;
+  }
+  return m;
+}
+
+/** Restoring moment of the base's weight about an edge `edge` from its centre of gravity. */
+export function restoringMoment(baseMass: number, gravity: number, edge: number): number {
+  return baseMass * gravity * edge;
+}
+
+/** Every load the arm puts on the base at a pose: weights of moving bodies and payloads, and
+ * the payloads' working forces (springs and pins between base and arm are internal). */
+export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, number>): PlaneLoad[] {
+  const out: PlaneLoad[] = [];
+  for (const b of model.bodies) {
+    if (b.kind === "base" || !pose.bodies[b.id] || !(b.mass > 0)) continue;
+    const c = worldPoint(pose, b.id, b.centreOfMass, model);
+    out.push({ x: c.x, y: c.y, fx: 0, fy: -b.mass * model.gravity });
+  }
+  for (const p of model.payloads) {
+    if (!pose.bodies[p.body]) continue;
+    const c = worldPoint(pose, p.body, p.point, model);
+    out.push({ x: c.x, y: c.y, fx: p.force?.x ?? 0, fy: -(masses[p.id] ?? p.mass) * model.gravity + (p.force?.y ?? 0) });
+  }
+  return out;
+}
+
+export function checkTipping(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const base = model.base;
+  if (!base) return;
+  const baseBody = model.bodies.find((b) => b.id === base.bodyId);
+  if (!baseBody) return;
+  let worst: { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string } | undefined;
+  let thrust = { value: 0, where: "" };
+  let moment = { value: 0, where: "" };
+  let radial = { value: 0, where: "" };
+  const edges = base.footprint
+    ? base.yaw
+      ? [
+          { edge: base.footprint.width / 2, heading: "facing along the footprint's width" },
+          { edge: base.footprint.depth / 2, heading: "turned to face across the footprint's depth" },
+        ]
+      : [{ edge: base.footprint.width / 2, heading: "" }]
+    : [];
+  for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    for (let ci = 0; ci < pose.cases.length; ci++) {
+      const loads = armLoads(model, pose, payloadMasses(model, sweep, ci));
+      const where = describePose(sweep, pose, ci);
+      const fy = loads.reduce((s, l) => s + l.fy, 0);
+      const fx = loads.reduce((s, l) => s + l.fx, 0);
+      // moment about the base's origin (the bearing's centre): the edge at 0
+      const m0 = Math.abs(overturningMoment(loads, 0, 1, 0));
+      if (-fy > thrust.value) thrust = { value: -fy, where };
+      if (m0 > moment.value) moment = { value: m0, where };
+      if (Math.abs(fx) > radial.value) radial = { value: Math.abs(fx), where };
+      for (const e of edges) {
+        for (const sign of [1, -1] as const) {
+          const over = overturningMoment(loads, e.edge, sign, base.surface);
+          const restoring = restoringMoment(base.mass, model.gravity, e.edge);
+          const safety = over > 0 ? restoring / over : Infinity;
+          if (!worst || safety < worst.safety) worst = { safety, pose, ci, overturning: over, restoring, heading: e.heading ? `${e.heading}, ` : "" };
+        }
+      }
+    }
+  }
+  addFigures(ctx.readouts, base.bodyId, "base", [
+    { label: "vertical thrust on the base", value: thrust.value, dimension: "force", where: thrust.where },
+    { label: "overturning moment at the base", value: moment.value, dimension: "torque", where: moment.where },
+    { label: "radial load on the base", value: radial.value, dimension: "force", where: radial.where },
+  ]);
+  if (!base.footprint) {
+    addFigures(ctx.readouts, base.bodyId, "base", [], ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."]);
+    return;
+  }
+  if (!worst) return;
+  const where = `${worst.heading}${describePose(sweep, worst.pose, worst.ci)}`;
+  addFigures(ctx.readouts, base.bodyId, "base", [{ label: "tipping safety factor", value: worst.safety, dimension: "dimensionless", where }]);
+  noteSafety(ctx.readouts, base.bodyId, "base", worst.safety, "tipping", where);
+  const need = model.require.tipping;
+  if (worst.safety < need) {
+    ctx.findings.push(
+      finding(
+        "geometry.tipping",
+        spanOf(baseBody.origin, "mass", "footprint"),
+        `base ${base.bodyId}: overturning moment ${show(worst.overturning, "torque")} about the footprint's edge against a restoring ${show(worst.restoring, "torque")}: tipping safety ${showSafety(worst.safety)} < ${showSafety(need)} required (${where})`,
+        { related: model.payloads.map((p) => ({ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id} adds to the overturning moment` })), data: { safety: worst.safety, required: need } },
+      ),
+    );
+  }
+}
+
