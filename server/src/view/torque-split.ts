@@ -6,7 +6,9 @@
 //   gravity part  = d/dtheta of g * sum(m * y_centre)        (bodies and payloads)
 //   spring part   = sum over springs of F * dL/dtheta         (tension F pulls the hooks together,
 //                                                               so its work on the arm is -F dL;
-//                                                               torsion: T * d(wind-up)/dtheta)
+//                                                               torsion: T * d(wind-up)/dtheta;
+//                                                               dL/dtheta is the solver's
+//                                                               springTorquePerUnit where given)
 //   load part     = -sum over payloads of Fsteady . dp/dtheta
 // with the derivatives by three-point differences over the neighbouring poses of the run (central
 // inside it, one-sided at its ends) and F, T taken from the sweep at the pose itself.
@@ -15,8 +17,9 @@ import type { Pose, SweepResult } from "../mechanics/types";
 
 export const TORQUE_METHOD =
   "Gravity, spring and load parts by virtual work: finite differences over neighbouring poses of " +
-  "the gravity potential, of each spring's length (times its force from the sweep) and of the " +
-  "payload points (times their steady force); net torque straight from the sweep.";
+  "the gravity potential and of the payload points (times their steady force); each spring's force " +
+  "from the sweep times its lever (the solver's torque per unit force, else the change of the " +
+  "spring's length between neighbouring poses); net torque straight from the sweep.";
 
 export interface TorqueSplit {
   /** [dof][pose], N*m; NaN where a pose has no neighbour along that dof. */
@@ -83,12 +86,19 @@ function derivative(st: { at: number[]; w: number[] }, value: (p: number) => num
   return sum;
 }
 
-function springPart(model: ArmModel, poses: readonly Pose[], here: Pose, st: { at: number[]; w: number[] }): number {
+function springPart(model: ArmModel, poses: readonly Pose[], here: Pose, st: { at: number[]; w: number[] }, dofId: string): number {
   const forces = here.cases[0]?.springForce ?? {};
   let sum = 0;
   for (let s = 0; s < model.springs.length; s++) {
-    const f = forces[model.springs[s]!.id];
+    const id = model.springs[s]!.id;
+    const f = forces[id];
     if (f === undefined || !Number.isFinite(f)) continue;
+    // The solver's own dL/dtheta (holding torque per unit force), where it gives one: exact.
+    const perUnit = here.springTorquePerUnit?.[id]?.[dofId];
+    if (perUnit !== undefined && Number.isFinite(perUnit)) {
+      sum += f * perUnit;
+      continue;
+    }
     const dL = derivative(st, (p) => springStroke(model, poses[p]!, s));
     if (Number.isFinite(dL)) sum += f * dL;
   }
@@ -126,7 +136,7 @@ export function splitHoldingTorque(model: ArmModel, sweep: SweepResult, lines: r
         if (!st.w.every(Number.isFinite)) continue;
         const p = run[i]!;
         gravity[p] = derivative(st, (q) => potential[q]!);
-        spring[p] = springPart(model, sweep.poses, sweep.poses[p]!, st);
+        spring[p] = springPart(model, sweep.poses, sweep.poses[p]!, st, dof.id);
         load[p] = loadPart(model, sweep.poses, st);
       }
     }
