@@ -42,13 +42,19 @@ function dimensionsOf(shape: ValueShape): DimensionName[] {
   }
 }
 
+/** A spring's `rate` is angular only for a torsion spring. */
+function dimensionsFor(spec: PropertySpec, springKind: string | undefined): DimensionName[] {
+  if (spec.key === "rate" && springKind) return [springKind === "torsion" ? "angular_stiffness" : "stiffness"];
+  return dimensionsOf(spec.shape);
+}
+
 const isUnitWord = (w: string) => /^[A-Za-z][A-Za-z0-9*/^]*$/.test(w) && !SECTION_SHAPES.has(w);
 
 /** What may come next in a property, given the complete words after its key. */
-function wantAfter(keyword: string, spec: PropertySpec, done: string[]): Want | undefined {
+function wantAfter(keyword: string, spec: PropertySpec, done: string[], springKind: string | undefined): Want | undefined {
   const last = done[done.length - 1];
   const prevIsNumber = last !== undefined && NUMBER.test(last);
-  if (prevIsNumber) return { kind: "units", dimensions: dimensionsOf(spec.shape) };
+  if (prevIsNumber) return { kind: "units", dimensions: dimensionsFor(spec, springKind) };
   const quantities = done.filter((w) => NUMBER.test(w)).length;
   const afterUnit = last !== undefined && prevIsUnitAfterNumber(done);
   switch (spec.key) {
@@ -178,16 +184,17 @@ export function completionsAt(view: SyntaxView, offset: number, snippets: boolea
     items = propertyItems(ctx, view.text);
   } else {
     const spec = declarationSpec(ctx.keyword ?? "")?.properties.find((p) => p.key === done[0]);
+    const springKind = ctx.keyword === "spring" ? springKindOf(blockText(view.text, ctx.blockStart)) : undefined;
     const inPoint = done.includes("(") || done.some((w) => w.endsWith("("));
     const glued = NUMBER_THEN_UNIT.exec(partial);
     let want: Want | undefined;
     if (glued) {
-      want = { kind: "units", dimensions: spec ? dimensionsOf(spec.shape) : [] };
+      want = { kind: "units", dimensions: spec ? dimensionsFor(spec, springKind) : [] };
       replaceLength = glued[2]!.length;
     } else if (inPoint) {
       const last = done[done.length - 1];
       if (last && NUMBER.test(last)) want = { kind: "units", dimensions: spec?.key === "force" ? ["force"] : ["length"] };
-    } else if (spec) want = wantAfter(ctx.keyword ?? "", spec, done.slice(1));
+    } else if (spec) want = wantAfter(ctx.keyword ?? "", spec, done.slice(1), springKind);
     if (want?.kind === "units") {
       const units = [...new Set((want.dimensions ?? []).flatMap((d) => UNITS_BY_DIMENSION[d]))];
       items = units.map((u, i) => ({ label: u, kind: CompletionItemKind.Unit, sortText: String(i).padStart(3, "0") }));

@@ -1,0 +1,84 @@
+// The layer rules of docs/architecture.md, enforced: the core (syntax, units, model, mechanics,
+// checks, view, analysis.ts) imports no editor or protocol package and nothing that does IO; only
+// server/src/lsp touches protocol types; the CLI reaches the core through analysis.ts.
+import { describe, expect, it } from "vitest";
+import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
+import { join, relative } from "node:path";
+
+const root = join(__dirname, "..");
+const src = join(root, "server", "src");
+const CORE_DIRS = ["syntax", "units", "model", "mechanics", "checks", "view"];
+
+/** Packages the core must not import: editor and protocol libraries, and Node's IO, process,
+ * network and worker modules (the core takes a string and returns values). */
+const FORBIDDEN_IN_CORE = [
+  /^vscode($|-)/,
+  /^vscode-languageserver/,
+  /^vscode-languageclient/,
+  /^vscode-jsonrpc/,
+  /^(node:)?(fs|fs\/promises|child_process|net|http|https|http2|dgram|tls|worker_threads|cluster|os|process|readline|inspector|vm)$/,
+];
+const PROTOCOL = [/^vscode-languageserver/, /^vscode-jsonrpc/, /^vscode-languageclient/, /^vscode$/];
+
+function filesUnder(dir: string): string[] {
+  if (!existsSync(dir)) return [];
+  return readdirSync(dir).flatMap((name) => {
+    const path = join(dir, name);
+    return statSync(path).isDirectory() ? filesUnder(path) : path.endsWith(".ts") ? [path] : [];
+  });
+}
+
+/** Every module specifier a file imports or re-exports, statically or dynamically, or requires. */
+export function importsOf(source: string): string[] {
+  const out: string[] = [];
+  const patterns = [
+    /\bimport\s+(?:type\s+)?(?:[\w*{}\s,]+\s+from\s+)?["']([^"']+)["']/g,
+    /\bexport\s+(?:type\s+)?(?:\*|\{[^}]*\})\s*from\s*["']([^"']+)["']/g,
+    /\bimport\s*\(\s*["']([^"']+)["']\s*\)/g,
+    /\brequire\s*\(\s*["']([^"']+)["']\s*\)/g,
+  ];
+  for (const p of patterns) for (const m of source.matchAll(p)) out.push(m[1]!);
+  return out;
+}
+
+const coreFiles = [...CORE_DIRS.flatMap((d) => filesUnder(join(src, d))), join(src, "analysis.ts")];
+
+describe("layer rules", () => {
+  it("the import scanner sees every form of import", () => {
+    const sample = `import a from "fs";\nimport type { B } from 'vscode';\nimport "node:net";\nexport * from "vscode-jsonrpc";\nconst c = await import("node:child_process");\nconst d = require("vscode-languageserver/node");`;
+    expect(importsOf(sample)).toEqual(["fs", "vscode", "node:net", "vscode-jsonrpc", "node:child_process", "vscode-languageserver/node"]);
+  });
+
+  it("finds the core's files", () => {
+    expect(coreFiles.length).toBeGreaterThan(10);
+  });
+
+  for (const file of coreFiles) {
+    it(`core file ${relative(root, file)} imports no editor, protocol or IO module`, () => {
+      const bad = importsOf(readFileSync(file, "utf8")).filter((spec) => FORBIDDEN_IN_CORE.some((re) => re.test(spec)));
+      expect(bad).toEqual([]);
+    });
+  }
+
+  it("only server/src/lsp imports protocol packages among the server's folders", () => {
+    const offenders = filesUnder(src)
+      .filter((f) => !relative(src, f).startsWith("lsp"))
+      .flatMap((f) => importsOf(readFileSync(f, "utf8")).filter((s) => PROTOCOL.some((re) => re.test(s)) && !isCliServerLaunch(f, s)).map((s) => `${relative(root, f)}: ${s}`));
+    expect(offenders).toEqual([]);
+  });
+
+  it("the core reaches no shell folder (lsp, cli) and no client code", () => {
+    const offenders = coreFiles.flatMap((f) =>
+      importsOf(readFileSync(f, "utf8"))
+        .filter((s) => /(^|\/)(lsp|cli)(\/|$)/.test(s) || s.includes("client/"))
+        .map((s) => `${relative(root, f)}: ${s}`),
+    );
+    expect(offenders).toEqual([]);
+  });
+});
+
+/** `poise lsp --stdio` starts the same server: the CLI's main may load the protocol library for
+ * that one command, and nothing else in cli/ may. */
+function isCliServerLaunch(file: string, spec: string): boolean {
+  return relative(src, file) === join("cli", "main.ts") && spec === "vscode-languageserver/node";
+}
