@@ -10,6 +10,7 @@ import type { SweepResult } from "./mechanics/types";
 import type { Finding } from "./checks/finding";
 import { finding } from "./checks/finding";
 import type { Readouts } from "./checks/readout";
+import type { SymbolTable } from "./model/symbols";
 
 export interface AnalysisOptions {
   /** Overrides the spec's `sweep steps` (e.g. a quick pass while typing). */
@@ -24,6 +25,8 @@ export interface Analysis {
   text: string;
   tree: SyntaxTree;
   model?: ArmModel;
+  /** Every declaration and reference, for outline, go-to-definition, references and rename. */
+  symbols?: SymbolTable;
   sweep?: SweepResult;
   findings: Finding[];
   readouts: Readouts;
@@ -50,6 +53,7 @@ export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
   const result: Analysis = { text, tree, findings, readouts: {}, timings };
   if (!built) return result;
   findings.push(...built.findings);
+  result.symbols = built.symbols;
   if (!built.model) return result;
   result.model = built.model;
   if (options.modelOnly || blocksSolving(findings)) return result;

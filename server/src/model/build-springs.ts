@@ -1,0 +1,219 @@
+// Builds springs: one kind word (extension, zero_length, elastic, gas, torsion), the properties
+// that kind takes, and the values derived from them (a coil's rate, a tube's area, a preload torque).
+import { SPRING_KINDS } from "./schema";
+import type { Attachment, CoilGeometry, Spring, SpringKind } from "./types";
+import { extensionSpringRate } from "./coil";
+import { readDims, readFlag, readKeyword, readQuantity, readReference, readWord, type Read } from "./read-values";
+import { listWords, type BuildContext, type Props } from "./build-context";
+
+const KIND_WORDS: Record<SpringKind, string> = {
+  extension: "an extension spring",
+  zero_length: "a zero-length spring",
+  elastic: "an elastic cord",
+  gas: "a gas strut",
+  torsion: "a torsion spring",
+};
+
+export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | undefined {
+  const kinds = SPRING_KINDS.filter((k) => p.has(k));
+  for (const k of kinds) readFlag(p.values(k)!);
+  if (kinds.length === 0) {
+    ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS])}`, { data: { insert: "extension" } });
+    return undefined;
+  }
+  if (kinds.length > 1) {
+    const second = p.get(kinds[1]!)!;
+    ctx.r.add("property.conflict", second.key.span, `${p.what} is already \`${kinds[0]}\`: a spring has one kind`, {
+      related: [{ span: p.get(kinds[0]!)!.key.span, message: "its first kind" }],
+    });
+  }
+  const kind = kinds[0]!;
+  // Properties of other kinds do not apply.
+  for (const key of p.keys()) {
+    const spec = p.spec_(key);
+    if (!spec.springKinds || spec.springKinds.includes(kind)) continue;
+    ctx.r.add("property.unknown", p.get(key)!.key.span, `\`${key}\` does not apply to ${KIND_WORDS[kind]} (it is for ${listWords(spec.springKinds.map((k) => KIND_WORDS[k as SpringKind]))})`);
+  }
+  const origin = p.origin();
+
+  const q = (key: string, dim: Parameters<typeof readQuantity>[1][number], opts: { positive?: boolean; atLeastOne?: boolean } = {}): Read<number> | undefined => {
+    const v = p.values(key);
+    if (!v) return undefined;
+    const r = readQuantity(v, [dim]);
+    v.finish();
+    if (!r) return undefined;
+    if (opts.positive && r.value <= 0) {
+      ctx.r.add("value.impossible", r.span, `\`${key}\` must be positive, got ${ctx.r.quote(r.span)}`);
+      return undefined;
+    }
+    if (r.value < 0) {
+      ctx.r.add("value.impossible", r.span, `\`${key}\` cannot be negative, got ${ctx.r.quote(r.span)}`);
+      return undefined;
+    }
+    return r;
+  };
+  const need = (key: string): void => {
+    if (!p.has(key)) p.missing(key);
+  };
+
+  if (kind === "torsion") {
+    need("at");
+    need("rate");
+    const rate = q("rate", "angular_stiffness", { positive: true });
+    let joint: string | undefined;
+    const av = p.values("at");
+    if (av) {
+      const w = readWord(av, "a joint or parallelogram name");
+      av.finish();
+      const target = w ? ctx.resolveName(w, ["joint", "parallelogram"], "a joint") : undefined;
+      joint = target?.id;
+    }
+    let preloadTorque = 0;
+    const pv = p.values("preload");
+    if (pv) {
+      const r = readQuantity(pv, ["angle", "torque"]);
+      pv.finish();
+      // A preload given as a wind-up angle becomes the torque rate x angle.
+      if (r) preloadTorque = r.dimension === "angle" ? (rate?.value ?? 0) * r.value : r.value;
+    }
+    const maxAngle = q("max_angle", "angle", { positive: true });
+    if (!joint || !rate) return undefined;
+    return { kind, id, origin, joint, rate: rate.value, preloadTorque, ...(maxAngle ? { maxAngle: maxAngle.value } : {}) };
+  }
+
+  need("between");
+  const ends = readBetween(ctx, p);
+
+  if (kind === "extension") {
+    need("free_length");
+    const coilKeys = ["wire", "coil", "coils", "material"];
+    const coilGiven = coilKeys.filter((k) => p.has(k));
+    if (p.has("rate") && coilGiven.length > 0) {
+      ctx.r.add("property.conflict", p.get(coilGiven[0]!)!.key.span, `${p.what} has both \`rate\` and a coil: give the rate, or the coil (\`wire\`, \`coil\`, \`coils\`, \`material\`) to compute it`, {
+        related: [{ span: p.get("rate")!.span, message: "the rate" }],
+      });
+    } else if (!p.has("rate") && coilGiven.length === 0) {
+      ctx.r.add("property.missing", p.nameSpan, `${p.what} needs \`rate\` (or its coil: \`wire\`, \`coil\`, \`coils\`, \`material\`), e.g. \`rate 0.8 N/mm\``, { data: { insert: "rate 0.8 N/mm" } });
+    } else if (!p.has("rate")) {
+      for (const k of coilKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
+    }
+    const rate = q("rate", "stiffness", { positive: true });
+    const free = q("free_length", "length", { positive: true });
+    const fi = q("initial_tension", "force");
+    const max = q("max_length", "length", { positive: true });
+    if (max && free && max.value <= free.value) {
+      ctx.r.add("value.impossible", max.span, `max_length ${ctx.r.quote(max.span)} must be longer than free_length ${ctx.r.quote(free.span)}`);
+    }
+    let coil: CoilGeometry | undefined;
+    let coilRate: number | undefined;
+    if (!p.has("rate")) {
+      const wire = q("wire", "length", { positive: true });
+      const mean = q("coil", "length", { positive: true });
+      const coils = q("coils", "dimensionless", { positive: true });
+      let material: string | undefined;
+      const mv = p.values("material");
+      if (mv) {
+        const w = readWord(mv, "the wire's material");
+        mv.finish();
+        material = w ? ctx.resolveMaterial(w) : undefined;
+      }
+      if (wire && mean && mean.value <= wire.value) {
+        ctx.r.add("value.impossible", mean.span, `the mean coil diameter ${ctx.r.quote(mean.span)} must be larger than the wire ${ctx.r.quote(wire.span)}`);
+      } else if (wire && mean && coils && material) {
+        coil = { wireDiameter: wire.value, meanDiameter: mean.value, bodyCoils: coils.value, material };
+        const m = ctx.materials[material]!;
+        coilRate = extensionSpringRate(wire.value, mean.value, coils.value, m.shearModulus, m.modulus);
+      }
+    }
+    if (!ends || !free || (rate === undefined && coilRate === undefined)) return undefined;
+    return {
+      kind,
+      id,
+      origin,
+      ...ends,
+      rate: rate?.value ?? coilRate!,
+      freeLength: free.value,
+      initialTension: fi?.value ?? 0,
+      ...(max ? { maxLength: max.value } : {}),
+      ...(coil ? { coil } : {}),
+    };
+  }
+
+  if (kind === "zero_length") {
+    need("rate");
+    const rate = q("rate", "stiffness", { positive: true });
+    const fi = q("initial_tension", "force");
+    if (!ends || !rate) return undefined;
+    return { kind, id, origin, ...ends, rate: rate.value, initialTension: fi?.value ?? 0 };
+  }
+
+  if (kind === "elastic") {
+    need("free_length");
+    need("material");
+    const free = q("free_length", "length", { positive: true });
+    let area: number | undefined;
+    if (p.has("area") && p.has("tube")) {
+      ctx.r.add("property.conflict", p.get("tube")!.key.span, `${p.what} has both \`area\` and \`tube\`: give one`, { related: [{ span: p.get("area")!.span, message: "the area" }] });
+    } else if (!p.has("area") && !p.has("tube")) {
+      ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its cross-section: \`area\` or \`tube OD x wall\`, e.g. \`tube 6 mm x 1.5 mm\``, { data: { insert: "tube 6 mm x 1.5 mm" } });
+    }
+    const av = p.values("area");
+    if (av) {
+      const r = readQuantity(av, ["area"]);
+      av.finish();
+      if (r && r.value <= 0) ctx.r.add("value.impossible", r.span, `an area must be positive, got ${ctx.r.quote(r.span)}`);
+      else if (r) area = r.value;
+    }
+    const tv = p.values("tube");
+    if (tv) {
+      const d = readDims(tv);
+      tv.finish();
+      if (d) {
+        const [od, wall] = d.value;
+        if (od <= 0 || wall <= 0) ctx.r.add("value.impossible", d.span, `a tube's sizes must be positive, got ${ctx.r.quote(d.span)}`);
+        else if (wall >= od / 2) ctx.r.add("value.impossible", d.span, `a tube's wall must be less than its radius: ${ctx.r.quote(d.span)}`);
+        else if (area === undefined) area = (Math.PI / 4) * (od * od - (od - 2 * wall) ** 2);
+      }
+    }
+    let material: string | undefined;
+    const mv = p.values("material");
+    if (mv) {
+      const w = readWord(mv, "the cord's material");
+      mv.finish();
+      material = w ? ctx.resolveMaterial(w) : undefined;
+    }
+    const stretch = q("max_stretch", "dimensionless", { positive: true });
+    if (stretch && stretch.value <= 1) ctx.r.add("value.impossible", stretch.span, `max_stretch is a ratio L / L0 above 1, got ${ctx.r.quote(stretch.span)}`);
+    if (!ends || !free || area === undefined || !material) return undefined;
+    return { kind, id, origin, ...ends, freeLength: free.value, area, material, ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}) };
+  }
+
+  // gas
+  for (const key of ["force", "progression", "stroke", "extended_length"]) need(key);
+  const force = q("force", "force", { positive: true });
+  const progression = q("progression", "dimensionless", { positive: true });
+  if (progression && progression.value < 1) {
+    ctx.r.add("value.impossible", progression.span, `progression is compressed force / extended force, at least 1; got ${ctx.r.quote(progression.span)}`);
+  }
+  const stroke = q("stroke", "length", { positive: true });
+  const extended = q("extended_length", "length", { positive: true });
+  if (stroke && extended && stroke.value >= extended.value) {
+    ctx.r.add("value.impossible", stroke.span, `a stroke of ${ctx.r.quote(stroke.span)} does not fit in an extended length of ${ctx.r.quote(extended.span)}`);
+  }
+  if (!ends || !force || !progression || !stroke || !extended) return undefined;
+  return { kind, id, origin, ...ends, force: force.value, progression: Math.max(1, progression.value), stroke: stroke.value, extendedLength: extended.value };
+}
+
+/** `between REF and REF`. */
+function readBetween(ctx: BuildContext, p: Props): { a: Attachment; b: Attachment } | undefined {
+  const v = p.values("between");
+  if (!v) return undefined;
+  const first = readReference(v, "the first hook point");
+  const and = first ? readKeyword(v, "and", "and the second hook point") : false;
+  const second = and ? readReference(v, "the second hook point") : undefined;
+  v.finish();
+  const a = first ? ctx.resolvePoint(first, "between") : undefined;
+  const b = second ? ctx.resolvePoint(second, "between") : undefined;
+  if (!a || !b) return undefined;
+  return { a, b };
+}
