@@ -94,7 +94,7 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
     expect(open[0]!.data!["jointId"]).toBe("rocker_pin");
     // Distance between two circles: |centres| - r1 - r2
     expect(open[0]!.data!["gap"] as number).toBeCloseTo(a + d - b - short, 6);
-    expect(open[0]!.message).toContain("40.0 mm");
+    expect(open[0]!.message).toContain("40 mm");
     expect(sweep.poses).toEqual([]);
   });
 });

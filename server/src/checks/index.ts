@@ -4,6 +4,7 @@ import type { ArmModel } from "../model/types";
 import type { SweepResult } from "../mechanics/types";
 import type { Finding } from "./finding";
 import type { Readouts } from "./readout";
+import { balanceChecks } from "./balance";
 import { checkStrength } from "./strength";
 import { checkSpringStrength } from "./spring-strength";
 import { checkGeometry } from "./geometry";
@@ -27,6 +28,7 @@ export type CheckFamily = (ctx: CheckContext) => void;
 
 /** Filled in by the check families (balance, strength, geometry, stiffness, ...). */
 const FAMILIES: CheckFamily[] = [
+  balanceChecks,
   checkStrength,
   checkSpringStrength,
   checkGeometry,

@@ -1,0 +1,292 @@
+// Balance checks and readouts: the hand force needed to hold each payload against `require
+// balance` (balance.unbalanced, on the spring whose retuning helps most, with the best-fit
+// settings for a quick fix), pivots whose friction does not hold the arm (balance.drifts), and
+// the figures hovers show for joints, springs and payloads.
+import type { ArmModel, Spring } from "../model/types";
+import type { Pose, SweepResult } from "../mechanics/types";
+import type { CheckContext } from "./index";
+import { finding, type RelatedInfo } from "./finding";
+import { addFigures, type Figure } from "./readout";
+import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics/spring-fit";
+import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
+import { formatQuantity } from "../units/format";
+import type { DimensionName } from "../units/dimension";
+
+const formatQuantityFor = (valueSI: number, dimension: DimensionName): string => formatQuantity(valueSI, dimension, "si");
+
+/** A pose's dof angles in words, plus the load case when it is not the nominal one. */
+export function poseWhere(sweep: SweepResult, pose: Pose, caseIndex = 0): string {
+  const angles = sweep.dofs.map((d) => `${d.id} ${formatAngle(pose.angles[d.id]!)}`).join(", ");
+  const lc = sweep.loadCases[caseIndex];
+  return `at ${angles || "the reference pose"}${caseIndex > 0 && lc ? ` (${lc.label})` : ""}`;
+}
+
+function spanOfSpring(s: Spring) {
+  const key = s.kind === "gas" ? "force" : s.kind === "elastic" ? (s.origin.properties["area"] ? "area" : "tube") : "rate";
+  return s.origin.properties[key] ?? s.origin.name ?? s.origin.declaration;
+}
+
+interface Worst {
+  value: number;
+  pose: Pose;
+  caseIndex: number;
+}
+
+function worstHandForce(sweep: SweepResult, payloadId: string): Worst | undefined {
+  let w: Worst | undefined;
+  for (const pose of sweep.poses) {
+    pose.cases.forEach((c, ci) => {
+      const v = c.handForce[payloadId];
+      if (v !== undefined && (!w || v > w.value)) w = { value: v, pose, caseIndex: ci };
+    });
+  }
+  return w;
+}
+
+/** Data of a balance quick fix, in SI. */
+function fitData(s: Spring, fit: SpringFit): Record<string, unknown> {
+  const data: Record<string, unknown> = { springId: s.id, worstHandForceBefore: fit.worstHandForceBefore, worstHandForceAfter: fit.worstHandForceAfter };
+  if (s.kind === "extension" || s.kind === "zero_length") {
+    data["bestRate"] = fit.best[0];
+    data["bestInitialTension"] = fit.best[1];
+  } else if (s.kind === "torsion") {
+    data["bestRate"] = fit.best[0];
+    data["bestPreloadTorque"] = fit.best[1];
+  } else if (s.kind === "gas") data["bestForce"] = fit.best[0];
+  else data["bestArea"] = fit.best[0];
+  return data;
+}
+
+function fitWords(s: Spring, fit: SpringFit): string {
+  const [p0, p1] = fit.best;
+  switch (s.kind) {
+    case "extension":
+    case "zero_length":
+      return `rate ${formatQuantityFor(p0, "stiffness")} with initial tension ${formatForce(p1)}`;
+    case "torsion":
+      return `rate ${formatQuantityFor(p0, "angular_stiffness")} with preload ${formatTorque(p1)}`;
+    case "gas":
+      return `extended force ${formatForce(p0)}`;
+    case "elastic":
+      return `cross-section ${formatQuantityFor(p0, "area")}`;
+  }
+}
+
+export function balanceChecks(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  if (sweep.poses.length === 0) return;
+  const fits = new Map<string, SpringFit | undefined>();
+  const fitOf = (id: string) => {
+    if (!fits.has(id)) fits.set(id, performance.now() > ctx.options.deadline ? undefined : bestSpringFit(model, sweep, id));
+    return fits.get(id);
+  };
+
+  for (const p of model.payloads) {
+    const worst = worstHandForce(sweep, p.id);
+    if (!worst) continue;
+    const limit = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
+    if (!(worst.value > limit)) continue;
+    const st = worst.pose.cases[worst.caseIndex]!;
+    const vec = st.handForceVector?.[p.id];
+    const sinks = (vec?.y ?? 0) > 0;
+    // The dof whose holding torque is the largest at the worst pose: the joint to point at.
+    let dofId: string | undefined;
+    for (const d of sweep.dofs) if (!dofId || Math.abs(st.holdingTorque[d.id] ?? 0) > Math.abs(st.holdingTorque[dofId] ?? 0)) dofId = d.id;
+    const joint = model.joints.find((j) => j.id === dofId);
+    // The spring that should balance it: the one whose best fit lowers the worst hand force most.
+    let chosen: { spring: Spring; fit: SpringFit } | undefined;
+    for (const s of model.springs) {
+      const acts = sweep.poses.some((pose) => Object.values(pose.springTorquePerUnit?.[s.id] ?? {}).some((v) => v !== 0));
+      if (!acts) continue;
+      const fit = fitOf(s.id);
+      if (fit && (!chosen || fit.worstHandForceAfter < chosen.fit.worstHandForceAfter)) chosen = { spring: s, fit };
+    }
+    const where = poseWhere(sweep, worst.pose, worst.caseIndex);
+    const related: RelatedInfo[] = [{ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id}: ${formatForce(worst.value)} to hold ${where}` }];
+    if (joint) related.push({ span: joint.origin.name ?? joint.origin.declaration, message: `holding torque at ${joint.id}: ${formatTorque(st.holdingTorque[joint.id] ?? 0)} ${where}` });
+    const head = `Holding ${p.id} takes ${formatForce(worst.value)} ${where}, over the ${formatForce(limit)} that require balance allows: the arm ${sinks ? "sinks" : "rises"} there.`;
+    if (chosen) {
+      const { spring, fit } = chosen;
+      const better = fit.worstHandForceAfter < fit.worstHandForceBefore * (1 - 1e-6);
+      const advice = better
+        ? ` Spring ${spring.id} ${sinks ? "lifts too little" : "lifts too much"}; with ${fitWords(spring, fit)} the worst hand force would be ${formatForce(fit.worstHandForceAfter)}.`
+        : ` Spring ${spring.id} as placed cannot do better (worst ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`;
+      ctx.findings.push(
+        finding("balance.unbalanced", spanOfSpring(spring), head + advice, {
+          related,
+          data: { ...fitData(spring, fit), payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
+        }),
+      );
+    } else {
+      ctx.findings.push(
+        finding("balance.unbalanced", p.origin.properties["mass"] ?? p.origin.name ?? p.origin.declaration, `${head} No spring balances it.`, {
+          related,
+          data: { payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
+        }),
+      );
+    }
+  }
+
+  driftChecks(ctx);
+  jointReadouts(ctx);
+  springReadouts(ctx, fitOf);
+  payloadReadouts(ctx);
+}
+
+/** Runs of consecutive sample values (sorted) where `bad` holds, as [low, high] pairs. */
+export function subRanges(values: number[], bad: (v: number) => boolean): [number, number][] {
+  const sorted = [...new Set(values)].sort((a, b) => a - b);
+  const runs: [number, number][] = [];
+  let start: number | undefined;
+  let last: number | undefined;
+  for (const v of sorted) {
+    if (bad(v)) {
+      if (start === undefined) start = v;
+      last = v;
+    } else if (start !== undefined) {
+      runs.push([start, last!]);
+      start = undefined;
+    }
+  }
+  if (start !== undefined) runs.push([start, last!]);
+  return runs;
+}
+
+function driftChecks(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  for (const dof of sweep.dofs) {
+    const joint = model.joints.find((j) => j.id === dof.jointId);
+    if (!joint || joint.friction === undefined) continue;
+    const friction = joint.friction;
+    const drifting = new Set<number>();
+    let worst = 0;
+    for (const pose of sweep.poses) {
+      for (const c of pose.cases) {
+        const t = c.holdingTorque[dof.id] ?? 0;
+        if (Math.abs(t) > friction) drifting.add(pose.angles[dof.id]!);
+        if (Math.abs(t) > Math.abs(worst)) worst = t;
+      }
+    }
+    if (drifting.size === 0) continue;
+    const runs = subRanges(
+      sweep.poses.map((p) => p.angles[dof.id]!),
+      (v) => drifting.has(v),
+    );
+    const words = runs.map(([a, b]) => (a === b ? formatAngle(a) : `${formatAngle(a)} .. ${formatAngle(b)}`)).join(", ");
+    const turn = worst > 0 ? "clockwise" : "counter-clockwise";
+    ctx.findings.push(
+      finding(
+        "balance.drifts",
+        joint.origin.properties["friction"] ?? joint.origin.name ?? joint.origin.declaration,
+        `Joint ${joint.id} does not hold over ${words}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, so it turns ${turn} on its own.`,
+        { data: { jointId: joint.id, ranges: runs, worstHoldingTorque: worst, friction } },
+      ),
+    );
+  }
+}
+
+function isStage(model: ArmModel, id: string): boolean {
+  return model.parallelograms.some((p) => p.id === id);
+}
+
+function jointReadouts(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  for (const joint of model.joints) {
+    if (!sweep.poses.some((p) => p.jointAngles[joint.id] !== undefined)) continue;
+    const figures: Figure[] = [];
+    const angles = sweep.poses.map((p) => p.jointAngles[joint.id]!);
+    figures.push({ label: "angle range", value: Math.min(...angles), high: Math.max(...angles), dimension: "angle" });
+    const dof = sweep.dofs.find((d) => d.jointId === joint.id);
+    let most: { v: number; pose: Pose; ci: number } | undefined;
+    let least: { v: number; pose: Pose; ci: number } | undefined;
+    let reaction: { v: number; pose: Pose; ci: number } | undefined;
+    let lockedMax: { v: number; pose: Pose; ci: number } | undefined;
+    for (const pose of sweep.poses) {
+      pose.cases.forEach((c, ci) => {
+        if (dof) {
+          const t = c.holdingTorque[dof.id] ?? 0;
+          if (!most || t > most.v) most = { v: t, pose, ci };
+          if (!least || t < least.v) least = { v: t, pose, ci };
+        }
+        const r = c.reactions[joint.id];
+        if (r) {
+          const m = Math.hypot(r.x, r.y);
+          if (!reaction || m > reaction.v) reaction = { v: m, pose, ci };
+        }
+        const lt = c.lockedTorque[joint.id];
+        if (lt !== undefined && (!lockedMax || Math.abs(lt) > Math.abs(lockedMax.v))) lockedMax = { v: lt, pose, ci };
+      });
+    }
+    if (least && most) {
+      figures.push({ label: "holding torque, least", value: least.v, dimension: "torque", where: poseWhere(sweep, least.pose, least.ci) });
+      figures.push({ label: "holding torque, most", value: most.v, dimension: "torque", where: poseWhere(sweep, most.pose, most.ci) });
+    }
+    if (lockedMax) figures.push({ label: "locked torque, largest", value: lockedMax.v, dimension: "torque", where: poseWhere(sweep, lockedMax.pose, lockedMax.ci) });
+    if (reaction) figures.push({ label: "largest reaction", value: reaction.v, dimension: "force", where: poseWhere(sweep, reaction.pose, reaction.ci) });
+    addFigures(ctx.readouts, joint.id, isStage(model, joint.id) ? "parallelogram" : "joint", figures);
+  }
+}
+
+function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | undefined): void {
+  const { model, sweep } = ctx;
+  for (const s of model.springs) {
+    if (!sweep.poses.some((p) => p.springs[s.id])) continue;
+    const figures: Figure[] = [];
+    const notes: string[] = [];
+    if (s.kind !== "torsion") {
+      const lengths = sweep.poses.map((p) => p.springs[s.id]!.length);
+      figures.push({ label: "length range", value: Math.min(...lengths), high: Math.max(...lengths), dimension: "length" });
+    } else {
+      const turns = sweep.poses.map((p) => p.springs[s.id]!.windUp ?? 0);
+      figures.push({ label: "wind-up range", value: Math.min(...turns), high: Math.max(...turns), dimension: "angle" });
+    }
+    const forces = sweep.poses.map((p) => p.cases[0]!.springForce[s.id] ?? 0);
+    figures.push({ label: s.kind === "torsion" ? "torque range" : "force range", value: Math.min(...forces), high: Math.max(...forces), dimension: s.kind === "torsion" ? "torque" : "force" });
+    const ideal = idealZeroLengthRate(model, sweep, s.id);
+    if (ideal) figures.push({ label: "ideal rate (zero free length, k = m g l / (a b))", value: ideal.rate, dimension: "stiffness", where: `about ${ideal.dofId}` });
+    const fit = fitOf(s.id);
+    if (fit) {
+      if (s.kind === "extension" || s.kind === "zero_length") {
+        figures.push({ label: "best-fit rate", value: fit.best[0], dimension: "stiffness" });
+        figures.push({ label: "best-fit initial tension", value: fit.best[1], dimension: "force" });
+      } else if (s.kind === "torsion") {
+        figures.push({ label: "best-fit rate", value: fit.best[0], dimension: "angular_stiffness" });
+        figures.push({ label: "best-fit preload", value: fit.best[1], dimension: "torque" });
+      } else if (s.kind === "gas") figures.push({ label: "best-fit extended force", value: fit.best[0], dimension: "force" });
+      else figures.push({ label: "best-fit cross-section", value: fit.best[0], dimension: "area" });
+      figures.push({ label: "worst hand force now", value: fit.worstHandForceBefore, dimension: "force" });
+      figures.push({ label: "worst hand force with best fit", value: fit.worstHandForceAfter, dimension: "force" });
+      notes.push("Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is (nested golden-section search; the hand force is affine in them where the spring is taut).");
+    }
+    if (s.kind === "elastic") notes.push("Rubber creeps and relaxes under a steady stretch: its force falls over days; check the balance again after the cord has settled.");
+    addFigures(ctx.readouts, s.id, "spring", figures, notes);
+  }
+}
+
+function payloadReadouts(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const ref = sweep.reference;
+  for (const p of model.payloads) {
+    const figures: Figure[] = [];
+    const jac = ref?.payloadJacobian?.[p.id];
+    if (jac) {
+      for (const d of sweep.dofs) {
+        const dp = jac[d.id];
+        // Holding torque its weight causes at the dof: m g (dp/dtheta)_y (virtual work).
+        if (dp) figures.push({ label: `gravity torque about ${d.id}`, value: p.mass * model.gravity * dp.y, dimension: "torque", where: "at the reference pose" });
+      }
+    }
+    let lo: { v: number; pose: Pose; ci: number } | undefined;
+    let hi: { v: number; pose: Pose; ci: number } | undefined;
+    for (const pose of sweep.poses) {
+      pose.cases.forEach((c, ci) => {
+        const v = c.handForce[p.id];
+        if (v === undefined) return;
+        if (!lo || v < lo.v) lo = { v, pose, ci };
+        if (!hi || v > hi.v) hi = { v, pose, ci };
+      });
+    }
+    if (lo && hi) figures.push({ label: "hand force range", value: lo.v, high: hi.v, dimension: "force", where: `most ${poseWhere(sweep, hi.pose, hi.ci)}` });
+    if (figures.length > 0) addFigures(ctx.readouts, p.id, "payload", figures);
+  }
+}

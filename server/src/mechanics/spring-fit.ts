@@ -1,0 +1,275 @@
+// Best-fit spring settings and the ideal zero-free-length rate, from a solved sweep.
+// Where a spring is taut its force is linear in its two design parameters (rate and initial
+// tension, or rate and preload; a gas strut's force, a cord's area), kinematics do not change,
+// and statics are linear: so the hand force at every pose is affine in them and the worst hand
+// force over the range is convex. The minimax is found by nested golden-section search (outer:
+// the first parameter, inner: the second), on an active set of poses grown until it holds the
+// worst pose of the whole sweep (cutting planes), which keeps it cheap on big grids.
+import type { ArmModel, Spring, Vec2 } from "../model/types";
+import type { Pose, SweepResult } from "./types";
+import { springForceBasis, springParameters } from "./forces";
+import { handForceVector } from "./hand-force";
+
+/** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 48 reach
+ * 1e-10 of the bracket, past any digit a quick fix writes. */
+const GOLDEN_ITERATIONS = 48;
+/** Poses seeded into the active set, and added per round. */
+const ACTIVE_SEED = 48;
+const ACTIVE_ADD = 24;
+/** Rounds of active-set growth; the worst pose is usually inside after one or two. */
+const ACTIVE_ROUNDS = 8;
+/** The ideal rate needs the anchor straight above the pivot: within 1 deg (common practice, no
+ * source: a degree of misalignment leaves a residual of about 2 % of the gravity torque). */
+const VERTICAL_TOLERANCE = (1 * Math.PI) / 180;
+/** The gravity torque must follow m g l cos(angle of the hook line) to this fraction (the
+ * centre of mass on the hook line) for the simple geometry to apply. */
+const COSINE_FIT_TOLERANCE = 0.02;
+
+export interface SpringFit {
+  springId: string;
+  names: [string, string | undefined];
+  current: [number, number];
+  best: [number, number];
+  worstHandForceBefore: number;
+  worstHandForceAfter: number;
+}
+
+/** Samples: per pose, case and payload, the hand force now (a), its change per unit of spring
+ * force (b), the spring force now and the basis of the force in the parameters. */
+interface FitSamples {
+  count: number;
+  data: Float64Array; // ax ay bx by force c0 c1 per sample
+}
+
+function springTurnOrLength(model: ArmModel, s: Spring, pose: Pose): number {
+  if (s.kind === "torsion") {
+    const j = model.joints.find((x) => x.id === s.joint);
+    return j ? (pose.jointAngles[j.id] ?? j.angle) - j.angle : 0;
+  }
+  return pose.springs[s.id]?.length ?? NaN;
+}
+
+function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamples {
+  const ndof = sweep.dofs.length;
+  const rows: number[] = [];
+  const jac = new Float64Array(2 * Math.max(ndof, 1));
+  const g = new Float64Array(Math.max(ndof, 1));
+  const basis = new Float64Array(2);
+  for (const pose of sweep.poses) {
+    const perUnit = pose.springTorquePerUnit?.[s.id];
+    if (!perUnit) continue;
+    sweep.dofs.forEach((d, i) => (g[i] = perUnit[d.id] ?? 0));
+    springForceBasis(model, s, springTurnOrLength(model, s, pose), basis);
+    for (const p of model.payloads) {
+      const pj = pose.payloadJacobian?.[p.id];
+      if (!pj) continue;
+      sweep.dofs.forEach((d, i) => {
+        jac[2 * i] = pj[d.id]?.x ?? 0;
+        jac[2 * i + 1] = pj[d.id]?.y ?? 0;
+      });
+      const b = handForceVector(jac, g, ndof);
+      pose.cases.forEach((c) => {
+        const a = c.handForceVector?.[p.id];
+        const force = c.springForce[s.id];
+        if (!a || force === undefined) return;
+        rows.push(a.x, a.y, b.x, b.y, force, basis[0]!, basis[1]!);
+      });
+    }
+  }
+  return { count: rows.length / 7, data: Float64Array.from(rows) };
+}
+
+function handAt(d: Float64Array, i: number, p0: number, p1: number): number {
+  const o = 7 * i;
+  const df = d[o + 5]! * p0 + d[o + 6]! * p1 - d[o + 4]!;
+  return Math.hypot(d[o]! + d[o + 2]! * df, d[o + 1]! + d[o + 3]! * df);
+}
+
+function worstOver(d: Float64Array, idx: ArrayLike<number>, p0: number, p1: number): number {
+  let w = 0;
+  for (let k = 0; k < idx.length; k++) {
+    const v = handAt(d, idx[k]!, p0, p1);
+    if (v > w) w = v;
+  }
+  return w;
+}
+
+function golden(f: (x: number) => number, lo: number, hi: number): number {
+  const r = (Math.sqrt(5) - 1) / 2;
+  let a = lo;
+  let b = hi;
+  let x1 = b - r * (b - a);
+  let x2 = a + r * (b - a);
+  let f1 = f(x1);
+  let f2 = f(x2);
+  for (let i = 0; i < GOLDEN_ITERATIONS; i++) {
+    if (f1 <= f2) {
+      b = x2;
+      x2 = x1;
+      f2 = f1;
+      x1 = b - r * (b - a);
+      f1 = f(x1);
+    } else {
+      a = x1;
+      x1 = x2;
+      f1 = f2;
+      x2 = a + r * (b - a);
+      f2 = f(x2);
+    }
+  }
+  return (a + b) / 2;
+}
+
+/** Least-squares estimate of the parameters (sum of squared hand forces), to bracket the search. */
+function leastSquares(d: Float64Array, count: number, twoParameters: boolean): [number, number] {
+  let uu = 0, uw = 0, ww = 0, ue = 0, we = 0;
+  for (let i = 0; i < count; i++) {
+    const o = 7 * i;
+    const ex = d[o]! - d[o + 2]! * d[o + 4]!;
+    const ey = d[o + 1]! - d[o + 3]! * d[o + 4]!;
+    const ux = d[o + 2]! * d[o + 5]!, uy = d[o + 3]! * d[o + 5]!;
+    const wx = d[o + 2]! * d[o + 6]!, wy = d[o + 3]! * d[o + 6]!;
+    uu += ux * ux + uy * uy;
+    uw += ux * wx + uy * wy;
+    ww += wx * wx + wy * wy;
+    ue += ux * ex + uy * ey;
+    we += wx * ex + wy * ey;
+  }
+  if (!twoParameters || ww === 0) return [uu > 0 ? -ue / uu : 0, 0];
+  const det = uu * ww - uw * uw;
+  if (Math.abs(det) < 1e-14 * uu * ww) return [uu > 0 ? -ue / uu : 0, 0];
+  return [(-ue * ww + we * uw) / det, (-we * uu + ue * uw) / det];
+}
+
+/** The spring settings that minimise the worst hand force over the sweep, all load cases and
+ * payloads. Undefined when the spring moves no payload. */
+export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: string): SpringFit | undefined {
+  const s = model.springs.find((x) => x.id === springId);
+  if (!s) return undefined;
+  const params = springParameters(model, s);
+  const samples = collectSamples(model, sweep, s);
+  if (samples.count === 0) return undefined;
+  const d = samples.data;
+  const count = samples.count;
+  const two = params.names[1] !== undefined;
+  const all = Int32Array.from({ length: count }, (_, i) => i);
+  const [c0, c1] = params.values;
+  const before = worstOver(d, all, c0, c1);
+  const [e0, e1] = leastSquares(d, count, two);
+  const hi0 = 3 * Math.max(Math.abs(e0), Math.abs(c0), 1e-9);
+  const span1 = 3 * Math.max(Math.abs(e1), Math.abs(c1), 1e-9);
+  // Initial tension cannot be negative; a torsion preload can wind either way.
+  const lo1 = s.kind === "torsion" ? -span1 : 0;
+  const hi1 = span1;
+
+  // Active set: the worst poses now, plus an even spread.
+  const order = Array.from(all).sort((i, j) => handAt(d, j, c0, c1) - handAt(d, i, c0, c1));
+  const active = new Set<number>(order.slice(0, ACTIVE_SEED));
+  const stride = Math.max(1, Math.floor(count / ACTIVE_SEED));
+  for (let i = 0; i < count; i += stride) active.add(i);
+  let best: [number, number] = [c0, c1];
+  for (let round = 0; round < ACTIVE_ROUNDS; round++) {
+    const idx = Int32Array.from(active);
+    const inner = (p0: number): number => (two ? golden((p1) => worstOver(d, idx, p0, p1), lo1, hi1) : 0);
+    const p0 = golden((x) => worstOver(d, idx, x, inner(x)), 0, hi0);
+    best = [p0, inner(p0)];
+    const activeWorst = worstOver(d, idx, best[0], best[1]);
+    const fullWorst = worstOver(d, all, best[0], best[1]);
+    if (fullWorst <= activeWorst * (1 + 1e-9) + 1e-12) break;
+    const byNow = Array.from(all).sort((i, j) => handAt(d, j, best[0], best[1]) - handAt(d, i, best[0], best[1]));
+    for (const i of byNow.slice(0, ACTIVE_ADD)) active.add(i);
+  }
+  let after = worstOver(d, all, best[0], best[1]);
+  if (after > before) {
+    best = [c0, c1];
+    after = before;
+  }
+  return { springId, names: params.names, current: [c0, c1], best, worstHandForceBefore: before, worstHandForceAfter: after };
+}
+
+export interface IdealRate {
+  /** k = m g l / (a b), N/m. */
+  rate: number;
+  /** The gravity moment amplitude m g l, N*m. */
+  gravityMoment: number;
+  a: number;
+  b: number;
+  dofId: string;
+}
+
+function rotate(v: Vec2, phi: number): Vec2 {
+  const c = Math.cos(phi);
+  const s = Math.sin(phi);
+  return { x: c * v.x - s * v.y, y: s * v.x + c * v.y };
+}
+
+/** The zero-free-length ideal rate k = m g l / (a b) (Streit and Gilmore 1989), where the simple
+ * geometry holds: one end on a body that does not turn, straight above the pivot of a degree of
+ * freedom, the other on the turning link (or a parallelogram bar), and the gravity torque at that
+ * dof following m g l cos(angle of the hook line). Undefined otherwise. */
+export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springId: string): IdealRate | undefined {
+  const s = model.springs.find((x) => x.id === springId);
+  if (!s || (s.kind !== "extension" && s.kind !== "zero_length")) return undefined;
+  const ref = sweep.reference;
+  if (!ref) return undefined;
+  for (const dof of sweep.dofs) {
+    const joint = model.joints.find((j) => j.id === dof.jointId);
+    if (!joint) continue;
+    // The turning side: the dof's child, or the upper bar of the parallelogram it drives.
+    const stage = model.parallelograms.find((p) => p.joints.lowerRoot === joint.id);
+    const upperRoot = stage ? model.joints.find((j) => j.id === stage.joints.upperRoot) : undefined;
+    const pivots = [
+      { child: joint.child, parentPoint: joint.parentPoint, childPoint: joint.childPoint },
+      ...(upperRoot ? [{ child: upperRoot.child, parentPoint: upperRoot.parentPoint, childPoint: upperRoot.childPoint }] : []),
+    ];
+    for (const pv of pivots) {
+      const ends = [s.a, s.b];
+      const anchor = ends.find((e) => e.body === joint.parent);
+      const hook = ends.find((e) => e.body === pv.child);
+      if (!anchor || !hook || anchor === hook) continue;
+      const parentPose = ref.bodies[joint.parent];
+      if (!parentPose) continue;
+      // The anchor's body must not turn over the sweep.
+      const phis = sweep.poses.map((p) => p.bodies[joint.parent]?.phi ?? 0);
+      if (Math.max(...phis) - Math.min(...phis) > 1e-9) continue;
+      const av = rotate({ x: anchor.point.x - pv.parentPoint.x, y: anchor.point.y - pv.parentPoint.y }, parentPose.phi);
+      const a = Math.hypot(av.x, av.y);
+      if (!(a > 0) || Math.abs(Math.atan2(av.x, av.y)) > VERTICAL_TOLERANCE) continue;
+      const hv = { x: hook.point.x - pv.childPoint.x, y: hook.point.y - pv.childPoint.y };
+      const b = Math.hypot(hv.x, hv.y);
+      if (!(b > 0)) continue;
+      const hookAngle = Math.atan2(hv.y, hv.x);
+      // Gravity torque at the dof alone (springs taken out), over poses with the other dofs
+      // nearest their reference.
+      const others = sweep.dofs.filter((x) => x !== dof);
+      const nearest = new Map(others.map((o) => [o.id, nearestValue(sweep.poses.map((p) => p.angles[o.id]!), o.reference)]));
+      let sc = 0, cc = 0;
+      const pts: { t: number; c: number }[] = [];
+      for (const pose of sweep.poses) {
+        if (others.some((o) => pose.angles[o.id] !== nearest.get(o.id))) continue;
+        const st = pose.cases[0];
+        const child = pose.bodies[pv.child];
+        if (!st || !child) continue;
+        let t = st.holdingTorque[dof.id] ?? 0;
+        for (const sp of model.springs) t -= (pose.springTorquePerUnit?.[sp.id]?.[dof.id] ?? 0) * (st.springForce[sp.id] ?? 0);
+        const c = Math.cos(child.phi + hookAngle);
+        pts.push({ t, c });
+        sc += t * c;
+        cc += c * c;
+      }
+      if (pts.length < 3 || cc === 0) continue;
+      const M = sc / cc;
+      if (!(M > 0)) continue;
+      const rms = Math.sqrt(pts.reduce((acc, p) => acc + (p.t - M * p.c) ** 2, 0) / pts.length);
+      if (rms > COSINE_FIT_TOLERANCE * M) continue;
+      return { rate: M / (a * b), gravityMoment: M, a, b, dofId: dof.id };
+    }
+  }
+  return undefined;
+}
+
+function nearestValue(values: number[], target: number): number {
+  let best = values[0] ?? target;
+  for (const v of values) if (Math.abs(v - target) < Math.abs(best - target)) best = v;
+  return best;
+}
