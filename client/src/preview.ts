@@ -1,5 +1,5 @@
 // The arm preview panel: a webview beside the editor showing the arm of the active .poise file,
-// re-requested from the server whenever that file's diagnostics change (each new analysis), and
+// re-requested from the server whenever that file's diagnostics or text change, and
 // revealing a part's declaration when it is clicked in the drawing.
 import * as vscode from "vscode";
 import type { LanguageClient } from "vscode-languageclient/node";
@@ -89,6 +89,8 @@ export function registerArmPreview(context: vscode.ExtensionContext, client: Lan
       panel.show(target);
     }),
     vscode.languages.onDidChangeDiagnostics((e) => panel.diagnosticsChanged(e.uris)),
+    // Backup for an analysis whose diagnostics did not change: the request waits for the new text.
+    vscode.workspace.onDidChangeTextDocument((e) => e.contentChanges.length && panel.diagnosticsChanged([e.document.uri])),
     vscode.window.onDidChangeActiveTextEditor((e) => panel.follow(e)),
   );
 }

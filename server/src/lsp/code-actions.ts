@@ -184,21 +184,21 @@ export function unknownNameFix(text: string, span: Span, message: string, detail
 // ---- a pin too small ---------------------------------------------------------------------------
 
 /** The pin property of the declaration a strength finding sits in, when the finding is about the pin. */
-function pinOf(tree: SyntaxTree, span: Span, message: string): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
+function pinOf(tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
   const decl = declarationAt(tree, span.start);
   if (!decl) return undefined;
   const prop = propertyOf(decl, "pin") ?? propertyOf(decl, "pins");
   const diameter = prop?.values[0];
   if (!prop || diameter?.kind !== "quantity" || !diameter.unit) return undefined;
   const onPin = span.start >= prop.span.start && span.start < prop.span.end;
-  if (!onPin && !/\bpins?\b/i.test(message)) return undefined;
+  if (!onPin && detail?.["check"] !== "pin" && !/\bpins?\b/i.test(message)) return undefined;
   return { decl, prop, diameter };
 }
 
 function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boolean {
   return analysis.findings.some(
     (f) => f.code === "strength.overstress" && f.span.start >= declSpan.start && f.span.start < declSpan.end &&
-      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) || /\bpins?\b/i.test(f.message)),
+      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) || f.data?.["check"] === "pin" || /\bpins?\b/i.test(f.message)),
   );
 }
 
@@ -208,7 +208,7 @@ function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boole
  * size d sqrt(S_req / S) is a lower bound and the search starts at the first standard size above it.
  */
 export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined, budgetMs = 4000): TextFix | undefined {
-  const pin = pinOf(tree, span, message);
+  const pin = pinOf(tree, span, message, detail);
   if (!pin) return undefined;
   const unit = pin.diameter.unit!.text;
   const d = fromSI(1, unit);
