@@ -38,6 +38,13 @@ describe("formatting", () => {
     );
   });
 
+  it("treats every Unicode space as a space (and always ends)", () => {
+    const spaces = ["\u00a0", "\u1680", "\u2000", "\u2005", "\u200a", "\u2028", "\u2029", "\u202f", "\u205f", "\u3000", "\ufeff", "\t", "\v", "\f"];
+    for (const sp of spaces) {
+      expect(formatSpec(`arm {${sp}base${sp}b${sp}{${sp}mass${sp}2${sp}kg${sp}}${sp}}`)).toBe(["arm {", "  base b {", "    mass 2 kg", "  }", "}", ""].join("\n"));
+    }
+  });
+
   it("keeps own-line comments at the block's indent", () => {
     expect(formatSpec("arm {\n# one\n      # two\nbase b {\n}\n}\n")).toBe(["arm {", "  # one", "  # two", "  base b {", "  }", "}", ""].join("\n"));
   });

@@ -26,7 +26,9 @@ function tokenize(text: string): Tok[] {
       glued = false;
       continue;
     }
-    if (c === " " || c === "\t" || c === "\f" || c === "\v" || c === "\u00a0" || c === "\ufeff") {
+    // Any other white space (tabs, no-break and ideographic spaces, U+2028 ...) separates words;
+    // it must be the same set the word scan below stops at, or the scan would not advance.
+    if (/\s/.test(c)) {
       i++;
       glued = false;
       continue;
@@ -54,7 +56,7 @@ function tokenize(text: string): Tok[] {
       glued = true;
       continue;
     }
-    let j = i;
+    let j = i + 1; // at least one character: the scan always advances
     while (j < text.length && !/[\s{}(),;"#]/.test(text[j]!)) j++;
     // `..` inside a run (`-30deg..45deg`) is the range operator: split it out.
     const run = text.slice(i, j);
