@@ -1,0 +1,112 @@
+// Stiffness and vibration of whole arms through the frame model: a cantilevered link against
+// Roark, a parallelogram stage derived by statics here, Rayleigh's tip-mass frequency.
+import { describe, expect, it } from "vitest";
+import { checkStiffness, representativePoses } from "../../server/src/checks/stiffness";
+import { solveSweep } from "../../server/src/mechanics/sweep";
+import { sectionProperties } from "../../server/src/model/section";
+import { ArmBuilder, deg } from "../mechanics/arm-builder";
+import { armModel, baseBody, G, joint, linkBody, MATERIALS, payload, treeSweep } from "../structure/arm-fixture";
+import { figure, runFamily } from "./check-context";
+
+const E = MATERIALS["aluminium_6061_t6"]!.modulus;
+const tube = { shape: "tube" as const, outerDiameter: 0.02, wall: 0.002 };
+const L = 0.4;
+
+function cantilever(payloadKg: number, linkMass?: number) {
+  const base = baseBody("post", { top: { x: 0, y: 0.3 } });
+  const boom = linkBody("boom", L, tube, "aluminium_6061_t6");
+  if (linkMass !== undefined) Object.assign(boom, { mass: linkMass, massGiven: true });
+  return armModel({ bodies: [base, boom], joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")], payloads: [payload("camera", "boom", { x: L, y: 0 }, payloadKg)] });
+}
+
+describe("cantilevered link with the shoulder held", () => {
+  it("deflection and tilt at the payload (Roark table 8.1 case 1a)", () => {
+    const P = 10;
+    const model = cantilever(P / G, 0);
+    model.require.deflection.default = 0.0005;
+    const ctx = runFamily(checkStiffness, model, treeSweep(model, [{}]));
+    const I = sectionProperties(tube).secondMoment;
+    // Roark 8th ed., table 8.1 case 1a: W l^3 / (3 E I) (worked 0.6677 mm) and W l^2 / (2 E I)
+    // (worked 2.504e-3 rad); the axial shortening is nil for a horizontal link
+    expect(figure(ctx, "camera", "deflection under load")).toBeCloseTo((P * L ** 3) / (3 * E * I), 9);
+    expect(figure(ctx, "camera", "elastic tilt")).toBeCloseTo((P * L ** 2) / (2 * E * I), 8);
+    const f = ctx.findings.find((x) => x.code === "stiffness.deflection")!;
+    expect(f.message).toContain("0.6677 mm");
+    expect(f.span).toEqual(model.bodies[1]!.origin.properties["section"]);
+  });
+
+  it("lowest natural frequency with a tip mass (Rayleigh)", () => {
+    const model = cantilever(0.5);
+    model.require.frequency = 30;
+    const ctx = runFamily(checkStiffness, model, treeSweep(model, [{}]));
+    const I = sectionProperties(tube).secondMoment;
+    const m = model.bodies[1]!.mass;
+    // Rayleigh (Thomson and Dahleh, 5th ed., ch. 2): k = 3 E I / l^3, effective mass M + 33/140 m;
+    // worked 26.78 Hz. Tolerance 1 %: the check meshes each link into only 4 lumped-mass
+    // elements (enough when the tip mass dominates, as here: 0.5 kg against 0.12 kg).
+    const rayleigh = Math.sqrt((3 * E * I) / L ** 3 / (0.5 + (33 / 140) * m)) / (2 * Math.PI);
+    const f = figure(ctx, "camera", "lowest natural frequency of the arm")!;
+    expect(Math.abs(f - rayleigh) / rayleigh).toBeLessThan(0.01);
+    expect(ctx.findings.find((x) => x.code === "stiffness.low-frequency")!.message).toContain("below the 30 Hz required");
+  });
+});
+
+describe("parallelogram stage with its root held", () => {
+  // Statics (derived here): with the lower root locked and every other pivot a pin, the upper bar
+  // is a two-force member along itself, so with level bars it carries no vertical load: the
+  // lower bar is a cantilever with tip load P (Roark case 1a): P L^3 / (3 E I). A payload x_p
+  // beyond the far pivots puts a couple P x_p on the head, taken as equal and opposite bar forces
+  // H = P x_p / s; the bars stretch and shorten by H L / (E A), which turns the head by
+  // psi = 2 H L / (E A s) and lowers the payload by a further psi x_p.
+  const Lb = 0.3;
+  const s = 0.04;
+  const bars = { shape: "rect" as const, depth: 0.02, width: 0.005 };
+  function stage(payloadKg: number, xp: number) {
+    const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.3 } })
+      .parallelogram("reach", "clamp", { x: 0, y: 0.3 }, { length: Lb, spacing: s, angle: 0, range: [deg(-30), deg(30)], barMass: 0, headMass: 0 })
+      .payload("tool", "reach.head", { x: xp, y: 0 }, payloadKg)
+      .sweep(3)
+      .build();
+    for (const b of model.bodies) if (b.kind === "bar") Object.assign(b, { section: bars, material: "aluminium_6061_t6" });
+    Object.assign(model.materials, MATERIALS);
+    return model;
+  }
+
+  it("deflection and tilt at the head", () => {
+    const P = 20;
+    const xp = 0.05;
+    const model = stage(P / G, xp);
+    const sweep = solveSweep(model);
+    const ctx = runFamily(checkStiffness, model, sweep);
+    const sp = sectionProperties(bars);
+    const H = (P * xp) / s;
+    const psi = (2 * H * Lb) / (E * sp.area * s);
+    const down = (P * Lb ** 3) / (3 * E * sp.secondMoment) + psi * xp;
+    const along = (H * Lb) / (E * sp.area);
+    // derived above; the reference pose (bars level) is the first representative pose, and
+    // the ends of the range (bars at -30 and 30 deg) deflect less vertically
+    expect(figure(ctx, "tool", "elastic tilt")).toBeGreaterThan(0);
+    const ref = representativePoses(sweep)[0]!;
+    expect(ref.angles["reach"]).toBeCloseTo(0, 12);
+    const refCtx = runFamily(checkStiffness, model, { ...sweep, poses: [ref], dofs: [] });
+    // relative tolerance 1e-3: the head is modelled 1e4 times stiffer than the bars, not rigid,
+    // and the small head rotation psi feels that at a few parts in 1e4
+    const rel = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
+    expect(rel(figure(refCtx, "tool", "deflection under load")!, Math.hypot(down, along))).toBeLessThan(1e-4);
+    expect(rel(figure(refCtx, "tool", "elastic tilt")!, psi)).toBeLessThan(1e-3);
+  });
+
+  it("a heavy tool on slender bars bounces: stiffness.low-frequency on the bars", () => {
+    const model = stage(2, 0);
+    model.require.frequency = 20;
+    const ctx = runFamily(checkStiffness, model, solveSweep(model));
+    const sp = sectionProperties(bars);
+    // derived above: k = 3 E I / L^3 for the lower bar, f = sqrt(k / m) / (2 pi) with the bars
+    // massless (references.md: mass on a spring)
+    const f = Math.sqrt((3 * E * sp.secondMoment) / Lb ** 3 / 2) / (2 * Math.PI);
+    const got = ctx.findings.find((x) => x.code === "stiffness.low-frequency")!;
+    expect(got.data!["frequency"]).toBeLessThanOrEqual(f * 1.0001);
+    expect(got.data!["frequency"]).toBeGreaterThan(f * 0.9);
+    expect(got.span).toEqual(model.parallelograms[0]!.origin.properties["bars"] ?? model.parallelograms[0]!.origin.name);
+  });
+});
