@@ -2,7 +2,7 @@
 // and every problem a finding at the words that must change. Best effort: whatever can be built
 // is built, so the editor keeps its names even while the text has errors.
 import type { ArmNode, DeclarationNode, SyntaxTree } from "../syntax/ast";
-import { span } from "../syntax/span";
+import { LineIndex, span } from "../syntax/span";
 import type { Finding } from "../checks/finding";
 import { closestWord } from "../units/did-you-mean";
 import { STANDARD_GRAVITY } from "../units/unit-table";
@@ -24,7 +24,7 @@ export interface BuildResult {
 }
 
 export function buildModel(tree: SyntaxTree, text: string): BuildResult {
-  const r = new Reporter(text);
+  const r = new Reporter(text, linesWithSyntaxErrors(tree, text));
   if (tree.arms.length === 0) {
     const first = /\S/.exec(text);
     const at = first ? span(first.index, lineEnd(text, first.index)) : span(0, 0);
@@ -40,6 +40,13 @@ export function buildModel(tree: SyntaxTree, text: string): BuildResult {
   const model = buildArm(ctx, tree.arms[0]!);
   const findings = [...r.findings].sort((a, b) => a.span.start - b.span.start);
   return { model, findings, symbols: ctx.symbols };
+}
+
+/** A line the parser already complained about gets no model finding on top (one typo, one finding). */
+function linesWithSyntaxErrors(tree: SyntaxTree, text: string): Set<number> {
+  if (tree.errors.length === 0) return new Set();
+  const index = new LineIndex(text);
+  return new Set(tree.errors.map((e) => index.position(e.span.start).line));
 }
 
 function lineEnd(text: string, from: number): number {

@@ -1,7 +1,7 @@
 // Reads a property's values by the shape the schema gives it (quantity, range, point, section, ...)
 // and reports, at the exact words, what does not fit. SI out.
 import type { DimsNode, PropertyNode, QuantityNode, ReferenceNode, ValueNode } from "../syntax/ast";
-import { span as makeSpan, type Span } from "../syntax/span";
+import { LineIndex, span as makeSpan, type Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
 import { checkQuantity, parseUnit } from "../units/quantity";
 import { closestWord } from "../units/did-you-mean";
@@ -12,9 +12,18 @@ import type { Section, Vec2 } from "./types";
 /** Collects findings for one build. */
 export class Reporter {
   readonly findings: Finding[] = [];
-  constructor(readonly text: string) {}
+  private readonly index: LineIndex | undefined;
+
+  constructor(
+    readonly text: string,
+    /** Lines that already carry a syntax error: findings there are dropped. */
+    private readonly quietLines: ReadonlySet<number> = new Set(),
+  ) {
+    this.index = quietLines.size > 0 ? new LineIndex(text) : undefined;
+  }
 
   add(code: Code, at: Span, message: string, extra: { related?: RelatedInfo[]; data?: Record<string, unknown> } = {}): void {
+    if (this.index && this.quietLines.has(this.index.position(at.start).line)) return;
     this.findings.push(finding(code, at, message, extra));
   }
 
