@@ -21,8 +21,7 @@ describe("balance quick fix", () => {
     // Exact unit definition: 1 N/mm = 1000 N/m (SI prefixes, SI Brochure 9th ed.).
     const written = Number(/rate ([\d.]+) N\/mm/.exec(edited)![1]);
     expect(written).toBeCloseTo(K_BALANCED / 1000, 3);
-    expect(fix.title).toContain("4.41 N");
-    expect(fix.title).toContain("0.02 N");
+    expect(fix.title).toContain("4.41 N → 0.02 N");
     // A zero-length spring gets no initial tension line (only extension springs take one here).
     expect(edited).not.toContain("initial_tension");
   });

@@ -95,6 +95,12 @@ function num(x: unknown): number | undefined {
   return typeof x === "number" && Number.isFinite(x) ? x : undefined;
 }
 
+/** Hand forces in a title to the hundredth of a newton: finer than anyone feels at the hand, and
+ * a near-perfect fit then reads 0.00 N rather than 4.56e-10 N. */
+function handForceText(n: number): string {
+  return Math.abs(n) < 1000 ? `${n.toFixed(2)} N` : `${formatNumber(n)} N`;
+}
+
 export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string, unknown> | undefined): TextFix | undefined {
   const springId = typeof detail?.["springId"] === "string" ? (detail["springId"] as string) : undefined;
   const rate = num(detail?.["bestRate"]);
@@ -120,7 +126,7 @@ export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string
   }
   const before = num(detail?.["worstHandForceBefore"]);
   const after = num(detail?.["worstHandForceAfter"]);
-  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${formatNumber(before)} N → ${formatNumber(after)} N)` : "";
+  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)})` : "";
   return { title: `Set ${what}${forces}`, edits, preferred: true };
 }
 
