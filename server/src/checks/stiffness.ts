@@ -34,6 +34,17 @@ export function representativePoses(sweep: SweepResult): Pose[] {
   return out;
 }
 
+/** The load case with the largest total payload mass. */
+function heaviestCase(model: ArmModel, sweep: SweepResult): number {
+  let best = 0;
+  let bestMass = -Infinity;
+  sweep.loadCases.forEach((_, ci) => {
+    const m = Object.values(payloadMasses(model, sweep, ci)).reduce((a, b) => a + b, 0);
+    if (m > bestMass) (bestMass = m), (best = ci);
+  });
+  return best;
+}
+
 interface PayloadWorst {
   deflection: number;
   deflectionPose?: Pose;
@@ -58,6 +69,8 @@ export function checkStiffness(ctx: CheckContext): void {
   let lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> } | undefined;
   const energyForDeflection = new Map<string, Map<string, number>>();
   let mechanism: Pose | undefined;
+  // the lowest frequency comes with the heaviest payloads: solve the eigenproblem for that case only
+  const heaviest = heaviestCase(model, sweep);
   for (const pose of poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
@@ -83,7 +96,7 @@ export function checkStiffness(ctx: CheckContext): void {
         if (Math.abs(u.rotation) > w.tilt) Object.assign(w, { tilt: Math.abs(u.rotation), tiltPose: pose, tiltCase: ci });
         worst.set(pid, w);
       }
-      const w2 = af.frame.naturalFrequencies(1)?.[0];
+      const w2 = ci === heaviest ? af.frame.naturalFrequencies(1)?.[0] : undefined;
       if (w2 !== undefined) {
         const f = Math.sqrt(w2) / (2 * Math.PI);
         if (!lowest || f < lowest.f) lowest = { f, pose, ci, energy };

@@ -29,25 +29,25 @@ const END_MATCH_M = 1e-4;
 
 /** Strength against normal stress: printed bodies that bend have layers in tension across the
  * print (orientation unknown), so they use the layer strength. */
-export function normalStrength(material: Material, bends: boolean): { value: number; word: string } {
-  if (material.printed && bends) {
-    const v = material.layerStrength ?? PRINTED_LAYER_SHARE * material.strength;
-    return { value: v, word: `layer strength ${show(v, "pressure")} of printed ${material.id}` };
-  }
-  return { value: material.strength, word: `strength ${show(material.strength, "pressure")} of ${material.id}` };
+export function normalStrength(material: Material, bends: boolean): { value: number; layer: boolean } {
+  if (material.printed && bends) return { value: material.layerStrength ?? PRINTED_LAYER_SHARE * material.strength, layer: true };
+  return { value: material.strength, layer: false };
+}
+
+function strengthWords(material: Material, s: { value: number; layer: boolean }): string {
+  return s.layer ? `layer strength ${show(s.value, "pressure")} of printed ${material.id}` : `strength ${show(s.value, "pressure")} of ${material.id}`;
 }
 
 interface Worst {
   safety: number;
   pose: Pose;
   caseIndex: number;
-  detail: string;
+  /** Words for the message, built only when a finding needs them (formatting is slow). */
+  detail: () => string;
   figure: number;
 }
 
-function keepWorst(prev: Worst | undefined, next: Worst): Worst {
-  return !prev || next.safety < prev.safety ? next : prev;
-}
+const NO_DETAIL = () => "";
 
 function lengthFactor(model: ArmModel, body: Body): number {
   const at = (p: { x: number; y: number }, x: number) => Math.hypot(p.x - x, p.y) < END_MATCH_M;
@@ -101,15 +101,24 @@ export function checkStrength(ctx: CheckContext): void {
         const r = beamStress(localLoads(model, sweep, pose, ci, body), { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) }, body.length, sec);
         const allow = normalStrength(mat, r.bendingShare > 0);
         const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
-        stressWorst.set(body.id, keepWorst(stressWorst.get(body.id), { safety: sf, pose, caseIndex: ci, detail: allow.word, figure: r.stress }));
+        const prevWorst = stressWorst.get(body.id);
+        if (!prevWorst || sf < prevWorst.safety) stressWorst.set(body.id, { safety: sf, pose, caseIndex: ci, detail: () => strengthWords(mat, allow), figure: r.stress });
         const prevLargest = largestStress.get(body.id);
-        if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: "", figure: r.stress });
+        if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: NO_DETAIL, figure: r.stress });
         if (r.compression > 0) {
           const K = lengthFactor(model, body);
           const col = columnCriticalLoad(mat.modulus, sec.area, leastSecondMoment(body.section!), normalStrength(mat, true).value, K * body.length);
           const csf = col.criticalLoad / r.compression;
-          const detail = `compression ${show(r.compression, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`;
-          columnWorst.set(body.id, keepWorst(columnWorst.get(body.id), { safety: csf, pose, caseIndex: ci, detail, figure: r.compression }));
+          const P = r.compression;
+          const prevCol = columnWorst.get(body.id);
+          if (!prevCol || csf < prevCol.safety)
+            columnWorst.set(body.id, {
+              safety: csf,
+              pose,
+              caseIndex: ci,
+              detail: () => `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`,
+              figure: P,
+            });
         }
       }
       for (const j of pinned) {
@@ -117,9 +126,10 @@ export function checkStrength(ctx: CheckContext): void {
         if (!reaction) continue;
         const F = Math.hypot(reaction.x, reaction.y);
         const prevR = reactionMax.get(j.id);
-        if (!prevR || F > prevR.figure) reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: "", figure: F });
+        if (!prevR || F > prevR.figure) reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F });
         const pw = pinSafety(model, j, F);
-        pinWorst.set(j.id, keepWorst(pinWorst.get(j.id), { ...pw, pose, caseIndex: ci, figure: F }));
+        const prevPin = pinWorst.get(j.id);
+        if (!prevPin || pw.safety < prevPin.safety) pinWorst.set(j.id, { ...pw, pose, caseIndex: ci, figure: F });
       }
     }
   }
@@ -128,15 +138,14 @@ export function checkStrength(ctx: CheckContext): void {
 }
 
 /** Least of the pin's shear safety and the bearing safety of each hole it passes through. */
-export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: number; detail: string } {
+export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: number; detail: () => string } {
   const pin = j.pin!;
   const pinMat = model.materials[pin.material]!;
   const tau = pinShearStress(force, pin.diameter, pin.shearPlanes);
   const shearAllow = shearYieldStrength(pinMat.strength);
   let safety = tau > 0 ? shearAllow / tau : Infinity;
-  let detail = `${pin.shearPlanes === 2 ? "double" : "single"}-shear stress ${show(tau, "pressure")} against ${show(shearAllow, "pressure")}`;
-  for (const id of [j.parent, j.child]) {
-    const b = model.bodies.find((bb) => bb.id === id);
+  let detail = () => `${pin.shearPlanes === 2 ? "double" : "single"}-shear stress ${show(tau, "pressure")} against ${show(shearAllow, "pressure")}`;
+  for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
     if (!b || b.kind === "base") continue;
     const t = b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined);
     const bm = b.material ? model.materials[b.material] : undefined;
@@ -146,10 +155,14 @@ export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: n
     const sf = sigma > 0 ? allow / sigma : Infinity;
     if (sf < safety) {
       safety = sf;
-      detail = `bearing stress ${show(sigma, "pressure")} in the ${show(t, "length")} wall of ${bodyWord(b)} against ${show(allow, "pressure")}`;
+      detail = () => `bearing stress ${show(sigma, "pressure")} in the ${show(t, "length")} wall of ${bodyWord(b)} against ${show(allow, "pressure")}`;
     }
   }
   return { safety, detail };
+}
+
+function bodyOf(model: ArmModel, id: string): Body | undefined {
+  return model.bodies.find((b) => b.id === id);
 }
 
 function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string, Worst>, columnWorst: Map<string, Worst>, largest: Map<string, Worst>): void {
@@ -175,8 +188,8 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
       if (w.safety < need) {
         const msg =
           what === "stress"
-            ? `${bodyWord(body)}: largest stress ${show(w.figure, "pressure")} against the ${w.detail}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`
-            : `${bodyWord(body)}: ${w.detail}: buckling safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`;
+            ? `${bodyWord(body)}: largest stress ${show(w.figure, "pressure")} against the ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`
+            : `${bodyWord(body)}: ${w.detail()}: buckling safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`;
         ctx.findings.push(
           finding("strength.overstress", sectionSpan(model, body), msg, {
             related: model.payloads.filter((p) => p.body === body.id).map((p) => ({ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id} loads it` })),
@@ -214,7 +227,7 @@ function reportPins(ctx: CheckContext, pinned: Joint[], pinWorst: Map<string, Wo
         finding(
           "strength.overstress",
           pinSpan(model, j),
-          `pin of joint ${j.id}: ${w.detail}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (reaction ${show(w.figure, "force")} ${where})`,
+          `pin of joint ${j.id}: ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (reaction ${show(w.figure, "force")} ${where})`,
           { related, data: { part: j.id, check: "pin", safety: w.safety, required: need } },
         ),
       );

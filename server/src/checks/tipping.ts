@@ -60,9 +60,10 @@ export function checkTipping(ctx: CheckContext): void {
   const baseBody = model.bodies.find((b) => b.id === base.bodyId);
   if (!baseBody) return;
   let worst: { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string } | undefined;
-  let thrust = { value: 0, where: "" };
-  let moment = { value: 0, where: "" };
-  let radial = { value: 0, where: "" };
+  type Peak = { value: number; pose?: Pose; ci: number };
+  let thrust: Peak = { value: 0, ci: 0 };
+  let moment: Peak = { value: 0, ci: 0 };
+  let radial: Peak = { value: 0, ci: 0 };
   const edges = base.footprint
     ? base.yaw
       ? [
@@ -75,14 +76,13 @@ export function checkTipping(ctx: CheckContext): void {
     if (pastDeadline(ctx.options.deadline)) break;
     for (let ci = 0; ci < pose.cases.length; ci++) {
       const loads = armLoads(model, pose, payloadMasses(model, sweep, ci));
-      const where = describePose(sweep, pose, ci);
       const fy = loads.reduce((s, l) => s + l.fy, 0);
       const fx = loads.reduce((s, l) => s + l.fx, 0);
       // moment about the base's origin (the bearing's centre): the edge at 0
       const m0 = Math.abs(overturningMoment(loads, 0, 1, 0));
-      if (-fy > thrust.value) thrust = { value: -fy, where };
-      if (m0 > moment.value) moment = { value: m0, where };
-      if (Math.abs(fx) > radial.value) radial = { value: Math.abs(fx), where };
+      if (-fy > thrust.value) thrust = { value: -fy, pose, ci };
+      if (m0 > moment.value) moment = { value: m0, pose, ci };
+      if (Math.abs(fx) > radial.value) radial = { value: Math.abs(fx), pose, ci };
       for (const e of edges) {
         for (const sign of [1, -1] as const) {
           const over = overturningMoment(loads, e.edge, sign, base.surface);
@@ -93,10 +93,11 @@ export function checkTipping(ctx: CheckContext): void {
       }
     }
   }
+  const at = (p: Peak) => (p.pose ? describePose(sweep, p.pose, p.ci) : "");
   addFigures(ctx.readouts, base.bodyId, "base", [
-    { label: "vertical thrust on the base", value: thrust.value, dimension: "force", where: thrust.where },
-    { label: "overturning moment at the base", value: moment.value, dimension: "torque", where: moment.where },
-    { label: "radial load on the base", value: radial.value, dimension: "force", where: radial.where },
+    { label: "vertical thrust on the base", value: thrust.value, dimension: "force", where: at(thrust) },
+    { label: "overturning moment at the base", value: moment.value, dimension: "torque", where: at(moment) },
+    { label: "radial load on the base", value: radial.value, dimension: "force", where: at(radial) },
   ]);
   if (!base.footprint) {
     addFigures(ctx.readouts, base.bodyId, "base", [], ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."]);

@@ -150,36 +150,33 @@ export class PlaneFrame {
     return { eq, count };
   }
 
-  /** 6 x 6 global stiffness of an element (McGuire et al., eq. 4.34 transformed by eq. 5.9). */
+  /** 6 x 6 global stiffness of an element: the local Bernoulli frame matrix (McGuire et al.,
+   * eq. 4.34) turned into global axes (eq. 5.9), written out term by term. */
   elementStiffness(e: FrameElement): Float64Array {
     const dx = this.x[e.j]! - this.x[e.i]!;
     const dy = this.y[e.j]! - this.y[e.i]!;
     const L = Math.hypot(dx, dy);
     const c = dx / L;
     const s = dy / L;
-    const a = e.axialRigidity / L;
-    const b12 = (12 * e.flexuralRigidity) / L ** 3;
-    const b6 = (6 * e.flexuralRigidity) / L ** 2;
-    const b4 = (4 * e.flexuralRigidity) / L;
-    const b2 = (2 * e.flexuralRigidity) / L;
-    // local stiffness, dofs (u1, v1, r1, u2, v2, r2)
-    const kl = [
-      [a, 0, 0, -a, 0, 0],
-      [0, b12, b6, 0, -b12, b6],
-      [0, b6, b4, 0, -b6, b2],
-      [-a, 0, 0, a, 0, 0],
-      [0, -b12, -b6, 0, b12, -b6],
-      [0, b6, b2, 0, -b6, b4],
-    ];
-    const t = rotation(c, s);
-    const k = new Float64Array(36);
-    for (let p = 0; p < 6; p++)
-      for (let q = 0; q < 6; q++) {
-        let sum = 0;
-        for (let r = 0; r < 6; r++) for (let u = 0; u < 6; u++) sum += t[r]![p]! * kl[r]![u]! * t[u]![q]!;
-        k[p * 6 + q] = sum;
-      }
-    return k;
+    const A = e.axialRigidity / L;
+    const B = (12 * e.flexuralRigidity) / L ** 3;
+    const C = (6 * e.flexuralRigidity) / L ** 2;
+    const D = (4 * e.flexuralRigidity) / L;
+    const Dh = (2 * e.flexuralRigidity) / L;
+    const k11 = A * c * c + B * s * s;
+    const k12 = (A - B) * c * s;
+    const k13 = -C * s;
+    const k22 = A * s * s + B * c * c;
+    const k23 = C * c;
+    // prettier-ignore
+    return Float64Array.of(
+      k11, k12, k13, -k11, -k12, k13,
+      k12, k22, k23, -k12, -k22, k23,
+      k13, k23, D, -k13, -k23, Dh,
+      -k11, -k12, -k13, k11, k12, -k13,
+      -k12, -k22, -k23, k12, k22, -k23,
+      k13, k23, Dh, -k13, -k23, D,
+    );
   }
 
   private assemble(eq: Int32Array, n: number): Float64Array {
@@ -262,17 +259,6 @@ export class PlaneFrame {
     if (!(values[0]! > 0)) return undefined;
     return Array.from(values.slice(0, count));
   }
-}
-
-function rotation(c: number, s: number): number[][] {
-  return [
-    [c, s, 0, 0, 0, 0],
-    [-s, c, 0, 0, 0, 0],
-    [0, 0, 1, 0, 0, 0],
-    [0, 0, 0, c, s, 0],
-    [0, 0, 0, -s, c, 0],
-    [0, 0, 0, 0, 0, 1],
-  ];
 }
 
 export class FrameSolution {
