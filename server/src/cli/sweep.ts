@@ -6,12 +6,13 @@ import { readSpec, type Output } from "./io";
 
 const RAD_TO_DEG = 180 / Math.PI;
 const M_TO_MM = 1000;
-/** Digits kept in the table: well past the model's accuracy, short enough to read. */
-const SIGNIFICANT = 6;
+/** Decimals kept in the table (0.0001 mm, deg, N, N*m): well past the model's accuracy, and
+ * solver round-off such as 1e-17 mm reads as 0. Common practice, no source. */
+const DECIMALS = 1e4;
 
 function round(v: number): number | null {
   if (!Number.isFinite(v)) return null;
-  const r = Number(v.toPrecision(SIGNIFICANT));
+  const r = Math.round(v * DECIMALS) / DECIMALS;
   return Object.is(r, -0) ? 0 : r;
 }
 

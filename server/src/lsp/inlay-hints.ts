@@ -4,6 +4,14 @@ import { InlayHintKind, type InlayHint } from "vscode-languageserver";
 import { formatNumber, formatQuantity } from "../units/format";
 import type { ServerFeature } from "./context";
 import { guarded } from "./safe";
+import type { Figure, PartReadout } from "../checks/readout";
+
+/** The figure most worth a glance for a part without a safety factor: a payload's hand force, a
+ * spring's force, else the first the checks give. */
+function keyFigure(readout: PartReadout): Figure | undefined {
+  const preferred = readout.kind === "payload" ? /hand force/i : readout.kind === "spring" ? /force/i : undefined;
+  return (preferred && readout.figures.find((f) => preferred.test(f.label))) || readout.figures[0];
+}
 
 export const inlayHintsFeature: ServerFeature = {
   name: "inlay hints",
@@ -24,9 +32,12 @@ export const inlayHintsFeature: ServerFeature = {
           if (!readout) continue;
           let label: string | undefined;
           if (readout.worstSafety) label = `safety ${formatNumber(readout.worstSafety.value)}`;
-          else if (readout.figures[0]) {
-            const fig = readout.figures[0];
-            label = `${fig.label} ${formatQuantity(fig.high ?? fig.value, fig.dimension, system)}`;
+          else {
+            const fig = keyFigure(readout);
+            if (fig) {
+              const low = formatQuantity(fig.value, fig.dimension, system);
+              label = `${fig.label} ${fig.high !== undefined ? `${low} .. ${formatQuantity(fig.high, fig.dimension, system)}` : low}`;
+            }
           }
           if (!label) continue;
           // After the opening brace of the declaration (end of its first line).

@@ -10,7 +10,7 @@ import {
   type ServerCapabilities,
 } from "vscode-languageserver";
 import { TextDocument } from "vscode-languageserver-textdocument";
-import type { Analysis } from "../analysis";
+import { BUILTIN_MATERIAL_IDS } from "../model/materials";
 import { findingsToDiagnostics } from "./convert";
 import type { FeatureContext } from "./context";
 import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type ReanalyseParams } from "./custom-protocol";
@@ -21,7 +21,6 @@ import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
 import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
 import { specSummary } from "./summary";
 import { SyntaxViews, specSweepSteps } from "./syntax-view";
-import { parse } from "../syntax/parser";
 
 export const SERVER_NAME = "counterpoise";
 export const SERVER_VERSION = "0.1.0";
@@ -38,19 +37,9 @@ export function startServer(connection: Connection): void {
     createRunner(log),
     () => settings,
     (result) => attempt("publishing diagnostics", () => publish(result)),
-    (text) => {
-      try {
-        return specSweepSteps(parse(text));
-      } catch {
-        return undefined;
-      }
-    },
+    specSweepSteps,
   );
 
-  const builtinMaterials = (analysis: Analysis | undefined): string[] =>
-    Object.values(analysis?.model?.materials ?? {})
-      .filter((m) => m.builtin)
-      .map((m) => m.id);
 
   const ctx: FeatureContext = {
     connection,
@@ -60,7 +49,7 @@ export function startServer(connection: Connection): void {
     client: () => client,
     syntax: (uri) => {
       const doc = documents.get(uri);
-      return doc ? views.view(doc, builtinMaterials(scheduler.latest(uri))) : undefined;
+      return doc ? views.view(doc, BUILTIN_MATERIAL_IDS, scheduler.current(uri)) : undefined;
     },
     figures: (uri) => scheduler.latest(uri),
     log,

@@ -44,7 +44,9 @@ export function specSummary(uri: string, version: number, analysis: Analysis, se
     tips.push(`Worst hand force: ${shown} at ${hand.payload} (limit ${formatQuantity(limit, "force", settings.displayUnits)})`);
   }
   if (safety) {
-    const limit = model?.require.safety ?? REQUIREMENT_DEFAULTS.safety;
+    // Tipping has its own requirement; every other safety factor answers to `require safety`.
+    const tipping = /tipping/i.test(safety.what);
+    const limit = tipping ? (model?.require.tipping ?? REQUIREMENT_DEFAULTS.tipping) : (model?.require.safety ?? REQUIREMENT_DEFAULTS.safety);
     summary.worstSafety = { ...safety, limit };
     parts.push(`safety ${formatNumber(safety.value)}`);
     tips.push(`Least safety factor: ${formatNumber(safety.value)} (${safety.part}, ${safety.what}; required ${formatNumber(limit)})`);

@@ -21,15 +21,19 @@ const EMPTY_TREE: SyntaxTree = { arms: [], comments: [], errors: [] };
 export class SyntaxViews {
   private readonly cache = new Map<string, { view: SyntaxView; materialsKey: string }>();
 
-  /** `builtinMaterials` come from the last model (the library is in the core, not here). */
-  view(doc: TextDocument, builtinMaterials: readonly string[]): SyntaxView {
+  /** `builtinMaterials` come from the last model (the library is in the core, not here);
+   * `analysed` is the current analysis, whose tree serves when it is of this very text (a large
+   * spec then is not parsed twice). */
+  view(doc: TextDocument, builtinMaterials: readonly string[], analysed?: { text: string; tree: SyntaxTree }): SyntaxView {
     const key = builtinMaterials.join(",");
     const hit = this.cache.get(doc.uri);
     if (hit && hit.view.version === doc.version && hit.materialsKey === key) return hit.view;
     const text = doc.getText();
     let tree: SyntaxTree;
     try {
-      tree = hit && hit.view.version === doc.version ? hit.view.tree : parse(text);
+      if (hit && hit.view.version === doc.version) tree = hit.view.tree;
+      else if (analysed && analysed.text === text) tree = analysed.tree;
+      else tree = parse(text);
     } catch {
       tree = EMPTY_TREE; // parsing never fails by contract; this guards a broken parser
     }
@@ -43,14 +47,8 @@ export class SyntaxViews {
   }
 }
 
-/** The spec's own `sweep steps`, if written as a plain number. */
-export function specSweepSteps(tree: SyntaxTree): number | undefined {
-  for (const decl of tree.arms[0]?.declarations ?? []) {
-    if (decl.keyword.text !== "sweep") continue;
-    for (const p of decl.properties) {
-      const v = p.values[0];
-      if (p.key.text === "steps" && v?.kind === "quantity") return v.value;
-    }
-  }
-  return undefined;
+/** The spec's own `sweep steps`, read lexically (no parse on the keystroke path). */
+export function specSweepSteps(text: string): number | undefined {
+  const m = /(?:^|[\n;{}])\s*sweep\s*\{[^}]*?(?:^|[\n;{])\s*steps\s+(\d+)/m.exec(text);
+  return m ? Number(m[1]) : undefined;
 }
