@@ -2,46 +2,22 @@
 // content-security policy, the real bundled page script, a stand-in for the editor's webview API,
 // and a hand-built analysis (test/view/pendulum-fixture.ts). Screenshots go to test-artifacts/.
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
-import { build } from "esbuild";
-import { readFileSync } from "node:fs";
 import type { Page } from "playwright-core";
-import { previewHtml } from "../../client/src/preview-html";
 import { buildViewModel } from "../../server/src/view/build-view-model";
 import type { ViewModel } from "../../server/src/view/view-model";
-import { ARTIFACTS, openBrowser, type Browser } from "./browser";
+import { ARTIFACTS, type Browser } from "./browser";
+import { openPreview } from "./preview-harness";
 import { pendulumAnalysis } from "./pendulum-fixture";
-
-const ORIGIN = "http://preview.test";
-const NONCE = "testnonce0123456789abcdefghijklmn";
-
-async function pageScript(): Promise<string> {
-  const out = await build({ entryPoints: ["client/media/preview-page.ts"], bundle: true, write: false, platform: "browser", format: "iife", target: "es2020", logLevel: "silent" });
-  return out.outputFiles[0]!.text;
-}
 
 let browser: Browser;
 let page: Page;
 const vm: ViewModel = buildViewModel(pendulumAnalysis());
 
 beforeAll(async () => {
-  const html = previewHtml({ cspSource: ORIGIN, nonce: NONCE, scriptUri: `${ORIGIN}/dist/preview-page.js`, styleUri: `${ORIGIN}/media/preview.css` });
-  browser = await openBrowser({
-    [`${ORIGIN}/index.html`]: { body: html, contentType: "text/html" },
-    [`${ORIGIN}/dist/preview-page.js`]: { body: await pageScript(), contentType: "text/javascript" },
-    [`${ORIGIN}/media/preview.css`]: { body: readFileSync("client/media/preview.css"), contentType: "text/css" },
-  });
-  page = await browser.context.newPage();
-  // Runs in the page (as text: the test's own type-check has no DOM library).
-  await page.addInitScript({
-    content: `
-      window.__sent = [];
-      window.__violations = [];
-      document.addEventListener("securitypolicyviolation", (e) => window.__violations.push(e.violatedDirective + " " + e.blockedURI));
-      window.acquireVsCodeApi = () => ({ postMessage: (m) => window.__sent.push(m), getState: () => undefined, setState: () => undefined });`,
-  });
-  await page.goto(`${ORIGIN}/index.html`);
-  await page.waitForFunction("window.__sent.some((m) => m.type === 'ready')");
-  await page.evaluate(`window.postMessage({ type: "view", model: ${JSON.stringify(vm)}, uri: "file:///work/pendulum.poise" }, "*")`);
+  const preview = await openPreview();
+  browser = preview.browser;
+  page = preview.page;
+  await preview.show(vm, "file:///work/pendulum.poise");
   await page.waitForSelector("svg.arm-drawing");
 }, 60000);
 

@@ -198,7 +198,9 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
     const y = Y(at[1]) - 10 * f.u - 15 * f.u * k++;
     out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
     out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
-    out += `<text x="${c2(x + 9 * f.u)}" y="${c2(y + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
+    // Near the right edge the words go to the left of the mark, so they stay in the frame.
+    const leftward = x > vm.bounds[0] + 0.6 * (vm.bounds[2] - vm.bounds[0]);
+    out += `<text x="${c2(leftward ? x - 9 * f.u : x + 9 * f.u)}" y="${c2(y + 4 * f.u)}"${leftward ? ` text-anchor="end"` : ""} font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
   }
   return out + "</g>";
 }

@@ -25,6 +25,25 @@ export interface PlotSpec {
 }
 
 const PAD = { left: 54, right: 12, top: 26, bottom: 38 };
+/** Legend rows sit under the title; one row is this tall, px. */
+const LEGEND_ROW = 14;
+
+/** Legend entries laid out in rows under the title, wrapping at the plot's width. */
+function legendLayout(series: readonly PlotSeries[], width: number): { x: number; row: number }[] {
+  const out: { x: number; row: number }[] = [];
+  let x = PAD.left;
+  let row = 0;
+  for (const s of series) {
+    const w = 22 + s.name.length * 5.6;
+    if (x + w > width - PAD.right && x > PAD.left) {
+      x = PAD.left;
+      row++;
+    }
+    out.push({ x, row });
+    x += w + 10;
+  }
+  return out;
+}
 
 /** Tick step of 1, 2 or 5 times a power of ten giving about `count` ticks. */
 function tickStep(span: number, count: number): number {
@@ -53,8 +72,10 @@ export function renderPlotSvg(spec: PlotSpec): string {
   if (y1 - y0 < 1e-9) { y0 -= 1; y1 += 1; }
   const pad = (y1 - y0) * 0.06;
   y0 -= pad; y1 += pad;
+  const legend = legendLayout(spec.series, W);
+  const top = PAD.top + LEGEND_ROW * (legend.length ? Math.max(...legend.map((l) => l.row)) + 1 : 0);
   const sx = (x: number) => PAD.left + ((x - x0) / (x1 - x0)) * (W - PAD.left - PAD.right);
-  const sy = (y: number) => H - PAD.bottom - ((y - y0) / (y1 - y0)) * (H - PAD.top - PAD.bottom);
+  const sy = (y: number) => H - PAD.bottom - ((y - y0) / (y1 - y0)) * (H - top - PAD.bottom);
   let out = `<svg xmlns="http://www.w3.org/2000/svg" class="plot" data-plot="${esc(spec.id)}" viewBox="0 0 ${W} ${H}" width="${W}" height="${H}" role="img" aria-label="${esc(spec.title)}">`;
   out += `<rect x="0" y="0" width="${W}" height="${H}" fill="${PALETTE.paper}"/>`;
   out += `<text x="${PAD.left}" y="16" font-size="12" font-weight="bold" font-family="sans-serif" fill="${PALETTE.ink}">${esc(spec.title)}</text>`;
@@ -67,7 +88,7 @@ export function renderPlotSvg(spec: PlotSpec): string {
   }
   const xs = tickStep(x1 - x0, 6);
   for (let t = Math.ceil(x0 / xs) * xs; t <= x1 + 1e-9; t += xs) {
-    out += `<line x1="${c2(sx(t))}" y1="${PAD.top}" x2="${c2(sx(t))}" y2="${H - PAD.bottom}" stroke="${PALETTE.grid}"/>`;
+    out += `<line x1="${c2(sx(t))}" y1="${top}" x2="${c2(sx(t))}" y2="${H - PAD.bottom}" stroke="${PALETTE.grid}"/>`;
     out += `<text x="${c2(sx(t))}" y="${H - PAD.bottom + 14}" text-anchor="middle" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${tickLabel(t, xs)}</text>`;
   }
   const ys = tickStep(y1 - y0, 5);
@@ -77,7 +98,7 @@ export function renderPlotSvg(spec: PlotSpec): string {
     out += `<text x="${PAD.left - 5}" y="${c2(sy(v) + 3)}" text-anchor="end" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${tickLabel(v, ys)}</text>`;
   }
   out += `<text x="${c2((PAD.left + W - PAD.right) / 2)}" y="${H - 6}" text-anchor="middle" font-size="11" font-family="sans-serif" fill="${PALETTE.ink}">${esc(spec.xLabel)}</text>`;
-  out += `<text x="12" y="${c2((PAD.top + H - PAD.bottom) / 2)}" text-anchor="middle" font-size="11" font-family="sans-serif" fill="${PALETTE.ink}" transform="rotate(-90 12 ${c2((PAD.top + H - PAD.bottom) / 2)})">${esc(spec.yLabel)}</text>`;
+  out += `<text x="12" y="${c2((top + H - PAD.bottom) / 2)}" text-anchor="middle" font-size="11" font-family="sans-serif" fill="${PALETTE.ink}" transform="rotate(-90 12 ${c2((top + H - PAD.bottom) / 2)})">${esc(spec.yLabel)}</text>`;
   for (const s of spec.series) {
     // Break the line where a value is missing (NaN) rather than bridging the gap.
     const segments: [number, number][][] = [[]];
@@ -91,15 +112,13 @@ export function renderPlotSvg(spec: PlotSpec): string {
     }
   }
   if (spec.markerX !== undefined && Number.isFinite(spec.markerX)) {
-    out += `<line class="marker" x1="${c2(sx(spec.markerX))}" y1="${PAD.top}" x2="${c2(sx(spec.markerX))}" y2="${H - PAD.bottom}" stroke="${PALETTE.error}" stroke-width="1.2"/>`;
+    out += `<line class="marker" x1="${c2(sx(spec.markerX))}" y1="${top}" x2="${c2(sx(spec.markerX))}" y2="${H - PAD.bottom}" stroke="${PALETTE.error}" stroke-width="1.2"/>`;
   }
-  // Legend along the top right.
-  let lx = W - PAD.right;
-  for (const s of [...spec.series].reverse()) {
-    const width = 18 + s.name.length * 6;
-    lx -= width + 8;
-    out += `<line x1="${c2(lx)}" y1="12" x2="${c2(lx + 14)}" y2="12" stroke="${s.colour}" stroke-width="2"${s.dashed ? ` stroke-dasharray="4 2"` : ""}/>`;
-    out += `<text x="${c2(lx + 17)}" y="15" font-size="10" font-family="sans-serif" fill="${PALETTE.ink}">${esc(s.name)}</text>`;
-  }
+  spec.series.forEach((s, i) => {
+    const { x, row } = legend[i]!;
+    const y = 30 + row * LEGEND_ROW;
+    out += `<line x1="${c2(x)}" y1="${y - 3}" x2="${c2(x + 16)}" y2="${y - 3}" stroke="${s.colour}" stroke-width="2"${s.dashed ? ` stroke-dasharray="4 2"` : ""}/>`;
+    out += `<text x="${c2(x + 20)}" y="${y}" font-size="10" font-family="sans-serif" fill="${PALETTE.ink}">${esc(s.name)}</text>`;
+  });
   return out + "</svg>";
 }
