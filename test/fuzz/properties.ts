@@ -21,6 +21,8 @@ export const FUZZ_STEPS = 3;
 export const SLOW_CASE_MS = 4000;
 
 export interface Violation {
+  /** What makes two failures the same bug (defaults to the message without numbers). */
+  key?: string;
   property: "no-throw" | "no-internal-fault" | "span-in-document" | "deterministic" | "finite-figures" | "finite-model" | "well-formed-finding" | "fast";
   message: string;
 }
@@ -133,13 +135,13 @@ function checkFiniteResults(a: Analysis, violations: Violation[]): void {
     a.sweep.poses.forEach((p, i) => checkPose(p, torsion, `sweep.poses[${i}]`, out));
     for (const d of a.sweep.dofs) for (const v of [...d.range, d.reference]) finiteOr(v, `sweep.dofs.${d.id}`, out);
   }
-  if (out.length) violations.push({ property: "finite-figures", message: out.slice(0, 5).join("; ") });
+  if (out.length) violations.push({ property: "finite-figures", message: out.slice(0, 5).join("; "), key: out.map(genericPath).sort()[0]! });
 
   // The solver is only ever fed a model whose numbers are all finite.
   if (a.sweep && a.model) {
     const bad: string[] = [];
     nonFiniteNumbers(a.model, "model", bad);
-    if (bad.length) violations.push({ property: "finite-model", message: `solved a model with ${bad.slice(0, 5).join("; ")}` });
+    if (bad.length) violations.push({ property: "finite-model", message: `solved a model with ${bad.slice(0, 5).join("; ")}`, key: genericPath(bad[0]!) });
   }
 }
 
@@ -166,7 +168,18 @@ function internalStack(text: string): string {
   }
 }
 
+/** A figure's path with the part names and indices taken out: `readouts.stand.tipping safety
+ * factor = Infinity` and `readouts.foot.tipping safety factor = -Infinity` are one bug. */
+function genericPath(entry: string): string {
+  const path = entry.split(" = ")[0]!;
+  const parts = path.replace(/\[\d+\]/g, "[]").split(".");
+  if (parts[0] === "readouts") return `readouts.*.${parts.slice(2).join(".")}`;
+  if (parts[0] === "sweep") return parts.filter((p, i) => !(i > 0 && /^(angles|jointAngles|bodies|springs|holdingTorque|handForce|lockedTorque|springForce|reactions|dofs)$/.test(parts[i - 1]!))).join(".");
+  return parts.filter((p) => !/^[a-z]+_\d+$|^[a-z]+_[a-z]+$/.test(p)).join(".");
+}
+
 /** A failure's signature, for deduplication: the property and the message without numbers. */
 export function signature(v: Violation): string {
+  if (v.key) return `${v.property}:${v.key}`;
   return `${v.property}:${v.message.split("\n")[0]!.replace(/-?\d[\d.e+-]*/g, "#").replace(/"[^"]*"/g, '"…"').slice(0, 160)}`;
 }

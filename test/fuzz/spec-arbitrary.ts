@@ -51,8 +51,7 @@ function quantityArb(min: number, max: number): fc.Arbitrary<QuantityGen> {
 function formatNumber(v: number, form: number): string {
   if (form === 2 && v !== 0) return v.toExponential(3);
   if (form === 1) return v.toPrecision(4);
-  const r = Math.round(v * 1000) / 1000;
-  return String(r);
+  return String(Number(v.toPrecision(6)));
 }
 
 function q(dim: UnitDimension, g: QuantityGen): string {
@@ -78,7 +77,8 @@ const materialNameArb = fc.oneof(
   { weight: 1, arbitrary: fc.constant("own") }, // the arm's own material, declared when used
 );
 
-const modeArb = fc.constantFrom("range", "range", "fixed", "passive") as fc.Arbitrary<"range" | "fixed" | "passive">;
+// Mostly held joints; a passive one outside any loop (a model error) now and then.
+const modeArb = fc.oneof({ weight: 6, arbitrary: fc.constant("range" as const) }, { weight: 3, arbitrary: fc.constant("fixed" as const) }, { weight: 1, arbitrary: fc.constant("passive" as const) });
 
 const linkStageArb = fc.record({
   kind: fc.constant("link" as const),
@@ -98,9 +98,11 @@ const linkStageArb = fc.record({
 
 const parallelogramStageArb = fc.record({
   kind: fc.constant("parallelogram" as const),
-  length: quantityArb(50, 500),
-  spacing: quantityArb(10, 80),
-  upperLength: fc.option(quantityArb(50, 500), { nil: undefined }),
+  // Spacing stays below the bars' length in any unit, or the stage is impossible.
+  length: quantityArb(100, 500),
+  spacing: quantityArb(10, 60),
+  /** Upper bar length as a ratio of the lower's: a slightly unequal stage closes with a tilt. */
+  upperRatio: fc.option(fc.double({ min: 0.98, max: 1.02, noNaN: true }), { nil: undefined }),
   angle: quantityArb(-60, 60),
   rangeLow: quantityArb(-60, 0),
   rangeHigh: quantityArb(0, 60),
@@ -134,7 +136,7 @@ const springArb = fc.oneof(
   fc.record({ kind: fc.constant("extension" as const), a: attachArb, b: attachArb, coil: fc.boolean(), rate: quantityArb(0.05, 5), free: quantityArb(10, 150), tension: fc.option(quantityArb(0, 30), { nil: undefined }), max: fc.option(quantityArb(100, 400), { nil: undefined }), wire: quantityArb(0.5, 3), coilD: quantityArb(5, 20), coils: fc.integer({ min: 5, max: 60 }) }),
   fc.record({ kind: fc.constant("zero_length" as const), a: attachArb, b: attachArb, rate: quantityArb(0.05, 5), tension: fc.option(quantityArb(0, 20), { nil: undefined }) }),
   fc.record({ kind: fc.constant("elastic" as const), a: attachArb, b: attachArb, free: quantityArb(20, 150), tube: fc.boolean(), area: quantityArb(2, 40), od: quantityArb(3, 12), wall: quantityArb(0.5, 2), stretch: fc.option(fc.double({ min: 1.2, max: 5, noNaN: true }), { nil: undefined }) }),
-  fc.record({ kind: fc.constant("gas" as const), a: attachArb, b: attachArb, force: quantityArb(10, 300), progression: fc.double({ min: 1, max: 2, noNaN: true }), stroke: quantityArb(20, 150), extended: quantityArb(100, 400) }),
+  fc.record({ kind: fc.constant("gas" as const), a: attachArb, b: attachArb, force: quantityArb(10, 300), progression: fc.double({ min: 1, max: 2, noNaN: true }), strokeRatio: fc.double({ min: 0.2, max: 0.45, noNaN: true }), extended: quantityArb(100, 400) }),
   fc.record({ kind: fc.constant("torsion" as const), at: fc.nat(20), rate: quantityArb(0.0005, 0.05), preloadAngle: fc.boolean(), preload: quantityArb(0, 180), max: fc.option(quantityArb(90, 360), { nil: undefined }) }),
 );
 type SpringGen = typeof springArb extends fc.Arbitrary<infer T> ? T : never;
@@ -143,7 +145,8 @@ const payloadArb = fc.record({
   body: fc.nat(20),
   mass: quantityArb(0, 2000),
   at: fc.record({ x: quantityArb(-50, 100), y: quantityArb(-80, 40) }),
-  range: fc.option(fc.record({ low: quantityArb(0, 500), high: quantityArb(500, 1500) }), { nil: undefined }),
+  /** The mass range as ratios of the nominal mass, which must lie inside it. */
+  range: fc.option(fc.record({ low: fc.double({ min: 0.3, max: 1, noNaN: true }), high: fc.double({ min: 1, max: 2.5, noNaN: true }) }), { nil: undefined }),
   force: fc.option(fc.record({ x: quantityArb(-10, 10), y: quantityArb(-10, 10) }), { nil: undefined }),
   onBase: fc.boolean(),
 });
@@ -157,7 +160,7 @@ const requireArb = fc.record({
   deflection: fc.option(quantityArb(0.2, 5), { nil: undefined }),
   frequency: fc.option(quantityArb(1, 10), { nil: undefined }),
   tipping: fc.option(fc.double({ min: 1, max: 3, noNaN: true }), { nil: undefined }),
-  clearance: fc.option(quantityArb(0, 10), { nil: undefined }),
+  clearance: fc.option(quantityArb(0.5, 10), { nil: undefined }),
 });
 
 /** Layout choices that must not change the meaning. */
@@ -186,7 +189,7 @@ export const specGenArb = fc.record({
   springs: fc.array(springArb, { maxLength: 3 }),
   payloads: fc.array(payloadArb, { maxLength: 2 }),
   require: fc.option(requireArb, { nil: undefined }),
-  sweep: fc.option(fc.record({ steps: fc.integer({ min: 1, max: 9 }), grid: fc.option(fc.boolean(), { nil: undefined }) }), { nil: undefined }),
+  sweep: fc.option(fc.record({ steps: fc.integer({ min: 2, max: 9 }), grid: fc.option(fc.boolean(), { nil: undefined }) }), { nil: undefined }),
   style: styleArb,
 });
 
@@ -285,7 +288,7 @@ function renderLinkStage(s: LinkStage, i: number, parent: string, decls: Decl[],
 function renderParallelogramStage(s: ParallelogramStage, i: number, parent: string, decls: Decl[], hangers: Hanger[], pivots: string[], mat: (m: string) => string): string {
   const name = `stage_${i}`;
   const props = [`on ${parent}`, `length ${q("length", s.length)}`, `spacing ${q("length", s.spacing)}`, `angle ${q("angle", s.angle)}`];
-  if (s.upperLength) props.push(`upper_length ${q("length", s.upperLength)}`);
+  if (s.upperRatio) props.push(`upper_length ${q("length", { ...s.length, value: s.length.value * s.upperRatio })}`);
   if (s.fixed) props.push("fixed");
   else props.push(`range ${q("angle", s.rangeLow)} .. ${q("angle", s.rangeHigh)}`);
   props.push(`bars ${section(s.bars)} ${mat(s.barMaterial)}`);
@@ -352,7 +355,7 @@ function renderSpring(s: SpringGen, i: number, base: string, hangers: Hanger[], 
       if (s.stretch) props.push(`max_stretch ${formatNumber(s.stretch, 1)}`);
       break;
     case "gas":
-      props.push(`force ${q("force", s.force)}`, `progression ${formatNumber(s.progression, 1)}`, `stroke ${q("length", s.stroke)}`, `extended_length ${q("length", s.extended)}`);
+      props.push(`force ${q("force", s.force)}`, `progression ${formatNumber(s.progression, 1)}`, `stroke ${q("length", { ...s.extended, value: s.extended.value * s.strokeRatio })}`, `extended_length ${q("length", s.extended)}`);
       break;
   }
   return { head, props };
@@ -361,7 +364,7 @@ function renderSpring(s: SpringGen, i: number, base: string, hangers: Hanger[], 
 function renderPayload(p: PayloadGen, i: number, base: string, hangers: Hanger[]): Decl {
   const on = p.onBase && p.body % 5 === 0 ? base : hangers.length ? hangers[p.body % hangers.length]!.body : base;
   const props = [`mass ${q("mass", p.mass)}`, `at ${on}(${q("length", p.at.x)}, ${q("length", p.at.y)})`];
-  if (p.range) props.push(`range ${q("mass", p.range.low)} .. ${q("mass", p.range.high)}`);
+  if (p.range) props.push(`range ${q("mass", { ...p.mass, value: p.mass.value * p.range.low * 0.999 })} .. ${q("mass", { ...p.mass, value: p.mass.value * p.range.high * 1.001 })}`);
   if (p.force) props.push(`force (${q("force", p.force.x)}, ${q("force", p.force.y)})`);
   return { head: `payload load_${i}`, props };
 }
