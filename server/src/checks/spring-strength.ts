@@ -99,7 +99,9 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
       break;
     }
     case "elastic": {
-      notes.push("Rubber creeps under constant load and relaxes over time: expect the force to fall and re-check the balance after some days under load.");
+      // one caution is enough: the balance readout may already carry it
+      if (!ctx.readouts[spring.id]?.notes.some((n) => /creep/i.test(n)))
+        notes.push("Rubber creeps under constant load and relaxes over time: expect the force to fall and re-check the balance after some days under load.");
       if (longest && spring.maxStretch !== undefined) {
         const stretch = longest.value / spring.freeLength;
         addFigures(ctx.readouts, spring.id, "spring", [{ label: "largest stretch", value: stretch, dimension: "dimensionless", where: where(longest) }]);
