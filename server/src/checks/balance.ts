@@ -189,41 +189,53 @@ function isStage(model: ArmModel, id: string): boolean {
   return model.parallelograms.some((p) => p.id === id);
 }
 
+interface Extreme {
+  v: number;
+  pose: Pose;
+  ci: number;
+}
+
 function jointReadouts(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   for (const joint of model.joints) {
-    if (!sweep.poses.some((p) => p.jointAngles[joint.id] !== undefined)) continue;
+    const id = joint.id;
+    if (sweep.poses.length === 0 || sweep.poses[0]!.jointAngles[id] === undefined) continue;
     const figures: Figure[] = [];
-    const angles = sweep.poses.map((p) => p.jointAngles[joint.id]!);
-    figures.push({ label: "angle range", value: Math.min(...angles), high: Math.max(...angles), dimension: "angle" });
-    const dof = sweep.dofs.find((d) => d.jointId === joint.id);
-    let most: { v: number; pose: Pose; ci: number } | undefined;
-    let least: { v: number; pose: Pose; ci: number } | undefined;
-    let reaction: { v: number; pose: Pose; ci: number } | undefined;
-    let lockedMax: { v: number; pose: Pose; ci: number } | undefined;
+    let angleLo = Infinity;
+    let angleHi = -Infinity;
+    const dof = sweep.dofs.find((d) => d.jointId === id);
+    let most: Extreme | undefined;
+    let least: Extreme | undefined;
+    let reaction: Extreme | undefined;
+    let lockedMax: Extreme | undefined;
     for (const pose of sweep.poses) {
-      pose.cases.forEach((c, ci) => {
+      const angle = pose.jointAngles[id]!;
+      if (angle < angleLo) angleLo = angle;
+      if (angle > angleHi) angleHi = angle;
+      for (let ci = 0; ci < pose.cases.length; ci++) {
+        const c = pose.cases[ci]!;
         if (dof) {
           const t = c.holdingTorque[dof.id] ?? 0;
           if (!most || t > most.v) most = { v: t, pose, ci };
           if (!least || t < least.v) least = { v: t, pose, ci };
         }
-        const r = c.reactions[joint.id];
+        const r = c.reactions[id];
         if (r) {
-          const m = Math.hypot(r.x, r.y);
+          const m = Math.sqrt(r.x * r.x + r.y * r.y);
           if (!reaction || m > reaction.v) reaction = { v: m, pose, ci };
         }
-        const lt = c.lockedTorque[joint.id];
+        const lt = c.lockedTorque[id];
         if (lt !== undefined && (!lockedMax || Math.abs(lt) > Math.abs(lockedMax.v))) lockedMax = { v: lt, pose, ci };
-      });
+      }
     }
+    figures.push({ label: "angle range", value: angleLo, high: angleHi, dimension: "angle" });
     if (least && most) {
       figures.push({ label: "holding torque, least", value: least.v, dimension: "torque", where: poseWhere(sweep, least.pose, least.ci) });
       figures.push({ label: "holding torque, most", value: most.v, dimension: "torque", where: poseWhere(sweep, most.pose, most.ci) });
     }
     if (lockedMax) figures.push({ label: "locked torque, largest", value: lockedMax.v, dimension: "torque", where: poseWhere(sweep, lockedMax.pose, lockedMax.ci) });
     if (reaction) figures.push({ label: "largest reaction", value: reaction.v, dimension: "force", where: poseWhere(sweep, reaction.pose, reaction.ci) });
-    addFigures(ctx.readouts, joint.id, isStage(model, joint.id) ? "parallelogram" : "joint", figures);
+    addFigures(ctx.readouts, id, isStage(model, id) ? "parallelogram" : "joint", figures);
   }
 }
 

@@ -2,14 +2,22 @@
 // payload's Jacobian J (columns dp/dtheta per degree of freedom) the force must satisfy
 // J^T F = tau (the holding torques). Rule: the least-squares, least-norm solution
 // F = pinv(J^T) tau = (J J^T)^+ J tau. One dof: |F| = |tau| / |dp/dtheta|. Two dofs that move the
-// payload independently: the exact solution. A dof that does not move the payload (or only along
-// the same line as another) cannot be held from it: that share of its torque is not counted here
-// (the holding torque readouts still show it).
+// payload independently: the exact solution. A dof that does not move the payload cannot be held
+// from it: that share of its torque is not counted here (the holding torque readouts show it).
+// Near a straight arm the payload's two motions fall on one line and the exact force grows
+// without bound (a push at the tip cannot stop an elbow folding); there the weak direction is
+// damped (its eigenvalue of J J^T floored), so the figure stays a measure of effort. Several
+// payloads: each one's hand force is computed alone, as if the hand held the arm only there.
 import type { Vec2 } from "../model/types";
 
 /** Eigenvalues of J J^T below this fraction of the largest count as zero: directions in which
- * the payload barely moves would otherwise ask for unbounded forces from round-off. */
-export const HAND_FORCE_PINV_TOLERANCE = 1e-9;
+ * the payload does not move at all (round-off) hold nothing. */
+export const HAND_FORCE_PINV_TOLERANCE = 1e-12;
+/** Floor of the weak eigenvalue of J J^T, as a fraction of the strong one: 0.01 (singular values
+ * 1 : 0.1, the payload's two motions about 6 deg from one line for equal stages). Below it the
+ * weak direction is damped (damped least squares as in robot arm control near singular poses,
+ * Wampler, IEEE Trans. SMC 16, 1986); common practice, the value has no source. */
+export const HAND_FORCE_DAMPING_FLOOR = 0.01;
 
 export function handForceVector(jacobian: ArrayLike<number>, holdingTorque: ArrayLike<number>, dofCount: number): Vec2 {
   let a = 0;
@@ -53,7 +61,7 @@ export function handForceVector(jacobian: ArrayLike<number>, holdingTorque: Arra
   let fx = p1 * e1x;
   let fy = p1 * e1y;
   if (l2 > HAND_FORCE_PINV_TOLERANCE * l1) {
-    const p2 = (e2x * vx + e2y * vy) / l2;
+    const p2 = (e2x * vx + e2y * vy) / Math.max(l2, HAND_FORCE_DAMPING_FLOOR * l1);
     fx += p2 * e2x;
     fy += p2 * e2y;
   }

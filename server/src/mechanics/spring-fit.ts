@@ -10,9 +10,9 @@ import type { Pose, SweepResult } from "./types";
 import { springForceBasis, springParameters } from "./forces";
 import { handForceVector } from "./hand-force";
 
-/** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 48 reach
- * 1e-10 of the bracket, past any digit a quick fix writes. */
-const GOLDEN_ITERATIONS = 48;
+/** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 30 reach
+ * 5e-7 of the bracket, past the four significant digits a quick fix writes. */
+const GOLDEN_ITERATIONS = 30;
 /** Poses seeded into the active set, and added per round. */
 const ACTIVE_SEED = 48;
 const ACTIVE_ADD = 24;
@@ -94,6 +94,13 @@ function worstOver(d: Float64Array, idx: ArrayLike<number>, p0: number, p1: numb
   return w;
 }
 
+/** Sample indices, worst hand force first. */
+function worstFirst(d: Float64Array, count: number, p0: number, p1: number): number[] {
+  const v = new Float64Array(count);
+  for (let i = 0; i < count; i++) v[i] = handAt(d, i, p0, p1);
+  return Array.from({ length: count }, (_, i) => i).sort((i, j) => v[j]! - v[i]!);
+}
+
 function golden(f: (x: number) => number, lo: number, hi: number): number {
   const r = (Math.sqrt(5) - 1) / 2;
   let a = lo;
@@ -163,8 +170,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const hi1 = span1;
 
   // Active set: the worst poses now, plus an even spread.
-  const order = Array.from(all).sort((i, j) => handAt(d, j, c0, c1) - handAt(d, i, c0, c1));
-  const active = new Set<number>(order.slice(0, ACTIVE_SEED));
+  const active = new Set<number>(worstFirst(d, count, c0, c1).slice(0, ACTIVE_SEED));
   const stride = Math.max(1, Math.floor(count / ACTIVE_SEED));
   for (let i = 0; i < count; i += stride) active.add(i);
   let best: [number, number] = [c0, c1];
@@ -176,8 +182,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
     const activeWorst = worstOver(d, idx, best[0], best[1]);
     const fullWorst = worstOver(d, all, best[0], best[1]);
     if (fullWorst <= activeWorst * (1 + 1e-9) + 1e-12) break;
-    const byNow = Array.from(all).sort((i, j) => handAt(d, j, best[0], best[1]) - handAt(d, i, best[0], best[1]));
-    for (const i of byNow.slice(0, ACTIVE_ADD)) active.add(i);
+    for (const i of worstFirst(d, count, best[0], best[1]).slice(0, ACTIVE_ADD)) active.add(i);
   }
   let after = worstOver(d, all, best[0], best[1]);
   if (after > before) {

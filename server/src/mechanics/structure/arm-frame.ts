@@ -73,7 +73,16 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
   const g = model.gravity;
   const nodes = new Map<string, number>();
   const key = (body: string, p: Vec2) => `${body}|${p.x.toFixed(7)}|${p.y.toFixed(7)}`;
-  const nodeAt = (body: Body, p: Vec2): number => {
+  // a point on a link's axis within the merge distance of a station is that station's node
+  const stationsOf = new Map<string, number[]>();
+  const snap = (body: Body, p: Vec2): Vec2 => {
+    const st = stationsOf.get(body.id);
+    if (!st || Math.abs(p.y) > STATION_MERGE_M) return p;
+    for (const s of st) if (Math.abs(s - p.x) <= STATION_MERGE_M) return { x: s, y: 0 };
+    return p;
+  };
+  const nodeAt = (body: Body, raw: Vec2): number => {
+    const p = snap(body, raw);
     const k = key(body.id, p);
     let n = nodes.get(k);
     if (n === undefined) {
@@ -102,6 +111,12 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
   const elementBody: (string | undefined)[] = [];
   const element = (i: number, j: number, props: { EA: number; EI: number }, body: string | undefined) => {
     if (i === j) return;
+    if (Math.hypot(frame.x[j]! - frame.x[i]!, frame.y[j]! - frame.y[i]!) <= STATION_MERGE_M) {
+      // two points of one body at the same place: one node in effect
+      frame.tieTranslations(i, j);
+      frame.tieRotations(i, j);
+      return;
+    }
     frame.addElement(i, j, props.EA, props.EI);
     elementBody.push(body);
   };
@@ -127,6 +142,7 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
       raw.sort((a, b) => a - b);
       const stations: number[] = [];
       for (const s of raw) if (stations.length === 0 || s - stations[stations.length - 1]! > STATION_MERGE_M) stations.push(s);
+      stationsOf.set(body.id, stations);
       const axis = stations.map((s) => nodeAt(body, { x: s, y: 0 }));
       const props = real.get(body.id);
       for (let k = 0; k + 1 < axis.length; k++) {
