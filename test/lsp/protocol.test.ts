@@ -205,6 +205,32 @@ describe("diagnostics follow the text", () => {
   });
 });
 
+describe("bounded work", () => {
+  const ENGRAVER = readFileSync(join(ROOT, "samples", "engraver-arm.poise"), "utf8");
+  // Two degrees of freedom at 2001 steps each: the sweep is capped at 20,000 poses, seconds of work.
+  const HEAVY = ENGRAVER.replace("steps 19", "steps 2001");
+
+  it("answers hover and completion while a heavy analysis runs, then drops it for the newer text", async () => {
+    const u = "file:///work/heavy.poise";
+    const order: string[] = [];
+    const heavyDiagnostics = session.diagnosticsFor(u, 1).then(() => order.push("heavy diagnostics"));
+    await session.connection.sendNotification("textDocument/didOpen", { textDocument: { uri: u, languageId: "counterpoise", version: 1, text: HEAVY } });
+    const hover = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri: u }, position: positionOf(HEAVY, "parallelogram inner", 15) });
+    order.push("hover");
+    expect(hoverText(hover)).toContain("inner");
+    const completion = await session.connection.sendRequest(CompletionRequest.type, { textDocument: { uri: u }, position: positionOf(HEAVY, "  base stand", 2) });
+    order.push("completion");
+    expect(labels(completion)).toContain("spring");
+    // The text changes while the heavy run is under way: only the new text's diagnostics come.
+    const light = await session.replace(u, ENGRAVER, 2);
+    order.push("light diagnostics");
+    expect(light.version).toBe(2);
+    expect(light.diagnostics.some((d) => d.code === "sweep.capped")).toBe(false);
+    expect(order.slice(0, 3)).toEqual(["hover", "completion", "light diagnostics"]);
+    void heavyDiagnostics;
+  });
+});
+
 describe("bad input never silences the server", () => {
   const cases: [string, string][] = [
     ["empty", ""],

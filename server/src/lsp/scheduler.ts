@@ -147,9 +147,15 @@ export class AnalysisScheduler {
     if (this.docs.get(entry.uri) !== entry) return;
     if (entry.running) {
       if (entry.running.version === entry.version && entry.running.density === entry.density) return;
-      // A run of an older text is still going: stop it now if it is long, else let it end first.
+      // A run of an older text is still going: stop it now if it is long; else look again when
+      // its grace is up (if it ends first, its end starts the new run).
       this.stopIfStale(entry, false);
-      if (entry.running) return;
+      if (entry.running) {
+        const startedAt = entry.running.handle.started();
+        const wait = startedAt === undefined ? STALE_RUN_GRACE_MS : STALE_RUN_GRACE_MS - (performance.now() - startedAt) + 1;
+        entry.debounce = setTimeout(() => this.start(entry), Math.max(1, wait));
+        return;
+      }
     }
     const version = entry.version;
     const density = entry.density;
@@ -171,6 +177,7 @@ export class AnalysisScheduler {
   }
 
   private startIfBehind(entry: DocEntry): void {
+    // A pending timer (the debounce of newer keystrokes, or the grace re-check) starts it itself.
     if (!entry.running && !entry.debounce && !entry.current) this.start(entry);
   }
 

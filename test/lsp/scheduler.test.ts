@@ -1,0 +1,162 @@
+// Bounded analysis per document, with a runner under the test's control: keystrokes debounce to
+// one run of the latest text, results for a text already changed are dropped, a long stale run is
+// stopped, a run past its hard limit still yields the text's findings, and figures stay available
+// from the last good analysis while the text is broken.
+import { describe, expect, it } from "vitest";
+import type { Analysis, AnalysisOptions } from "../../server/src/analysis";
+import type { AnalysisRunner, RunHandle, RunOutcome } from "../../server/src/lsp/runner";
+import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/scheduler";
+import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/settings";
+import type { ArmModel } from "../../server/src/model/types";
+
+interface FakeRun {
+  text: string;
+  options: AnalysisOptions;
+  hardLimitMs: number;
+  startedAt: number;
+  cancelled: boolean;
+  finish(outcome: RunOutcome): void;
+}
+
+class FakeRunner implements AnalysisRunner {
+  readonly runs: FakeRun[] = [];
+  run(text: string, options: AnalysisOptions, hardLimitMs: number): RunHandle {
+    let finish!: (o: RunOutcome) => void;
+    const outcome = new Promise<RunOutcome>((resolve) => (finish = resolve));
+    const run: FakeRun = { text, options, hardLimitMs, startedAt: performance.now(), cancelled: false, finish };
+    this.runs.push(run);
+    return {
+      outcome,
+      started: () => run.startedAt,
+      cancel: () => {
+        run.cancelled = true;
+        finish({ kind: "cancelled" });
+      },
+    };
+  }
+  dispose(): void {}
+}
+
+function analysisOf(text: string, withModel = true): Analysis {
+  return {
+    text,
+    tree: { arms: [], comments: [], errors: [] },
+    ...(withModel ? { model: { title: text } as unknown as ArmModel } : {}),
+    findings: [],
+    readouts: {},
+    timings: { parse: 0, model: 0, solve: 0, checks: 0 },
+  };
+}
+
+function setUp(settings: Partial<Settings> = {}) {
+  const runner = new FakeRunner();
+  const published: PublishedAnalysis[] = [];
+  const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 5, stepsWhileTyping: 0, ...settings };
+  const scheduler = new AnalysisScheduler(runner, () => s, (p) => published.push(p), () => undefined);
+  return { runner, published, scheduler };
+}
+
+const tick = (ms = 0) => new Promise((r) => setTimeout(r, ms));
+async function until(test: () => boolean, what: string): Promise<void> {
+  for (let i = 0; i < 400; i++) {
+    if (test()) return;
+    await tick(5);
+  }
+  throw new Error(`timed out waiting for ${what}`);
+}
+
+describe("analysis scheduler", () => {
+  it("debounces a burst of keystrokes into one run of the latest text", async () => {
+    const { runner, published, scheduler } = setUp();
+    scheduler.update("u", 1, "a", "typing");
+    scheduler.update("u", 2, "ab", "typing");
+    scheduler.update("u", 3, "abc", "typing");
+    await until(() => runner.runs.length > 0, "a run");
+    await tick(20);
+    expect(runner.runs.map((r) => r.text)).toEqual(["abc"]);
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("abc") });
+    await until(() => published.length > 0, "publication");
+    expect(published.map((p) => p.version)).toEqual([3]);
+    scheduler.dispose();
+  });
+
+  it("drops the result of a text that changed while it ran, and runs the new text", async () => {
+    const { runner, published, scheduler } = setUp();
+    scheduler.update("u", 1, "old", "full", true);
+    await until(() => runner.runs.length === 1, "first run");
+    scheduler.update("u", 2, "new", "full", true);
+    await tick(20);
+    // The first run is young (within the grace): it is left to finish, and its result dropped.
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("old") });
+    await until(() => runner.runs.length === 2, "second run");
+    expect(runner.runs[1]!.text).toBe("new");
+    runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("new") });
+    await until(() => published.length > 0, "publication");
+    expect(published.map((p) => [p.version, p.analysis.text])).toEqual([[2, "new"]]);
+    scheduler.dispose();
+  });
+
+  it("stops a stale run that has gone on past the grace", async () => {
+    const { runner, scheduler } = setUp();
+    scheduler.update("u", 1, "slow", "full", true);
+    await until(() => runner.runs.length === 1, "first run");
+    runner.runs[0]!.startedAt -= 10_000; // as if it had run for ten seconds
+    scheduler.update("u", 2, "edited", "full", true);
+    expect(runner.runs[0]!.cancelled).toBe(true);
+    await until(() => runner.runs.length === 2, "second run");
+    expect(runner.runs[1]!.text).toBe("edited");
+    scheduler.dispose();
+  });
+
+  it("after a run hits its hard limit, still publishes the text's own findings and says why", async () => {
+    const { runner, published, scheduler } = setUp({ analysisBudgetMs: 500 });
+    scheduler.update("u", 1, "heavy", "full", true);
+    await until(() => runner.runs.length === 1, "run");
+    // The budget goes to the core; the hard stop sits beyond it.
+    expect(runner.runs[0]!.options.budgetMs).toBe(500);
+    expect(runner.runs[0]!.hardLimitMs).toBeGreaterThan(500);
+    runner.runs[0]!.finish({ kind: "timeout" });
+    await until(() => runner.runs.length === 2, "model-only run");
+    expect(runner.runs[1]!.options.modelOnly).toBe(true);
+    runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("heavy") });
+    await until(() => published.length > 0, "publication");
+    expect(published[0]!.analysis.findings.map((f) => f.code)).toEqual(["analysis.budget"]);
+    scheduler.dispose();
+  });
+
+  it("uses the while-typing density only below the spec's own, and the full one on open", async () => {
+    const runner = new FakeRunner();
+    const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 1, stepsWhileTyping: 9 };
+    const scheduler = new AnalysisScheduler(runner, () => s, () => undefined, (text) => (text.includes("steps 5") ? 5 : 37));
+    scheduler.update("u", 1, "steps 37", "full", true);
+    await until(() => runner.runs.length === 1, "open run");
+    expect(runner.runs[0]!.options.stepsOverride).toBeUndefined();
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("steps 37") });
+    scheduler.update("u", 2, "steps 37 ", "typing");
+    await until(() => runner.runs.length === 2, "typing run");
+    expect(runner.runs[1]!.options.stepsOverride).toBe(9);
+    runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("steps 37 ") });
+    scheduler.update("u", 3, "steps 5", "typing");
+    await until(() => runner.runs.length === 3, "typing run of a coarse spec");
+    expect(runner.runs[2]!.options.stepsOverride).toBeUndefined();
+    scheduler.dispose();
+  });
+
+  it("keeps the last analysis with a model for figures while the text does not build one", async () => {
+    const { runner, published, scheduler } = setUp();
+    scheduler.update("u", 1, "good", "full", true);
+    await until(() => runner.runs.length === 1, "run");
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("good") });
+    await until(() => published.length === 1, "first publication");
+    scheduler.update("u", 2, "bro", "typing");
+    // While the new run is under way, the figures still come from the good one.
+    expect(scheduler.current("u")).toBeUndefined();
+    expect(scheduler.latest("u")?.text).toBe("good");
+    await until(() => runner.runs.length === 2, "second run");
+    runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("bro", false) });
+    await until(() => published.length === 2, "second publication");
+    expect(scheduler.current("u")?.text).toBe("bro");
+    expect(scheduler.latest("u")?.text).toBe("good");
+    scheduler.dispose();
+  });
+});
