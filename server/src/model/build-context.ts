@@ -50,7 +50,19 @@ export class BuildContext {
 
   /** `body`, `body.point`, `body(x, y)`: the longest dotted prefix naming a body is the body; at
    * most one part after it names a point; an inline point goes on the body alone. */
-  resolvePoint(ref: ReferenceNode, key: string): Attachment | undefined {
+  resolvePoint(ref: ReferenceNode, key: string, opts: { keepBodyOnBadPoint?: boolean } = {}): Attachment | undefined {
+    const a = this.resolvePointStrict(ref, key);
+    if (a || !opts.keepBodyOnBadPoint) return a;
+    // The point was wrong (and reported) but the body is known: keep the body, at its origin, so
+    // that the joint graph stays whole for the editor and the mobility count.
+    for (let k = ref.parts.length; k >= 1; k--) {
+      const body = this.bodies.get(ref.parts.slice(0, k).map((p) => p.text).join("."));
+      if (body) return { body: body.id, point: { x: 0, y: 0 }, span: ref.span };
+    }
+    return undefined;
+  }
+
+  private resolvePointStrict(ref: ReferenceNode, key: string): Attachment | undefined {
     const parts = ref.parts;
     let body: Body | undefined;
     let k = parts.length;

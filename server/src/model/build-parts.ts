@@ -265,8 +265,8 @@ export function buildJoint(ctx: BuildContext, p: Props, id: string): Joint | und
   const hasTo = parentRef ? readKeyword(cv, "to", "and the child's point") : false;
   const childRef = hasTo ? readReference(cv, "the child's point") : undefined;
   cv.finish();
-  const parent = parentRef ? ctx.resolvePoint(parentRef, "connects") : undefined;
-  const child = childRef ? ctx.resolvePoint(childRef, "connects") : undefined;
+  const parent = parentRef ? ctx.resolvePoint(parentRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
+  const child = childRef ? ctx.resolvePoint(childRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
   if (!parent || !child) return undefined;
   if (parent.body === child.body) {
     ctx.r.add("value.impossible", childRef!.span, `${p.what} connects ${parent.body} to itself`);
@@ -367,7 +367,7 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
     if (!ov) return { joints: [] };
     const onRef = readReference(ov, "the parent's point");
     ov.finish();
-    const on = onRef ? ctx.resolvePoint(onRef, "on") : undefined;
+    const on = onRef ? ctx.resolvePoint(onRef, "on", { keepBodyOnBadPoint: true }) : undefined;
     if (!on) return { joints: [] };
     if (on.body.startsWith(`${id}.`)) {
       ctx.r.add("value.impossible", onRef!.span, `${p.what} cannot sit on its own bodies`);
