@@ -9,7 +9,7 @@ import type { Page } from "playwright-core";
 import { buildViewModel } from "../../server/src/view/build-view-model";
 import { renderReportHtml } from "../../server/src/view/report-page";
 import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
-import { runReport } from "../../server/src/cli/report";
+import { reportHtml, runReport } from "../../server/src/cli/report";
 import { analyse } from "../../server/src/analysis";
 import { ARTIFACTS, openBrowser, type Browser } from "../view/browser";
 import { pendulumAnalysis } from "../view/pendulum-fixture";
@@ -57,6 +57,23 @@ describe("report page", () => {
     expect(text).toMatch(/reduced height/);
     expect(text).toMatch(/local codes/);
     expect(text).toMatch(/licensed/);
+  });
+});
+
+describe("report of a sample through the whole pipeline", () => {
+  it("marks the printed stage that fails and plots both degrees of freedom", async () => {
+    const { html: magnifier, errors } = reportHtml(readFileSync("samples/magnifier-arm.poise", "utf8"), "samples/magnifier-arm.poise");
+    expect(errors).toBeGreaterThan(0);
+    const other = await browser.context.newPage();
+    await other.setContent(magnifier);
+    expect(await other.locator('.drawing .flag[data-part="stage"][data-status="error"]').count()).toBe(1);
+    expect(await other.locator(".drawing svg.arm-drawing").count()).toBe(1);
+    for (const d of ["stage", "lens_tilt"]) expect(await other.locator(`svg[data-plot="torque-${d}"] polyline[data-series="net"]`).count()).toBeGreaterThan(0);
+    expect(await other.locator("table.safety tr.fail").count()).toBeGreaterThan(0);
+    await other.screenshot({ path: `${ARTIFACTS}/report-magnifier-arm.png`, fullPage: true });
+    await other.locator(".drawing").screenshot({ path: `${ARTIFACTS}/report-magnifier-arm-drawing.png` });
+    await other.close();
+    expect(browser.blocked).toEqual([]);
   });
 });
 

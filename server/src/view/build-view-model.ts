@@ -40,13 +40,16 @@ function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; s
   const parts: ViewPart[] = [];
   const spans = new Map<string, Span>();
   const add = (id: string, kind: ViewPart["kind"], origin: { declaration: Span; name?: Span; generatedBy?: string }) => {
-    if (origin.generatedBy) return;
+    // Bodies and joints a parallelogram generated belong to it (the parallelogram itself may carry
+    // its own id as `generatedBy`).
+    if ((origin.generatedBy && origin.generatedBy !== id) || spans.has(id)) return;
     spans.set(id, origin.declaration);
     parts.push({ id, kind, range: toRange(index, origin.name ?? origin.declaration), status: "ok", codes: [] });
   };
+  // Parallelograms before joints: a stage's root joint shares its id.
+  for (const p of model.parallelograms) add(p.id, "parallelogram", p.origin);
   for (const b of model.bodies) if (b.kind === "base" || b.kind === "link") add(b.id, b.kind, b.origin);
   for (const j of model.joints) add(j.id, "joint", j.origin);
-  for (const p of model.parallelograms) add(p.id, "parallelogram", p.origin);
   for (const s of model.springs) add(s.id, "spring", s.origin);
   for (const p of model.payloads) add(p.id, "payload", p.origin);
   return { parts, spans };

@@ -172,6 +172,11 @@ function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>
   return out;
 }
 
+/** At most two codes on a flag, so it stays a label; the panel's list has them all. */
+function shortCodes(codes: readonly string[]): string {
+  return codes.length <= 2 ? codes.join(", ") : `${codes.slice(0, 2).join(", ")} +${codes.length - 2}`;
+}
+
 /** Small flags naming each failing part next to it, so the trouble reads without hovering. */
 function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
   let out = `<g class="trouble">`;
@@ -200,7 +205,7 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
     out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
     // Near the right edge the words go to the left of the mark, so they stay in the frame.
     const leftward = x > vm.bounds[0] + 0.6 * (vm.bounds[2] - vm.bounds[0]);
-    out += `<text x="${c2(leftward ? x - 9 * f.u : x + 9 * f.u)}" y="${c2(y + 4 * f.u)}"${leftward ? ` text-anchor="end"` : ""} font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(part.codes.join(", "))}</text></g>`;
+    out += `<text x="${c2(leftward ? x - 9 * f.u : x + 9 * f.u)}" y="${c2(y + 4 * f.u)}"${leftward ? ` text-anchor="end"` : ""} font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(shortCodes(part.codes))}</text></g>`;
   }
   return out + "</g>";
 }
