@@ -49,8 +49,9 @@ export class ProtocolSession {
   private readonly diagnostics: PublishDiagnosticsParams[] = [];
   private waiters: { test: (p: PublishDiagnosticsParams) => boolean; resolve: (p: PublishDiagnosticsParams) => void }[] = [];
 
-  constructor(settings: Record<string, unknown> = {}) {
-    this.child = spawn(process.execPath, [SERVER, "--stdio"], { cwd: ROOT, stdio: ["pipe", "pipe", "pipe"] });
+  /** `command`: the script and its arguments (default the bundled server over stdio). */
+  constructor(settings: Record<string, unknown> = {}, command: string[] = [SERVER, "--stdio"]) {
+    this.child = spawn(process.execPath, command, { cwd: ROOT, stdio: ["pipe", "pipe", "pipe"] });
     this.child.stderr!.on("data", (d: Buffer) => this.logs.push(d.toString()));
     this.connection = createProtocolConnection(new StreamMessageReader(this.child.stdout!), new StreamMessageWriter(this.child.stdin!));
     this.connection.onNotification(PublishDiagnosticsNotification.type, (p) => {

@@ -108,6 +108,8 @@ export function startServer(connection: Connection): void {
       if (pushed) settings = readSettings(pushed);
       else await pullSettings();
       scheduler.refreshAll();
+      // Hints may have been switched on or off, or their units changed.
+      if (client.workspace?.inlayHint?.refreshSupport) await connection.languages.inlayHint.refresh();
     }),
   );
 
