@@ -59,15 +59,18 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const gravity = readGravity(ctx, arm);
 
   // 1. Names first, so references may point forward.
-  const declared: { decl: DeclarationNode; props: Props; id: string }[] = [];
+  const declared: { decl: DeclarationNode; props: Props; id: string; keyword: string }[] = [];
   let requireDecl: Props | undefined;
   let sweepDecl: Props | undefined;
   for (const decl of arm.declarations) {
-    const spec = declarationSpec(decl.keyword.text);
+    let spec = declarationSpec(decl.keyword.text);
     if (!spec) {
       const best = closestWord(decl.keyword.text, DECLARATIONS.map((d) => d.keyword));
       r.add("declaration.unknown", decl.keyword.span, `unknown declaration \`${decl.keyword.text}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
-      continue;
+      // A likely typo is read as the keyword it resembles, so its name and contents still count
+      // (and references to it raise nothing more); the error above stands.
+      spec = best ? declarationSpec(best) : undefined;
+      if (!spec) continue;
     }
     if (!spec.named) {
       const props = new Props(decl, spec, r);
@@ -91,9 +94,9 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     }
     ctx.names.set(name, { kind: spec.keyword as SymbolKind, decl });
     ctx.symbols.declarations.push({ id: name, kind: spec.keyword as SymbolKind, name, nameSpan: decl.name.span, span: decl.span });
-    declared.push({ decl, props: new Props(decl, spec, r), id: name });
+    declared.push({ decl, props: new Props(decl, spec, r), id: name, keyword: spec.keyword });
   }
-  const of = (keyword: string) => declared.filter((d) => d.decl.keyword.text === keyword);
+  const of = (keyword: string) => declared.filter((d) => d.keyword === keyword);
 
   // 2. Materials: the library, then the arm's own (an own material may shadow a built-in name).
   ctx.materials = builtinMaterials();
