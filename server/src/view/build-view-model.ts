@@ -32,6 +32,12 @@ function r4(x: number): number {
   return Number.isFinite(x) ? Math.round(x * 1e4) / 1e4 : x;
 }
 
+/** Pose coordinates to 0.01 mm and 0.01 deg: below a pixel at any zoom of the panel, and a grid
+ * of a thousand poses then stays a few hundred kilobytes. */
+function r2(x: number): number {
+  return Number.isFinite(x) ? Math.round(x * 100) / 100 : x;
+}
+
 function toRange(index: LineIndex, s: Span): ViewRange {
   return { start: index.position(s.start), end: index.position(s.end) };
 }
@@ -149,9 +155,9 @@ function viewPoses(model: ArmModel, sweep: SweepResult, lines: number[][][]): Vi
   const split = splitHoldingTorque(model, sweep, lines);
   return sweep.poses.map((pose, p) => {
     const bodies: ViewPose["bodies"] = {};
-    for (const [id, b] of Object.entries(pose.bodies)) bodies[id] = [r4(b.x * MM), r4(b.y * MM), r4(b.phi * DEG)];
+    for (const [id, b] of Object.entries(pose.bodies)) bodies[id] = [r2(b.x * MM), r2(b.y * MM), r4(b.phi * DEG)];
     const springs: ViewPose["springs"] = {};
-    for (const [id, s] of Object.entries(pose.springs)) springs[id] = [r4(s.a.x * MM), r4(s.a.y * MM), r4(s.b.x * MM), r4(s.b.y * MM)];
+    for (const [id, s] of Object.entries(pose.springs)) springs[id] = [r2(s.a.x * MM), r2(s.a.y * MM), r2(s.b.x * MM), r2(s.b.y * MM)];
     const handForce: ViewPose["handForce"] = {};
     for (const payload of model.payloads) handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
     const nominal = pose.cases[0];
