@@ -39,13 +39,7 @@ export function checkText(text: string): Violation[] {
   const elapsed = performance.now() - t0;
   if (elapsed > SLOW_CASE_MS) violations.push({ property: "fast", message: `analyse took ${elapsed.toFixed(0)} ms at ${FUZZ_STEPS} steps` });
 
-  for (const f of first.findings) {
-    if (f.code === "analysis.internal") violations.push({ property: "no-internal-fault", message: `${f.message}${internalStack(text)}` });
-    checkFindingShape(f, text, violations);
-  }
-  for (const e of first.tree.errors) checkSpan(e.span, text, `syntax error "${e.message}"`, violations);
-
-  checkFiniteResults(first, violations);
+  violations.push(...checkAnalysis(first, text));
 
   let second: Analysis;
   try {
@@ -57,6 +51,19 @@ export function checkText(text: string): Violation[] {
   const a = findingsDigest(first.findings);
   const b = findingsDigest(second.findings);
   if (a !== b) violations.push({ property: "deterministic", message: `findings differ between two runs:\n  ${a}\n  ${b}` });
+  return violations;
+}
+
+/** The properties of one analysis: no internal fault, findings well formed and inside the
+ * document, every reported figure finite. */
+export function checkAnalysis(a: Analysis, text: string): Violation[] {
+  const violations: Violation[] = [];
+  for (const f of a.findings) {
+    if (f.code === "analysis.internal") violations.push({ property: "no-internal-fault", message: `${f.message}${internalStack(text)}` });
+    checkFindingShape(f, text, violations);
+  }
+  for (const e of a.tree.errors) checkSpan(e.span, text, `syntax error "${e.message}"`, violations);
+  checkFiniteResults(a, violations);
   return violations;
 }
 
