@@ -7,6 +7,7 @@ import { renderPlotSvg } from "../../server/src/view/draw-plot";
 import { handForcePlot, torquePlot } from "../../server/src/view/plots";
 import { nearestPose } from "../../server/src/view/pose-lines";
 import { findingsHtml, safetyTableHtml } from "../../server/src/view/tables";
+import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
 
 /** What the extension posts to the page, and what the page posts back. */
 export type ToPage = { type: "view"; model: ViewModel | null; uri: string };
@@ -42,6 +43,12 @@ function renderStatus(model: ViewModel): void {
   span.className = errors ? "bad" : warnings ? "warn" : "";
   span.textContent = errors || warnings ? `${errors} error(s), ${warnings} warning(s)` : "No errors or warnings";
   el.append(span, document.createTextNode(model.poses.length ? ` — ${model.poses.length} poses` : ""));
+  if (model.staleNote) {
+    const stale = document.createElement("div");
+    stale.className = "stale";
+    stale.textContent = model.staleNote;
+    el.append(stale);
+  }
 }
 
 function renderSliders(model: ViewModel): void {
@@ -101,6 +108,20 @@ function render(): void {
   $("method").textContent = vm.poses.length ? vm.torqueMethod : vm.emptyReason ?? "";
 }
 
+function renderLimits(): void {
+  const list = (items: readonly string[]) => {
+    const ul = document.createElement("ul");
+    for (const text of items) {
+      const li = document.createElement("li");
+      li.textContent = text;
+      ul.append(li);
+    }
+    return ul;
+  };
+  $("limits").append(list(MODEL_LIMITS));
+  $("cautions").append(list(SAFETY_CAUTIONS));
+}
+
 window.addEventListener("message", (event: MessageEvent<ToPage>) => {
   const msg = event.data;
   if (msg?.type !== "view") return;
@@ -119,4 +140,5 @@ document.addEventListener("click", (event) => {
   host.postMessage({ type: "reveal", uri, partId, ...(part ? { range: part.range } : {}) });
 });
 
+renderLimits();
 host.postMessage({ type: "ready" });

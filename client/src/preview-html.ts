@@ -36,6 +36,8 @@ export function previewHtml(p: PreviewPageParts): string {
 <div id="safety"></div>
 <h2>Diagnostics</h2>
 <div id="findings"></div>
+<details id="limits"><summary>Limits of the model</summary></details>
+<details id="cautions" open><summary>Before you build</summary></details>
 <script nonce="${p.nonce}" src="${p.scriptUri}"></script>
 </body></html>`;
 }

@@ -76,6 +76,14 @@ describe("preview page", () => {
     expect(sent.at(-1)?.range).toEqual(vm.parts.find((p) => p.id === "lamp")!.range);
   });
 
+  it("shows the model's limits and the safety cautions", async () => {
+    const limits = (await page.textContent("#limits"))!;
+    expect(limits).toContain("No fatigue life");
+    const cautions = (await page.textContent("#cautions"))!;
+    expect(cautions).toMatch(/clear of the arm's swing/);
+    expect(cautions).toMatch(/reduced height/);
+  });
+
   it("runs under its content-security policy and fetches nothing else", async () => {
     expect(await page.evaluate("window.__violations")).toEqual([]);
     expect(browser.blocked).toEqual([]);

@@ -31,7 +31,10 @@ export const previewFeature: ServerFeature = {
         if (!doc) return null;
         const current: Analysis | undefined = await within(ctx.scheduler.whenAnalysed(doc.uri, doc.version), WAIT_FOR_CURRENT_MS);
         const analysis = current?.model ? current : ctx.scheduler.latest(doc.uri) ?? current;
-        return analysis ? buildViewModel(analysis) : null;
+        if (!analysis) return null;
+        const vm = buildViewModel(analysis);
+        if (analysis.text !== doc.getText()) vm.staleNote = "Showing the last text that described an arm; the current text does not build one yet.";
+        return vm;
       }),
     );
   },

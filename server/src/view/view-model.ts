@@ -140,4 +140,6 @@ export interface ViewModel {
   torqueMethod: string;
   /** Why there is nothing to draw, when there is nothing. */
   emptyReason?: string;
+  /** Set when the drawing is of an earlier text than the editor's (the current one builds no arm). */
+  staleNote?: string;
 }
