@@ -27,6 +27,8 @@ import {
 import { TextDocument } from "vscode-languageserver-textdocument";
 import { ProtocolSession, ROOT, ensureBuilt, positionOf } from "./protocol-client";
 import { INCH_M } from "../../server/src/units/unit-table";
+import { SPEC_SUMMARY_NOTIFICATION, type SpecSummary } from "../../server/src/lsp/custom-protocol";
+import { poise } from "../cli/run-cli";
 
 const CAMERA = readFileSync(join(ROOT, "samples", "camera-arm.poise"), "utf8");
 const uri = "file:///work/camera-arm.poise";
@@ -172,9 +174,33 @@ describe("a sample over the protocol", () => {
     await session.replace(uri, CAMERA, 3);
   });
 
-  it("answers inlay hints", async () => {
-    const hints = await session.connection.sendRequest(InlayHintRequest.type, { ...doc, range: { start: { line: 0, character: 0 }, end: { line: 60, character: 0 } } });
-    expect(Array.isArray(hints)).toBe(true);
+  it("hints each part's least safety factor at its declaration, unless turned off", async () => {
+    const range = { start: { line: 0, character: 0 }, end: { line: 60, character: 0 } };
+    const hints = (await session.connection.sendRequest(InlayHintRequest.type, { ...doc, range })) ?? [];
+    const onBase = hints.find((h) => h.position.line === positionOf(CAMERA, "base bench_clamp").line);
+    expect(onBase?.label).toMatch(/^safety \d/);
+    const quiet = new ProtocolSession({ inlayHints: false });
+    await quiet.initialize();
+    await quiet.open(uri, CAMERA);
+    expect(await quiet.connection.sendRequest(InlayHintRequest.type, { ...doc, range })).toEqual([]);
+    expect(await quiet.stop()).toBe(0);
+  });
+
+  it("sends the status-bar summary: the worst hand force is the sweep's largest", async () => {
+    const u = "file:///work/summary.poise";
+    const summary = new Promise<SpecSummary>((resolve) =>
+      session.connection.onNotification(SPEC_SUMMARY_NOTIFICATION, (p: SpecSummary) => {
+        if (p.uri === u) resolve(p);
+      }),
+    );
+    await session.open(u, CAMERA);
+    const s = await summary;
+    const table = JSON.parse(poise("sweep", "samples/camera-arm.poise").stdout) as { poses: { hand_force: Record<string, number> }[] };
+    const largest = Math.max(...table.poses.map((p) => p.hand_force.camera!));
+    expect(s.worstHandForce?.payload).toBe("camera");
+    // The sweep table rounds to 0.0001 N.
+    expect(Math.abs(s.worstHandForce!.valueN - largest)).toBeLessThan(1e-4);
+    expect(s.text).toContain("hand");
   });
 });
 
