@@ -215,3 +215,35 @@ describe("force laws", () => {
     expect(gasStrutTension(s, 0.15)).toBeCloseTo(-115, 12);
   });
 });
+
+describe("hand force with two degrees of freedom", () => {
+  it("is the payload's weight, straight up, for a massless two-link arm (away from straight)", () => {
+    const mass = 0.9;
+    const [l1, l2] = [0.3, 0.25];
+    const model = new ArmBuilder()
+      .link("upper", l1, 0)
+      .link("fore", l2, 0)
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(40), { range: [deg(10), deg(70)] })
+      .joint("elbow", "upper", { x: l1, y: 0 }, "fore", { x: 0, y: 0 }, deg(-90), { range: [deg(-120), deg(-60)] })
+      .payload("tool", "fore", { x: l2, y: 0 }, mass)
+      .sweep(5)
+      .build();
+    const sweep = solveSweep(model);
+    expect(sweep.poses.length).toBe(25);
+    for (const pose of sweep.poses) {
+      const t1 = pose.angles["shoulder"]!;
+      const t12 = t1 + pose.angles["elbow"]!;
+      // Jacobian of the planar two-link arm (Craig, Introduction to Robotics, 3rd ed., ch. 5)
+      const J = pose.payloadJacobian!["tool"]!;
+      expect(J["shoulder"]!.x).toBeCloseTo(-l1 * Math.sin(t1) - l2 * Math.sin(t12), 10);
+      expect(J["elbow"]!.y).toBeCloseTo(l2 * Math.cos(t12), 10);
+      const st = pose.cases[0]!;
+      const F = st.handForceVector!["tool"]!;
+      // Statics: J^T F = tau, and a hand that replaces the weight of a point mass on massless links pushes m g up
+      expect(J["shoulder"]!.x * F.x + J["shoulder"]!.y * F.y).toBeCloseTo(st.holdingTorque["shoulder"]!, 9);
+      expect(J["elbow"]!.x * F.x + J["elbow"]!.y * F.y).toBeCloseTo(st.holdingTorque["elbow"]!, 9);
+      expect(F.x).toBeCloseTo(0, 9);
+      expect(F.y).toBeCloseTo(mass * G0, 9);
+    }
+  });
+});

@@ -14,6 +14,9 @@ export class DenseLu {
   /** Row i of PA is row perm[i] of A. */
   readonly perm: Int32Array;
   private readonly work: Float64Array;
+  /** Columns right of the pivot where the pivot row is non-zero (constraint Jacobians are
+   * sparse: each row touches at most two bodies, so skipping zeros saves most of the work). */
+  private readonly cols: Int32Array;
   /** Smallest |pivot| over the largest |entry| of the last factorization (0 when singular). */
   pivotRatio = 0;
 
@@ -22,6 +25,7 @@ export class DenseLu {
     this.lu = new Float64Array(n * n);
     this.perm = new Int32Array(n);
     this.work = new Float64Array(n);
+    this.cols = new Int32Array(n);
   }
 
   /** Factors `a` (row-major n x n, left untouched). False when the matrix is singular. */
@@ -71,11 +75,20 @@ export class DenseLu {
       }
       const pivot = lu[k * n + k]!;
       if (best < minPivot) minPivot = best;
+      const cols = this.cols;
+      let nnz = 0;
+      for (let j = k + 1; j < n; j++) if (lu[k * n + j] !== 0) cols[nnz++] = j;
       for (let i = k + 1; i < n; i++) {
-        const f = lu[i * n + k]! / pivot;
+        const e = lu[i * n + k]!;
+        if (e === 0) continue;
+        const f = e / pivot;
         lu[i * n + k] = f;
-        if (f === 0) continue;
-        for (let j = k + 1; j < n; j++) lu[i * n + j]! -= f * lu[k * n + j]!;
+        const ro = i * n;
+        const ko = k * n;
+        for (let t = 0; t < nnz; t++) {
+          const j = cols[t]!;
+          lu[ro + j]! -= f * lu[ko + j]!;
+        }
       }
     }
     this.pivotRatio = minPivot / scale;

@@ -14,9 +14,10 @@ import type { Vec2 } from "../model/types";
  * the payload does not move at all (round-off) hold nothing. */
 export const HAND_FORCE_PINV_TOLERANCE = 1e-12;
 /** Floor of the weak eigenvalue of J J^T, as a fraction of the strong one: 0.01 (singular values
- * 1 : 0.1, the payload's two motions about 6 deg from one line for equal stages). Below it the
- * weak direction is damped (damped least squares as in robot arm control near singular poses,
- * Wampler, IEEE Trans. SMC 16, 1986); common practice, the value has no source. */
+ * 1 : 0.1, the payload's two motions within about 6 deg of one line for equal stages). Below it
+ * the weak direction is damped (damped least squares as in robot arm control near singular
+ * poses, Wampler, IEEE Trans. SMC 16, 1986), so the push along a nearly straight arm stays
+ * finite; above it the force is exact. Common practice, the value has no source. */
 export const HAND_FORCE_DAMPING_FLOOR = 0.01;
 
 export function handForceVector(jacobian: ArrayLike<number>, holdingTorque: ArrayLike<number>, dofCount: number): Vec2 {

@@ -4,7 +4,7 @@
 import type { ArmModel, Joint } from "../model/types";
 import type { Dof } from "./types";
 import { finding, type Finding } from "../checks/finding";
-import { createConstraintSet, constraintJacobian, updateAngles, ROW_DRIVE, ROW_REVOLUTE_X, ROW_REVOLUTE_Y, type ConstraintSet } from "./constraints";
+import { createConstraintSet, ROW_DRIVE, ROW_REVOLUTE_X, ROW_REVOLUTE_Y, type ConstraintSet } from "./constraints";
 import { jointGraph, type JointGraph } from "./joint-graph";
 import { referencePose, LOOP_ANGLE_TOLERANCE, LOOP_GAP_TOLERANCE } from "./reference-pose";
 import { formatAngle, formatLength } from "./format";
@@ -102,15 +102,27 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   const rowVector = (kind: number, ji: number): Float64Array => {
     // One row of Phi_q at the reference pose, phi columns divided by the length scale and drive
     // rows multiplied by it, so that every entry is of order 1.
-    const revolutes = [{ parent: graph.parent[ji]!, child: graph.child[ji]!, parentPoint: graph.joints[ji]!.parentPoint, childPoint: graph.joints[ji]!.childPoint }];
-    const drives = [{ parent: graph.parent[ji]!, child: graph.child[ji]!, theta: 0 }];
-    const one = createConstraintSet(nb, revolutes, drives, [{ kind, ref: 0 }]);
-    updateAngles(one, ref.q);
-    const jac = new Float64Array(n * n);
-    constraintJacobian(one, jac);
-    const v = jac.slice(0, n);
-    for (let b = 0; b < nb; b++) v[3 * b + 2]! /= lengthScale;
-    if (kind === ROW_DRIVE) for (let i = 0; i < n; i++) v[i]! *= lengthScale;
+    const v = new Float64Array(n);
+    const p = graph.parent[ji]!;
+    const c = graph.child[ji]!;
+    if (kind === ROW_DRIVE) {
+      if (c >= 0) v[3 * c + 2]! += 1;
+      if (p >= 0) v[3 * p + 2]! -= 1;
+      return v;
+    }
+    const j = graph.joints[ji]!;
+    const axis = kind === ROW_REVOLUTE_X ? 0 : 1;
+    const put = (body: number, s: { x: number; y: number }, sign: number) => {
+      if (body < 0) return;
+      const phi = ref.q[3 * body + 2]!;
+      const cp = Math.cos(phi);
+      const sp = Math.sin(phi);
+      v[3 * body + axis]! += sign;
+      // d/dphi of the rotated point's x (or y) component
+      v[3 * body + 2]! += (sign * (axis === 0 ? -sp * s.x - cp * s.y : cp * s.x - sp * s.y)) / lengthScale;
+    };
+    put(p, j.parentPoint, 1);
+    put(c, j.childPoint, -1);
     return v;
   };
   const basis: Float64Array[] = [];

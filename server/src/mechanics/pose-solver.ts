@@ -70,6 +70,8 @@ export class PoseSolver {
   private readonly model: ArmModel;
   /** Number of LU factorizations so far (for the benchmark). */
   factorizations = 0;
+  /** Set when the last moveTo stopped at the deadline rather than at a lock. */
+  timedOut = false;
 
   constructor(
     readonly linkage: Linkage,
@@ -149,7 +151,8 @@ export class PoseSolver {
 
   /** Moves from the current pose to dof values `target` by continuation. On failure the current
    * pose stays at the last angles reached (the lock) and false is returned. */
-  moveTo(target: Float64Array): boolean {
+  moveTo(target: Float64Array, deadline = Infinity): boolean {
+    this.timedOut = false;
     const ndof = this.ndof;
     const n = this.n;
     const start = Float64Array.from(this.angles);
@@ -161,7 +164,13 @@ export class PoseSolver {
     let s = 0;
     let h = Math.min(1, maxFraction);
     const trialAngles = new Float64Array(ndof);
+    let tries = 0;
     while (s < 1) {
+      // A long move (a huge range) checks the clock now and then.
+      if ((++tries & 63) === 0 && performance.now() > deadline) {
+        this.timedOut = true;
+        return false;
+      }
       const sNew = Math.min(1, s + h);
       const ds = sNew - s;
       this.qPredicted.set(this.q);

@@ -134,8 +134,18 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
 
   let steps = Math.round(options.stepsOverride ?? model.sweep?.steps ?? SWEEP_DEFAULTS.steps);
   steps = Math.min(Math.max(steps, 2), SWEEP_DEFAULTS.maxSteps);
-  const useGrid = grid && dofs.length > 1;
-  if (useGrid && steps ** dofs.length > MAX_GRID_POSES) {
+  let useGrid = grid && dofs.length > 1;
+  if (useGrid && 2 ** dofs.length > MAX_GRID_POSES) {
+    useGrid = false;
+    findings.push(
+      finding(
+        "sweep.capped",
+        model.sweep?.origin?.properties["grid"] ?? model.sweep?.origin?.declaration ?? model.span,
+        `A grid of ${dofs.length} degrees of freedom would exceed ${MAX_GRID_POSES} poses even at 2 steps each; each one is swept alone instead, the others at their reference angle.`,
+        { data: { requested: steps, used: steps, grid: false } },
+      ),
+    );
+  } else if (useGrid && steps ** dofs.length > MAX_GRID_POSES) {
     const capped = Math.max(2, Math.floor(MAX_GRID_POSES ** (1 / dofs.length) + 1e-9));
     findings.push(
       finding(
@@ -156,13 +166,17 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   const out: (Pose | undefined)[] = [];
   const reported = new Set<string>();
   let current = -1;
+  const budgetStop = () => {
+    const solved = out.filter(Boolean).length;
+    findings.push(
+      finding("analysis.budget", model.span, `The sweep stopped at its time budget after ${solved} of ${nodes.length} poses; results are partial.`, {
+        data: { solved, planned: nodes.length },
+      }),
+    );
+  };
   for (let i = 0; i < nodes.length; i++) {
     if (performance.now() > deadline) {
-      findings.push(
-        finding("analysis.budget", model.span, `The sweep stopped at its time budget after ${out.filter(Boolean).length} of ${nodes.length} poses; results are partial.`, {
-          data: { solved: out.filter(Boolean).length, planned: nodes.length },
-        }),
-      );
+      budgetStop();
       break;
     }
     const node = nodes[i]!;
@@ -173,13 +187,17 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
       if (!solver.setCurrent(q, a)) continue;
     }
     const from = Float64Array.from(solver.angles);
-    if (solver.moveTo(node.angles)) {
+    if (solver.moveTo(node.angles, deadline)) {
       solvedQ[i] = Float64Array.from(solver.q);
       out[node.output] = solver.record(node.output);
       current = i;
       continue;
     }
     current = -2; // the solver now sits at the lock, not at a node
+    if (solver.timedOut) {
+      budgetStop();
+      break;
+    }
     let moved = 0;
     for (let d = 1; d < dofs.length; d++) if (Math.abs(node.angles[d]! - from[d]!) > Math.abs(node.angles[moved]! - from[moved]!)) moved = d;
     const dir = node.angles[moved]! > from[moved]! ? "up" : "down";

@@ -33,41 +33,8 @@ export function sectionLoadAt(
   s: number,
   includeAt: boolean,
 ): SectionLoad {
-  let fx = 0;
-  let fy = 0;
-  let m = 0;
-  for (const p of loads) {
-    if (p.s < s || (includeAt && p.s === s)) {
-      fx += p.fx;
-      fy += p.fy;
-      // moment of the load about the cut point (s, 0)
-      m += (p.s - s) * p.fy - p.offset * p.fx + p.couple;
-    }
-  }
-  const w = Math.max(0, Math.min(s, length));
-  fx += distributed.qx * w;
-  fy += distributed.qy * w;
-  m += distributed.qy * (w * (w / 2 - s));
-  return { s, axial: -fx, shear: -fy, moment: -m };
-}
-
-/** Stations where the bending moment can peak: the ends, every load, and where the shear
- * changes sign between loads (the moment is piecewise quadratic). */
-export function criticalStations(loads: readonly BeamPointLoad[], distributed: { qx: number; qy: number }, length: number): SectionLoad[] {
-  const positions = [...new Set([0, length, ...loads.map((p) => Math.max(0, Math.min(length, p.s)))])].sort((a, b) => a - b);
-  const out: SectionLoad[] = [];
-  for (let k = 0; k < positions.length; k++) {
-    const s = positions[k]!;
-    out.push(sectionLoadAt(loads, distributed, length, s, false));
-    out.push(sectionLoadAt(loads, distributed, length, s, true));
-    const next = positions[k + 1];
-    if (next !== undefined && distributed.qy !== 0) {
-      const after = sectionLoadAt(loads, distributed, length, s, true);
-      // the shear V(s') = V(s) - qy (s' - s) is linear between loads: it vanishes at s*
-      const sStar = s + after.shear / distributed.qy;
-      if (sStar > s && sStar < next) out.push(sectionLoadAt(loads, distributed, length, sStar, true));
-    }
-  }
+  const out: SectionLoad = { s, axial: 0, shear: 0, moment: 0 };
+  evaluateSection(loads, distributed, length, s, includeAt, out);
   return out;
 }
 
@@ -89,16 +56,75 @@ export function beamStress(
   length: number,
   section: { area: number; secondMoment: number; extremeFibre: number },
 ): BeamStressResult {
-  let best: BeamStressResult | undefined;
+  // Stations where the moment can peak: the ends, every load, and where the shear changes sign
+  // between loads (the moment is piecewise quadratic). Hot loop: every body at every pose.
+  const pos = new Float64Array(loads.length + 2);
+  pos[0] = 0;
+  pos[1] = length;
+  for (let k = 0; k < loads.length; k++) pos[k + 2] = Math.max(0, Math.min(length, loads[k]!.s));
+  pos.sort();
+  const scratch: SectionLoad = { s: 0, axial: 0, shear: 0, moment: 0 };
+  let bestStress = -1;
+  let best: SectionLoad = { s: 0, axial: 0, shear: 0, moment: 0 };
+  let bestBending = 0;
   let compression = 0;
   let moment = 0;
-  for (const st of criticalStations(loads, distributed, length)) {
-    const axialStress = Math.abs(st.axial) / section.area;
-    const bendingStress = (Math.abs(st.moment) * section.extremeFibre) / section.secondMoment;
+  const visit = (s: number, includeAt: boolean) => {
+    evaluateSection(loads, distributed, length, s, includeAt, scratch);
+    const axialStress = Math.abs(scratch.axial) / section.area;
+    const bendingStress = (Math.abs(scratch.moment) * section.extremeFibre) / section.secondMoment;
     const stress = axialStress + bendingStress;
-    compression = Math.max(compression, -st.axial);
-    moment = Math.max(moment, Math.abs(st.moment));
-    if (!best || stress > best.stress) best = { stress, at: st, bendingShare: stress > 0 ? bendingStress / stress : 0, compression: 0, moment: 0 };
+    compression = Math.max(compression, -scratch.axial);
+    moment = Math.max(moment, Math.abs(scratch.moment));
+    if (stress > bestStress) {
+      bestStress = stress;
+      best = { ...scratch };
+      bestBending = bendingStress;
+    }
+  };
+  for (let k = 0; k < pos.length; k++) {
+    const s = pos[k]!;
+    if (k > 0 && s === pos[k - 1]) continue;
+    visit(s, false);
+    visit(s, true);
+    const shearAfter = scratch.shear;
+    let next = -1;
+    for (let m = k + 1; m < pos.length; m++) if (pos[m]! > s) { next = pos[m]!; break; }
+    if (next > s && distributed.qy !== 0) {
+      // the shear V(s') = V(s) - qy (s' - s) is linear between loads: it vanishes at s*
+      const sStar = s + shearAfter / distributed.qy;
+      if (sStar > s && sStar < next) visit(sStar, true);
+    }
   }
-  return { ...best!, compression, moment };
+  return { stress: bestStress, at: best, bendingShare: bestStress > 0 ? bestBending / bestStress : 0, compression, moment };
+}
+
+/** sectionLoadAt written into `out` (no allocation). */
+function evaluateSection(
+  loads: readonly BeamPointLoad[],
+  distributed: { qx: number; qy: number },
+  length: number,
+  s: number,
+  includeAt: boolean,
+  out: SectionLoad,
+): void {
+  let fx = 0;
+  let fy = 0;
+  let m = 0;
+  for (let k = 0; k < loads.length; k++) {
+    const p = loads[k]!;
+    if (p.s < s || (includeAt && p.s === s)) {
+      fx += p.fx;
+      fy += p.fy;
+      m += (p.s - s) * p.fy - p.offset * p.fx + p.couple;
+    }
+  }
+  const w = Math.max(0, Math.min(s, length));
+  fx += distributed.qx * w;
+  fy += distributed.qy * w;
+  m += distributed.qy * (w * (w / 2 - s));
+  out.s = s;
+  out.axial = -fx;
+  out.shear = -fy;
+  out.moment = -m;
 }

@@ -1,7 +1,7 @@
 // Plane-frame model by the direct stiffness method (McGuire, Gallagher and Ziemian, Matrix
 // Structural Analysis, 2nd ed., ch. 4-5): 2-node Bernoulli frame elements (axial + bending),
 // axial and rotational springs, tied degrees of freedom for pins, lumped masses. SI units.
-import { choleskyFactor, choleskySolve, symmetricEigen } from "./dense";
+import { choleskyFactor, choleskySolve, lowestEigenvalue, symmetricEigen } from "./dense";
 
 /** Dofs per node: ux, uy, rotation. */
 const NODE_DOFS = 3;
@@ -255,6 +255,10 @@ export class PlaneFrame {
     // Standard symmetric form M^-1/2 K* M^-1/2.
     for (let a = 0; a < nm; a++)
       for (let b = 0; b < nm; b++) condensed[a * nm + b] = condensed[a * nm + b]! / Math.sqrt(mass[m[a]!]! * mass[m[b]!]!);
+    if (count === 1) {
+      const lowest = lowestEigenvalue(condensed, nm);
+      return lowest !== undefined && lowest > 0 ? [lowest] : undefined;
+    }
     const { values } = symmetricEigen(condensed, nm);
     if (!(values[0]! > 0)) return undefined;
     return Array.from(values.slice(0, count));
