@@ -133,7 +133,12 @@ window.addEventListener("message", (event: MessageEvent<ToPage>) => {
 });
 
 document.addEventListener("click", (event) => {
-  const el = (event.target as Element | null)?.closest("[data-part]");
+  const target = event.target as Element | null;
+  // A diagnostic in the list reveals its own words; a part (drawing, table) its declaration.
+  const item = target?.closest("[data-finding]");
+  const finding = item ? vm?.findings[Number(item.getAttribute("data-finding"))] : undefined;
+  if (vm && finding) return host.postMessage({ type: "reveal", uri, partId: finding.partId ?? "", range: finding.range });
+  const el = target?.closest("[data-part]");
   const partId = el?.getAttribute("data-part");
   if (!vm || !partId) return;
   const part = vm.parts.find((p) => p.id === partId);

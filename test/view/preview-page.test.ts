@@ -76,6 +76,12 @@ describe("preview page", () => {
     expect(sent.at(-1)?.range).toEqual(vm.parts.find((p) => p.id === "lamp")!.range);
   });
 
+  it("reveals a diagnostic's own words when it is clicked in the list", async () => {
+    await page.click('ul.findings li[data-finding="1"]');
+    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as { range?: unknown }[];
+    expect(sent.at(-1)?.range).toEqual(vm.findings[1]!.range);
+  });
+
   it("shows the model's limits and the safety cautions", async () => {
     const limits = (await page.textContent("#limits"))!;
     expect(limits).toContain("No fatigue life");

@@ -237,7 +237,9 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
   const ground = `<rect x="${c2(minX)}" y="${c2(-maxY)}" width="${c2(w)}" height="${c2(h)}" fill="${PALETTE.paper}"/>`;
   const pose = vm.poses[poseIndex];
   if (!pose) {
-    return `${head}${ground}<text x="${c2(minX + w / 2)}" y="${c2(-maxY + h / 2)}" text-anchor="middle" font-size="${c2(14 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(vm.emptyReason ?? "Nothing to draw")}</text></svg>`;
+    // Nothing solved: a short strip with the reason, not an empty frame the size of an arm.
+    return `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing empty" viewBox="0 0 ${widthPx} 64" width="${widthPx}" height="64" role="img" aria-label="${esc(vm.title)}">` +
+      `<rect x="0" y="0" width="${widthPx}" height="64" fill="${PALETTE.paper}"/><text x="${widthPx / 2}" y="37" text-anchor="middle" font-size="14" font-family="sans-serif" fill="${PALETTE.muted}">${esc(vm.emptyReason ?? "Nothing to draw")}</text></svg>`;
   }
   const status = new Map(vm.parts.map((p) => [p.id, p.status]));
   let springs = "";

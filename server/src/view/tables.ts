@@ -17,8 +17,8 @@ export function safetyTableHtml(vm: ViewModel): string {
 export function findingsHtml(vm: ViewModel): string {
   if (vm.findings.length === 0) return `<p class="none">No diagnostics.</p>`;
   let out = `<ul class="findings">`;
-  for (const f of vm.findings) {
-    out += `<li class="${f.severity}"${f.partId ? ` data-part="${esc(f.partId)}"` : ""}><span class="where">line ${f.range.start.line + 1}:${f.range.start.character + 1}</span> ` +
+  for (const [i, f] of vm.findings.entries()) {
+    out += `<li class="${f.severity}" data-finding="${i}"${f.partId ? ` data-part="${esc(f.partId)}"` : ""}><span class="where">line ${f.range.start.line + 1}:${f.range.start.character + 1}</span> ` +
       `<span class="severity">${f.severity}</span> <code>${esc(f.code)}</code> ${esc(f.message)}</li>`;
   }
   return out + "</ul>";
