@@ -136,3 +136,15 @@ describe("springs", () => {
     expect(ctx.findings.filter((f) => f.code === "strength.overstretch")).toEqual([]);
   });
 });
+
+describe("hole bearing", () => {
+  it("bearing stress in the link's wall at the largest reaction", () => {
+    const model = cantileverArm(50, { diameter: 0.004, material: "steel_1018", shearPlanes: 2 });
+    model.bodies[1]!.holeThickness = 0.003;
+    const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
+    const F = (50 + model.bodies[1]!.mass) * G;
+    // bearing stress F / (d t) (references.md: 500 N on 4 mm in a 3 mm plate gives 41.67 MPa)
+    expect(figure(ctx, "shoulder", "largest hole bearing stress")).toBeCloseTo(F / (0.004 * 0.003), 0);
+    expect(500 / (0.004 * 0.003) / 1e6).toBeCloseTo(41.67, 2);
+  });
+});

@@ -229,3 +229,20 @@ describe("vibration", () => {
     expect(Math.abs(f - rayleigh) / rayleigh).toBeLessThan(0.003);
   });
 });
+
+describe("lowest eigenvalue by inverse iteration", () => {
+  it("agrees with Jacobi on a cantilever's condensed matrix, and on a hand case", async () => {
+    const { lowestEigenvalue } = await import("../../server/src/mechanics/structure/dense");
+    // [[2, 1], [1, 2]]: eigenvalues 1 and 3 (hand calculation)
+    expect(lowestEigenvalue(new Float64Array([2, 1, 1, 2]), 2)).toBeCloseTo(1, 10);
+    // tridiagonal (2, -1): eigenvalues 2 - 2 cos(k pi / (n + 1)) (a standard closed form)
+    const n = 30;
+    const a = new Float64Array(n * n);
+    for (let i = 0; i < n; i++) {
+      a[i * n + i] = 2;
+      if (i > 0) a[i * n + i - 1] = a[(i - 1) * n + i] = -1;
+    }
+    expect(lowestEigenvalue(a, n)).toBeCloseTo(2 - 2 * Math.cos(Math.PI / (n + 1)), 10);
+    expect(symmetricEigen(Float64Array.from(a), n).values[0]).toBeCloseTo(2 - 2 * Math.cos(Math.PI / (n + 1)), 10);
+  });
+});

@@ -210,9 +210,15 @@ function reportPins(ctx: CheckContext, pinned: Joint[], pinWorst: Map<string, Wo
     if (!w || !r) continue;
     const pin = j.pin!;
     const where = describePose(sweep, w.pose, w.caseIndex);
+    let bearing = 0;
+    for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
+      const t = b && b.kind !== "base" ? (b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined)) : undefined;
+      if (t) bearing = Math.max(bearing, bearingStress(r.figure, pin.diameter, t));
+    }
     addFigures(ctx.readouts, j.id, "joint", [
       { label: "largest reaction", value: r.figure, dimension: "force", where: describePose(sweep, r.pose, r.caseIndex) },
       { label: "pin shear stress", value: pinShearStress(r.figure, pin.diameter, pin.shearPlanes), dimension: "pressure" },
+      ...(bearing > 0 ? [{ label: "largest hole bearing stress", value: bearing, dimension: "pressure" as const }] : []),
       { label: "pin safety factor", value: w.safety, dimension: "dimensionless", where },
     ]);
     noteSafety(ctx.readouts, j.id, "joint", w.safety, "pin", where);
