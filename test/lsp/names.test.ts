@@ -1,0 +1,56 @@
+// The name index of a spec, read from its syntax tree: every occurrence of a name resolves as the
+// model builder reads references (longest dotted prefix naming a body, then one point), so that
+// definition, references and rename agree with the model.
+import { describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
+import { join } from "node:path";
+import { parse } from "../../server/src/syntax/parser";
+import { buildModel } from "../../server/src/model/build";
+import { BUILTIN_MATERIAL_IDS } from "../../server/src/model/materials";
+import { buildNameIndex, occurrenceAt, occurrencesOf } from "../../server/src/lsp/names";
+
+const root = join(__dirname, "..", "..");
+const samples = ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"].map((n) => readFileSync(join(root, "samples", `${n}.poise`), "utf8"));
+const MAGNIFIER = samples[2]!;
+
+function textsOf(text: string, id: string): string[] {
+  const index = buildNameIndex(parse(text), BUILTIN_MATERIAL_IDS);
+  return occurrencesOf(index, id).map((o) => text.slice(o.span.start, o.span.end));
+}
+
+describe("name index", () => {
+  it("counts a parallelogram's name in the prefixes of its bodies", () => {
+    const index = buildNameIndex(parse(MAGNIFIER), BUILTIN_MATERIAL_IDS);
+    const all = occurrencesOf(index, "stage");
+    // `parallelogram stage`, `stage.lower(60 mm, 0 mm)`, `connects stage.head ...`.
+    expect(all.map((o) => o.declaration)).toEqual([true, false, false]);
+    expect(occurrencesOf(index, "stage.head").map((o) => MAGNIFIER.slice(o.span.start, o.span.end))).toEqual(["head"]);
+  });
+
+  it("resolves named and built-in points", () => {
+    expect(textsOf(MAGNIFIER, "clamp.hook")).toEqual(["hook", "hook"]);
+    const index = buildNameIndex(parse(MAGNIFIER), BUILTIN_MATERIAL_IDS);
+    const end = occurrenceAt(index, MAGNIFIER.indexOf("lens_arm.end") + "lens_arm.".length + 1);
+    expect(end?.symbolId).toBe("lens_arm.end");
+    expect(index.symbols.get("lens_arm.end")).toMatchObject({ builtin: true, renameable: false, parent: "lens_arm" });
+  });
+
+  it("finds built-in materials in every material position", () => {
+    // `bars rect 8 mm x 4 mm petg` and `material petg`.
+    expect(textsOf(MAGNIFIER, "petg")).toEqual(["petg", "petg"]);
+    // `pins 3 mm stainless_304` and `pin 3 mm stainless_304`.
+    expect(textsOf(MAGNIFIER, "stainless_304")).toEqual(["stainless_304", "stainless_304"]);
+  });
+
+  it("agrees with the model builder's own symbol table on every sample", () => {
+    for (const text of samples) {
+      const tree = parse(text);
+      const built = buildModel(tree, text);
+      const index = buildNameIndex(tree, BUILTIN_MATERIAL_IDS);
+      const ours = index.occurrences.filter((o) => !o.declaration).map((o) => `${o.span.start}:${o.symbolId}`).sort();
+      const theirs = built.symbols.references.map((r) => `${r.span.start}:${r.target.id}`).sort();
+      // Every reference the model builder resolved, the index resolves to the same id.
+      expect(ours).toEqual(expect.arrayContaining(theirs));
+    }
+  });
+});
