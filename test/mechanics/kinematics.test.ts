@@ -99,6 +99,23 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
   });
 });
 
+describe("dead points", () => {
+  it("stops a parallelogram where its bars line up with the uprights", () => {
+    // At 90 deg the bars lie along the spacing line: the four pivots are collinear and the stage
+    // can fold either way (change point of a parallelogram linkage; plane geometry).
+    const model = new ArmBuilder()
+      .parallelogram("reach", "ground", { x: 0, y: 0 }, { length: 0.3, spacing: 0.04, angle: deg(60), range: [deg(40), deg(130)], barMass: 0.1, headMass: 0.1 })
+      .sweep(7)
+      .build();
+    const sweep = solveSweep(model);
+    const locks = sweep.findings.filter((f) => f.code === "geometry.cannot-reach");
+    expect(locks.length).toBe(1);
+    expect(locks[0]!.data!["deadPoint"]).toBe(true);
+    expect(Math.abs((locks[0]!.data!["lockAngle"] as number) - deg(90))).toBeLessThan(deg(0.05));
+    expect(sweep.poses.map((p) => Math.round((p.angles["reach"]! * 180) / Math.PI))).toEqual([40, 55, 70, 85]);
+  });
+});
+
 describe("mobility", () => {
   it("reports a passive joint that no loop holds and still solves the rest", () => {
     const model = new ArmBuilder()

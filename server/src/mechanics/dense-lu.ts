@@ -19,6 +19,9 @@ export class DenseLu {
   private readonly cols: Int32Array;
   /** Smallest |pivot| over the largest |entry| of the last factorization (0 when singular). */
   pivotRatio = 0;
+  /** Sign of the determinant of the last factored matrix (+1 or -1; 0 when singular): a change
+   * between two poses means a singular configuration lies between them. */
+  determinantSign = 0;
 
   constructor(n: number) {
     this.n = n;
@@ -49,6 +52,7 @@ export class DenseLu {
       return false;
     }
     let minPivot = Infinity;
+    let sign = 1;
     for (let k = 0; k < n; k++) {
       let p = k;
       let best = Math.abs(lu[k * n + k]!);
@@ -61,6 +65,7 @@ export class DenseLu {
       }
       if (best === 0) {
         this.pivotRatio = 0;
+        this.determinantSign = 0;
         return false;
       }
       if (p !== k) {
@@ -72,8 +77,10 @@ export class DenseLu {
         const t = perm[k]!;
         perm[k] = perm[p]!;
         perm[p] = t;
+        sign = -sign;
       }
       const pivot = lu[k * n + k]!;
+      if (pivot < 0) sign = -sign;
       if (best < minPivot) minPivot = best;
       const cols = this.cols;
       let nnz = 0;
@@ -92,6 +99,7 @@ export class DenseLu {
       }
     }
     this.pivotRatio = minPivot / scale;
+    this.determinantSign = sign;
     return this.pivotRatio > SINGULAR_PIVOT_RATIO;
   }
 

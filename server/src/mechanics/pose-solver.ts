@@ -72,6 +72,9 @@ export class PoseSolver {
   factorizations = 0;
   /** Set when the last moveTo stopped at the deadline rather than at a lock. */
   timedOut = false;
+  /** Set when the last moveTo stopped at a dead point (the Jacobian's determinant changes sign:
+   * the linkage passes a singular configuration, e.g. a parallelogram folding flat). */
+  deadPoint = false;
 
   constructor(
     readonly linkage: Linkage,
@@ -153,6 +156,7 @@ export class PoseSolver {
    * pose stays at the last angles reached (the lock) and false is returned. */
   moveTo(target: Float64Array, deadline = Infinity): boolean {
     this.timedOut = false;
+    this.deadPoint = false;
     const ndof = this.ndof;
     const n = this.n;
     const start = Float64Array.from(this.angles);
@@ -182,7 +186,11 @@ export class PoseSolver {
         for (let i = 0; i < n; i++) this.qPredicted[i]! += t[i]! * move;
       }
       this.setDriveAngles(trialAngles);
-      if (this.correct()) {
+      const corrected = this.correct();
+      const crossed = corrected && this.luTrial.determinantSign !== this.luCurrent.determinantSign;
+      if (crossed) this.deadPoint = true;
+      if (corrected && !crossed) {
+        this.deadPoint = false;
         // Accept: the trial factorization becomes the current one.
         const swap = this.luCurrent;
         this.luCurrent = this.luTrial;

@@ -215,8 +215,8 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
       finding(
         "geometry.cannot-reach",
         joint.origin.properties["range"] ?? joint.origin.name ?? joint.origin.declaration,
-        `Joint ${joint.id} locks at ${formatAngle(lock)}${others ? ` (with ${others})` : ""}: the linkage cannot reach ${formatAngle(node.angles[moved]!)} and beyond, inside its range ${formatAngle(dof.range[0])} .. ${formatAngle(dof.range[1])}.`,
-        { data: { jointId: joint.id, lockAngle: lock, direction: dir } },
+        `Joint ${joint.id} locks at ${formatAngle(lock)}${others ? ` (with ${others})` : ""}${solver.deadPoint ? ", a dead point where its pivots line up and it can fold either way" : ""}: the linkage cannot reach ${formatAngle(node.angles[moved]!)} and beyond, inside its range ${formatAngle(dof.range[0])} .. ${formatAngle(dof.range[1])}.`,
+        { data: { jointId: joint.id, lockAngle: lock, direction: dir, deadPoint: solver.deadPoint } },
       ),
     );
   }
