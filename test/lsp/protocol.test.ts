@@ -29,6 +29,7 @@ import { ProtocolSession, ROOT, ensureBuilt, positionOf } from "./protocol-clien
 import { INCH_M } from "../../server/src/units/unit-table";
 import { SPEC_SUMMARY_NOTIFICATION, type SpecSummary } from "../../server/src/lsp/custom-protocol";
 import { poise } from "../cli/run-cli";
+import { CODES } from "../../server/src/checks/codes";
 
 const CAMERA = readFileSync(join(ROOT, "samples", "camera-arm.poise"), "utf8");
 const uri = "file:///work/camera-arm.poise";
@@ -201,6 +202,30 @@ describe("a sample over the protocol", () => {
     // The sweep table rounds to 0.0001 N.
     expect(Math.abs(s.worstHandForce!.valueN - largest)).toBeLessThan(1e-4);
     expect(s.text).toContain("hand");
+  });
+});
+
+describe("the sample full of mistakes", () => {
+  const MISTAKES = readFileSync(join(ROOT, "samples", "mistakes.poise"), "utf8");
+  const u = "file:///work/mistakes.poise";
+
+  it("hovers a finding with what its code means", async () => {
+    await session.open(u, MISTAKES);
+    const h = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri: u }, position: positionOf(MISTAKES, "plaa", 2) });
+    expect(hoverText(h)).toContain(`\`name.unknown\` — ${CODES["name.unknown"].explanation}`);
+  });
+
+  it("refuses a rename onto a name already taken, and a name that is not one", async () => {
+    const position = positionOf(MISTAKES, "link boom", 6);
+    const taken = session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "forearm" });
+    await expect(taken).rejects.toThrow(/already a name/);
+    const bad = session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "2nd boom" });
+    await expect(bad).rejects.toThrow(/cannot be a name/);
+    const fine = (await session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "upper_arm" })) as WorkspaceEdit;
+    // `link boom`, `boom.start`, `boom.tip`, `boom(80 mm, 0 mm)`, `boom.end`: every `boom` but
+    // the one in a comment.
+    const outsideComments = MISTAKES.replace(/#.*$/gm, "");
+    expect(fine.changes![u]).toHaveLength(outsideComments.split(/\bboom\b/).length - 1);
   });
 });
 
