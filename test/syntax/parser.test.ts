@@ -234,3 +234,13 @@ describe("recovery", () => {
     expect(tree.arms.map((a) => a.title?.value)).toEqual(["a", "b"]);
   });
 });
+
+describe("pathological input", () => {
+  test("deep nesting neither throws nor overflows the stack: one error, the arm kept", () => {
+    const text = `arm "x" {${"{".repeat(20000)}${"}".repeat(20000)}}`;
+    const tree = parse(text);
+    expect(tree.arms).toHaveLength(1);
+    expect(tree.errors).toHaveLength(1);
+    expect(tree.errors[0]!.message).not.toContain("internal");
+  });
+});

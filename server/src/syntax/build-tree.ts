@@ -52,6 +52,8 @@ function allTokens(node: CstNode): IToken[] {
 }
 
 function nodeSpan(node: CstNode): Span {
+  const loc = node.location;
+  if (loc && Number.isFinite(loc.startOffset) && loc.endOffset !== undefined && Number.isFinite(loc.endOffset)) return span(loc.startOffset, loc.endOffset + 1);
   const ts = allTokens(node);
   if (ts.length === 0) return span(0, 0);
   return span(ts[0]!.startOffset, ts[ts.length - 1]!.endOffset! + 1);
@@ -66,8 +68,8 @@ function quote(text: string): string {
 function ordered(node: CstNode): (CstNode | IToken)[] {
   const parts: (CstNode | IToken)[] = [];
   for (const list of Object.values(node.children)) for (const c of list ?? []) if (!isToken(c) || !c.isInsertedInRecovery) parts.push(c);
-  const start = (x: CstNode | IToken) => (isToken(x) ? x.startOffset : nodeSpan(x).start);
-  return parts.sort((a, b) => start(a) - start(b));
+  const starts = new Map(parts.map((p) => [p, isToken(p) ? p.startOffset : nodeSpan(p).start]));
+  return parts.sort((a, b) => starts.get(a)! - starts.get(b)!);
 }
 
 interface UnclosedAtEnd {

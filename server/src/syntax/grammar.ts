@@ -29,6 +29,9 @@ import { isUnitSymbol } from "../units/unit-table";
 /** Blocks nest: the file (0) holds the arm, the arm's body (1) holds declarations, a declaration's
  * body (2) holds properties. */
 const DECLARATION_BODY_DEPTH = 2;
+/** The language nests two blocks deep; past this, braces are left unparsed (one error) rather
+ * than recursing until the stack runs out on pathological input. */
+const MAX_NESTING = 64;
 
 const DECLARATION_STARTERS: ReadonlySet<string> = new Set([...DECLARATION_KEYWORDS, "arm"]);
 
@@ -37,7 +40,8 @@ export class ArmGrammar extends CstParser {
   private depth = 0;
 
   constructor() {
-    super(ALL_TOKENS, { recoveryEnabled: true, maxLookahead: 3 });
+    // Node locations let the tree builder take spans without walking every node's tokens.
+    super(ALL_TOKENS, { recoveryEnabled: true, maxLookahead: 3, nodeLocationTracking: "onlyOffset" });
     this.performSelfAnalysis();
   }
 
@@ -67,7 +71,7 @@ export class ArmGrammar extends CstParser {
         { ALT: () => this.CONSUME(Semicolon) },
         { ALT: () => this.CONSUME(RCurly) },
         { ALT: () => this.SUBRULE(this.item) },
-        { ALT: () => this.SUBRULE(this.block) },
+        { GATE: () => this.depth < MAX_NESTING, ALT: () => this.SUBRULE(this.block) },
         { ALT: () => this.SUBRULE(this.strayLine) },
       ]);
     });
@@ -90,7 +94,7 @@ export class ArmGrammar extends CstParser {
           { ALT: () => this.CONSUME(NewLine) },
           { ALT: () => this.CONSUME(Semicolon) },
           { ALT: () => this.SUBRULE(this.item) },
-          { ALT: () => this.SUBRULE(this.block) },
+          { GATE: () => this.depth < MAX_NESTING, ALT: () => this.SUBRULE(this.block) },
           { ALT: () => this.SUBRULE(this.strayLine) },
         ]);
       },
@@ -102,7 +106,7 @@ export class ArmGrammar extends CstParser {
     this.CONSUME(Identifier);
     this.MANY(() => this.SUBRULE(this.value));
     this.OPTION(() => this.SUBRULE(this.junk));
-    this.OPTION2(() => this.SUBRULE(this.block));
+    this.OPTION2({ GATE: () => this.depth < MAX_NESTING, DEF: () => this.SUBRULE(this.block) });
   });
 
   /** A line that starts with something other than a word. */
