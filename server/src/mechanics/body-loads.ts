@@ -3,7 +3,7 @@
 // reactions (the parent's force on the child, and its opposite on the parent), and the holding
 // and locking couples at degrees of freedom and locked joints. For any body but the base, the
 // forces and the moments of one pose and load case sum to zero (the base's support is not listed).
-import type { ArmModel, Vec2 } from "../model/types";
+import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 
 export type LoadKind = "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
@@ -20,9 +20,51 @@ export interface AppliedLoad {
   couple: number;
 }
 
+/** What touches each body, indexed once per model (the strength checks ask for every body at
+ * every pose and load case). Models are values: nothing changes them once built. */
+interface BodyIndex {
+  bodies: Map<string, Body>;
+  payloads: Map<string, Payload[]>;
+  springEnds: Map<string, { spring: Spring; end: "a" | "b" }[]>;
+  torsions: Map<string, { spring: Spring; joint: Joint; side: 1 | -1 }[]>;
+  joints: Map<string, { joint: Joint; side: 1 | -1 }[]>;
+}
+const indexes = new WeakMap<ArmModel, BodyIndex>();
+
+function push<T>(map: Map<string, T[]>, key: string, value: T): void {
+  const list = map.get(key);
+  if (list) list.push(value);
+  else map.set(key, [value]);
+}
+
+function bodyIndex(model: ArmModel): BodyIndex {
+  let ix = indexes.get(model);
+  if (ix) return ix;
+  ix = { bodies: new Map(model.bodies.map((b) => [b.id, b])), payloads: new Map(), springEnds: new Map(), torsions: new Map(), joints: new Map() };
+  for (const p of model.payloads) push(ix.payloads, p.body, p);
+  const jointsById = new Map(model.joints.map((j) => [j.id, j]));
+  for (const s of model.springs) {
+    if (s.kind === "torsion") {
+      const j = jointsById.get(s.joint);
+      if (!j) continue;
+      push(ix.torsions, j.parent, { spring: s, joint: j, side: 1 });
+      push(ix.torsions, j.child, { spring: s, joint: j, side: -1 });
+      continue;
+    }
+    push(ix.springEnds, s.a.body, { spring: s, end: "a" });
+    push(ix.springEnds, s.b.body, { spring: s, end: "b" });
+  }
+  for (const j of model.joints) {
+    push(ix.joints, j.child, { joint: j, side: 1 });
+    if (j.parent !== j.child) push(ix.joints, j.parent, { joint: j, side: -1 });
+  }
+  indexes.set(model, ix);
+  return ix;
+}
+
 /** World position of a body's local point at a pose (the base's frame is the world). */
 export function worldPoint(pose: Pose, bodyId: string, localPoint: Vec2, model: ArmModel): Vec2 {
-  const body = model.bodies.find((b) => b.id === bodyId);
+  const body = bodyIndex(model).bodies.get(bodyId);
   if (body?.kind === "base") return { x: localPoint.x, y: localPoint.y };
   const bp = pose.bodies[bodyId];
   if (!bp) return { x: NaN, y: NaN };
@@ -36,56 +78,49 @@ export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" 
   const statics = pose.cases[caseIndex];
   const loadCase = sweep.loadCases[caseIndex];
   if (!statics || !loadCase || !pose.bodies[bodyId]) return loads;
+  const ix = bodyIndex(model);
   const g = model.gravity;
   const zero = { x: 0, y: 0 };
-  const body = model.bodies.find((b) => b.id === bodyId);
+  const body = ix.bodies.get(bodyId);
   if (body && body.mass !== 0 && body.kind !== "base") {
     loads.push({ kind: "gravity", id: body.id, point: worldPoint(pose, bodyId, body.centreOfMass, model), force: { x: 0, y: -body.mass * g }, couple: 0 });
   }
-  for (const p of model.payloads) {
-    if (p.body !== bodyId) continue;
+  for (const p of ix.payloads.get(bodyId) ?? []) {
     const at = worldPoint(pose, bodyId, p.point, model);
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     loads.push({ kind: "payload", id: p.id, point: at, force: { x: 0, y: -mass * g }, couple: 0 });
     if (p.force && (p.force.x !== 0 || p.force.y !== 0)) loads.push({ kind: "payload-force", id: p.id, point: at, force: { ...p.force }, couple: 0 });
   }
-  const jointsById = new Map(model.joints.map((j) => [j.id, j]));
-  for (const s of model.springs) {
+  for (const t of ix.torsions.get(bodyId) ?? []) {
+    const state = pose.springs[t.spring.id];
+    const torque = statics.springForce[t.spring.id];
+    if (!state || torque === undefined) continue;
+    // The spring applies T to the parent and -T to the child.
+    loads.push({ kind: "torsion", id: t.spring.id, point: state.a, force: zero, couple: t.side * torque });
+  }
+  for (const { spring: s, end } of ix.springEnds.get(bodyId) ?? []) {
     const state = pose.springs[s.id];
     const force = statics.springForce[s.id];
     if (!state || force === undefined) continue;
-    if (s.kind === "torsion") {
-      const j = jointsById.get(s.joint);
-      if (!j) continue;
-      if (j.parent === bodyId) loads.push({ kind: "torsion", id: s.id, point: state.a, force: zero, couple: force });
-      if (j.child === bodyId) loads.push({ kind: "torsion", id: s.id, point: state.a, force: zero, couple: -force });
-      continue;
-    }
     const dx = state.b.x - state.a.x;
     const dy = state.b.y - state.a.y;
     const len = Math.hypot(dx, dy);
     if (!(len > 0)) continue;
     const ux = (force * dx) / len;
     const uy = (force * dy) / len;
-    if (s.a.body === bodyId) loads.push({ kind: "spring", id: s.id, point: state.a, force: { x: ux, y: uy }, couple: 0 });
-    if (s.b.body === bodyId) loads.push({ kind: "spring", id: s.id, point: state.b, force: { x: -ux, y: -uy }, couple: 0 });
+    if (end === "a") loads.push({ kind: "spring", id: s.id, point: state.a, force: { x: ux, y: uy }, couple: 0 });
+    else loads.push({ kind: "spring", id: s.id, point: state.b, force: { x: -ux, y: -uy }, couple: 0 });
   }
-  const holdingByJoint = new Map<string, number>();
-  for (const d of sweep.dofs) {
-    const t = statics.holdingTorque[d.id];
-    if (t !== undefined) holdingByJoint.set(d.jointId, t);
-  }
-  for (const j of model.joints) {
+  for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
     const r = statics.reactions[j.id];
     if (!r) continue;
-    if (j.child !== bodyId && j.parent !== bodyId) continue;
-    const sign = j.child === bodyId ? 1 : -1;
-    const pivot = j.child === bodyId ? worldPoint(pose, j.child, j.childPoint, model) : worldPoint(pose, j.parent, j.parentPoint, model);
-    loads.push({ kind: "reaction", id: j.id, point: pivot, force: { x: sign * r.x, y: sign * r.y }, couple: 0 });
-    const hold = holdingByJoint.get(j.id);
-    if (hold !== undefined) loads.push({ kind: "holding", id: j.id, point: pivot, force: zero, couple: sign * hold });
+    const pivot = side === 1 ? worldPoint(pose, j.child, j.childPoint, model) : worldPoint(pose, j.parent, j.parentPoint, model);
+    loads.push({ kind: "reaction", id: j.id, point: pivot, force: { x: side * r.x, y: side * r.y }, couple: 0 });
+    // A dof's id is its joint's id (conventions).
+    const hold = statics.holdingTorque[j.id];
+    if (hold !== undefined && sweep.dofs.some((d) => d.jointId === j.id)) loads.push({ kind: "holding", id: j.id, point: pivot, force: zero, couple: side * hold });
     const locked = statics.lockedTorque[j.id];
-    if (locked !== undefined) loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: sign * locked });
+    if (locked !== undefined) loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: side * locked });
   }
   return loads;
 }
