@@ -148,3 +148,23 @@ describe("clearance", () => {
     expect(ctx.findings.some((x) => x.code === "geometry.clearance" && x.message.includes("runs into"))).toBe(true);
   });
 });
+
+describe("toggle of a textbook balancer", () => {
+  it("a zero-free-length spring reaching the vertical is not a toggle: the gravity torque vanishes there too", () => {
+    // Streit and Gilmore (1989): k a b = m g l balances m at l for every angle; at the vertical
+    // both the spring's lever arm and the gravity torque are zero
+    const m = 1;
+    const l = 0.4;
+    const a = 0.05;
+    const b = 0.1;
+    const model = new ArmBuilder("post", { pivot: { x: 0, y: 0.3 }, top: { x: 0, y: 0.3 + a } })
+      .link("boom", l, 0)
+      .joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", { x: 0, y: 0 }, 0, { range: [deg(0), deg(90)] })
+      .zeroLength("lift", ["post", { x: 0, y: 0.3 + a }], ["boom", { x: b, y: 0 }], (m * 9.80665 * l) / (a * b))
+      .payload("lamp", "boom", { x: l, y: 0 }, m)
+      .sweep(19)
+      .build();
+    const ctx = runFamily(checkGeometry, model, solveSweep(model));
+    expect(ctx.findings.filter((f) => f.code === "geometry.spring-toggle")).toEqual([]);
+  });
+});

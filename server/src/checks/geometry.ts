@@ -18,6 +18,10 @@ import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from 
  * (sin 5.7 deg = 0.1), and the spring must pull ten times harder than at a right angle for the
  * same torque (common practice, no source). */
 export const TOGGLE_LEVER_SHARE = 0.1;
+/** A collapsing lever arm does no harm where the torque the spring is there to supply vanishes
+ * too (a zero-free-length balancer reaching the vertical): below this share of its largest
+ * value over the range the toggle is not reported (common practice, no source). */
+const HARMLESS_TORQUE_SHARE = 0.1;
 /** Below this force (N) a spring is not working and its line of action does not matter. */
 const IDLE_SPRING_N = 1e-6;
 /** Extension springs within this of their free length count as slack (sweep rounding). */
@@ -57,12 +61,27 @@ function workingJoint(model: ArmModel, sweep: SweepResult, s: Exclude<Spring, { 
   return best?.joint;
 }
 
+/** |holding torque the dof would need without this spring| (largest over load cases), N m:
+ * the torque the spring is there to supply. 0 when the sweep gives no per-spring share. */
+function torqueWithoutSpring(pose: Pose, springId: string, dofId: string): number {
+  const perUnit = pose.springTorquePerUnit?.[springId]?.[dofId];
+  if (perUnit === undefined) return 0;
+  let most = 0;
+  for (const c of pose.cases) {
+    const tau = c.holdingTorque[dofId];
+    if (tau === undefined) continue;
+    most = Math.max(most, Math.abs(tau - (c.springForce[springId] ?? 0) * perUnit));
+  }
+  return most;
+}
+
 function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>): void {
   const { model, sweep } = ctx;
   const j = workingJoint(model, sweep, s);
   if (!j) return;
-  let worst: { share: number; arm: number; radius: number; pose: Pose } | undefined;
+  let worst: { share: number; arm: number; radius: number; pose: Pose; duty: number } | undefined;
   let smallest: { arm: number; pose: Pose } | undefined;
+  let largestDuty = 0;
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     const st = pose.springs[s.id];
@@ -73,11 +92,14 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
     const arm = leverArm(st.a, st.b, p);
     const radius = Math.min(Math.hypot(st.a.x - p.x, st.a.y - p.y), Math.hypot(st.b.x - p.x, st.b.y - p.y));
     const share = radius > 0 ? arm / radius : 1;
-    if (!worst || share < worst.share) worst = { share, arm, radius, pose };
+    const duty = torqueWithoutSpring(pose, s.id, j.id);
+    largestDuty = Math.max(largestDuty, duty);
+    if (!worst || share < worst.share) worst = { share, arm, radius, pose, duty };
     if (!smallest || arm < smallest.arm) smallest = { arm, pose };
   }
   if (smallest) addFigures(ctx.readouts, s.id, "spring", [{ label: `least lever arm about ${j.id}`, value: smallest.arm, dimension: "length", where: describePose(sweep, smallest.pose) }]);
   if (!worst || worst.share >= TOGGLE_LEVER_SHARE) return;
+  if (largestDuty > 0 && worst.duty < HARMLESS_TORQUE_SHARE * largestDuty) return;
   ctx.findings.push(
     finding(
       "geometry.spring-toggle",
