@@ -50,6 +50,13 @@ export class WorkerRunner implements AnalysisRunner {
   private current: Job | undefined;
   private nextId = 1;
   private disposed = false;
+  /** Worker faults since the last good reply (a worker that cannot even start keeps failing). */
+  private faults = 0;
+
+  /** True once the worker has failed again and again: the caller should analyse in-thread. */
+  get broken(): boolean {
+    return this.faults >= WORKER_FAULTS_BEFORE_GIVING_UP;
+  }
 
   constructor(
     private readonly workerPath: string,
@@ -82,6 +89,7 @@ export class WorkerRunner implements AnalysisRunner {
     const worker = new Worker(this.workerPath);
     worker.on("message", (reply: WorkerReply) => this.onReply(reply));
     worker.on("error", (err) => {
+      this.faults++;
       this.onFault(`analysis worker error: ${err instanceof Error ? err.message : String(err)}`);
       this.dropWorker(worker);
       if (this.current) this.finish(this.current, { kind: "failed", message: String(err) }, false);
@@ -118,6 +126,7 @@ export class WorkerRunner implements AnalysisRunner {
   private onReply(reply: WorkerReply): void {
     const job = this.current;
     if (!job || job.id !== reply.id) return; // a reply for a run already given up on
+    this.faults = 0;
     this.finish(job, "analysis" in reply ? { kind: "done", analysis: reply.analysis } : { kind: "failed", message: reply.error }, false);
   }
 
@@ -159,7 +168,32 @@ export class InThreadRunner implements AnalysisRunner {
   dispose(): void {}
 }
 
+/** Consecutive worker faults after which analysis moves into the server's own thread (slower
+ * answers while a sweep runs, but answers). Common practice, no source. */
+const WORKER_FAULTS_BEFORE_GIVING_UP = 3;
+
+/** The worker while it works; the server's own thread once the worker keeps failing. */
+export class FallbackRunner implements AnalysisRunner {
+  private readonly inThread = new InThreadRunner();
+  private said = false;
+  constructor(
+    private readonly worker: WorkerRunner,
+    private readonly onFault: (message: string) => void,
+  ) {}
+
+  run(text: string, options: AnalysisOptions, hardLimitMs: number): RunHandle {
+    if (!this.worker.broken) return this.worker.run(text, options, hardLimitMs);
+    if (!this.said) this.onFault("analysis worker keeps failing: analysing in the server's own thread");
+    this.said = true;
+    return this.inThread.run(text, options);
+  }
+
+  dispose(): void {
+    this.worker.dispose();
+  }
+}
+
 export function createRunner(onFault: (message: string) => void): AnalysisRunner {
   const path = bundledWorkerPath();
-  return path ? new WorkerRunner(path, onFault) : new InThreadRunner();
+  return path ? new FallbackRunner(new WorkerRunner(path, onFault), onFault) : new InThreadRunner();
 }
