@@ -72,10 +72,15 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
   const known = opts.known ?? new Set<string>();
   const result: CampaignResult = { cases: 0, repeats: 0, failures: [], byFamily: {}, interrupted: false };
   const started = performance.now();
-  const overTime = () => opts.timeLimitMs !== undefined && performance.now() - started > opts.timeLimitMs;
   let seed = opts.seed;
+  let weightSoFar = 0;
 
   for (const family of families) {
+    // Each family gets its share of the time budget (plus whatever earlier ones left unused), so a
+    // slow family cannot starve the rest.
+    weightSoFar += FAMILY_WEIGHTS[family];
+    const familyDeadline = opts.timeLimitMs !== undefined ? started + (opts.timeLimitMs * weightSoFar) / totalWeight : Infinity;
+    const overTime = () => performance.now() > familyDeadline;
     let remaining = Math.max(1, Math.round((opts.runs * FAMILY_WEIGHTS[family]) / totalWeight));
     const arb = familyArbitrary(family, opts.samples);
     let shrinking = false;
@@ -103,7 +108,7 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
       const details = fc.check(property, {
         seed,
         numRuns: remaining,
-        ...(opts.timeLimitMs !== undefined ? { interruptAfterTimeLimit: Math.max(1, opts.timeLimitMs - (performance.now() - started)) } : {}),
+        ...(opts.timeLimitMs !== undefined ? { interruptAfterTimeLimit: Math.max(1, familyDeadline - performance.now()) } : {}),
         markInterruptAsFailure: false,
       });
       remaining -= Math.max(1, result.cases - casesBefore);
@@ -127,6 +132,6 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
       seed = (seed * 1103515245 + 12345) % 2147483647;
     }
   }
-  if (overTime()) result.interrupted = true;
+  if (opts.timeLimitMs !== undefined && performance.now() - started > opts.timeLimitMs) result.interrupted = true;
   return result;
 }
