@@ -67,6 +67,26 @@ describe("layer rules", () => {
     expect(offenders).toEqual([]);
   });
 
+  it("the client reaches the server only through its message declarations (lsp/*-protocol.ts)", () => {
+    const clientFiles = filesUnder(join(root, "client", "src"));
+    expect(clientFiles.length).toBeGreaterThan(0);
+    const offenders = clientFiles.flatMap((f) =>
+      importsOf(readFileSync(f, "utf8"))
+        .filter((s) => s.includes("server/src/") && !/server\/src\/lsp\/[a-z-]+-protocol$/.test(s))
+        .map((s) => `${relative(root, f)}: ${s}`),
+    );
+    expect(offenders).toEqual([]);
+  });
+
+  it("those message declarations import types only, so the client bundles no server code", () => {
+    const declarations = filesUnder(join(src, "lsp")).filter((f) => f.endsWith("-protocol.ts"));
+    expect(declarations.length).toBeGreaterThan(0);
+    for (const f of declarations) {
+      const valueImports = readFileSync(f, "utf8").split("\n").filter((l) => /^\s*import\s/.test(l) && !/^\s*import\s+type\s/.test(l));
+      expect(valueImports, relative(root, f)).toEqual([]);
+    }
+  });
+
   it("the core reaches no shell folder (lsp, cli) and no client code", () => {
     const offenders = coreFiles.flatMap((f) =>
       importsOf(readFileSync(f, "utf8"))
