@@ -148,3 +148,66 @@ describe("hole bearing", () => {
     expect(500 / (0.004 * 0.003) / 1e6).toBeCloseTo(41.67, 2);
   });
 });
+
+describe("spring limits of the other kinds", () => {
+  const base = () => baseBody("post", { top: { x: 0, y: 0.3 }, anchor: { x: 0, y: 0.4 } });
+  const boom = () => linkBody("boom", L, tube, "aluminium_6061_t6");
+  const shoulder = () => joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range");
+  const hooks = {
+    a: { body: "post", point: { x: 0, y: 0.4 }, span: { start: 0, end: 1 } },
+    b: { body: "boom", point: { x: 0.2, y: 0 }, span: { start: 0, end: 1 } },
+  };
+  // hook-to-hook length at boom angle t: anchor 0.1 m above the pivot, hook 0.2 m along the boom
+  const length = (t: number) => Math.hypot(0.2 * Math.cos(t), 0.1 - 0.2 * Math.sin(t));
+
+  it("a cord stretched past max_stretch", () => {
+    const model = armModel({
+      bodies: [base(), boom()],
+      joints: [shoulder()],
+      springs: [{ id: "cord", kind: "elastic", ...hooks, freeLength: 0.15, area: 2e-5, material: "petg", maxStretch: 1.4, origin: origin("max_stretch") }],
+    });
+    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.4 }, { shoulder: 0.4 }]));
+    const f = ctx.findings.find((x) => x.code === "strength.overstretch")!;
+    // stretch = L / L0 at the lowest pose (the longest)
+    expect(f.data!["stretch"]).toBeCloseTo(length(-0.4) / 0.15, 12);
+    expect(f.span).toEqual(model.springs[0]!.origin.properties["max_stretch"]);
+    expect(ctx.readouts["cord"]!.notes.some((n) => /creep/.test(n))).toBe(true);
+  });
+
+  it("a gas strut that would have to be shorter than fully compressed", () => {
+    const model = armModel({
+      bodies: [base(), boom()],
+      joints: [shoulder()],
+      springs: [{ id: "strut", kind: "gas", ...hooks, force: 50, progression: 1.3, stroke: 0.05, extendedLength: 0.24, origin: origin("stroke", "extended_length") }],
+    });
+    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.4 }]));
+    const f = ctx.findings.find((x) => x.message.includes("bottoms out"))!;
+    // fully compressed length = extended length - stroke = 190 mm; the arm needs length(0.4)
+    expect(length(0.4)).toBeLessThan(0.19);
+    expect(f.data!["length"]).toBeCloseTo(length(0.4), 12);
+    expect(f.data!["limit"]).toBeCloseTo(0.19, 12);
+  });
+
+  it("a torsion spring wound past max_angle", () => {
+    const model = armModel({
+      bodies: [base(), boom()],
+      joints: [shoulder()],
+      springs: [{ id: "coil", kind: "torsion", joint: "shoulder", rate: 0.5, preloadTorque: 0, maxAngle: 0.3, origin: origin("max_angle") }],
+    });
+    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.5 }]));
+    const f = ctx.findings.find((x) => x.code === "strength.overstretch")!;
+    // wind-up from free = the joint's turn from its reference (no preload): 0.5 rad
+    expect(f.data!["windUp"]).toBeCloseTo(0.5, 12);
+  });
+});
+
+describe("printed material without a layer strength", () => {
+  it("uses half the in-plane strength (references.md: 0.5, Ahn et al. 2002)", () => {
+    const model = cantileverArm(1);
+    model.materials = { ...model.materials, pla_plain: { ...MATERIALS["petg"]!, id: "pla_plain", layerStrength: undefined, strength: 50e6 } };
+    model.bodies[1] = linkBody("boom", L, { shape: "rect", depth: 0.008, width: 0.004 }, "petg");
+    model.bodies[1]!.material = "pla_plain";
+    const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
+    expect(ctx.readouts["boom"]!.worstSafety!.value).toBeCloseTo((0.5 * 50e6) / figure(ctx, "boom", "largest stress")!, 9);
+  });
+});
