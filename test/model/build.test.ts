@@ -274,3 +274,33 @@ describe("mobility (Gruebler-Kutzbach per biconnected block)", () => {
     expect(r.unheld).toEqual([]);
   });
 });
+
+describe("one finding per mistake, at the word", () => {
+  const base = `  base foot { point top (0 mm, 100 mm); point hook (0 mm, 150 mm) }
+  link boom { length 300 mm; mass 100 g }
+  joint sh { connects foot.top to boom.start; range 0 deg .. 30 deg }
+  parallelogram reach { on boom.end; length 200 mm; spacing 30 mm; range 0 deg .. 10 deg; bars rect 10 mm x 4 mm petg }
+`;
+  const cases: [string, string, string][] = [
+    ["joint j2 { connects foot.top boom.end; fixed }", "value.invalid", "boom.end"],
+    ["spring s { extension\n between foot.hook boom.end\n rate 1 N/mm\n free_length 20 mm }", "value.invalid", "boom.end"],
+    ["payload p { mass 1 kg; at reach.lowr(1 mm, 0 mm) }", "name.unknown", "lowr"],
+    ["payload p { mass 1 kg; at reach }", "value.invalid", "reach"],
+    ["payload p { mass 1 kg; at sh }", "value.invalid", "sh"],
+    ["payload p { mass 1 kg; at boom.end(1 mm, 0 mm) }", "value.invalid", "(1 mm, 0 mm)"],
+    ["spring s { gas\n between foot.hook and boom.end }", "property.missing", "s"],
+    ["spring s { torsion\n at boom\n rate 2 N*m/rad }", "value.invalid", "boom"],
+    ["spring s { extension\n between foot.hook and boom.end\n rate 2 N*m/rad\n free_length 20 mm }", "unit.wrong-dimension", "N*m/rad"],
+    ["sweep { grid maybe }", "value.invalid", "maybe"],
+  ];
+  for (const [decl, code, word] of cases) {
+    test(`${code} on \`${word}\` in ${decl.split("\n")[0]}`, () => {
+      const text = `arm "x" {\n${base}  ${decl}\n}\n`;
+      const declStart = text.indexOf(decl);
+      const at = text.indexOf(word, declStart + (word === "s" ? 7 : 0));
+      const findings = build(text).findings.filter((f) => f.severity === "error");
+      expect(findings.map((f) => [f.code, text.slice(f.span.start, f.span.end)])).toEqual([[code, word]]);
+      expect(findings[0]!.span.start).toBe(at);
+    });
+  }
+});

@@ -244,11 +244,23 @@ export class Props {
     return this.decl.name?.span ?? this.decl.keyword.span;
   }
 
-  /** Reports a missing required property at the declaration's name. */
+  private readonly missingKeys: { key: string; note: string }[] = [];
+
+  /** Notes a missing required property; `flushMissing` reports them all in one finding at the
+   * declaration's name (one declaration, one finding for what it lacks). */
   missing(key: string, note = ""): void {
-    this.r.add("property.missing", this.nameSpan, `${this.what} needs \`${key}\`${note}, e.g. \`${this.spec_(key).example}\``, {
-      data: { insert: this.spec_(key).example },
+    if (!this.missingKeys.some((m) => m.key === key)) this.missingKeys.push({ key, note });
+  }
+
+  flushMissing(): void {
+    if (this.missingKeys.length === 0) return;
+    const keys = this.missingKeys.map((m) => `\`${m.key}\``);
+    const note = [...new Set(this.missingKeys.map((m) => m.note).filter((n) => n))].join("");
+    const examples = this.missingKeys.map((m) => this.spec_(m.key).example);
+    this.r.add("property.missing", this.nameSpan, `${this.what} needs ${listWords(keys)}${note}, e.g. \`${examples[0]}\``, {
+      data: { insert: examples.join("\n"), keys: this.missingKeys.map((m) => m.key) },
     });
+    this.missingKeys.length = 0;
   }
 
   /** The span of a property by key, for model origins and for findings on `rate` etc. */

@@ -221,8 +221,7 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
   const material = materialOf(ctx, p, "material");
   const mass = nonNegative(ctx, p, "mass", "mass", "a mass");
   if (!p.has("mass") && (!p.has("section") || !p.has("material"))) {
-    const lacking = ["section", "material"].filter((k) => !p.has(k));
-    p.missing(lacking[0]!, lacking.length > 1 ? " and `material` (or `mass`)" : " (or `mass`)");
+    for (const k of ["section", "material"]) if (!p.has(k)) p.missing(k, " (or `mass`)");
   }
   const holes = positiveLength(ctx, p, "holes", "a hole's wall");
   const L = length?.value ?? 0;

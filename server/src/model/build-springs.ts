@@ -96,6 +96,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       ctx.r.add("property.missing", p.nameSpan, `${p.what} needs \`rate\` (or its coil: \`wire\`, \`coil\`, \`coils\`, \`material\`), e.g. \`rate 0.8 N/mm\``, { data: { insert: "rate 0.8 N/mm" } });
     } else if (!p.has("rate")) {
       for (const k of coilKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
+      p.flushMissing();
     }
     const rate = q("rate", "stiffness", { positive: true });
     const free = q("free_length", "length", { positive: true });

@@ -160,6 +160,10 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const require: Requirements = requireDecl ? buildRequirements(ctx, requireDecl) : defaultRequirements();
   const sweep: SweepSettings = sweepDecl ? buildSweep(ctx, sweepDecl) : defaultSweep();
 
+  for (const d of declared) d.props.flushMissing();
+  requireDecl?.flushMissing();
+  sweepDecl?.flushMissing();
+
   // 7. What holds each joint, and what is connected at all.
   if (!ctx.jointGraphIncomplete) reportMobility(ctx, bodies, base, joints, parallelograms);
 

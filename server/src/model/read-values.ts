@@ -293,16 +293,20 @@ export function readChoice(v: Values, words: readonly string[]): Read<string> | 
   return w;
 }
 
-/** A connective word (`to`, `and`, `at`) in a sequence. */
+/** A connective word (`to`, `and`, `at`) in a sequence. True when reading may go on: the word is
+ * there, or it is missing before a value (reported once; the value is still read). */
 export function readKeyword(v: Values, word: string, before: string): boolean {
   const node = v.peek();
   if (isWord(node) && node.parts[0]!.text === word) {
     v.next();
     return true;
   }
-  if (!node) v.missing(`\`${word}\` ${before}`);
-  else v.r.add("value.invalid", node.span, `expected \`${word}\` here, e.g. \`${v.example}\``);
-  return false;
+  if (!node) {
+    v.missing(`\`${word}\` ${before}`);
+    return false;
+  }
+  v.r.add("value.invalid", node.span, `expected \`${word}\` before \`${v.r.quote(node.span)}\`, e.g. \`${v.example}\``, { data: { insert: `${word} ` } });
+  return true;
 }
 
 export function readReference(v: Values, what: string): ReferenceNode | undefined {
