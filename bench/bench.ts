@@ -102,7 +102,8 @@ const perPose: Section = {
   run(log) {
     let ok = true;
     for (const s of specs()) {
-      const model: ArmModel | undefined = analyse(s.text, { modelOnly: true }).model;
+      const built = analyse(s.text, { modelOnly: true });
+      const model: ArmModel | undefined = built.findings.some((f) => f.severity === "error") ? undefined : built.model;
       if (!model) {
         log(`  ${s.name}: no model (spec has errors)`);
         continue;

@@ -60,6 +60,8 @@ export class PoseSolver {
   private readonly tangents: Float64Array;
   private readonly unit: Float64Array;
   readonly angles: Float64Array;
+  private readonly moveStart: Float64Array;
+  private readonly trialAngles: Float64Array;
   private readonly rhs: Float64Array;
   private readonly lambda: Float64Array;
   private readonly qSprings: Float64Array;
@@ -95,6 +97,8 @@ export class PoseSolver {
     this.tangents = new Float64Array(Math.max(1, this.ndof) * n);
     this.unit = new Float64Array(n);
     this.angles = Float64Array.from(linkage.dofs, (d) => d.reference);
+    this.moveStart = new Float64Array(this.ndof);
+    this.trialAngles = new Float64Array(this.ndof);
     this.rhs = new Float64Array(n);
     this.lambda = new Float64Array(n);
     this.qSprings = new Float64Array(n);
@@ -159,7 +163,8 @@ export class PoseSolver {
     this.deadPoint = false;
     const ndof = this.ndof;
     const n = this.n;
-    const start = Float64Array.from(this.angles);
+    const start = this.moveStart;
+    start.set(this.angles);
     let span = 0;
     for (let d = 0; d < ndof; d++) span = Math.max(span, Math.abs(target[d]! - start[d]!));
     if (span === 0) return true;
@@ -167,7 +172,7 @@ export class PoseSolver {
     const minFraction = LOCK_RESOLUTION / span;
     let s = 0;
     let h = Math.min(1, maxFraction);
-    const trialAngles = new Float64Array(ndof);
+    const trialAngles = this.trialAngles;
     let tries = 0;
     while (s < 1) {
       // A long move (a huge range) checks the clock now and then.

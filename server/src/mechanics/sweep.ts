@@ -166,6 +166,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   const out: (Pose | undefined)[] = [];
   const reported = new Set<string>();
   let current = -1;
+  const from = new Float64Array(dofs.length);
   const budgetStop = () => {
     const solved = out.filter(Boolean).length;
     findings.push(
@@ -186,7 +187,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
       const a = node.pred >= 0 ? nodes[node.pred]!.angles : refAngles;
       if (!solver.setCurrent(q, a)) continue;
     }
-    const from = Float64Array.from(solver.angles);
+    from.set(solver.angles);
     if (solver.moveTo(node.angles, deadline)) {
       solvedQ[i] = Float64Array.from(solver.q);
       out[node.output] = solver.record(node.output);
