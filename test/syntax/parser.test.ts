@@ -213,6 +213,8 @@ describe("recovery", () => {
       ['title "abc', 'unclosed string: add the closing `"`', '"abc'],
       ["300 mm", "expected a property name before `300 mm`", "300 mm"],
       ["k 3 @", "unexpected character `@`", "@"],
+      ["length 1,5 mm", "write decimals with a point, e.g. `1.5`, not a comma", ","],
+      ["angle 30\u00B0", "write angles with `deg`, e.g. `30 deg`", "\u00B0"],
     ];
     for (const [line, message, word] of cases) {
       const text = wrap(`  link boom {\n    ${line}\n  }`);

@@ -372,6 +372,14 @@ export class TreeBuilder {
       case "Cross":
         this.error(`expected a number before \`${first.image}\``, tokenSpan(first));
         return;
+      case "Comma":
+        // `1,5 mm`: a decimal comma between two digits.
+        if (/\d/.test(this.text[first.startOffset - 1] ?? "") && /\d/.test(this.text[first.endOffset! + 1] ?? "")) {
+          this.error("write decimals with a point, e.g. `1.5`, not a comma", tokenSpan(first));
+          return;
+        }
+        this.error(`unexpected \`${this.textOf(whole)}\`${key ? ` after \`${key.image}\`` : ""}`, whole);
+        return;
       default: {
         const after = key ? ` after \`${key.image}\`` : "";
         this.error(`unexpected \`${this.textOf(whole)}\`${after}`, whole);

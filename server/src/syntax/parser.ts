@@ -48,5 +48,9 @@ function lexingErrors(text: string, errors: ILexingError[]): SyntaxError[] {
     if (prev && prev.end === e.offset) prev.end = e.offset + e.length;
     else out.push({ start: e.offset, end: e.offset + e.length });
   }
-  return out.map((r) => ({ message: `unexpected character \`${text.slice(r.start, r.end)}\``, span: span(r.start, r.end) }));
+  return out.map((r) => {
+    const chars = text.slice(r.start, r.end);
+    const message = chars === "\u00B0" ? "write angles with `deg`, e.g. `30 deg`" : `unexpected character \`${chars}\``;
+    return { message, span: span(r.start, r.end) };
+  });
 }
