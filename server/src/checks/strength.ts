@@ -102,7 +102,17 @@ export function checkStrength(ctx: CheckContext): void {
         const allow = normalStrength(mat, r.bendingShare > 0);
         const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
         const prevWorst = stressWorst.get(body.id);
-        if (!prevWorst || sf < prevWorst.safety) stressWorst.set(body.id, { safety: sf, pose, caseIndex: ci, detail: () => strengthWords(mat, allow), figure: r.stress });
+        if (!prevWorst || sf < prevWorst.safety) {
+          const at = r.at;
+          stressWorst.set(body.id, {
+            safety: sf,
+            pose,
+            caseIndex: ci,
+            detail: () =>
+              `(bending moment ${show(Math.abs(at.moment), "torque")}, axial ${at.axial < 0 ? "compression" : "tension"} ${show(Math.abs(at.axial), "force")}, ${show(at.s, "length")} from its start) against the ${strengthWords(mat, allow)}`,
+            figure: r.stress,
+          });
+        }
         const prevLargest = largestStress.get(body.id);
         if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: NO_DETAIL, figure: r.stress });
         if (r.compression > 0) {
@@ -188,7 +198,7 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
       if (w.safety < need) {
         const msg =
           what === "stress"
-            ? `${bodyWord(body)}: largest stress ${show(w.figure, "pressure")} against the ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`
+            ? `${bodyWord(body)}: largest stress ${show(w.figure, "pressure")} ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`
             : `${bodyWord(body)}: ${w.detail()}: buckling safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`;
         ctx.findings.push(
           finding("strength.overstress", sectionSpan(model, body), msg, {
