@@ -2,10 +2,9 @@
 // settings (steps capped).
 import type { Payload, Requirements, SweepSettings, Vec2 } from "./types";
 import { REQUIREMENT_DEFAULTS, SWEEP_DEFAULTS } from "./schema";
-import { isWord, readChoice, readQuantity, readRange, readReference, readWord, type Read } from "./read-values";
+import { isWord, pointValue, readChoice, readQuantity, readRange, readReference, readWord, type Read } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
 import type { DimensionName } from "../units/dimension";
-import { pointValue } from "./read-values";
 
 export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload | undefined {
   for (const key of ["mass", "at"]) if (!p.has(key)) p.missing(key);
