@@ -1,0 +1,36 @@
+// The extension manifest agrees with the code: every setting it declares is one the server reads,
+// with the same default; every command it declares is registered by the client; every file it
+// names exists.
+import { describe, expect, it } from "vitest";
+import { existsSync, readdirSync, readFileSync } from "node:fs";
+import { join } from "node:path";
+import { DEFAULT_SETTINGS } from "../../server/src/lsp/settings";
+
+const root = join(__dirname, "..", "..");
+const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8"));
+const clientSource = readdirSync(join(root, "client", "src"))
+  .filter((f) => f.endsWith(".ts"))
+  .map((f) => readFileSync(join(root, "client", "src", f), "utf8"))
+  .join("\n");
+
+describe("extension manifest", () => {
+  it("declares the language for *.poise with its grammar, configuration and snippets", () => {
+    const c = manifest.contributes;
+    expect(c.languages[0]).toMatchObject({ id: "counterpoise", extensions: [".poise"] });
+    expect(c.languages[0].aliases).toContain("Counterpoise");
+    for (const path of [c.languages[0].configuration, c.grammars[0].path, c.snippets[0].path]) expect(existsSync(join(root, path)), path).toBe(true);
+    expect(manifest.main).toBe("./dist/client.js"); // built by scripts/build.mjs
+    expect(manifest.activationEvents).toContain("onLanguage:counterpoise");
+  });
+
+  it("declares exactly the server's settings, with the same defaults", () => {
+    const props = manifest.contributes.configuration.properties as Record<string, { default: unknown }>;
+    for (const [key, value] of Object.entries(DEFAULT_SETTINGS)) expect(props[`counterpoise.${key}`]?.default, key).toEqual(value);
+    const declared = Object.keys(props).filter((k) => k !== "counterpoise.trace.server");
+    expect(declared.sort()).toEqual(Object.keys(DEFAULT_SETTINGS).map((k) => `counterpoise.${k}`).sort());
+  });
+
+  it("registers every command it declares", () => {
+    for (const c of manifest.contributes.commands as { command: string }[]) expect(clientSource, c.command).toContain(`"${c.command}"`);
+  });
+});
