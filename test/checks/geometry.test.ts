@@ -168,3 +168,30 @@ describe("toggle of a textbook balancer", () => {
     expect(ctx.findings.filter((f) => f.code === "geometry.spring-toggle")).toEqual([]);
   });
 });
+
+describe("head tilt from a root that turns, and shared pivots", () => {
+  it("a stage on a turning mast turns its head with the mast", () => {
+    const model = new ArmBuilder("foot", { pivot: { x: 0, y: 0.1 } })
+      .link("mast", 0.2, 0.1)
+      .joint("swing", "foot", { x: 0, y: 0.1 }, "mast", { x: 0, y: 0 }, 0, { range: [deg(-10), deg(10)] })
+      .parallelogram("reach", "mast", { x: 0.2, y: 0 }, { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 })
+      .sweep(5)
+      .build();
+    const ctx = runFamily(checkGeometry, model, solveSweep(model));
+    const f = ctx.findings.find((x) => x.code === "geometry.tilt")!;
+    // equal bars keep the head parallel to its root, the mast, which turns through 20 deg
+    expect(f.data!["change"]).toBeCloseTo(deg(20), 9);
+    expect(f.message).toContain("its root, mast, turns over the range");
+  });
+
+  it("a link pinned at a parallelogram's far pivot does not clash with the bar ending there", () => {
+    const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.3 } })
+      .parallelogram("stage", "clamp", { x: 0, y: 0.3 }, { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 })
+      .link("lens_arm", 0.09, 0.005)
+      .joint("tilt", "stage.head", { x: 0, y: 0 }, "lens_arm", { x: 0, y: 0 }, deg(-60), "fixed")
+      .sweep(5)
+      .build();
+    const ctx = runFamily(checkGeometry, model, solveSweep(model));
+    expect(ctx.findings.filter((x) => x.code === "geometry.clearance")).toEqual([]);
+  });
+});
