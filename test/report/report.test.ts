@@ -80,11 +80,18 @@ describe("report of a sample through the whole pipeline", () => {
 describe("poise report command", () => {
   const dir = mkdtempSync(join(tmpdir(), "counterpoise-report-"));
 
+  it("writes US customary units on request", async () => {
+    const out = join(dir, "camera-us.html");
+    expect(await runReport(["samples/camera-arm.poise", "--units", "us", "-o", out])).toBe(0);
+    expect(readFileSync(out, "utf8")).toContain("lbf·in");
+  });
+
   it("exits 2 when it cannot run", async () => {
     expect(await runReport([])).toBe(2);
     expect(await runReport(["--frobnicate", "samples/camera-arm.poise"])).toBe(2);
     expect(await runReport([join(dir, "no-such.poise")])).toBe(2);
     expect(await runReport(["samples/camera-arm.poise", "-o"])).toBe(2);
+    expect(await runReport(["samples/camera-arm.poise", "--units", "furlongs"])).toBe(2);
     expect(await runReport(["samples/camera-arm.poise", "-o", join(dir, "no-such-dir", "r.html")])).toBe(2);
   });
 

@@ -1,23 +1,29 @@
-// `poise report FILE [-o OUT]`: the arm's drawing, curves, safety factors, diagnostics, limits and
+// `poise report FILE [-o OUT] [--units si|us]`: the arm's drawing, curves, safety factors, diagnostics, limits and
 // cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
 import { readFileSync, writeFileSync } from "node:fs";
 import { analyse } from "../analysis";
 import { buildViewModel } from "../view/build-view-model";
 import { renderReportHtml } from "../view/report-page";
 
-const USAGE = "usage: poise report FILE [-o OUT.html]   (without -o the page goes to stdout)";
+const USAGE = "usage: poise report FILE [-o OUT.html] [--units si|us]   (without -o the page goes to stdout)";
 
 interface ReportArgs {
   file: string;
   out?: string;
+  units: "si" | "us";
 }
 
 function parseArgs(args: readonly string[]): ReportArgs | string {
   let file: string | undefined;
   let out: string | undefined;
+  let units: "si" | "us" = "si";
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
-    if (a === "-o" || a === "--output") {
+    if (a === "--units" || a.startsWith("--units=")) {
+      const v = a === "--units" ? args[++i] : a.slice("--units=".length);
+      if (v !== "si" && v !== "us") return `poise report: --units takes si or us`;
+      units = v;
+    } else if (a === "-o" || a === "--output") {
       const next = args[++i];
       if (next === undefined) return `poise report: ${a} needs a file name`;
       out = next;
@@ -28,13 +34,13 @@ function parseArgs(args: readonly string[]): ReportArgs | string {
     else return `poise report: one file at a time (got ${file} and ${a})`;
   }
   if (file === undefined) return `poise report: no file given`;
-  return out !== undefined ? { file, out } : { file };
+  return out !== undefined ? { file, out, units } : { file, units };
 }
 
 /** Builds the report page for a spec's text: the part the tests call without touching files. */
-export function reportHtml(text: string, file: string): { html: string; errors: number } {
+export function reportHtml(text: string, file: string, units: "si" | "us" = "si"): { html: string; errors: number } {
   const analysis = analyse(text);
-  const vm = buildViewModel(analysis);
+  const vm = buildViewModel(analysis, { units });
   return { html: renderReportHtml(vm, { file }), errors: analysis.findings.filter((f) => f.severity === "error").length };
 }
 
@@ -51,7 +57,7 @@ export async function runReport(args: string[]): Promise<number> {
     process.stderr.write(`poise report: cannot read ${parsed.file}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`);
     return 2;
   }
-  const { html, errors } = reportHtml(text, parsed.file);
+  const { html, errors } = reportHtml(text, parsed.file, parsed.units);
   if (parsed.out === undefined) process.stdout.write(html);
   else {
     try {

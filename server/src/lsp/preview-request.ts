@@ -32,7 +32,7 @@ export const previewFeature: ServerFeature = {
         const current: Analysis | undefined = await within(ctx.scheduler.whenAnalysed(doc.uri, doc.version), WAIT_FOR_CURRENT_MS);
         const analysis = current?.model ? current : ctx.scheduler.latest(doc.uri) ?? current;
         if (!analysis) return null;
-        const vm = buildViewModel(analysis);
+        const vm = buildViewModel(analysis, { units: ctx.settings().displayUnits });
         if (analysis.text !== doc.getText()) vm.staleNote = "Showing the last text that described an arm; the current text does not build one yet.";
         return vm;
       }),

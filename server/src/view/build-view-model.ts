@@ -192,12 +192,18 @@ function safetyRows(model: ArmModel, readouts: Readouts, partOf: (id: string) =>
   return rows.sort((a, b) => a.value - b.value);
 }
 
-export function buildViewModel(input: ViewInput): ViewModel {
+export interface ViewOptions {
+  /** Unit system of the figures and labels (default SI). */
+  units?: "si" | "us";
+}
+
+export function buildViewModel(input: ViewInput, options: ViewOptions = {}): ViewModel {
   const index = new LineIndex(input.text);
   const model = input.model;
   const vm: ViewModel = {
     version: 1,
     title: model?.title ?? "Untitled arm",
+    units: options.units ?? "si",
     surfaceMm: r4((model?.base?.surface ?? 0) * MM),
     bounds: [-100, -20, 400, 400],
     parts: [],

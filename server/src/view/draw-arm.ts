@@ -4,6 +4,8 @@ import type { ViewModel, ViewPose, ViewSpring, PartStatus } from "./view-model";
 import { place } from "./geometry";
 import { PALETTE } from "./palette";
 import { c2, esc, fig } from "./text";
+import { shownForce, shownLength, shownTorque } from "./display-units";
+import { formatQuantity } from "../units/format";
 
 /** Bodies without a section are drawn this thick, mm (a schematic bar). */
 const DEFAULT_DEPTH_MM = 6;
@@ -106,11 +108,12 @@ function cordPath(a: [number, number], b: [number, number], f: Frame): string {
   return pts(p);
 }
 
-function springMark(spring: ViewSpring, hooks: [number, number, number, number], st: PartStatus | undefined, force: number | undefined, f: Frame): string {
+function springMark(vm: ViewModel, spring: ViewSpring, hooks: [number, number, number, number], st: PartStatus | undefined, force: number | undefined, f: Frame): string {
   const a: [number, number] = [hooks[0], hooks[1]];
   const b: [number, number] = [hooks[2], hooks[3]];
   const mark = statusColour(st);
-  const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${fig(Math.abs(force))} ${spring.kind === "torsion" ? "N*m" : "N"}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
+  const unit = spring.kind === "torsion" ? shownTorque(vm.units) : shownForce(vm.units);
+  const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${fig(Math.abs(force) * unit.scale)} ${unit.symbol}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
   let out = `<g class="part spring" data-part="${esc(spring.id)}" data-spring="${esc(spring.id)}" data-kind="${spring.kind}" data-status="${st ?? "ok"}"><title>${esc(tip)}</title>`;
   const w = 1.8 * f.u;
   if (spring.kind === "torsion") {
@@ -161,7 +164,7 @@ function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>
     if (!w) continue;
     const st = status.get(p.id);
     const r = Math.min(Math.max(7 * f.u * Math.cbrt(Math.max(p.massKg, 0.01) / 0.5), 4 * f.u), 16 * f.u);
-    const grams = p.massKg < 1 ? `${fig(p.massKg * 1000)} g` : `${fig(p.massKg)} kg`;
+    const grams = formatQuantity(p.massKg, "mass", vm.units);
     out += `<g class="part payload" data-part="${esc(p.id)}" data-payload="${esc(p.id)}" data-status="${st ?? "ok"}"><title>${esc(p.id)}, ${grams}</title>`;
     out += `<line x1="${c2(w[0])}" y1="${c2(Y(w[1]))}" x2="${c2(w[0])}" y2="${c2(Y(w[1]) + r * 2.2)}" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<path d="M${c2(w[0] - r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}L${c2(w[0])} ${c2(Y(w[1]) + r * 2.4)}L${c2(w[0] + r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}" fill="none" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
@@ -213,11 +216,14 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
 function scaleBar(vm: ViewModel, f: Frame): string {
   const [minX, minY, maxX] = vm.bounds;
   const span = maxX - minX;
-  const nice = [10, 20, 50, 100, 200, 500, 1000].find((s) => s >= span / 6) ?? 1000;
+  const length = shownLength(vm.units);
+  // A round length in the reader's unit, about a sixth of the frame.
+  const shown = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].find((s) => s / length.scale >= span / 6) ?? 1000;
+  const nice = shown / length.scale;
   const x = minX + 8 * f.u;
   const y = Y(minY) - 8 * f.u;
   return `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
-    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${nice} mm</text></g>`;
+    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${length.symbol}</text></g>`;
 }
 
 export interface DrawOptions {
@@ -245,7 +251,7 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
   let springs = "";
   for (const s of vm.springs) {
     const hooks = pose.springs[s.id];
-    if (hooks) springs += springMark(s, hooks, status.get(s.id), pose.springForce[s.id], f);
+    if (hooks) springs += springMark(vm, s, hooks, status.get(s.id), pose.springForce[s.id], f);
   }
   const angles = vm.dofs.map((d, i) => `${d.id} ${fig(pose.anglesDeg[i]!)}°`).join(", ");
   const caption = `<text class="pose-caption" x="${c2(minX + 8 * f.u)}" y="${c2(-maxY + 16 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(angles)}</text>`;

@@ -5,6 +5,7 @@ import type { PlotSpec } from "./draw-plot";
 import { runThrough } from "./pose-lines";
 import { PALETTE, SERIES_CYCLE } from "./palette";
 import { fig } from "./text";
+import { shownForce, shownTorque } from "./display-units";
 
 function along(vm: ViewModel, d: number, poseIndex: number): readonly number[] {
   return runThrough(vm.lines[d] ?? [], poseIndex);
@@ -13,8 +14,9 @@ function along(vm: ViewModel, d: number, poseIndex: number): readonly number[] {
 /** Holding torque against dof d, over the run through the current pose. */
 export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
+  const torque = shownTorque(vm.units);
   const x = (p: number) => vm.poses[p]!.anglesDeg[d]!;
-  const pick = (key: "gravityTorque" | "springTorque" | "loadTorque" | "netTorque") => run.map((p) => [x(p), vm.poses[p]![key][d]!] as [number, number]);
+  const pick = (key: "gravityTorque" | "springTorque" | "loadTorque" | "netTorque") => run.map((p) => [x(p), vm.poses[p]![key][d]! * torque.scale] as [number, number]);
   const series: PlotSpec["series"] = [
     { name: "gravity", colour: PALETTE.gravity, dashed: true, points: pick("gravityTorque") },
     { name: "springs", colour: PALETTE.spring, dashed: true, points: pick("springTorque") },
@@ -26,7 +28,7 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
     id: `torque-${vm.dofs[d]!.id}`,
     title: `Holding torque at ${vm.dofs[d]!.id}`,
     xLabel: `${vm.dofs[d]!.id} angle, deg`,
-    yLabel: "torque to hold, N·m (CCW +)",
+    yLabel: `torque to hold, ${torque.symbol} (CCW +)`,
     series,
     markerX: vm.poses[poseIndex]?.anglesDeg[d],
   };
@@ -35,6 +37,7 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
 /** Hand force at every payload against dof d, with the `require balance` band. */
 export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
+  const force = shownForce(vm.units);
   const series: PlotSpec["series"] = [];
   let k = 0;
   for (const payload of vm.payloads) {
@@ -44,19 +47,19 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
         name,
         colour: SERIES_CYCLE[k++ % SERIES_CYCLE.length]!,
         ...(c > 0 ? { dashed: true } : {}),
-        points: run.map((p) => [vm.poses[p]!.anglesDeg[d]!, vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN] as [number, number]),
+        points: run.map((p) => [vm.poses[p]!.anglesDeg[d]!, (vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN) * force.scale] as [number, number]),
       });
     });
   }
   const limits = Object.values(vm.balanceLimitN);
-  const limit = limits.length ? Math.min(...limits) : undefined;
+  const limit = limits.length ? Math.min(...limits) * force.scale : undefined;
   return {
     id: `hand-${vm.dofs[d]!.id}`,
     title: `Hand force against ${vm.dofs[d]!.id}`,
     xLabel: `${vm.dofs[d]!.id} angle, deg`,
-    yLabel: "hand force, N",
+    yLabel: `hand force, ${force.symbol}`,
     series,
-    ...(limit !== undefined ? { band: { from: 0, to: limit, label: `require balance ${fig(limit)} N` } } : {}),
+    ...(limit !== undefined ? { band: { from: 0, to: limit, label: `require balance ${fig(limit)} ${force.symbol}` } } : {}),
     markerX: vm.poses[poseIndex]?.anglesDeg[d],
   };
 }

@@ -110,6 +110,8 @@ export interface ViewFinding {
 export interface ViewModel {
   version: 1;
   title: string;
+  /** The reader's unit system for figures and labels (the numbers here stay mm, N, N*m). */
+  units: "si" | "us";
   /** Bench surface height, mm. */
   surfaceMm: number;
   /** Base footprint width along x, mm, centred on x = 0, when given. */
