@@ -232,7 +232,10 @@ describe("best effort with errors", () => {
       ["unit.missing", "600"],
     ]);
     expect(model!.bodies).toHaveLength(4);
-    expect(model!.springs).toHaveLength(0);
+    // The spring stays (its hooks resolve) with 0 for the rate it could not read.
+    expect(model!.springs).toHaveLength(1);
+    expect(model!.springs[0]).toMatchObject({ id: "lift", rate: 0 });
+    expect(model!.payloads[0]).toMatchObject({ id: "camera", mass: 0 });
   });
   test("origins keep the spans of declarations, names and properties", () => {
     const { model } = build(STAGE);

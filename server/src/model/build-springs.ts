@@ -14,6 +14,9 @@ const KIND_WORDS: Record<SpringKind, string> = {
   torsion: "a torsion spring",
 };
 
+/** Best effort: a spring whose hooks (or joint) resolve is kept even when a value has an error (the
+ * finding stands and the solver does not run), with 0 for what could not be read, so the editor
+ * can still show and hover it. */
 export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | undefined {
   const kinds = SPRING_KINDS.filter((k) => p.has(k));
   for (const k of kinds) readFlag(p.values(k)!);
@@ -77,8 +80,8 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       if (r) preloadTorque = r.dimension === "angle" ? (rate?.value ?? 0) * r.value : r.value;
     }
     const maxAngle = q("max_angle", "angle", { positive: true });
-    if (!joint || !rate) return undefined;
-    return { kind, id, origin, joint, rate: rate.value, preloadTorque, ...(maxAngle ? { maxAngle: maxAngle.value } : {}) };
+    if (!joint) return undefined;
+    return { kind, id, origin, joint, rate: rate?.value ?? 0, preloadTorque, ...(maxAngle ? { maxAngle: maxAngle.value } : {}) };
   }
 
   need("between");
@@ -126,14 +129,14 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
         coilRate = extensionSpringRate(wire.value, mean.value, coils.value, m.shearModulus, m.modulus);
       }
     }
-    if (!ends || !free || (rate === undefined && coilRate === undefined)) return undefined;
+    if (!ends) return undefined;
     return {
       kind,
       id,
       origin,
       ...ends,
-      rate: rate?.value ?? coilRate!,
-      freeLength: free.value,
+      rate: rate?.value ?? coilRate ?? 0,
+      freeLength: free?.value ?? 0,
       initialTension: fi?.value ?? 0,
       ...(max ? { maxLength: max.value } : {}),
       ...(coil ? { coil } : {}),
@@ -144,8 +147,8 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     need("rate");
     const rate = q("rate", "stiffness", { positive: true });
     const fi = q("initial_tension", "force");
-    if (!ends || !rate) return undefined;
-    return { kind, id, origin, ...ends, rate: rate.value, initialTension: fi?.value ?? 0 };
+    if (!ends) return undefined;
+    return { kind, id, origin, ...ends, rate: rate?.value ?? 0, initialTension: fi?.value ?? 0 };
   }
 
   if (kind === "elastic") {
@@ -185,8 +188,8 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     }
     const stretch = q("max_stretch", "dimensionless", { positive: true });
     if (stretch && stretch.value <= 1) ctx.r.add("value.impossible", stretch.span, `max_stretch is a ratio L / L0 above 1, got ${ctx.r.quote(stretch.span)}`);
-    if (!ends || !free || area === undefined || !material) return undefined;
-    return { kind, id, origin, ...ends, freeLength: free.value, area, material, ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}) };
+    if (!ends) return undefined;
+    return { kind, id, origin, ...ends, freeLength: free?.value ?? 0, area: area ?? 0, material: material ?? "", ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}) };
   }
 
   // gas
@@ -201,8 +204,17 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   if (stroke && extended && stroke.value >= extended.value) {
     ctx.r.add("value.impossible", stroke.span, `a stroke of ${ctx.r.quote(stroke.span)} does not fit in an extended length of ${ctx.r.quote(extended.span)}`);
   }
-  if (!ends || !force || !progression || !stroke || !extended) return undefined;
-  return { kind, id, origin, ...ends, force: force.value, progression: Math.max(1, progression.value), stroke: stroke.value, extendedLength: extended.value };
+  if (!ends) return undefined;
+  return {
+    kind,
+    id,
+    origin,
+    ...ends,
+    force: force?.value ?? 0,
+    progression: Math.max(1, progression?.value ?? 1),
+    stroke: stroke?.value ?? 0,
+    extendedLength: extended?.value ?? 0,
+  };
 }
 
 /** `between REF and REF`. */
