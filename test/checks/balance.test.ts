@@ -56,6 +56,25 @@ describe("balance.unbalanced", () => {
     expect(data["worstHandForceBefore"] as number).toBeCloseTo(worstTau / l, 9);
   });
 
+  it("offers no setting for a spring that pulls the wrong way where it is placed", () => {
+    // Anchor straight below the pivot: the spring's torque k a b cos(theta) adds to gravity's
+    // (Streit and Gilmore 1989 with a -> -a), so the best rate is zero.
+    const model = new ArmBuilder("post")
+      .link("arm", 0.45, 0)
+      .joint("shoulder", "post", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-60), deg(60)] })
+      .zeroLength("lift", ["post", { x: 0, y: -a }], ["arm", { x: b, y: 0 }], 500)
+      .payload("weight", "arm", { x: l, y: 0 }, m)
+      .sweep(13)
+      .build();
+    const ctx = check(model);
+    const f = ctx.findings.filter((x) => x.code === "balance.unbalanced");
+    expect(f.length).toBe(1);
+    expect(f[0]!.data!["bestRate"]).toBeUndefined();
+    expect(f[0]!.message).toContain("move its anchor or hook");
+    // Without the spring the worst hand force is the weight at the horizontal: m g (statics)
+    expect(f[0]!.data!["worstHandForceAfter"] as number).toBeCloseTo(m * G0, 6);
+  });
+
   it("stays quiet when the hand force is within the limit", () => {
     const k = (m * G0 * l) / (a * b);
     const ctx = check(herderLink(k, k * L0));

@@ -14,6 +14,10 @@ import type { DimensionName } from "../units/dimension";
 
 const formatQuantityFor = (valueSI: number, dimension: DimensionName): string => formatQuantity(valueSI, dimension, "si");
 
+/** A best-fit first parameter (rate, force, area) below this fraction of the present one means
+ * the spring is better left out: common practice, no source. */
+const USELESS_FRACTION = 0.02;
+
 /** A pose's dof angles in words, plus the load case when it is not the nominal one. */
 export function poseWhere(sweep: SweepResult, pose: Pose, caseIndex = 0): string {
   const angles = sweep.dofs.map((d) => `${d.id} ${formatAngle(pose.angles[d.id]!)}`).join(", ");
@@ -62,7 +66,8 @@ function fitWords(s: Spring, fit: SpringFit): string {
   switch (s.kind) {
     case "extension":
     case "zero_length":
-      return `rate ${formatQuantityFor(p0, "stiffness")} with initial tension ${formatForce(p1)}`;
+      // Hundredths of a newton are below what a spring maker can set.
+      return `rate ${formatQuantityFor(p0, "stiffness")} ${Math.abs(p1) < 0.01 ? "and no initial tension" : `with initial tension ${formatForce(p1)}`}`;
     case "torsion":
       return `rate ${formatQuantityFor(p0, "angular_stiffness")} with preload ${formatTorque(p1)}`;
     case "gas":
@@ -108,13 +113,20 @@ export function balanceChecks(ctx: CheckContext): void {
     if (chosen) {
       const { spring, fit } = chosen;
       const better = fit.worstHandForceAfter < fit.worstHandForceBefore * (1 - 1e-6);
-      const advice = better
-        ? ` Spring ${spring.id} ${sinks ? "lifts too little" : "lifts too much"}; with ${fitWords(spring, fit)} the worst hand force would be ${formatForce(fit.worstHandForceAfter)}.`
-        : ` Spring ${spring.id} as placed cannot do better (worst ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`;
+      // A best fit that all but removes the spring says the spring works against the balance
+      // where it is: no setting written into the document would help, so offer none.
+      const vanishes =
+        fit.best[0] < USELESS_FRACTION * Math.abs(fit.current[0]) && (fit.names[1] === undefined || Math.abs(fit.best[1]) <= USELESS_FRACTION * Math.abs(fit.current[1]));
+      const advice = !better
+        ? ` Spring ${spring.id} as placed cannot do better (worst ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`
+        : vanishes
+          ? ` Spring ${spring.id} works against the balance where it is placed (the best setting is almost no spring at all, leaving ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`
+          : ` With spring ${spring.id} at ${fitWords(spring, fit)} the worst hand force over the range would be ${formatForce(fit.worstHandForceAfter)}.`;
+      const fix = better && !vanishes ? fitData(spring, fit) : { springId: spring.id, worstHandForceBefore: fit.worstHandForceBefore, worstHandForceAfter: fit.worstHandForceAfter };
       ctx.findings.push(
         finding("balance.unbalanced", spanOfSpring(spring), head + advice, {
           related,
-          data: { ...fitData(spring, fit), payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
+          data: { ...fix, payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
         }),
       );
     } else {

@@ -124,7 +124,10 @@ function golden(f: (x: number) => number, lo: number, hi: number): number {
       f2 = f(x2);
     }
   }
-  return (a + b) / 2;
+  // The minimum often sits on the bracket's low end (no initial tension, no spring): golden
+  // section only creeps towards an end, so look at it.
+  const mid = (a + b) / 2;
+  return a === lo && f(lo) <= f(mid) ? lo : mid;
 }
 
 /** Least-squares estimate of the parameters (sum of squared hand forces), to bracket the search. */
