@@ -49,6 +49,9 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
     if (a) {
       at = a.point;
       body = a.body;
+      if (ctx.bodies.get(a.body)?.kind === "base") {
+        ctx.r.add("payload.on-base", ref!.span, `payload ${id} sits on the base ${a.body}: no joint carries it, so no hand holds it and it takes no part in balance`);
+      }
     }
   }
   if (!body || !at) return undefined;

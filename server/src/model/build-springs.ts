@@ -228,5 +228,8 @@ function readBetween(ctx: BuildContext, p: Props): { a: Attachment; b: Attachmen
   const a = first ? ctx.resolvePoint(first, "between") : undefined;
   const b = second ? ctx.resolvePoint(second, "between") : undefined;
   if (!a || !b) return undefined;
+  if (a.body === b.body) {
+    ctx.r.add("spring.same-body", p.get("between")!.span, `both hooks of ${p.what} are on ${a.body}: it pulls the body on itself and does nothing`);
+  }
   return { a, b };
 }

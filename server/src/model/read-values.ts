@@ -108,8 +108,27 @@ export function quantityValue(q: QuantityNode, key: string, dims: readonly Dimen
   return checkedQuantity(q, key, dims, r)?.value;
 }
 
+/** Magnitudes (SI) beyond which a quantity cannot belong to a bench arm and only invites overflow
+ * and round-off downstream: 1e-15 to 1e15 spans a femtometre to the distance light travels in an
+ * hour, and the stiffest modulus known (about 1e12 Pa) with room to spare (common practice, no
+ * source). Zero stays allowed (massless links, `angle 0 deg`). */
+const SMALLEST_MAGNITUDE = 1e-15;
+const LARGEST_MAGNITUDE = 1e15;
+
 function checkedQuantity(q: QuantityNode, key: string, dims: readonly DimensionName[], r: Reporter): { value: number; dimension: DimensionName } | undefined {
+  if (!Number.isFinite(q.value)) {
+    r.add("value.invalid", q.numberSpan, `\`${q.numberText}\` is too large a number to compute with`);
+    return undefined;
+  }
+  if (q.value === 0 && /[1-9]/.test(q.numberText.replace(/[eE].*$/, ""))) {
+    r.add("value.invalid", q.numberSpan, `\`${q.numberText}\` is too small a number to compute with (it reads as 0)`);
+    return undefined;
+  }
   const c = checkQuantity(key, q.value, q.numberText, q.unit?.text, dims);
+  if (c.ok && c.valueSI !== 0 && (!Number.isFinite(c.valueSI) || Math.abs(c.valueSI) < SMALLEST_MAGNITUDE || Math.abs(c.valueSI) > LARGEST_MAGNITUDE)) {
+    r.add("value.impossible", q.span, `\`${r.quote(q.span)}\` is far outside anything an arm can have`);
+    return undefined;
+  }
   if (c.ok) return { value: c.valueSI, dimension: c.dimension };
   const at = c.onUnit && q.unit ? q.unit.span : q.numberSpan;
   r.add(c.problem, at, c.message, c.suggestion ? { data: { suggestion: c.suggestion } } : {});
