@@ -176,7 +176,8 @@ describe("display", () => {
   test("numbers", () => {
     expect(formatNumber(0)).toBe("0");
     expect(formatNumber(12345.6)).toBe("12346");
-    expect(formatNumber(0.000123456)).toBe("0.000123");
+    expect(formatNumber(0.000123456)).toBe("0.0001235");
+    expect(formatNumber(1.23456e-9)).toBe("1.235e-9");
     expect(formatNumber(-40)).toBe("-40");
   });
 });
@@ -192,4 +193,26 @@ describe("did you mean", () => {
     expect(closestWord("zzzzzz", ["pla", "petg"])).toBeUndefined();
     expect(closestWord("MM", ["mm", "m"])).toBe("mm");
   });
+});
+
+describe("display round trip", () => {
+  // What formatQuantity shows reads back (through the same unit table) to the value within the
+  // four significant figures it keeps.
+  const dims = ["length", "area", "mass", "force", "torque", "stiffness", "angular_stiffness", "angle", "pressure", "density", "acceleration", "frequency"] as const;
+  for (const dim of dims) {
+    for (const system of ["si", "us"] as const) {
+      test(`${dim} in ${system}`, () => {
+        for (const v of [1e-3, 0.0427, 0.5, 1, 3.3, 276e6, 7850]) {
+          const shown = formatQuantity(v, dim, system);
+          const [num, unit] = shown.split(" ");
+          const parsed = parseUnit(unit!);
+          expect(parsed.ok, shown).toBe(true);
+          if (!parsed.ok) continue;
+          const back = Number(num) * parsed.unit.factor;
+          // 4 significant figures round to within 5e-4 relative; large values are whole numbers.
+          expect(Math.abs(back - v) / v, shown).toBeLessThan(5e-4);
+        }
+      });
+    }
+  }
 });

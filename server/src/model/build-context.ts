@@ -207,7 +207,7 @@ export class Props {
     }
   }
 
-  spec_(key: string): PropertySpec {
+  specOf(key: string): PropertySpec {
     return this.spec.properties.find((p) => p.key === key)!;
   }
 
@@ -232,11 +232,11 @@ export class Props {
   /** A cursor over the values of the property that counts, if given. */
   values(key: string): Values | undefined {
     const prop = this.get(key);
-    return prop ? new Values(prop, this.r, this.spec_(key).example) : undefined;
+    return prop ? new Values(prop, this.r, this.specOf(key).example) : undefined;
   }
 
   cursor(prop: PropertyNode): Values {
-    return new Values(prop, this.r, this.spec_(prop.key.text).example);
+    return new Values(prop, this.r, this.specOf(prop.key.text).example);
   }
 
   /** Where a finding about the whole declaration goes: its name, else its keyword. */
@@ -256,7 +256,7 @@ export class Props {
     if (this.missingKeys.length === 0) return;
     const keys = this.missingKeys.map((m) => `\`${m.key}\``);
     const note = [...new Set(this.missingKeys.map((m) => m.note).filter((n) => n))].join("");
-    const examples = this.missingKeys.map((m) => this.spec_(m.key).example);
+    const examples = this.missingKeys.map((m) => this.specOf(m.key).example);
     this.r.add("property.missing", this.nameSpan, `${this.what} needs ${listWords(keys)}${note}, e.g. \`${examples[0]}\``, {
       data: { insert: examples.join("\n"), keys: this.missingKeys.map((m) => m.key) },
     });

@@ -33,7 +33,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   const kind = kinds[0]!;
   // Properties of other kinds do not apply.
   for (const key of p.keys()) {
-    const spec = p.spec_(key);
+    const spec = p.specOf(key);
     if (!spec.springKinds || spec.springKinds.includes(kind)) continue;
     ctx.r.add("property.unknown", p.get(key)!.key.span, `\`${key}\` does not apply to ${KIND_WORDS[kind]} (it is for ${listWords(spec.springKinds.map((k) => KIND_WORDS[k as SpringKind]))})`);
   }

@@ -54,8 +54,6 @@ function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI: numb
 /** Significant figures shown: enough to compare designs, few enough to read at a glance
  * (common practice, no source). */
 const SIGNIFICANT_FIGURES = 4;
-/** Below this magnitude a number is shown in exponent form (more zeros than digits otherwise). */
-const SMALL_NUMBER = 1e-3;
 /** From this magnitude on, whole numbers: 4 significant figures would round away digits people
  * read (12345 mm, not 1.235e+4). */
 const LARGE_NUMBER = 1e4;
@@ -65,7 +63,6 @@ export function formatNumber(v: number): string {
   if (v === 0) return "0";
   const a = Math.abs(v);
   if (a >= LARGE_NUMBER) return String(Math.round(v));
-  if (a < SMALL_NUMBER) return v.toPrecision(SIGNIFICANT_FIGURES - 1);
   return String(Number(v.toPrecision(SIGNIFICANT_FIGURES)));
 }
 
