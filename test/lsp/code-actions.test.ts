@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { parse } from "../../server/src/syntax/parser";
-import { balanceFix, missingUnitFix, unknownNameFix, suggestionOf, type TextFix } from "../../server/src/lsp/code-actions";
+import { balanceFix, missingUnitFix, unknownNameFix, suggestionOf, suggestedValueFix, type TextFix } from "../../server/src/lsp/code-actions";
 import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
 
 function apply(text: string, fix: TextFix): string {
@@ -36,6 +36,16 @@ describe("balance quick fix", () => {
     expect(edited).toMatch(/\n    initial_tension 22\.2 N\n/);
   });
 
+  it("writes a torsion spring's rate and its preload as a torque, even where the preload was an angle", () => {
+    const text = readFileSync("samples/magnifier-arm.poise", "utf8");
+    const fix = balanceFix(text, parse(text), { springId: "lens_return", bestRate: 0.5, bestPreloadTorque: 0.12, worstHandForceBefore: 9, worstHandForceAfter: 0.5 })!;
+    const edited = apply(text, fix);
+    // 1 N*m/deg = 180/pi N*m/rad (definition of the degree, SI Brochure 9th ed., table 8).
+    expect(Number(/rate ([\d.]+) N\*m\/deg/.exec(edited)![1])).toBeCloseTo((0.5 * Math.PI) / 180, 6);
+    expect(edited).toContain("preload 0.12 N*m");
+    expect(fix.title).toContain("preload to 0.12 N*m");
+  });
+
   it("offers nothing without the finding's data", () => {
     expect(balanceFix(PENDULUM_TEXT, parse(PENDULUM_TEXT), undefined)).toBeUndefined();
   });
@@ -57,6 +67,12 @@ describe("unit and name quick fixes", () => {
     const span = spanOf(mistakes, "plaa");
     const fix = unknownNameFix(mistakes, span, "unknown material `plaa`; did you mean `pla`?", undefined)!;
     expect(apply(mistakes, fix)).toContain("material pla   ");
+  });
+
+  it("writes a reversed range the right way round from the finding's suggestion", () => {
+    const span = spanOf(mistakes, "60 deg .. 10 deg");
+    const fix = suggestedValueFix(mistakes, span, { suggestion: "10 deg .. 60 deg" })!;
+    expect(apply(mistakes, fix)).toContain("range 10 deg .. 60 deg");
   });
 
   it("replaces only the point of a dotted reference", () => {

@@ -12,7 +12,8 @@ import type { DeclarationNode, PropertyNode, QuantityNode, SyntaxTree, ValueNode
 import { LineIndex, type Span } from "../syntax/span";
 import { ARM_PROPERTIES, declarationSpec, type PropertySpec, type ValueShape } from "../model/schema";
 import type { DimensionName } from "../units/dimension";
-import { fromSI, USUAL_UNIT } from "../units/quantity";
+import { fromSI, parseUnit, sameDimension, USUAL_UNIT } from "../units/quantity";
+import { DIMENSIONS } from "../units/dimension";
 import { formatNumber } from "../units/format";
 
 /** A fix as offsets into the text: the protocol layer below turns it into a workspace edit. */
@@ -101,33 +102,73 @@ function handForceText(n: number): string {
   return Math.abs(n) < 1000 ? `${n.toFixed(2)} N` : `${formatNumber(n)} N`;
 }
 
+/** What the balance fit may write, by spring kind: property, key of the finding's data, dimension,
+ * and whether the property must already be written (else the fix adds it). */
+const FIT_SETTINGS: Record<string, { key: string; data: string; dimension: DimensionName; words: string; mustExist: boolean }[]> = {
+  extension: [
+    { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
+    { key: "initial_tension", data: "bestInitialTension", dimension: "force", words: "initial tension", mustExist: false },
+  ],
+  zero_length: [
+    { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
+    { key: "initial_tension", data: "bestInitialTension", dimension: "force", words: "initial tension", mustExist: false },
+  ],
+  torsion: [
+    { key: "rate", data: "bestRate", dimension: "angular_stiffness", words: "rate", mustExist: true },
+    { key: "preload", data: "bestPreloadTorque", dimension: "torque", words: "preload", mustExist: false },
+  ],
+  gas: [{ key: "force", data: "bestForce", dimension: "force", words: "force", mustExist: true }],
+  elastic: [{ key: "area", data: "bestArea", dimension: "area", words: "cross-section", mustExist: true }],
+};
+/** An initial tension below this is not worth writing into a zero-length spring: hundredths of a
+ * newton are below what a spring maker can set (common practice, no source). */
+const NEGLIGIBLE_TENSION_N = 0.01;
+
+function springKindOf(decl: DeclarationNode): string | undefined {
+  return ["extension", "zero_length", "elastic", "gas", "torsion"].find((k) => propertyOf(decl, k));
+}
+
+/** The value in the unit of `written` when that unit has the right dimension (a preload written
+ * as an angle gets a torque in the usual unit instead). */
+function writeInDimension(valueSI: number, written: ValueNode | undefined, dimension: DimensionName): string {
+  const q = written?.kind === "quantity" ? written : undefined;
+  const parsed = q?.unit ? parseUnit(q.unit.text) : undefined;
+  const fits = parsed?.ok && sameDimension(parsed.unit.dimension, DIMENSIONS[dimension]);
+  return writeIn(valueSI, fits ? q : undefined, dimension);
+}
+
 export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string, unknown> | undefined): TextFix | undefined {
   const springId = typeof detail?.["springId"] === "string" ? (detail["springId"] as string) : undefined;
-  const rate = num(detail?.["bestRate"]);
-  if (!springId || rate === undefined || rate <= 0) return undefined;
-  const decl = declarationNamed(tree, "spring", springId);
-  const rateProp = decl && propertyOf(decl, "rate");
-  const rateValue = rateProp?.values[0];
-  if (!decl || !rateProp || rateValue?.kind !== "quantity") return undefined;
-  const isTorsion = !!propertyOf(decl, "torsion");
-  const rateDim: DimensionName = isTorsion ? "angular_stiffness" : "stiffness";
-  const rateText = writeIn(rate, rateValue, rateDim);
-  if (!rateText) return undefined;
-  const edits: TextFix["edits"] = [{ span: rateValue.span, newText: rateText }];
-  let what = `${springId}'s rate to ${rateText}`;
-  const tension = num(detail?.["bestInitialTension"]);
-  if (tension !== undefined && propertyOf(decl, "extension")) {
-    const existing = propertyOf(decl, "initial_tension");
-    const v = existing?.values[0];
-    const tensionText = writeIn(tension, v?.kind === "quantity" ? v : undefined, "force");
-    if (existing && v?.kind === "quantity") edits.push({ span: v.span, newText: tensionText });
-    else if (!existing) edits.push(lineAfter(text, rateProp, `initial_tension ${tensionText}`));
-    what += ` and initial tension to ${tensionText}`;
+  const decl = springId ? declarationNamed(tree, "spring", springId) : undefined;
+  const kind = decl && springKindOf(decl);
+  const settings = kind ? FIT_SETTINGS[kind] : undefined;
+  if (!decl || !settings) return undefined;
+  const edits: TextFix["edits"] = [];
+  const words: string[] = [];
+  let anchor: PropertyNode | undefined;
+  for (const setting of settings) {
+    const value = num(detail?.[setting.data]);
+    const prop = propertyOf(decl, setting.key);
+    if (value === undefined || (setting.dimension !== "torque" && setting.dimension !== "force" && value <= 0)) {
+      if (setting.mustExist) return undefined;
+      continue;
+    }
+    if (setting.mustExist && !prop) return undefined;
+    if (kind === "zero_length" && setting.key === "initial_tension" && !prop && Math.abs(value) < NEGLIGIBLE_TENSION_N) continue;
+    const written = writeInDimension(value, prop?.values[0], setting.dimension);
+    if (!written) return undefined;
+    const v = prop?.values[0];
+    if (prop && v) edits.push({ span: v.span, newText: written });
+    else if (anchor) edits.push(lineAfter(text, anchor, `${setting.key} ${written}`));
+    else return undefined;
+    anchor ??= prop;
+    words.push(`${setting.words} to ${written}`);
   }
+  if (edits.length === 0) return undefined;
   const before = num(detail?.["worstHandForceBefore"]);
   const after = num(detail?.["worstHandForceAfter"]);
   const forces = before !== undefined && after !== undefined ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)})` : "";
-  return { title: `Set ${what}${forces}`, edits, preferred: true };
+  return { title: `Set ${springId}'s ${words.join(" and ")}${forces}`, edits, preferred: true };
 }
 
 // ---- a missing unit ----------------------------------------------------------------------------
@@ -244,6 +285,16 @@ export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message:
   return undefined;
 }
 
+// ---- a value the model builder knows the right form of ------------------------------------------
+
+/** A finding whose data carries the corrected text of exactly the words it points at (a reversed
+ * range written the right way round). */
+export function suggestedValueFix(text: string, span: Span, detail: Record<string, unknown> | undefined): TextFix | undefined {
+  const suggestion = typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+  if (!suggestion || span.end <= span.start || text.slice(span.start, span.end) === suggestion) return undefined;
+  return { title: `Write ${suggestion}`, edits: [{ span, newText: suggestion }], preferred: true };
+}
+
 // ---- dispatch ------------------------------------------------------------------------------
 
 export interface FixRequest {
@@ -260,6 +311,7 @@ export function fixesFor(text: string, tree: SyntaxTree, req: FixRequest): TextF
     case "unit.missing": fix = missingUnitFix(tree, req.span, req.detail); break;
     case "name.unknown": case "name.unknown-point": case "unit.unknown": fix = unknownNameFix(text, req.span, req.message, req.detail); break;
     case "strength.overstress": fix = widenPinFix(text, tree, req.span, req.message, req.detail); break;
+    case "value.impossible": fix = suggestedValueFix(text, req.span, req.detail); break;
   }
   return fix ? [fix] : [];
 }
