@@ -156,6 +156,31 @@ describe("generated HTML has a strict content-security policy", () => {
     expect(html).not.toMatch(/<(script|link|iframe|img)[^>]+(src|href)="(https?:)?\/\//i);
   });
 
+  it("the report page shows a hostile title and unknown words as text, never as markup", async () => {
+    const { reportHtml } = (await import("../../server/src/cli/report")) as { reportHtml: (text: string, file: string) => { html: string } };
+    const hostile = readFileSync(join(root, "samples", "camera-arm.poise"), "utf8")
+      .replace(/arm "[^"]*"/, 'arm "<img src=x onerror=alert(1)><script>alert(2)</script>"')
+      .replace("mass 600 g", "mass 600 <b>g</b>");
+    const { html } = reportHtml(hostile, "samples/<svg onload=alert(3)>.poise");
+    expect(html).not.toMatch(/<img src=x|<script>alert|<svg onload|<b>g<\/b>/);
+    expect(html).toMatch(/&lt;img src=x/);
+  });
+
+  it("the preview's page shell: default-src 'none', the script only by its nonce, a fresh nonce each time", async () => {
+    const { previewHtml, makeNonce } = (await import("../../client/src/preview-html")) as { previewHtml: (p: { cspSource: string; nonce: string; scriptUri: string; styleUri: string }) => string; makeNonce: () => string };
+    const nonce = makeNonce();
+    const html = previewHtml({ cspSource: "vscode-resource:", nonce, scriptUri: "vscode-resource:/dist/preview-page.js", styleUri: "vscode-resource:/media/preview.css" });
+    const csp = /<meta\s+http-equiv="Content-Security-Policy"\s+content="([^"]+)"/i.exec(html)?.[1] ?? "";
+    const directives = Object.fromEntries(csp.split(";").map((d) => d.trim().split(/\s+/)).filter((d) => d[0]).map(([k, ...v]) => [k!, v]));
+    // W3C Content Security Policy Level 3: default-src 'none', scripts by nonce only, nothing inline or evaluated.
+    expect(directives["default-src"]).toEqual(["'none'"]);
+    expect(directives["script-src"]).toEqual([`'nonce-${nonce}'`]);
+    expect(csp).not.toMatch(/unsafe-inline|unsafe-eval|\*|https?:/);
+    for (const tag of html.match(/<script\b[^>]*>/g) ?? []) expect(tag).toContain(`nonce="${nonce}"`);
+    expect(nonce.length).toBeGreaterThanOrEqual(32);
+    expect(makeNonce()).not.toBe(nonce);
+  });
+
   it("every page the extension or the view layer builds declares default-src 'none' and scripts only by nonce", () => {
     const viewSources = serverSources.filter((f) => f.includes("/server/src/view/") || f.includes("/server/src/lsp/"));
     const pages = [...clientSources, ...viewSources].filter((f) => /<html|<!DOCTYPE/i.test(readFileSync(f, "utf8")));
