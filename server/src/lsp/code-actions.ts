@@ -28,6 +28,10 @@ export interface TextFix {
 export const STANDARD_PIN_DIAMETERS_M = [2, 2.5, 3, 4, 5, 6, 8, 10, 12, 16, 20].map((mm) => mm / 1000);
 /** Sizes tried beyond the first candidate before giving up: each try is a whole analysis. */
 const PIN_TRIES = 4;
+/** All the tries of one pin fix together may take this long: they run on the server's request
+ * path, and a lightbulb that keeps the server busy longer than a pause in typing is worse than no
+ * fix (common practice, no source). */
+const PIN_FIX_BUDGET_MS = 3000;
 
 // ---- syntax helpers -------------------------------------------------------------------------
 
@@ -254,7 +258,8 @@ function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boole
  * Shear stress goes as 1/d^2 and bearing as 1/d (mechanics.md section 4), so the shear-governed
  * size d sqrt(S_req / S) is a lower bound and the search starts at the first standard size above it.
  */
-export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined, budgetMs = 4000): TextFix | undefined {
+export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined, budgetMs = PIN_FIX_BUDGET_MS): TextFix | undefined {
+  const deadline = performance.now() + budgetMs;
   const pin = pinOf(tree, span, message, detail);
   if (!pin) return undefined;
   const unit = pin.diameter.unit!.text;
@@ -271,7 +276,9 @@ export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message:
     const shift = newText.length - (pin.diameter.span.end - pin.diameter.span.start);
     const declSpan = { start: pin.decl.span.start, end: pin.decl.span.end + shift };
     const pinSpan = { start: pin.prop.span.start, end: pin.prop.span.end + shift };
-    const analysis = analyse(edited, { budgetMs });
+    const left = deadline - performance.now();
+    if (left <= 0) return undefined;
+    const analysis = analyse(edited, { budgetMs: left });
     if (!analysis.sweep || analysis.findings.some((f) => f.code === "analysis.budget" || f.code === "analysis.internal")) return undefined;
     if (!pinStillFails(analysis, declSpan, pinSpan)) {
       const name = pin.decl.name?.text ?? "the joint";
