@@ -59,6 +59,24 @@ describe("balance quick fix over the protocol", () => {
   });
 });
 
+describe("pin quick fix over the protocol", () => {
+  const uri = "file:///work/weak-pin.poise";
+  const text = PENDULUM_TEXT.replace("  base post {", "  material soft_pin {\n    density 1.2 g/cm^3\n    modulus 1 GPa\n    strength 5 MPa\n  }\n  base post {").replace(
+    "pin 3 mm steel_1018",
+    "pin 2 mm soft_pin",
+  );
+
+  it("widens the pin and its strength diagnostic goes", async () => {
+    const published = await session.open(uri, text, 1);
+    const pin = published.diagnostics.find((d) => d.code === "strength.overstress" && String(d.message).includes("pin"));
+    expect(pin, `diagnostics: ${codes(published).join(", ")}`).toBeDefined();
+    const fix = (await actionsFor(uri, pin!)).find((a) => a.title.startsWith("Widen shoulder's pin"));
+    expect(fix).toBeDefined();
+    const after = await session.replace(uri, applied(uri, text, fix!), 2);
+    expect(after.diagnostics.filter((d) => d.code === "strength.overstress" && String(d.message).includes("pin"))).toHaveLength(0);
+  });
+});
+
 describe("missing unit quick fix over the protocol", () => {
   const uri = "file:///work/mistakes.poise";
   const text = readFileSync(join(ROOT, "samples", "mistakes.poise"), "utf8");
