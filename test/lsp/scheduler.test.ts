@@ -124,10 +124,11 @@ describe("analysis scheduler", () => {
     scheduler.dispose();
   });
 
-  it("uses the while-typing density only below the spec's own, and the full one on open", async () => {
+  it("uses the while-typing density only while typing, and the spec's own on open", async () => {
     const runner = new FakeRunner();
     const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 1, stepsWhileTyping: 9 };
-    const scheduler = new AnalysisScheduler(runner, () => s, () => undefined, (text) => (text.includes("steps 5") ? 5 : 37));
+    // As typing-density.ts answers: the setting, or nothing where the spec asks for fewer.
+    const scheduler = new AnalysisScheduler(runner, () => s, () => undefined, (_uri, text, setting) => (text.includes("steps 5") ? undefined : setting));
     scheduler.update("u", 1, "steps 37", "full", true);
     await until(() => runner.runs.length === 1, "open run");
     expect(runner.runs[0]!.options.stepsOverride).toBeUndefined();

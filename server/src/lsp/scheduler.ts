@@ -46,9 +46,9 @@ export class AnalysisScheduler {
     private readonly runner: AnalysisRunner,
     private readonly settings: () => Settings,
     private readonly onAnalysed: (result: PublishedAnalysis) => void,
-    /** The spec's own `sweep steps`, read from a fast parse, so the while-typing density never
-     * raises it. */
-    private readonly specSteps: (text: string) => number | undefined,
+    /** Steps per degree of freedom for a while-typing run of this text (undefined: the spec's
+     * own), given the setting. */
+    private readonly typingSteps: (uri: string, text: string, settingSteps: number) => number | undefined,
   ) {}
 
   /** A new text for a document: analysed after the debounce delay (0 for `immediate`). */
@@ -136,8 +136,8 @@ export class AnalysisScheduler {
     const s = this.settings();
     const options: AnalysisOptions = { budgetMs: s.analysisBudgetMs };
     if (entry.density === "typing" && s.stepsWhileTyping > 0) {
-      const own = this.specSteps(entry.text);
-      if (own === undefined || own > s.stepsWhileTyping) options.stepsOverride = s.stepsWhileTyping;
+      const steps = this.typingSteps(entry.uri, entry.text, s.stepsWhileTyping);
+      if (steps !== undefined) options.stepsOverride = steps;
     }
     return options;
   }

@@ -20,7 +20,9 @@ import { attempt, guarded, setFaultLogger } from "./safe";
 import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
 import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
 import { specSummary } from "./summary";
-import { SyntaxViews, specSweepSteps } from "./syntax-view";
+import { SyntaxViews } from "./syntax-view";
+import { typingSteps } from "./typing-density";
+import { parse } from "../syntax/parser";
 
 export const SERVER_NAME = "counterpoise";
 export const SERVER_VERSION = "0.1.0";
@@ -37,7 +39,11 @@ export function startServer(connection: Connection): void {
     createRunner(log),
     () => settings,
     (result) => attempt("publishing diagnostics", () => publish(result)),
-    specSweepSteps,
+    (uri, text, settingSteps) => {
+      const doc = documents.get(uri);
+      const tree = doc && doc.getText() === text ? ctx.syntax(uri)?.tree : undefined;
+      return typingSteps(tree ?? parse(text), settingSteps);
+    },
   );
 
 

@@ -46,9 +46,3 @@ export class SyntaxViews {
     this.cache.delete(uri);
   }
 }
-
-/** The spec's own `sweep steps`, read lexically (no parse on the keystroke path). */
-export function specSweepSteps(text: string): number | undefined {
-  const m = /(?:^|[\n;{}])\s*sweep\s*\{[^}]*?(?:^|[\n;{])\s*steps\s+(\d+)/m.exec(text);
-  return m ? Number(m[1]) : undefined;
-}
