@@ -68,7 +68,7 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<h1>${esc(vm.title)}</h1>`,
     `<p class="sub">Counterpoise report for <code>${esc(options.file)}</code> — ${verdict(vm)}</p>`,
     `<h2>The arm</h2>`,
-    `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts marked in ${"red"} fail a check.</p>`,
+    `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts flagged red fail a check; amber ones carry a warning.</p>`,
     `<div class="drawing">${renderArmSvg(vm, vm.referencePose, { widthPx: 760 })}</div>`,
     rangeEnds(vm),
     `<h2>Torques and hand force</h2>`,
