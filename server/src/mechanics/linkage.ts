@@ -191,15 +191,15 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   const revolutes = graph.joints.map((j, i) => ({ parent: graph.parent[i]!, child: graph.child[i]!, parentPoint: j.parentPoint, childPoint: j.childPoint }));
   const cs = createConstraintSet(nb, revolutes, drives, rows);
   if (rows.length !== n) ok = false; // cannot happen for a connected model; keep the solver safe
-  const dofs: Dof[] = [];
-  const dofDrive: number[] = [];
-  driveKind.forEach((k, d) => {
-    if (k !== "dof") return;
+  // Degrees of freedom in the order the text declares them (the grid's slowest first).
+  const dofDrives = driveKind.map((k, d) => (k === "dof" ? d : -1)).filter((d) => d >= 0);
+  dofDrives.sort((a, b) => graph.joints[driveJoint[a]!]!.origin.declaration.start - graph.joints[driveJoint[b]!]!.origin.declaration.start);
+  const dofs: Dof[] = dofDrives.map((d) => {
     const j = graph.joints[driveJoint[d]!]!;
     const range: [number, number] = j.range ? [j.range[0], j.range[1]] : [j.angle, j.angle];
-    dofs.push({ id: j.id, jointId: j.id, range, reference: ref.angles[driveJoint[d]!]! });
-    dofDrive.push(d);
+    return { id: j.id, jointId: j.id, range, reference: ref.angles[driveJoint[d]!]! };
   });
+  const dofDrive = dofDrives;
   return {
     model,
     graph,
