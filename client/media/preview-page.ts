@@ -23,8 +23,16 @@ declare function acquireVsCodeApi(): HostApi;
 const host = acquireVsCodeApi();
 let vm: ViewModel | null = null;
 let uri = "";
-/** Slider value per dof id, deg: kept across updates so editing does not snap the pose back. */
+/** Slider value per dof id, deg: kept across updates so editing does not snap the pose back, and
+ * in the webview's state so that hiding and showing the panel keeps the pose. */
 const sliderDeg = new Map<string, number>();
+const saved = host.getState() as { uri?: string; sliders?: Record<string, number> } | undefined;
+if (saved?.uri) uri = saved.uri;
+for (const [id, deg] of Object.entries(saved?.sliders ?? {})) if (typeof deg === "number") sliderDeg.set(id, deg);
+
+function saveState(): void {
+  host.setState({ uri, sliders: Object.fromEntries(sliderDeg) });
+}
 let pose = 0;
 
 const $ = (id: string) => document.getElementById(id)!;
@@ -73,6 +81,7 @@ function renderSliders(model: ViewModel): void {
     input.addEventListener("input", () => {
       const deg = d.valuesDeg[Number(input.value)] ?? d.referenceDeg;
       sliderDeg.set(d.id, deg);
+      saveState();
       out.textContent = `${deg.toFixed(1)}°`;
       pose = currentPose(model);
       renderPose(model);
@@ -128,7 +137,7 @@ window.addEventListener("message", (event: MessageEvent<ToPage>) => {
   if (msg.uri !== uri) sliderDeg.clear();
   uri = msg.uri;
   vm = msg.model;
-  host.setState({ uri });
+  saveState();
   render();
 });
 
