@@ -50,7 +50,8 @@ function renderStatus(model: ViewModel): void {
   const span = document.createElement("span");
   span.className = errors ? "bad" : warnings ? "warn" : "";
   span.textContent = errors || warnings ? `${errors} error(s), ${warnings} warning(s)` : "No errors or warnings";
-  el.append(span, document.createTextNode(model.poses.length ? ` — ${model.poses.length} poses` : ""));
+  const poses = model.thinned ? `${model.thinned.shown} of ${model.thinned.solved} poses` : `${model.poses.length} poses`;
+  el.append(span, document.createTextNode(model.poses.length ? ` — ${poses}` : ""));
   if (model.staleNote) {
     const stale = document.createElement("div");
     stale.className = "stale";

@@ -2,7 +2,8 @@
 // parts marked, slices and the envelope.
 import { describe, expect, it } from "vitest";
 import { buildViewModel } from "../../server/src/view/build-view-model";
-import { nearestPose } from "../../server/src/view/pose-lines";
+import { nearestPose, thinPoses } from "../../server/src/view/pose-lines";
+import type { Pose } from "../../server/src/mechanics/types";
 import { A, B, G, L_ARM, M, PIVOT_Y, pendulumAnalysis } from "./pendulum-fixture";
 
 const RATE = 550;
@@ -83,5 +84,26 @@ describe("view model", () => {
     const empty = buildViewModel({ text: "arm {", findings: [], readouts: {} });
     expect(empty.emptyReason).toBeDefined();
     expect(empty.poses).toHaveLength(0);
+  });
+});
+
+describe("thinning a dense grid for the panel", () => {
+  const grid: Pose[] = [];
+  for (let i = 0; i < 141; i++) for (let j = 0; j < 141; j++) {
+    grid.push({ index: grid.length, angles: { a: -1 + (2 * i) / 140, b: (0.5 * j) / 140 }, jointAngles: {}, bodies: {}, springs: {}, cases: [] });
+  }
+  const thin = thinPoses(grid, ["a", "b"], 2500);
+
+  it("keeps a whole sub-grid under the limit with both ends of every range", () => {
+    expect(thin.length).toBeLessThanOrEqual(2500);
+    const as = new Set(thin.map((p) => p.angles.a));
+    const bs = new Set(thin.map((p) => p.angles.b));
+    expect(as.size * bs.size).toBe(thin.length);
+    for (const v of [-1, 1]) expect(as.has(v)).toBe(true);
+    for (const v of [0, 0.5]) expect(bs.has(v)).toBe(true);
+  });
+
+  it("leaves a small sweep alone", () => {
+    expect(thinPoses(grid.slice(0, 100), ["a", "b"], 2500)).toHaveLength(100);
   });
 });

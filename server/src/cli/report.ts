@@ -40,7 +40,8 @@ function parseArgs(args: readonly string[]): ReportArgs | string {
 /** Builds the report page for a spec's text: the part the tests call without touching files. */
 export function reportHtml(text: string, file: string, units: "si" | "us" = "si"): { html: string; errors: number } {
   const analysis = analyse(text);
-  const vm = buildViewModel(analysis, { units });
+  // Every pose: the page carries drawings and curves, not the pose list, so a dense sweep costs little.
+  const vm = buildViewModel(analysis, { units, maxPoses: Infinity });
   return { html: renderReportHtml(vm, { file }), errors: analysis.findings.filter((f) => f.severity === "error").length };
 }
 

@@ -8,7 +8,7 @@ import type { Span } from "../syntax/span";
 import { LineIndex } from "../syntax/span";
 import { sectionProperties } from "../model/section";
 import type { PartStatus, ViewBody, ViewFinding, ViewModel, ViewPart, ViewPose, ViewRange, SafetyRow } from "./view-model";
-import { linesPerDof, nearestPose } from "./pose-lines";
+import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
 import { splitHoldingTorque, TORQUE_METHOD } from "./torque-split";
 import { payloadPaths, viewBounds } from "./envelope";
 
@@ -23,6 +23,9 @@ export interface ViewInput {
 
 const MM = 1000;
 const DEG = 180 / Math.PI;
+/** The panel is sent at most this many poses (about 1.5 MB of JSON); a denser sweep is thinned to
+ * every k-th value of each dof, ends kept. A slider step that fine is finer than a hand can set. */
+export const MAX_VIEW_POSES = 2500;
 /** Attachment points nearer the centre line than this need no bracket drawn, m. */
 const BRACKET_MIN_M = 0.0005;
 
@@ -195,6 +198,8 @@ function safetyRows(model: ArmModel, readouts: Readouts, partOf: (id: string) =>
 export interface ViewOptions {
   /** Unit system of the figures and labels (default SI). */
   units?: "si" | "us";
+  /** Most poses to carry (default MAX_VIEW_POSES; the report, which sends no JSON, takes all). */
+  maxPoses?: number;
 }
 
 export function buildViewModel(input: ViewInput, options: ViewOptions = {}): ViewModel {
@@ -265,7 +270,10 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   vm.safety = safetyRows(model, input.readouts, partOf);
 
   const sweep = input.sweep;
-  const poses = sweep && sweep.poses.length === 0 && sweep.reference ? { ...sweep, poses: [sweep.reference] } : sweep;
+  const solved = sweep && sweep.poses.length === 0 && sweep.reference ? { ...sweep, poses: [sweep.reference] } : sweep;
+  const kept = solved ? thinPoses(solved.poses, solved.dofs.map((d) => d.id), options.maxPoses ?? MAX_VIEW_POSES) : [];
+  const poses = solved && kept.length < solved.poses.length ? { ...solved, poses: kept } : solved;
+  if (solved && poses && poses.poses.length < solved.poses.length) vm.thinned = { shown: poses.poses.length, solved: solved.poses.length };
   if (!poses || poses.poses.length === 0) {
     vm.emptyReason = "The arm has no solved pose yet: fix the errors listed below.";
     return vm;

@@ -66,3 +66,20 @@ export function nearestPose(anglesPerPose: readonly (readonly number[])[], targe
 export function runThrough(lines: readonly (readonly number[])[], p: number): readonly number[] {
   return lines.find((run) => run.includes(p)) ?? lines[0] ?? [];
 }
+
+/** The poses to draw when the sweep has more than `max`: every k-th visited value of each dof (both
+ * ends kept), with k the smallest that brings the count under `max`. Returns the poses unchanged
+ * when there are few enough. */
+export function thinPoses(poses: readonly Pose[], dofIds: readonly string[], max: number): Pose[] {
+  if (poses.length <= max || dofIds.length === 0) return [...poses];
+  const values = dofIds.map((id) => {
+    const sorted = [...new Set(poses.map((p) => Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD)))].sort((a, b) => a - b);
+    return sorted;
+  });
+  for (let k = 2; k < 10000; k++) {
+    const kept = values.map((v) => new Set(v.filter((_, i) => i % k === 0 || i === v.length - 1)));
+    const subset = poses.filter((p) => dofIds.every((id, d) => kept[d]!.has(Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD))));
+    if (subset.length <= max) return subset;
+  }
+  return [...poses];
+}

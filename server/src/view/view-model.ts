@@ -142,6 +142,8 @@ export interface ViewModel {
   torqueMethod: string;
   /** Why there is nothing to draw, when there is nothing. */
   emptyReason?: string;
+  /** Set when the sweep had more poses than the view carries (every k-th value of each dof kept). */
+  thinned?: { shown: number; solved: number };
   /** Set when the drawing is of an earlier text than the editor's (the current one builds no arm). */
   staleNote?: string;
 }
