@@ -116,6 +116,20 @@ describe("dead points", () => {
   });
 });
 
+describe("dead point at the reference pose", () => {
+  it("reports the stage's range, not a free joint, when the reference itself lines the pivots up", () => {
+    // Bars at 90 deg along the spacing line: all four pivots collinear (plane geometry), the
+    // constraint Jacobian is singular there though the stage is a one-dof linkage elsewhere.
+    const model = new ArmBuilder()
+      .parallelogram("reach", "ground", { x: 0, y: 0 }, { length: 0.25, spacing: 0.04, angle: deg(90), range: [deg(80), deg(100)], barMass: 0.1, headMass: 0.1 })
+      .build();
+    const sweep = solveSweep(model);
+    expect(sweep.findings.map((f) => f.code)).toEqual(["geometry.cannot-reach"]);
+    expect(sweep.findings[0]!.span).toEqual(model.joints[0]!.origin.properties["range"]);
+    expect(sweep.poses).toEqual([]);
+  });
+});
+
 describe("mobility", () => {
   it("reports a passive joint that no loop holds and still solves the rest", () => {
     const model = new ArmBuilder()

@@ -13,6 +13,9 @@ import { formatAngle, formatLength } from "./format";
  * is left after projecting out theirs: rows are scaled to order 1, so 1e-8 separates true
  * dependence (round-off, ~1e-14) from near-singular but real geometry. */
 const RANK_TOLERANCE = 1e-8;
+/** Turn of each body's angle, rad, for the generic configuration that tells a dead point from
+ * true mobility: 1e-3 rad moves rows by 1e-3, far above RANK_TOLERANCE, yet keeps the pose close. */
+const GENERIC_TURN = 1e-3;
 
 export type DriveKind = "dof" | "fixed" | "hold";
 
@@ -99,7 +102,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "fixed") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "fixed" });
   for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "range") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "dof" });
 
-  const rowVector = (kind: number, ji: number): Float64Array => {
+  const rowVector = (kind: number, ji: number, q: Float64Array): Float64Array => {
     // One row of Phi_q at the reference pose, phi columns divided by the length scale and drive
     // rows multiplied by it, so that every entry is of order 1.
     const v = new Float64Array(n);
@@ -114,7 +117,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     const axis = kind === ROW_REVOLUTE_X ? 0 : 1;
     const put = (body: number, s: { x: number; y: number }, sign: number) => {
       if (body < 0) return;
-      const phi = ref.q[3 * body + 2]!;
+      const phi = q[3 * body + 2]!;
       const cp = Math.cos(phi);
       const sp = Math.sin(phi);
       v[3 * body + axis]! += sign;
@@ -125,8 +128,15 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     put(c, j.childPoint, -1);
     return v;
   };
-  const basis: Float64Array[] = [];
-  const independent = (v0: Float64Array): boolean => {
+  // The same rows at a slightly turned, generic configuration tell a dead point of the
+  // reference pose (rows dependent only there) from true redundancy or mobility (dependent at
+  // any pose).
+  const generic = Float64Array.from(ref.q);
+  for (let b = 0; b < nb; b++) generic[3 * b + 2]! += GENERIC_TURN * Math.sin(12.9898 * (b + 1));
+  const basisRef: Float64Array[] = [];
+  const basisGeneric: Float64Array[] = [];
+  /** Whether v is independent of the basis; if so and `keep`, it joins the basis. */
+  const independent = (basis: Float64Array[], v0: Float64Array, keep: boolean): boolean => {
     const v = Float64Array.from(v0);
     const norm0 = Math.hypot(...v);
     if (norm0 === 0) return false;
@@ -139,10 +149,13 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     }
     const norm = Math.hypot(...v);
     if (norm <= RANK_TOLERANCE * norm0) return false;
-    for (let i = 0; i < n; i++) v[i]! /= norm;
-    basis.push(v);
+    if (keep) {
+      for (let i = 0; i < n; i++) v[i]! /= norm;
+      basis.push(v);
+    }
     return true;
   };
+  let deadPointAtReference = false;
 
   const revRow = new Int32Array(2 * nj).fill(-1);
   const driveOfJoint = new Int32Array(nj).fill(-1);
@@ -158,12 +171,11 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     rows.push({ kind: ROW_DRIVE, ref: drives.length - 1 });
   };
   for (const c of candidates) {
-    if (basis.length >= n) {
-      if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
-      continue;
-    }
-    if (!independent(rowVector(c.kind, c.joint))) {
-      if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
+    const atGeneric = basisGeneric.length < n && independent(basisGeneric, rowVector(c.kind, c.joint, generic), true);
+    const atReference = basisRef.length < n && independent(basisRef, rowVector(c.kind, c.joint, ref.q), true);
+    if (!atReference) {
+      if (atGeneric) deadPointAtReference = true;
+      else if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
       continue;
     }
     if (c.kind === ROW_DRIVE) addDrive(c.joint, c.driveKind!);
@@ -172,11 +184,17 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
       rows.push({ kind: c.kind, ref: c.joint });
     }
   }
-  // Mobility left over: passive joints whose angle nothing determines are held where they are.
-  for (let ji = 0; ji < nj && basis.length < n; ji++) {
+  // Mobility left over: passive joints whose angle nothing determines (at any pose) are held
+  // where they are.
+  for (let ji = 0; ji < nj && basisRef.length < n; ji++) {
     const j = graph.joints[ji]!;
     if (j.mode !== "passive") continue;
-    if (!independent(rowVector(ROW_DRIVE, ji))) continue;
+    if (!independent(basisRef, rowVector(ROW_DRIVE, ji, ref.q), false)) continue;
+    if (!independent(basisGeneric, rowVector(ROW_DRIVE, ji, generic), true)) {
+      deadPointAtReference = true;
+      continue;
+    }
+    independent(basisRef, rowVector(ROW_DRIVE, ji, ref.q), true);
     addDrive(ji, "hold");
     findings.push(
       finding(
@@ -187,10 +205,21 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
       ),
     );
   }
+  if (rows.length < n && ok) {
+    ok = false;
+    const first = graph.joints.filter((j) => j.mode === "range").sort((a, b) => a.origin.declaration.start - b.origin.declaration.start)[0] ?? graph.joints[0];
+    findings.push(
+      finding(
+        "geometry.cannot-reach",
+        first ? (first.origin.properties["range"] ?? first.origin.name ?? first.origin.declaration) : model.span,
+        `At its reference pose the linkage sits at a dead point${deadPointAtReference ? "" : " or cannot be solved"}: its pivots line up, so it could fold either way and cannot be moved from there; choose another reference angle.`,
+        { data: { jointId: first?.id, deadPoint: true } },
+      ),
+    );
+  }
 
   const revolutes = graph.joints.map((j, i) => ({ parent: graph.parent[i]!, child: graph.child[i]!, parentPoint: j.parentPoint, childPoint: j.childPoint }));
   const cs = createConstraintSet(nb, revolutes, drives, rows);
-  if (rows.length !== n) ok = false; // cannot happen for a connected model; keep the solver safe
   // Degrees of freedom in the order the text declares them (the grid's slowest first).
   const dofDrives = driveKind.map((k, d) => (k === "dof" ? d : -1)).filter((d) => d >= 0);
   dofDrives.sort((a, b) => graph.joints[driveJoint[a]!]!.origin.declaration.start - graph.joints[driveJoint[b]!]!.origin.declaration.start);
