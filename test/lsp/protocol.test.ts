@@ -215,6 +215,16 @@ describe("the sample full of mistakes", () => {
     expect(hoverText(h)).toContain(`\`name.unknown\` — ${CODES["name.unknown"].explanation}`);
   });
 
+  it("carries related places and the finding's detail in its diagnostics", async () => {
+    const published = await session.diagnosticsFor(u, 1);
+    const duplicate = published.diagnostics.find((d) => d.code === "name.duplicate");
+    // The second `payload lamp` points back at the first.
+    expect(duplicate?.range.start).toEqual(positionOf(MISTAKES, "payload lamp", 8, 1));
+    expect(duplicate?.relatedInformation?.[0]?.location).toEqual({ uri: u, range: expect.objectContaining({ start: positionOf(MISTAKES, "payload lamp", 8, 0) }) });
+    const unknown = published.diagnostics.find((d) => d.code === "name.unknown");
+    expect(unknown?.data).toMatchObject({ code: "name.unknown", detail: { suggestion: "pla" } });
+  });
+
   it("refuses a rename onto a name already taken, and a name that is not one", async () => {
     const position = positionOf(MISTAKES, "link boom", 6);
     const taken = session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "forearm" });
