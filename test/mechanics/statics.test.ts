@@ -247,3 +247,26 @@ describe("hand force with two degrees of freedom", () => {
     }
   });
 });
+
+describe("torsion spring at a pivot", () => {
+  it("adds its torque T = preload + k (theta - theta_ref) to the holding torque (it acts -T on the child)", () => {
+    const [mass, len, k, preload, ref] = [0.4, 0.2, 0.5, 0.3, deg(10)];
+    const model = new ArmBuilder()
+      .link("arm", len, 0)
+      .joint("tilt", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, ref, { range: [deg(-40), deg(60)] })
+      .torsion("coil", "tilt", k, preload)
+      .payload("lens", "arm", { x: len, y: 0 }, mass)
+      .sweep(11)
+      .build();
+    const sweep = solveSweep(model);
+    for (const pose of sweep.poses) {
+      const th = pose.angles["tilt"]!;
+      const T = preload + k * (th - ref);
+      // Statics of a pivoting link with a torsion spring (virtual work): the hand supplies m g l cos(theta) + T
+      expect(pose.cases[0]!.holdingTorque["tilt"]).toBeCloseTo(mass * G0 * len * Math.cos(th) + T, 10);
+      expect(pose.cases[0]!.springForce["coil"]).toBeCloseTo(T, 12);
+      // Wind-up angle from free: T / k
+      expect(pose.springs["coil"]!.windUp).toBeCloseTo(T / k, 12);
+    }
+  });
+});
