@@ -77,6 +77,7 @@ export class PoseSolver {
   /** Set when the last moveTo stopped at a dead point (the Jacobian's determinant changes sign:
    * the linkage passes a singular configuration, e.g. a parallelogram folding flat). */
   deadPoint = false;
+  private singularAtTrial = false;
 
   constructor(
     readonly linkage: Linkage,
@@ -187,13 +188,14 @@ export class PoseSolver {
         trialAngles[d] = start[d]! + sNew * (target[d]! - start[d]!);
         const move = ds * (target[d]! - start[d]!);
         if (move === 0) continue;
-        const t = this.tangents.subarray(d * n, (d + 1) * n);
-        for (let i = 0; i < n; i++) this.qPredicted[i]! += t[i]! * move;
+        const t = this.tangents;
+        const o = d * n;
+        for (let i = 0; i < n; i++) this.qPredicted[i]! += t[o + i]! * move;
       }
       this.setDriveAngles(trialAngles);
       const corrected = this.correct();
       const crossed = corrected && this.luTrial.determinantSign !== this.luCurrent.determinantSign;
-      if (crossed) this.deadPoint = true;
+      if (crossed || (!corrected && this.singularAtTrial)) this.deadPoint = true;
       if (corrected && !crossed) {
         this.deadPoint = false;
         // Accept: the trial factorization becomes the current one.
@@ -216,6 +218,7 @@ export class PoseSolver {
 
   /** Corrects qPredicted into qTrial and factors the Jacobian there into luTrial. */
   private correct(): boolean {
+    this.singularAtTrial = false;
     const cs = this.linkage.cs;
     const q = this.qTrial;
     q.set(this.qPredicted);
@@ -253,7 +256,10 @@ export class PoseSolver {
     updateAngles(cs, q);
     constraintJacobian(cs, this.jac);
     this.factorizations++;
-    return this.luTrial.factor(this.jac);
+    const ok = this.luTrial.factor(this.jac);
+    // Converged onto a pose whose Jacobian is singular: the linkage sits on a dead point.
+    if (!ok) this.singularAtTrial = true;
+    return ok;
   }
 
   /** World position of a body's local point at the current pose (needs updateAngles). */
