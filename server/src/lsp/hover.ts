@@ -29,9 +29,8 @@ function quantityHover(q: QuantityNode, system: UnitSystem): string | undefined 
   if (!dimension) return undefined;
   const si = q.value * parsed.unit.factor;
   const lines = [`**${q.numberText} ${q.unit.text}** (${dimension.replace("_", " ")})`];
-  const written = parsed.unit.system;
-  lines.push(`= ${f(si, dimension, written)} · ${f(si, dimension, otherSystem(written))}`);
-  if (system !== written && system !== otherSystem(written)) lines.push(f(si, dimension, system));
+  // The user's display system first, then the other one.
+  lines.push(`= ${f(si, dimension, system)} · ${f(si, dimension, otherSystem(system))}`);
   return lines.join("\n\n");
 }
 
