@@ -70,6 +70,10 @@ export class PoseSolver {
   private readonly pointSprings: PointSpring[] = [];
   private readonly torsions: TorsionAt[] = [];
   private readonly model: ArmModel;
+  private readonly payloadJ: Float64Array[];
+  /** Body index of each payload (-1 base, -2 a body the base does not reach). */
+  private readonly payloadBody: Int32Array;
+  private readonly tau: Float64Array;
   /** Number of LU factorizations so far (for the benchmark). */
   factorizations = 0;
   /** Set when the last moveTo stopped at the deadline rather than at a lock. */
@@ -106,6 +110,9 @@ export class PoseSolver {
     this.qBodies = new Float64Array(n);
     this.qCase = new Float64Array(n);
     const idx = linkage.graph.bodyIndex;
+    this.payloadJ = this.model.payloads.map(() => new Float64Array(2 * Math.max(this.ndof, 1)));
+    this.payloadBody = Int32Array.from(this.model.payloads, (p) => idx.get(p.body) ?? -2);
+    this.tau = new Float64Array(Math.max(this.ndof, 1));
     for (const s of this.model.springs) {
       if (s.kind === "torsion") {
         const joint = linkage.graph.joints.findIndex((j) => j.id === s.joint);
@@ -359,12 +366,13 @@ export class PoseSolver {
 
     // Payload Jacobians dp/dtheta from the tangents.
     const payloadJacobian: Record<string, Record<string, Vec2>> = {};
-    const payloadJ: Float64Array[] = [];
-    const payloadBody: number[] = [];
-    for (const p of model.payloads) {
-      const b = g.bodyIndex.get(p.body);
-      payloadBody.push(b ?? -2);
-      const jac = new Float64Array(2 * Math.max(ndof, 1));
+    const payloadJ = this.payloadJ;
+    const payloadBody = this.payloadBody;
+    for (let k = 0; k < model.payloads.length; k++) {
+      const p = model.payloads[k]!;
+      const b = payloadBody[k]!;
+      const jac = payloadJ[k]!;
+      jac.fill(0);
       if (b !== undefined && b >= 0) {
         const c = cs.cos[b]!;
         const s = cs.sin[b]!;
@@ -377,13 +385,12 @@ export class PoseSolver {
           jac[2 * d + 1] = this.tangents[o + 1]! + rx * w;
         }
       }
-      payloadJ.push(jac);
       const rec: Record<string, Vec2> = {};
       L.dofs.forEach((d, i) => (rec[d.id] = { x: jac[2 * i]!, y: jac[2 * i + 1]! }));
       payloadJacobian[p.id] = rec;
     }
 
-    const tau = new Float64Array(Math.max(ndof, 1));
+    const tau = this.tau;
     const cases: PoseStatics[] = this.loadCases.map((lc) => {
       this.qCase.set(this.qSprings);
       for (let i = 0; i < n; i++) this.qCase[i]! += this.qBodies[i]!;
