@@ -67,7 +67,7 @@ export interface SpringParameters {
   values: [number, number];
 }
 
-export function springParameters(model: ArmModel, s: Spring): SpringParameters {
+export function springParameters(s: Spring): SpringParameters {
   switch (s.kind) {
     case "extension":
     case "zero_length":
@@ -79,7 +79,6 @@ export function springParameters(model: ArmModel, s: Spring): SpringParameters {
     case "elastic":
       return { names: ["area", undefined], values: [s.area, 0] };
   }
-  void model;
 }
 
 /** Coefficients of the force (tension, or torsion torque T) in the two parameters at a length

@@ -36,7 +36,6 @@ function isHeld(mode: string): boolean {
 }
 
 export function referencePose(graph: JointGraph, lengthScale: number): ReferencePose {
-  const nj = graph.joints.length;
   const angles = Float64Array.from(graph.joints, (j) => j.angle);
   const q = new Float64Array(graph.bodyIds.length * 3);
   const unknowns = graph.tree.filter((t) => graph.joints[t.joint]!.mode === "passive").map((t) => t.joint);
@@ -136,6 +135,5 @@ export function referencePose(graph: JointGraph, lengthScale: number): Reference
       angleMismatch: isHeld(j.mode) ? Math.abs(wrapNear(rel, j.angle) - j.angle) : 0,
     };
   });
-  void nj;
   return { q, angles, gaps };
 }

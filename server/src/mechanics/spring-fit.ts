@@ -156,7 +156,7 @@ function leastSquares(d: Float64Array, count: number, twoParameters: boolean): [
 export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: string): SpringFit | undefined {
   const s = model.springs.find((x) => x.id === springId);
   if (!s) return undefined;
-  const params = springParameters(model, s);
+  const params = springParameters(s);
   const samples = collectSamples(model, sweep, s);
   if (samples.count === 0) return undefined;
   const d = samples.data;
