@@ -3,6 +3,8 @@
 // (chord method), falling back to full Newton-Raphson; the step halves on failure and the
 // angle where it can go no further is where the linkage locks (Nikravesh 1988, ch. 4; Haug 1989,
 // ch. 4). Statics: Phi_q^T lambda = Q with the same factorization (Lagrange multipliers).
+// One class (past the usual file length) because continuation and statics share the buffers and
+// the factorization of the current pose.
 import type { ArmModel, Spring, Vec2 } from "../model/types";
 import type { LoadCase, Pose, PoseStatics, SpringState } from "./types";
 import { DenseLu } from "./dense-lu";
