@@ -6,6 +6,7 @@ import { finding } from "../checks/finding";
 import type { SyntaxTree } from "../syntax/ast";
 import type { AnalysisRunner, RunHandle } from "./runner";
 import type { Settings } from "./settings";
+import { reportFault } from "./safe";
 
 /** A stale run younger than this is left to finish (its result is dropped): restarting the
  * worker costs about as much as a small analysis. Common practice, no source. */
@@ -66,7 +67,7 @@ export class AnalysisScheduler {
     this.clearTimers(entry);
     this.stopIfStale(entry, false);
     const delay = immediate ? 0 : this.settings().diagnosticsDelayMs;
-    entry.debounce = setTimeout(() => this.start(entry!), delay);
+    entry.debounce = setTimeout(() => this.safeStart(entry!), delay);
   }
 
   /** Runs the current text again at the spec's own density (e.g. on save). */
@@ -142,6 +143,15 @@ export class AnalysisScheduler {
     return options;
   }
 
+  /** `start` from a timer: a fault is reported, never thrown into the event loop. */
+  private safeStart(entry: DocEntry): void {
+    try {
+      this.start(entry);
+    } catch (err) {
+      reportFault("starting an analysis", err);
+    }
+  }
+
   private start(entry: DocEntry): void {
     entry.debounce = undefined;
     if (this.docs.get(entry.uri) !== entry) return;
@@ -153,7 +163,7 @@ export class AnalysisScheduler {
       if (entry.running) {
         const startedAt = entry.running.handle.started();
         const wait = startedAt === undefined ? STALE_RUN_GRACE_MS : STALE_RUN_GRACE_MS - (performance.now() - startedAt) + 1;
-        entry.debounce = setTimeout(() => this.start(entry), Math.max(1, wait));
+        entry.debounce = setTimeout(() => this.safeStart(entry), Math.max(1, wait));
         return;
       }
     }

@@ -16,7 +16,7 @@ import type { FeatureContext } from "./context";
 import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type ReanalyseParams } from "./custom-protocol";
 import { FEATURES } from "./features";
 import { createRunner } from "./runner";
-import { attempt, guarded, setFaultLogger } from "./safe";
+import { attempt, guarded, reportFault, setFaultLogger } from "./safe";
 import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
 import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
 import { specSummary } from "./summary";
@@ -34,6 +34,10 @@ export function startServer(connection: Connection): void {
   let client: ClientCapabilities = {};
   const log = (message: string) => attempt("logging", () => connection.console.error(message));
   setFaultLogger(log);
+  // Last line of defence: a fault that escapes every guard (a timer, a worker event) is logged and
+  // the server stays up, rather than the editor losing all feedback.
+  process.on("uncaughtException", (err) => reportFault("an event handler", err));
+  process.on("unhandledRejection", (err) => reportFault("a pending task", err));
 
   const scheduler = new AnalysisScheduler(
     createRunner(log),
@@ -45,7 +49,6 @@ export function startServer(connection: Connection): void {
       return typingSteps(tree ?? parse(text), settingSteps);
     },
   );
-
 
   const ctx: FeatureContext = {
     connection,
