@@ -20,8 +20,8 @@ function springEnergy(model: ArmModel, s: Spring, pose: Pose): number {
   if (s.kind === "torsion") {
     const j = model.joints.find((x) => x.id === s.joint)!;
     const turn = pose.jointAngles[j.id]! - j.angle;
-    // T = preload + k (theta - theta_ref): V = preload turn + k turn^2 / 2
-    return s.preloadTorque * turn + (s.rate * turn * turn) / 2;
+    // T = k (theta - theta_ref) - preload: V = k turn^2 / 2 - preload turn
+    return (s.rate * turn * turn) / 2 - s.preloadTorque * turn;
   }
   const A = world(pose, model, s.a.body, s.a.point);
   const B = world(pose, model, s.b.body, s.b.point);
@@ -249,7 +249,7 @@ describe("hand force with two degrees of freedom", () => {
 });
 
 describe("torsion spring at a pivot", () => {
-  it("adds its torque T = preload + k (theta - theta_ref) to the holding torque (it acts -T on the child)", () => {
+  it("adds its torque T = k (theta - theta_ref) - preload to the holding torque (it acts -T on the child)", () => {
     const [mass, len, k, preload, ref] = [0.4, 0.2, 0.5, 0.3, deg(10)];
     const model = new ArmBuilder()
       .link("arm", len, 0)
@@ -261,7 +261,7 @@ describe("torsion spring at a pivot", () => {
     const sweep = solveSweep(model);
     for (const pose of sweep.poses) {
       const th = pose.angles["tilt"]!;
-      const T = preload + k * (th - ref);
+      const T = k * (th - ref) - preload;
       // Statics of a pivoting link with a torsion spring (virtual work): the hand supplies m g l cos(theta) + T
       expect(pose.cases[0]!.holdingTorque["tilt"]).toBeCloseTo(mass * G0 * len * Math.cos(th) + T, 10);
       expect(pose.cases[0]!.springForce["coil"]).toBeCloseTo(T, 12);

@@ -241,7 +241,40 @@ function joinedPairs(model: ArmModel): Set<string> {
     }
   }
   for (const list of sites.values()) for (let i = 0; i < list.length; i++) for (let k = i + 1; k < list.length; k++) pairs.add(key(list[i]!, list[k]!));
+  addLayeredPairs(model, pairs, key);
   return pairs;
+}
+
+/** Two bodies pinned to one body closer together than their own half depths overlap there in
+ * every pose, so the designer has put them in different layers (e.g. two stages on opposite
+ * faces of a head plate): their segments say nothing about clearance. */
+function addLayeredPairs(model: ArmModel, pairs: Set<string>, key: (a: string, b: string) => string): void {
+  const halfDepth = (id: string) => {
+    const b = model.bodies.find((x) => x.id === id);
+    return b?.section ? sectionProperties(b.section).depth / 2 : 0;
+  };
+  const pinsOn = new Map<string, { other: string; at: { x: number; y: number } }[]>();
+  for (const j of model.joints) {
+    for (const [on, other, at] of [
+      [j.parent, j.child, j.parentPoint],
+      [j.child, j.parent, j.childPoint],
+    ] as const) {
+      const list = pinsOn.get(on) ?? [];
+      list.push({ other, at });
+      pinsOn.set(on, list);
+    }
+  }
+  for (const list of pinsOn.values()) {
+    for (let i = 0; i < list.length; i++) {
+      for (let k = i + 1; k < list.length; k++) {
+        const a = list[i]!;
+        const b = list[k]!;
+        if (a.other === b.other) continue;
+        const pinGap = Math.hypot(a.at.x - b.at.x, a.at.y - b.at.y);
+        if (pinGap < halfDepth(a.other) + halfDepth(b.other)) pairs.add(key(a.other, b.other));
+      }
+    }
+  }
 }
 
 function bodySegment(model: ArmModel, pose: Pose, body: Body): Segment | undefined {

@@ -34,11 +34,12 @@ export function gasStrutTension(s: Pick<GasStrut, "force" | "progression" | "str
   return -s.force * (1 + (s.progression - 1) * fraction);
 }
 
-/** Torsion spring at a joint: T = preload + k (theta - theta_ref). The spring applies T to the
+/** Torsion spring at a joint: T = k (theta - theta_ref) - preload. The spring applies T to the
  * parent and -T to the child (CCW positive), so turning the child CCW winds it up and it pushes
- * back; a positive preload pushes the child clockwise at the reference pose. */
+ * back; a positive preload pushes the child counter-clockwise at the reference pose (it lifts a
+ * child that reaches out to the right, as a counterbalance does). */
 export function torsionSpringTorque(s: Pick<TorsionSpring, "rate" | "preloadTorque">, jointAngle: number, referenceAngle: number): number {
-  return s.preloadTorque + s.rate * (jointAngle - referenceAngle);
+  return s.rate * (jointAngle - referenceAngle) - s.preloadTorque;
 }
 
 /** Shear modulus of a cord's material, Pa (0 when the material is unknown). */
@@ -97,7 +98,7 @@ export function springForceBasis(model: ArmModel, s: Spring, lengthOrTurn: numbe
       return;
     case "torsion":
       out[0] = lengthOrTurn;
-      out[1] = 1;
+      out[1] = -1;
       return;
     case "gas":
       out[0] = s.force !== 0 ? gasStrutTension(s, lengthOrTurn) / s.force : 0;

@@ -143,7 +143,7 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
       { key: "progression", shape: q("dimensionless"), springKinds: ["gas"], doc: "Compressed force / extended force.", example: "progression 1.3" },
       { key: "stroke", shape: q("length"), springKinds: ["gas"], doc: "Stroke.", example: "stroke 60 mm" },
       { key: "extended_length", shape: q("length"), springKinds: ["gas"], doc: "Eye-to-eye length fully extended.", example: "extended_length 180 mm" },
-      { key: "preload", shape: { type: "quantity-or", dimensions: ["angle", "torque"] }, springKinds: ["torsion"], doc: "Wind-up angle or torque at the reference pose.", example: "preload 90 deg" },
+      { key: "preload", shape: { type: "quantity-or", dimensions: ["angle", "torque"] }, springKinds: ["torsion"], doc: "Wind-up angle or torque at the reference pose; positive turns the child counter-clockwise.", example: "preload 90 deg" },
       { key: "max_angle", shape: q("angle"), springKinds: ["torsion"], doc: "Largest safe wind-up angle.", example: "max_angle 270 deg" },
     ],
   },
