@@ -1,9 +1,15 @@
 // `poise sweep` as cli.md fixes it: the pose table in JSON (default) or CSV, in fixed units
 // (angles deg, lengths mm, forces N, torques N*m), parallelogram bodies as `reach.lower` etc.
 import { beforeAll, describe, expect, it } from "vitest";
+import { readFileSync } from "node:fs";
 import { ensureBuilt, poise } from "./run-cli";
 
 beforeAll(() => ensureBuilt());
+
+function pointOf(text: string, pattern: RegExp): { x: number; y: number } {
+  const m = pattern.exec(text)!;
+  return { x: Number(m[1]), y: Number(m[2]) };
+}
 
 interface SweepJson {
   dofs: string[];
@@ -22,19 +28,23 @@ describe("poise sweep", () => {
     const r = poise("sweep", "samples/camera-arm.poise");
     const table = JSON.parse(r.stdout) as SweepJson;
     expect(table.dofs).toEqual(["reach"]);
-    // The sample asks for `steps 37` over its one degree of freedom.
-    expect(table.poses).toHaveLength(37);
+    // The sample's `steps N` over its one degree of freedom, both ends of its `range` included,
+    // in degrees.
+    const text = readFileSync("samples/camera-arm.poise", "utf8");
+    const steps = Number(/steps (\d+)/.exec(text)![1]);
+    const [, low, high] = /range (-?[\d.]+) deg \.\. (-?[\d.]+) deg/.exec(text)!.map(Number);
+    expect(table.poses).toHaveLength(steps);
     const first = table.poses[0]!;
     const last = table.poses[table.poses.length - 1]!;
-    // `range -30 deg .. 45 deg`, both ends included, in degrees.
-    expect(first.angles.reach).toBeCloseTo(-30, 6);
-    expect(last.angles.reach).toBeCloseTo(45, 6);
+    expect(first.angles.reach).toBeCloseTo(low!, 6);
+    expect(last.angles.reach).toBeCloseTo(high!, 6);
     expect(Object.keys(first.bodies)).toEqual(expect.arrayContaining(["bench_clamp", "reach.lower", "reach.upper", "reach.head"]));
-    // The lower bar starts at the pivot `(0 mm, 300 mm)` of the base, in mm; its angle is the
-    // stage's angle, in degrees.
-    expect(first.bodies["reach.lower"]!.x).toBeCloseTo(0, 3);
-    expect(first.bodies["reach.lower"]!.y).toBeCloseTo(300, 3);
-    expect(first.bodies["reach.lower"]!.angle).toBeCloseTo(-30, 3);
+    // The lower bar starts at the base's `point pivot (x, y)`, in mm; its angle is the stage's
+    // angle, in degrees.
+    const pivot = pointOf(text, /point pivot \(([-\d.]+) mm, ([-\d.]+) mm\)/);
+    expect(first.bodies["reach.lower"]!.x).toBeCloseTo(pivot.x, 3);
+    expect(first.bodies["reach.lower"]!.y).toBeCloseTo(pivot.y, 3);
+    expect(first.bodies["reach.lower"]!.angle).toBeCloseTo(low!, 3);
     // The head of a parallelogram keeps the root's orientation (language.md).
     for (const p of table.poses) expect(p.bodies["reach.head"]!.angle).toBeCloseTo(0, 3);
     expect(Object.keys(first.holding_torque)).toEqual(["reach"]);
@@ -46,13 +56,17 @@ describe("poise sweep", () => {
   });
 
   it("spring lengths are hook-to-hook distances in mm", () => {
+    const text = readFileSync("samples/camera-arm.poise", "utf8");
     const table = JSON.parse(poise("sweep", "samples/camera-arm.poise", "--json").stdout) as SweepJson;
+    // Hooks: `bench_clamp.anchor`, a world point of the base, and `reach.lower(u, v)`, a point in
+    // the lower bar's frame, which starts at the pivot and turns with the stage's angle.
+    const pivot = pointOf(text, /point pivot \(([-\d.]+) mm, ([-\d.]+) mm\)/);
+    const anchor = pointOf(text, /point anchor \(([-\d.]+) mm, ([-\d.]+) mm\)/);
+    const local = pointOf(text, /reach\.lower\(([-\d.]+) mm, ([-\d.]+) mm\)/);
     for (const p of table.poses) {
-      // Hooks: bench_clamp.anchor (0, 390) mm in world, and 100 mm along the lower bar from the
-      // pivot (0, 300) mm: the distance by the law of cosines at the pivot.
       const a = (p.angles.reach! * Math.PI) / 180;
-      const hook = { x: 100 * Math.cos(a), y: 300 + 100 * Math.sin(a) };
-      expect(p.springs.lift!.length).toBeCloseTo(Math.hypot(hook.x - 0, hook.y - 390), 2);
+      const hook = { x: pivot.x + local.x * Math.cos(a) - local.y * Math.sin(a), y: pivot.y + local.x * Math.sin(a) + local.y * Math.cos(a) };
+      expect(p.springs.lift!.length).toBeCloseTo(Math.hypot(hook.x - anchor.x, hook.y - anchor.y), 2);
     }
   });
 
