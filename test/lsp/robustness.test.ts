@@ -13,7 +13,7 @@ import { familyArbitrary, type FamilyName } from "../fuzz/campaign";
 const root = join(__dirname, "..", "..");
 const serverPath = join(root, "dist", "server.js");
 /** Texts sent to the server, spread over the families; each costs one analysis and a dozen requests. */
-const CASES = Number(process.env.FUZZ_LSP_CASES ?? 48);
+const CASES = Number(process.env.FUZZ_LSP_CASES ?? 120);
 /** Waiting longer than this for a document's diagnostics means the server is stuck. Common
  * practice, no source: far above any analysis at 3 steps. */
 const DIAGNOSTICS_TIMEOUT_MS = Number(process.env.FUZZ_LSP_TIMEOUT_MS ?? 10_000);
@@ -108,11 +108,13 @@ afterAll(async () => {
 });
 
 describe("the server over stdio, on fuzzed texts", () => {
-  it(`answers, publishes in-document diagnostics and stays alive for ${CASES} texts`, async () => {
+  it(`answers, publishes in-document diagnostics and stays alive for ${CASES} fuzzed texts and the nasty ones`, async () => {
     const families: FamilyName[] = ["valid", "nearly-valid", "byte-mutant", "junk"];
     const texts = [...NASTY_TEXTS, ...recordedLspTexts(), ...families.flatMap((f, i) => fc.sample(familyArbitrary(f, samples), { seed: SEED + i, numRuns: Math.ceil(CASES / families.length) }))];
     const uri = "file:///fuzz/robustness.poise";
     const problems: string[] = [];
+    let answered = 0;
+    let publishedCount = 0;
     let version = 1;
     let mirror = TextDocument.create(uri, "counterpoise", version, texts[0]!);
     await session.open(uri, texts[0]!, version);
@@ -132,6 +134,7 @@ describe("the server over stdio, on fuzzed texts", () => {
       const published = await session.waitForDiagnostics(uri, version, DIAGNOSTICS_TIMEOUT_MS);
       const label = `text #${k} ${JSON.stringify(text.slice(0, 80))}`;
       if (!published) problems.push(`${label}: no diagnostics within ${DIAGNOSTICS_TIMEOUT_MS} ms`);
+      else publishedCount++;
       for (const d of published?.diagnostics ?? []) {
         if (!positionInDocument(lines, d.range.start) || !positionInDocument(lines, d.range.end)) problems.push(`${label}: diagnostic ${String(d.code)} at ${JSON.stringify(d.range)} lies outside the document`);
       }
@@ -140,6 +143,7 @@ describe("the server over stdio, on fuzzed texts", () => {
           if (!(session.capabilities as Record<string, unknown>)[probe.capability] || SKIPPED.has(probe.method)) continue;
           try {
             const result = await session.request<unknown>(probe.method, probe.params(uri, position, lines), DIAGNOSTICS_TIMEOUT_MS);
+            answered++;
             for (const r of rangesIn(result)) {
               if (!positionInDocument(lines, r.start) || !positionInDocument(lines, r.end)) problems.push(`${label}: ${probe.method} at ${JSON.stringify(position)} returned range ${JSON.stringify(r)} outside the document`);
             }
@@ -160,6 +164,10 @@ describe("the server over stdio, on fuzzed texts", () => {
     for (const log of session.errorLogs.slice(0, 5)) problems.push(`server logged a fault: ${log.slice(0, 1500)}`);
     expect(problems, problems.join("\n\n")).toEqual([]);
     expect(session.alive).toBe(true);
+    // Every text really went through: one publish each, and most requests answered.
+    expect(publishedCount).toBe(texts.length);
+    expect(answered).toBeGreaterThan(texts.length * 10);
+    console.log(`robustness over stdio: ${texts.length} texts, ${answered} answers`);
   }, 240_000);
 
   it("answers a request for a document it was never sent, and one for a closed document", async () => {
