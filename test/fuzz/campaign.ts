@@ -4,7 +4,7 @@
 import fc from "fast-check";
 import { validSpecArb } from "./spec-arbitrary";
 import { byteMutantArb, junkArb, nearlyValidArb } from "./mutations";
-import { checkText, signature, type Violation } from "./properties";
+import { checkText, fuzzStats, signature, type Violation } from "./properties";
 
 export type FamilyName = "valid" | "nearly-valid" | "byte-mutant" | "junk";
 
@@ -57,6 +57,8 @@ export interface CampaignResult {
   repeats: number;
   failures: FailureRecord[];
   byFamily: Record<string, number>;
+  /** Cases per family whose spec was solved (poses computed), not stopped by an error. */
+  solvedByFamily: Record<string, number>;
   interrupted: boolean;
 }
 
@@ -70,7 +72,7 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
   const families = opts.families ?? (Object.keys(FAMILY_WEIGHTS) as FamilyName[]);
   const totalWeight = families.reduce((s, f) => s + FAMILY_WEIGHTS[f], 0);
   const known = opts.known ?? new Set<string>();
-  const result: CampaignResult = { cases: 0, repeats: 0, failures: [], byFamily: {}, interrupted: false };
+  const result: CampaignResult = { cases: 0, repeats: 0, failures: [], byFamily: {}, solvedByFamily: {}, interrupted: false };
   const started = performance.now();
   let seed = opts.seed;
   let weightSoFar = 0;
@@ -91,7 +93,9 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
         if (result.cases % 200 === 0) opts.onProgress?.(result.cases);
       }
       opts.onCaseStart?.(text, family);
+      const solvedBefore = fuzzStats.solved;
       const violations = checkText(text);
+      if (!shrinking && fuzzStats.solved > solvedBefore) result.solvedByFamily[family] = (result.solvedByFamily[family] ?? 0) + 1;
       // A failure already recorded passes, so one bug does not stop the campaign or fill the
       // folder with copies; a new one throws and is shrunk.
       const fresh = violations.find((v) => !known.has(signature(v)));

@@ -116,7 +116,7 @@ function runWorkerSide(): void {
 }
 
 /** Runs one worker until it finishes or hangs. */
-function runOneWorker(args: Args, runs: number, seed: number, samples: string[], known: Set<string>, onFailure: (f: FailureRecord & { hang?: boolean }) => void, timeLimitMs?: number): Promise<{ cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number> }> {
+function runOneWorker(args: Args, runs: number, seed: number, samples: string[], known: Set<string>, onFailure: (f: FailureRecord & { hang?: boolean }) => void, timeLimitMs?: number): Promise<{ cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number>; solvedByFamily?: Record<string, number> }> {
   return new Promise((resolve) => {
     const shared = new SharedArrayBuffer(8 + 2 * TEXT_SLOTS);
     const counter = new Int32Array(shared, 0, 2);
@@ -127,7 +127,7 @@ function runOneWorker(args: Args, runs: number, seed: number, samples: string[],
     let lastChange = Date.now();
     let cases = 0;
     let settled = false;
-    const finish = (value: { cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number> }) => {
+    const finish = (value: { cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number>; solvedByFamily?: Record<string, number> }) => {
       if (settled) return;
       settled = true;
       clearInterval(watch);
@@ -151,7 +151,7 @@ function runOneWorker(args: Args, runs: number, seed: number, samples: string[],
     worker.on("message", (m: WorkerMessage) => {
       if (m.type === "failure") onFailure(m.failure);
       else if (m.type === "progress") cases = m.cases;
-      else finish({ cases: m.result.cases, repeats: m.result.repeats, hung: false, byFamily: m.result.byFamily });
+      else finish({ cases: m.result.cases, repeats: m.result.repeats, hung: false, byFamily: m.result.byFamily, solvedByFamily: m.result.solvedByFamily });
     });
     worker.on("error", (err) => {
       const v = { property: "no-throw" as const, message: `worker died: ${err instanceof Error ? err.stack : String(err)}` };
@@ -178,6 +178,7 @@ async function runMainSide(): Promise<void> {
   let repeats = 0;
   let seed = args.seed;
   const byFamily: Record<string, number> = {};
+  const solvedByFamily: Record<string, number> = {};
   const log = (s: string) => process.stderr.write(s + "\n");
   log(`fuzz: ${args.runs} cases, seed ${args.seed}${args.timeLimitMs ? `, at most ${args.timeLimitMs} ms` : ""}`);
   while (done < args.runs) {
@@ -192,11 +193,12 @@ async function runMainSide(): Promise<void> {
     done += Math.max(1, r.cases);
     repeats += r.repeats;
     for (const [f, n] of Object.entries(r.byFamily ?? {})) byFamily[f] = (byFamily[f] ?? 0) + n;
+    for (const [f, n] of Object.entries(r.solvedByFamily ?? {})) solvedByFamily[f] = (solvedByFamily[f] ?? 0) + n;
     if (!r.hung) break;
     seed = seed + 7919;
   }
-  const summary = { cases: done, byFamily, repeats, failures: failures.length, seconds: (Date.now() - started) / 1000, seed: args.seed };
-  log(`fuzz: ${summary.cases} cases (${Object.entries(byFamily).map(([f, n]) => `${f} ${n}`).join(", ")}) in ${summary.seconds.toFixed(1)} s, ${summary.failures} new failure(s), ${repeats} repeat(s) of known ones`);
+  const summary = { cases: done, byFamily, solvedByFamily, repeats, failures: failures.length, seconds: (Date.now() - started) / 1000, seed: args.seed };
+  log(`fuzz: ${summary.cases} cases (${Object.entries(byFamily).map(([f, n]) => `${f} ${n}, ${solvedByFamily[f] ?? 0} solved`).join("; ")}) in ${summary.seconds.toFixed(1)} s, ${summary.failures} new failure(s), ${repeats} repeat(s) of known ones`);
   if (args.json) process.stdout.write(JSON.stringify({ ...summary, details: failures }) + "\n");
   process.exitCode = failures.length ? 1 : 0;
 }

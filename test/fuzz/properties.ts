@@ -27,6 +27,10 @@ export interface Violation {
   message: string;
 }
 
+/** How far the texts got: counted so a run can show it reached the solver and the checks, not
+ * only the parser. */
+export const fuzzStats = { analysed: 0, solved: 0 };
+
 export function checkText(text: string, options: { alwaysDeterminism?: boolean } = {}): Violation[] {
   const violations: Violation[] = [];
   const t0 = performance.now();
@@ -37,6 +41,8 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
     return [{ property: "no-throw", message: `analyse threw: ${describeError(err)}` }];
   }
   const elapsed = performance.now() - t0;
+  fuzzStats.analysed++;
+  if (first.sweep && first.sweep.poses.length > 0) fuzzStats.solved++;
   if (elapsed > SLOW_CASE_MS) violations.push({ property: "fast", message: `analyse took ${elapsed.toFixed(0)} ms at ${FUZZ_STEPS} steps` });
 
   const found = checkAnalysis(first, text);

@@ -36,11 +36,12 @@ interface QuantityGen {
 
 function quantityArb(min: number, max: number): fc.Arbitrary<QuantityGen> {
   return fc.record({
-    // Mostly round values spread over the range; now and then any double in it (its ends,
-    // subnormals), which is where formatting and conversions go wrong.
+    // Mostly round values spread over the range; now and then a finely divided one (long digit
+    // strings). The extremes (subnormals, 1e300, NaN-like text) are the mutations' job: here the
+    // spec must stay buildable so that the solver and the checks are reached.
     value: fc.oneof(
       { weight: 4, arbitrary: fc.integer({ min: 0, max: 1000 }).map((k) => min + ((max - min) * k) / 1000) },
-      { weight: 1, arbitrary: fc.double({ min, max, noNaN: true, noDefaultInfinity: true }) },
+      { weight: 1, arbitrary: fc.integer({ min: 0, max: 1_000_000 }).map((k) => min + ((max - min) * k) / 1_000_000) },
     ),
     // Mostly the canonical unit: keeps the arm near real sizes; the rest exercises conversions.
     unitIndex: fc.oneof({ weight: 4, arbitrary: fc.constant(0) }, { weight: 1, arbitrary: fc.nat(5) }),
