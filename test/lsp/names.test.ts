@@ -7,7 +7,7 @@ import { join } from "node:path";
 import { parse } from "../../server/src/syntax/parser";
 import { buildModel } from "../../server/src/model/build";
 import { BUILTIN_MATERIAL_IDS } from "../../server/src/model/materials";
-import { buildNameIndex, occurrenceAt, occurrencesOf } from "../../server/src/lsp/names";
+import { buildNameIndex, mergeNameIndexes, nameIndexFromSymbols, occurrenceAt, occurrencesOf, type NameIndex } from "../../server/src/lsp/names";
 
 const root = join(__dirname, "..", "..");
 const samples = ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"].map((n) => readFileSync(join(root, "samples", `${n}.poise`), "utf8"));
@@ -52,5 +52,27 @@ describe("name index", () => {
       // Every reference the model builder resolved, the index resolves to the same id.
       expect(ours).toEqual(expect.arrayContaining(theirs));
     }
+  });
+
+  it("reads the same from the model builder's table as from the tree alone", () => {
+    const flat = (index: NameIndex) => ({
+      occurrences: index.occurrences.map((o) => `${o.span.start}-${o.span.end}:${o.symbolId}:${o.declaration}`),
+      symbols: [...index.symbols.values()].map((x) => `${x.id}:${x.kind}:${x.name}:${x.builtin}:${x.renameable}:${x.parent ?? ""}`).sort(),
+      bodies: [...index.bodies].sort(),
+    });
+    for (const text of samples.slice(0, 3)) {
+      const tree = parse(text);
+      const fromModel = nameIndexFromSymbols(buildModel(tree, text).symbols, BUILTIN_MATERIAL_IDS);
+      expect(flat(fromModel)).toEqual(flat(buildNameIndex(tree, BUILTIN_MATERIAL_IDS)));
+    }
+  });
+
+  it("completes the builder's table with what only the tree resolves", () => {
+    const mistakes = samples[3]!;
+    const tree = parse(mistakes);
+    const merged = mergeNameIndexes(nameIndexFromSymbols(buildModel(tree, mistakes).symbols, BUILTIN_MATERIAL_IDS), buildNameIndex(tree, BUILTIN_MATERIAL_IDS));
+    // `connects boom.tip to ...`: `tip` is no point of boom, but `boom` is still boom.
+    const inTip = occurrenceAt(merged, mistakes.indexOf("boom.tip") + 1);
+    expect(inTip?.symbolId).toBe("boom");
   });
 });

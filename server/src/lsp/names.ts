@@ -1,9 +1,12 @@
-// The names of a spec and every place they occur, read from the syntax tree alone (so it works on
-// the text being typed): declarations, named points, the bodies a parallelogram creates, and each
-// reference resolved the way the model builder does (longest dotted prefix naming a body, then at
-// most one point). Serves definition, references, rename, completion, hover and highlighting.
+// The names of a spec and every place they occur: declarations, named points, the bodies a
+// parallelogram creates, and each reference. Taken from the model builder's symbol table when the
+// analysis is of the current text; read from the syntax tree alone while the text is being typed
+// (resolved the way the model builder does: longest dotted prefix naming a body, then at most one
+// point). Serves definition, references, rename, completion, hover and highlighting.
 import type { DeclarationNode, PropertyNode, ReferenceNode, SyntaxTree, ValueNode } from "../syntax/ast";
 import type { Span } from "../syntax/span";
+import type { SymbolTable } from "../model/symbols";
+import { HEAD_POINTS } from "../model/build-parts";
 
 export type NameKind = "material" | "base" | "link" | "joint" | "parallelogram" | "spring" | "payload" | "bar" | "head" | "point";
 
@@ -122,6 +125,7 @@ export function buildNameIndex(tree: SyntaxTree, builtinMaterials: readonly stri
         addSymbol({ id: `${id}.${part}`, kind: part === "head" ? "head" : "bar", name: part, nameSpan: decl.name.span, declarationSpan: decl.span, builtin: false, parent: id, renameable: false });
       }
       for (const bar of ["lower", "upper"]) addEndPoints(addSymbol, `${id}.${bar}`);
+      addEndPoints(addSymbol, `${id}.head`, HEAD_POINT_NAMES);
     }
     if (keyword === "link") addEndPoints(addSymbol, id);
   }
@@ -157,8 +161,54 @@ export function buildNameIndex(tree: SyntaxTree, builtinMaterials: readonly stri
   return index;
 }
 
-function addEndPoints(addSymbol: (s: NameSymbol) => NameSymbol, bodyId: string): void {
-  for (const name of ["start", "end"]) addSymbol({ id: `${bodyId}.${name}`, kind: "point", name, builtin: true, parent: bodyId, renameable: false });
+/** The index from the model builder's own symbol table (the authority when it is of this text). */
+export function nameIndexFromSymbols(table: SymbolTable, builtinMaterials: readonly string[] = []): NameIndex {
+  const symbols = new Map<string, NameSymbol>();
+  const occurrences: Occurrence[] = [];
+  const bodies = new Set<string>();
+  for (const d of table.declarations) {
+    if (d.kind === "require" || d.kind === "sweep" || symbols.has(d.id)) continue;
+    const kind: NameKind = d.kind === "body" ? (d.id.endsWith(".head") ? "head" : "bar") : d.kind;
+    const implicit = d.implicit === true;
+    const name = d.kind === "body" ? d.id.slice(d.id.lastIndexOf(".") + 1) : d.name;
+    symbols.set(d.id, {
+      id: d.id,
+      kind,
+      name,
+      nameSpan: d.nameSpan,
+      declarationSpan: d.span,
+      // Implicit points (a link's start and end) are the language's; generated bodies are the
+      // parallelogram's.
+      builtin: implicit && kind === "point",
+      ...(d.container ? { parent: d.container } : {}),
+      renameable: !implicit,
+    });
+    if (BODY_KINDS.has(kind)) bodies.add(d.id);
+    if (!implicit) occurrences.push({ symbolId: d.id, span: d.nameSpan, declaration: true });
+  }
+  for (const name of builtinMaterials) if (!symbols.has(name)) symbols.set(name, { id: name, kind: "material", name, builtin: true, renameable: false });
+  for (const r of table.references) if (symbols.has(r.target.id)) occurrences.push({ symbolId: r.target.id, span: r.span, declaration: false });
+  occurrences.sort((a, b) => a.span.start - b.span.start);
+  return { symbols, occurrences, bodies };
+}
+
+/** Points every bar and link has; a head's two far pivots are named by the model builder. */
+const END_POINTS = ["start", "end"] as const;
+const HEAD_POINT_NAMES: readonly string[] = Object.values(HEAD_POINTS);
+
+/** The model builder's index, completed by what the tree alone resolves and the builder left out
+ * (e.g. the body in `boom.tip` when `tip` is unknown, so that renaming `boom` still reaches it). */
+export function mergeNameIndexes(primary: NameIndex, secondary: NameIndex): NameIndex {
+  const symbols = new Map(primary.symbols);
+  for (const [id, sym] of secondary.symbols) if (!symbols.has(id)) symbols.set(id, sym);
+  const taken = new Set(primary.occurrences.map((o) => o.span.start));
+  const occurrences = [...primary.occurrences, ...secondary.occurrences.filter((o) => !taken.has(o.span.start))];
+  occurrences.sort((a, b) => a.span.start - b.span.start);
+  return { symbols, occurrences, bodies: new Set([...primary.bodies, ...secondary.bodies]) };
+}
+
+function addEndPoints(addSymbol: (s: NameSymbol) => NameSymbol, bodyId: string, names: readonly string[] = END_POINTS): void {
+  for (const name of names) addSymbol({ id: `${bodyId}.${name}`, kind: "point", name, builtin: true, parent: bodyId, renameable: false });
 }
 
 /** Where the body part of a dotted reference ends: the longest prefix naming a body. */

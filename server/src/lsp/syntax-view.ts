@@ -1,11 +1,13 @@
-// A fast parse of a document's current text (not its last analysis), cached per version: what
+// The current text of a document, parsed and its names indexed, cached per version: what
 // completion, navigation, outline, folding, highlighting and formatting read, so they follow the
-// text as typed while the heavy analysis runs elsewhere.
+// text as typed while the heavy analysis runs elsewhere (a fast parse until the analysis of this
+// very text arrives; then its tree and the model builder's symbol table).
 import type { TextDocument } from "vscode-languageserver-textdocument";
 import { parse } from "../syntax/parser";
 import type { SyntaxTree } from "../syntax/ast";
 import { LineIndex } from "../syntax/span";
-import { buildNameIndex, type NameIndex } from "./names";
+import { buildNameIndex, mergeNameIndexes, nameIndexFromSymbols, type NameIndex } from "./names";
+import type { Analysis } from "../analysis";
 
 export interface SyntaxView {
   uri: string;
@@ -19,16 +21,17 @@ export interface SyntaxView {
 const EMPTY_TREE: SyntaxTree = { arms: [], comments: [], errors: [] };
 
 export class SyntaxViews {
-  private readonly cache = new Map<string, { view: SyntaxView; materialsKey: string }>();
+  private readonly cache = new Map<string, { view: SyntaxView; materialsKey: string; fromModel: boolean }>();
 
-  /** `builtinMaterials` come from the last model (the library is in the core, not here);
-   * `analysed` is the current analysis, whose tree serves when it is of this very text (a large
-   * spec then is not parsed twice). */
-  view(doc: TextDocument, builtinMaterials: readonly string[], analysed?: { text: string; tree: SyntaxTree }): SyntaxView {
+  /** `builtinMaterials` are the library's names; `analysed` is the current analysis: when it is
+   * of this very text its tree serves (a large spec is not parsed twice) and its symbol table
+   * names things, as the model builder resolved them. */
+  view(doc: TextDocument, builtinMaterials: readonly string[], analysed?: Pick<Analysis, "text" | "tree" | "symbols">): SyntaxView {
     const key = builtinMaterials.join(",");
     const hit = this.cache.get(doc.uri);
-    if (hit && hit.view.version === doc.version && hit.materialsKey === key) return hit.view;
     const text = doc.getText();
+    const fromModel = !!analysed?.symbols && analysed.text === text;
+    if (hit && hit.view.version === doc.version && hit.materialsKey === key && (hit.fromModel || !fromModel)) return hit.view;
     let tree: SyntaxTree;
     try {
       if (hit && hit.view.version === doc.version) tree = hit.view.tree;
@@ -37,8 +40,10 @@ export class SyntaxViews {
     } catch {
       tree = EMPTY_TREE; // parsing never fails by contract; this guards a broken parser
     }
-    const view: SyntaxView = { uri: doc.uri, version: doc.version, text, tree, lines: new LineIndex(text), names: buildNameIndex(tree, builtinMaterials) };
-    this.cache.set(doc.uri, { view, materialsKey: key });
+    const fromTree = buildNameIndex(tree, builtinMaterials);
+    const names = fromModel ? mergeNameIndexes(nameIndexFromSymbols(analysed!.symbols!, builtinMaterials), fromTree) : fromTree;
+    const view: SyntaxView = { uri: doc.uri, version: doc.version, text, tree, lines: new LineIndex(text), names };
+    this.cache.set(doc.uri, { view, materialsKey: key, fromModel });
     return view;
   }
 
