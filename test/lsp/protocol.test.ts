@@ -32,6 +32,9 @@ import { poise } from "../cli/run-cli";
 import { CODES } from "../../server/src/checks/codes";
 
 const CAMERA = readFileSync(join(ROOT, "samples", "camera-arm.poise"), "utf8");
+/** The stage's `length N mm` as the sample has it, and its number. */
+const LENGTH = /length (\d+) mm/.exec(CAMERA)!;
+const LENGTH_MM = Number(LENGTH[1]);
 const uri = "file:///work/camera-arm.poise";
 const doc = { textDocument: { uri } };
 
@@ -93,9 +96,9 @@ describe("a sample over the protocol", () => {
   });
 
   it("hovers a quantity with its value in the other unit system", async () => {
-    const h = await session.connection.sendRequest(HoverRequest.type, { ...doc, position: positionOf(CAMERA, "350 mm", 1) });
-    // 1 in = 0.0254 m exactly (NIST SP 811, 2008, B.8): 350 mm = 13.78 in to 4 figures.
-    expect(hoverText(h)).toContain(`${Number((0.35 / INCH_M).toPrecision(4))} in`);
+    const h = await session.connection.sendRequest(HoverRequest.type, { ...doc, position: positionOf(CAMERA, LENGTH[0], "length ".length + 1) });
+    // 1 in = 0.0254 m exactly (NIST SP 811, 2008, B.8): e.g. 350 mm = 13.78 in to 4 figures.
+    expect(hoverText(h)).toContain(`${Number((LENGTH_MM / 1000 / INCH_M).toPrecision(4))} in`);
   });
 
   it("hovers a name with what it is", async () => {
@@ -245,9 +248,9 @@ describe("diagnostics follow the text", () => {
   it("a broken unit brings a unit finding; the fix takes it away", async () => {
     const opened = await session.open(editUri, CAMERA);
     expect(opened.diagnostics.some((d) => String(d.code).startsWith("unit."))).toBe(false);
-    const broken = await session.replace(editUri, CAMERA.replace("length 350 mm", "length 350 mmm"), 2);
+    const broken = await session.replace(editUri, CAMERA.replace(LENGTH[0], `${LENGTH[0]}m`), 2);
     const unit = broken.diagnostics.find((d) => d.code === "unit.unknown");
-    expect(unit?.range.start).toEqual(positionOf(CAMERA, "350 mm", 4));
+    expect(unit?.range.start).toEqual(positionOf(CAMERA, LENGTH[0], `length ${LENGTH_MM} `.length));
     const fixed = await session.replace(editUri, CAMERA, 3);
     expect(fixed.diagnostics.some((d) => d.code === "unit.unknown")).toBe(false);
   });
@@ -261,7 +264,7 @@ describe("diagnostics follow the text", () => {
 
   it("publishes only the latest of a burst of edits", async () => {
     const burst = [6, 7, 8, 9, 10];
-    for (const v of burst.slice(0, -1)) void session.replace(editUri, CAMERA.replace("350 mm", `${300 + v} mm`), v);
+    for (const v of burst.slice(0, -1)) void session.replace(editUri, CAMERA.replace(LENGTH[0], `length ${300 + v} mm`), v);
     const last = await session.replace(editUri, CAMERA, 10);
     expect(last.version).toBe(10);
   });
