@@ -2,9 +2,11 @@
 // with the same default; every command it declares is registered by the client; every file it
 // names exists.
 import { describe, expect, it } from "vitest";
+import { spawnSync } from "node:child_process";
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { DEFAULT_SETTINGS } from "../../server/src/lsp/settings";
+import { ensureBuilt } from "./protocol-client";
 
 const root = join(__dirname, "..", "..");
 const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8"));
@@ -32,5 +34,15 @@ describe("extension manifest", () => {
 
   it("registers every command it declares", () => {
     for (const c of manifest.contributes.commands as { command: string }[]) expect(clientSource, c.command).toContain(`"${c.command}"`);
+  });
+
+  it("packs only the bundles and the editor files into the .vsix", () => {
+    ensureBuilt();
+    const r = spawnSync(process.execPath, [join(root, "node_modules", "@vscode", "vsce", "vsce"), "ls", "--no-dependencies"], { cwd: root, encoding: "utf8", timeout: 60_000 });
+    const files = r.stdout.trim().split("\n").map((l) => l.trim());
+    expect(files).toEqual(expect.arrayContaining(["package.json", "README.md", "LICENSE", "language-configuration.json", "syntaxes/counterpoise.tmLanguage.json", "snippets/counterpoise.json", "dist/client.js", "dist/server.js", "dist/analysis-worker.js"]));
+    // Bundled: no dependency, source, test, map or command-line bundle goes in.
+    const allowed = /^(package\.json|README\.md|LICENSE|CHANGELOG\.md|language-configuration\.json|syntaxes\/[\w.-]+\.json|snippets\/[\w.-]+\.json|dist\/(client|server|analysis-worker|preview-[\w-]+)\.js|client\/media\/[\w.-]+\.(css|svg|png))$/;
+    expect(files.filter((f) => !allowed.test(f))).toEqual([]);
   });
 });
