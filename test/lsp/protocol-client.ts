@@ -35,9 +35,10 @@ function newestSource(dir: string): number {
 
 /** Builds dist/ when it is missing or older than the sources. */
 export function ensureBuilt(): void {
-  const bundles = ["server.js", "analysis-worker.js", "cli.js"].map((b) => join(ROOT, "dist", b));
+  const bundles = ["server.js", "analysis-worker.js", "cli.js", "client.js"].map((b) => join(ROOT, "dist", b));
   const built = bundles.every(existsSync) ? Math.min(...bundles.map((b) => statSync(b).mtimeMs)) : 0;
-  if (built > newestSource(join(ROOT, "server", "src"))) return;
+  const sources = [join(ROOT, "server", "src"), join(ROOT, "client", "src")].filter(existsSync).map(newestSource);
+  if (built > Math.max(statSync(join(ROOT, "scripts", "build.mjs")).mtimeMs, statSync(join(ROOT, "package.json")).mtimeMs, ...sources)) return;
   const r = spawnSync(process.execPath, [join(ROOT, "scripts", "build.mjs")], { cwd: ROOT, encoding: "utf8" });
   if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
 }
