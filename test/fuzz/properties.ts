@@ -10,6 +10,7 @@ import { CODES } from "../../server/src/checks/codes";
 import type { Finding } from "../../server/src/checks/finding";
 import type { Span } from "../../server/src/syntax/span";
 import type { Pose } from "../../server/src/mechanics/types";
+import { formatSpec } from "../../server/src/lsp/format-text";
 
 /** Poses per degree of freedom during fuzzing: enough to walk a range (ends and middle), few
  * enough that thousands of cases fit in the CI budget. */
@@ -23,7 +24,7 @@ export const SLOW_CASE_MS = 4000;
 export interface Violation {
   /** What makes two failures the same bug (defaults to the message without numbers). */
   key?: string;
-  property: "no-throw" | "no-internal-fault" | "span-in-document" | "deterministic" | "finite-figures" | "finite-model" | "well-formed-finding" | "fast";
+  property: "format-stable" | "no-throw" | "no-internal-fault" | "span-in-document" | "deterministic" | "finite-figures" | "finite-model" | "well-formed-finding" | "fast";
   message: string;
 }
 
@@ -50,6 +51,8 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
   const cause = found.find((v) => v.property === "finite-model");
   violations.push(...(cause ? found.filter((v) => v.property !== "finite-figures") : found));
 
+  violations.push(...checkFormatting(text));
+
   // Determinism costs a second analysis: check it on a third of the texts, chosen by the text
   // itself so that shrinking a failure keeps checking it.
   if (!options.alwaysDeterminism && textHash(text) % 3 !== 0) return violations;
@@ -63,7 +66,43 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
   const a = findingsDigest(first.findings);
   const b = findingsDigest(second.findings);
   if (a !== b) violations.push({ property: "deterministic", message: `findings differ between two runs:\n  ${a}\n  ${b}` });
+
+  // Formatting a text that parses must not change what it means: the same findings, word for word.
+  if (!first.findings.some((f) => f.code === "syntax.error")) {
+    try {
+      const formatted = analyse(formatSpec(text), { stepsOverride: FUZZ_STEPS });
+      const before = meaningDigest(first.findings);
+      const after = meaningDigest(formatted.findings);
+      if (before !== after) violations.push({ property: "format-stable", message: `formatting changed the findings:\n  ${before}\n  ${after}` });
+    } catch (err) {
+      violations.push({ property: "no-throw", message: `analysing the formatted text threw: ${describeError(err)}` });
+    }
+  }
   return violations;
+}
+
+/** The formatter (server/src/lsp/format-text.ts) on any text: returns, is idempotent, and keeps
+ * every word (only spaces, line ends and `;` separators may change). */
+function checkFormatting(text: string): Violation[] {
+  let once: string;
+  try {
+    once = formatSpec(text);
+  } catch (err) {
+    return [{ property: "no-throw", message: `formatSpec threw: ${describeError(err)}` }];
+  }
+  const out: Violation[] = [];
+  const squeeze = (s: string) => s.replace(/[\s;]+/g, "");
+  if (squeeze(once) !== squeeze(text)) out.push({ property: "format-stable", message: "formatting changed a word, not only the spacing" });
+  if (formatSpec(once) !== once) out.push({ property: "format-stable", message: "formatting the formatted text changes it again" });
+  return out;
+}
+
+function meaningDigest(findings: readonly Finding[]): string {
+  return findings
+    .filter((f) => f.code !== "analysis.budget")
+    .map((f) => `${f.code} ${f.message}`)
+    .sort()
+    .join(" | ");
 }
 
 /** The properties of one analysis: no internal fault, findings well formed and inside the
