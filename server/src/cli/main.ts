@@ -23,9 +23,11 @@ async function runLsp(args: string[], out: Output): Promise<number> {
     out.err("poise lsp: only --stdio is supported (poise lsp --stdio)\n");
     return 2;
   }
-  const { createConnection, StreamMessageReader, StreamMessageWriter, ProposedFeatures } = await import("vscode-languageserver/node");
+  const { createConnection, ProposedFeatures } = await import("vscode-languageserver/node");
   const { startServer } = await import("../lsp/server");
-  startServer(createConnection(ProposedFeatures.all, new StreamMessageReader(process.stdin), new StreamMessageWriter(process.stdout)));
+  // Found on the command line, `--stdio` makes the library use stdin/stdout and send console
+  // output to the client's log, so that nothing stray can corrupt the message stream.
+  startServer(createConnection(ProposedFeatures.all));
   return new Promise<number>(() => {}); // runs until the client ends it (exit notification)
 }
 
