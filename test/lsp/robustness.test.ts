@@ -9,6 +9,7 @@ import { spawnSync } from "node:child_process";
 import { TextDocument } from "vscode-languageserver-textdocument";
 import { ServerSession, positionInDocument, protocolLines } from "../fuzz/lsp-client";
 import { familyArbitrary, type FamilyName } from "../fuzz/campaign";
+import { analyse } from "../../server/src/analysis";
 
 const root = join(__dirname, "..", "..");
 const serverPath = join(root, "dist", "server.js");
@@ -169,6 +170,30 @@ describe("the server over stdio, on fuzzed texts", () => {
     expect(answered).toBeGreaterThan(texts.length * 10);
     console.log(`robustness over stdio: ${texts.length} texts, ${answered} answers`);
   }, 240_000);
+
+  it("typed from nothing in a burst of incremental edits, the last version's diagnostics are the core's", async () => {
+    const uri = "file:///fuzz/typed.poise";
+    const target = samples[0]!;
+    let version = 1;
+    let mirror = TextDocument.create(uri, "counterpoise", version, "");
+    await session.open(uri, "", version);
+    // Five characters per edit, sent without waiting, as fast typing or a paste in pieces does.
+    for (let i = 0; i < target.length; i += 5) {
+      version++;
+      const at = mirror.positionAt(mirror.getText().length);
+      const piece = target.slice(i, i + 5);
+      await session.edit(uri, version, { start: at, end: at }, piece);
+      mirror = TextDocument.update(mirror, [{ range: { start: at, end: at }, text: piece }], version);
+    }
+    expect(mirror.getText()).toBe(target);
+    const published = await session.waitForDiagnostics(uri, version, 30_000);
+    expect(published, "no diagnostics for the last version").toBeDefined();
+    const shown = (published?.diagnostics ?? []).map((d) => `${String(d.code)} ${d.message}`).sort();
+    // The server may answer with its quick while-typing pass or, after a pause, the full one.
+    const core = [analyse(target, { stepsOverride: 3 }), analyse(target)].map((a) => a.findings.filter((f) => f.code !== "analysis.budget").map((f) => `${f.code} ${f.message}`).sort());
+    expect(core.some((c) => JSON.stringify(c) === JSON.stringify(shown.filter((x) => !x.startsWith("analysis.budget"))))).toBe(true);
+    expect(session.alive).toBe(true);
+  }, 90_000);
 
   it("answers a request for a document it was never sent, and one for a closed document", async () => {
     const ghost = "file:///fuzz/never-opened.poise";
