@@ -9,10 +9,10 @@ import { finding, type RelatedInfo } from "./finding";
 import { addFigures, type Figure } from "./readout";
 import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics/spring-fit";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
-import { formatQuantity } from "../units/format";
+import { formatResult } from "../units/format";
 import type { DimensionName } from "../units/dimension";
 
-const formatQuantityFor = (valueSI: number, dimension: DimensionName): string => formatQuantity(valueSI, dimension, "si");
+const formatQuantityFor = (valueSI: number, dimension: DimensionName): string => formatResult(valueSI, dimension, "si");
 
 /** A best-fit first parameter (rate, force, area) below this fraction of the present one means
  * the spring is better left out: common practice, no source. */

@@ -4,12 +4,12 @@ import type { ArmModel, Body, Joint, Origin } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import type { Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
-import { formatNumber, formatQuantity } from "../units/format";
+import { formatNumber, formatResult } from "../units/format";
 import type { RelatedInfo } from "./finding";
 
 /** A quantity as messages show it (SI display units; the editor shows hovers in either system). */
 export function show(valueSI: number, dimension: DimensionName): string {
-  return formatQuantity(valueSI, dimension, "si");
+  return formatResult(valueSI, dimension, "si");
 }
 
 /** A safety factor: two decimals, so 1.96 is not shown as 2.0 next to a limit of 2.0. */

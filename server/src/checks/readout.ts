@@ -29,8 +29,9 @@ export type Readouts = Record<string, PartReadout>;
 /** Adds figures to a part's readout, creating it on first use. */
 export function addFigures(readouts: Readouts, id: string, kind: PartKind, figures: Figure[], notes: string[] = []): PartReadout {
   const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
-  r.figures.push(...figures);
-  r.notes.push(...notes);
+  // Two check families may report the same figure (a joint's largest reaction): keep one.
+  for (const f of figures) if (!r.figures.some((g) => sameFigure(f, g))) r.figures.push(f);
+  for (const n of notes) if (!r.notes.includes(n)) r.notes.push(n);
   return r;
 }
 
@@ -39,4 +40,8 @@ export function noteSafety(readouts: Readouts, id: string, kind: PartKind, value
   const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
   if (!Number.isFinite(value)) return;
   if (!r.worstSafety || value < r.worstSafety.value) r.worstSafety = { value, what, ...(where ? { where } : {}) };
+}
+
+function sameFigure(a: Figure, b: Figure): boolean {
+  return a.label === b.label && a.dimension === b.dimension && Math.abs(a.value - b.value) <= 1e-9 * Math.max(1, Math.abs(a.value));
 }

@@ -9,7 +9,7 @@ import type { ArmModel, Body, Spring } from "../model/types";
 import { ARM_PROPERTIES, declarationSpec } from "../model/schema";
 import { spanContains } from "../syntax/span";
 import type { QuantityNode } from "../syntax/ast";
-import { formatNumber, formatQuantity, otherSystem } from "../units/format";
+import { formatNumber, formatQuantity, formatResult, otherSystem } from "../units/format";
 import { parseUnit, dimensionNameOf } from "../units/quantity";
 import type { UnitSystem } from "../units/unit-table";
 import type { ServerFeature } from "./context";
@@ -114,7 +114,7 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
 
 function readoutLines(r: PartReadout, system: UnitSystem): string[] {
   const lines = r.figures.map((fig) => {
-    const value = fig.high !== undefined ? `${f(fig.value, fig.dimension, system)} .. ${f(fig.high, fig.dimension, system)}` : f(fig.value, fig.dimension, system);
+    const value = fig.high !== undefined ? `${formatResult(fig.value, fig.dimension, system)} .. ${formatResult(fig.high, fig.dimension, system)}` : formatResult(fig.value, fig.dimension, system);
     return `- ${fig.label}: ${value}${fig.where ? ` (${fig.where})` : ""}`;
   });
   if (r.worstSafety) lines.push(`- least safety factor: ${formatNumber(r.worstSafety.value)} (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`);

@@ -1,7 +1,7 @@
 // Inlay hints: at the end of each declaration's first line, its least safety factor or, without
 // one, its first figure from the analysis (setting counterpoise.inlayHints turns them off).
 import { InlayHintKind, type InlayHint } from "vscode-languageserver";
-import { formatNumber, formatQuantity } from "../units/format";
+import { formatNumber, formatResult } from "../units/format";
 import type { ServerFeature } from "./context";
 import { guarded } from "./safe";
 import type { Figure, PartReadout } from "../checks/readout";
@@ -35,8 +35,8 @@ export const inlayHintsFeature: ServerFeature = {
           else {
             const fig = keyFigure(readout);
             if (fig) {
-              const low = formatQuantity(fig.value, fig.dimension, system);
-              label = `${fig.label} ${fig.high !== undefined ? `${low} .. ${formatQuantity(fig.high, fig.dimension, system)}` : low}`;
+              const low = formatResult(fig.value, fig.dimension, system);
+              label = `${fig.label} ${fig.high !== undefined ? `${low} .. ${formatResult(fig.high, fig.dimension, system)}` : low}`;
             }
           }
           if (!label) continue;

@@ -1,6 +1,6 @@
 // SI wording of numbers in mechanics and balance messages (mm, deg, N, N*m, N/mm), through the
 // shared display helper; readout figures stay SI and the editor formats them per unit system.
-import { formatQuantity } from "../units/format";
+import { formatResult as formatQuantity } from "../units/format";
 
 export const formatLength = (m: number): string => formatQuantity(m, "length", "si");
 export const formatAngle = (rad: number): string => formatQuantity(rad, "angle", "si");

@@ -73,6 +73,19 @@ export function formatQuantity(valueSI: number, dimension: DimensionName, system
   return u.symbol ? `${n} ${u.symbol}` : n;
 }
 
+/** Below this many display units a computed result shows as 0: a head turning by 2e-13 deg or
+ * a residual hand force of 2e-6 N is round-off, not a figure to read (common practice, no
+ * source). Values the user wrote go through formatQuantity and keep every digit. */
+const RESULT_ZERO = 5e-5;
+
+/** A computed result (readout figure, message number) for display. */
+export function formatResult(valueSI: number, dimension: DimensionName, system: UnitSystem): string {
+  const u = displayUnit(dimension, system, valueSI);
+  const shown = valueSI / u.factor;
+  const n = formatNumber(u.symbol && Math.abs(shown) < RESULT_ZERO ? 0 : shown);
+  return u.symbol ? `${n} ${u.symbol}` : n;
+}
+
 export function otherSystem(system: UnitSystem): UnitSystem {
   return system === "si" ? "us" : "si";
 }
