@@ -5,7 +5,7 @@ import type { ArmModel, Body, Joint, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
 import { beamStress, type BeamPointLoad } from "../mechanics/structure/beam";
-import { bodyLoads } from "../mechanics/body-loads";
+import { localBeamLoads } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
 import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
 import type { CheckContext } from "./index";
@@ -64,18 +64,19 @@ function lengthFactor(model: ArmModel, body: Body): number {
   return locked && start !== end ? FLAGPOLE_LENGTH_FACTOR : PINNED_LENGTH_FACTOR;
 }
 
-/** Local beam loads of a body at a pose from the world loads on it; its own weight is left out
- * (the caller spreads it along the body). */
-function localLoads(model: ArmModel, sweep: SweepResult, pose: Pose, caseIndex: number, body: Body): BeamPointLoad[] {
-  const bp = pose.bodies[body.id]!;
-  const c = Math.cos(bp.phi);
-  const s = Math.sin(bp.phi);
-  const loads = bodyLoads(model, sweep, pose, caseIndex, body.id).filter((l) => !(l.kind === "gravity" && l.id === body.id));
-  return loads.map((l) => {
-    const dx = l.point.x - bp.x;
-    const dy = l.point.y - bp.y;
-    return { s: c * dx + s * dy, offset: -s * dx + c * dy, fx: c * l.force.x + s * l.force.y, fy: -s * l.force.x + c * l.force.y, couple: l.couple };
-  });
+/** What the pose loop needs of each beam, computed once per check run: the body's constants do
+ * not change from pose to pose. */
+interface BeamTable {
+  body: Body;
+  sec: SectionProperties;
+  mat: Material;
+  /** Own weight per length, N/m. */
+  w: number;
+  allowBending: { value: number; layer: boolean };
+  allowAxial: { value: number; layer: boolean };
+  /** Effective-length factor and the column's critical load (filled on the first compression). */
+  K: number;
+  col?: ReturnType<typeof columnCriticalLoad>;
 }
 
 export function checkStrength(ctx: CheckContext): void {
@@ -87,19 +88,34 @@ export function checkStrength(ctx: CheckContext): void {
   const largestStress = new Map<string, Worst>();
   const pinWorst = new Map<string, Worst>();
   const reactionMax = new Map<string, Worst>();
-  const sections = new Map<string, SectionProperties>(beams.map((b) => [b.id, sectionProperties(b.section!)]));
+  const tables: BeamTable[] = beams.map((body) => {
+    const mat = model.materials[body.material!]!;
+    return {
+      body,
+      sec: sectionProperties(body.section!),
+      mat,
+      w: (body.mass * model.gravity) / body.length,
+      allowBending: normalStrength(mat, true),
+      allowAxial: normalStrength(mat, false),
+      K: lengthFactor(model, body),
+    };
+  });
+  const pins = pinned.map((j) => pinTable(model, j));
+  const dofJoints = new Set(sweep.dofs.map((d) => d.jointId));
+  const loads: BeamPointLoad[] = [];
 
   outer: for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break outer;
     for (let ci = 0; ci < pose.cases.length; ci++) {
-      for (const body of beams) {
-        if (!pose.bodies[body.id]) continue;
-        const sec = sections.get(body.id)!;
-        const mat = model.materials[body.material!]!;
-        const bp = pose.bodies[body.id]!;
-        const w = (body.mass * model.gravity) / body.length;
-        const r = beamStress(localLoads(model, sweep, pose, ci, body), { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) }, body.length, sec);
-        const allow = normalStrength(mat, r.bendingShare > 0);
+      for (const t of tables) {
+        const body = t.body;
+        const bp = pose.bodies[body.id];
+        if (!bp) continue;
+        const { sec, mat, w } = t;
+        // Its own weight is spread along it, not among the point loads.
+        const count = localBeamLoads(model, sweep.loadCases, dofJoints, pose, ci, body.id, loads);
+        const r = beamStress(loads, { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) }, body.length, sec, count);
+        const allow = r.bendingShare > 0 ? t.allowBending : t.allowAxial;
         const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
         const prevWorst = stressWorst.get(body.id);
         if (!prevWorst || sf < prevWorst.safety) {
@@ -116,8 +132,8 @@ export function checkStrength(ctx: CheckContext): void {
         const prevLargest = largestStress.get(body.id);
         if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: NO_DETAIL, figure: r.stress });
         if (r.compression > 0) {
-          const K = lengthFactor(model, body);
-          const col = columnCriticalLoad(mat.modulus, sec.area, leastSecondMoment(body.section!), normalStrength(mat, true).value, K * body.length);
+          const K = t.K;
+          const col = (t.col ??= columnCriticalLoad(mat.modulus, sec.area, leastSecondMoment(body.section!), t.allowBending.value, K * body.length));
           const csf = col.criticalLoad / r.compression;
           const P = r.compression;
           const prevCol = columnWorst.get(body.id);
@@ -131,20 +147,55 @@ export function checkStrength(ctx: CheckContext): void {
             });
         }
       }
-      for (const j of pinned) {
+      for (const pt of pins) {
+        const j = pt.joint;
         const reaction = pose.cases[ci]?.reactions[j.id];
         if (!reaction) continue;
         const F = Math.hypot(reaction.x, reaction.y);
         const prevR = reactionMax.get(j.id);
         if (!prevR || F > prevR.figure) reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F });
-        const pw = pinSafety(model, j, F);
         const prevPin = pinWorst.get(j.id);
-        if (!prevPin || pw.safety < prevPin.safety) pinWorst.set(j.id, { ...pw, pose, caseIndex: ci, figure: F });
+        const safety = pinTableSafety(pt, F);
+        if (!prevPin || safety < prevPin.safety) pinWorst.set(j.id, { ...pinSafety(model, j, F), pose, caseIndex: ci, figure: F });
       }
     }
   }
   reportBodies(ctx, beams, stressWorst, columnWorst, largestStress);
   reportPins(ctx, pinned, pinWorst, reactionMax);
+}
+
+/** A pin's constants for the pose loop: what pinSafety looks up, looked up once. */
+interface PinTable {
+  joint: Joint;
+  shearAllow: number;
+  holes: { t: number; allow: number }[];
+}
+
+function pinTable(model: ArmModel, j: Joint): PinTable {
+  const pin = j.pin!;
+  const pinMat = model.materials[pin.material]!;
+  const holes: PinTable["holes"] = [];
+  for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
+    if (!b || b.kind === "base") continue;
+    const t = b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined);
+    const bm = b.material ? model.materials[b.material] : undefined;
+    if (!t || !bm) continue;
+    holes.push({ t, allow: Math.min(pinMat.strength, normalStrength(bm, true).value) });
+  }
+  return { joint: j, shearAllow: shearYieldStrength(pinMat.strength), holes };
+}
+
+/** pinSafety's safety figure, with the same arithmetic, from the table. */
+function pinTableSafety(pt: PinTable, force: number): number {
+  const pin = pt.joint.pin!;
+  const tau = pinShearStress(force, pin.diameter, pin.shearPlanes);
+  let safety = tau > 0 ? pt.shearAllow / tau : Infinity;
+  for (const h of pt.holes) {
+    const sigma = bearingStress(force, pin.diameter, h.t);
+    const sf = sigma > 0 ? h.allow / sigma : Infinity;
+    if (sf < safety) safety = sf;
+  }
+  return safety;
 }
 
 /** Least of the pin's shear safety and the bearing safety of each hole it passes through. */

@@ -5,6 +5,7 @@
 // forces and the moments of one pose and load case sum to zero (the base's support is not listed).
 import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
+import type { BeamPointLoad } from "./structure/beam";
 
 export type LoadKind = "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
 
@@ -123,6 +124,88 @@ export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" 
     if (locked !== undefined) loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: side * locked });
   }
   return loads;
+}
+
+/** The loads of `bodyLoads` except the body's own weight, in the body's local axes, written into
+ * `out` (grown as needed, its objects reused) in the same order and with the same arithmetic as
+ * mapping `bodyLoads` through the body's rotation: the strength check's hot loop (every beam at
+ * every pose and load case) without an object per load. Returns how many were written. */
+export function localBeamLoads(
+  model: ArmModel,
+  loadCases: SweepResult["loadCases"],
+  dofJoints: ReadonlySet<string>,
+  pose: Pose,
+  caseIndex: number,
+  bodyId: string,
+  out: BeamPointLoad[],
+): number {
+  const statics = pose.cases[caseIndex];
+  const loadCase = loadCases[caseIndex];
+  const bp = pose.bodies[bodyId];
+  if (!statics || !loadCase || !bp) return 0;
+  const ix = bodyIndex(model);
+  const g = model.gravity;
+  const c = Math.cos(bp.phi);
+  const s = Math.sin(bp.phi);
+  let n = 0;
+  const put = (px: number, py: number, forceX: number, forceY: number, couple: number) => {
+    const dx = px - bp.x;
+    const dy = py - bp.y;
+    let l = out[n];
+    if (!l) out[n] = l = { s: 0, offset: 0, fx: 0, fy: 0, couple: 0 };
+    l.s = c * dx + s * dy;
+    l.offset = -s * dx + c * dy;
+    l.fx = c * forceX + s * forceY;
+    l.fy = -s * forceX + c * forceY;
+    l.couple = couple;
+    n++;
+  };
+  // World point of a local point of this body (worldPoint's arithmetic; never the base here).
+  const wx = (lx: number, ly: number) => bp.x + c * lx - s * ly;
+  const wy = (lx: number, ly: number) => bp.y + s * lx + c * ly;
+  const isBase = ix.bodies.get(bodyId)?.kind === "base";
+  const atX = (lx: number, ly: number) => (isBase ? lx : wx(lx, ly));
+  const atY = (lx: number, ly: number) => (isBase ? ly : wy(lx, ly));
+  for (const p of ix.payloads.get(bodyId) ?? []) {
+    const px = atX(p.point.x, p.point.y);
+    const py = atY(p.point.x, p.point.y);
+    const mass = loadCase.payloadMass[p.id] ?? p.mass;
+    put(px, py, 0, -mass * g, 0);
+    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) put(px, py, p.force.x, p.force.y, 0);
+  }
+  for (const t of ix.torsions.get(bodyId) ?? []) {
+    const state = pose.springs[t.spring.id];
+    const torque = statics.springForce[t.spring.id];
+    if (!state || torque === undefined) continue;
+    put(state.a.x, state.a.y, 0, 0, t.side * torque);
+  }
+  for (const { spring: sp, end } of ix.springEnds.get(bodyId) ?? []) {
+    const state = pose.springs[sp.id];
+    const force = statics.springForce[sp.id];
+    if (!state || force === undefined) continue;
+    const dx = state.b.x - state.a.x;
+    const dy = state.b.y - state.a.y;
+    const len = Math.hypot(dx, dy);
+    if (!(len > 0)) continue;
+    const ux = (force * dx) / len;
+    const uy = (force * dy) / len;
+    if (end === "a") put(state.a.x, state.a.y, ux, uy, 0);
+    else put(state.b.x, state.b.y, -ux, -uy, 0);
+  }
+  for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
+    const r = statics.reactions[j.id];
+    if (!r) continue;
+    // The pivot on this body: its child point when it is the child, else its parent point.
+    const lp = side === 1 ? j.childPoint : j.parentPoint;
+    const px = atX(lp.x, lp.y);
+    const py = atY(lp.x, lp.y);
+    put(px, py, side * r.x, side * r.y, 0);
+    const hold = statics.holdingTorque[j.id];
+    if (hold !== undefined && dofJoints.has(j.id)) put(px, py, 0, 0, side * hold);
+    const locked = statics.lockedTorque[j.id];
+    if (locked !== undefined) put(px, py, 0, 0, side * locked);
+  }
+  return n;
 }
 
 /** Resultant force and moment about a point of a list of loads. */

@@ -34,9 +34,12 @@ export function sectionLoadAt(
   includeAt: boolean,
 ): SectionLoad {
   const out: SectionLoad = { s, axial: 0, shear: 0, moment: 0 };
-  evaluateSection(loads, distributed, length, s, includeAt, out);
+  evaluateSection(loads, loads.length, distributed, length, s, includeAt, out);
   return out;
 }
+
+/** Stations of the current beamStress call (reused: one body at a time, nothing keeps it). */
+let stationBuffer = new Float64Array(16);
 
 export interface BeamStressResult {
   /** Largest |N|/A + |M| c / I, Pa, and where. */
@@ -55,13 +58,16 @@ export function beamStress(
   distributed: { qx: number; qy: number },
   length: number,
   section: { area: number; secondMoment: number; extremeFibre: number },
+  /** Loads to use from the front of `loads` (a reused buffer may hold more). */
+  count = loads.length,
 ): BeamStressResult {
   // Stations where the moment can peak: the ends, every load, and where the shear changes sign
   // between loads (the moment is piecewise quadratic). Hot loop: every body at every pose.
-  const pos = new Float64Array(loads.length + 2);
+  if (stationBuffer.length < count + 2) stationBuffer = new Float64Array(2 * (count + 2));
+  const pos = stationBuffer.subarray(0, count + 2);
   pos[0] = 0;
   pos[1] = length;
-  for (let k = 0; k < loads.length; k++) pos[k + 2] = Math.max(0, Math.min(length, loads[k]!.s));
+  for (let k = 0; k < count; k++) pos[k + 2] = Math.max(0, Math.min(length, loads[k]!.s));
   pos.sort();
   const scratch: SectionLoad = { s: 0, axial: 0, shear: 0, moment: 0 };
   let bestStress = -1;
@@ -70,7 +76,7 @@ export function beamStress(
   let compression = 0;
   let moment = 0;
   const visit = (s: number, includeAt: boolean) => {
-    evaluateSection(loads, distributed, length, s, includeAt, scratch);
+    evaluateSection(loads, count, distributed, length, s, includeAt, scratch);
     const axialStress = Math.abs(scratch.axial) / section.area;
     const bendingStress = (Math.abs(scratch.moment) * section.extremeFibre) / section.secondMoment;
     const stress = axialStress + bendingStress;
@@ -102,6 +108,7 @@ export function beamStress(
 /** sectionLoadAt written into `out` (no allocation). */
 function evaluateSection(
   loads: readonly BeamPointLoad[],
+  count: number,
   distributed: { qx: number; qy: number },
   length: number,
   s: number,
@@ -111,7 +118,7 @@ function evaluateSection(
   let fx = 0;
   let fy = 0;
   let m = 0;
-  for (let k = 0; k < loads.length; k++) {
+  for (let k = 0; k < count; k++) {
     const p = loads[k]!;
     if (p.s < s || (includeAt && p.s === s)) {
       fx += p.fx;
