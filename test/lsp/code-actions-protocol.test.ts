@@ -59,6 +59,24 @@ describe("balance quick fix over the protocol", () => {
   });
 });
 
+describe("balance quick fix on the unbalanced sample", () => {
+  const uri = "file:///work/engraver-arm.poise";
+  const text = readFileSync(join(ROOT, "samples", "engraver-arm.poise"), "utf8");
+
+  it("the engraver arm's too-strong cable: the fix on its spring makes the arm balance", async () => {
+    const published = await session.open(uri, text, 1);
+    const balance = published.diagnostics.find((d) => d.code === "balance.unbalanced");
+    expect(balance, `diagnostics: ${codes(published).join(", ")}`).toBeDefined();
+    const fix = (await actionsFor(uri, balance!)).find((a) => a.title.startsWith("Set inner_lift's rate"));
+    expect(fix).toBeDefined();
+    const edited = applied(uri, text, fix!);
+    expect(edited).not.toEqual(text);
+    const after = await session.replace(uri, edited, 2);
+    expect(codes(after)).not.toContain("balance.unbalanced");
+    expect(after.diagnostics.filter((d) => d.severity === 1)).toHaveLength(0);
+  });
+});
+
 describe("pin quick fix over the protocol", () => {
   const uri = "file:///work/weak-pin.poise";
   const text = PENDULUM_TEXT.replace("  base post {", "  material soft_pin {\n    density 1.2 g/cm^3\n    modulus 1 GPa\n    strength 5 MPa\n  }\n  base post {").replace(
