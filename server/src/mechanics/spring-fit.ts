@@ -85,13 +85,53 @@ function handAt(d: Float64Array, i: number, p0: number, p1: number): number {
   return Math.hypot(d[o]! + d[o + 2]! * df, d[o + 1]! + d[o + 3]! * df);
 }
 
-function worstOver(d: Float64Array, idx: ArrayLike<number>, p0: number, p1: number): number {
+/** Squares of the hand forces of the last worstOf call (reused: the search is single-threaded). */
+let squares = new Float64Array(256);
+/** Below this squared force (N^2) a square may have underflowed, and above the largest finite
+ * double it has overflowed: there worstOf falls back to Math.hypot on every sample. */
+const SQUARE_FLOOR = 1e-280;
+/** Samples whose squared force lies within this fraction of the largest square are re-measured
+ * with Math.hypot: hypot and a sum of squares rank two forces alike unless they agree to a few
+ * ulps (1e-15), so the sample hypot ranks first is always among them. */
+const SQUARE_MARGIN = 1e-12;
+
+/** The worst hand force over the first `count` samples of `d`: exactly the largest handAt (its
+ * Math.hypot), found by ranking squares first and calling hypot only near the top. */
+function worstOf(d: Float64Array, count: number, p0: number, p1: number): number {
+  if (squares.length < count) squares = new Float64Array(2 * count);
+  const sq = squares;
+  let top = 0;
+  for (let i = 0; i < count; i++) {
+    const o = 7 * i;
+    const df = d[o + 5]! * p0 + d[o + 6]! * p1 - d[o + 4]!;
+    const x = d[o]! + d[o + 2]! * df;
+    const y = d[o + 1]! + d[o + 3]! * df;
+    const v = x * x + y * y;
+    sq[i] = v;
+    if (v > top) top = v;
+  }
   let w = 0;
-  for (let k = 0; k < idx.length; k++) {
-    const v = handAt(d, idx[k]!, p0, p1);
+  if (!(top > SQUARE_FLOOR && top < Infinity)) {
+    for (let i = 0; i < count; i++) {
+      const v = handAt(d, i, p0, p1);
+      if (v > w) w = v;
+    }
+    return w;
+  }
+  const threshold = top * (1 - SQUARE_MARGIN);
+  for (let i = 0; i < count; i++) {
+    if (!(sq[i]! >= threshold)) continue;
+    const v = handAt(d, i, p0, p1);
     if (v > w) w = v;
   }
   return w;
+}
+
+/** The samples `idx` of `d`, copied next to each other (the active set, scanned many times). */
+function gather(d: Float64Array, idx: ArrayLike<number>): Float64Array {
+  const out = new Float64Array(7 * idx.length);
+  for (let k = 0; k < idx.length; k++) out.set(d.subarray(7 * idx[k]!, 7 * idx[k]! + 7), 7 * k);
+  return out;
 }
 
 /** Sample indices, worst hand force first. */
@@ -162,9 +202,8 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const d = samples.data;
   const count = samples.count;
   const two = params.names[1] !== undefined;
-  const all = Int32Array.from({ length: count }, (_, i) => i);
   const [c0, c1] = params.values;
-  const before = worstOver(d, all, c0, c1);
+  const before = worstOf(d, count, c0, c1);
   const [e0, e1] = leastSquares(d, count, two);
   const hi0 = 3 * Math.max(Math.abs(e0), Math.abs(c0), 1e-9);
   const span1 = 3 * Math.max(Math.abs(e1), Math.abs(c1), 1e-9);
@@ -178,16 +217,17 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   for (let i = 0; i < count; i += stride) active.add(i);
   let best: [number, number] = [c0, c1];
   for (let round = 0; round < ACTIVE_ROUNDS; round++) {
-    const idx = Int32Array.from(active);
-    const inner = (p0: number): number => (two ? golden((p1) => worstOver(d, idx, p0, p1), lo1, hi1) : 0);
-    const p0 = golden((x) => worstOver(d, idx, x, inner(x)), 0, hi0);
+    const act = gather(d, Int32Array.from(active));
+    const n = active.size;
+    const inner = (p0: number): number => (two ? golden((p1) => worstOf(act, n, p0, p1), lo1, hi1) : 0);
+    const p0 = golden((x) => worstOf(act, n, x, inner(x)), 0, hi0);
     best = [p0, inner(p0)];
-    const activeWorst = worstOver(d, idx, best[0], best[1]);
-    const fullWorst = worstOver(d, all, best[0], best[1]);
+    const activeWorst = worstOf(act, n, best[0], best[1]);
+    const fullWorst = worstOf(d, count, best[0], best[1]);
     if (fullWorst <= activeWorst * (1 + 1e-9) + 1e-12) break;
     for (const i of worstFirst(d, count, best[0], best[1]).slice(0, ACTIVE_ADD)) active.add(i);
   }
-  let after = worstOver(d, all, best[0], best[1]);
+  let after = worstOf(d, count, best[0], best[1]);
   if (after > before) {
     best = [c0, c1];
     after = before;
