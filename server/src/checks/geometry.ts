@@ -206,20 +206,54 @@ interface Segment {
 
 /** Distance between two segments in the plane (0 where they cross). */
 export function segmentDistance(p1: Segment["a"], p2: Segment["a"], q1: Segment["a"], q2: Segment["a"]): number {
-  const cross = (o: Segment["a"], a: Segment["a"], b: Segment["a"]) => (a.x - o.x) * (b.y - o.y) - (a.y - o.y) * (b.x - o.x);
-  const d1 = cross(q1, q2, p1);
-  const d2 = cross(q1, q2, p2);
-  const d3 = cross(p1, p2, q1);
-  const d4 = cross(p1, p2, q2);
+  return segmentDistanceXY(p1.x, p1.y, p2.x, p2.y, q1.x, q1.y, q2.x, q2.y);
+}
+
+/** Squares below this (m^2) may have underflowed; there the distances are all taken by hypot. */
+const SQUARE_FLOOR = 1e-280;
+/** Endpoint distances whose squares lie within this fraction of the least are re-measured with
+ * Math.hypot: hypot and a sum of squares rank two lengths alike unless they agree to a few ulps
+ * (1e-15), so the one hypot ranks least is always among them. */
+const SQUARE_MARGIN = 1e-12;
+
+/** segmentDistance on plain numbers: the least of the four endpoint-to-segment distances, the
+ * same value as their Math.min of Math.hypot, with hypot called only near the least. */
+function segmentDistanceXY(p1x: number, p1y: number, p2x: number, p2y: number, q1x: number, q1y: number, q2x: number, q2y: number): number {
+  const d1 = (q2x - q1x) * (p1y - q1y) - (q2y - q1y) * (p1x - q1x);
+  const d2 = (q2x - q1x) * (p2y - q1y) - (q2y - q1y) * (p2x - q1x);
+  const d3 = (p2x - p1x) * (q1y - p1y) - (p2y - p1y) * (q1x - p1x);
+  const d4 = (p2x - p1x) * (q2y - p1y) - (p2y - p1y) * (q2x - p1x);
   if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return 0;
-  const toSeg = (p: Segment["a"], a: Segment["a"], b: Segment["a"]) => {
-    const dx = b.x - a.x;
-    const dy = b.y - a.y;
-    const L2 = dx * dx + dy * dy;
-    const t = L2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / L2)) : 0;
-    return Math.hypot(p.x - (a.x + t * dx), p.y - (a.y + t * dy));
-  };
-  return Math.min(toSeg(p1, q1, q2), toSeg(p2, q1, q2), toSeg(q1, p1, p2), toSeg(q2, p1, p2));
+  const e = offsets;
+  toSegment(p1x, p1y, q1x, q1y, q2x, q2y, e, 0);
+  toSegment(p2x, p2y, q1x, q1y, q2x, q2y, e, 2);
+  toSegment(q1x, q1y, p1x, p1y, p2x, p2y, e, 4);
+  toSegment(q2x, q2y, p1x, p1y, p2x, p2y, e, 6);
+  let least = Infinity;
+  let nan = false;
+  for (let k = 0; k < 8; k += 2) {
+    const v = e[k]! * e[k]! + e[k + 1]! * e[k + 1]!;
+    squares[k >> 1] = v;
+    if (v !== v) nan = true;
+    if (v < least) least = v;
+  }
+  if (nan || !(least > SQUARE_FLOOR && least < Infinity)) return Math.min(Math.hypot(e[0]!, e[1]!), Math.hypot(e[2]!, e[3]!), Math.hypot(e[4]!, e[5]!), Math.hypot(e[6]!, e[7]!));
+  const threshold = least * (1 + SQUARE_MARGIN);
+  let d = Infinity;
+  for (let k = 0; k < 4; k++) if (squares[k]! <= threshold) d = Math.min(d, Math.hypot(e[2 * k]!, e[2 * k + 1]!));
+  return d;
+}
+const offsets = new Float64Array(8);
+const squares = new Float64Array(4);
+
+/** The offset from point p to the nearest point of segment ab, written at `out[o]`, `out[o + 1]`. */
+function toSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number, out: Float64Array, o: number): void {
+  const dx = bx - ax;
+  const dy = by - ay;
+  const L2 = dx * dx + dy * dy;
+  const t = L2 > 0 ? Math.max(0, Math.min(1, ((px - ax) * dx + (py - ay) * dy) / L2)) : 0;
+  out[o] = px - (ax + t * dx);
+  out[o + 1] = py - (ay + t * dy);
 }
 
 /** Pairs of bodies that meet by design: joined directly, or both pinned to a third body at the
@@ -277,14 +311,22 @@ function addLayeredPairs(model: ArmModel, pairs: Set<string>, key: (a: string, b
   }
 }
 
-function bodySegment(model: ArmModel, pose: Pose, body: Body): Segment | undefined {
-  if (!pose.bodies[body.id]) return undefined;
+/** A moving body as a clearance segment: local end points and half its section's depth. */
+interface SegmentShape {
+  body: Body;
+  /** Far end, local (the near end is the origin). */
+  farX: number;
+  farY: number;
+  halfThickness: number;
+}
+
+function segmentShape(body: Body): SegmentShape {
   const half = body.section ? sectionProperties(body.section).depth / 2 : 0;
-  if (body.length > 0) return { body, a: worldPoint(pose, body.id, { x: 0, y: 0 }, model), b: worldPoint(pose, body.id, { x: body.length, y: 0 }, model), halfThickness: half };
+  if (body.length > 0) return { body, farX: body.length, farY: 0, halfThickness: half };
   // a head: from its origin to its farthest named point
   let far = { x: 0, y: 0 };
   for (const p of Object.values(body.points)) if (Math.hypot(p.x, p.y) > Math.hypot(far.x, far.y)) far = p;
-  return { body, a: worldPoint(pose, body.id, { x: 0, y: 0 }, model), b: worldPoint(pose, body.id, far, model), halfThickness: half };
+  return { body, farX: far.x, farY: far.y, halfThickness: half };
 }
 
 function checkClearance(ctx: CheckContext): void {
@@ -292,26 +334,57 @@ function checkClearance(ctx: CheckContext): void {
   const need = model.require.clearance;
   const surface = model.base?.surface ?? 0;
   const joined = joinedPairs(model);
-  const moving = model.bodies.filter((b) => b.kind !== "base");
+  const shapes = model.bodies.filter((b) => b.kind !== "base").map(segmentShape);
+  const m = shapes.length;
+  // Pair keys and whether they meet by design, once (not per pose).
+  const pairKey: string[] = [];
+  const pairSkip: boolean[] = [];
+  for (let i = 0; i < m; i++) {
+    for (let k = 0; k < m; k++) {
+      const a = shapes[i]!.body.id;
+      const b = shapes[k]!.body.id;
+      const key = a < b ? `${a}|${b}` : `${b}|${a}`;
+      pairKey.push(key);
+      pairSkip.push(joined.has(key));
+    }
+  }
+  // World end points of each segment at the current pose: ax ay bx by; `present` when the pose has the body.
+  const ends = new Float64Array(4 * m);
+  const present = new Uint8Array(m);
   const pairWorst = new Map<string, { gap: number; pose: Pose; a: Body; b: Body }>();
   const belowWorst = new Map<string, { depth: number; pose: Pose; what: string; span: { start: number; end: number } }>();
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
-    const segs = moving.map((b) => bodySegment(model, pose, b)).filter((s): s is Segment => !!s);
-    for (let i = 0; i < segs.length; i++) {
-      const s = segs[i]!;
-      const lowest = Math.min(s.a.y, s.b.y) - s.halfThickness;
+    for (let i = 0; i < m; i++) {
+      const sh = shapes[i]!;
+      const bp = pose.bodies[sh.body.id];
+      present[i] = bp ? 1 : 0;
+      if (!bp) continue;
+      // worldPoint's arithmetic, for the origin and the far point.
+      const c = Math.cos(bp.phi);
+      const s = Math.sin(bp.phi);
+      ends[4 * i] = bp.x + c * 0 - s * 0;
+      ends[4 * i + 1] = bp.y + s * 0 + c * 0;
+      ends[4 * i + 2] = bp.x + c * sh.farX - s * sh.farY;
+      ends[4 * i + 3] = bp.y + s * sh.farX + c * sh.farY;
+    }
+    for (let i = 0; i < m; i++) {
+      if (!present[i]) continue;
+      const sh = shapes[i]!;
+      const o = 4 * i;
+      const lowest = Math.min(ends[o + 1]!, ends[o + 3]!) - sh.halfThickness;
       if (lowest < surface) {
-        const prev = belowWorst.get(s.body.id);
-        if (!prev || surface - lowest > prev.depth) belowWorst.set(s.body.id, { depth: surface - lowest, pose, what: bodyWord(s.body), span: s.body.origin.name ?? s.body.origin.declaration });
+        const prev = belowWorst.get(sh.body.id);
+        if (!prev || surface - lowest > prev.depth) belowWorst.set(sh.body.id, { depth: surface - lowest, pose, what: bodyWord(sh.body), span: sh.body.origin.name ?? sh.body.origin.declaration });
       }
-      for (let k = i + 1; k < segs.length; k++) {
-        const t = segs[k]!;
-        const key = s.body.id < t.body.id ? `${s.body.id}|${t.body.id}` : `${t.body.id}|${s.body.id}`;
-        if (joined.has(key)) continue;
-        const gap = segmentDistance(s.a, s.b, t.a, t.b) - s.halfThickness - t.halfThickness;
+      for (let k = i + 1; k < m; k++) {
+        if (!present[k] || pairSkip[i * m + k]) continue;
+        const th = shapes[k]!;
+        const q = 4 * k;
+        const gap = segmentDistanceXY(ends[o]!, ends[o + 1]!, ends[o + 2]!, ends[o + 3]!, ends[q]!, ends[q + 1]!, ends[q + 2]!, ends[q + 3]!) - sh.halfThickness - th.halfThickness;
+        const key = pairKey[i * m + k]!;
         const prev = pairWorst.get(key);
-        if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: s.body, b: t.body });
+        if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: sh.body, b: th.body });
       }
     }
     for (const p of model.payloads) {
