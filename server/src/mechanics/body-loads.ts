@@ -147,37 +147,23 @@ export function localBeamLoads(
   const g = model.gravity;
   const c = Math.cos(bp.phi);
   const s = Math.sin(bp.phi);
+  // World points of this body's local points use worldPoint's arithmetic (the base: as given).
+  const base = ix.bodies.get(bodyId)?.kind === "base";
   let n = 0;
-  const put = (px: number, py: number, forceX: number, forceY: number, couple: number) => {
-    const dx = px - bp.x;
-    const dy = py - bp.y;
-    let l = out[n];
-    if (!l) out[n] = l = { s: 0, offset: 0, fx: 0, fy: 0, couple: 0 };
-    l.s = c * dx + s * dy;
-    l.offset = -s * dx + c * dy;
-    l.fx = c * forceX + s * forceY;
-    l.fy = -s * forceX + c * forceY;
-    l.couple = couple;
-    n++;
-  };
-  // World point of a local point of this body (worldPoint's arithmetic; never the base here).
-  const wx = (lx: number, ly: number) => bp.x + c * lx - s * ly;
-  const wy = (lx: number, ly: number) => bp.y + s * lx + c * ly;
-  const isBase = ix.bodies.get(bodyId)?.kind === "base";
-  const atX = (lx: number, ly: number) => (isBase ? lx : wx(lx, ly));
-  const atY = (lx: number, ly: number) => (isBase ? ly : wy(lx, ly));
   for (const p of ix.payloads.get(bodyId) ?? []) {
-    const px = atX(p.point.x, p.point.y);
-    const py = atY(p.point.x, p.point.y);
+    const lx = p.point.x;
+    const ly = p.point.y;
+    const px = base ? lx : bp.x + c * lx - s * ly;
+    const py = base ? ly : bp.y + s * lx + c * ly;
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
-    put(px, py, 0, -mass * g, 0);
-    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) put(px, py, p.force.x, p.force.y, 0);
+    n = putLocalLoad(out, n, bp, c, s, px, py, 0, -mass * g, 0);
+    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) n = putLocalLoad(out, n, bp, c, s, px, py, p.force.x, p.force.y, 0);
   }
   for (const t of ix.torsions.get(bodyId) ?? []) {
     const state = pose.springs[t.spring.id];
     const torque = statics.springForce[t.spring.id];
     if (!state || torque === undefined) continue;
-    put(state.a.x, state.a.y, 0, 0, t.side * torque);
+    n = putLocalLoad(out, n, bp, c, s, state.a.x, state.a.y, 0, 0, t.side * torque);
   }
   for (const { spring: sp, end } of ix.springEnds.get(bodyId) ?? []) {
     const state = pose.springs[sp.id];
@@ -189,23 +175,37 @@ export function localBeamLoads(
     if (!(len > 0)) continue;
     const ux = (force * dx) / len;
     const uy = (force * dy) / len;
-    if (end === "a") put(state.a.x, state.a.y, ux, uy, 0);
-    else put(state.b.x, state.b.y, -ux, -uy, 0);
+    if (end === "a") n = putLocalLoad(out, n, bp, c, s, state.a.x, state.a.y, ux, uy, 0);
+    else n = putLocalLoad(out, n, bp, c, s, state.b.x, state.b.y, -ux, -uy, 0);
   }
   for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
     const r = statics.reactions[j.id];
     if (!r) continue;
     // The pivot on this body: its child point when it is the child, else its parent point.
     const lp = side === 1 ? j.childPoint : j.parentPoint;
-    const px = atX(lp.x, lp.y);
-    const py = atY(lp.x, lp.y);
-    put(px, py, side * r.x, side * r.y, 0);
+    const px = base ? lp.x : bp.x + c * lp.x - s * lp.y;
+    const py = base ? lp.y : bp.y + s * lp.x + c * lp.y;
+    n = putLocalLoad(out, n, bp, c, s, px, py, side * r.x, side * r.y, 0);
     const hold = statics.holdingTorque[j.id];
-    if (hold !== undefined && dofJoints.has(j.id)) put(px, py, 0, 0, side * hold);
+    if (hold !== undefined && dofJoints.has(j.id)) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * hold);
     const locked = statics.lockedTorque[j.id];
-    if (locked !== undefined) put(px, py, 0, 0, side * locked);
+    if (locked !== undefined) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * locked);
   }
   return n;
+}
+
+/** Writes one world load (at px, py) as a local beam load at out[n]; returns n + 1. */
+function putLocalLoad(out: BeamPointLoad[], n: number, bp: { x: number; y: number }, c: number, s: number, px: number, py: number, forceX: number, forceY: number, couple: number): number {
+  const dx = px - bp.x;
+  const dy = py - bp.y;
+  let l = out[n];
+  if (!l) out[n] = l = { s: 0, offset: 0, fx: 0, fy: 0, couple: 0 };
+  l.s = c * dx + s * dy;
+  l.offset = -s * dx + c * dy;
+  l.fx = c * forceX + s * forceY;
+  l.fy = -s * forceX + c * forceY;
+  l.couple = couple;
+  return n + 1;
 }
 
 /** Resultant force and moment about a point of a list of loads. */

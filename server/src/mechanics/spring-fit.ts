@@ -41,42 +41,59 @@ interface FitSamples {
   data: Float64Array; // ax ay bx by force c0 c1 per sample
 }
 
-function springTurnOrLength(model: ArmModel, s: Spring, pose: Pose): number {
+/** The spring's wind-up from free (torsion: its joint, looked up once) or its length at a pose. */
+function springTurnOrLength(model: ArmModel, s: Spring): (pose: Pose) => number {
   if (s.kind === "torsion") {
     const j = model.joints.find((x) => x.id === s.joint);
-    return j ? (pose.jointAngles[j.id] ?? j.angle) - j.angle : 0;
+    return j ? (pose) => (pose.jointAngles[j.id] ?? j.angle) - j.angle : () => 0;
   }
-  return pose.springs[s.id]?.length ?? NaN;
+  return (pose) => pose.springs[s.id]?.length ?? NaN;
 }
 
 function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamples {
   const ndof = sweep.dofs.length;
-  const rows: number[] = [];
+  const dofIds = sweep.dofs.map((d) => d.id);
+  let rows = new Float64Array(7 * 64);
+  let count = 0;
   const jac = new Float64Array(2 * Math.max(ndof, 1));
   const g = new Float64Array(Math.max(ndof, 1));
   const basis = new Float64Array(2);
+  const turnOrLength = springTurnOrLength(model, s);
   for (const pose of sweep.poses) {
     const perUnit = pose.springTorquePerUnit?.[s.id];
     if (!perUnit) continue;
-    sweep.dofs.forEach((d, i) => (g[i] = perUnit[d.id] ?? 0));
-    springForceBasis(model, s, springTurnOrLength(model, s, pose), basis);
+    for (let i = 0; i < ndof; i++) g[i] = perUnit[dofIds[i]!] ?? 0;
+    springForceBasis(model, s, turnOrLength(pose), basis);
     for (const p of model.payloads) {
       const pj = pose.payloadJacobian?.[p.id];
       if (!pj) continue;
-      sweep.dofs.forEach((d, i) => {
-        jac[2 * i] = pj[d.id]?.x ?? 0;
-        jac[2 * i + 1] = pj[d.id]?.y ?? 0;
-      });
+      for (let i = 0; i < ndof; i++) {
+        const v = pj[dofIds[i]!];
+        jac[2 * i] = v?.x ?? 0;
+        jac[2 * i + 1] = v?.y ?? 0;
+      }
       const b = handForceVector(jac, g, ndof);
-      pose.cases.forEach((c) => {
+      for (const c of pose.cases) {
         const a = c.handForceVector?.[p.id];
         const force = c.springForce[s.id];
-        if (!a || force === undefined) return;
-        rows.push(a.x, a.y, b.x, b.y, force, basis[0]!, basis[1]!);
-      });
+        if (!a || force === undefined) continue;
+        if (rows.length < 7 * (count + 1)) {
+          const grown = new Float64Array(2 * rows.length);
+          grown.set(rows);
+          rows = grown;
+        }
+        const o = 7 * count++;
+        rows[o] = a.x;
+        rows[o + 1] = a.y;
+        rows[o + 2] = b.x;
+        rows[o + 3] = b.y;
+        rows[o + 4] = force;
+        rows[o + 5] = basis[0]!;
+        rows[o + 6] = basis[1]!;
+      }
     }
   }
-  return { count: rows.length / 7, data: Float64Array.from(rows) };
+  return { count, data: rows.subarray(0, 7 * count) };
 }
 
 function handAt(d: Float64Array, i: number, p0: number, p1: number): number {
