@@ -7,21 +7,41 @@
  * stiff "rigid" members are 1e4 stiffer than real ones, so 1e-12 leaves room. */
 export const SINGULAR_PIVOT_RATIO = 1e-12;
 
+/** First column of each row's lower triangle holding a non-zero, for the factor of the last
+ * choleskyFactor call (the row's profile: a frame numbered along the arm is nearly banded). */
+let profileStart = new Int32Array(64);
+
 /** In-place Cholesky A = L L^T of the n x n matrix (lower triangle used and overwritten).
- * Returns false when A is not positive definite. */
+ * Returns false when A is not positive definite.
+ * Left of a row's first non-zero, L stays exactly +0 (every sum there starts at +0 and takes
+ * away only signed zeros), so those terms are skipped: the same numbers, bit for bit, in a
+ * fraction of the work. A matrix holding a -0 in its lower triangle (where that argument does
+ * not hold) takes the full loops. */
 export function choleskyFactor(a: Float64Array, n: number): boolean {
   let maxDiag = 0;
   for (let i = 0; i < n; i++) maxDiag = Math.max(maxDiag, Math.abs(a[i * n + i]!));
   const floor = maxDiag * SINGULAR_PIVOT_RATIO;
+  if (profileStart.length < n) profileStart = new Int32Array(2 * n);
+  const f = profileStart;
+  let negativeZero = false;
+  for (let i = 0; i < n; i++) {
+    let k = 0;
+    while (k < i && a[i * n + k] === 0) k++;
+    f[i] = k;
+    for (let m = 0; m <= i; m++) if (a[i * n + m] === 0 && 1 / a[i * n + m]! < 0) negativeZero = true;
+  }
+  if (negativeZero) for (let i = 0; i < n; i++) f[i] = 0;
   for (let j = 0; j < n; j++) {
     let d = a[j * n + j]!;
-    for (let k = 0; k < j; k++) d -= a[j * n + k]! * a[j * n + k]!;
+    for (let k = f[j]!; k < j; k++) d -= a[j * n + k]! * a[j * n + k]!;
     if (!(d > floor)) return false;
     const ljj = Math.sqrt(d);
     a[j * n + j] = ljj;
     for (let i = j + 1; i < n; i++) {
+      // Row i is zero up to its profile: its L entries there stay +0.
+      if (j < f[i]!) continue;
       let s = a[i * n + j]!;
-      for (let k = 0; k < j; k++) s -= a[i * n + k]! * a[j * n + k]!;
+      for (let k = Math.max(f[i]!, f[j]!); k < j; k++) s -= a[i * n + k]! * a[j * n + k]!;
       a[i * n + j] = s / ljj;
     }
   }
