@@ -195,6 +195,33 @@ describe("the server over stdio, on fuzzed texts", () => {
     expect(session.alive).toBe(true);
   }, 90_000);
 
+  it("large documents: diagnostics within the timeout, every request answered, no fault", async () => {
+    const big: Record<string, string> = {
+      "500 copies of a sample": samples[0]!.repeat(500),
+      "one 400 kB line": `arm "x" { ${"link a { length 1 mm } ".repeat(17_000)}}`,
+      // Deeper nesting formats to a quadratic size: an open bug on file
+      // (test/fuzz/failures/lsp-formatting-quadratic-indent.json).
+      "2,000 open braces": "{".repeat(2000),
+      "50,000 open parentheses": `arm "x" { base b { point p ${"(".repeat(50_000)} } }`,
+    };
+    const faultsBefore = session.errorLogs.length;
+    for (const [name, text] of Object.entries(big)) {
+      const uri = `file:///fuzz/big-${name.replace(/\W+/g, "-")}.poise`;
+      await session.open(uri, text, 1);
+      expect(await session.waitForDiagnostics(uri, 1, 30_000), `${name}: no diagnostics`).toBeDefined();
+      const lines = protocolLines(text);
+      for (const probe of PROBES) {
+        if (!(session.capabilities as Record<string, unknown>)[probe.capability]) continue;
+        const answer = await session.request(probe.method, probe.params(uri, { line: Math.min(3, lines.length - 1), character: 2 }, lines), 30_000).catch((e: unknown) => e);
+        expect((answer as { code?: number } | null)?.code, `${name}: ${probe.method}`).not.toBe(-32603);
+        expect(answer instanceof Error ? answer.message : "", `${name}: ${probe.method}`).not.toMatch(/no answer/);
+      }
+      await session.close(uri);
+    }
+    expect(session.errorLogs.slice(faultsBefore)).toEqual([]);
+    expect(session.alive).toBe(true);
+  }, 180_000);
+
   it("answers a request for a document it was never sent, and one for a closed document", async () => {
     const ghost = "file:///fuzz/never-opened.poise";
     for (const probe of PROBES) {
