@@ -103,6 +103,15 @@ export class DenseLu {
     return this.pivotRatio > SINGULAR_PIVOT_RATIO;
   }
 
+  /** Makes this the factorization `other` holds (same size): a stored pose's factors reused
+   * instead of factoring the same matrix again. */
+  copyFrom(other: DenseLu): void {
+    this.lu.set(other.lu);
+    this.perm.set(other.perm);
+    this.pivotRatio = other.pivotRatio;
+    this.determinantSign = other.determinantSign;
+  }
+
   /** Solves A x = b (x may be b). */
   solve(b: Float64Array, x: Float64Array): void {
     const n = this.n;

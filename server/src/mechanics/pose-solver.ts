@@ -47,6 +47,12 @@ interface TorsionAt {
   joint: number;
 }
 
+/** A pose's factored Jacobian and tangents (see PoseSolver.saveCurrent). */
+export interface SavedFactors {
+  lu: DenseLu;
+  tangents: Float64Array;
+}
+
 export class PoseSolver {
   readonly n: number;
   readonly ndof: number;
@@ -145,6 +151,25 @@ export class PoseSolver {
     this.angles.set(angles);
     this.setDriveAngles(angles);
     return this.factorCurrent();
+  }
+
+  /** The current pose's factorization and tangents, to come back to it later without factoring
+   * its Jacobian again (the sweep continues several neighbours from one pose). */
+  saveCurrent(): SavedFactors {
+    const lu = new DenseLu(this.n);
+    lu.copyFrom(this.luCurrent);
+    return { lu, tangents: Float64Array.from(this.tangents) };
+  }
+
+  /** setCurrent for a pose saved by saveCurrent at exactly this q: the factors setCurrent would
+   * compute there (the same Jacobian, so the same numbers) are copied back instead. */
+  restoreCurrent(q: Float64Array, angles: Float64Array, saved: SavedFactors): void {
+    this.q.set(q);
+    this.angles.set(angles);
+    this.setDriveAngles(angles);
+    updateAngles(this.linkage.cs, this.q);
+    this.luCurrent.copyFrom(saved.lu);
+    this.tangents.set(saved.tangents);
   }
 
   private factorCurrent(): boolean {

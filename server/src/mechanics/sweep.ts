@@ -5,7 +5,7 @@ import type { LoadCase, Pose, SweepResult } from "./types";
 import { finding, type Finding } from "../checks/finding";
 import { SWEEP_DEFAULTS } from "../model/schema";
 import { buildLinkage } from "./linkage";
-import { PoseSolver } from "./pose-solver";
+import { PoseSolver, type SavedFactors } from "./pose-solver";
 import { formatAngle } from "./format";
 
 export interface SolveOptions {
@@ -167,6 +167,17 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   const reported = new Set<string>();
   let current = -1;
   const from = new Float64Array(dofs.length);
+  // Poses several nodes continue from, not each straight after it: their factors are kept until
+  // the last of those nodes, so coming back to them costs no factorization (the same factors).
+  const lastChild = new Int32Array(nodes.length + 1).fill(-1);
+  const comeBack = new Uint8Array(nodes.length + 1);
+  for (let i = 0; i < nodes.length; i++) {
+    const p = nodes[i]!.pred;
+    lastChild[p + 1] = i;
+    if (p !== i - 1) comeBack[p + 1] = 1;
+  }
+  const saved = new Map<number, SavedFactors>();
+  if (comeBack[0]) saved.set(-1, solver.saveCurrent());
   const budgetStop = () => {
     const solved = out.filter(Boolean).length;
     findings.push(
@@ -185,12 +196,16 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
     if (current !== node.pred) {
       const q = node.pred >= 0 ? solvedQ[node.pred]! : linkage.qReference;
       const a = node.pred >= 0 ? nodes[node.pred]!.angles : refAngles;
-      if (!solver.setCurrent(q, a)) continue;
+      const kept = saved.get(node.pred);
+      if (kept) solver.restoreCurrent(q, a, kept);
+      else if (!solver.setCurrent(q, a)) continue;
     }
+    if (lastChild[node.pred + 1] === i) saved.delete(node.pred);
     from.set(solver.angles);
     if (solver.moveTo(node.angles, deadline)) {
       solvedQ[i] = Float64Array.from(solver.q);
       out[node.output] = solver.record(node.output);
+      if (comeBack[i + 1] && lastChild[i + 1] > i) saved.set(i, solver.saveCurrent());
       current = i;
       continue;
     }
