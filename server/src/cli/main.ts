@@ -11,7 +11,8 @@ const HELP = `poise — checks spring-balanced arm specs (*.poise)
 usage:
   poise check FILE... [--json]     diagnostics, one per line (path:line:column: severity code: message)
   poise sweep FILE [--json|--csv]  the pose table: angles deg, lengths mm, forces N, torques N*m
-  poise report FILE [-o OUT.html]  a self-contained HTML report
+  poise report FILE [-o OUT.html] [--units si|us]
+                                   a self-contained HTML report
   poise lsp --stdio                the language server over stdin/stdout, for any editor
   poise --help | --version
 
