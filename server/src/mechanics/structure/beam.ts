@@ -69,40 +69,72 @@ export function beamStress(
   pos[1] = length;
   for (let k = 0; k < count; k++) pos[k + 2] = Math.max(0, Math.min(length, loads[k]!.s));
   pos.sort();
-  const scratch: SectionLoad = { s: 0, axial: 0, shear: 0, moment: 0 };
-  let bestStress = -1;
-  let best: SectionLoad = { s: 0, axial: 0, shear: 0, moment: 0 };
-  let bestBending = 0;
-  let compression = 0;
-  let moment = 0;
-  const visit = (s: number, includeAt: boolean) => {
-    evaluateSection(loads, count, distributed, length, s, includeAt, scratch);
-    const axialStress = Math.abs(scratch.axial) / section.area;
-    const bendingStress = (Math.abs(scratch.moment) * section.extremeFibre) / section.secondMoment;
-    const stress = axialStress + bendingStress;
-    compression = Math.max(compression, -scratch.axial);
-    moment = Math.max(moment, Math.abs(scratch.moment));
-    if (stress > bestStress) {
-      bestStress = stress;
-      best = { ...scratch };
-      bestBending = bendingStress;
-    }
-  };
+  const st = scan;
+  st.bestStress = -1;
+  st.bestBending = 0;
+  st.compression = 0;
+  st.moment = 0;
+  const best = st.best;
+  best.s = 0;
+  best.axial = 0;
+  best.shear = 0;
+  best.moment = 0;
   for (let k = 0; k < pos.length; k++) {
     const s = pos[k]!;
     if (k > 0 && s === pos[k - 1]) continue;
-    visit(s, false);
-    visit(s, true);
-    const shearAfter = scratch.shear;
+    visitStation(loads, count, distributed, length, section, s, false);
+    visitStation(loads, count, distributed, length, section, s, true);
+    const shearAfter = st.scratch.shear;
     let next = -1;
     for (let m = k + 1; m < pos.length; m++) if (pos[m]! > s) { next = pos[m]!; break; }
     if (next > s && distributed.qy !== 0) {
       // the shear V(s') = V(s) - qy (s' - s) is linear between loads: it vanishes at s*
       const sStar = s + shearAfter / distributed.qy;
-      if (sStar > s && sStar < next) visit(sStar, true);
+      if (sStar > s && sStar < next) visitStation(loads, count, distributed, length, section, sStar, true);
     }
   }
-  return { stress: bestStress, at: best, bendingShare: bestStress > 0 ? bestBending / bestStress : 0, compression, moment };
+  const bestStress = st.bestStress;
+  return { stress: bestStress, at: { ...best }, bendingShare: bestStress > 0 ? st.bestBending / bestStress : 0, compression: st.compression, moment: st.moment };
+}
+
+/** The running state of the current beamStress call (one body at a time; nothing keeps it). */
+const scan = {
+  scratch: { s: 0, axial: 0, shear: 0, moment: 0 } as SectionLoad,
+  best: { s: 0, axial: 0, shear: 0, moment: 0 } as SectionLoad,
+  bestStress: -1,
+  bestBending: 0,
+  compression: 0,
+  moment: 0,
+};
+
+/** Internal loads at one station, folded into `scan`: the largest stress so far and where, the
+ * largest compression and moment. */
+function visitStation(
+  loads: readonly BeamPointLoad[],
+  count: number,
+  distributed: { qx: number; qy: number },
+  length: number,
+  section: { area: number; secondMoment: number; extremeFibre: number },
+  s: number,
+  includeAt: boolean,
+): void {
+  const st = scan;
+  const scratch = st.scratch;
+  evaluateSection(loads, count, distributed, length, s, includeAt, scratch);
+  const axialStress = Math.abs(scratch.axial) / section.area;
+  const bendingStress = (Math.abs(scratch.moment) * section.extremeFibre) / section.secondMoment;
+  const stress = axialStress + bendingStress;
+  st.compression = Math.max(st.compression, -scratch.axial);
+  st.moment = Math.max(st.moment, Math.abs(scratch.moment));
+  if (stress > st.bestStress) {
+    st.bestStress = stress;
+    const best = st.best;
+    best.s = scratch.s;
+    best.axial = scratch.axial;
+    best.shear = scratch.shear;
+    best.moment = scratch.moment;
+    st.bestBending = bendingStress;
+  }
 }
 
 /** sectionLoadAt written into `out` (no allocation). */
