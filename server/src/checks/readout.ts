@@ -30,7 +30,12 @@ export type Readouts = Record<string, PartReadout>;
 export function addFigures(readouts: Readouts, id: string, kind: PartKind, figures: Figure[], notes: string[] = []): PartReadout {
   const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
   // Two check families may report the same figure (a joint's largest reaction): keep one.
-  for (const f of figures) if (!r.figures.some((g) => sameFigure(f, g))) r.figures.push(f);
+  for (const f of figures) {
+    if (!isShowable(f)) {
+      const note = unshowableNote(f);
+      if (!r.notes.includes(note)) r.notes.push(note);
+    } else if (!r.figures.some((g) => sameFigure(f, g))) r.figures.push(f);
+  }
   for (const n of notes) if (!r.notes.includes(n)) r.notes.push(n);
   return r;
 }
@@ -44,4 +49,16 @@ export function noteSafety(readouts: Readouts, id: string, kind: PartKind, value
 
 function sameFigure(a: Figure, b: Figure): boolean {
   return a.label === b.label && a.dimension === b.dimension && Math.abs(a.value - b.value) <= 1e-9 * Math.max(1, Math.abs(a.value));
+}
+
+function isShowable(f: Figure): boolean {
+  return Number.isFinite(f.value) && (f.high === undefined || Number.isFinite(f.high));
+}
+
+/** An infinite figure is a part that carries nothing there (a safety factor with no load); a NaN
+ * one could not be computed. Either reads better as words than as "infinity" or "NaN". */
+function unshowableNote(f: Figure): string {
+  const values = f.high === undefined ? [f.value] : [f.value, f.high];
+  if (values.some((v) => Number.isNaN(v))) return `${f.label}: could not be computed for this geometry`;
+  return `${f.label}: no load on this part anywhere in range`;
 }
