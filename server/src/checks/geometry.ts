@@ -18,6 +18,8 @@ import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from 
  * (sin 5.7 deg = 0.1), and the spring must pull ten times harder than at a right angle for the
  * same torque (common practice, no source). */
 export const TOGGLE_LEVER_SHARE = 0.1;
+/** A hook closer than this to the pivot sits on its axis (0.1 mm: far below any pin radius). */
+const HOOK_ON_AXIS_M = 1e-4;
 /** A collapsing lever arm does no harm where the torque the spring is there to supply vanishes
  * too (a zero-free-length balancer reaching the vertical): below this share of its largest
  * value over the range the toggle is not reported (common practice, no source). */
@@ -82,20 +84,35 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
   let worst: { share: number; arm: number; radius: number; pose: Pose; duty: number } | undefined;
   let smallest: { arm: number; pose: Pose } | undefined;
   let largestDuty = 0;
+  let hookOnAxisPoses = 0;
+  let workingPoses = 0;
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     const st = pose.springs[s.id];
     if (!st) continue;
     const working = pose.cases.some((c) => Math.abs(c.springForce[s.id] ?? 0) > IDLE_SPRING_N);
     if (!working) continue;
+    workingPoses++;
     const p = worldPoint(pose, j.parent, j.parentPoint, model);
     const arm = leverArm(st.a, st.b, p);
     const radius = Math.min(Math.hypot(st.a.x - p.x, st.a.y - p.y), Math.hypot(st.b.x - p.x, st.b.y - p.y));
+    if (radius < HOOK_ON_AXIS_M) hookOnAxisPoses++;
     const share = radius > 0 ? arm / radius : 1;
     const duty = torqueWithoutSpring(pose, s.id, j.id);
     largestDuty = Math.max(largestDuty, duty);
     if (!worst || share < worst.share) worst = { share, arm, radius, pose, duty };
     if (!smallest || arm < smallest.arm) smallest = { arm, pose };
+  }
+  if (workingPoses > 0 && hookOnAxisPoses === workingPoses) {
+    ctx.findings.push(
+      finding(
+        "geometry.spring-toggle",
+        spanOf(s.origin, "between"),
+        `spring ${s.id}: a hook sits on the pivot of ${j.id}, so its lever arm about it is zero everywhere in range: it loads the pin and lifts nothing; move the hook off the pivot`,
+        { related: [{ span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` }], data: { spring: s.id, joint: j.id, leverArm: 0 } },
+      ),
+    );
+    return;
   }
   if (smallest) addFigures(ctx.readouts, s.id, "spring", [{ label: `least lever arm about ${j.id}`, value: smallest.arm, dimension: "length", where: describePose(sweep, smallest.pose) }]);
   if (!worst || worst.share >= TOGGLE_LEVER_SHARE) return;
