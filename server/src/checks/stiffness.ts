@@ -13,7 +13,7 @@ import { orientationRange } from "./geometry";
 import { bodyWord, describePose, pastDeadline, payloadMasses, sectionSpan, show, spanOf } from "./part-words";
 
 /** The reference pose, then for each degree of freedom the poses at the two ends of its range
- * (of those, the one whose other dofs sit nearest their reference). */
+ * (of those, the one whose other dofs sit nearest their reference); at most MAX_STIFFNESS_POSES. */
 export function representativePoses(sweep: SweepResult): Pose[] {
   const out: Pose[] = [];
   const add = (p: Pose | undefined) => p && !out.includes(p) && out.push(p);
@@ -31,7 +31,23 @@ export function representativePoses(sweep: SweepResult): Pose[] {
       add(best?.pose);
     }
   }
-  return out;
+  return out.length <= MAX_STIFFNESS_POSES ? out : [out[0]!, ...mostExtended(out.slice(1), MAX_STIFFNESS_POSES - 1)];
+}
+
+/** Poses the frame and eigen solves visit at most: the reference and both ends of three ranges.
+ * An arm of many stages would otherwise pay an eigenproblem per range end (a 60-body chain spent
+ * seconds there); beyond this, the poses that reach farthest are kept. */
+const MAX_STIFFNESS_POSES = 7;
+
+/** The `count` poses whose bodies reach farthest from the base horizontally (summed over the
+ * bodies' frame origins): bending deflection and the lowest mode grow with reach. */
+function mostExtended(poses: Pose[], count: number): Pose[] {
+  const reach = (p: Pose) => Object.values(p.bodies).reduce((sum, b) => sum + Math.abs(b.x), 0);
+  return poses
+    .map((pose) => ({ pose, reach: reach(pose) }))
+    .sort((a, b) => b.reach - a.reach)
+    .slice(0, count)
+    .map((r) => r.pose);
 }
 
 /** The load case with the largest total payload mass. */
