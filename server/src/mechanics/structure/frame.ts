@@ -55,6 +55,7 @@ export class PlaneFrame {
   private readonly loadRaw: number[] = [];
 
   addNode(x: number, y: number): number {
+    this.factorCache = undefined;
     const n = this.x.length;
     this.x.push(x);
     this.y.push(y);
@@ -87,30 +88,36 @@ export class PlaneFrame {
 
   /** A pin: both nodes move together but turn independently. */
   tieTranslations(a: number, b: number): void {
+    this.factorCache = undefined;
     this.tie(a * NODE_DOFS, b * NODE_DOFS);
     this.tie(a * NODE_DOFS + 1, b * NODE_DOFS + 1);
   }
 
   /** A locked joint (fixed, or a degree of freedom held by hand or brake): rotations equal too. */
   tieRotations(a: number, b: number): void {
+    this.factorCache = undefined;
     this.tie(a * NODE_DOFS + 2, b * NODE_DOFS + 2);
   }
 
   /** Ground: no movement at all. */
   fix(node: number): void {
+    this.factorCache = undefined;
     for (let k = 0; k < NODE_DOFS; k++) this.fixedRaw[node * NODE_DOFS + k] = true;
   }
 
   addElement(i: number, j: number, axialRigidity: number, flexuralRigidity: number): number {
+    this.factorCache = undefined;
     this.elements.push({ i, j, axialRigidity, flexuralRigidity });
     return this.elements.length - 1;
   }
 
   addAxialSpring(i: number, j: number, rate: number): void {
+    this.factorCache = undefined;
     this.axialSprings.push({ i, j, rate });
   }
 
   addRotationalSpring(i: number, j: number, rate: number): void {
+    this.factorCache = undefined;
     this.rotationalSprings.push({ i, j, rate });
   }
 
@@ -214,12 +221,24 @@ export class PlaneFrame {
   /** Static solution under the node loads; undefined when the frame is a mechanism. */
   solveStatic(): FrameSolution | undefined {
     const { eq, count: n } = this.numbering();
-    const K = this.assemble(eq, n);
+    const factor = this.stiffnessFactor(eq, n);
     const f = new Float64Array(n);
     for (let d = 0; d < eq.length; d++) if (eq[d]! >= 0) f[eq[d]!] = f[eq[d]!]! + this.loadRaw[d]!;
-    if (n > 0 && !choleskyFactor(K, n)) return undefined;
-    choleskySolve(K, n, f);
+    if (!factor) return undefined;
+    if (n > 0) choleskySolve(factor, n, f);
     return new FrameSolution(this, eq, f);
+  }
+
+  /** Cholesky factor of the assembled stiffness, kept so that the static solve and the
+   * eigenproblem of one frame factor it once; null for a mechanism. Every change to the
+   * stiffness (nodes, elements, springs, ties, supports) drops it. */
+  private factorCache?: Float64Array | null;
+
+  private stiffnessFactor(eq: Int32Array, n: number): Float64Array | null {
+    if (this.factorCache !== undefined) return this.factorCache;
+    const K = this.assemble(eq, n);
+    this.factorCache = n === 0 || choleskyFactor(K, n) ? K : null;
+    return this.factorCache;
   }
 
   /** Natural circular frequencies squared (ascending) from K phi = w^2 M phi with the lumped
@@ -230,6 +249,12 @@ export class PlaneFrame {
     const K = this.assemble(eq, n);
     const mass = new Float64Array(n);
     for (let d = 0; d < eq.length; d++) if (eq[d]! >= 0) mass[eq[d]!] = mass[eq[d]!]! + this.massRaw[d]!;
+    if (count === 1) {
+      const factor = this.stiffnessFactor(eq, n);
+      if (!factor) return undefined;
+      const lowest = lowestGeneralizedEigenvalue(factor, mass, n);
+      if (lowest !== undefined) return lowest > 0 ? [lowest] : undefined;
+    }
     const m: number[] = [];
     const s: number[] = [];
     for (let i = 0; i < n; i++) (mass[i]! > MASSLESS_KG ? m : s).push(i);
@@ -315,4 +340,46 @@ export function elementStrainEnergy(frame: PlaneFrame, solution: FrameSolution, 
   let energy = 0;
   for (let p = 0; p < 6; p++) for (let q = 0; q < 6; q++) energy += u[p]! * k[p * 6 + q]! * u[q]!;
   return energy / 2;
+}
+
+/** Inverse iteration stops when the Rayleigh quotient changes by less than this share (its
+ * error is the square of the vector's, so eigenvalues come out exact to print). */
+const GENERALIZED_ITERATION_TOLERANCE = 1e-12;
+/** Well-separated lowest modes settle in tens of steps; past this the caller condenses and uses
+ * the dense symmetric solver instead. */
+const GENERALIZED_ITERATION_MAX_STEPS = 300;
+
+/** Lowest eigenvalue of K phi = lambda M phi with M diagonal and possibly singular (massless
+ * rotations), by inverse iteration z = K^-1 M x with the Rayleigh quotient
+ * (z^T M x) / (z^T M z) (Bathe, Finite Element Procedures, 2nd ed., 11.2.1). It needs only one
+ * factorisation of K and no static condensation: massless dofs follow statically in every step.
+ * `factor` is K's Cholesky factor. Undefined when there is no mass or the iteration does not
+ * settle (the caller then uses the condensed dense problem). */
+function lowestGeneralizedEigenvalue(factor: Float64Array, mass: Float64Array, n: number): number | undefined {
+  let totalMass = 0;
+  for (let i = 0; i < n; i++) totalMass += mass[i]!;
+  if (!(totalMass > 0) || n === 0) return undefined;
+  const k = factor;
+  const x = new Float64Array(n);
+  const z = new Float64Array(n);
+  // a start with a share of every mode: uneven weights avoid symmetry with the frame's modes
+  for (let i = 0; i < n; i++) x[i] = 1 + 0.37 * Math.sin(1.3 * i + 0.2);
+  let previous = Infinity;
+  for (let step = 0; step < GENERALIZED_ITERATION_MAX_STEPS; step++) {
+    for (let i = 0; i < n; i++) z[i] = mass[i]! * x[i]!;
+    choleskySolve(k, n, z); // z = K^-1 M x
+    let zmx = 0;
+    let zmz = 0;
+    for (let i = 0; i < n; i++) {
+      zmx += z[i]! * mass[i]! * x[i]!;
+      zmz += z[i]! * mass[i]! * z[i]!;
+    }
+    if (!(zmz > 0)) return undefined;
+    const rq = zmx / zmz;
+    const scale = 1 / Math.sqrt(zmz);
+    for (let i = 0; i < n; i++) x[i] = z[i]! * scale;
+    if (Math.abs(rq - previous) <= GENERALIZED_ITERATION_TOLERANCE * Math.abs(rq)) return rq;
+    previous = rq;
+  }
+  return undefined;
 }
