@@ -12,10 +12,11 @@ const sample = (name: string) => parse(readFileSync(join(__dirname, "..", "..", 
 describe("while-typing density", () => {
   it("reads the degrees of freedom, steps and grid of a spec", () => {
     // camera: the base and one parallelogram (three bodies) with a range; `sweep { steps 37 }`.
-    expect(sweepShape(sample("camera-arm"))).toEqual({ dofs: 1, bodies: 4, steps: 37, grid: true });
-    // engraver: two stages with ranges (the turret is fixed), its own `steps N`, `grid on`.
+    expect(sweepShape(sample("camera-arm"))).toEqual({ dofs: 1, bodies: 4, steps: 37, grid: true, loadCases: 1 });
+    // engraver: two stages with ranges (the turret is fixed), its own `steps N`, `grid on`, and a
+    // payload mass range: the nominal case plus both ends.
     const engraverSteps = Number(/steps (\d+)/.exec(readFileSync(join(__dirname, "..", "..", "samples", "engraver-arm.poise"), "utf8"))![1]);
-    expect(sweepShape(sample("engraver-arm"))).toMatchObject({ dofs: 2, steps: engraverSteps, grid: true });
+    expect(sweepShape(sample("engraver-arm"))).toMatchObject({ dofs: 2, steps: engraverSteps, grid: true, loadCases: 3 });
   });
 
   it("keeps the setting where the grid stays small", () => {
@@ -25,10 +26,13 @@ describe("while-typing density", () => {
   });
 
   it("thins the grid of three degrees of freedom to the budget", () => {
-    // Two engraver stages at 13 steps: 169 poses of its bodies, inside the budget.
+    // Two engraver stages: steps^2 poses of its bodies in each of its three load cases, thinned
+    // until they fit the budget.
     const engraver = sweepShape(sample("engraver-arm"));
-    expect(13 ** 2 * engraver.bodies).toBeLessThanOrEqual(TYPING_BODY_POSE_BUDGET);
-    expect(typingSteps(sample("engraver-arm"), 13)).toBe(engraver.steps > 13 ? 13 : undefined);
+    const work = engraver.bodies * engraver.loadCases;
+    const thinned = typingSteps(sample("engraver-arm"), 13)!;
+    expect(thinned ** 2 * work).toBeLessThanOrEqual(TYPING_BODY_POSE_BUDGET);
+    expect((thinned + 1) ** 2 * work).toBeGreaterThan(TYPING_BODY_POSE_BUDGET);
     const three = parse('arm "a" {\n base b {}\n link l {}\n joint a { range 0 deg .. 1 deg }\n joint b { range 0 deg .. 1 deg }\n joint c { range 0 deg .. 1 deg }\n}');
     const steps = typingSteps(three, 13)!;
     expect(steps ** 3 * 2).toBeLessThanOrEqual(TYPING_BODY_POSE_BUDGET);

@@ -15,16 +15,19 @@ interface SweepShape {
   bodies: number;
   steps: number;
   grid: boolean;
+  /** Load cases the statics and checks repeat for: 1, plus both ends of each payload mass range. */
+  loadCases: number;
 }
 
 /** Degrees of freedom (joints and parallelograms with a `range`, not `fixed`), the spec's steps
  * and whether it sweeps the grid, read from the syntax tree. */
 export function sweepShape(tree: SyntaxTree): SweepShape {
-  const shape: SweepShape = { dofs: 0, bodies: 0, steps: SWEEP_DEFAULTS.steps, grid: SWEEP_DEFAULTS.grid };
+  const shape: SweepShape = { dofs: 0, bodies: 0, steps: SWEEP_DEFAULTS.steps, grid: SWEEP_DEFAULTS.grid, loadCases: 1 };
   for (const d of tree.arms[0]?.declarations ?? []) {
     const keys = new Set(d.properties.map((p) => p.key.text));
     shape.bodies += d.keyword.text === "parallelogram" ? 3 : d.keyword.text === "link" || d.keyword.text === "base" ? 1 : 0;
     if ((d.keyword.text === "joint" || d.keyword.text === "parallelogram") && keys.has("range") && !keys.has("fixed")) shape.dofs++;
+    if (d.keyword.text === "payload" && keys.has("range")) shape.loadCases += 2;
     if (d.keyword.text !== "sweep") continue;
     for (const p of d.properties) {
       const v = p.values[0];
@@ -49,7 +52,8 @@ export function typingSteps(tree: SyntaxTree, settingSteps: number): number | un
   if (settingSteps <= 0) return undefined;
   const shape = sweepShape(tree);
   let steps = Math.max(2, Math.floor(settingSteps));
-  const bodies = Math.max(1, shape.bodies);
-  while (steps > 2 && posesAt(shape, steps) * bodies > TYPING_BODY_POSE_BUDGET) steps--;
+  // each load case repeats the statics and the checks over every pose
+  const work = Math.max(1, shape.bodies) * shape.loadCases;
+  while (steps > 2 && posesAt(shape, steps) * work > TYPING_BODY_POSE_BUDGET) steps--;
   return steps < shape.steps ? steps : undefined;
 }
