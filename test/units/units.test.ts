@@ -216,3 +216,12 @@ describe("display round trip", () => {
     }
   }
 });
+
+describe("suggestions for half-typed words", () => {
+  test("suggests the one candidate a half-typed word begins, and nothing for short or shared prefixes", () => {
+    expect(closestWord("extens", ["extension", "elastic", "rate"])).toBe("extension");
+    // `e` and `ex` are too short to stand for a word; `free` begins two candidates.
+    expect(closestWord("ex", ["extension", "elastic"])).toBeUndefined();
+    expect(closestWord("free", ["free_length", "free_angle"])).toBeUndefined();
+  });
+});

@@ -44,7 +44,19 @@ export function closestWord(word: string, candidates: Iterable<string>): string 
       bestDistance = d;
     }
   }
-  return best !== undefined && bestDistance <= allowedEdits(word) ? best : undefined;
+  if (best !== undefined && bestDistance <= allowedEdits(word)) return best;
+  return onlyCompletion(word, candidates);
+}
+
+/** A half-typed word (`extens`) is most likely the one candidate it begins; three letters at
+ * least, so that `m` does not stand for `mass` (common practice, no source). */
+const LEAST_PREFIX = 3;
+
+function onlyCompletion(word: string, candidates: Iterable<string>): string | undefined {
+  if (word.length < LEAST_PREFIX) return undefined;
+  const lower = word.toLowerCase();
+  const starts = [...candidates].filter((c) => c !== word && c.toLowerCase().startsWith(lower));
+  return starts.length === 1 ? starts[0] : undefined;
 }
 
 /** " Did you mean `x`?" or "" — to append to a message. */
