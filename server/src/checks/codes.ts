@@ -28,6 +28,7 @@ export const CODES = {
   "declaration.unknown": { severity: "error", explanation: "The word before a `{ }` block is not a kind of declaration." },
   "base.missing": { severity: "error", explanation: "The arm has no `base`: nothing is fixed to the ground." },
   "base.second": { severity: "error", explanation: "An arm has one base; a second `base` is ignored." },
+  "payload.weightless": { severity: "warning", explanation: "A payload of zero mass with no force loads nothing." },
   "payload.on-base": { severity: "warning", explanation: "A payload sits on the base: no joint carries it, so it takes no part in balance." },
   "spring.same-body": { severity: "warning", explanation: "Both hooks of a spring are on one body: it pulls the body on itself and does nothing." },
   "joint.unheld": { severity: "error", explanation: "A passive joint that no closed loop determines." },

@@ -54,6 +54,9 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
       }
     }
   }
+  if (mass && mass.value === 0 && !massRange && !force) {
+    ctx.r.add("payload.weightless", mass.span, `payload ${id} has no mass and no force: it loads nothing, so the balance checks have nothing to hold there`);
+  }
   if (!body || !at) return undefined;
   return {
     id,
