@@ -10,7 +10,8 @@ export interface Vec2 {
 
 /** Where a model object came from in the text. `name` is the span of its name (for go-to and
  * rename); `declaration` the whole declaration; `properties` the span of each property by key
- * (the first occurrence), so a check can point at `rate` rather than the whole spring. */
+ * (the occurrence that counts: the last), so a check can point at `rate` rather than the whole
+ * spring. */
 export interface Origin {
   declaration: Span;
   name?: Span;
