@@ -190,7 +190,7 @@ function driftChecks(ctx: CheckContext): void {
       finding(
         "balance.drifts",
         joint.origin.properties["friction"] ?? joint.origin.name ?? joint.origin.declaration,
-        `Joint ${joint.id} does not hold over ${words}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, so it turns ${turn} on its own.`,
+        `${isStage(model, joint.id) ? "parallelogram" : "joint"} ${joint.id} does not hold over ${words}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, so it turns ${turn} on its own.`,
         { data: { jointId: joint.id, ranges: runs, worstHoldingTorque: worst, friction } },
       ),
     );

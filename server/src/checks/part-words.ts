@@ -13,8 +13,12 @@ export function show(valueSI: number, dimension: DimensionName): string {
 }
 
 /** A safety factor: two decimals, so 1.96 is not shown as 2.0 next to a limit of 2.0. */
+/** Below this a factor shows two significant figures instead: 0.004 is not "0.00". */
+const SMALL_SAFETY = 0.1;
+
 export function showSafety(value: number): string {
-  return Number.isFinite(value) ? value.toFixed(2) : "unlimited";
+  if (!Number.isFinite(value)) return "unlimited";
+  return Math.abs(value) >= SMALL_SAFETY ? value.toFixed(2) : value.toPrecision(2);
 }
 
 export { formatNumber };

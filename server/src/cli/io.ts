@@ -6,6 +6,16 @@ export interface Output {
   err(text: string): void;
 }
 
+/** A reader that stops early (`poise sweep x.poise --csv | head`) closes the pipe: that is the
+ * reader's choice, not a fault, so the command ends quietly instead of printing a stack. */
+function endQuietlyOnClosedPipe(stream: NodeJS.WriteStream): void {
+  stream.on("error", (err: NodeJS.ErrnoException) => {
+    if (err.code === "EPIPE") process.exit(0);
+    throw err;
+  });
+}
+endQuietlyOnClosedPipe(process.stdout);
+
 export const processOutput: Output = {
   out: (text) => void process.stdout.write(text),
   err: (text) => void process.stderr.write(text),

@@ -171,7 +171,7 @@ export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string
   if (edits.length === 0) return undefined;
   const before = num(detail?.["worstHandForceBefore"]);
   const after = num(detail?.["worstHandForceAfter"]);
-  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)})` : "";
+  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)} over every payload)` : "";
   return { title: `Set ${springId}'s ${words.join(" and ")}${forces}`, edits, preferred: true };
 }
 

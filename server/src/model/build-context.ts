@@ -172,9 +172,9 @@ export class BuildContext {
   }
 }
 
-export function listWords(words: readonly string[]): string {
+export function listWords(words: readonly string[], joiner: "and" | "or" = "and"): string {
   if (words.length <= 1) return words.join("");
-  return `${words.slice(0, -1).join(", ")} and ${words[words.length - 1]}`;
+  return `${words.slice(0, -1).join(", ")} ${joiner} ${words[words.length - 1]}`;
 }
 
 /** A declaration's properties grouped by key and checked against its schema entry. */

@@ -21,7 +21,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   const kinds = SPRING_KINDS.filter((k) => p.has(k));
   for (const k of kinds) readFlag(p.values(k)!);
   if (kinds.length === 0) {
-    ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS])}`, { data: { insert: "extension" } });
+    ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS], "or")}`, { data: { insert: "extension" } });
     return undefined;
   }
   if (kinds.length > 1) {

@@ -302,11 +302,11 @@ export function readWord(v: Values, what: string): Read<string> | undefined {
 
 /** One of a fixed list of words, with did-you-mean. */
 export function readChoice(v: Values, words: readonly string[]): Read<string> | undefined {
-  const w = readWord(v, `one of ${words.join(", ")}`);
+  const w = readWord(v, `one of ${words.join(", ")}`.replace(/, ([^,]*)$/, " or $1"));
   if (!w) return undefined;
   if (!words.includes(w.value)) {
     const best = closestWord(w.value, words);
-    v.r.add("value.invalid", w.span, `\`${v.key}\` is one of ${words.join(", ")}; got \`${w.value}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+    v.r.add("value.invalid", w.span, `\`${v.key}\` is one of ${words.join(", ").replace(/, ([^,]*)$/, " or $1")}; got \`${w.value}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
     return undefined;
   }
   return w;

@@ -189,7 +189,8 @@ function safetyRows(model: ArmModel, readouts: Readouts, partOf: (id: string) =>
       value: r.worstSafety.value,
       what: r.worstSafety.what,
       ...(r.worstSafety.where ? { where: r.worstSafety.where } : {}),
-      required: model.require.safety,
+      // the base's tipping safety answers to `require tipping`, every other part to `require safety`
+      required: r.worstSafety.what.startsWith("tipping") ? model.require.tipping : model.require.safety,
     });
   }
   return rows.sort((a, b) => a.value - b.value);
