@@ -42,7 +42,7 @@ export const CODES = {
   "balance.drifts": { severity: "warning", explanation: "A pivot's friction does not hold the arm over part of its range." },
   // geometry checks
   "geometry.spring-toggle": { severity: "warning", explanation: "A spring's line of action passes close to the pivot it works about: its lever arm collapses." },
-  "geometry.spring-slack": { severity: "warning", explanation: "An extension spring is shorter than its free length where it must pull." },
+  "geometry.spring-slack": { severity: "warning", explanation: "An extension spring or rubber cord is at or below its free length where it must pull." },
   "geometry.tilt": { severity: "warning", explanation: "The head's orientation changes over the range by more than `require tilt`." },
   "geometry.clearance": { severity: "warning", explanation: "Bodies come closer than `require clearance`, or go below the bench surface." },
   "geometry.tipping": { severity: "error", explanation: "The base's restoring moment is short of `require tipping` times the overturning moment." },

@@ -33,7 +33,7 @@ export function checkGeometry(ctx: CheckContext): void {
   for (const s of ctx.model.springs) {
     if (s.kind === "torsion") continue;
     checkToggle(ctx, s);
-    if (s.kind === "extension") checkSlack(ctx, s);
+    if (s.kind === "extension" || s.kind === "elastic") checkSlack(ctx, s);
   }
   checkTilt(ctx);
   checkClearance(ctx);
@@ -127,7 +127,8 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
   );
 }
 
-function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" }>): void {
+/** Extension springs and rubber cords pull only above their free length. */
+function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" | "elastic" }>): void {
   const { sweep } = ctx;
   const slack: Pose[] = [];
   let shortest = Infinity;
