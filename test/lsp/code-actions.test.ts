@@ -3,7 +3,8 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { parse } from "../../server/src/syntax/parser";
-import { balanceFix, missingUnitFix, unknownNameFix, suggestionOf, suggestedValueFix, type TextFix } from "../../server/src/lsp/code-actions";
+import { balanceFix, fixesFor, missingUnitFix, unknownNameFix, suggestionOf, suggestedValueFix, type TextFix } from "../../server/src/lsp/code-actions";
+import { analyse } from "../../server/src/analysis";
 import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
 
 function apply(text: string, fix: TextFix): string {
@@ -79,5 +80,23 @@ describe("unit and name quick fixes", () => {
     const span = spanOf(mistakes, "boom.tip");
     const fix = unknownNameFix(mistakes, span, "boom has no point tip", { suggestion: "end" })!;
     expect(apply(mistakes, fix)).toContain("connects boom.end to forearm.start");
+  });
+});
+
+describe("spelling fixes of keywords and property names", () => {
+  it("a mistyped property and a mistyped declaration keyword are changed to the suggestion, and the finding goes", () => {
+    const text = 'arm "a" {\n  base b { point p (0 mm, 100 mm) }\n  lnk boom {\n    lenght 300 mm\n    mass 50 g\n  }\n}\n';
+    let edited = text;
+    for (const code of ["property.unknown", "declaration.unknown"]) {
+      const f = analyse(edited, { modelOnly: true }).findings.find((x) => x.code === code)!;
+      expect(f, code).toBeDefined();
+      const [fix] = fixesFor(edited, parse(edited), { code, span: f.span, message: f.message, ...(f.data ? { detail: f.data } : {}) });
+      expect(fix, code).toBeDefined();
+      edited = apply(edited, fix!);
+    }
+    expect(edited).toContain("  link boom {\n    length 300 mm");
+    const codes = analyse(edited, { modelOnly: true }).findings.map((f) => f.code);
+    expect(codes).not.toContain("property.unknown");
+    expect(codes).not.toContain("declaration.unknown");
   });
 });

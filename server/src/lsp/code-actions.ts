@@ -316,7 +316,7 @@ export function fixesFor(text: string, tree: SyntaxTree, req: FixRequest): TextF
   switch (req.code) {
     case "balance.unbalanced": fix = balanceFix(text, tree, req.detail); break;
     case "unit.missing": fix = missingUnitFix(tree, req.span, req.detail); break;
-    case "name.unknown": case "name.unknown-point": case "unit.unknown": fix = unknownNameFix(text, req.span, req.message, req.detail); break;
+    case "name.unknown": case "name.unknown-point": case "unit.unknown": case "property.unknown": case "declaration.unknown": fix = unknownNameFix(text, req.span, req.message, req.detail); break;
     case "strength.overstress": fix = widenPinFix(text, tree, req.span, req.message, req.detail); break;
     case "value.impossible": fix = suggestedValueFix(text, req.span, req.detail); break;
   }
