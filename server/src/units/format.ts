@@ -27,7 +27,7 @@ function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI: numb
       case "stiffness": return unit("N/mm");
       case "angular_stiffness": return unit("N*mm/deg");
       case "angle": return unit("deg");
-      case "pressure": return unit("MPa");
+      case "pressure": return unit(big >= 1e10 ? "GPa" : "MPa"); // moduli read in GPa, stresses in MPa
       case "density": return unit("g/cm^3");
       case "acceleration": return unit("m/s^2");
       case "frequency": return unit("Hz");
