@@ -138,6 +138,24 @@ describe("clearance", () => {
     expect(below.find((f) => f.message.startsWith("payload lamp"))!.message).toContain("43.83 mm below the bench surface at shoulder -28.65 deg");
   });
 
+  it("a link that stays above the bench but closer than require clearance", () => {
+    const base = baseBody("post", { pivot: { x: 0, y: 0.1 } });
+    const boom = linkBody("boom", 0.3, rect, "aluminium_6061_t6");
+    const model = armModel({
+      bodies: [base, boom],
+      joints: [joint("shoulder", "post", { x: 0, y: 0.1 }, "boom", 0, "range")],
+      payloads: [payload("lamp", "boom", { x: 0.3, y: 0 }, 0.1)],
+    });
+    // plane geometry: at -0.3 rad the end is 0.1 - 0.3 sin(0.3) = 11.3 mm up; its lower edge half the
+    // 20 mm depth lower, 1.3 mm above the bench: inside the default 3 mm clearance, not below it
+    const ctx = runFamily(checkGeometry, model, treeSweep(model, [{ shoulder: 0 }, { shoulder: -0.3 }]));
+    const near = ctx.findings.filter((x) => x.code === "geometry.clearance");
+    const gap = 0.1 - 0.3 * Math.sin(0.3) - 0.01;
+    expect(near).toHaveLength(1);
+    expect(near[0]!.message).toMatch(/^link boom comes within 1\.3\d* mm of the bench surface/);
+    expect(near[0]!.data!["below"]).toBeCloseTo(-gap, 12);
+  });
+
   it("two links that cross", () => {
     const base = baseBody("post", { a: { x: 0, y: 0.1 }, b: { x: 0.2, y: 0.1 } });
     const m = armModel({

@@ -391,7 +391,8 @@ function checkClearance(ctx: CheckContext): void {
       const sh = shapes[i]!;
       const o = 4 * i;
       const lowest = Math.min(ends[o + 1]!, ends[o + 3]!) - sh.halfThickness;
-      if (lowest < surface) {
+      // bodies keep `require clearance` from the bench too; payload centres may sit on the work
+      if (lowest < surface + need) {
         const prev = belowWorst.get(sh.body.id);
         if (!prev || surface - lowest > prev.depth) belowWorst.set(sh.body.id, { depth: surface - lowest, pose, what: bodyWord(sh.body), span: sh.body.origin.name ?? sh.body.origin.declaration });
       }
@@ -424,7 +425,14 @@ function checkClearance(ctx: CheckContext): void {
   }
   for (const w of belowWorst.values()) {
     ctx.findings.push(
-      finding("geometry.clearance", w.span, `${w.what} goes ${show(w.depth, "length")} below the bench surface ${describePose(sweep, w.pose)}`, { data: { below: w.depth } }),
+      finding(
+        "geometry.clearance",
+        w.span,
+        w.depth > 0
+          ? `${w.what} goes ${show(w.depth, "length")} below the bench surface ${describePose(sweep, w.pose)}`
+          : `${w.what} comes within ${show(-w.depth, "length")} of the bench surface ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`,
+        { data: { below: w.depth } },
+      ),
     );
   }
 }
