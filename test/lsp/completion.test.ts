@@ -80,6 +80,10 @@ describe("completion", () => {
     const bodies = at(inside("joint lens_tilt", "connects |"));
     expect(bodies).toEqual(expect.arrayContaining(["clamp", "lens_arm", "stage.lower", "stage.upper", "stage.head"]));
     expect(at(inside("joint lens_tilt", "connects stage.head |"))).toEqual(["to"]);
+    // the child of a joint is never the base (language.md: the base is the fixed ground)
+    const children = at(inside("joint lens_tilt", "connects stage.head to |"));
+    expect(children).toContain("lens_arm");
+    expect(children).not.toContain("clamp");
     expect(at(inside("joint lens_tilt", "connects stage.|")).sort()).toEqual(["head", "lower", "upper"]);
     expect(at(inside("joint lens_tilt", "connects clamp.|")).sort()).toEqual(["hook", "pivot"]);
     expect(at(inside("joint lens_tilt", "connects stage.lower.|")).sort()).toEqual(["end", "start"]);

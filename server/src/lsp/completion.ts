@@ -19,6 +19,8 @@ interface Want {
   names?: NameKind[];
   words?: string[];
   dimensions?: DimensionName[];
+  /** A joint's child: never the base, which is the fixed ground. */
+  child?: boolean;
 }
 
 /** Every dimension a property's quantities may have (for units after a number). */
@@ -59,7 +61,8 @@ function wantAfter(keyword: string, spec: PropertySpec, done: string[], springKi
   const afterUnit = last !== undefined && prevIsUnitAfterNumber(done);
   switch (spec.key) {
     case "connects":
-      return done.length === 1 ? { kind: "words", words: ["to"] } : done.length === 0 || last === "to" ? { kind: "place" } : undefined;
+      if (done.length === 1) return { kind: "words", words: ["to"] };
+      return done.length === 0 ? { kind: "place" } : last === "to" ? { kind: "place", child: true } : undefined;
     case "between":
       return done.length === 1 ? { kind: "words", words: ["and"] } : done.length === 0 || last === "and" ? { kind: "place" } : undefined;
     case "on":
@@ -149,10 +152,11 @@ function nameItem(s: NameSymbol, label = s.id): CompletionItem {
 }
 
 /** Names for a place reference: bodies, or after `body.` that body's points. */
-function placeItems(view: SyntaxView, partial: string): { items: CompletionItem[]; replaceFrom: number } {
+function placeItems(view: SyntaxView, partial: string, child = false): { items: CompletionItem[]; replaceFrom: number } {
   const dot = partial.lastIndexOf(".");
   if (dot < 0) {
-    const items = [...view.names.bodies].map((id) => nameItem(view.names.symbols.get(id)!));
+    const bodies = [...view.names.bodies].filter((id) => !(child && view.names.symbols.get(id)?.kind === "base"));
+    const items = bodies.map((id) => nameItem(view.names.symbols.get(id)!));
     // A parallelogram's name alone reads as its head in no position; offer `NAME.` to go on.
     for (const p of symbolsOfKind(view.names, ["parallelogram"])) items.push({ ...nameItem(p), label: `${p.id}.`, insertText: `${p.id}.`, command: { title: "more", command: "editor.action.triggerSuggest" } });
     return { items, replaceFrom: partial.length };
@@ -203,7 +207,7 @@ export function completionsAt(view: SyntaxView, offset: number, snippets: boolea
     } else if (want?.kind === "names") {
       items = symbolsOfKind(view.names, want.names ?? []).map((s) => nameItem(s));
     } else if (want?.kind === "place") {
-      const place = placeItems(view, partial);
+      const place = placeItems(view, partial, want.child === true);
       items = place.items;
       replaceLength = place.replaceFrom;
     }
