@@ -261,11 +261,19 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
       const lengths = sweep.poses.map((p) => p.springs[s.id]!.length);
       figures.push({ label: "length range", value: Math.min(...lengths), high: Math.max(...lengths), dimension: "length" });
     } else {
-      const turns = sweep.poses.map((p) => p.springs[s.id]!.windUp ?? 0);
-      figures.push({ label: "wind-up range", value: Math.min(...turns), high: Math.max(...turns), dimension: "angle" });
+      // The solver keeps the torque on the parent; the designer reads the spring from the child's
+      // side, where a positive preload lifts (counter-clockwise positive), so both signs flip here.
+      const turns = sweep.poses.map((p) => -(p.springs[s.id]!.windUp ?? 0));
+      figures.push({ label: "wind-up range (positive lifts the child)", value: Math.min(...turns), high: Math.max(...turns), dimension: "angle" });
     }
-    const forces = sweep.poses.map((p) => p.cases[0]!.springForce[s.id] ?? 0);
-    figures.push({ label: s.kind === "torsion" ? "torque range" : "force range", value: Math.min(...forces), high: Math.max(...forces), dimension: s.kind === "torsion" ? "torque" : "force" });
+    const sign = s.kind === "torsion" ? -1 : 1;
+    const forces = sweep.poses.map((p) => sign * (p.cases[0]!.springForce[s.id] ?? 0));
+    figures.push({
+      label: s.kind === "torsion" ? "torque on the child range (counter-clockwise positive)" : "force range",
+      value: Math.min(...forces),
+      high: Math.max(...forces),
+      dimension: s.kind === "torsion" ? "torque" : "force",
+    });
     const ideal = idealZeroLengthRate(model, sweep, s.id);
     if (ideal) figures.push({ label: "ideal rate (zero free length, k = m g l / (a b))", value: ideal.rate, dimension: "stiffness", where: `about ${ideal.dofId}` });
     const fit = fitOf(s.id);
