@@ -102,15 +102,8 @@ export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" 
   for (const { spring: s, end } of ix.springEnds.get(bodyId) ?? []) {
     const state = pose.springs[s.id];
     const force = statics.springForce[s.id];
-    if (!state || force === undefined) continue;
-    const dx = state.b.x - state.a.x;
-    const dy = state.b.y - state.a.y;
-    const len = Math.hypot(dx, dy);
-    if (!(len > 0)) continue;
-    const ux = (force * dx) / len;
-    const uy = (force * dy) / len;
-    if (end === "a") loads.push({ kind: "spring", id: s.id, point: state.a, force: { x: ux, y: uy }, couple: 0 });
-    else loads.push({ kind: "spring", id: s.id, point: state.b, force: { x: -ux, y: -uy }, couple: 0 });
+    if (!state || force === undefined || !hookForce(state, force, end, HOOK)) continue;
+    loads.push({ kind: "spring", id: s.id, point: end === "a" ? state.a : state.b, force: { x: HOOK.x, y: HOOK.y }, couple: 0 });
   }
   for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
     const r = statics.reactions[j.id];
@@ -168,15 +161,9 @@ export function localBeamLoads(
   for (const { spring: sp, end } of ix.springEnds.get(bodyId) ?? []) {
     const state = pose.springs[sp.id];
     const force = statics.springForce[sp.id];
-    if (!state || force === undefined) continue;
-    const dx = state.b.x - state.a.x;
-    const dy = state.b.y - state.a.y;
-    const len = Math.hypot(dx, dy);
-    if (!(len > 0)) continue;
-    const ux = (force * dx) / len;
-    const uy = (force * dy) / len;
-    if (end === "a") n = putLocalLoad(out, n, bp, c, s, state.a.x, state.a.y, ux, uy, 0);
-    else n = putLocalLoad(out, n, bp, c, s, state.b.x, state.b.y, -ux, -uy, 0);
+    if (!state || force === undefined || !hookForce(state, force, end, HOOK)) continue;
+    const at = end === "a" ? state.a : state.b;
+    n = putLocalLoad(out, n, bp, c, s, at.x, at.y, HOOK.x, HOOK.y, 0);
   }
   for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
     const r = statics.reactions[j.id];
@@ -192,6 +179,23 @@ export function localBeamLoads(
     if (locked !== undefined) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * locked);
   }
   return n;
+}
+
+/** Scratch for hookForce: both load lists read it at once, so no object per spring end. */
+const HOOK = { x: 0, y: 0 };
+
+/** The force a spring of tension `force` puts on the body at its `end` hook (tension pulls each
+ * hook toward the other), written into `out`; false when the hooks meet and it has no direction. */
+function hookForce(state: { a: Vec2; b: Vec2 }, force: number, end: "a" | "b", out: { x: number; y: number }): boolean {
+  const dx = state.b.x - state.a.x;
+  const dy = state.b.y - state.a.y;
+  const len = Math.hypot(dx, dy);
+  if (!(len > 0)) return false;
+  const ux = (force * dx) / len;
+  const uy = (force * dy) / len;
+  out.x = end === "a" ? ux : -ux;
+  out.y = end === "a" ? uy : -uy;
+  return true;
 }
 
 /** Writes one world load (at px, py) as a local beam load at out[n]; returns n + 1. */
