@@ -110,11 +110,12 @@ function namedPoints(ctx: BuildContext, p: Props, bodyId: string, points: Record
   }
 }
 
-/** A declared material by name, given as a word in a property (`material pla`). */
-function materialOf(ctx: BuildContext, p: Props, key: string): string | undefined {
+/** A declared material by name, given as a word in a property (`material pla`); `what` names it
+ * in the message when the word is missing. */
+export function materialOf(ctx: BuildContext, p: Props, key: string, what = "a material name"): string | undefined {
   const v = p.values(key);
   if (!v) return undefined;
-  const w = readWord(v, "a material name");
+  const w = readWord(v, what);
   v.finish();
   return w ? ctx.resolveMaterial(w) : undefined;
 }

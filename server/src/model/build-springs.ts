@@ -5,6 +5,7 @@ import type { Attachment, CoilGeometry, Spring, SpringKind } from "./types";
 import { extensionSpringRate } from "./coil";
 import { readDims, readFlag, readKeyword, readQuantity, readReference, readWord, type Read } from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
+import { materialOf } from "./build-parts";
 
 const KIND_WORDS: Record<SpringKind, string> = {
   extension: "an extension spring",
@@ -114,13 +115,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       const wire = q("wire", "length", { positive: true });
       const mean = q("coil", "length", { positive: true });
       const coils = q("coils", "dimensionless", { positive: true });
-      let material: string | undefined;
-      const mv = p.values("material");
-      if (mv) {
-        const w = readWord(mv, "the wire's material");
-        mv.finish();
-        material = w ? ctx.resolveMaterial(w) : undefined;
-      }
+      const material = materialOf(ctx, p, "material", "the wire's material");
       if (wire && mean && mean.value <= wire.value) {
         ctx.r.add("value.impossible", mean.span, `the mean coil diameter ${ctx.r.quote(mean.span)} must be larger than the wire ${ctx.r.quote(wire.span)}`);
       } else if (wire && mean && coils && material) {
@@ -179,13 +174,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
         else if (area === undefined) area = (Math.PI / 4) * (od * od - (od - 2 * wall) ** 2);
       }
     }
-    let material: string | undefined;
-    const mv = p.values("material");
-    if (mv) {
-      const w = readWord(mv, "the cord's material");
-      mv.finish();
-      material = w ? ctx.resolveMaterial(w) : undefined;
-    }
+    const material = materialOf(ctx, p, "material", "the cord's material");
     const stretch = q("max_stretch", "dimensionless", { positive: true });
     if (stretch && stretch.value <= 1) ctx.r.add("value.impossible", stretch.span, `max_stretch is a ratio L / L0 above 1, got ${ctx.r.quote(stretch.span)}`);
     if (!ends) return undefined;
