@@ -1,17 +1,11 @@
 // A plain table of every declaration and every reference to one, for outline, go-to-definition,
 // find references and rename (the language server reads it; the core never needs it).
 import type { Span } from "../syntax/span";
+import type { DeclarationKeyword } from "../syntax/ast";
 
+/** Every declaration keyword, plus the names that are not declared by a keyword of their own. */
 export type SymbolKind =
-  | "material"
-  | "base"
-  | "link"
-  | "joint"
-  | "parallelogram"
-  | "spring"
-  | "payload"
-  | "require"
-  | "sweep"
+  | DeclarationKeyword
   /** A named point of a body (`id` is `body.point`). */
   | "point"
   /** A body a parallelogram creates (`reach.lower`, `reach.upper`, `reach.head`). */
