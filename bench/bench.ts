@@ -65,8 +65,15 @@ const MAX_RUNS = 41;
 
 function specs(): { name: string; text: string; typical: boolean }[] {
   const dir = join(findRoot(), "samples");
-  const files = existsSync(dir) ? readdirSync(dir).filter((f) => f.endsWith(".poise")).sort() : [];
-  return [...files.map((f) => ({ name: f, text: readFileSync(join(dir, f), "utf8"), typical: false })), { name: "typical arm (bench/typical-arm.ts)", text: TYPICAL_ARM, typical: true }];
+  const files = existsSync(dir)
+    ? readdirSync(dir)
+        .filter((f) => f.endsWith(".poise"))
+        .sort()
+    : [];
+  return [
+    ...files.map((f) => ({ name: f, text: readFileSync(join(dir, f), "utf8"), typical: false })),
+    { name: "typical arm (bench/typical-arm.ts)", text: TYPICAL_ARM, typical: true },
+  ];
 }
 
 /** One bare LU factor + solve of an n x n matrix, ms (median over enough repetitions to time). */
@@ -74,7 +81,7 @@ function bareLuMs(n: number): number {
   const a = new Float64Array(n * n);
   // Diagonally dominant with pseudo-random off-diagonal entries: a well-posed Jacobian's stand-in.
   let seed = 12345;
-  const rnd = () => ((seed = (seed * 1103515245 + 12345) >>> 0) / 4294967296) - 0.5;
+  const rnd = () => (seed = (seed * 1103515245 + 12345) >>> 0) / 4294967296 - 0.5;
   for (let i = 0; i < n; i++) for (let j = 0; j < n; j++) a[i * n + j] = i === j ? n : rnd();
   const lu = new DenseLu(n);
   const b = new Float64Array(n).fill(1);
@@ -127,7 +134,11 @@ const endToEnd: Section = {
     }
     // The target row: the typical arm as the server analyses it while the user types.
     const steps = serverTypingSteps(TYPICAL_ARM);
-    return typicalAt(log, `while typing at the server's density (${steps === undefined ? "its own" : `${steps} steps per dof`}, setting ${TYPING_STEPS_SETTING} lowered by the typing budget)`, steps);
+    return typicalAt(
+      log,
+      `while typing at the server's density (${steps === undefined ? "its own" : `${steps} steps per dof`}, setting ${TYPING_STEPS_SETTING} lowered by the typing budget)`,
+      steps,
+    );
   },
 };
 
@@ -153,7 +164,9 @@ const perPose: Section = {
     let ok = true;
     for (const s of specs()) {
       const built = analyse(s.text, { modelOnly: true });
-      const model: ArmModel | undefined = built.findings.some((f) => f.severity === "error") ? undefined : built.model;
+      const model: ArmModel | undefined = built.findings.some((f) => f.severity === "error")
+        ? undefined
+        : built.model;
       if (!model) {
         log(`  ${s.name}: no model (spec has errors)`);
         continue;
@@ -181,7 +194,10 @@ const perPose: Section = {
 
 const latency: Section = {
   name: "latency through the language server protocol",
-  run: (log) => (existsSync(join(findRoot(), "dist", "server.js")) ? runLatencyBench(log) : (log("  dist/server.js missing: run npm run build"), false)),
+  run: (log) =>
+    existsSync(join(findRoot(), "dist", "server.js"))
+      ? runLatencyBench(log)
+      : (log("  dist/server.js missing: run npm run build"), false),
 };
 
 export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency];

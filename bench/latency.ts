@@ -54,7 +54,12 @@ interface Timing {
   firstMs: number;
 }
 
-async function timeDocument(session: ServerSession, name: string, text: string, strokes: number): Promise<Timing> {
+async function timeDocument(
+  session: ServerSession,
+  name: string,
+  text: string,
+  strokes: number,
+): Promise<Timing> {
   const uri = `file:///bench/${name}`;
   let version = 1;
   const t0 = performance.now();
@@ -74,7 +79,14 @@ async function timeDocument(session: ServerSession, name: string, text: string, 
   }
   await session.close(uri);
   times.sort((a, b) => a - b);
-  return { name, p50: percentile(times, 50), p95: percentile(times, 95), max: times[times.length - 1] ?? NaN, lost, firstMs };
+  return {
+    name,
+    p50: percentile(times, 50),
+    p95: percentile(times, 95),
+    max: times[times.length - 1] ?? NaN,
+    lost,
+    firstMs,
+  };
 }
 
 /** Resident memory (kB) sampled every 100 edits across MEMORY_EDITS edits, after a warm-up. */
@@ -110,7 +122,9 @@ const fmt = (ms: number) => (Number.isFinite(ms) ? `${ms.toFixed(1)} ms` : "—"
  * when the server could not be run). */
 export async function runLatencyBench(log: (line: string) => void = console.log): Promise<boolean> {
   const root = findRoot();
-  const serverPath = process.env.COUNTERPOISE_SERVER ?? [join(__dirname, "server.js"), join(root, "dist", "server.js")].find((p) => existsSync(p));
+  const serverPath =
+    process.env.COUNTERPOISE_SERVER ??
+    [join(__dirname, "server.js"), join(root, "dist", "server.js")].find((p) => existsSync(p));
   if (!serverPath || !existsSync(serverPath)) {
     log("latency: dist/server.js is missing (run `npm run build`); section skipped");
     return false;
@@ -120,17 +134,28 @@ export async function runLatencyBench(log: (line: string) => void = console.log)
   try {
     await session.initialize();
     const samplesDir = join(root, "samples");
-    const samples = readdirSync(samplesDir).filter((f) => f.endsWith(".poise")).sort();
+    const samples = readdirSync(samplesDir)
+      .filter((f) => f.endsWith(".poise"))
+      .sort();
     log(`latency: keystroke -> publishDiagnostics over stdio (${KEYSTROKES} keystrokes each, no debounce)`);
     log("  document                       first      p50        p95        max        lost  target p95");
     let met = true;
     const row = (t: Timing, target: number) => {
       const ok = t.p95 <= target && t.lost === 0;
       met &&= ok;
-      log(`  ${t.name.padEnd(28)} ${fmt(t.firstMs).padEnd(10)} ${fmt(t.p50).padEnd(10)} ${fmt(t.p95).padEnd(10)} ${fmt(t.max).padEnd(10)} ${String(t.lost).padEnd(5)} ${target} ms ${ok ? "ok" : "MISSED"}`);
+      log(
+        `  ${t.name.padEnd(28)} ${fmt(t.firstMs).padEnd(10)} ${fmt(t.p50).padEnd(10)} ${fmt(t.p95).padEnd(10)} ${fmt(t.max).padEnd(10)} ${String(t.lost).padEnd(5)} ${target} ms ${ok ? "ok" : "MISSED"}`,
+      );
     };
-    for (const f of samples) row(await timeDocument(session, f, readFileSync(join(samplesDir, f), "utf8"), KEYSTROKES), LATENCY_TARGETS.typicalP95Ms);
-    row(await timeDocument(session, "generated-60-body.poise", chainSpec({ bodies: 60 }), LARGE_KEYSTROKES), LATENCY_TARGETS.largeP95Ms);
+    for (const f of samples)
+      row(
+        await timeDocument(session, f, readFileSync(join(samplesDir, f), "utf8"), KEYSTROKES),
+        LATENCY_TARGETS.typicalP95Ms,
+      );
+    row(
+      await timeDocument(session, "generated-60-body.poise", chainSpec({ bodies: 60 }), LARGE_KEYSTROKES),
+      LATENCY_TARGETS.largeP95Ms,
+    );
 
     const typical = samples.includes("camera-arm.poise") ? "camera-arm.poise" : samples[0];
     if (typical) {
@@ -146,11 +171,18 @@ export async function runLatencyBench(log: (line: string) => void = console.log)
         const lateGrowth = last - half;
         met &&= lateGrowth <= MEMORY_NOISE_KB;
         const mb = (kb: number) => (kb / 1024).toFixed(1);
-        log(`latency: server RSS every 100 of ${MEMORY_EDITS} edits of ${typical} (MB): ${mem.map(mb).join(" ")}`);
-        log(`latency: growth ${mb(last - mem[0]!)} MB in all, ${mb(lateGrowth)} MB over the second half: ${lateGrowth <= MEMORY_NOISE_KB ? "ok (no growth beyond noise)" : "GROWS"}`);
+        log(
+          `latency: server RSS every 100 of ${MEMORY_EDITS} edits of ${typical} (MB): ${mem.map(mb).join(" ")}`,
+        );
+        log(
+          `latency: growth ${mb(last - mem[0]!)} MB in all, ${mb(lateGrowth)} MB over the second half: ${lateGrowth <= MEMORY_NOISE_KB ? "ok (no growth beyond noise)" : "GROWS"}`,
+        );
       }
     }
-    if (session.errorLogs.length) log(`latency: the server logged ${session.errorLogs.length} fault(s); first: ${session.errorLogs[0]!.slice(0, 300)}`);
+    if (session.errorLogs.length)
+      log(
+        `latency: the server logged ${session.errorLogs.length} fault(s); first: ${session.errorLogs[0]!.slice(0, 300)}`,
+      );
     return met;
   } finally {
     await session.stop();

@@ -11,7 +11,9 @@ if (!existsSync(CHROMIUM)) {
   const hasApt = existsSync("/usr/bin/apt-get");
   if (isRoot && hasApt) {
     process.stderr.write("Installing Debian's chromium for the browser tests...\n");
-    execSync("apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium", { stdio: "inherit" });
+    execSync("apt-get update -qq && DEBIAN_FRONTEND=noninteractive apt-get install -y -qq chromium", {
+      stdio: "inherit",
+    });
   } else {
     process.stderr.write(
       "The browser tests need Chromium at /usr/bin/chromium. On Debian: sudo apt-get install chromium\n",

@@ -21,5 +21,9 @@ await build({
   logLevel: "warning",
 });
 
-const run = spawnSync(process.execPath, ["--enable-source-maps", outfile, "--root", root, ...process.argv.slice(2)], { stdio: "inherit" });
+const run = spawnSync(
+  process.execPath,
+  ["--enable-source-maps", outfile, "--root", root, ...process.argv.slice(2)],
+  { stdio: "inherit" },
+);
 process.exit(run.status ?? 1);

@@ -46,7 +46,14 @@ const coreFiles = [...CORE_DIRS.flatMap((d) => filesUnder(join(src, d))), join(s
 describe("layer rules", () => {
   it("the import scanner sees every form of import", () => {
     const sample = `import a from "fs";\nimport type { B } from 'vscode';\nimport "node:net";\nexport * from "vscode-jsonrpc";\nconst c = await import("node:child_process");\nconst d = require("vscode-languageserver/node");`;
-    expect(importsOf(sample)).toEqual(["fs", "vscode", "node:net", "vscode-jsonrpc", "node:child_process", "vscode-languageserver/node"]);
+    expect(importsOf(sample)).toEqual([
+      "fs",
+      "vscode",
+      "node:net",
+      "vscode-jsonrpc",
+      "node:child_process",
+      "vscode-languageserver/node",
+    ]);
   });
 
   it("finds the core's files", () => {
@@ -55,7 +62,9 @@ describe("layer rules", () => {
 
   for (const file of coreFiles) {
     it(`core file ${relative(root, file)} imports no editor, protocol or IO module`, () => {
-      const bad = importsOf(readFileSync(file, "utf8")).filter((spec) => FORBIDDEN_IN_CORE.some((re) => re.test(spec)));
+      const bad = importsOf(readFileSync(file, "utf8")).filter((spec) =>
+        FORBIDDEN_IN_CORE.some((re) => re.test(spec)),
+      );
       expect(bad).toEqual([]);
     });
   }
@@ -63,7 +72,11 @@ describe("layer rules", () => {
   it("only server/src/lsp imports protocol packages among the server's folders", () => {
     const offenders = filesUnder(src)
       .filter((f) => !relative(src, f).startsWith("lsp"))
-      .flatMap((f) => importsOf(readFileSync(f, "utf8")).filter((s) => PROTOCOL.some((re) => re.test(s)) && !isCliServerLaunch(f, s)).map((s) => `${relative(root, f)}: ${s}`));
+      .flatMap((f) =>
+        importsOf(readFileSync(f, "utf8"))
+          .filter((s) => PROTOCOL.some((re) => re.test(s)) && !isCliServerLaunch(f, s))
+          .map((s) => `${relative(root, f)}: ${s}`),
+      );
     expect(offenders).toEqual([]);
   });
 
@@ -82,7 +95,9 @@ describe("layer rules", () => {
     const declarations = filesUnder(join(src, "lsp")).filter((f) => f.endsWith("-protocol.ts"));
     expect(declarations.length).toBeGreaterThan(0);
     for (const f of declarations) {
-      const valueImports = readFileSync(f, "utf8").split("\n").filter((l) => /^\s*import\s/.test(l) && !/^\s*import\s+type\s/.test(l));
+      const valueImports = readFileSync(f, "utf8")
+        .split("\n")
+        .filter((l) => /^\s*import\s/.test(l) && !/^\s*import\s+type\s/.test(l));
       expect(valueImports, relative(root, f)).toEqual([]);
     }
   });

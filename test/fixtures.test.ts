@@ -34,7 +34,11 @@ function fixtureFiles(dir: string): string[] {
   return out;
 }
 
-function readMarkers(text: string): { expected: Expected[]; anywhere: { severity: string; code: string }[]; modelOnly: boolean } {
+function readMarkers(text: string): {
+  expected: Expected[];
+  anywhere: { severity: string; code: string }[];
+  modelOnly: boolean;
+} {
   const lines = text.split(/\r\n|\r|\n/);
   const expected: Expected[] = [];
   const anywhere: { severity: string; code: string }[] = [];
@@ -43,7 +47,14 @@ function readMarkers(text: string): { expected: Expected[]; anywhere: { severity
     const m = MARKER.exec(line);
     if (m) {
       const start = line.indexOf("^");
-      expected.push({ line: target, start, end: start + m[3]!.length, severity: m[4]!, code: m[5]!, text: line.trim() });
+      expected.push({
+        line: target,
+        start,
+        end: start + m[3]!.length,
+        severity: m[4]!,
+        code: m[5]!,
+        text: line.trim(),
+      });
       continue;
     }
     const w = WHOLE_FILE.exec(line);
@@ -72,9 +83,19 @@ describe("fixtures", () => {
         const s = index.position(f.span.start);
         const e = index.position(f.span.end);
         // A span running past its line is marked to the end of that line.
-        const endCol = e.line === s.line ? e.character : Math.max(s.character + 1, (text.split(/\r\n|\r|\n/)[s.line] ?? "").length);
+        const endCol =
+          e.line === s.line
+            ? e.character
+            : Math.max(s.character + 1, (text.split(/\r\n|\r|\n/)[s.line] ?? "").length);
         const width = Math.max(1, endCol - s.character);
-        const i = unmatched.findIndex((m) => m.line === s.line && m.start === s.character && m.end === s.character + width && m.code === f.code && m.severity === f.severity);
+        const i = unmatched.findIndex(
+          (m) =>
+            m.line === s.line &&
+            m.start === s.character &&
+            m.end === s.character + width &&
+            m.code === f.code &&
+            m.severity === f.severity,
+        );
         if (i >= 0) {
           unmatched.splice(i, 1);
           continue;

@@ -30,7 +30,9 @@ const files = [...poiseFiles(join(ROOT, "samples")), ...poiseFiles(join(__dirnam
 const samples = poiseFiles(join(ROOT, "samples"));
 
 function goldenName(path: string): string {
-  return relative(ROOT, path).replace(/[\\/]/g, "__").replace(/\.poise$/, ".json");
+  return relative(ROOT, path)
+    .replace(/[\\/]/g, "__")
+    .replace(/\.poise$/, ".json");
 }
 
 function recordOf(path: string): unknown {
@@ -63,25 +65,32 @@ function firstDifference(a: unknown, b: unknown, path = "$"): string | undefined
   if (Array.isArray(a) !== Array.isArray(b)) return `${path}: array vs object`;
   const keys = new Set([...Object.keys(a), ...Object.keys(b)]);
   for (const k of keys) {
-    const d = firstDifference((a as Record<string, unknown>)[k], (b as Record<string, unknown>)[k], `${path}.${k}`);
+    const d = firstDifference(
+      (a as Record<string, unknown>)[k],
+      (b as Record<string, unknown>)[k],
+      `${path}.${k}`,
+    );
     if (d) return d;
   }
   return undefined;
 }
 
 describe("golden record", () => {
-  test.each(files.map((f) => [relative(ROOT, f), f]))("%s: findings and readouts unchanged", (_name, path) => {
-    const actual = recordOf(path);
-    const goldenPath = join(GOLDEN, goldenName(path));
-    if (UPDATE || !existsSync(goldenPath)) {
-      mkdirSync(GOLDEN, { recursive: true });
-      writeFileSync(goldenPath, `${JSON.stringify(actual, null, 1)}\n`);
-      if (!UPDATE) throw new Error(`no golden record for ${goldenName(path)}: written now, run again`);
-      return;
-    }
-    const expected: unknown = JSON.parse(readFileSync(goldenPath, "utf8"));
-    expect(firstDifference(actual, expected)).toBeUndefined();
-  });
+  test.each(files.map((f) => [relative(ROOT, f), f]))(
+    "%s: findings and readouts unchanged",
+    (_name, path) => {
+      const actual = recordOf(path);
+      const goldenPath = join(GOLDEN, goldenName(path));
+      if (UPDATE || !existsSync(goldenPath)) {
+        mkdirSync(GOLDEN, { recursive: true });
+        writeFileSync(goldenPath, `${JSON.stringify(actual, null, 1)}\n`);
+        if (!UPDATE) throw new Error(`no golden record for ${goldenName(path)}: written now, run again`);
+        return;
+      }
+      const expected: unknown = JSON.parse(readFileSync(goldenPath, "utf8"));
+      expect(firstDifference(actual, expected)).toBeUndefined();
+    },
+  );
 
   test("each sample's report page is unchanged, in SI and US units", () => {
     const hashesPath = join(GOLDEN, "reports.json");

@@ -11,7 +11,9 @@ import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
 
 /** What the extension posts to the page, and what the page posts back. */
 export type ToPage = { type: "view"; model: ViewModel | null; uri: string };
-export type FromPage = { type: "ready" } | { type: "reveal"; uri: string; partId: string; range?: ViewModel["parts"][number]["range"] };
+export type FromPage =
+  | { type: "ready" }
+  | { type: "reveal"; uri: string; partId: string; range?: ViewModel["parts"][number]["range"] };
 
 interface HostApi {
   postMessage(message: FromPage): void;
@@ -28,7 +30,8 @@ let uri = "";
 const sliderDeg = new Map<string, number>();
 const saved = host.getState() as { uri?: string; sliders?: Record<string, number> } | undefined;
 if (saved?.uri) uri = saved.uri;
-for (const [id, deg] of Object.entries(saved?.sliders ?? {})) if (typeof deg === "number") sliderDeg.set(id, deg);
+for (const [id, deg] of Object.entries(saved?.sliders ?? {}))
+  if (typeof deg === "number") sliderDeg.set(id, deg);
 
 function saveState(): void {
   host.setState({ uri, sliders: Object.fromEntries(sliderDeg) });
@@ -39,7 +42,11 @@ const $ = (id: string) => document.getElementById(id)!;
 
 function currentPose(model: ViewModel): number {
   const target = model.dofs.map((d) => sliderDeg.get(d.id) ?? d.referenceDeg);
-  return nearestPose(model.poses.map((p) => p.anglesDeg), target, model.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]));
+  return nearestPose(
+    model.poses.map((p) => p.anglesDeg),
+    target,
+    model.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]),
+  );
 }
 
 function renderStatus(model: ViewModel): void {
@@ -49,8 +56,11 @@ function renderStatus(model: ViewModel): void {
   el.textContent = "";
   const span = document.createElement("span");
   span.className = errors ? "bad" : warnings ? "warn" : "";
-  span.textContent = errors || warnings ? `${errors} error(s), ${warnings} warning(s)` : "No errors or warnings";
-  const poses = model.thinned ? `${model.thinned.shown} of ${model.thinned.solved} poses` : `${model.poses.length} poses`;
+  span.textContent =
+    errors || warnings ? `${errors} error(s), ${warnings} warning(s)` : "No errors or warnings";
+  const poses = model.thinned
+    ? `${model.thinned.shown} of ${model.thinned.solved} poses`
+    : `${model.poses.length} poses`;
   el.append(span, document.createTextNode(model.poses.length ? ` — ${poses}` : ""));
   if (model.staleNote) {
     const stale = document.createElement("div");
@@ -115,7 +125,7 @@ function render(): void {
   renderPose(vm);
   $("safety").innerHTML = safetyTableHtml(vm);
   $("findings").innerHTML = findingsHtml(vm);
-  $("method").textContent = vm.poses.length ? vm.torqueMethod : vm.emptyReason ?? "";
+  $("method").textContent = vm.poses.length ? vm.torqueMethod : (vm.emptyReason ?? "");
 }
 
 function renderLimits(): void {
@@ -147,7 +157,8 @@ document.addEventListener("click", (event) => {
   // A diagnostic in the list reveals its own words; a part (drawing, table) its declaration.
   const item = target?.closest("[data-finding]");
   const finding = item ? vm?.findings[Number(item.getAttribute("data-finding"))] : undefined;
-  if (vm && finding) return host.postMessage({ type: "reveal", uri, partId: finding.partId ?? "", range: finding.range });
+  if (vm && finding)
+    return host.postMessage({ type: "reveal", uri, partId: finding.partId ?? "", range: finding.range });
   const el = target?.closest("[data-part]");
   const partId = el?.getAttribute("data-part");
   if (!vm || !partId) return;

@@ -3,8 +3,17 @@
 // is in the server.
 import * as path from "node:path";
 import * as vscode from "vscode";
-import { LanguageClient, TransportKind, type LanguageClientOptions, type ServerOptions } from "vscode-languageclient/node";
-import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type SpecSummary } from "../../server/src/lsp/custom-protocol";
+import {
+  LanguageClient,
+  TransportKind,
+  type LanguageClientOptions,
+  type ServerOptions,
+} from "vscode-languageclient/node";
+import {
+  SPEC_SUMMARY_NOTIFICATION,
+  REANALYSE_REQUEST,
+  type SpecSummary,
+} from "../../server/src/lsp/custom-protocol";
 import { createStatusBar } from "./status-bar";
 import { registerArmPreview } from "./preview";
 
@@ -36,7 +45,12 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
   context.subscriptions.push(output, status);
 
   const start = async () => {
-    client = new LanguageClient("counterpoise", "Counterpoise", serverOptions(context), clientOptions(output));
+    client = new LanguageClient(
+      "counterpoise",
+      "Counterpoise",
+      serverOptions(context),
+      clientOptions(output),
+    );
     client.onNotification(SPEC_SUMMARY_NOTIFICATION, (summary: SpecSummary) => status.update(summary));
     await client.start();
   };
@@ -50,7 +64,8 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
     vscode.commands.registerCommand("counterpoise.showServerLog", () => output.show(true)),
     vscode.commands.registerCommand("counterpoise.reanalyse", async () => {
       const doc = vscode.window.activeTextEditor?.document;
-      if (client && doc?.languageId === "counterpoise") await client.sendRequest(REANALYSE_REQUEST, { uri: doc.uri.toString() });
+      if (client && doc?.languageId === "counterpoise")
+        await client.sendRequest(REANALYSE_REQUEST, { uri: doc.uri.toString() });
     }),
     vscode.window.onDidChangeActiveTextEditor(() => status.follow(vscode.window.activeTextEditor?.document)),
     vscode.workspace.onDidCloseTextDocument((doc) => status.forget(doc.uri.toString())),

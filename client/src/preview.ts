@@ -3,7 +3,11 @@
 // revealing a part's declaration when it is clicked in the drawing.
 import * as vscode from "vscode";
 import type { LanguageClient } from "vscode-languageclient/node";
-import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "../../server/src/lsp/preview-protocol";
+import {
+  ARM_VIEW_REQUEST,
+  type ArmViewParams,
+  type ArmViewResult,
+} from "../../server/src/lsp/preview-protocol";
 import { makeNonce, previewHtml } from "./preview-html";
 
 export const SHOW_ARM_COMMAND = "counterpoise.showArm";
@@ -17,24 +21,43 @@ class ArmPanel {
   private timer: ReturnType<typeof setTimeout> | undefined;
   private ticket = 0;
 
-  constructor(private readonly context: vscode.ExtensionContext, private readonly client: LanguageClient) {}
+  constructor(
+    private readonly context: vscode.ExtensionContext,
+    private readonly client: LanguageClient,
+  ) {}
 
   show(uri: vscode.Uri): void {
     this.uri = uri;
     if (this.panel) {
       this.panel.reveal(vscode.ViewColumn.Beside, true);
     } else {
-      const roots = [vscode.Uri.joinPath(this.context.extensionUri, "dist"), vscode.Uri.joinPath(this.context.extensionUri, "client", "media")];
-      this.panel = vscode.window.createWebviewPanel(VIEW_TYPE, "Arm drawing", { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true }, { enableScripts: true, localResourceRoots: roots });
+      const roots = [
+        vscode.Uri.joinPath(this.context.extensionUri, "dist"),
+        vscode.Uri.joinPath(this.context.extensionUri, "client", "media"),
+      ];
+      this.panel = vscode.window.createWebviewPanel(
+        VIEW_TYPE,
+        "Arm drawing",
+        { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true },
+        { enableScripts: true, localResourceRoots: roots },
+      );
       const webview = this.panel.webview;
       webview.html = previewHtml({
         cspSource: webview.cspSource,
         nonce: makeNonce(),
-        scriptUri: webview.asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "dist", "preview-page.js")).toString(),
-        styleUri: webview.asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "client", "media", "preview.css")).toString(),
+        scriptUri: webview
+          .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "dist", "preview-page.js"))
+          .toString(),
+        styleUri: webview
+          .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "client", "media", "preview.css"))
+          .toString(),
       });
       webview.onDidReceiveMessage((msg) => this.onMessage(msg), undefined, this.context.subscriptions);
-      this.panel.onDidChangeViewState(() => this.panel?.visible && this.refresh(), undefined, this.context.subscriptions);
+      this.panel.onDidChangeViewState(
+        () => this.panel?.visible && this.refresh(),
+        undefined,
+        this.context.subscriptions,
+      );
       this.panel.onDidDispose(() => (this.panel = undefined), undefined, this.context.subscriptions);
     }
     this.panel.title = `Arm: ${uri.path.split("/").pop() ?? ""}`;
@@ -43,7 +66,12 @@ class ArmPanel {
 
   /** The active editor moved to another .poise file: follow it if the panel is open. */
   follow(editor: vscode.TextEditor | undefined): void {
-    if (this.panel && editor?.document.languageId === "counterpoise" && editor.document.uri.toString() !== this.uri?.toString()) this.show(editor.document.uri);
+    if (
+      this.panel &&
+      editor?.document.languageId === "counterpoise" &&
+      editor.document.uri.toString() !== this.uri?.toString()
+    )
+      this.show(editor.document.uri);
   }
 
   diagnosticsChanged(uris: readonly vscode.Uri[]): void {
@@ -68,13 +96,28 @@ class ArmPanel {
     void panel.webview.postMessage({ type: "view", model, uri: uri.toString() });
   }
 
-  private async onMessage(msg: { type?: string; partId?: string; range?: { start: { line: number; character: number }; end: { line: number; character: number } } }): Promise<void> {
+  private async onMessage(msg: {
+    type?: string;
+    partId?: string;
+    range?: { start: { line: number; character: number }; end: { line: number; character: number } };
+  }): Promise<void> {
     if (msg?.type === "ready") return void this.refresh();
     if (msg?.type !== "reveal" || !this.uri || !msg.range) return;
-    const range = new vscode.Range(msg.range.start.line, msg.range.start.character, msg.range.end.line, msg.range.end.character);
+    const range = new vscode.Range(
+      msg.range.start.line,
+      msg.range.start.character,
+      msg.range.end.line,
+      msg.range.end.character,
+    );
     const doc = await vscode.workspace.openTextDocument(this.uri);
-    const visible = vscode.window.visibleTextEditors.find((e) => e.document.uri.toString() === this.uri!.toString());
-    const editor = await vscode.window.showTextDocument(doc, { viewColumn: visible?.viewColumn ?? vscode.ViewColumn.One, selection: range, preserveFocus: false });
+    const visible = vscode.window.visibleTextEditors.find(
+      (e) => e.document.uri.toString() === this.uri!.toString(),
+    );
+    const editor = await vscode.window.showTextDocument(doc, {
+      viewColumn: visible?.viewColumn ?? vscode.ViewColumn.One,
+      selection: range,
+      preserveFocus: false,
+    });
     editor.revealRange(range, vscode.TextEditorRevealType.InCenterIfOutsideViewport);
   }
 }
@@ -90,7 +133,9 @@ export function registerArmPreview(context: vscode.ExtensionContext, client: Lan
     }),
     vscode.languages.onDidChangeDiagnostics((e) => panel.diagnosticsChanged(e.uris)),
     // Backup for an analysis whose diagnostics did not change: the request waits for the new text.
-    vscode.workspace.onDidChangeTextDocument((e) => e.contentChanges.length && panel.diagnosticsChanged([e.document.uri])),
+    vscode.workspace.onDidChangeTextDocument(
+      (e) => e.contentChanges.length && panel.diagnosticsChanged([e.document.uri]),
+    ),
     vscode.window.onDidChangeActiveTextEditor((e) => panel.follow(e)),
   );
 }

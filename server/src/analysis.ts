@@ -61,7 +61,11 @@ export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
   const deadline = options.budgetMs !== undefined ? performance.now() + options.budgetMs : Infinity;
   t = performance.now();
   const sweep = guard(
-    () => solveSweep(built.model!, { ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}), deadline }),
+    () =>
+      solveSweep(built.model!, {
+        ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}),
+        deadline,
+      }),
     findings,
     "solving the poses",
   );
@@ -86,7 +90,9 @@ function guard<T>(phase: () => T, findings: Finding[], what: string): T | undefi
     return phase();
   } catch (err) {
     const detail = err instanceof Error ? err.message : String(err);
-    findings.push(finding("analysis.internal", { start: 0, end: 0 }, `Internal fault while ${what}: ${detail}`));
+    findings.push(
+      finding("analysis.internal", { start: 0, end: 0 }, `Internal fault while ${what}: ${detail}`),
+    );
     return undefined;
   }
 }

@@ -82,7 +82,12 @@ describe("balance.unbalanced", () => {
   });
 
   it("reports on the payload when no spring acts", () => {
-    const model = new ArmBuilder().link("arm", 0.3, 0).joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-30), deg(30)] }).payload("lamp", "arm", { x: 0.3, y: 0 }, 0.5).sweep(7).build();
+    const model = new ArmBuilder()
+      .link("arm", 0.3, 0)
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-30), deg(30)] })
+      .payload("lamp", "arm", { x: 0.3, y: 0 }, 0.5)
+      .sweep(7)
+      .build();
     const ctx = check(model);
     const f = ctx.findings.filter((x) => x.code === "balance.unbalanced");
     expect(f.length).toBe(1);
@@ -112,7 +117,16 @@ describe("balance.drifts", () => {
     const friction = 1.0;
     const model = new ArmBuilder()
       .link("arm", len, 0)
-      .joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-80), deg(80)] }, friction)
+      .joint(
+        "shoulder",
+        "ground",
+        { x: 0, y: 0 },
+        "arm",
+        { x: 0, y: 0 },
+        0,
+        { range: [deg(-80), deg(80)] },
+        friction,
+      )
       .payload("lamp", "arm", { x: len, y: 0 }, mass)
       .balance(100)
       .sweep(33)
@@ -152,7 +166,19 @@ describe("readouts", () => {
 
   it("gives the stage's ideal rate 501.1 N/m for the worked parallelogram", () => {
     const model = new ArmBuilder("clamp", { anchor: { x: 0, y: 0.35 } })
-      .parallelogram("reach", "clamp", { x: 0, y: 0.3 }, { length: 0.35, spacing: 0.04, angle: deg(10), range: [deg(-30), deg(45)], barMass: 0.08, headMass: 0.05 })
+      .parallelogram(
+        "reach",
+        "clamp",
+        { x: 0, y: 0.3 },
+        {
+          length: 0.35,
+          spacing: 0.04,
+          angle: deg(10),
+          range: [deg(-30), deg(45)],
+          barMass: 0.08,
+          headMass: 0.05,
+        },
+      )
       .payload("camera", "reach.head", { x: 0.03, y: -0.06 }, 0.6)
       .extension("lift", ["clamp", { x: 0, y: 0.35 }], ["reach.lower", { x: 0.1, y: 0 }], 300, 0.02, 2)
       .balance(100)
@@ -173,6 +199,13 @@ describe("readouts", () => {
     // Statics of a pivoting link: m g l cos(theta) at the reference angle
     expect(g.value).toBeCloseTo(m * G0 * l * Math.cos(deg(20)), 9);
     const joint = ctx.readouts["shoulder"]!.figures.map((x) => x.label);
-    expect(joint).toEqual(expect.arrayContaining(["angle range", "holding torque, least", "holding torque, most", "largest reaction"]));
+    expect(joint).toEqual(
+      expect.arrayContaining([
+        "angle range",
+        "holding torque, least",
+        "holding torque, most",
+        "largest reaction",
+      ]),
+    );
   });
 });

@@ -25,7 +25,11 @@ function springBoom(a: number, b: number, freeLength: number) {
     initialTension: 1,
     origin: origin("between", "rate", "free_length"),
   };
-  const model = armModel({ bodies: [base, boom], joints: [joint("shoulder", "post", { x: 0, y: 0 }, "boom", 0, "range", { range: [-1, 1.55] })], springs: [spring] });
+  const model = armModel({
+    bodies: [base, boom],
+    joints: [joint("shoulder", "post", { x: 0, y: 0 }, "boom", 0, "range", { range: [-1, 1.55] })],
+    springs: [spring],
+  });
   model.base = { bodyId: "post", mass: 0, yaw: false, surface: -1 };
   return model;
 }
@@ -38,12 +42,19 @@ describe("spring toggle", () => {
     const b = 0.1;
     const t = 0.7;
     const L = Math.sqrt(a * a + b * b - 2 * a * b * Math.sin(t));
-    expect(leverArm({ x: 0, y: a }, { x: b * Math.cos(t), y: b * Math.sin(t) }, { x: 0, y: 0 })).toBeCloseTo((a * b * Math.cos(t)) / L, 12);
+    expect(leverArm({ x: 0, y: a }, { x: b * Math.cos(t), y: b * Math.sin(t) }, { x: 0, y: 0 })).toBeCloseTo(
+      (a * b * Math.cos(t)) / L,
+      12,
+    );
   });
 
   it("flags the pose where the line of action nearly passes through the pivot", () => {
     const model = springBoom(0.05, 0.1, 0.03);
-    const ctx = runFamily(checkGeometry, model, treeSweep(model, [{ shoulder: 0 }, { shoulder: 1.0 }, { shoulder: 1.55 }]));
+    const ctx = runFamily(
+      checkGeometry,
+      model,
+      treeSweep(model, [{ shoulder: 0 }, { shoulder: 1.0 }, { shoulder: 1.55 }]),
+    );
     const f = ctx.findings.find((x) => x.code === "geometry.spring-toggle")!;
     expect(f.span).toEqual(model.springs[0]!.origin.properties["between"]);
     const t = 1.55;
@@ -55,7 +66,11 @@ describe("spring toggle", () => {
 
   it("stays quiet while the lever arm is healthy", () => {
     const model = springBoom(0.05, 0.1, 0.03);
-    const ctx = runFamily(checkGeometry, model, treeSweep(model, [{ shoulder: -1 }, { shoulder: 0 }, { shoulder: 1.0 }]));
+    const ctx = runFamily(
+      checkGeometry,
+      model,
+      treeSweep(model, [{ shoulder: -1 }, { shoulder: 0 }, { shoulder: 1.0 }]),
+    );
     expect(ctx.findings.filter((x) => x.code === "geometry.spring-toggle")).toEqual([]);
   });
 });
@@ -63,7 +78,11 @@ describe("spring toggle", () => {
 describe("slack spring", () => {
   it("reports the poses where an extension spring is at or below its free length", () => {
     const model = springBoom(0.05, 0.1, 0.12);
-    const ctx = runFamily(checkGeometry, model, treeSweep(model, [{ shoulder: -0.5 }, { shoulder: 0 }, { shoulder: 0.5 }]));
+    const ctx = runFamily(
+      checkGeometry,
+      model,
+      treeSweep(model, [{ shoulder: -0.5 }, { shoulder: 0 }, { shoulder: 0.5 }]),
+    );
     const f = ctx.findings.find((x) => x.code === "geometry.spring-slack")!;
     // geometry: L(theta) = sqrt(a^2 + b^2 - 2 a b sin theta) = 131.5, 111.8, 85.7 mm against 120 mm
     expect(f.data!["poses"]).toBe(2);
@@ -77,7 +96,20 @@ describe("head tilt of a parallelogram with unequal bars", () => {
     const Lu = 0.322;
     const s = 0.024;
     const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.2 } })
-      .parallelogram("stage", "clamp", { x: 0, y: 0.2 }, { length: L, upperLength: Lu, spacing: s, angle: 0, range: [deg(-35), deg(35)], barMass: 0.01, headMass: 0 })
+      .parallelogram(
+        "stage",
+        "clamp",
+        { x: 0, y: 0.2 },
+        {
+          length: L,
+          upperLength: Lu,
+          spacing: s,
+          angle: 0,
+          range: [deg(-35), deg(35)],
+          barMass: 0.01,
+          headMass: 0,
+        },
+      )
       .sweep(15)
       .build();
     model.require.tilt.default = deg(0.5);
@@ -86,7 +118,8 @@ describe("head tilt of a parallelogram with unequal bars", () => {
     // Loop closure: lower far pivot at L (cos t, sin t), head turned by psi, its upper pivot at
     // that point + s (-sin psi, cos psi), which must lie Lu from the upper root (0, s).
     const headAngle = (t: number) => {
-      const gap = (psi: number) => Math.hypot(L * Math.cos(t) - s * Math.sin(psi), L * Math.sin(t) + s * Math.cos(psi) - s) - Lu;
+      const gap = (psi: number) =>
+        Math.hypot(L * Math.cos(t) - s * Math.sin(psi), L * Math.sin(t) + s * Math.cos(psi) - s) - Lu;
       let lo = -0.5;
       let hi = 0.5; // branch near psi = 0; gap(lo) > 0 > gap(hi)
       for (let k = 0; k < 200; k++) {
@@ -101,12 +134,19 @@ describe("head tilt of a parallelogram with unequal bars", () => {
     const f = ctx.findings.find((x) => x.code === "geometry.tilt")!;
     expect(f).toBeDefined();
     expect(f.data!["change"]).toBeCloseTo(change, 6);
-    expect(f.span).toEqual(model.parallelograms[0]!.origin.properties["upper_length"] ?? model.parallelograms[0]!.origin.name);
+    expect(f.span).toEqual(
+      model.parallelograms[0]!.origin.properties["upper_length"] ?? model.parallelograms[0]!.origin.name,
+    );
   });
 
   it("equal bars on the base keep the head level", () => {
     const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.2 } })
-      .parallelogram("stage", "clamp", { x: 0, y: 0.2 }, { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-30), deg(30)], barMass: 0.01, headMass: 0 })
+      .parallelogram(
+        "stage",
+        "clamp",
+        { x: 0, y: 0.2 },
+        { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-30), deg(30)], barMass: 0.01, headMass: 0 },
+      )
       .sweep(7)
       .build();
     const ctx = runFamily(checkGeometry, model, solveSweep(model));
@@ -117,7 +157,10 @@ describe("head tilt of a parallelogram with unequal bars", () => {
 describe("clearance", () => {
   it("segment distance", () => {
     // plane geometry: parallel segments 1 apart; crossing segments touch
-    expect(segmentDistance({ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 0, y: 1 }, { x: 1, y: 1 })).toBeCloseTo(1, 12);
+    expect(segmentDistance({ x: 0, y: 0 }, { x: 1, y: 0 }, { x: 0, y: 1 }, { x: 1, y: 1 })).toBeCloseTo(
+      1,
+      12,
+    );
     expect(segmentDistance({ x: 0, y: 0 }, { x: 1, y: 1 }, { x: 0, y: 1 }, { x: 1, y: 0 })).toBe(0);
   });
 
@@ -135,7 +178,9 @@ describe("clearance", () => {
     const end = 0.3 * Math.sin(0.5) - 0.1;
     expect(below.find((f) => f.message.startsWith("payload lamp"))!.data!["below"]).toBeCloseTo(end, 12);
     expect(below.find((f) => f.message.startsWith("link boom"))!.data!["below"]).toBeCloseTo(end + 0.01, 12);
-    expect(below.find((f) => f.message.startsWith("payload lamp"))!.message).toContain("43.83 mm below the bench surface at shoulder -28.65 deg");
+    expect(below.find((f) => f.message.startsWith("payload lamp"))!.message).toContain(
+      "43.83 mm below the bench surface at shoulder -28.65 deg",
+    );
   });
 
   it("a link that stays above the bench but closer than require clearance", () => {
@@ -159,11 +204,20 @@ describe("clearance", () => {
   it("two links that cross", () => {
     const base = baseBody("post", { a: { x: 0, y: 0.1 }, b: { x: 0.2, y: 0.1 } });
     const m = armModel({
-      bodies: [base, linkBody("one", 0.3, rect, "aluminium_6061_t6"), linkBody("two", 0.3, rect, "aluminium_6061_t6")],
-      joints: [joint("ja", "post", { x: 0, y: 0.1 }, "one", 0.3, "range"), joint("jb", "post", { x: 0.2, y: 0.1 }, "two", Math.PI - 0.3, "range")],
+      bodies: [
+        base,
+        linkBody("one", 0.3, rect, "aluminium_6061_t6"),
+        linkBody("two", 0.3, rect, "aluminium_6061_t6"),
+      ],
+      joints: [
+        joint("ja", "post", { x: 0, y: 0.1 }, "one", 0.3, "range"),
+        joint("jb", "post", { x: 0.2, y: 0.1 }, "two", Math.PI - 0.3, "range"),
+      ],
     });
     const ctx = runFamily(checkGeometry, m, treeSweep(m, [{}]));
-    expect(ctx.findings.some((x) => x.code === "geometry.clearance" && x.message.includes("runs into"))).toBe(true);
+    expect(ctx.findings.some((x) => x.code === "geometry.clearance" && x.message.includes("runs into"))).toBe(
+      true,
+    );
   });
 });
 
@@ -178,7 +232,12 @@ describe("toggle of a textbook balancer", () => {
     const model = new ArmBuilder("post", { pivot: { x: 0, y: 0.3 }, top: { x: 0, y: 0.3 + a } })
       .link("boom", l, 0)
       .joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", { x: 0, y: 0 }, 0, { range: [deg(0), deg(90)] })
-      .zeroLength("lift", ["post", { x: 0, y: 0.3 + a }], ["boom", { x: b, y: 0 }], (m * 9.80665 * l) / (a * b))
+      .zeroLength(
+        "lift",
+        ["post", { x: 0, y: 0.3 + a }],
+        ["boom", { x: b, y: 0 }],
+        (m * 9.80665 * l) / (a * b),
+      )
       .payload("lamp", "boom", { x: l, y: 0 }, m)
       .sweep(19)
       .build();
@@ -192,7 +251,12 @@ describe("head tilt from a root that turns, and shared pivots", () => {
     const model = new ArmBuilder("foot", { pivot: { x: 0, y: 0.1 } })
       .link("mast", 0.2, 0.1)
       .joint("swing", "foot", { x: 0, y: 0.1 }, "mast", { x: 0, y: 0 }, 0, { range: [deg(-10), deg(10)] })
-      .parallelogram("reach", "mast", { x: 0.2, y: 0 }, { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 })
+      .parallelogram(
+        "reach",
+        "mast",
+        { x: 0.2, y: 0 },
+        { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 },
+      )
       .sweep(5)
       .build();
     const ctx = runFamily(checkGeometry, model, solveSweep(model));
@@ -204,7 +268,12 @@ describe("head tilt from a root that turns, and shared pivots", () => {
 
   it("a link pinned at a parallelogram's far pivot does not clash with the bar ending there", () => {
     const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.3 } })
-      .parallelogram("stage", "clamp", { x: 0, y: 0.3 }, { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 })
+      .parallelogram(
+        "stage",
+        "clamp",
+        { x: 0, y: 0.3 },
+        { length: 0.3, spacing: 0.03, angle: 0, range: [deg(-20), deg(20)], barMass: 0.01, headMass: 0 },
+      )
       .link("lens_arm", 0.09, 0.005)
       .joint("tilt", "stage.head", { x: 0, y: 0 }, "lens_arm", { x: 0, y: 0 }, deg(-60), "fixed")
       .sweep(5)

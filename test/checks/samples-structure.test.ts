@@ -9,7 +9,13 @@ function codesOf(sample: string): string[] {
   return analyse(text).findings.map((f) => f.code);
 }
 
-const STRUCTURAL = ["geometry.spring-toggle", "geometry.tilt", "stiffness.tilt", "stiffness.low-frequency", "stiffness.deflection"];
+const STRUCTURAL = [
+  "geometry.spring-toggle",
+  "geometry.tilt",
+  "stiffness.tilt",
+  "stiffness.low-frequency",
+  "stiffness.deflection",
+];
 
 describe("samples", () => {
   it("the slender printed magnifier stage bounces and tilts", () => {

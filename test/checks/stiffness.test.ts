@@ -5,7 +5,16 @@ import { checkStiffness, representativePoses } from "../../server/src/checks/sti
 import { solveSweep } from "../../server/src/mechanics/sweep";
 import { sectionProperties } from "../../server/src/model/section";
 import { ArmBuilder, deg } from "../mechanics/arm-builder";
-import { armModel, baseBody, G, joint, linkBody, MATERIALS, payload, treeSweep } from "../structure/arm-fixture";
+import {
+  armModel,
+  baseBody,
+  G,
+  joint,
+  linkBody,
+  MATERIALS,
+  payload,
+  treeSweep,
+} from "../structure/arm-fixture";
 import { figure, runFamily } from "./check-context";
 
 const E = MATERIALS["aluminium_6061_t6"]!.modulus;
@@ -16,7 +25,11 @@ function cantilever(payloadKg: number, linkMass?: number) {
   const base = baseBody("post", { top: { x: 0, y: 0.3 } });
   const boom = linkBody("boom", L, tube, "aluminium_6061_t6");
   if (linkMass !== undefined) Object.assign(boom, { mass: linkMass, massGiven: true });
-  return armModel({ bodies: [base, boom], joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")], payloads: [payload("camera", "boom", { x: L, y: 0 }, payloadKg)] });
+  return armModel({
+    bodies: [base, boom],
+    joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")],
+    payloads: [payload("camera", "boom", { x: L, y: 0 }, payloadKg)],
+  });
 }
 
 describe("cantilevered link with the shoulder held", () => {
@@ -47,7 +60,9 @@ describe("cantilevered link with the shoulder held", () => {
     const rayleigh = Math.sqrt((3 * E * I) / L ** 3 / (0.5 + (33 / 140) * m)) / (2 * Math.PI);
     const f = figure(ctx, "camera", "lowest natural frequency of the arm")!;
     expect(Math.abs(f - rayleigh) / rayleigh).toBeLessThan(0.01);
-    expect(ctx.findings.find((x) => x.code === "stiffness.low-frequency")!.message).toContain("below the 30 Hz required");
+    expect(ctx.findings.find((x) => x.code === "stiffness.low-frequency")!.message).toContain(
+      "below the 30 Hz required",
+    );
   });
 });
 
@@ -63,11 +78,17 @@ describe("parallelogram stage with its root held", () => {
   const bars = { shape: "rect" as const, depth: 0.02, width: 0.005 };
   function stage(payloadKg: number, xp: number) {
     const model = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.3 } })
-      .parallelogram("reach", "clamp", { x: 0, y: 0.3 }, { length: Lb, spacing: s, angle: 0, range: [deg(-30), deg(30)], barMass: 0, headMass: 0 })
+      .parallelogram(
+        "reach",
+        "clamp",
+        { x: 0, y: 0.3 },
+        { length: Lb, spacing: s, angle: 0, range: [deg(-30), deg(30)], barMass: 0, headMass: 0 },
+      )
       .payload("tool", "reach.head", { x: xp, y: 0 }, payloadKg)
       .sweep(3)
       .build();
-    for (const b of model.bodies) if (b.kind === "bar") Object.assign(b, { section: bars, material: "aluminium_6061_t6" });
+    for (const b of model.bodies)
+      if (b.kind === "bar") Object.assign(b, { section: bars, material: "aluminium_6061_t6" });
     Object.assign(model.materials, MATERIALS);
     return model;
   }
@@ -107,6 +128,8 @@ describe("parallelogram stage with its root held", () => {
     const got = ctx.findings.find((x) => x.code === "stiffness.low-frequency")!;
     expect(got.data!["frequency"]).toBeLessThanOrEqual(f * 1.0001);
     expect(got.data!["frequency"]).toBeGreaterThan(f * 0.9);
-    expect(got.span).toEqual(model.parallelograms[0]!.origin.properties["bars"] ?? model.parallelograms[0]!.origin.name);
+    expect(got.span).toEqual(
+      model.parallelograms[0]!.origin.properties["bars"] ?? model.parallelograms[0]!.origin.name,
+    );
   });
 });

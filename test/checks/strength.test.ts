@@ -5,7 +5,17 @@ import { checkStrength } from "../../server/src/checks/strength";
 import { checkSpringStrength } from "../../server/src/checks/spring-strength";
 import { sectionProperties } from "../../server/src/model/section";
 import type { ExtensionSpring } from "../../server/src/model/types";
-import { armModel, baseBody, G, joint, linkBody, MATERIALS, origin, payload, treeSweep } from "../structure/arm-fixture";
+import {
+  armModel,
+  baseBody,
+  G,
+  joint,
+  linkBody,
+  MATERIALS,
+  origin,
+  payload,
+  treeSweep,
+} from "../structure/arm-fixture";
 import { figure, runFamily } from "./check-context";
 
 const tube = { shape: "tube" as const, outerDiameter: 0.02, wall: 0.002 };
@@ -15,7 +25,11 @@ function cantileverArm(payloadKg: number, pin?: { diameter: number; material: st
   const base = baseBody("post", { top: { x: 0, y: 0.3 } });
   const boom = linkBody("boom", L, tube, "aluminium_6061_t6");
   const j = joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "fixed", pin ? { pin } : {});
-  return armModel({ bodies: [base, boom], joints: [j], payloads: [payload("camera", "boom", { x: L, y: 0 }, payloadKg)] });
+  return armModel({
+    bodies: [base, boom],
+    joints: [j],
+    payloads: [payload("camera", "boom", { x: L, y: 0 }, payloadKg)],
+  });
 }
 
 describe("link bending", () => {
@@ -51,7 +65,10 @@ describe("link bending", () => {
     const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
     const stress = figure(ctx, "boom", "largest stress")!;
     // docs/checks.md rule: printed bodies that bend use layer_strength (22.5 MPa for this petg)
-    expect(ctx.readouts["boom"]!.worstSafety!.value).toBeCloseTo(MATERIALS["petg"]!.layerStrength! / stress, 9);
+    expect(ctx.readouts["boom"]!.worstSafety!.value).toBeCloseTo(
+      MATERIALS["petg"]!.layerStrength! / stress,
+      9,
+    );
   });
 });
 
@@ -88,7 +105,9 @@ describe("pins", () => {
     expect(figure(ctx, "shoulder", "pin shear stress")).toBeCloseTo(tau, 0);
     expect(figure(ctx, "shoulder", "pin safety factor")).toBeCloseTo((0.577 * 370e6) / tau, 6);
     const f = ctx.findings.find((x) => x.message.startsWith("pin of joint shoulder"))!;
-    expect(f.message).toMatch(/single-shear stress .* safety 1\.\d\d < 2\.00 required \(reaction 4\d\d(\.\d)? N at the reference pose\)/);
+    expect(f.message).toMatch(
+      /single-shear stress .* safety 1\.\d\d < 2\.00 required \(reaction 4\d\d(\.\d)? N at the reference pose\)/,
+    );
     expect(f.span).toEqual(model.joints[0]!.origin.properties["pin"]);
   });
 });
@@ -109,7 +128,11 @@ describe("springs", () => {
       coil: { wireDiameter: 0.0012, meanDiameter: 0.0096, bodyCoils: 20, material: "music_wire" },
       origin: origin("rate", "free_length", "max_length", "wire"),
     };
-    return armModel({ bodies: [base, boom], joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")], springs: [spring] });
+    return armModel({
+      bodies: [base, boom],
+      joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")],
+      springs: [spring],
+    });
   }
 
   it("past max_length and the coil body stress", () => {
@@ -127,12 +150,19 @@ describe("springs", () => {
     const tau = (KB * 8 * F * 0.0096) / (Math.PI * 0.0012 ** 3);
     expect(figure(ctx, "lift", "body stress")).toBeCloseTo(tau, 0);
     // Shigley eq. 10-14, Table 10-4 (music wire) and Table 10-7 (0.45 S_ut, from memory)
-    expect(figure(ctx, "lift", "body safety factor")).toBeCloseTo((0.45 * (2211 / 1.2 ** 0.145) * 1e6) / tau, 6);
+    expect(figure(ctx, "lift", "body safety factor")).toBeCloseTo(
+      (0.45 * (2211 / 1.2 ** 0.145) * 1e6) / tau,
+      6,
+    );
   });
 
   it("within max_length: no overstretch", () => {
     const model = springArm(0.5);
-    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.3 }, { shoulder: 0.3 }]));
+    const ctx = runFamily(
+      checkSpringStrength,
+      model,
+      treeSweep(model, [{ shoulder: -0.3 }, { shoulder: 0.3 }]),
+    );
     expect(ctx.findings.filter((f) => f.code === "strength.overstretch")).toEqual([]);
   });
 });
@@ -164,9 +194,24 @@ describe("spring limits of the other kinds", () => {
     const model = armModel({
       bodies: [base(), boom()],
       joints: [shoulder()],
-      springs: [{ id: "cord", kind: "elastic", ...hooks, freeLength: 0.15, area: 2e-5, material: "petg", maxStretch: 1.4, origin: origin("max_stretch") }],
+      springs: [
+        {
+          id: "cord",
+          kind: "elastic",
+          ...hooks,
+          freeLength: 0.15,
+          area: 2e-5,
+          material: "petg",
+          maxStretch: 1.4,
+          origin: origin("max_stretch"),
+        },
+      ],
     });
-    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.4 }, { shoulder: 0.4 }]));
+    const ctx = runFamily(
+      checkSpringStrength,
+      model,
+      treeSweep(model, [{ shoulder: -0.4 }, { shoulder: 0.4 }]),
+    );
     const f = ctx.findings.find((x) => x.code === "strength.overstretch")!;
     // stretch = L / L0 at the lowest pose (the longest)
     expect(f.data!["stretch"]).toBeCloseTo(length(-0.4) / 0.15, 12);
@@ -178,9 +223,24 @@ describe("spring limits of the other kinds", () => {
     const model = armModel({
       bodies: [base(), boom()],
       joints: [shoulder()],
-      springs: [{ id: "strut", kind: "gas", ...hooks, force: 50, progression: 1.3, stroke: 0.05, extendedLength: 0.24, origin: origin("stroke", "extended_length") }],
+      springs: [
+        {
+          id: "strut",
+          kind: "gas",
+          ...hooks,
+          force: 50,
+          progression: 1.3,
+          stroke: 0.05,
+          extendedLength: 0.24,
+          origin: origin("stroke", "extended_length"),
+        },
+      ],
     });
-    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.4 }]));
+    const ctx = runFamily(
+      checkSpringStrength,
+      model,
+      treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.4 }]),
+    );
     const f = ctx.findings.find((x) => x.message.includes("bottoms out"))!;
     // fully compressed length = extended length - stroke = 190 mm; the arm needs length(0.4)
     expect(length(0.4)).toBeLessThan(0.19);
@@ -192,9 +252,23 @@ describe("spring limits of the other kinds", () => {
     const model = armModel({
       bodies: [base(), boom()],
       joints: [shoulder()],
-      springs: [{ id: "coil", kind: "torsion", joint: "shoulder", rate: 0.5, preloadTorque: 0, maxAngle: 0.3, origin: origin("max_angle") }],
+      springs: [
+        {
+          id: "coil",
+          kind: "torsion",
+          joint: "shoulder",
+          rate: 0.5,
+          preloadTorque: 0,
+          maxAngle: 0.3,
+          origin: origin("max_angle"),
+        },
+      ],
     });
-    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.5 }]));
+    const ctx = runFamily(
+      checkSpringStrength,
+      model,
+      treeSweep(model, [{ shoulder: -0.2 }, { shoulder: 0.5 }]),
+    );
     const f = ctx.findings.find((x) => x.code === "strength.overstretch")!;
     // wind-up from free = the joint's turn from its reference (no preload): 0.5 rad
     expect(f.data!["windUp"]).toBeCloseTo(0.5, 12);
@@ -204,10 +278,16 @@ describe("spring limits of the other kinds", () => {
 describe("printed material without a layer strength", () => {
   it("uses half the in-plane strength (references.md: 0.5, Ahn et al. 2002)", () => {
     const model = cantileverArm(1);
-    model.materials = { ...model.materials, pla_plain: { ...MATERIALS["petg"]!, id: "pla_plain", layerStrength: undefined, strength: 50e6 } };
+    model.materials = {
+      ...model.materials,
+      pla_plain: { ...MATERIALS["petg"]!, id: "pla_plain", layerStrength: undefined, strength: 50e6 },
+    };
     model.bodies[1] = linkBody("boom", L, { shape: "rect", depth: 0.008, width: 0.004 }, "petg");
     model.bodies[1]!.material = "pla_plain";
     const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
-    expect(ctx.readouts["boom"]!.worstSafety!.value).toBeCloseTo((0.5 * 50e6) / figure(ctx, "boom", "largest stress")!, 9);
+    expect(ctx.readouts["boom"]!.worstSafety!.value).toBeCloseTo(
+      (0.5 * 50e6) / figure(ctx, "boom", "largest stress")!,
+      9,
+    );
   });
 });

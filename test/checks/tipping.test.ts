@@ -9,7 +9,11 @@ import { figure, runFamily } from "./check-context";
  * with its centre at x = 0.30 m; a payload at x = 0.60 m. */
 function worked(payloadKg: number, yaw = false, depth = 0.3) {
   const base = baseBody("stand", { top: { x: 0, y: 0.2 } });
-  const arm = { ...linkBody("arm", 0.6, { shape: "rod", diameter: 0.01 }, "aluminium_6061_t6"), mass: 1.5, massGiven: true };
+  const arm = {
+    ...linkBody("arm", 0.6, { shape: "rod", diameter: 0.01 }, "aluminium_6061_t6"),
+    mass: 1.5,
+    massGiven: true,
+  };
   const model = armModel({
     bodies: [base, arm],
     joints: [joint("shoulder", "stand", { x: 0, y: 0.2 }, "arm", 0, "fixed")],
@@ -48,7 +52,10 @@ describe("tipping", () => {
     const model = worked(1, true, 0.2);
     model.base!.footprint = { width: 0.3, depth: 0.2 };
     const ctx = runFamily(checkTipping, model, treeSweep(model, [{}]));
-    expect(figure(ctx, "stand", "tipping safety factor")).toBeCloseTo((6 * G * 0.1) / (1.5 * G * 0.2 + 1 * G * 0.5), 12);
+    expect(figure(ctx, "stand", "tipping safety factor")).toBeCloseTo(
+      (6 * G * 0.1) / (1.5 * G * 0.2 + 1 * G * 0.5),
+      12,
+    );
   });
 
   it("bearing loads: vertical thrust and overturning moment at the base", () => {
@@ -56,6 +63,9 @@ describe("tipping", () => {
     const ctx = runFamily(checkTipping, model, treeSweep(model, [{}]));
     // statics: thrust = total weight of arm and payload; moment about the base's centre
     expect(figure(ctx, "stand", "vertical thrust on the base")).toBeCloseTo(2.5 * G, 9);
-    expect(figure(ctx, "stand", "overturning moment at the base")).toBeCloseTo(1.5 * G * 0.3 + 1 * G * 0.6, 9);
+    expect(figure(ctx, "stand", "overturning moment at the base")).toBeCloseTo(
+      1.5 * G * 0.3 + 1 * G * 0.6,
+      9,
+    );
   });
 });

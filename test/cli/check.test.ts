@@ -5,7 +5,9 @@ import { readdirSync } from "node:fs";
 import { ensureBuilt, poise, specFile } from "./run-cli";
 
 const LINE = /^(.+):(\d+):(\d+): (error|warning|information|hint) ([a-z]+\.[a-z-]+): (.+)$/;
-const samples = readdirSync("samples").filter((f) => f.endsWith(".poise")).map((f) => `samples/${f}`);
+const samples = readdirSync("samples")
+  .filter((f) => f.endsWith(".poise"))
+  .map((f) => `samples/${f}`);
 
 beforeAll(() => ensureBuilt());
 
@@ -23,9 +25,14 @@ describe("poise check", () => {
   it("exits 1 on the sample full of mistakes, with findings on its lines", () => {
     const r = poise("check", "samples/mistakes.poise");
     expect(r.status).toBe(1);
-    const codes = r.stdout.split("\n").filter((l) => LINE.test(l)).map((l) => LINE.exec(l)![5]);
+    const codes = r.stdout
+      .split("\n")
+      .filter((l) => LINE.test(l))
+      .map((l) => LINE.exec(l)![5]);
     // The sample's own comments name these mistakes.
-    expect(codes).toEqual(expect.arrayContaining(["value.impossible", "unit.missing", "unit.wrong-dimension", "name.duplicate"]));
+    expect(codes).toEqual(
+      expect.arrayContaining(["value.impossible", "unit.missing", "unit.wrong-dimension", "name.duplicate"]),
+    );
   });
 
   it("counts lines and columns from 1", () => {
@@ -43,11 +50,22 @@ describe("poise check", () => {
     expect(Array.isArray(parsed)).toBe(true);
     expect(parsed.length).toBeGreaterThan(0);
     for (const d of parsed) {
-      expect(Object.keys(d).sort()).toEqual(["code", "column", "endColumn", "endLine", "file", "line", "message", "severity"]);
+      expect(Object.keys(d).sort()).toEqual([
+        "code",
+        "column",
+        "endColumn",
+        "endLine",
+        "file",
+        "line",
+        "message",
+        "severity",
+      ]);
       expect(["error", "warning", "information", "hint"]).toContain(d.severity);
       expect(d.line).toBeGreaterThanOrEqual(1);
       expect(d.column).toBeGreaterThanOrEqual(1);
-      expect((d.endLine as number) * 1e6 + (d.endColumn as number)).toBeGreaterThanOrEqual((d.line as number) * 1e6 + (d.column as number));
+      expect((d.endLine as number) * 1e6 + (d.endColumn as number)).toBeGreaterThanOrEqual(
+        (d.line as number) * 1e6 + (d.column as number),
+      );
     }
     expect(parsed.some((d) => d.file === file)).toBe(true);
     expect(r.status).toBe(1);
@@ -63,7 +81,7 @@ describe("poise check", () => {
   });
 
   it("never throws on text that is not a spec", () => {
-    const file = specFile("junk.poise", "\u0000\u00ff}}}{{{(((\"\n\t#\n🦾 arm arm");
+    const file = specFile("junk.poise", '\u0000\u00ff}}}{{{((("\n\t#\n🦾 arm arm');
     const r = poise("check", file);
     expect(r.stderr).not.toContain("internal fault");
     expect([0, 1]).toContain(r.status);

@@ -19,7 +19,10 @@ describe("poise lsp", () => {
     // The sample's first mistake: `length -300 mm`, an impossible value on line 10.
     const impossible = published.diagnostics.find((d) => d.code === "value.impossible");
     expect(impossible?.range.start.line).toBe(positionOf(text, "-300 mm").line);
-    const hover = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri }, position: positionOf(text, "payload lamp", 9) });
+    const hover = await session.connection.sendRequest(HoverRequest.type, {
+      textDocument: { uri },
+      position: positionOf(text, "payload lamp", 9),
+    });
     expect(JSON.stringify(hover)).toContain("lamp");
     expect(await session.stop()).toBe(0);
   });

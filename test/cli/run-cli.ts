@@ -14,7 +14,11 @@ export interface CliResult {
 }
 
 export function poise(...args: string[]): CliResult {
-  const r = spawnSync(process.execPath, [join(ROOT, "dist", "cli.js"), ...args], { cwd: ROOT, encoding: "utf8", timeout: 60_000 });
+  const r = spawnSync(process.execPath, [join(ROOT, "dist", "cli.js"), ...args], {
+    cwd: ROOT,
+    encoding: "utf8",
+    timeout: 60_000,
+  });
   return { status: r.status, stdout: r.stdout, stderr: r.stderr };
 }
 

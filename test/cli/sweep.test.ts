@@ -38,7 +38,9 @@ describe("poise sweep", () => {
     const last = table.poses[table.poses.length - 1]!;
     expect(first.angles.reach).toBeCloseTo(low!, 6);
     expect(last.angles.reach).toBeCloseTo(high!, 6);
-    expect(Object.keys(first.bodies)).toEqual(expect.arrayContaining(["bench_clamp", "reach.lower", "reach.upper", "reach.head"]));
+    expect(Object.keys(first.bodies)).toEqual(
+      expect.arrayContaining(["bench_clamp", "reach.lower", "reach.upper", "reach.head"]),
+    );
     // The lower bar starts at the base's `point pivot (x, y)`, in mm; its angle is the stage's
     // angle, in degrees.
     const pivot = pointOf(text, /point pivot \(([-\d.]+) mm, ([-\d.]+) mm\)/);
@@ -65,7 +67,10 @@ describe("poise sweep", () => {
     const local = pointOf(text, /reach\.lower\(([-\d.]+) mm, ([-\d.]+) mm\)/);
     for (const p of table.poses) {
       const a = (p.angles.reach! * Math.PI) / 180;
-      const hook = { x: pivot.x + local.x * Math.cos(a) - local.y * Math.sin(a), y: pivot.y + local.x * Math.sin(a) + local.y * Math.cos(a) };
+      const hook = {
+        x: pivot.x + local.x * Math.cos(a) - local.y * Math.sin(a),
+        y: pivot.y + local.x * Math.sin(a) + local.y * Math.cos(a),
+      };
       expect(p.springs.lift!.length).toBeCloseTo(Math.hypot(hook.x - anchor.x, hook.y - anchor.y), 2);
     }
   });
@@ -74,7 +79,19 @@ describe("poise sweep", () => {
     const json = JSON.parse(poise("sweep", "samples/camera-arm.poise").stdout) as SweepJson;
     const csv = poise("sweep", "samples/camera-arm.poise", "--csv").stdout.trimEnd().split("\n");
     const header = csv[0]!.split(",");
-    expect(header).toEqual(expect.arrayContaining(["angles/reach", "bodies/reach.lower/x", "bodies/reach.head/angle", "holding_torque/reach", "hand_force/camera", "reactions/reach/x", "reactions/reach/y", "springs/lift/length", "springs/lift/force"]));
+    expect(header).toEqual(
+      expect.arrayContaining([
+        "angles/reach",
+        "bodies/reach.lower/x",
+        "bodies/reach.head/angle",
+        "holding_torque/reach",
+        "hand_force/camera",
+        "reactions/reach/x",
+        "reactions/reach/y",
+        "springs/lift/length",
+        "springs/lift/force",
+      ]),
+    );
     expect(csv).toHaveLength(json.poses.length + 1);
     const row = csv[1]!.split(",");
     expect(Number(row[header.indexOf("angles/reach")])).toBe(json.poses[0]!.angles.reach);
@@ -84,7 +101,9 @@ describe("poise sweep", () => {
   it("names a two-stage arm's dofs after its parallelograms", () => {
     const table = JSON.parse(poise("sweep", "samples/engraver-arm.poise").stdout) as SweepJson;
     expect(table.dofs).toEqual(expect.arrayContaining(["inner", "outer"]));
-    expect(Object.keys(table.poses[0]!.bodies)).toEqual(expect.arrayContaining(["inner.lower", "outer.head"]));
+    expect(Object.keys(table.poses[0]!.bodies)).toEqual(
+      expect.arrayContaining(["inner.lower", "outer.head"]),
+    );
   });
 
   it("exits 2 on bad arguments and unreadable files", () => {

@@ -12,8 +12,18 @@ export interface ChainOptions {
 }
 
 export function chainSpec({ bodies, ranges = true, steps = 13 }: ChainOptions): string {
-  const out: string[] = [`# ${bodies}-body chain generated for the latency benchmark`, 'arm "Generated chain" {'];
-  out.push("  base stand {", "    mass 40 kg", "    footprint 600 mm x 600 mm", "    point pivot (0 mm, 300 mm)", "    point anchor (0 mm, 360 mm)", "  }");
+  const out: string[] = [
+    `# ${bodies}-body chain generated for the latency benchmark`,
+    'arm "Generated chain" {',
+  ];
+  out.push(
+    "  base stand {",
+    "    mass 40 kg",
+    "    footprint 600 mm x 600 mm",
+    "    point pivot (0 mm, 300 mm)",
+    "    point anchor (0 mm, 360 mm)",
+    "  }",
+  );
   let parent = "stand.pivot";
   let anchor = "stand.anchor";
   let count = 0;

@@ -9,7 +9,12 @@ import { checkText, fuzzStats, signature, type Violation } from "./properties";
 export type FamilyName = "valid" | "nearly-valid" | "byte-mutant" | "junk";
 
 /** Share of the runs each family gets: the near-valid texts reach deepest into the checks. */
-export const FAMILY_WEIGHTS: Record<FamilyName, number> = { valid: 0.3, "nearly-valid": 0.35, "byte-mutant": 0.25, junk: 0.1 };
+export const FAMILY_WEIGHTS: Record<FamilyName, number> = {
+  valid: 0.3,
+  "nearly-valid": 0.35,
+  "byte-mutant": 0.25,
+  junk: 0.1,
+};
 
 export function familyArbitrary(name: FamilyName, samples: readonly string[]): fc.Arbitrary<string> {
   switch (name) {
@@ -72,7 +77,14 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
   const families = opts.families ?? (Object.keys(FAMILY_WEIGHTS) as FamilyName[]);
   const totalWeight = families.reduce((s, f) => s + FAMILY_WEIGHTS[f], 0);
   const known = opts.known ?? new Set<string>();
-  const result: CampaignResult = { cases: 0, repeats: 0, failures: [], byFamily: {}, solvedByFamily: {}, interrupted: false };
+  const result: CampaignResult = {
+    cases: 0,
+    repeats: 0,
+    failures: [],
+    byFamily: {},
+    solvedByFamily: {},
+    interrupted: false,
+  };
   const started = performance.now();
   let seed = opts.seed;
   let weightSoFar = 0;
@@ -81,7 +93,8 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
     // Each family gets its share of the time budget (plus whatever earlier ones left unused), so a
     // slow family cannot starve the rest.
     weightSoFar += FAMILY_WEIGHTS[family];
-    const familyDeadline = opts.timeLimitMs !== undefined ? started + (opts.timeLimitMs * weightSoFar) / totalWeight : Infinity;
+    const familyDeadline =
+      opts.timeLimitMs !== undefined ? started + (opts.timeLimitMs * weightSoFar) / totalWeight : Infinity;
     const overTime = () => performance.now() > familyDeadline;
     let remaining = Math.max(1, Math.round((opts.runs * FAMILY_WEIGHTS[family]) / totalWeight));
     const arb = familyArbitrary(family, opts.samples);
@@ -95,7 +108,8 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
       opts.onCaseStart?.(text, family);
       const solvedBefore = fuzzStats.solved;
       const violations = checkText(text);
-      if (!shrinking && fuzzStats.solved > solvedBefore) result.solvedByFamily[family] = (result.solvedByFamily[family] ?? 0) + 1;
+      if (!shrinking && fuzzStats.solved > solvedBefore)
+        result.solvedByFamily[family] = (result.solvedByFamily[family] ?? 0) + 1;
       // A failure already recorded passes, so one bug does not stop the campaign or fill the
       // folder with copies; a new one throws and is shrunk.
       const fresh = violations.find((v) => !known.has(signature(v)));
@@ -112,14 +126,19 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
       const details = fc.check(property, {
         seed,
         numRuns: remaining,
-        ...(opts.timeLimitMs !== undefined ? { interruptAfterTimeLimit: Math.max(1, familyDeadline - performance.now()) } : {}),
+        ...(opts.timeLimitMs !== undefined
+          ? { interruptAfterTimeLimit: Math.max(1, familyDeadline - performance.now()) }
+          : {}),
         markInterruptAsFailure: false,
       });
       remaining -= Math.max(1, result.cases - casesBefore);
       if (details.interrupted) result.interrupted = true;
       if (details.failed && details.counterexample) {
         const err = details.errorInstance;
-        const violation = err instanceof NewViolation ? err.violation : { property: "no-throw" as const, message: String(err) };
+        const violation =
+          err instanceof NewViolation
+            ? err.violation
+            : { property: "no-throw" as const, message: String(err) };
         const record: FailureRecord = {
           family,
           property: violation.property,
@@ -136,6 +155,7 @@ export function runCampaign(opts: CampaignOptions): CampaignResult {
       seed = (seed * 1103515245 + 12345) % 2147483647;
     }
   }
-  if (opts.timeLimitMs !== undefined && performance.now() - started > opts.timeLimitMs) result.interrupted = true;
+  if (opts.timeLimitMs !== undefined && performance.now() - started > opts.timeLimitMs)
+    result.interrupted = true;
   return result;
 }

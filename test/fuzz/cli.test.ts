@@ -23,7 +23,10 @@ const files: { path: string; text: string }[] = [];
 
 beforeAll(() => {
   if (!existsSync(cli)) {
-    const r = spawnSync(process.execPath, [join(root, "scripts", "build.mjs")], { cwd: root, encoding: "utf8" });
+    const r = spawnSync(process.execPath, [join(root, "scripts", "build.mjs")], {
+      cwd: root,
+      encoding: "utf8",
+    });
     if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
   }
   dir = mkdtempSync(join(tmpdir(), "poise-cli-fuzz-"));
@@ -43,9 +46,22 @@ afterAll(() => {
 
 describe("poise on fuzzed files", () => {
   it("check --json: exit 0 or 1, one JSON array, every line and column inside its file", () => {
-    const run = spawnSync(process.execPath, [cli, "check", "--json", ...files.map((f) => f.path)], { encoding: "utf8", timeout: 120_000, maxBuffer: 1 << 28 });
-    expect(run.status === 0 || run.status === 1, `exit ${run.status}: ${run.stderr.slice(0, 2000)}`).toBe(true);
-    const entries = JSON.parse(run.stdout) as { file: string; line: number; column: number; endLine: number; endColumn: number; code: string }[];
+    const run = spawnSync(process.execPath, [cli, "check", "--json", ...files.map((f) => f.path)], {
+      encoding: "utf8",
+      timeout: 120_000,
+      maxBuffer: 1 << 28,
+    });
+    expect(run.status === 0 || run.status === 1, `exit ${run.status}: ${run.stderr.slice(0, 2000)}`).toBe(
+      true,
+    );
+    const entries = JSON.parse(run.stdout) as {
+      file: string;
+      line: number;
+      column: number;
+      endLine: number;
+      endColumn: number;
+      code: string;
+    }[];
     expect(Array.isArray(entries)).toBe(true);
     const byPath = new Map(files.map((f) => [f.path, protocolLines(f.text)]));
     const outside: string[] = [];
@@ -56,8 +72,15 @@ describe("poise on fuzzed files", () => {
         continue;
       }
       // 1-based lines and columns (cli.md); a column may sit one past the line's last character.
-      const ok = (line: number, col: number) => Number.isInteger(line) && Number.isInteger(col) && line >= 1 && line <= lines.length && col >= 1 && col <= lines[line - 1]!.length + 1;
-      if (!ok(e.line, e.column) || !ok(e.endLine, e.endColumn)) outside.push(`${e.file} ${e.code} at ${e.line}:${e.column}-${e.endLine}:${e.endColumn}`);
+      const ok = (line: number, col: number) =>
+        Number.isInteger(line) &&
+        Number.isInteger(col) &&
+        line >= 1 &&
+        line <= lines.length &&
+        col >= 1 &&
+        col <= lines[line - 1]!.length + 1;
+      if (!ok(e.line, e.column) || !ok(e.endLine, e.endColumn))
+        outside.push(`${e.file} ${e.code} at ${e.line}:${e.column}-${e.endLine}:${e.endColumn}`);
     }
     expect(outside).toEqual([]);
     // The valid specs produce findings too (warnings at least), so the array is not trivially empty.
@@ -66,8 +89,15 @@ describe("poise on fuzzed files", () => {
 
   it("sweep --json on each valid file: exit 0 or 1 and a JSON pose table with no NaN", () => {
     for (const f of files.filter((x) => x.path.includes("/valid-")).slice(0, 6)) {
-      const run = spawnSync(process.execPath, [cli, "sweep", "--json", f.path], { encoding: "utf8", timeout: 60_000, maxBuffer: 1 << 28 });
-      expect(run.status === 0 || run.status === 1, `${f.path}: exit ${run.status}: ${run.stderr.slice(0, 1000)}`).toBe(true);
+      const run = spawnSync(process.execPath, [cli, "sweep", "--json", f.path], {
+        encoding: "utf8",
+        timeout: 60_000,
+        maxBuffer: 1 << 28,
+      });
+      expect(
+        run.status === 0 || run.status === 1,
+        `${f.path}: exit ${run.status}: ${run.stderr.slice(0, 1000)}`,
+      ).toBe(true);
       // The table comes even when the spec has errors (exit 1), as long as it could be solved.
       if (run.stdout.trim()) {
         expect(run.stdout, f.path).not.toMatch(/\bNaN\b|Infinity/);

@@ -10,13 +10,20 @@ import { analyse } from "../../server/src/analysis";
 import { checkAnalysis, checkText } from "./properties";
 
 const dir = join(__dirname, "..", "fixtures", "edge");
-const ready = readdirSync(dir).filter((f) => f.endsWith(".poise")).sort();
-const pending = (existsSync(join(dir, "pending")) ? readdirSync(join(dir, "pending")) : []).filter((f) => f.endsWith(".poise.pending")).sort();
+const ready = readdirSync(dir)
+  .filter((f) => f.endsWith(".poise"))
+  .sort();
+const pending = (existsSync(join(dir, "pending")) ? readdirSync(join(dir, "pending")) : [])
+  .filter((f) => f.endsWith(".poise.pending"))
+  .sort();
 
 describe("numeric edge cases", () => {
   it("there are edge cases, and each marks at least one finding", () => {
     expect(ready.length + pending.length).toBeGreaterThanOrEqual(10);
-    for (const f of ready) expect(readFileSync(join(dir, f), "utf8"), f).toMatch(/^\s*#\s*\^+\s+(error|warning|information|hint)\s/m);
+    for (const f of ready)
+      expect(readFileSync(join(dir, f), "utf8"), f).toMatch(
+        /^\s*#\s*\^+\s+(error|warning|information|hint)\s/m,
+      );
   });
   for (const f of ready) {
     it(`${f}: robust at 3 steps and at the spec's own density`, () => {

@@ -16,17 +16,42 @@ const MIN_SOLVED_SHARE = 0.25;
 
 describe("fuzzing the core", () => {
   it(`holds the robustness properties on ${CI_RUNS} texts`, () => {
-    const run = spawnSync(process.execPath, [join(root, "scripts", "fuzz.mjs"), "--runs", String(CI_RUNS), "--seed", String(CI_SEED), "--time-limit-ms", String(CI_TIME_LIMIT_MS), "--no-write", "--json"], { cwd: root, encoding: "utf8", timeout: 120_000 });
+    const run = spawnSync(
+      process.execPath,
+      [
+        join(root, "scripts", "fuzz.mjs"),
+        "--runs",
+        String(CI_RUNS),
+        "--seed",
+        String(CI_SEED),
+        "--time-limit-ms",
+        String(CI_TIME_LIMIT_MS),
+        "--no-write",
+        "--json",
+      ],
+      { cwd: root, encoding: "utf8", timeout: 120_000 },
+    );
     const line = run.stdout.trim().split("\n").pop() ?? "";
     expect(line, `fuzzer output:\n${run.stderr}`).toMatch(/^\{/);
-    const summary = JSON.parse(line) as { cases: number; byFamily: Record<string, number>; solvedByFamily: Record<string, number>; failures: number; details: { property: string; family: string; message: string; text: string }[] };
-    const report = summary.details.map((d) => `${d.property} (${d.family}): ${d.message}\ninput: ${JSON.stringify(d.text)}`).join("\n\n");
+    const summary = JSON.parse(line) as {
+      cases: number;
+      byFamily: Record<string, number>;
+      solvedByFamily: Record<string, number>;
+      failures: number;
+      details: { property: string; family: string; message: string; text: string }[];
+    };
+    const report = summary.details
+      .map((d) => `${d.property} (${d.family}): ${d.message}\ninput: ${JSON.stringify(d.text)}`)
+      .join("\n\n");
     expect(summary.failures, report).toBe(0);
     // The run must really have exercised the core, not stopped early.
     expect(summary.cases).toBeGreaterThan(Math.min(CI_RUNS, 500));
     // ... and that the generated specs still get past the model builder to the solver and the
     // checks: a generator the builder rejects wholesale would fuzz the parser alone.
     const valid = summary.byFamily["valid"] ?? 0;
-    expect((summary.solvedByFamily["valid"] ?? 0) / Math.max(1, valid), `valid specs solved: ${summary.solvedByFamily["valid"] ?? 0} of ${valid}`).toBeGreaterThan(MIN_SOLVED_SHARE);
+    expect(
+      (summary.solvedByFamily["valid"] ?? 0) / Math.max(1, valid),
+      `valid specs solved: ${summary.solvedByFamily["valid"] ?? 0} of ${valid}`,
+    ).toBeGreaterThan(MIN_SOLVED_SHARE);
   }, 150_000);
 });

@@ -23,7 +23,10 @@ interface WorkerInput {
   shared: SharedArrayBuffer;
 }
 
-type WorkerMessage = { type: "failure"; failure: FailureRecord } | { type: "progress"; cases: number } | { type: "done"; result: CampaignResult };
+type WorkerMessage =
+  | { type: "failure"; failure: FailureRecord }
+  | { type: "progress"; cases: number }
+  | { type: "done"; result: CampaignResult };
 
 interface Args {
   runs: number;
@@ -87,7 +90,12 @@ function writeFailure(out: string, f: FailureRecord & { hang?: boolean }): strin
   mkdirSync(out, { recursive: true });
   const hash = createHash("sha1").update(f.text).digest("hex").slice(0, 10);
   const file = join(out, `${f.family}-${f.property}-${hash}.json`);
-  const record = { ...f, found: new Date().toISOString(), open: true, replay: "test/fuzz/replay.test.ts checks the properties on `text`" };
+  const record = {
+    ...f,
+    found: new Date().toISOString(),
+    open: true,
+    replay: "test/fuzz/replay.test.ts checks the properties on `text`",
+  };
   writeFileSync(file, JSON.stringify(record, null, 2) + "\n");
   return file;
 }
@@ -116,18 +124,46 @@ function runWorkerSide(): void {
 }
 
 /** Runs one worker until it finishes or hangs. */
-function runOneWorker(args: Args, runs: number, seed: number, samples: string[], known: Set<string>, onFailure: (f: FailureRecord & { hang?: boolean }) => void, timeLimitMs?: number): Promise<{ cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number>; solvedByFamily?: Record<string, number> }> {
+function runOneWorker(
+  args: Args,
+  runs: number,
+  seed: number,
+  samples: string[],
+  known: Set<string>,
+  onFailure: (f: FailureRecord & { hang?: boolean }) => void,
+  timeLimitMs?: number,
+): Promise<{
+  cases: number;
+  repeats: number;
+  hung: boolean;
+  byFamily?: Record<string, number>;
+  solvedByFamily?: Record<string, number>;
+}> {
   return new Promise((resolve) => {
     const shared = new SharedArrayBuffer(8 + 2 * TEXT_SLOTS);
     const counter = new Int32Array(shared, 0, 2);
     const slots = new Uint16Array(shared, 8);
-    const input: WorkerInput = { runs, seed, samples, known: [...known], shared, ...(args.families ? { families: args.families } : {}), ...(timeLimitMs !== undefined ? { timeLimitMs } : {}) };
+    const input: WorkerInput = {
+      runs,
+      seed,
+      samples,
+      known: [...known],
+      shared,
+      ...(args.families ? { families: args.families } : {}),
+      ...(timeLimitMs !== undefined ? { timeLimitMs } : {}),
+    };
     const worker = new Worker(__filename, { workerData: input });
     let lastCount = -1;
     let lastChange = Date.now();
     let cases = 0;
     let settled = false;
-    const finish = (value: { cases: number; repeats: number; hung: boolean; byFamily?: Record<string, number>; solvedByFamily?: Record<string, number> }) => {
+    const finish = (value: {
+      cases: number;
+      repeats: number;
+      hung: boolean;
+      byFamily?: Record<string, number>;
+      solvedByFamily?: Record<string, number>;
+    }) => {
       if (settled) return;
       settled = true;
       clearInterval(watch);
@@ -142,20 +178,47 @@ function runOneWorker(args: Args, runs: number, seed: number, samples: string[],
       }
       if (Date.now() - lastChange < HANG_MS) return;
       const n = Atomics.load(counter, 1);
-      const text = String.fromCharCode(...slots.subarray(0, Math.min(n, 65536))) + (n > 65536 ? decodeRest(slots, n) : "");
+      const text =
+        String.fromCharCode(...slots.subarray(0, Math.min(n, 65536))) +
+        (n > 65536 ? decodeRest(slots, n) : "");
       const v = { property: "fast" as const, message: `no answer after ${HANG_MS / 1000} s (hang)` };
-      onFailure({ family: "valid", property: v.property, message: v.message, signature: signature(v), seed, text, hang: true });
+      onFailure({
+        family: "valid",
+        property: v.property,
+        message: v.message,
+        signature: signature(v),
+        seed,
+        text,
+        hang: true,
+      });
       void worker.terminate();
       finish({ cases: Math.max(cases, c), repeats: 0, hung: true });
     }, 1000);
     worker.on("message", (m: WorkerMessage) => {
       if (m.type === "failure") onFailure(m.failure);
       else if (m.type === "progress") cases = m.cases;
-      else finish({ cases: m.result.cases, repeats: m.result.repeats, hung: false, byFamily: m.result.byFamily, solvedByFamily: m.result.solvedByFamily });
+      else
+        finish({
+          cases: m.result.cases,
+          repeats: m.result.repeats,
+          hung: false,
+          byFamily: m.result.byFamily,
+          solvedByFamily: m.result.solvedByFamily,
+        });
     });
     worker.on("error", (err) => {
-      const v = { property: "no-throw" as const, message: `worker died: ${err instanceof Error ? err.stack : String(err)}` };
-      onFailure({ family: "valid", property: v.property, message: v.message, signature: signature(v), seed, text: "" });
+      const v = {
+        property: "no-throw" as const,
+        message: `worker died: ${err instanceof Error ? err.stack : String(err)}`,
+      };
+      onFailure({
+        family: "valid",
+        property: v.property,
+        message: v.message,
+        signature: signature(v),
+        seed,
+        text: "",
+      });
       finish({ cases, repeats: 0, hung: false });
     });
     worker.on("exit", () => finish({ cases, repeats: 0, hung: false }));
@@ -180,25 +243,52 @@ async function runMainSide(): Promise<void> {
   const byFamily: Record<string, number> = {};
   const solvedByFamily: Record<string, number> = {};
   const log = (s: string) => process.stderr.write(s + "\n");
-  log(`fuzz: ${args.runs} cases, seed ${args.seed}${args.timeLimitMs ? `, at most ${args.timeLimitMs} ms` : ""}`);
+  log(
+    `fuzz: ${args.runs} cases, seed ${args.seed}${args.timeLimitMs ? `, at most ${args.timeLimitMs} ms` : ""}`,
+  );
   while (done < args.runs) {
     const left = args.timeLimitMs !== undefined ? args.timeLimitMs - (Date.now() - started) : undefined;
     if (left !== undefined && left <= 0) break;
-    const r = await runOneWorker(args, args.runs - done, seed, samples, known, (f) => {
-      known.add(f.signature);
-      const file = args.write ? writeFailure(args.out, f) : undefined;
-      failures.push({ ...f, ...(file ? { file } : {}) });
-      log(`fuzz: FAILURE ${f.property} (${f.family}, seed ${f.seed}${f.path ? `, path ${f.path}` : ""})${file ? ` -> ${file}` : ""}\n  ${f.message.split("\n").slice(0, 6).join("\n  ")}`);
-    }, left);
+    const r = await runOneWorker(
+      args,
+      args.runs - done,
+      seed,
+      samples,
+      known,
+      (f) => {
+        known.add(f.signature);
+        const file = args.write ? writeFailure(args.out, f) : undefined;
+        failures.push({ ...f, ...(file ? { file } : {}) });
+        log(
+          `fuzz: FAILURE ${f.property} (${f.family}, seed ${f.seed}${f.path ? `, path ${f.path}` : ""})${file ? ` -> ${file}` : ""}\n  ${f.message.split("\n").slice(0, 6).join("\n  ")}`,
+        );
+      },
+      left,
+    );
     done += Math.max(1, r.cases);
     repeats += r.repeats;
     for (const [f, n] of Object.entries(r.byFamily ?? {})) byFamily[f] = (byFamily[f] ?? 0) + n;
-    for (const [f, n] of Object.entries(r.solvedByFamily ?? {})) solvedByFamily[f] = (solvedByFamily[f] ?? 0) + n;
+    for (const [f, n] of Object.entries(r.solvedByFamily ?? {}))
+      solvedByFamily[f] = (solvedByFamily[f] ?? 0) + n;
     if (!r.hung) break;
     seed = seed + 7919;
   }
-  const summary = { cases: done, byFamily, solvedByFamily, repeats, failures: failures.length, seconds: (Date.now() - started) / 1000, seed: args.seed };
-  log(`fuzz: ${summary.cases} cases (${Object.entries(byFamily).map(([f, n]) => `${f} ${n}, ${solvedByFamily[f] ?? 0} solved`).join("; ")}) in ${summary.seconds.toFixed(1)} s, ${summary.failures} new failure(s), ${repeats} repeat(s) of known ones`);
+  const summary = {
+    cases: done,
+    byFamily,
+    solvedByFamily,
+    repeats,
+    failures: failures.length,
+    seconds: (Date.now() - started) / 1000,
+    seed: args.seed,
+  };
+  log(
+    `fuzz: ${summary.cases} cases (${Object.entries(byFamily)
+      .map(([f, n]) => `${f} ${n}, ${solvedByFamily[f] ?? 0} solved`)
+      .join(
+        "; ",
+      )}) in ${summary.seconds.toFixed(1)} s, ${summary.failures} new failure(s), ${repeats} repeat(s) of known ones`,
+  );
   if (args.json) process.stdout.write(JSON.stringify({ ...summary, details: failures }) + "\n");
   process.exitCode = failures.length ? 1 : 0;
 }

@@ -3,8 +3,18 @@
 // sleeping, answers the server's own requests, and keeps every fault the server logs.
 import { spawn, type ChildProcess } from "node:child_process";
 import { readFileSync } from "node:fs";
-import { createMessageConnection, StreamMessageReader, StreamMessageWriter, type MessageConnection } from "vscode-languageserver-protocol/node";
-import type { Diagnostic, InitializeResult, PublishDiagnosticsParams, ServerCapabilities } from "vscode-languageserver-protocol";
+import {
+  createMessageConnection,
+  StreamMessageReader,
+  StreamMessageWriter,
+  type MessageConnection,
+} from "vscode-languageserver-protocol/node";
+import type {
+  Diagnostic,
+  InitializeResult,
+  PublishDiagnosticsParams,
+  ServerCapabilities,
+} from "vscode-languageserver-protocol";
 
 export interface LaunchOptions {
   serverPath: string;
@@ -33,11 +43,19 @@ export class ServerSession {
   private readonly waiters: { uri: string; version?: number; resolve: (p: Published) => void }[] = [];
 
   constructor(private readonly opts: LaunchOptions) {
-    this.child = spawn(process.execPath, [...(opts.nodeArgs ?? []), opts.serverPath, "--stdio"], { cwd: opts.cwd, stdio: ["pipe", "pipe", "pipe"] });
+    this.child = spawn(process.execPath, [...(opts.nodeArgs ?? []), opts.serverPath, "--stdio"], {
+      cwd: opts.cwd,
+      stdio: ["pipe", "pipe", "pipe"],
+    });
     this.child.stderr!.on("data", (d: Buffer) => this.stderr.push(d.toString()));
     this.child.on("exit", (code, signal) => (this.exited = { code, signal }));
-    this.conn = createMessageConnection(new StreamMessageReader(this.child.stdout!), new StreamMessageWriter(this.child.stdin!));
-    this.conn.onNotification("textDocument/publishDiagnostics", (p: PublishDiagnosticsParams) => this.onPublish(p));
+    this.conn = createMessageConnection(
+      new StreamMessageReader(this.child.stdout!),
+      new StreamMessageWriter(this.child.stdin!),
+    );
+    this.conn.onNotification("textDocument/publishDiagnostics", (p: PublishDiagnosticsParams) =>
+      this.onPublish(p),
+    );
     this.conn.onNotification("window/logMessage", (p: { type: number; message: string }) => {
       if (p.type === 1) this.errorLogs.push(p.message);
     });
@@ -89,14 +107,21 @@ export class ServerSession {
   }
 
   private onPublish(p: PublishDiagnosticsParams): void {
-    const entry: Published = { diagnostics: p.diagnostics, at: performance.now(), ...(p.version !== undefined ? { version: p.version } : {}) };
+    const entry: Published = {
+      diagnostics: p.diagnostics,
+      at: performance.now(),
+      ...(p.version !== undefined ? { version: p.version } : {}),
+    };
     const list = this.published.get(p.uri) ?? [];
     list.push(entry);
     if (list.length > 50) list.shift();
     this.published.set(p.uri, list);
     for (let i = this.waiters.length - 1; i >= 0; i--) {
       const w = this.waiters[i]!;
-      if (w.uri === p.uri && (w.version === undefined || p.version === undefined || w.version === p.version)) {
+      if (
+        w.uri === p.uri &&
+        (w.version === undefined || p.version === undefined || w.version === p.version)
+      ) {
         this.waiters.splice(i, 1);
         w.resolve(entry);
       }
@@ -105,7 +130,11 @@ export class ServerSession {
 
   /** The next diagnostics published for `uri` at `version` (or any version if the server does not
    * send one); undefined after the timeout. */
-  waitForDiagnostics(uri: string, version: number | undefined, timeoutMs: number): Promise<Published | undefined> {
+  waitForDiagnostics(
+    uri: string,
+    version: number | undefined,
+    timeoutMs: number,
+  ): Promise<Published | undefined> {
     return new Promise((resolve) => {
       const timer = setTimeout(() => {
         const i = this.waiters.indexOf(waiter);
@@ -125,17 +154,30 @@ export class ServerSession {
   }
 
   open(uri: string, text: string, version = 1): Promise<void> {
-    return this.conn.sendNotification("textDocument/didOpen", { textDocument: { uri, languageId: "counterpoise", version, text } });
+    return this.conn.sendNotification("textDocument/didOpen", {
+      textDocument: { uri, languageId: "counterpoise", version, text },
+    });
   }
 
   /** Replaces the whole text (a full-document change, which every server must accept). */
   change(uri: string, version: number, text: string): Promise<void> {
-    return this.conn.sendNotification("textDocument/didChange", { textDocument: { uri, version }, contentChanges: [{ text }] });
+    return this.conn.sendNotification("textDocument/didChange", {
+      textDocument: { uri, version },
+      contentChanges: [{ text }],
+    });
   }
 
   /** An incremental change: `text` replaces the range. */
-  edit(uri: string, version: number, range: { start: { line: number; character: number }; end: { line: number; character: number } }, text: string): Promise<void> {
-    return this.conn.sendNotification("textDocument/didChange", { textDocument: { uri, version }, contentChanges: [{ range, text }] });
+  edit(
+    uri: string,
+    version: number,
+    range: { start: { line: number; character: number }; end: { line: number; character: number } },
+    text: string,
+  ): Promise<void> {
+    return this.conn.sendNotification("textDocument/didChange", {
+      textDocument: { uri, version },
+      contentChanges: [{ range, text }],
+    });
   }
 
   close(uri: string): Promise<void> {
@@ -148,7 +190,9 @@ export class ServerSession {
     const timeout = new Promise<never>((_, reject) => {
       timer = setTimeout(() => reject(new Error(`no answer to ${method} within ${timeoutMs} ms`)), timeoutMs);
     });
-    return Promise.race([this.conn.sendRequest<R>(method, params), timeout]).finally(() => clearTimeout(timer));
+    return Promise.race([this.conn.sendRequest<R>(method, params), timeout]).finally(() =>
+      clearTimeout(timer),
+    );
   }
 
   /** Resident set and heap of the server process, kB, from /proc (Linux). */
@@ -183,6 +227,16 @@ export function protocolLines(text: string): string[] {
 }
 
 /** True when the position is inside the document as the protocol counts it. */
-export function positionInDocument(lines: readonly string[], p: { line: number; character: number }): boolean {
-  return Number.isInteger(p.line) && Number.isInteger(p.character) && p.line >= 0 && p.line < lines.length && p.character >= 0 && p.character <= lines[p.line]!.length;
+export function positionInDocument(
+  lines: readonly string[],
+  p: { line: number; character: number },
+): boolean {
+  return (
+    Number.isInteger(p.line) &&
+    Number.isInteger(p.character) &&
+    p.line >= 0 &&
+    p.line < lines.length &&
+    p.character >= 0 &&
+    p.character <= lines[p.line]!.length
+  );
 }

@@ -6,7 +6,11 @@ import { ALL_UNITS } from "./spec-arbitrary";
 
 /** Splits text into tokens such that joining them gives the text back. */
 export function tokenize(text: string): string[] {
-  return text.match(/\s+|#[^\r\n]*|"[^"\r\n]*"?|[A-Za-z_][A-Za-z0-9_]*(?:[*/^][A-Za-z0-9_]+)*|[-+]?\d[\d.]*(?:[eE][-+]?\d+)?|\.\.|[^\s]/g) ?? [];
+  return (
+    text.match(
+      /\s+|#[^\r\n]*|"[^"\r\n]*"?|[A-Za-z_][A-Za-z0-9_]*(?:[*/^][A-Za-z0-9_]+)*|[-+]?\d[\d.]*(?:[eE][-+]?\d+)?|\.\.|[^\s]/g,
+    ) ?? []
+  );
 }
 
 const isSpace = (t: string) => /^\s+$/.test(t);
@@ -14,11 +18,93 @@ const isNumber = (t: string) => /^[-+]?\d/.test(t);
 const isUnit = (t: string) => ALL_UNITS.includes(t);
 
 /** Numbers that sit at the edges of what a double or a parser can hold, or only look numeric. */
-export const EXTREME_NUMBERS = ["0", "-0", "-1", "1e300", "-1e300", "1e-300", "1e309", "5e-324", "NaN", "Infinity", "-Infinity", "1e", "1e+", ".5", "5.", "1.2.3", "0x10", "1_000", "99999999999999999999999", "00012", "-", "+3", "1e-7", "3.4028236e38"];
+export const EXTREME_NUMBERS = [
+  "0",
+  "-0",
+  "-1",
+  "1e300",
+  "-1e300",
+  "1e-300",
+  "1e309",
+  "5e-324",
+  "NaN",
+  "Infinity",
+  "-Infinity",
+  "1e",
+  "1e+",
+  ".5",
+  "5.",
+  "1.2.3",
+  "0x10",
+  "1_000",
+  "99999999999999999999999",
+  "00012",
+  "-",
+  "+3",
+  "1e-7",
+  "3.4028236e38",
+];
 
 /** Words the language knows plus a few it does not: replacing a token with one of these keeps
  * the text close to valid. */
-export const NEAR_WORDS = ["arm", "base", "link", "joint", "parallelogram", "spring", "payload", "require", "sweep", "material", "connects", "to", "and", "at", "on", "between", "range", "fixed", "angle", "length", "spacing", "rate", "mass", "point", "extension", "zero_length", "elastic", "gas", "torsion", "x", "rect", "tube", "rod", "steps", "grid", "..", "{", "}", "(", ")", ",", ";", "\"", "#", ".", "end", "start", "head", "lower", "upper", "undefined", "__proto__", "constructor", "toString", "hasOwnProperty", "NaN"];
+export const NEAR_WORDS = [
+  "arm",
+  "base",
+  "link",
+  "joint",
+  "parallelogram",
+  "spring",
+  "payload",
+  "require",
+  "sweep",
+  "material",
+  "connects",
+  "to",
+  "and",
+  "at",
+  "on",
+  "between",
+  "range",
+  "fixed",
+  "angle",
+  "length",
+  "spacing",
+  "rate",
+  "mass",
+  "point",
+  "extension",
+  "zero_length",
+  "elastic",
+  "gas",
+  "torsion",
+  "x",
+  "rect",
+  "tube",
+  "rod",
+  "steps",
+  "grid",
+  "..",
+  "{",
+  "}",
+  "(",
+  ")",
+  ",",
+  ";",
+  '"',
+  "#",
+  ".",
+  "end",
+  "start",
+  "head",
+  "lower",
+  "upper",
+  "undefined",
+  "__proto__",
+  "constructor",
+  "toString",
+  "hasOwnProperty",
+  "NaN",
+];
 
 export type TokenMutation =
   | { op: "delete"; at: number }
@@ -108,16 +194,62 @@ export function mutateTokens(text: string, mutations: readonly TokenMutation[]):
 
 /** Characters that trip up lexers and offset arithmetic: NUL, CR alone, tabs, BOM, line and
  * paragraph separators, lone surrogate halves, astral characters, combining marks. */
-const NASTY_CHARS = ["\0", "\r", "\n", "\r\n", "\t", "\v", "\f", "\ufeff", "\u00a0", "\u2028", "\u2029", "\ud800", "\udfff", "\u{1F600}", "e\u0301", "\u200b", "\u202e", "\uffff", "ä", "µ", "°", "×", "−", "{", "}", "(", ")", "..", ";", ",", "\"", "#", ".", "^", "*", "/", "-", "e", "9"];
+const NASTY_CHARS = [
+  "\0",
+  "\r",
+  "\n",
+  "\r\n",
+  "\t",
+  "\v",
+  "\f",
+  "\ufeff",
+  "\u00a0",
+  "\u2028",
+  "\u2029",
+  "\ud800",
+  "\udfff",
+  "\u{1F600}",
+  "e\u0301",
+  "\u200b",
+  "\u202e",
+  "\uffff",
+  "ä",
+  "µ",
+  "°",
+  "×",
+  "−",
+  "{",
+  "}",
+  "(",
+  ")",
+  "..",
+  ";",
+  ",",
+  '"',
+  "#",
+  ".",
+  "^",
+  "*",
+  "/",
+  "-",
+  "e",
+  "9",
+];
 
 const chunkArb: fc.Arbitrary<string> = fc.oneof(
   { weight: 4, arbitrary: fc.constantFrom(...NASTY_CHARS) },
   { weight: 2, arbitrary: fc.string({ maxLength: 6 }) },
   { weight: 1, arbitrary: fc.string({ unit: "binary", maxLength: 4 }) },
-  { weight: 1, arbitrary: fc.array(fc.constantFrom(...NASTY_CHARS), { maxLength: 5 }).map((a) => a.join("")) },
+  {
+    weight: 1,
+    arbitrary: fc.array(fc.constantFrom(...NASTY_CHARS), { maxLength: 5 }).map((a) => a.join("")),
+  },
 );
 
-export type ByteMutation = { op: "insert"; at: number; chunk: string } | { op: "delete"; at: number; count: number } | { op: "replace"; at: number; chunk: string };
+export type ByteMutation =
+  | { op: "insert"; at: number; chunk: string }
+  | { op: "delete"; at: number; count: number }
+  | { op: "replace"; at: number; chunk: string };
 
 export const byteMutationArb: fc.Arbitrary<ByteMutation> = fc.oneof(
   fc.record({ op: fc.constant("insert" as const), at: frac, chunk: chunkArb }),
@@ -138,18 +270,41 @@ export function mutateBytes(text: string, mutations: readonly ByteMutation[]): s
 
 /** Nearly-valid specs: a valid spec with 1 to 4 token mutations. */
 export function nearlyValidArb(valid: fc.Arbitrary<string>): fc.Arbitrary<string> {
-  return fc.tuple(valid, fc.array(tokenMutationArb, { minLength: 1, maxLength: 4 })).map(([t, ms]) => mutateTokens(t, ms));
+  return fc
+    .tuple(valid, fc.array(tokenMutationArb, { minLength: 1, maxLength: 4 }))
+    .map(([t, ms]) => mutateTokens(t, ms));
 }
 
 /** Byte-level mutants of the given sample texts. */
 export function byteMutantArb(samples: readonly string[]): fc.Arbitrary<string> {
-  return fc.tuple(fc.constantFrom(...samples), fc.array(byteMutationArb, { minLength: 1, maxLength: 8 })).map(([t, ms]) => mutateBytes(t, ms));
+  return fc
+    .tuple(fc.constantFrom(...samples), fc.array(byteMutationArb, { minLength: 1, maxLength: 8 }))
+    .map(([t, ms]) => mutateBytes(t, ms));
 }
 
 /** Texts that are not specs at all, or degenerate ones. */
 export const junkArb: fc.Arbitrary<string> = fc.oneof(
-  fc.constantFrom("", " ", "\n", "\r", "\0", "arm", "arm {", "arm \"", "arm \"x\" {", "}", "{{{{", "arm \"a\" {}\narm \"b\" {}", "#", "# only a comment", "\ufeffarm \"x\" {}", "arm \"x\" { base b { point p (1e309 mm, NaN mm) } }"),
+  fc.constantFrom(
+    "",
+    " ",
+    "\n",
+    "\r",
+    "\0",
+    "arm",
+    "arm {",
+    'arm "',
+    'arm "x" {',
+    "}",
+    "{{{{",
+    'arm "a" {}\narm "b" {}',
+    "#",
+    "# only a comment",
+    '\ufeffarm "x" {}',
+    'arm "x" { base b { point p (1e309 mm, NaN mm) } }',
+  ),
   fc.string({ maxLength: 200 }),
   fc.string({ unit: "binary", maxLength: 100 }),
-  fc.array(fc.constantFrom(...NEAR_WORDS, ...ALL_UNITS, ...EXTREME_NUMBERS, " ", "\n"), { maxLength: 80 }).map((a) => a.join(" ")),
+  fc
+    .array(fc.constantFrom(...NEAR_WORDS, ...ALL_UNITS, ...EXTREME_NUMBERS, " ", "\n"), { maxLength: 80 })
+    .map((a) => a.join(" ")),
 );

@@ -24,7 +24,16 @@ export const SLOW_CASE_MS = 4000;
 export interface Violation {
   /** What makes two failures the same bug (defaults to the message without numbers). */
   key?: string;
-  property: "format-stable" | "no-throw" | "no-internal-fault" | "span-in-document" | "deterministic" | "finite-figures" | "finite-model" | "well-formed-finding" | "fast";
+  property:
+    | "format-stable"
+    | "no-throw"
+    | "no-internal-fault"
+    | "span-in-document"
+    | "deterministic"
+    | "finite-figures"
+    | "finite-model"
+    | "well-formed-finding"
+    | "fast";
   message: string;
 }
 
@@ -44,7 +53,11 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
   const elapsed = performance.now() - t0;
   fuzzStats.analysed++;
   if (first.sweep && first.sweep.poses.length > 0) fuzzStats.solved++;
-  if (elapsed > SLOW_CASE_MS) violations.push({ property: "fast", message: `analyse took ${elapsed.toFixed(0)} ms at ${FUZZ_STEPS} steps` });
+  if (elapsed > SLOW_CASE_MS)
+    violations.push({
+      property: "fast",
+      message: `analyse took ${elapsed.toFixed(0)} ms at ${FUZZ_STEPS} steps`,
+    });
 
   const found = checkAnalysis(first, text);
   // A model that already holds infinities explains every NaN after it: report the cause alone.
@@ -65,7 +78,11 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
   }
   const a = findingsDigest(first.findings);
   const b = findingsDigest(second.findings);
-  if (a !== b) violations.push({ property: "deterministic", message: `findings differ between two runs:\n  ${a}\n  ${b}` });
+  if (a !== b)
+    violations.push({
+      property: "deterministic",
+      message: `findings differ between two runs:\n  ${a}\n  ${b}`,
+    });
 
   // Formatting a text that parses must not change what it means: the same findings, word for word.
   if (!first.findings.some((f) => f.code === "syntax.error")) {
@@ -73,9 +90,16 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
       const formatted = analyse(formatSpec(text), { stepsOverride: FUZZ_STEPS });
       const before = meaningDigest(first.findings);
       const after = meaningDigest(formatted.findings);
-      if (before !== after) violations.push({ property: "format-stable", message: `formatting changed the findings:\n  ${before}\n  ${after}` });
+      if (before !== after)
+        violations.push({
+          property: "format-stable",
+          message: `formatting changed the findings:\n  ${before}\n  ${after}`,
+        });
     } catch (err) {
-      violations.push({ property: "no-throw", message: `analysing the formatted text threw: ${describeError(err)}` });
+      violations.push({
+        property: "no-throw",
+        message: `analysing the formatted text threw: ${describeError(err)}`,
+      });
     }
   }
   return violations;
@@ -94,10 +118,18 @@ function checkFormatting(text: string): Violation[] {
   // Formatting only adds indentation and line ends; the language nests two levels (arm, then a
   // declaration), so the output stays within a small multiple of the input. Common practice, no
   // source: 8 x + 1 kB leaves room for `a;b;c` split one property a line, four spaces deep.
-  if (once.length > 8 * text.length + 1024) return [{ property: "format-stable", message: `formatting a ${text.length}-character text gave ${once.length} characters` }];
+  if (once.length > 8 * text.length + 1024)
+    return [
+      {
+        property: "format-stable",
+        message: `formatting a ${text.length}-character text gave ${once.length} characters`,
+      },
+    ];
   const squeeze = (s: string) => s.replace(/[\s;]+/g, "");
-  if (squeeze(once) !== squeeze(text)) out.push({ property: "format-stable", message: "formatting changed a word, not only the spacing" });
-  if (formatSpec(once) !== once) out.push({ property: "format-stable", message: "formatting the formatted text changes it again" });
+  if (squeeze(once) !== squeeze(text))
+    out.push({ property: "format-stable", message: "formatting changed a word, not only the spacing" });
+  if (formatSpec(once) !== once)
+    out.push({ property: "format-stable", message: "formatting the formatted text changes it again" });
   return out;
 }
 
@@ -114,7 +146,8 @@ function meaningDigest(findings: readonly Finding[]): string {
 export function checkAnalysis(a: Analysis, text: string): Violation[] {
   const violations: Violation[] = [];
   for (const f of a.findings) {
-    if (f.code === "analysis.internal") violations.push({ property: "no-internal-fault", message: `${f.message}${internalStack(text)}` });
+    if (f.code === "analysis.internal")
+      violations.push({ property: "no-internal-fault", message: `${f.message}${internalStack(text)}` });
     checkFindingShape(f, text, violations);
   }
   for (const e of a.tree.errors) checkSpan(e.span, text, `syntax error "${e.message}"`, violations);
@@ -123,19 +156,32 @@ export function checkAnalysis(a: Analysis, text: string): Violation[] {
 }
 
 function checkSpan(s: Span, text: string, what: string, violations: Violation[]): void {
-  const ok = s && Number.isInteger(s.start) && Number.isInteger(s.end) && 0 <= s.start && s.start <= s.end && s.end <= text.length;
-  if (!ok) violations.push({ property: "span-in-document", message: `${what}: span ${JSON.stringify(s)} outside 0..${text.length}` });
+  const ok =
+    s &&
+    Number.isInteger(s.start) &&
+    Number.isInteger(s.end) &&
+    0 <= s.start &&
+    s.start <= s.end &&
+    s.end <= text.length;
+  if (!ok)
+    violations.push({
+      property: "span-in-document",
+      message: `${what}: span ${JSON.stringify(s)} outside 0..${text.length}`,
+    });
 }
 
 function checkFindingShape(f: Finding, text: string, violations: Violation[]): void {
   const what = `${f.code} "${f.message}"`;
   checkSpan(f.span, text, what, violations);
   for (const r of f.related ?? []) checkSpan(r.span, text, `${what} related "${r.message}"`, violations);
-  if (!(f.code in CODES)) violations.push({ property: "well-formed-finding", message: `unknown code ${f.code}` });
-  if (typeof f.message !== "string" || f.message.trim() === "") violations.push({ property: "well-formed-finding", message: `${f.code} has an empty message` });
+  if (!(f.code in CODES))
+    violations.push({ property: "well-formed-finding", message: `unknown code ${f.code}` });
+  if (typeof f.message !== "string" || f.message.trim() === "")
+    violations.push({ property: "well-formed-finding", message: `${f.code} has an empty message` });
   // A message may quote the user's own words; only flag NaN/undefined the text did not contain.
   for (const word of ["NaN", "Infinity", "undefined", "[object Object]"]) {
-    if (f.message.includes(word) && !text.includes(word)) violations.push({ property: "finite-figures", message: `${what} shows ${word}` });
+    if (f.message.includes(word) && !text.includes(word))
+      violations.push({ property: "finite-figures", message: `${what} shows ${word}` });
   }
 }
 
@@ -177,8 +223,10 @@ function checkPose(p: Pose, torsion: Set<string>, path: string, out: string[]): 
 function nonFiniteNumbers(value: unknown, path: string, out: string[], depth = 0): void {
   if (depth > 8 || out.length > 5) return;
   if (typeof value === "number") finiteOr(value, path, out);
-  else if (Array.isArray(value)) value.forEach((v, i) => nonFiniteNumbers(v, `${path}[${i}]`, out, depth + 1));
-  else if (value && typeof value === "object") for (const [k, v] of Object.entries(value)) nonFiniteNumbers(v, `${path}.${k}`, out, depth + 1);
+  else if (Array.isArray(value))
+    value.forEach((v, i) => nonFiniteNumbers(v, `${path}[${i}]`, out, depth + 1));
+  else if (value && typeof value === "object")
+    for (const [k, v] of Object.entries(value)) nonFiniteNumbers(v, `${path}.${k}`, out, depth + 1);
 }
 
 function checkFiniteResults(a: Analysis, violations: Violation[]): void {
@@ -195,15 +243,26 @@ function checkFiniteResults(a: Analysis, violations: Violation[]): void {
     const torsion = new Set((a.model?.springs ?? []).filter((s) => s.kind === "torsion").map((s) => s.id));
     if (a.sweep.reference) checkPose(a.sweep.reference, torsion, "sweep.reference", out);
     a.sweep.poses.forEach((p, i) => checkPose(p, torsion, `sweep.poses[${i}]`, out));
-    for (const d of a.sweep.dofs) for (const v of [...d.range, d.reference]) finiteOr(v, `sweep.dofs.${d.id}`, out);
+    for (const d of a.sweep.dofs)
+      for (const v of [...d.range, d.reference]) finiteOr(v, `sweep.dofs.${d.id}`, out);
   }
-  if (out.length) violations.push({ property: "finite-figures", message: out.slice(0, 5).join("; "), key: out.map(genericPath).sort()[0]! });
+  if (out.length)
+    violations.push({
+      property: "finite-figures",
+      message: out.slice(0, 5).join("; "),
+      key: out.map(genericPath).sort()[0]!,
+    });
 
   // The solver is only ever fed a model whose numbers are all finite.
   if (a.sweep && a.model) {
     const bad: string[] = [];
     nonFiniteNumbers(a.model, "model", bad);
-    if (bad.length) violations.push({ property: "finite-model", message: `solved a model with ${bad.slice(0, 5).join("; ")}`, key: "the model holds a non-finite number" });
+    if (bad.length)
+      violations.push({
+        property: "finite-model",
+        message: `solved a model with ${bad.slice(0, 5).join("; ")}`,
+        key: "the model holds a non-finite number",
+      });
   }
 }
 
@@ -215,7 +274,11 @@ function textHash(text: string): number {
 }
 
 function findingsDigest(findings: readonly Finding[]): string {
-  return JSON.stringify(findings.filter((f) => f.code !== "analysis.budget").map((f) => [f.code, f.severity, f.span.start, f.span.end, f.message]));
+  return JSON.stringify(
+    findings
+      .filter((f) => f.code !== "analysis.budget")
+      .map((f) => [f.code, f.severity, f.span.start, f.span.end, f.message]),
+  );
 }
 
 export function describeError(err: unknown): string {
@@ -243,12 +306,27 @@ function genericPath(entry: string): string {
   const path = entry.split(" = ")[0]!;
   const parts = path.replace(/\[\d+\]/g, "[]").split(".");
   if (parts[0] === "readouts") return `readouts.*.${parts.slice(2).join(".")}`;
-  if (parts[0] === "sweep") return parts.filter((p, i) => !(i > 0 && /^(angles|jointAngles|bodies|springs|holdingTorque|handForce|lockedTorque|springForce|reactions|dofs)$/.test(parts[i - 1]!))).join(".");
+  if (parts[0] === "sweep")
+    return parts
+      .filter(
+        (p, i) =>
+          !(
+            i > 0 &&
+            /^(angles|jointAngles|bodies|springs|holdingTorque|handForce|lockedTorque|springForce|reactions|dofs)$/.test(
+              parts[i - 1]!,
+            )
+          ),
+      )
+      .join(".");
   return parts.filter((p) => !/^[a-z]+_\d+$|^[a-z]+_[a-z]+$/.test(p)).join(".");
 }
 
 /** A failure's signature, for deduplication: the property and the message without numbers. */
 export function signature(v: Violation): string {
   if (v.key) return `${v.property}:${v.key}`;
-  return `${v.property}:${v.message.split("\n")[0]!.replace(/-?\d[\d.e+-]*/g, "#").replace(/"[^"]*"/g, '"…"').slice(0, 160)}`;
+  return `${v.property}:${v.message
+    .split("\n")[0]!
+    .replace(/-?\d[\d.e+-]*/g, "#")
+    .replace(/"[^"]*"/g, '"…"')
+    .slice(0, 160)}`;
 }

@@ -6,7 +6,9 @@ import { join } from "node:path";
 import { checkText } from "./properties";
 
 const dir = join(__dirname, "failures");
-const files = readdirSync(dir).filter((f) => f.endsWith(".json") || f.endsWith(".poise")).sort();
+const files = readdirSync(dir)
+  .filter((f) => f.endsWith(".json") || f.endsWith(".poise"))
+  .sort();
 
 interface Recorded {
   text: string;

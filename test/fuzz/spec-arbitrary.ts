@@ -7,24 +7,80 @@ import fc from "fast-check";
  * into that unit, so that most generated arms stay physically plausible. Exact definitions:
  * 1 in = 25.4 mm, 1 ft = 12 in, 1 lb = 0.45359237 kg, 1 oz = lb/16 (NIST SP 811, appendix B). */
 export const UNITS = {
-  length: [["mm", 1], ["cm", 0.1], ["m", 0.001], ["in", 1 / 25.4], ["ft", 1 / 304.8]],
-  mass: [["g", 1], ["kg", 0.001], ["lb", 1 / 453.59237], ["oz", 16 / 453.59237]],
-  force: [["N", 1], ["kN", 0.001], ["lbf", 1 / 4.4482216152605]],
-  torque: [["N*m", 1], ["N*mm", 1000], ["lbf*in", 8.850745791], ["lbf*ft", 0.7375621493]],
-  stiffness: [["N/mm", 1], ["N/m", 1000], ["lbf/in", 5.710147155]],
-  angular_stiffness: [["N*m/rad", 1], ["N*mm/deg", 1000 * (Math.PI / 180)], ["lbf*in/deg", 8.850745791 * (Math.PI / 180)]],
-  angle: [["deg", 1], ["rad", Math.PI / 180]],
-  pressure: [["MPa", 1], ["GPa", 0.001], ["kPa", 1000], ["Pa", 1e6], ["psi", 145.0377377], ["ksi", 0.1450377377]],
-  density: [["g/cm^3", 1], ["kg/m^3", 1000], ["lb/in^3", 0.03612729200]],
+  length: [
+    ["mm", 1],
+    ["cm", 0.1],
+    ["m", 0.001],
+    ["in", 1 / 25.4],
+    ["ft", 1 / 304.8],
+  ],
+  mass: [
+    ["g", 1],
+    ["kg", 0.001],
+    ["lb", 1 / 453.59237],
+    ["oz", 16 / 453.59237],
+  ],
+  force: [
+    ["N", 1],
+    ["kN", 0.001],
+    ["lbf", 1 / 4.4482216152605],
+  ],
+  torque: [
+    ["N*m", 1],
+    ["N*mm", 1000],
+    ["lbf*in", 8.850745791],
+    ["lbf*ft", 0.7375621493],
+  ],
+  stiffness: [
+    ["N/mm", 1],
+    ["N/m", 1000],
+    ["lbf/in", 5.710147155],
+  ],
+  angular_stiffness: [
+    ["N*m/rad", 1],
+    ["N*mm/deg", 1000 * (Math.PI / 180)],
+    ["lbf*in/deg", 8.850745791 * (Math.PI / 180)],
+  ],
+  angle: [
+    ["deg", 1],
+    ["rad", Math.PI / 180],
+  ],
+  pressure: [
+    ["MPa", 1],
+    ["GPa", 0.001],
+    ["kPa", 1000],
+    ["Pa", 1e6],
+    ["psi", 145.0377377],
+    ["ksi", 0.1450377377],
+  ],
+  density: [
+    ["g/cm^3", 1],
+    ["kg/m^3", 1000],
+    ["lb/in^3", 0.036127292],
+  ],
   acceleration: [["m/s^2", 1]],
   frequency: [["Hz", 1]],
-  area: [["mm^2", 1], ["cm^2", 0.01], ["m^2", 1e-6]],
+  area: [
+    ["mm^2", 1],
+    ["cm^2", 0.01],
+    ["m^2", 1e-6],
+  ],
 } as const satisfies Record<string, readonly (readonly [string, number])[]>;
 
 export type UnitDimension = keyof typeof UNITS;
 export const ALL_UNITS: readonly string[] = Object.values(UNITS).flatMap((list) => list.map(([u]) => u));
 
-export const BUILTIN_MATERIALS = ["pla", "petg", "abs", "nylon", "aluminium_6061_t6", "steel_1018", "stainless_304", "music_wire", "natural_latex"] as const;
+export const BUILTIN_MATERIALS = [
+  "pla",
+  "petg",
+  "abs",
+  "nylon",
+  "aluminium_6061_t6",
+  "steel_1018",
+  "stainless_304",
+  "music_wire",
+  "natural_latex",
+] as const;
 
 /** A quantity as generated: the value in the canonical unit and which unit to write it in. */
 interface QuantityGen {
@@ -41,7 +97,10 @@ function quantityArb(min: number, max: number): fc.Arbitrary<QuantityGen> {
     // spec must stay buildable so that the solver and the checks are reached.
     value: fc.oneof(
       { weight: 4, arbitrary: fc.integer({ min: 0, max: 1000 }).map((k) => min + ((max - min) * k) / 1000) },
-      { weight: 1, arbitrary: fc.integer({ min: 0, max: 1_000_000 }).map((k) => min + ((max - min) * k) / 1_000_000) },
+      {
+        weight: 1,
+        arbitrary: fc.integer({ min: 0, max: 1_000_000 }).map((k) => min + ((max - min) * k) / 1_000_000),
+      },
     ),
     // Mostly the canonical unit: keeps the arm near real sizes; the rest exercises conversions.
     unitIndex: fc.oneof({ weight: 4, arbitrary: fc.constant(0) }, { weight: 1, arbitrary: fc.nat(5) }),
@@ -79,7 +138,11 @@ const materialNameArb = fc.oneof(
 );
 
 // Mostly held joints; a passive one outside any loop (a model error) now and then.
-const modeArb = fc.oneof({ weight: 6, arbitrary: fc.constant("range" as const) }, { weight: 3, arbitrary: fc.constant("fixed" as const) }, { weight: 1, arbitrary: fc.constant("passive" as const) });
+const modeArb = fc.oneof(
+  { weight: 6, arbitrary: fc.constant("range" as const) },
+  { weight: 3, arbitrary: fc.constant("fixed" as const) },
+  { weight: 1, arbitrary: fc.constant("passive" as const) },
+);
 
 const linkStageArb = fc.record({
   kind: fc.constant("link" as const),
@@ -91,7 +154,9 @@ const linkStageArb = fc.record({
   angle: quantityArb(-120, 120),
   rangeLow: quantityArb(-90, 0),
   rangeHigh: quantityArb(0, 90),
-  pin: fc.option(fc.record({ d: quantityArb(2, 10), material: materialNameArb, double: fc.boolean() }), { nil: undefined }),
+  pin: fc.option(fc.record({ d: quantityArb(2, 10), material: materialNameArb, double: fc.boolean() }), {
+    nil: undefined,
+  }),
   friction: fc.option(quantityArb(0, 0.5), { nil: undefined }),
   extraPoint: fc.option(fc.record({ x: quantityArb(0, 300), y: quantityArb(-30, 30) }), { nil: undefined }),
   inlineParent: fc.boolean(),
@@ -130,15 +195,63 @@ type ParallelogramStage = typeof parallelogramStageArb extends fc.Arbitrary<infe
 type FourBar = typeof fourBarArb extends fc.Arbitrary<infer T> ? T : never;
 type Stage = LinkStage | ParallelogramStage;
 
-const attachArb = fc.record({ body: fc.nat(20), x: quantityArb(0, 200), y: quantityArb(-40, 40), named: fc.boolean() });
+const attachArb = fc.record({
+  body: fc.nat(20),
+  x: quantityArb(0, 200),
+  y: quantityArb(-40, 40),
+  named: fc.boolean(),
+});
 type AttachGen = typeof attachArb extends fc.Arbitrary<infer T> ? T : never;
 
 const springArb = fc.oneof(
-  fc.record({ kind: fc.constant("extension" as const), a: attachArb, b: attachArb, coil: fc.boolean(), rate: quantityArb(0.05, 5), free: quantityArb(10, 150), tension: fc.option(quantityArb(0, 30), { nil: undefined }), max: fc.option(quantityArb(100, 400), { nil: undefined }), wire: quantityArb(0.5, 3), coilD: quantityArb(5, 20), coils: fc.integer({ min: 5, max: 60 }) }),
-  fc.record({ kind: fc.constant("zero_length" as const), a: attachArb, b: attachArb, rate: quantityArb(0.05, 5), tension: fc.option(quantityArb(0, 20), { nil: undefined }) }),
-  fc.record({ kind: fc.constant("elastic" as const), a: attachArb, b: attachArb, free: quantityArb(20, 150), tube: fc.boolean(), area: quantityArb(2, 40), od: quantityArb(3, 12), wall: quantityArb(0.5, 2), stretch: fc.option(fc.double({ min: 1.2, max: 5, noNaN: true }), { nil: undefined }) }),
-  fc.record({ kind: fc.constant("gas" as const), a: attachArb, b: attachArb, force: quantityArb(10, 300), progression: fc.double({ min: 1, max: 2, noNaN: true }), strokeRatio: fc.double({ min: 0.2, max: 0.45, noNaN: true }), extended: quantityArb(100, 400) }),
-  fc.record({ kind: fc.constant("torsion" as const), at: fc.nat(20), rate: quantityArb(0.0005, 0.05), preloadAngle: fc.boolean(), preload: quantityArb(0, 180), max: fc.option(quantityArb(90, 360), { nil: undefined }) }),
+  fc.record({
+    kind: fc.constant("extension" as const),
+    a: attachArb,
+    b: attachArb,
+    coil: fc.boolean(),
+    rate: quantityArb(0.05, 5),
+    free: quantityArb(10, 150),
+    tension: fc.option(quantityArb(0, 30), { nil: undefined }),
+    max: fc.option(quantityArb(100, 400), { nil: undefined }),
+    wire: quantityArb(0.5, 3),
+    coilD: quantityArb(5, 20),
+    coils: fc.integer({ min: 5, max: 60 }),
+  }),
+  fc.record({
+    kind: fc.constant("zero_length" as const),
+    a: attachArb,
+    b: attachArb,
+    rate: quantityArb(0.05, 5),
+    tension: fc.option(quantityArb(0, 20), { nil: undefined }),
+  }),
+  fc.record({
+    kind: fc.constant("elastic" as const),
+    a: attachArb,
+    b: attachArb,
+    free: quantityArb(20, 150),
+    tube: fc.boolean(),
+    area: quantityArb(2, 40),
+    od: quantityArb(3, 12),
+    wall: quantityArb(0.5, 2),
+    stretch: fc.option(fc.double({ min: 1.2, max: 5, noNaN: true }), { nil: undefined }),
+  }),
+  fc.record({
+    kind: fc.constant("gas" as const),
+    a: attachArb,
+    b: attachArb,
+    force: quantityArb(10, 300),
+    progression: fc.double({ min: 1, max: 2, noNaN: true }),
+    strokeRatio: fc.double({ min: 0.2, max: 0.45, noNaN: true }),
+    extended: quantityArb(100, 400),
+  }),
+  fc.record({
+    kind: fc.constant("torsion" as const),
+    at: fc.nat(20),
+    rate: quantityArb(0.0005, 0.05),
+    preloadAngle: fc.boolean(),
+    preload: quantityArb(0, 180),
+    max: fc.option(quantityArb(90, 360), { nil: undefined }),
+  }),
 );
 type SpringGen = typeof springArb extends fc.Arbitrary<infer T> ? T : never;
 
@@ -147,7 +260,13 @@ const payloadArb = fc.record({
   mass: quantityArb(0, 2000),
   at: fc.record({ x: quantityArb(-50, 100), y: quantityArb(-80, 40) }),
   /** The mass range as ratios of the nominal mass, which must lie inside it. */
-  range: fc.option(fc.record({ low: fc.double({ min: 0.3, max: 1, noNaN: true }), high: fc.double({ min: 1, max: 2.5, noNaN: true }) }), { nil: undefined }),
+  range: fc.option(
+    fc.record({
+      low: fc.double({ min: 0.3, max: 1, noNaN: true }),
+      high: fc.double({ min: 1, max: 2.5, noNaN: true }),
+    }),
+    { nil: undefined },
+  ),
   force: fc.option(fc.record({ x: quantityArb(-10, 10), y: quantityArb(-10, 10) }), { nil: undefined }),
   onBase: fc.boolean(),
 });
@@ -184,13 +303,22 @@ export const specGenArb = fc.record({
     pivot: fc.record({ x: quantityArb(-50, 50), y: quantityArb(50, 400) }),
     anchor: fc.record({ x: quantityArb(-80, 80), y: quantityArb(100, 500) }),
   }),
-  ownMaterial: fc.record({ density: quantityArb(0.5, 8), modulus: quantityArb(1000, 200000), strength: quantityArb(10, 500), layer: fc.option(quantityArb(5, 50), { nil: undefined }), poisson: fc.double({ min: 0.1, max: 0.49, noNaN: true }) }),
+  ownMaterial: fc.record({
+    density: quantityArb(0.5, 8),
+    modulus: quantityArb(1000, 200000),
+    strength: quantityArb(10, 500),
+    layer: fc.option(quantityArb(5, 50), { nil: undefined }),
+    poisson: fc.double({ min: 0.1, max: 0.49, noNaN: true }),
+  }),
   stages: fc.array(fc.oneof(linkStageArb, parallelogramStageArb), { minLength: 1, maxLength: 4 }),
   fourBar: fc.option(fourBarArb, { nil: undefined }),
   springs: fc.array(springArb, { maxLength: 3 }),
   payloads: fc.array(payloadArb, { maxLength: 2 }),
   require: fc.option(requireArb, { nil: undefined }),
-  sweep: fc.option(fc.record({ steps: fc.integer({ min: 2, max: 9 }), grid: fc.option(fc.boolean(), { nil: undefined }) }), { nil: undefined }),
+  sweep: fc.option(
+    fc.record({ steps: fc.integer({ min: 2, max: 9 }), grid: fc.option(fc.boolean(), { nil: undefined }) }),
+    { nil: undefined },
+  ),
   style: styleArb,
 });
 
@@ -221,7 +349,8 @@ export function renderSpec(g: SpecGen): string {
 
   const baseProps: string[] = [];
   if (g.base.mass) baseProps.push(`mass ${q("mass", g.base.mass)}`);
-  if (g.base.footprint) baseProps.push(`footprint ${q("length", g.base.footprint.w)} x ${q("length", g.base.footprint.d)}`);
+  if (g.base.footprint)
+    baseProps.push(`footprint ${q("length", g.base.footprint.w)} x ${q("length", g.base.footprint.d)}`);
   if (g.base.yaw) baseProps.push("yaw");
   if (g.base.surface) baseProps.push(`surface ${q("length", g.base.surface)}`);
   baseProps.push(`point pivot (${q("length", g.base.pivot.x)}, ${q("length", g.base.pivot.y)})`);
@@ -246,7 +375,12 @@ export function renderSpec(g: SpecGen): string {
   });
   if (usesOwn) {
     const m = g.ownMaterial;
-    const props = [`density ${q("density", m.density)}`, `modulus ${q("pressure", m.modulus)}`, `strength ${q("pressure", m.strength)}`, `poisson ${formatNumber(m.poisson, 1)}`];
+    const props = [
+      `density ${q("density", m.density)}`,
+      `modulus ${q("pressure", m.modulus)}`,
+      `strength ${q("pressure", m.strength)}`,
+      `poisson ${formatNumber(m.poisson, 1)}`,
+    ];
     if (m.layer) props.push(`layer_strength ${q("pressure", m.layer)}`);
     decls.unshift({ head: "material own", props });
   }
@@ -259,12 +393,21 @@ export function renderSpec(g: SpecGen): string {
   return layout(g, decls);
 }
 
-function renderLinkStage(s: LinkStage, i: number, parent: string, decls: Decl[], hangers: Hanger[], pivots: string[], mat: (m: string) => string): string {
+function renderLinkStage(
+  s: LinkStage,
+  i: number,
+  parent: string,
+  decls: Decl[],
+  hangers: Hanger[],
+  pivots: string[],
+  mat: (m: string) => string,
+): string {
   const name = `link_${i}`;
   const props = [`length ${q("length", s.length)}`];
   if (s.section) props.push(`section ${section(s.section)}`);
   if (s.material) props.push(`material ${mat(s.material)}`);
-  if (s.mass || (!s.section && !s.material)) props.push(`mass ${q("mass", s.mass ?? { value: 100, unitIndex: 0, form: 0 })}`);
+  if (s.mass || (!s.section && !s.material))
+    props.push(`mass ${q("mass", s.mass ?? { value: 100, unitIndex: 0, form: 0 })}`);
   else if (!s.material) props.push("material pla");
   else if (!s.section) props.push("section rect 12 mm x 6 mm");
   if (s.extraPoint) props.push(`point hook (${q("length", s.extraPoint.x)}, ${q("length", s.extraPoint.y)})`);
@@ -286,10 +429,24 @@ function renderLinkStage(s: LinkStage, i: number, parent: string, decls: Decl[],
   return s.inlineParent ? `${name}(${q("length", s.length)}, 0 mm)` : `${name}.end`;
 }
 
-function renderParallelogramStage(s: ParallelogramStage, i: number, parent: string, decls: Decl[], hangers: Hanger[], pivots: string[], mat: (m: string) => string): string {
+function renderParallelogramStage(
+  s: ParallelogramStage,
+  i: number,
+  parent: string,
+  decls: Decl[],
+  hangers: Hanger[],
+  pivots: string[],
+  mat: (m: string) => string,
+): string {
   const name = `stage_${i}`;
-  const props = [`on ${parent}`, `length ${q("length", s.length)}`, `spacing ${q("length", s.spacing)}`, `angle ${q("angle", s.angle)}`];
-  if (s.upperRatio) props.push(`upper_length ${q("length", { ...s.length, value: s.length.value * s.upperRatio })}`);
+  const props = [
+    `on ${parent}`,
+    `length ${q("length", s.length)}`,
+    `spacing ${q("length", s.spacing)}`,
+    `angle ${q("angle", s.angle)}`,
+  ];
+  if (s.upperRatio)
+    props.push(`upper_length ${q("length", { ...s.length, value: s.length.value * s.upperRatio })}`);
   if (s.fixed) props.push("fixed");
   else props.push(`range ${q("angle", s.rangeLow)} .. ${q("angle", s.rangeHigh)}`);
   props.push(`bars ${section(s.bars)} ${mat(s.barMaterial)}`);
@@ -299,47 +456,101 @@ function renderParallelogramStage(s: ParallelogramStage, i: number, parent: stri
   if (s.friction) props.push(`friction ${q("torque", s.friction)}`);
   decls.push({ head: `parallelogram ${name}`, props });
   pivots.push(name);
-  hangers.push({ body: `${name}.lower`, named: "end" }, { body: `${name}.upper`, named: "start" }, { body: `${name}.head` });
+  hangers.push(
+    { body: `${name}.lower`, named: "end" },
+    { body: `${name}.upper`, named: "start" },
+    { body: `${name}.head` },
+  );
   return s.inlineParent ? `${name}.head(0 mm, ${q("length", s.spacing)})` : `${name}.head`;
 }
 
 /** A four-bar written out with links and passive joints: crank and rocker from the base, a
  * coupler across their ends; the last joint closes the loop. */
-function renderFourBar(f: FourBar, base: string, pivotXmm: number, decls: Decl[], hangers: Hanger[], pivots: string[]): void {
+function renderFourBar(
+  f: FourBar,
+  base: string,
+  pivotXmm: number,
+  decls: Decl[],
+  hangers: Hanger[],
+  pivots: string[],
+): void {
   const len = q("length", f.crank);
   const gap = q("length", f.spacing);
-  decls.push({ head: "link fb_crank", props: [`length ${len}`, "section rect 10 mm x 4 mm", "material aluminium_6061_t6"] });
-  decls.push({ head: "link fb_rocker", props: [`length ${len}`, "section rect 10 mm x 4 mm", "material aluminium_6061_t6"] });
+  decls.push({
+    head: "link fb_crank",
+    props: [`length ${len}`, "section rect 10 mm x 4 mm", "material aluminium_6061_t6"],
+  });
+  decls.push({
+    head: "link fb_rocker",
+    props: [`length ${len}`, "section rect 10 mm x 4 mm", "material aluminium_6061_t6"],
+  });
   decls.push({ head: "link fb_coupler", props: [`length ${gap}`, "mass 20 g"] });
-  decls.push({ head: "joint fb_drive", props: [`connects ${base}.fb_a to fb_crank.start`, `angle ${q("angle", f.angle)}`, `range ${q("angle", f.rangeLow)} .. ${q("angle", f.rangeHigh)}`] });
-  decls.push({ head: "joint fb_rock", props: [`connects ${base}(${pivotXmm} mm, ${40 + f.spacing.value} mm) to fb_rocker.start`, `angle ${q("angle", f.angle)}`] });
-  decls.push({ head: "joint fb_top", props: ["connects fb_crank.end to fb_coupler.start", `angle ${90 - f.angle.value} deg`] });
-  decls.push({ head: "joint fb_close", props: ["connects fb_rocker.end to fb_coupler.end", `angle ${90 - f.angle.value} deg`] });
+  decls.push({
+    head: "joint fb_drive",
+    props: [
+      `connects ${base}.fb_a to fb_crank.start`,
+      `angle ${q("angle", f.angle)}`,
+      `range ${q("angle", f.rangeLow)} .. ${q("angle", f.rangeHigh)}`,
+    ],
+  });
+  decls.push({
+    head: "joint fb_rock",
+    props: [
+      `connects ${base}(${pivotXmm} mm, ${40 + f.spacing.value} mm) to fb_rocker.start`,
+      `angle ${q("angle", f.angle)}`,
+    ],
+  });
+  decls.push({
+    head: "joint fb_top",
+    props: ["connects fb_crank.end to fb_coupler.start", `angle ${90 - f.angle.value} deg`],
+  });
+  decls.push({
+    head: "joint fb_close",
+    props: ["connects fb_rocker.end to fb_coupler.end", `angle ${90 - f.angle.value} deg`],
+  });
   pivots.push("fb_drive");
   hangers.push({ body: "fb_crank", named: "end" }, { body: "fb_coupler" });
 }
 
 function attach(a: AttachGen, base: string, hangers: Hanger[]): string {
-  if (a.body % 4 === 0 || hangers.length === 0) return a.named ? `${base}.anchor` : `${base}(${q("length", a.x)}, ${q("length", a.y)})`;
+  if (a.body % 4 === 0 || hangers.length === 0)
+    return a.named ? `${base}.anchor` : `${base}(${q("length", a.x)}, ${q("length", a.y)})`;
   const h = hangers[a.body % hangers.length]!;
   if (a.named && h.named) return `${h.body}.${h.named}`;
   if (a.named) return h.body;
   return `${h.body}(${q("length", a.x)}, ${q("length", a.y)})`;
 }
 
-function renderSpring(s: SpringGen, i: number, base: string, hangers: Hanger[], pivots: string[], mat: (m: string) => string): Decl {
+function renderSpring(
+  s: SpringGen,
+  i: number,
+  base: string,
+  hangers: Hanger[],
+  pivots: string[],
+  mat: (m: string) => string,
+): Decl {
   const head = `spring spring_${i}`;
   if (s.kind === "torsion") {
     const at = pivots.length ? pivots[s.at % pivots.length]! : "nowhere";
     const props = ["torsion", `at ${at}`, `rate ${q("angular_stiffness", s.rate)}`];
-    props.push(s.preloadAngle ? `preload ${q("angle", s.preload)}` : `preload ${q("torque", { ...s.preload, value: s.preload.value / 100 })}`);
+    props.push(
+      s.preloadAngle
+        ? `preload ${q("angle", s.preload)}`
+        : `preload ${q("torque", { ...s.preload, value: s.preload.value / 100 })}`,
+    );
     if (s.max) props.push(`max_angle ${q("angle", s.max)}`);
     return { head, props };
   }
   const props = [s.kind, `between ${attach(s.a, base, hangers)} and ${attach(s.b, base, hangers)}`];
   switch (s.kind) {
     case "extension":
-      if (s.coil) props.push(`wire ${q("length", s.wire)}`, `coil ${q("length", s.coilD)}`, `coils ${s.coils}`, `material ${mat("music_wire")}`);
+      if (s.coil)
+        props.push(
+          `wire ${q("length", s.wire)}`,
+          `coil ${q("length", s.coilD)}`,
+          `coils ${s.coils}`,
+          `material ${mat("music_wire")}`,
+        );
       else props.push(`rate ${q("stiffness", s.rate)}`);
       props.push(`free_length ${q("length", s.free)}`);
       if (s.tension) props.push(`initial_tension ${q("force", s.tension)}`);
@@ -356,16 +567,25 @@ function renderSpring(s: SpringGen, i: number, base: string, hangers: Hanger[], 
       if (s.stretch) props.push(`max_stretch ${formatNumber(s.stretch, 1)}`);
       break;
     case "gas":
-      props.push(`force ${q("force", s.force)}`, `progression ${formatNumber(s.progression, 1)}`, `stroke ${q("length", { ...s.extended, value: s.extended.value * s.strokeRatio })}`, `extended_length ${q("length", s.extended)}`);
+      props.push(
+        `force ${q("force", s.force)}`,
+        `progression ${formatNumber(s.progression, 1)}`,
+        `stroke ${q("length", { ...s.extended, value: s.extended.value * s.strokeRatio })}`,
+        `extended_length ${q("length", s.extended)}`,
+      );
       break;
   }
   return { head, props };
 }
 
 function renderPayload(p: PayloadGen, i: number, base: string, hangers: Hanger[]): Decl {
-  const on = p.onBase && p.body % 5 === 0 ? base : hangers.length ? hangers[p.body % hangers.length]!.body : base;
+  const on =
+    p.onBase && p.body % 5 === 0 ? base : hangers.length ? hangers[p.body % hangers.length]!.body : base;
   const props = [`mass ${q("mass", p.mass)}`, `at ${on}(${q("length", p.at.x)}, ${q("length", p.at.y)})`];
-  if (p.range) props.push(`range ${q("mass", { ...p.mass, value: p.mass.value * p.range.low * 0.999 })} .. ${q("mass", { ...p.mass, value: p.mass.value * p.range.high * 1.001 })}`);
+  if (p.range)
+    props.push(
+      `range ${q("mass", { ...p.mass, value: p.mass.value * p.range.low * 0.999 })} .. ${q("mass", { ...p.mass, value: p.mass.value * p.range.high * 1.001 })}`,
+    );
   if (p.force) props.push(`force (${q("force", p.force.x)}, ${q("force", p.force.y)})`);
   return { head: `payload load_${i}`, props };
 }
@@ -393,7 +613,8 @@ function layout(g: SpecGen, decls: Decl[]): string {
     lines.push(`${indent}${d.head} {${comments && d.comment ? ` # ${d.comment}` : ""}`);
     if (semicolons && d.props.length > 1) {
       // Two properties on one line, `;`-separated, as the language allows.
-      for (let k = 0; k < d.props.length; k += 2) lines.push(`${indent}${indent}${d.props.slice(k, k + 2).join("; ")}`);
+      for (let k = 0; k < d.props.length; k += 2)
+        lines.push(`${indent}${indent}${d.props.slice(k, k + 2).join("; ")}`);
     } else for (const p of d.props) lines.push(`${indent}${indent}${p}`);
     lines.push(`${indent}}`);
   }

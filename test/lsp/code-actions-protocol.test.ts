@@ -3,7 +3,12 @@
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
-import { CodeActionRequest, type CodeAction, type Diagnostic, type PublishDiagnosticsParams } from "vscode-languageserver-protocol/node";
+import {
+  CodeActionRequest,
+  type CodeAction,
+  type Diagnostic,
+  type PublishDiagnosticsParams,
+} from "vscode-languageserver-protocol/node";
 import { TextDocument } from "vscode-languageserver-textdocument";
 import { ProtocolSession, ROOT, ensureBuilt } from "./protocol-client";
 import { ARM_VIEW_REQUEST, type ArmViewResult } from "../../server/src/lsp/preview-protocol";
@@ -22,7 +27,11 @@ afterAll(async () => {
 });
 
 async function actionsFor(uri: string, diagnostic: Diagnostic): Promise<CodeAction[]> {
-  const result = await session.connection.sendRequest(CodeActionRequest.type, { textDocument: { uri }, range: diagnostic.range, context: { diagnostics: [diagnostic], only: ["quickfix"] } });
+  const result = await session.connection.sendRequest(CodeActionRequest.type, {
+    textDocument: { uri },
+    range: diagnostic.range,
+    context: { diagnostics: [diagnostic], only: ["quickfix"] },
+  });
   return (result ?? []) as CodeAction[];
 }
 
@@ -79,19 +88,23 @@ describe("balance quick fix on the unbalanced sample", () => {
 
 describe("pin quick fix over the protocol", () => {
   const uri = "file:///work/weak-pin.poise";
-  const text = PENDULUM_TEXT.replace("  base post {", "  material soft_pin {\n    density 1.2 g/cm^3\n    modulus 1 GPa\n    strength 5 MPa\n  }\n  base post {").replace(
-    "pin 3 mm steel_1018",
-    "pin 2 mm soft_pin",
-  );
+  const text = PENDULUM_TEXT.replace(
+    "  base post {",
+    "  material soft_pin {\n    density 1.2 g/cm^3\n    modulus 1 GPa\n    strength 5 MPa\n  }\n  base post {",
+  ).replace("pin 3 mm steel_1018", "pin 2 mm soft_pin");
 
   it("widens the pin and its strength diagnostic goes", async () => {
     const published = await session.open(uri, text, 1);
-    const pin = published.diagnostics.find((d) => d.code === "strength.overstress" && String(d.message).includes("pin"));
+    const pin = published.diagnostics.find(
+      (d) => d.code === "strength.overstress" && String(d.message).includes("pin"),
+    );
     expect(pin, `diagnostics: ${codes(published).join(", ")}`).toBeDefined();
     const fix = (await actionsFor(uri, pin!)).find((a) => a.title.startsWith("Widen shoulder's pin"));
     expect(fix).toBeDefined();
     const after = await session.replace(uri, applied(uri, text, fix!), 2);
-    expect(after.diagnostics.filter((d) => d.code === "strength.overstress" && String(d.message).includes("pin"))).toHaveLength(0);
+    expect(
+      after.diagnostics.filter((d) => d.code === "strength.overstress" && String(d.message).includes("pin")),
+    ).toHaveLength(0);
   });
 });
 
@@ -113,8 +126,13 @@ describe("missing unit quick fix over the protocol", () => {
 
   it("replaces an unknown name by the suggestion", async () => {
     const now = await session.diagnosticsFor(uri, 2);
-    const unknown = now.diagnostics.find((d) => d.code === "name.unknown" && String(d.message).includes("plaa"));
-    expect(unknown, `diagnostics: ${now.diagnostics.map((d) => `${d.code}: ${d.message}`).join(" | ")}`).toBeDefined();
+    const unknown = now.diagnostics.find(
+      (d) => d.code === "name.unknown" && String(d.message).includes("plaa"),
+    );
+    expect(
+      unknown,
+      `diagnostics: ${now.diagnostics.map((d) => `${d.code}: ${d.message}`).join(" | ")}`,
+    ).toBeDefined();
     const fix = (await actionsFor(uri, unknown!)).find((a) => a.title.includes("pla"));
     expect(fix).toBeDefined();
   });

@@ -3,20 +3,35 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { parse } from "../../server/src/syntax/parser";
-import { balanceFix, fixesFor, missingUnitFix, unknownNameFix, suggestionOf, suggestedValueFix, type TextFix } from "../../server/src/lsp/code-actions";
+import {
+  balanceFix,
+  fixesFor,
+  missingUnitFix,
+  unknownNameFix,
+  suggestionOf,
+  suggestedValueFix,
+  type TextFix,
+} from "../../server/src/lsp/code-actions";
 import { analyse } from "../../server/src/analysis";
 import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
 
 function apply(text: string, fix: TextFix): string {
   let out = text;
-  for (const e of [...fix.edits].sort((a, b) => b.span.start - a.span.start)) out = out.slice(0, e.span.start) + e.newText + out.slice(e.span.end);
+  for (const e of [...fix.edits].sort((a, b) => b.span.start - a.span.start))
+    out = out.slice(0, e.span.start) + e.newText + out.slice(e.span.end);
   return out;
 }
 
 describe("balance quick fix", () => {
   it("writes the best-fit rate in the unit the rate was written in, and names both hand forces", () => {
     const tree = parse(PENDULUM_TEXT);
-    const fix = balanceFix(PENDULUM_TEXT, tree, { springId: "lift", bestRate: K_BALANCED, bestInitialTension: 0, worstHandForceBefore: 4.41, worstHandForceAfter: 0.02 })!;
+    const fix = balanceFix(PENDULUM_TEXT, tree, {
+      springId: "lift",
+      bestRate: K_BALANCED,
+      bestInitialTension: 0,
+      worstHandForceBefore: 4.41,
+      worstHandForceAfter: 0.02,
+    })!;
     expect(fix).toBeDefined();
     const edited = apply(PENDULUM_TEXT, fix);
     // Exact unit definition: 1 N/mm = 1000 N/m (SI prefixes, SI Brochure 9th ed.).
@@ -28,8 +43,17 @@ describe("balance quick fix", () => {
   });
 
   it("adds an initial tension line to an extension spring that has none, indented like its rate", () => {
-    const text = PENDULUM_TEXT.replace("zero_length", "extension").replace("rate 0.55 N/mm", "rate 3.1 lbf/in\n    free_length 40 mm");
-    const fix = balanceFix(text, parse(text), { springId: "lift", bestRate: 600, bestInitialTension: 22.2, worstHandForceBefore: 3, worstHandForceAfter: 0.5 })!;
+    const text = PENDULUM_TEXT.replace("zero_length", "extension").replace(
+      "rate 0.55 N/mm",
+      "rate 3.1 lbf/in\n    free_length 40 mm",
+    );
+    const fix = balanceFix(text, parse(text), {
+      springId: "lift",
+      bestRate: 600,
+      bestInitialTension: 22.2,
+      worstHandForceBefore: 3,
+      worstHandForceAfter: 0.5,
+    })!;
     const edited = apply(text, fix);
     // NIST SP 811: 1 lbf/in = 4.4482216152605 N / 0.0254 m = 175.1268 N/m.
     expect(Number(/rate ([\d.]+) lbf\/in/.exec(edited)![1])).toBeCloseTo(600 / (4.4482216152605 / 0.0254), 2);
@@ -39,7 +63,13 @@ describe("balance quick fix", () => {
 
   it("writes a torsion spring's rate and its preload as a torque, even where the preload was an angle", () => {
     const text = readFileSync("samples/magnifier-arm.poise", "utf8");
-    const fix = balanceFix(text, parse(text), { springId: "lens_return", bestRate: 0.5, bestPreloadTorque: 0.12, worstHandForceBefore: 9, worstHandForceAfter: 0.5 })!;
+    const fix = balanceFix(text, parse(text), {
+      springId: "lens_return",
+      bestRate: 0.5,
+      bestPreloadTorque: 0.12,
+      worstHandForceBefore: 9,
+      worstHandForceAfter: 0.5,
+    })!;
     const edited = apply(text, fix);
     // 1 N*m/deg = 180/pi N*m/rad (definition of the degree, SI Brochure 9th ed., table 8).
     expect(Number(/rate ([\d.]+) N\*m\/deg/.exec(edited)![1])).toBeCloseTo((0.5 * Math.PI) / 180, 6);
@@ -85,12 +115,18 @@ describe("unit and name quick fixes", () => {
 
 describe("spelling fixes of keywords and property names", () => {
   it("a mistyped property and a mistyped declaration keyword are changed to the suggestion, and the finding goes", () => {
-    const text = 'arm "a" {\n  base b { point p (0 mm, 100 mm) }\n  lnk boom {\n    lenght 300 mm\n    mass 50 g\n  }\n}\n';
+    const text =
+      'arm "a" {\n  base b { point p (0 mm, 100 mm) }\n  lnk boom {\n    lenght 300 mm\n    mass 50 g\n  }\n}\n';
     let edited = text;
     for (const code of ["property.unknown", "declaration.unknown"]) {
       const f = analyse(edited, { modelOnly: true }).findings.find((x) => x.code === code)!;
       expect(f, code).toBeDefined();
-      const [fix] = fixesFor(edited, parse(edited), { code, span: f.span, message: f.message, ...(f.data ? { detail: f.data } : {}) });
+      const [fix] = fixesFor(edited, parse(edited), {
+        code,
+        span: f.span,
+        message: f.message,
+        ...(f.data ? { detail: f.data } : {}),
+      });
       expect(fix, code).toBeDefined();
       edited = apply(edited, fix!);
     }

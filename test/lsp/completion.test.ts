@@ -16,7 +16,10 @@ const MAGNIFIER = readFileSync(join(root, "samples", "magnifier-arm.poise"), "ut
 function at(text: string): string[] {
   const offset = text.indexOf("|");
   const clean = text.slice(0, offset) + text.slice(offset + 1);
-  const view = new SyntaxViews().view(TextDocument.create("file:///t.poise", "counterpoise", 1, clean), BUILTIN_MATERIAL_IDS);
+  const view = new SyntaxViews().view(
+    TextDocument.create("file:///t.poise", "counterpoise", 1, clean),
+    BUILTIN_MATERIAL_IDS,
+  );
   return completionsAt(view, offset, true).map((i) => i.label);
 }
 
@@ -56,7 +59,9 @@ describe("completion", () => {
   it("offers every material after a pin's diameter, and after a section in bars", () => {
     const pin = at(inside("joint lens_tilt", "pin 3 mm |"));
     expect(pin.sort()).toEqual([...BUILTIN_MATERIAL_IDS].sort());
-    expect(at(inside("parallelogram stage", "bars rect 8 mm x 4 mm |")).sort()).toEqual([...BUILTIN_MATERIAL_IDS].sort());
+    expect(at(inside("parallelogram stage", "bars rect 8 mm x 4 mm |")).sort()).toEqual(
+      [...BUILTIN_MATERIAL_IDS].sort(),
+    );
     expect(at(inside("parallelogram stage", "bars rect 8 mm |"))).toEqual(["x"]);
     expect(at(inside("parallelogram stage", "bars |")).sort()).toEqual(["rect", "rod", "tube"]);
   });
@@ -67,7 +72,9 @@ describe("completion", () => {
     expect(at(inside("spring lens_return", "preload 2|"))).toEqual([]);
     expect(at(inside("link lens_arm", "mass 12g|"))).toEqual([...UNITS_BY_DIMENSION.mass]);
     // A torsion spring's rate is angular.
-    expect(at(inside("spring lens_return", "rate 0.004 |"))).toEqual([...UNITS_BY_DIMENSION.angular_stiffness]);
+    expect(at(inside("spring lens_return", "rate 0.004 |"))).toEqual([
+      ...UNITS_BY_DIMENSION.angular_stiffness,
+    ]);
   });
 
   it("offers lengths inside an inline point and `..` inside a range", () => {
@@ -78,7 +85,9 @@ describe("completion", () => {
 
   it("offers bodies after `connects`, `to` after the first, and the parts of a parallelogram", () => {
     const bodies = at(inside("joint lens_tilt", "connects |"));
-    expect(bodies).toEqual(expect.arrayContaining(["clamp", "lens_arm", "stage.lower", "stage.upper", "stage.head"]));
+    expect(bodies).toEqual(
+      expect.arrayContaining(["clamp", "lens_arm", "stage.lower", "stage.upper", "stage.head"]),
+    );
     expect(at(inside("joint lens_tilt", "connects stage.head |"))).toEqual(["to"]);
     // the child of a joint is never the base (language.md: the base is the fixed ground)
     const children = at(inside("joint lens_tilt", "connects stage.head to |"));

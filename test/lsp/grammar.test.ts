@@ -6,7 +6,9 @@ import { join } from "node:path";
 import { UNITS_BY_DIMENSION } from "../../server/src/lsp/unit-words";
 import { DECLARATIONS } from "../../server/src/model/schema";
 
-const grammar = JSON.parse(readFileSync(join(__dirname, "..", "..", "syntaxes", "counterpoise.tmLanguage.json"), "utf8"));
+const grammar = JSON.parse(
+  readFileSync(join(__dirname, "..", "..", "syntaxes", "counterpoise.tmLanguage.json"), "utf8"),
+);
 const pattern = (name: string) => new RegExp(grammar.repository[name].match, "m");
 
 describe("TextMate grammar", () => {
@@ -35,10 +37,13 @@ describe("TextMate grammar", () => {
 });
 
 describe("snippets", () => {
-  const snippets = JSON.parse(readFileSync(join(__dirname, "..", "..", "snippets", "counterpoise.json"), "utf8")) as Record<string, { prefix: string; body: string[] }>;
+  const snippets = JSON.parse(
+    readFileSync(join(__dirname, "..", "..", "snippets", "counterpoise.json"), "utf8"),
+  ) as Record<string, { prefix: string; body: string[] }>;
   it("offer one per declaration (a spring one per kind), with properties the schema knows", () => {
     const prefixes = Object.values(snippets).map((s) => s.prefix);
-    for (const d of DECLARATIONS) expect(prefixes.some((p) => p === d.keyword || p.startsWith(`${d.keyword}-`))).toBe(true);
+    for (const d of DECLARATIONS)
+      expect(prefixes.some((p) => p === d.keyword || p.startsWith(`${d.keyword}-`))).toBe(true);
     for (const s of Object.values(snippets)) {
       const keyword = s.body[0]!.split(" ")[0]!;
       const spec = DECLARATIONS.find((d) => d.keyword === keyword);

@@ -20,29 +20,56 @@ describe("extension manifest", () => {
     const c = manifest.contributes;
     expect(c.languages[0]).toMatchObject({ id: "counterpoise", extensions: [".poise"] });
     expect(c.languages[0].aliases).toContain("Counterpoise");
-    for (const path of [c.languages[0].configuration, c.grammars[0].path, c.snippets[0].path]) expect(existsSync(join(root, path)), path).toBe(true);
+    for (const path of [c.languages[0].configuration, c.grammars[0].path, c.snippets[0].path])
+      expect(existsSync(join(root, path)), path).toBe(true);
     expect(manifest.main).toBe("./dist/client.js"); // built by scripts/build.mjs
     expect(manifest.activationEvents).toContain("onLanguage:counterpoise");
   });
 
   it("declares exactly the server's settings, with the same defaults", () => {
     const props = manifest.contributes.configuration.properties as Record<string, { default: unknown }>;
-    for (const [key, value] of Object.entries(DEFAULT_SETTINGS)) expect(props[`counterpoise.${key}`]?.default, key).toEqual(value);
+    for (const [key, value] of Object.entries(DEFAULT_SETTINGS))
+      expect(props[`counterpoise.${key}`]?.default, key).toEqual(value);
     const declared = Object.keys(props).filter((k) => k !== "counterpoise.trace.server");
-    expect(declared.sort()).toEqual(Object.keys(DEFAULT_SETTINGS).map((k) => `counterpoise.${k}`).sort());
+    expect(declared.sort()).toEqual(
+      Object.keys(DEFAULT_SETTINGS)
+        .map((k) => `counterpoise.${k}`)
+        .sort(),
+    );
   });
 
   it("registers every command it declares", () => {
-    for (const c of manifest.contributes.commands as { command: string }[]) expect(clientSource, c.command).toContain(`"${c.command}"`);
+    for (const c of manifest.contributes.commands as { command: string }[])
+      expect(clientSource, c.command).toContain(`"${c.command}"`);
   });
 
   it("packs only the bundles and the editor files into the .vsix", () => {
     ensureBuilt();
-    const r = spawnSync(process.execPath, [join(root, "node_modules", "@vscode", "vsce", "vsce"), "ls", "--no-dependencies"], { cwd: root, encoding: "utf8", timeout: 60_000 });
-    const files = r.stdout.trim().split("\n").map((l) => l.trim());
-    expect(files).toEqual(expect.arrayContaining(["package.json", "README.md", "LICENSE", "language-configuration.json", "syntaxes/counterpoise.tmLanguage.json", "snippets/counterpoise.json", "dist/client.js", "dist/server.js", "dist/analysis-worker.js"]));
+    const r = spawnSync(
+      process.execPath,
+      [join(root, "node_modules", "@vscode", "vsce", "vsce"), "ls", "--no-dependencies"],
+      { cwd: root, encoding: "utf8", timeout: 60_000 },
+    );
+    const files = r.stdout
+      .trim()
+      .split("\n")
+      .map((l) => l.trim());
+    expect(files).toEqual(
+      expect.arrayContaining([
+        "package.json",
+        "README.md",
+        "LICENSE",
+        "language-configuration.json",
+        "syntaxes/counterpoise.tmLanguage.json",
+        "snippets/counterpoise.json",
+        "dist/client.js",
+        "dist/server.js",
+        "dist/analysis-worker.js",
+      ]),
+    );
     // Bundled: no dependency, source, test, map or command-line bundle goes in.
-    const allowed = /^(package\.json|README\.md|LICENSE|CHANGELOG\.md|language-configuration\.json|syntaxes\/[\w.-]+\.json|snippets\/[\w.-]+\.json|dist\/(client|server|analysis-worker|preview-[\w-]+)\.js|client\/media\/[\w.-]+\.(css|svg|png))$/;
+    const allowed =
+      /^(package\.json|README\.md|LICENSE|CHANGELOG\.md|language-configuration\.json|syntaxes\/[\w.-]+\.json|snippets\/[\w.-]+\.json|dist\/(client|server|analysis-worker|preview-[\w-]+)\.js|client\/media\/[\w.-]+\.(css|svg|png))$/;
     expect(files.filter((f) => !allowed.test(f))).toEqual([]);
   });
 });

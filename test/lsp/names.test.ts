@@ -7,10 +7,19 @@ import { join } from "node:path";
 import { parse } from "../../server/src/syntax/parser";
 import { buildModel } from "../../server/src/model/build";
 import { BUILTIN_MATERIAL_IDS } from "../../server/src/model/materials";
-import { buildNameIndex, mergeNameIndexes, nameIndexFromSymbols, occurrenceAt, occurrencesOf, type NameIndex } from "../../server/src/lsp/names";
+import {
+  buildNameIndex,
+  mergeNameIndexes,
+  nameIndexFromSymbols,
+  occurrenceAt,
+  occurrencesOf,
+  type NameIndex,
+} from "../../server/src/lsp/names";
 
 const root = join(__dirname, "..", "..");
-const samples = ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"].map((n) => readFileSync(join(root, "samples", `${n}.poise`), "utf8"));
+const samples = ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"].map((n) =>
+  readFileSync(join(root, "samples", `${n}.poise`), "utf8"),
+);
 const MAGNIFIER = samples[2]!;
 
 function textsOf(text: string, id: string): string[] {
@@ -24,7 +33,9 @@ describe("name index", () => {
     const all = occurrencesOf(index, "stage");
     // `parallelogram stage`, `stage.lower(60 mm, 0 mm)`, `connects stage.head ...`.
     expect(all.map((o) => o.declaration)).toEqual([true, false, false]);
-    expect(occurrencesOf(index, "stage.head").map((o) => MAGNIFIER.slice(o.span.start, o.span.end))).toEqual(["head"]);
+    expect(occurrencesOf(index, "stage.head").map((o) => MAGNIFIER.slice(o.span.start, o.span.end))).toEqual([
+      "head",
+    ]);
   });
 
   it("resolves named and built-in points", () => {
@@ -32,7 +43,11 @@ describe("name index", () => {
     const index = buildNameIndex(parse(MAGNIFIER), BUILTIN_MATERIAL_IDS);
     const end = occurrenceAt(index, MAGNIFIER.indexOf("lens_arm.end") + "lens_arm.".length + 1);
     expect(end?.symbolId).toBe("lens_arm.end");
-    expect(index.symbols.get("lens_arm.end")).toMatchObject({ builtin: true, renameable: false, parent: "lens_arm" });
+    expect(index.symbols.get("lens_arm.end")).toMatchObject({
+      builtin: true,
+      renameable: false,
+      parent: "lens_arm",
+    });
   });
 
   it("finds built-in materials in every material position", () => {
@@ -47,7 +62,10 @@ describe("name index", () => {
       const tree = parse(text);
       const built = buildModel(tree, text);
       const index = buildNameIndex(tree, BUILTIN_MATERIAL_IDS);
-      const ours = index.occurrences.filter((o) => !o.declaration).map((o) => `${o.span.start}:${o.symbolId}`).sort();
+      const ours = index.occurrences
+        .filter((o) => !o.declaration)
+        .map((o) => `${o.span.start}:${o.symbolId}`)
+        .sort();
       const theirs = built.symbols.references.map((r) => `${r.span.start}:${r.target.id}`).sort();
       // Every reference the model builder resolved, the index resolves to the same id.
       expect(ours).toEqual(expect.arrayContaining(theirs));
@@ -56,8 +74,12 @@ describe("name index", () => {
 
   it("reads the same from the model builder's table as from the tree alone", () => {
     const flat = (index: NameIndex) => ({
-      occurrences: index.occurrences.map((o) => `${o.span.start}-${o.span.end}:${o.symbolId}:${o.declaration}`),
-      symbols: [...index.symbols.values()].map((x) => `${x.id}:${x.kind}:${x.name}:${x.builtin}:${x.renameable}:${x.parent ?? ""}`).sort(),
+      occurrences: index.occurrences.map(
+        (o) => `${o.span.start}-${o.span.end}:${o.symbolId}:${o.declaration}`,
+      ),
+      symbols: [...index.symbols.values()]
+        .map((x) => `${x.id}:${x.kind}:${x.name}:${x.builtin}:${x.renameable}:${x.parent ?? ""}`)
+        .sort(),
       bodies: [...index.bodies].sort(),
     });
     for (const text of samples.slice(0, 3)) {
@@ -70,7 +92,10 @@ describe("name index", () => {
   it("completes the builder's table with what only the tree resolves", () => {
     const mistakes = samples[3]!;
     const tree = parse(mistakes);
-    const merged = mergeNameIndexes(nameIndexFromSymbols(buildModel(tree, mistakes).symbols, BUILTIN_MATERIAL_IDS), buildNameIndex(tree, BUILTIN_MATERIAL_IDS));
+    const merged = mergeNameIndexes(
+      nameIndexFromSymbols(buildModel(tree, mistakes).symbols, BUILTIN_MATERIAL_IDS),
+      buildNameIndex(tree, BUILTIN_MATERIAL_IDS),
+    );
     // `connects boom.tip to ...`: `tip` is no point of boom, but `boom` is still boom.
     const inTip = occurrenceAt(merged, mistakes.indexOf("boom.tip") + 1);
     expect(inTip?.symbolId).toBe("boom");

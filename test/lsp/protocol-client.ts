@@ -35,11 +35,26 @@ function newestSource(dir: string): number {
 
 /** Builds dist/ when it is missing or older than the sources. */
 export function ensureBuilt(): void {
-  const bundles = ["server.js", "analysis-worker.js", "cli.js", "client.js"].map((b) => join(ROOT, "dist", b));
+  const bundles = ["server.js", "analysis-worker.js", "cli.js", "client.js"].map((b) =>
+    join(ROOT, "dist", b),
+  );
   const built = bundles.every(existsSync) ? Math.min(...bundles.map((b) => statSync(b).mtimeMs)) : 0;
-  const sources = [join(ROOT, "server", "src"), join(ROOT, "client", "src")].filter(existsSync).map(newestSource);
-  if (built > Math.max(statSync(join(ROOT, "scripts", "build.mjs")).mtimeMs, statSync(join(ROOT, "package.json")).mtimeMs, ...sources)) return;
-  const r = spawnSync(process.execPath, [join(ROOT, "scripts", "build.mjs")], { cwd: ROOT, encoding: "utf8" });
+  const sources = [join(ROOT, "server", "src"), join(ROOT, "client", "src")]
+    .filter(existsSync)
+    .map(newestSource);
+  if (
+    built >
+    Math.max(
+      statSync(join(ROOT, "scripts", "build.mjs")).mtimeMs,
+      statSync(join(ROOT, "package.json")).mtimeMs,
+      ...sources,
+    )
+  )
+    return;
+  const r = spawnSync(process.execPath, [join(ROOT, "scripts", "build.mjs")], {
+    cwd: ROOT,
+    encoding: "utf8",
+  });
   if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
 }
 
@@ -48,13 +63,19 @@ export class ProtocolSession {
   readonly connection: ProtocolConnection;
   readonly logs: string[] = [];
   private readonly diagnostics: PublishDiagnosticsParams[] = [];
-  private waiters: { test: (p: PublishDiagnosticsParams) => boolean; resolve: (p: PublishDiagnosticsParams) => void }[] = [];
+  private waiters: {
+    test: (p: PublishDiagnosticsParams) => boolean;
+    resolve: (p: PublishDiagnosticsParams) => void;
+  }[] = [];
 
   /** `command`: the script and its arguments (default the bundled server over stdio). */
   constructor(settings: Record<string, unknown> = {}, command: string[] = [SERVER, "--stdio"]) {
     this.child = spawn(process.execPath, command, { cwd: ROOT, stdio: ["pipe", "pipe", "pipe"] });
     this.child.stderr!.on("data", (d: Buffer) => this.logs.push(d.toString()));
-    this.connection = createProtocolConnection(new StreamMessageReader(this.child.stdout!), new StreamMessageWriter(this.child.stdin!));
+    this.connection = createProtocolConnection(
+      new StreamMessageReader(this.child.stdout!),
+      new StreamMessageWriter(this.child.stdin!),
+    );
     this.connection.onNotification(PublishDiagnosticsNotification.type, (p) => {
       this.diagnostics.push(p);
       const ready = this.waiters.filter((w) => w.test(p));
@@ -66,7 +87,12 @@ export class ProtocolSession {
     });
     this.connection.onRequest(ConfigurationRequest.type, (params) => params.items.map(() => settings));
     // Registrations and refreshes the server asks for: accepted.
-    for (const method of ["client/registerCapability", "workspace/inlayHint/refresh", "workspace/semanticTokens/refresh"]) this.connection.onRequest(method, () => null);
+    for (const method of [
+      "client/registerCapability",
+      "workspace/inlayHint/refresh",
+      "workspace/semanticTokens/refresh",
+    ])
+      this.connection.onRequest(method, () => null);
     this.connection.listen();
   }
 
@@ -93,7 +119,8 @@ export class ProtocolSession {
   /** The first diagnostics for `uri` (at `version`, if given) published from now on, or already
    * published. */
   diagnosticsFor(uri: string, version?: number): Promise<PublishDiagnosticsParams> {
-    const test = (p: PublishDiagnosticsParams) => p.uri === uri && (version === undefined || p.version === version);
+    const test = (p: PublishDiagnosticsParams) =>
+      p.uri === uri && (version === undefined || p.version === version);
     const seen = this.diagnostics.find(test);
     if (seen) return Promise.resolve(seen);
     return new Promise((resolve) => this.waiters.push({ test, resolve }));
@@ -101,13 +128,18 @@ export class ProtocolSession {
 
   async open(uri: string, text: string, version = 1): Promise<PublishDiagnosticsParams> {
     const published = this.diagnosticsFor(uri, version);
-    await this.connection.sendNotification(DidOpenTextDocumentNotification.type, { textDocument: { uri, languageId: "counterpoise", version, text } });
+    await this.connection.sendNotification(DidOpenTextDocumentNotification.type, {
+      textDocument: { uri, languageId: "counterpoise", version, text },
+    });
     return published;
   }
 
   async replace(uri: string, text: string, version: number): Promise<PublishDiagnosticsParams> {
     const published = this.diagnosticsFor(uri, version);
-    await this.connection.sendNotification(DidChangeTextDocumentNotification.type, { textDocument: { uri, version }, contentChanges: [{ text }] });
+    await this.connection.sendNotification(DidChangeTextDocumentNotification.type, {
+      textDocument: { uri, version },
+      contentChanges: [{ text }],
+    });
     return published;
   }
 
@@ -126,7 +158,12 @@ export class ProtocolSession {
 }
 
 /** Position (0-based) of the `nth` occurrence of `needle` in `text`, plus `shift` characters. */
-export function positionOf(text: string, needle: string, shift = 0, nth = 0): { line: number; character: number } {
+export function positionOf(
+  text: string,
+  needle: string,
+  shift = 0,
+  nth = 0,
+): { line: number; character: number } {
   let at = -1;
   for (let i = 0; i <= nth; i++) {
     at = text.indexOf(needle, at + 1);

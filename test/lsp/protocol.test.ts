@@ -96,27 +96,47 @@ describe("a sample over the protocol", () => {
   });
 
   it("hovers a quantity with its value in the other unit system", async () => {
-    const h = await session.connection.sendRequest(HoverRequest.type, { ...doc, position: positionOf(CAMERA, LENGTH[0], "length ".length + 1) });
+    const h = await session.connection.sendRequest(HoverRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, LENGTH[0], "length ".length + 1),
+    });
     // 1 in = 0.0254 m exactly (NIST SP 811, 2008, B.8): e.g. 350 mm = 13.78 in to 4 figures.
     expect(hoverText(h)).toContain(`${Number((LENGTH_MM / 1000 / INCH_M).toPrecision(4))} in`);
   });
 
   it("hovers a name with what it is", async () => {
-    const h = await session.connection.sendRequest(HoverRequest.type, { ...doc, position: positionOf(CAMERA, "spring lift", 8) });
+    const h = await session.connection.sendRequest(HoverRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, "spring lift", 8),
+    });
     expect(hoverText(h)).toMatch(/\*\*lift\*\* — spring/);
-    const p = await session.connection.sendRequest(HoverRequest.type, { ...doc, position: positionOf(CAMERA, "reach.head(30", 7) });
+    const p = await session.connection.sendRequest(HoverRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, "reach.head(30", 7),
+    });
     expect(hoverText(p)).toMatch(/reach\.head\*\* — parallelogram head/);
   });
 
   it("goes from a generated body's prefix to its parallelogram", async () => {
-    const def = (await session.connection.sendRequest(DefinitionRequest.type, { ...doc, position: positionOf(CAMERA, "reach.lower(100", 1) })) as Location | null;
+    const def = (await session.connection.sendRequest(DefinitionRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, "reach.lower(100", 1),
+    })) as Location | null;
     expect(def?.range.start).toEqual(positionOf(CAMERA, "parallelogram reach", "parallelogram ".length));
-    const point = (await session.connection.sendRequest(DefinitionRequest.type, { ...doc, position: positionOf(CAMERA, "bench_clamp.anchor", "bench_clamp.".length + 2) })) as Location | null;
+    const point = (await session.connection.sendRequest(DefinitionRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, "bench_clamp.anchor", "bench_clamp.".length + 2),
+    })) as Location | null;
     expect(point?.range.start).toEqual(positionOf(CAMERA, "point anchor", "point ".length));
   });
 
   it("finds every reference of the base", async () => {
-    const refs = (await session.connection.sendRequest(ReferencesRequest.type, { ...doc, position: positionOf(CAMERA, "base bench_clamp", 6), context: { includeDeclaration: true } })) ?? [];
+    const refs =
+      (await session.connection.sendRequest(ReferencesRequest.type, {
+        ...doc,
+        position: positionOf(CAMERA, "base bench_clamp", 6),
+        context: { includeDeclaration: true },
+      })) ?? [];
     const occurrences = CAMERA.split("bench_clamp").length - 1;
     expect(refs).toHaveLength(occurrences);
   });
@@ -125,25 +145,42 @@ describe("a sample over the protocol", () => {
     const position = positionOf(CAMERA, "parallelogram reach", "parallelogram ".length + 1);
     const prepared = await session.connection.sendRequest(PrepareRenameRequest.type, { ...doc, position });
     expect(prepared).toMatchObject({ placeholder: "reach" });
-    const edit = (await session.connection.sendRequest(RenameRequest.type, { ...doc, position, newName: "stage" })) as WorkspaceEdit;
+    const edit = (await session.connection.sendRequest(RenameRequest.type, {
+      ...doc,
+      position,
+      newName: "stage",
+    })) as WorkspaceEdit;
     const renamed = apply(CAMERA, edit.changes![uri]!);
     expect(renamed).toContain("parallelogram stage");
     expect(renamed).toContain("stage.lower(100 mm, 0 mm)");
     expect(renamed).toContain("stage.head(30 mm, -60 mm)");
     expect(renamed).not.toMatch(/\breach\b/);
     // A generated body cannot be renamed on its own.
-    const lower = await session.connection.sendRequest(PrepareRenameRequest.type, { ...doc, position: positionOf(CAMERA, "reach.lower", "reach.".length + 1) });
+    const lower = await session.connection.sendRequest(PrepareRenameRequest.type, {
+      ...doc,
+      position: positionOf(CAMERA, "reach.lower", "reach.".length + 1),
+    });
     expect(lower).toBeNull();
   });
 
   it("completes what fits the position", async () => {
-    const at = (needle: string, shift: number) => session.connection.sendRequest(CompletionRequest.type, { ...doc, position: positionOf(CAMERA, needle, shift) });
+    const at = (needle: string, shift: number) =>
+      session.connection.sendRequest(CompletionRequest.type, {
+        ...doc,
+        position: positionOf(CAMERA, needle, shift),
+      });
     // Declaration keywords at the top of the arm.
-    expect(labels(await at("  base bench_clamp", 2))).toEqual(expect.arrayContaining(["link", "joint", "spring", "payload", "require"]));
+    expect(labels(await at("  base bench_clamp", 2))).toEqual(
+      expect.arrayContaining(["link", "joint", "spring", "payload", "require"]),
+    );
     // Bodies after `between`.
-    expect(labels(await at("between bench_clamp", "between ".length))).toEqual(expect.arrayContaining(["bench_clamp", "reach.lower", "reach.head"]));
+    expect(labels(await at("between bench_clamp", "between ".length))).toEqual(
+      expect.arrayContaining(["bench_clamp", "reach.lower", "reach.head"]),
+    );
     // Points after `body.`.
-    expect(labels(await at("bench_clamp.anchor and", "bench_clamp.".length))).toEqual(expect.arrayContaining(["pivot", "anchor"]));
+    expect(labels(await at("bench_clamp.anchor and", "bench_clamp.".length))).toEqual(
+      expect.arrayContaining(["pivot", "anchor"]),
+    );
     // Stiffness units after the number of `rate`.
     const rate = /rate [\d.]+ /.exec(CAMERA)![0]; // e.g. `rate 0.27 `, as the sample has it
     expect(labels(await at(rate, rate.length))).toEqual(["N/mm", "N/m", "lbf/in"]);
@@ -155,9 +192,19 @@ describe("a sample over the protocol", () => {
   });
 
   it("outlines the arm and folds its declarations", async () => {
-    const symbols = (await session.connection.sendRequest(DocumentSymbolRequest.type, doc)) as DocumentSymbol[];
+    const symbols = (await session.connection.sendRequest(
+      DocumentSymbolRequest.type,
+      doc,
+    )) as DocumentSymbol[];
     expect(symbols[0]!.name).toBe("Overhead camera arm over a leather bench");
-    expect(symbols[0]!.children!.map((s) => s.name)).toEqual(["bench_clamp", "reach", "lift", "camera", "require", "sweep"]);
+    expect(symbols[0]!.children!.map((s) => s.name)).toEqual([
+      "bench_clamp",
+      "reach",
+      "lift",
+      "camera",
+      "require",
+      "sweep",
+    ]);
     const folds = (await session.connection.sendRequest(FoldingRangeRequest.type, doc)) ?? [];
     // The arm, six declarations and the two-line comment at the top.
     expect(folds.length).toBe(8);
@@ -171,10 +218,18 @@ describe("a sample over the protocol", () => {
   });
 
   it("formats to a layout that formatting leaves alone", async () => {
-    const edits = (await session.connection.sendRequest(DocumentFormattingRequest.type, { ...doc, options: { tabSize: 2, insertSpaces: true } })) ?? [];
+    const edits =
+      (await session.connection.sendRequest(DocumentFormattingRequest.type, {
+        ...doc,
+        options: { tabSize: 2, insertSpaces: true },
+      })) ?? [];
     const once = apply(CAMERA, edits);
     await session.replace(uri, once, 2);
-    const again = (await session.connection.sendRequest(DocumentFormattingRequest.type, { ...doc, options: { tabSize: 2, insertSpaces: true } })) ?? [];
+    const again =
+      (await session.connection.sendRequest(DocumentFormattingRequest.type, {
+        ...doc,
+        options: { tabSize: 2, insertSpaces: true },
+      })) ?? [];
     expect(again).toEqual([]);
     await session.replace(uri, CAMERA, 3);
   });
@@ -200,7 +255,9 @@ describe("a sample over the protocol", () => {
     );
     await session.open(u, CAMERA);
     const s = await summary;
-    const table = JSON.parse(poise("sweep", "samples/camera-arm.poise").stdout) as { poses: { hand_force: Record<string, number> }[] };
+    const table = JSON.parse(poise("sweep", "samples/camera-arm.poise").stdout) as {
+      poses: { hand_force: Record<string, number> }[];
+    };
     const largest = Math.max(...table.poses.map((p) => p.hand_force.camera!));
     expect(s.worstHandForce?.payload).toBe("camera");
     // The sweep table rounds to 0.0001 N.
@@ -215,7 +272,10 @@ describe("the sample full of mistakes", () => {
 
   it("hovers a finding with what its code means", async () => {
     await session.open(u, MISTAKES);
-    const h = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri: u }, position: positionOf(MISTAKES, "plaa", 2) });
+    const h = await session.connection.sendRequest(HoverRequest.type, {
+      textDocument: { uri: u },
+      position: positionOf(MISTAKES, "plaa", 2),
+    });
     expect(hoverText(h)).toContain(`\`name.unknown\` — ${CODES["name.unknown"].explanation}`);
   });
 
@@ -224,18 +284,33 @@ describe("the sample full of mistakes", () => {
     const duplicate = published.diagnostics.find((d) => d.code === "name.duplicate");
     // The second `payload lamp` points back at the first.
     expect(duplicate?.range.start).toEqual(positionOf(MISTAKES, "payload lamp", 8, 1));
-    expect(duplicate?.relatedInformation?.[0]?.location).toEqual({ uri: u, range: expect.objectContaining({ start: positionOf(MISTAKES, "payload lamp", 8, 0) }) });
+    expect(duplicate?.relatedInformation?.[0]?.location).toEqual({
+      uri: u,
+      range: expect.objectContaining({ start: positionOf(MISTAKES, "payload lamp", 8, 0) }),
+    });
     const unknown = published.diagnostics.find((d) => d.code === "name.unknown");
     expect(unknown?.data).toMatchObject({ code: "name.unknown", detail: { suggestion: "pla" } });
   });
 
   it("refuses a rename onto a name already taken, and a name that is not one", async () => {
     const position = positionOf(MISTAKES, "link boom", 6);
-    const taken = session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "forearm" });
+    const taken = session.connection.sendRequest(RenameRequest.type, {
+      textDocument: { uri: u },
+      position,
+      newName: "forearm",
+    });
     await expect(taken).rejects.toThrow(/already a name/);
-    const bad = session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "2nd boom" });
+    const bad = session.connection.sendRequest(RenameRequest.type, {
+      textDocument: { uri: u },
+      position,
+      newName: "2nd boom",
+    });
     await expect(bad).rejects.toThrow(/cannot be a name/);
-    const fine = (await session.connection.sendRequest(RenameRequest.type, { textDocument: { uri: u }, position, newName: "upper_arm" })) as WorkspaceEdit;
+    const fine = (await session.connection.sendRequest(RenameRequest.type, {
+      textDocument: { uri: u },
+      position,
+      newName: "upper_arm",
+    })) as WorkspaceEdit;
     // `link boom`, `boom.start`, `boom.tip`, `boom(80 mm, 0 mm)`, `boom.end`: every `boom` but
     // the one in a comment.
     const outsideComments = MISTAKES.replace(/#.*$/gm, "");
@@ -256,7 +331,11 @@ describe("diagnostics follow the text", () => {
   });
 
   it("a lost brace brings a syntax error; putting it back takes it away", async () => {
-    const broken = await session.replace(editUri, CAMERA.replace("  sweep {\n    steps 37\n  }", "  sweep {\n    steps 37\n"), 4);
+    const broken = await session.replace(
+      editUri,
+      CAMERA.replace("  sweep {\n    steps 37\n  }", "  sweep {\n    steps 37\n"),
+      4,
+    );
     expect(broken.diagnostics.some((d) => d.code === "syntax.error")).toBe(true);
     const fixed = await session.replace(editUri, CAMERA, 5);
     expect(fixed.diagnostics.some((d) => d.code === "syntax.error")).toBe(false);
@@ -264,7 +343,8 @@ describe("diagnostics follow the text", () => {
 
   it("publishes only the latest of a burst of edits", async () => {
     const burst = [6, 7, 8, 9, 10];
-    for (const v of burst.slice(0, -1)) void session.replace(editUri, CAMERA.replace(LENGTH[0], `length ${300 + v} mm`), v);
+    for (const v of burst.slice(0, -1))
+      void session.replace(editUri, CAMERA.replace(LENGTH[0], `length ${300 + v} mm`), v);
     const last = await session.replace(editUri, CAMERA, 10);
     expect(last.version).toBe(10);
   });
@@ -280,11 +360,19 @@ describe("bounded work", () => {
     const u = "file:///work/heavy.poise";
     const order: string[] = [];
     const heavyDiagnostics = session.diagnosticsFor(u, 1).then(() => order.push("heavy diagnostics"));
-    await session.connection.sendNotification("textDocument/didOpen", { textDocument: { uri: u, languageId: "counterpoise", version: 1, text: HEAVY } });
-    const hover = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri: u }, position: positionOf(HEAVY, "parallelogram inner", 15) });
+    await session.connection.sendNotification("textDocument/didOpen", {
+      textDocument: { uri: u, languageId: "counterpoise", version: 1, text: HEAVY },
+    });
+    const hover = await session.connection.sendRequest(HoverRequest.type, {
+      textDocument: { uri: u },
+      position: positionOf(HEAVY, "parallelogram inner", 15),
+    });
     order.push("hover");
     expect(hoverText(hover)).toContain("inner");
-    const completion = await session.connection.sendRequest(CompletionRequest.type, { textDocument: { uri: u }, position: positionOf(HEAVY, "  base stand", 2) });
+    const completion = await session.connection.sendRequest(CompletionRequest.type, {
+      textDocument: { uri: u },
+      position: positionOf(HEAVY, "  base stand", 2),
+    });
     order.push("completion");
     expect(labels(completion)).toContain("spring");
     // The text changes while the heavy run is under way: only the new text's diagnostics come.
@@ -300,9 +388,12 @@ describe("bounded work", () => {
 describe("bad input never silences the server", () => {
   const cases: [string, string][] = [
     ["empty", ""],
-    ["garbage", "}}}{{ ((( ;;; ... \"unterminated\n\u0000\u0007 # \n arm arm arm {"],
-    ["unicode", "arm \"Bras d'équilibre — 平衡臂 🦾\" {\n  base Sockel { point oben (0 mm, 300 mm) }\n  link 腕 { length 300 mm }\n}\n"],
-    ["half-typed", "arm \"x\" {\n  spring s {\n    between \n    rate 0.3 N/\n  link"],
+    ["garbage", '}}}{{ ((( ;;; ... "unterminated\n\u0000\u0007 # \n arm arm arm {'],
+    [
+      "unicode",
+      'arm "Bras d\'équilibre — 平衡臂 🦾" {\n  base Sockel { point oben (0 mm, 300 mm) }\n  link 腕 { length 300 mm }\n}\n',
+    ],
+    ["half-typed", 'arm "x" {\n  spring s {\n    between \n    rate 0.3 N/\n  link'],
   ];
   for (const [name, text] of cases) {
     it(`${name}: diagnostics arrive and requests answer`, async () => {
@@ -318,7 +409,11 @@ describe("bad input never silences the server", () => {
       }
       await session.connection.sendRequest(DocumentSymbolRequest.type, { textDocument: { uri: u } });
       await session.connection.sendRequest(SemanticTokensRequest.type, { textDocument: { uri: u } });
-      const edits = (await session.connection.sendRequest(DocumentFormattingRequest.type, { textDocument: { uri: u }, options: { tabSize: 2, insertSpaces: true } })) ?? [];
+      const edits =
+        (await session.connection.sendRequest(DocumentFormattingRequest.type, {
+          textDocument: { uri: u },
+          options: { tabSize: 2, insertSpaces: true },
+        })) ?? [];
       // Formatting keeps every word of even a broken text.
       expect(apply(text, edits).replace(/\s+/g, "")).toBe(text.replace(/\s+/g, ""));
     });
@@ -326,13 +421,17 @@ describe("bad input never silences the server", () => {
 
   it("a 5,000-line spec is analysed and the server keeps answering", async () => {
     const links: string[] = [];
-    for (let i = 0; links.length * 4 < 5000; i++) links.push(`  link l${i} {\n    length ${100 + (i % 50)} mm\n    mass 20 g\n  }\n`);
+    for (let i = 0; links.length * 4 < 5000; i++)
+      links.push(`  link l${i} {\n    length ${100 + (i % 50)} mm\n    mass 20 g\n  }\n`);
     const text = `arm "long" {\n  base b { point top (0 mm, 100 mm) }\n${links.join("")}}\n`;
     expect(text.split("\n").length).toBeGreaterThanOrEqual(5000);
     const u = "file:///work/long.poise";
     const published = await session.open(u, text);
     expect(Array.isArray(published.diagnostics)).toBe(true);
-    const h = await session.connection.sendRequest(HoverRequest.type, { textDocument: { uri: u }, position: positionOf(text, "link l900", 7) });
+    const h = await session.connection.sendRequest(HoverRequest.type, {
+      textDocument: { uri: u },
+      position: positionOf(text, "link l900", 7),
+    });
     expect(hoverText(h)).toContain("l900");
   });
 });

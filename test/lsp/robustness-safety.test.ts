@@ -37,7 +37,10 @@ describe("nothing in a document is ever run", () => {
     [/(?<![.\w])Function\s*\(/, "Function()"],
     [/(from\s+|require\s*\(\s*|import\s*\(\s*)["'](node:)?child_process["']/, "child_process"],
     [/(from\s+|require\s*\(\s*|import\s*\(\s*)["'](node:)?vm["']/, "vm"],
-    [/(from\s+|require\s*\(\s*|import\s*\(\s*)["'](node:)?(net|http|https|http2|dgram|tls)["']/, "network module"],
+    [
+      /(from\s+|require\s*\(\s*|import\s*\(\s*)["'](node:)?(net|http|https|http2|dgram|tls)["']/,
+      "network module",
+    ],
     [/\bimport\s*\(\s*[^"'\s)]/, "import() of a computed name"],
     [/\brequire\s*\(\s*[^"'\s)]/, "require() of a computed name"],
     [/setTimeout\s*\(\s*["'`]/, "setTimeout with a string"],
@@ -53,8 +56,12 @@ describe("nothing in a document is ever run", () => {
   });
 
   it("the core (syntax to checks, analysis.ts) and the view layer import no Node module at all", () => {
-    const core = serverSources.filter((f) => /server\/src\/(syntax|units|model|mechanics|checks|view)\/|server\/src\/analysis\.ts$/.test(f));
-    const hits = core.filter((f) => /from\s+["'](node:|fs["']|path["']|os["'])/.test(codeOnly(readFileSync(f, "utf8")))).map((f) => relative(root, f));
+    const core = serverSources.filter((f) =>
+      /server\/src\/(syntax|units|model|mechanics|checks|view)\/|server\/src\/analysis\.ts$/.test(f),
+    );
+    const hits = core
+      .filter((f) => /from\s+["'](node:|fs["']|path["']|os["'])/.test(codeOnly(readFileSync(f, "utf8"))))
+      .map((f) => relative(root, f));
     expect(hits).toEqual([]);
   });
 
@@ -64,8 +71,14 @@ describe("nothing in a document is ever run", () => {
     for (const f of lsp) {
       const code = codeOnly(readFileSync(f, "utf8"));
       const m = /import\s*\{([^}]*)\}\s*from\s*["'](?:node:)?fs(?:\/promises)?["']/.exec(code);
-      if (m) for (const name of m[1]!.split(",").map((s) => s.trim()).filter(Boolean)) if (name !== "existsSync") uses.push(`${relative(root, f)}: ${name}`);
-      if (/import\s+\*\s+as\s+\w+\s+from\s*["'](?:node:)?fs/.test(code)) uses.push(`${relative(root, f)}: fs namespace`);
+      if (m)
+        for (const name of m[1]!
+          .split(",")
+          .map((s) => s.trim())
+          .filter(Boolean))
+          if (name !== "existsSync") uses.push(`${relative(root, f)}: ${name}`);
+      if (/import\s+\*\s+as\s+\w+\s+from\s*["'](?:node:)?fs/.test(code))
+        uses.push(`${relative(root, f)}: fs namespace`);
     }
     expect(uses).toEqual([]);
   });
@@ -77,7 +90,10 @@ describe("the server under Node's permission model (reads only its bundle folder
 
   beforeAll(async () => {
     if (!existsSync(serverPath)) {
-      const r = spawnSync(process.execPath, [join(root, "scripts", "build.mjs")], { cwd: root, encoding: "utf8" });
+      const r = spawnSync(process.execPath, [join(root, "scripts", "build.mjs")], {
+        cwd: root,
+        encoding: "utf8",
+      });
       if (r.status !== 0) throw new Error(`build failed: ${r.stderr}`);
     }
     scratch = mkdtempSync(join(tmpdir(), "poise-safety-"));
@@ -103,7 +119,9 @@ describe("the server under Node's permission model (reads only its bundle folder
       await session.open(uri, readFileSync(join(root, "samples", f), "utf8"), version);
       const published = await session.waitForDiagnostics(uri, version, 20_000);
       expect(published, `${f}: no diagnostics`).toBeDefined();
-      await session.request("textDocument/hover", { textDocument: { uri }, position: { line: 5, character: 4 } }).catch((e: unknown) => e);
+      await session
+        .request("textDocument/hover", { textDocument: { uri }, position: { line: 5, character: 4 } })
+        .catch((e: unknown) => e);
       version++;
     }
     expect(session.errorLogs.filter((l) => /ERR_ACCESS_DENIED|permission/i.test(l))).toEqual([]);
@@ -130,7 +148,10 @@ describe("the server under Node's permission model (reads only its bundle folder
     await session.open(uri, hostile, 1);
     const published = await session.waitForDiagnostics(uri, 1, 20_000);
     expect(published).toBeDefined();
-    for (const line of [0, 3, 6]) await session.request("textDocument/hover", { textDocument: { uri }, position: { line, character: 10 } }).catch((e: unknown) => e);
+    for (const line of [0, 3, 6])
+      await session
+        .request("textDocument/hover", { textDocument: { uri }, position: { line, character: 10 } })
+        .catch((e: unknown) => e);
     expect(existsSync(marker)).toBe(false);
     expect(session.errorLogs.filter((l) => /ERR_ACCESS_DENIED|permission/i.test(l))).toEqual([]);
     expect(session.alive).toBe(true);
@@ -141,12 +162,20 @@ describe("generated HTML has a strict content-security policy", () => {
   it("the report page: nothing loads from anywhere, no script runs", async () => {
     const reportModule = join(root, "server", "src", "cli", "report.ts");
     if (!existsSync(reportModule)) return expect.fail("server/src/cli/report.ts is missing");
-    const { reportHtml } = (await import("../../server/src/cli/report")) as { reportHtml: (text: string, file: string) => { html: string } };
+    const { reportHtml } = (await import("../../server/src/cli/report")) as {
+      reportHtml: (text: string, file: string) => { html: string };
+    };
     const text = readFileSync(join(root, "samples", "camera-arm.poise"), "utf8");
     const { html } = reportHtml(text, "samples/camera-arm.poise");
     const csp = /<meta\s+http-equiv="Content-Security-Policy"\s+content="([^"]+)"/i.exec(html)?.[1];
     expect(csp, "no CSP meta tag").toBeDefined();
-    const directives = Object.fromEntries(csp!.split(";").map((d) => d.trim().split(/\s+/)).filter((d) => d[0]).map(([k, ...v]) => [k!, v]));
+    const directives = Object.fromEntries(
+      csp!
+        .split(";")
+        .map((d) => d.trim().split(/\s+/))
+        .filter((d) => d[0])
+        .map(([k, ...v]) => [k!, v]),
+    );
     // W3C Content Security Policy Level 3: default-src 'none' blocks every fetch not allowed below.
     expect(directives["default-src"]).toEqual(["'none'"]);
     expect(csp).not.toMatch(/unsafe-eval|\*|https?:/);
@@ -157,7 +186,9 @@ describe("generated HTML has a strict content-security policy", () => {
   });
 
   it("the report page shows a hostile title and unknown words as text, never as markup", async () => {
-    const { reportHtml } = (await import("../../server/src/cli/report")) as { reportHtml: (text: string, file: string) => { html: string } };
+    const { reportHtml } = (await import("../../server/src/cli/report")) as {
+      reportHtml: (text: string, file: string) => { html: string };
+    };
     const hostile = readFileSync(join(root, "samples", "camera-arm.poise"), "utf8")
       .replace(/arm "[^"]*"/, 'arm "<img src=x onerror=alert(1)><script>alert(2)</script>"')
       .replace("mass 600 g", "mass 600 <b>g</b>");
@@ -167,11 +198,25 @@ describe("generated HTML has a strict content-security policy", () => {
   });
 
   it("the preview's page shell: default-src 'none', the script only by its nonce, a fresh nonce each time", async () => {
-    const { previewHtml, makeNonce } = (await import("../../client/src/preview-html")) as { previewHtml: (p: { cspSource: string; nonce: string; scriptUri: string; styleUri: string }) => string; makeNonce: () => string };
+    const { previewHtml, makeNonce } = (await import("../../client/src/preview-html")) as {
+      previewHtml: (p: { cspSource: string; nonce: string; scriptUri: string; styleUri: string }) => string;
+      makeNonce: () => string;
+    };
     const nonce = makeNonce();
-    const html = previewHtml({ cspSource: "vscode-resource:", nonce, scriptUri: "vscode-resource:/dist/preview-page.js", styleUri: "vscode-resource:/media/preview.css" });
+    const html = previewHtml({
+      cspSource: "vscode-resource:",
+      nonce,
+      scriptUri: "vscode-resource:/dist/preview-page.js",
+      styleUri: "vscode-resource:/media/preview.css",
+    });
     const csp = /<meta\s+http-equiv="Content-Security-Policy"\s+content="([^"]+)"/i.exec(html)?.[1] ?? "";
-    const directives = Object.fromEntries(csp.split(";").map((d) => d.trim().split(/\s+/)).filter((d) => d[0]).map(([k, ...v]) => [k!, v]));
+    const directives = Object.fromEntries(
+      csp
+        .split(";")
+        .map((d) => d.trim().split(/\s+/))
+        .filter((d) => d[0])
+        .map(([k, ...v]) => [k!, v]),
+    );
     // W3C Content Security Policy Level 3: default-src 'none', scripts by nonce only, nothing inline or evaluated.
     expect(directives["default-src"]).toEqual(["'none'"]);
     expect(directives["script-src"]).toEqual([`'nonce-${nonce}'`]);
@@ -182,8 +227,12 @@ describe("generated HTML has a strict content-security policy", () => {
   });
 
   it("every page the extension or the view layer builds declares default-src 'none' and scripts only by nonce", () => {
-    const viewSources = serverSources.filter((f) => f.includes("/server/src/view/") || f.includes("/server/src/lsp/"));
-    const pages = [...clientSources, ...viewSources].filter((f) => /<html|<!DOCTYPE/i.test(readFileSync(f, "utf8")));
+    const viewSources = serverSources.filter(
+      (f) => f.includes("/server/src/view/") || f.includes("/server/src/lsp/"),
+    );
+    const pages = [...clientSources, ...viewSources].filter((f) =>
+      /<html|<!DOCTYPE/i.test(readFileSync(f, "utf8")),
+    );
     for (const f of pages) {
       const code = readFileSync(f, "utf8");
       expect(code, relative(root, f)).toMatch(/Content-Security-Policy/);
@@ -192,7 +241,10 @@ describe("generated HTML has a strict content-security policy", () => {
       expect(code, relative(root, f)).not.toMatch(/script-src[^;"]*'unsafe-inline'/);
     }
     // Once the extension shows a webview, its page must be among those checked.
-    const showsWebview = clientSources.some((f) => /createWebviewPanel|\.webview\.html\s*=/.test(readFileSync(f, "utf8")));
-    if (showsWebview) expect(pages.length, "a webview is shown but no page with a CSP was found").toBeGreaterThan(0);
+    const showsWebview = clientSources.some((f) =>
+      /createWebviewPanel|\.webview\.html\s*=/.test(readFileSync(f, "utf8")),
+    );
+    if (showsWebview)
+      expect(pages.length, "a webview is shown but no page with a CSP was found").toBeGreaterThan(0);
   });
 });

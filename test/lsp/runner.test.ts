@@ -11,7 +11,10 @@ import { ROOT, ensureBuilt } from "./protocol-client";
 
 const WORKER = join(ROOT, "dist", "analysis-worker.js");
 const CAMERA = readFileSync(join(ROOT, "samples", "camera-arm.poise"), "utf8");
-const HEAVY = readFileSync(join(ROOT, "samples", "engraver-arm.poise"), "utf8").replace(/steps \d+/, "steps 2001");
+const HEAVY = readFileSync(join(ROOT, "samples", "engraver-arm.poise"), "utf8").replace(
+  /steps \d+/,
+  "steps 2001",
+);
 
 beforeAll(() => ensureBuilt());
 
@@ -23,7 +26,9 @@ describe("analysis runner", () => {
     expect(outcome.kind).toBe("done");
     if (outcome.kind !== "done") return;
     const here = analyse(CAMERA);
-    expect(outcome.analysis.findings.map((f) => [f.code, f.span.start])).toEqual(here.findings.map((f) => [f.code, f.span.start]));
+    expect(outcome.analysis.findings.map((f) => [f.code, f.span.start])).toEqual(
+      here.findings.map((f) => [f.code, f.span.start]),
+    );
     expect(outcome.analysis.sweep?.poses.length).toBe(here.sweep?.poses.length);
   });
 

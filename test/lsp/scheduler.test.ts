@@ -23,7 +23,14 @@ class FakeRunner implements AnalysisRunner {
   run(text: string, options: AnalysisOptions, hardLimitMs: number): RunHandle {
     let finish!: (o: RunOutcome) => void;
     const outcome = new Promise<RunOutcome>((resolve) => (finish = resolve));
-    const run: FakeRun = { text, options, hardLimitMs, startedAt: performance.now(), cancelled: false, finish };
+    const run: FakeRun = {
+      text,
+      options,
+      hardLimitMs,
+      startedAt: performance.now(),
+      cancelled: false,
+      finish,
+    };
     this.runs.push(run);
     return {
       outcome,
@@ -52,7 +59,12 @@ function setUp(settings: Partial<Settings> = {}) {
   const runner = new FakeRunner();
   const published: PublishedAnalysis[] = [];
   const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 5, stepsWhileTyping: 0, ...settings };
-  const scheduler = new AnalysisScheduler(runner, () => s, (p) => published.push(p), () => undefined);
+  const scheduler = new AnalysisScheduler(
+    runner,
+    () => s,
+    (p) => published.push(p),
+    () => undefined,
+  );
   return { runner, published, scheduler };
 }
 
@@ -128,7 +140,12 @@ describe("analysis scheduler", () => {
     const runner = new FakeRunner();
     const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 1, stepsWhileTyping: 9 };
     // As typing-density.ts answers: the setting, or nothing where the spec asks for fewer.
-    const scheduler = new AnalysisScheduler(runner, () => s, () => undefined, (_uri, text, setting) => (text.includes("steps 5") ? undefined : setting));
+    const scheduler = new AnalysisScheduler(
+      runner,
+      () => s,
+      () => undefined,
+      (_uri, text, setting) => (text.includes("steps 5") ? undefined : setting),
+    );
     scheduler.update("u", 1, "steps 37", "full", true);
     await until(() => runner.runs.length === 1, "open run");
     expect(runner.runs[0]!.options.stepsOverride).toBeUndefined();

@@ -12,7 +12,10 @@ const CAMERA = readFileSync(join(__dirname, "..", "..", "samples", "camera-arm.p
 
 /** Offset → [type, modifiers] of the token starting there. */
 function decode(text: string): Map<number, { type: string; modifiers: string[]; length: number }> {
-  const view = new SyntaxViews().view(TextDocument.create("file:///c.poise", "counterpoise", 1, text), BUILTIN_MATERIAL_IDS);
+  const view = new SyntaxViews().view(
+    TextDocument.create("file:///c.poise", "counterpoise", 1, text),
+    BUILTIN_MATERIAL_IDS,
+  );
   const data = semanticTokens(view).data;
   const lines = new LineIndex(text);
   const out = new Map<number, { type: string; modifiers: string[]; length: number }>();
@@ -22,7 +25,11 @@ function decode(text: string): Map<number, { type: string; modifiers: string[]; 
     line += data[i]!;
     char = data[i] === 0 ? char + data[i + 1]! : data[i + 1]!;
     const mods = TOKEN_MODIFIERS.filter((_, k) => (data[i + 4]! >> k) & 1);
-    out.set(lines.offset({ line, character: char }), { type: TOKEN_TYPES[data[i + 3]!]!, modifiers: [...mods], length: data[i + 2]! });
+    out.set(lines.offset({ line, character: char }), {
+      type: TOKEN_TYPES[data[i + 3]!]!,
+      modifiers: [...mods],
+      length: data[i + 2]!,
+    });
   }
   return out;
 }

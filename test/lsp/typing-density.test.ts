@@ -7,16 +7,32 @@ import { parse } from "../../server/src/syntax/parser";
 import { sweepShape, typingSteps, TYPING_BODY_POSE_BUDGET } from "../../server/src/lsp/typing-density";
 import { chainSpec } from "../fuzz/big-spec";
 
-const sample = (name: string) => parse(readFileSync(join(__dirname, "..", "..", "samples", `${name}.poise`), "utf8"));
+const sample = (name: string) =>
+  parse(readFileSync(join(__dirname, "..", "..", "samples", `${name}.poise`), "utf8"));
 
 describe("while-typing density", () => {
   it("reads the degrees of freedom, steps and grid of a spec", () => {
     // camera: the base and one parallelogram (three bodies) with a range; `sweep { steps 37 }`.
-    expect(sweepShape(sample("camera-arm"))).toEqual({ dofs: 1, bodies: 4, steps: 37, grid: true, loadCases: 1 });
+    expect(sweepShape(sample("camera-arm"))).toEqual({
+      dofs: 1,
+      bodies: 4,
+      steps: 37,
+      grid: true,
+      loadCases: 1,
+    });
     // engraver: two stages with ranges (the turret is fixed), its own `steps N`, `grid on`, and a
     // payload mass range: the nominal case plus both ends.
-    const engraverSteps = Number(/steps (\d+)/.exec(readFileSync(join(__dirname, "..", "..", "samples", "engraver-arm.poise"), "utf8"))![1]);
-    expect(sweepShape(sample("engraver-arm"))).toMatchObject({ dofs: 2, steps: engraverSteps, grid: true, loadCases: 3 });
+    const engraverSteps = Number(
+      /steps (\d+)/.exec(
+        readFileSync(join(__dirname, "..", "..", "samples", "engraver-arm.poise"), "utf8"),
+      )![1],
+    );
+    expect(sweepShape(sample("engraver-arm"))).toMatchObject({
+      dofs: 2,
+      steps: engraverSteps,
+      grid: true,
+      loadCases: 3,
+    });
   });
 
   it("keeps the setting where the grid stays small", () => {
@@ -33,7 +49,9 @@ describe("while-typing density", () => {
     const thinned = typingSteps(sample("engraver-arm"), 13)!;
     expect(thinned ** 2 * work).toBeLessThanOrEqual(TYPING_BODY_POSE_BUDGET);
     expect((thinned + 1) ** 2 * work).toBeGreaterThan(TYPING_BODY_POSE_BUDGET);
-    const three = parse('arm "a" {\n base b {}\n link l {}\n joint a { range 0 deg .. 1 deg }\n joint b { range 0 deg .. 1 deg }\n joint c { range 0 deg .. 1 deg }\n}');
+    const three = parse(
+      'arm "a" {\n base b {}\n link l {}\n joint a { range 0 deg .. 1 deg }\n joint b { range 0 deg .. 1 deg }\n joint c { range 0 deg .. 1 deg }\n}',
+    );
     const steps = typingSteps(three, 13)!;
     expect(steps ** 3 * 2).toBeLessThanOrEqual(TYPING_BODY_POSE_BUDGET);
     expect((steps + 1) ** 3 * 2).toBeGreaterThan(TYPING_BODY_POSE_BUDGET);
@@ -50,7 +68,9 @@ describe("while-typing density", () => {
   });
 
   it("never asks for more than the spec, nor anything when switched off", () => {
-    expect(typingSteps(parse('arm "a" {\n joint a { range 0 deg .. 1 deg }\n sweep { steps 5 }\n}'), 13)).toBeUndefined();
+    expect(
+      typingSteps(parse('arm "a" {\n joint a { range 0 deg .. 1 deg }\n sweep { steps 5 }\n}'), 13),
+    ).toBeUndefined();
     expect(typingSteps(sample("camera-arm"), 0)).toBeUndefined();
   });
 });

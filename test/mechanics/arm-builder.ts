@@ -24,13 +24,33 @@ export class ArmBuilder {
       title: "test arm",
       gravity: G0,
       base: { bodyId: baseId, mass: 0, yaw: false, surface: 0 },
-      bodies: [{ id: baseId, kind: "base", length: 0, mass: 0, massGiven: true, centreOfMass: { x: 0, y: 0 }, points: { ...basePoints }, origin: origin() }],
+      bodies: [
+        {
+          id: baseId,
+          kind: "base",
+          length: 0,
+          mass: 0,
+          massGiven: true,
+          centreOfMass: { x: 0, y: 0 },
+          points: { ...basePoints },
+          origin: origin(),
+        },
+      ],
       joints: [],
       parallelograms: [],
       springs: [],
       payloads: [],
       materials: {
-        latex: { id: "latex", density: 930, modulus: 1.2e6, shearModulus: 0.4e6, poisson: 0.5, strength: 20e6, printed: false, builtin: true },
+        latex: {
+          id: "latex",
+          density: 930,
+          modulus: 1.2e6,
+          shearModulus: 0.4e6,
+          poisson: 0.5,
+          strength: 20e6,
+          printed: false,
+          builtin: true,
+        },
       },
       require: {
         balance: { default: REQUIREMENT_DEFAULTS.balanceN, byPayload: {} },
@@ -50,7 +70,12 @@ export class ArmBuilder {
     return this.model.bodies[0]!.id;
   }
 
-  link(id: string, length: number, mass: number, extra: { com?: Vec2; points?: Record<string, Vec2> } = {}): this {
+  link(
+    id: string,
+    length: number,
+    mass: number,
+    extra: { com?: Vec2; points?: Record<string, Vec2> } = {},
+  ): this {
     const body: Body = {
       id,
       kind: "link",
@@ -65,7 +90,16 @@ export class ArmBuilder {
     return this;
   }
 
-  joint(id: string, parent: string, parentPoint: Vec2, child: string, childPoint: Vec2, angle: number, mode: Mode, friction?: number): this {
+  joint(
+    id: string,
+    parent: string,
+    parentPoint: Vec2,
+    child: string,
+    childPoint: Vec2,
+    angle: number,
+    mode: Mode,
+    friction?: number,
+  ): this {
     const j: Joint = {
       id,
       parent,
@@ -87,7 +121,17 @@ export class ArmBuilder {
     id: string,
     parent: string,
     root: Vec2,
-    p: { length: number; spacing: number; angle: number; range?: [number, number]; barMass: number; headMass: number; upperLength?: number; headCom?: Vec2; friction?: number },
+    p: {
+      length: number;
+      spacing: number;
+      angle: number;
+      range?: [number, number];
+      barMass: number;
+      headMass: number;
+      upperLength?: number;
+      headCom?: Vec2;
+      friction?: number;
+    },
   ): this {
     const o = origin(["on", "length", "spacing", "angle", "range", "friction"]);
     const upperLength = p.upperLength ?? p.length;
@@ -126,9 +170,36 @@ export class ArmBuilder {
         ...(p.friction !== undefined ? { friction: p.friction } : {}),
         origin: jo,
       },
-      { id: `${id}.upper_root`, parent, child: `${id}.upper`, parentPoint: upperRoot, childPoint: { x: 0, y: 0 }, angle: p.angle, mode: "passive", origin: jo },
-      { id: `${id}.lower_far`, parent: `${id}.lower`, child: `${id}.head`, parentPoint: { x: p.length, y: 0 }, childPoint: { x: 0, y: 0 }, angle: -p.angle, mode: "passive", origin: jo },
-      { id: `${id}.upper_far`, parent: `${id}.upper`, child: `${id}.head`, parentPoint: { x: upperLength, y: 0 }, childPoint: { x: 0, y: p.spacing }, angle: -p.angle, mode: "passive", origin: jo },
+      {
+        id: `${id}.upper_root`,
+        parent,
+        child: `${id}.upper`,
+        parentPoint: upperRoot,
+        childPoint: { x: 0, y: 0 },
+        angle: p.angle,
+        mode: "passive",
+        origin: jo,
+      },
+      {
+        id: `${id}.lower_far`,
+        parent: `${id}.lower`,
+        child: `${id}.head`,
+        parentPoint: { x: p.length, y: 0 },
+        childPoint: { x: 0, y: 0 },
+        angle: -p.angle,
+        mode: "passive",
+        origin: jo,
+      },
+      {
+        id: `${id}.upper_far`,
+        parent: `${id}.upper`,
+        child: `${id}.head`,
+        parentPoint: { x: upperLength, y: 0 },
+        childPoint: { x: 0, y: p.spacing },
+        angle: -p.angle,
+        mode: "passive",
+        origin: jo,
+      },
     );
     this.model.parallelograms.push({
       id,
@@ -139,7 +210,12 @@ export class ArmBuilder {
       spacing: p.spacing,
       angle: p.angle,
       ...(p.range ? { range: p.range } : {}),
-      joints: { lowerRoot: id, upperRoot: `${id}.upper_root`, lowerFar: `${id}.lower_far`, upperFar: `${id}.upper_far` },
+      joints: {
+        lowerRoot: id,
+        upperRoot: `${id}.upper_root`,
+        lowerFar: `${id}.lower_far`,
+        upperFar: `${id}.upper_far`,
+      },
       bodies: { lower: `${id}.lower`, upper: `${id}.upper`, head: `${id}.head` },
       origin: o,
     });
@@ -155,27 +231,91 @@ export class ArmBuilder {
     return this;
   }
 
-  extension(id: string, a: [string, Vec2], b: [string, Vec2], rate: number, freeLength: number, initialTension: number): this {
-    return this.spring({ id, kind: "extension", a: this.attach(...a), b: this.attach(...b), rate, freeLength, initialTension, origin: origin(["rate", "free_length", "initial_tension"]) });
+  extension(
+    id: string,
+    a: [string, Vec2],
+    b: [string, Vec2],
+    rate: number,
+    freeLength: number,
+    initialTension: number,
+  ): this {
+    return this.spring({
+      id,
+      kind: "extension",
+      a: this.attach(...a),
+      b: this.attach(...b),
+      rate,
+      freeLength,
+      initialTension,
+      origin: origin(["rate", "free_length", "initial_tension"]),
+    });
   }
 
   zeroLength(id: string, a: [string, Vec2], b: [string, Vec2], rate: number, initialTension = 0): this {
-    return this.spring({ id, kind: "zero_length", a: this.attach(...a), b: this.attach(...b), rate, initialTension, origin: origin(["rate", "initial_tension"]) });
+    return this.spring({
+      id,
+      kind: "zero_length",
+      a: this.attach(...a),
+      b: this.attach(...b),
+      rate,
+      initialTension,
+      origin: origin(["rate", "initial_tension"]),
+    });
   }
 
   elastic(id: string, a: [string, Vec2], b: [string, Vec2], freeLength: number, area: number): this {
-    return this.spring({ id, kind: "elastic", a: this.attach(...a), b: this.attach(...b), freeLength, area, material: "latex", origin: origin(["free_length", "tube"]) });
+    return this.spring({
+      id,
+      kind: "elastic",
+      a: this.attach(...a),
+      b: this.attach(...b),
+      freeLength,
+      area,
+      material: "latex",
+      origin: origin(["free_length", "tube"]),
+    });
   }
 
-  gas(id: string, a: [string, Vec2], b: [string, Vec2], force: number, progression: number, stroke: number, extendedLength: number): this {
-    return this.spring({ id, kind: "gas", a: this.attach(...a), b: this.attach(...b), force, progression, stroke, extendedLength, origin: origin(["force"]) });
+  gas(
+    id: string,
+    a: [string, Vec2],
+    b: [string, Vec2],
+    force: number,
+    progression: number,
+    stroke: number,
+    extendedLength: number,
+  ): this {
+    return this.spring({
+      id,
+      kind: "gas",
+      a: this.attach(...a),
+      b: this.attach(...b),
+      force,
+      progression,
+      stroke,
+      extendedLength,
+      origin: origin(["force"]),
+    });
   }
 
   torsion(id: string, joint: string, rate: number, preloadTorque: number): this {
-    return this.spring({ id, kind: "torsion", joint, rate, preloadTorque, origin: origin(["rate", "preload"]) });
+    return this.spring({
+      id,
+      kind: "torsion",
+      joint,
+      rate,
+      preloadTorque,
+      origin: origin(["rate", "preload"]),
+    });
   }
 
-  payload(id: string, body: string, point: Vec2, mass: number, extra: { massRange?: [number, number]; force?: Vec2 } = {}): this {
+  payload(
+    id: string,
+    body: string,
+    point: Vec2,
+    mass: number,
+    extra: { massRange?: [number, number]; force?: Vec2 } = {},
+  ): this {
     const p: Payload = { id, body, point, mass, ...extra, origin: origin(["mass", "at", "range"]) };
     this.model.payloads.push(p);
     return this;

@@ -13,7 +13,9 @@ describe("zero-free-length balance of a pivoting link", () => {
     const k = (m * G0 * l) / (a * b);
     const model = new ArmBuilder("post", { pivot: { x: 0, y: 0.3 }, anchor: { x: 0, y: 0.3 + a } })
       .link("arm", 0.4, 0)
-      .joint("shoulder", "post", { x: 0, y: 0.3 }, "arm", { x: 0, y: 0 }, deg(10), { range: [deg(-80), deg(80)] })
+      .joint("shoulder", "post", { x: 0, y: 0.3 }, "arm", { x: 0, y: 0 }, deg(10), {
+        range: [deg(-80), deg(80)],
+      })
       .zeroLength("lift", ["post", { x: 0, y: 0.3 + a }], ["arm", { x: b, y: 0 }], k)
       .payload("lamp", "arm", { x: l, y: 0 }, m)
       .sweep(33)
@@ -30,7 +32,12 @@ describe("zero-free-length balance of a pivoting link", () => {
   it("without the spring needs m g l cos(theta)", () => {
     const m = 0.8;
     const l = 0.3;
-    const model = new ArmBuilder().link("arm", 0.3, 0).joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-60), deg(60)] }).payload("p", "arm", { x: l, y: 0 }, m).sweep(13).build();
+    const model = new ArmBuilder()
+      .link("arm", 0.3, 0)
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [deg(-60), deg(60)] })
+      .payload("p", "arm", { x: l, y: 0 }, m)
+      .sweep(13)
+      .build();
     const sweep = solveSweep(model);
     for (const pose of sweep.poses) {
       const th = pose.angles["shoulder"]!;
@@ -52,7 +59,9 @@ describe("finite free length spring on a pivoting link (Herder 2001)", () => {
   const model = (Fi: number) =>
     new ArmBuilder("post", { anchor: { x: 0, y: a } })
       .link("arm", 0.45, 0)
-      .joint("shoulder", "post", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, deg(0), { range: [deg(-60), deg(60)] })
+      .joint("shoulder", "post", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, deg(0), {
+        range: [deg(-60), deg(60)],
+      })
       .extension("lift", ["post", { x: 0, y: a }], ["arm", { x: b, y: 0 }], k, L0, Fi)
       .payload("weight", "arm", { x: l, y: 0 }, m)
       .sweep(25)
@@ -81,7 +90,9 @@ describe("finite free length spring on a pivoting link (Herder 2001)", () => {
     m2.joints[0]!.range = [deg(90 - 150), deg(90 - 30)];
     m2.sweep = { steps: 3, grid: true };
     const sweep = solveSweep(m2);
-    const byPsi = new Map(sweep.poses.map((p) => [Math.round(90 - (p.angles["shoulder"]! * 180) / Math.PI), p]));
+    const byPsi = new Map(
+      sweep.poses.map((p) => [Math.round(90 - (p.angles["shoulder"]! * 180) / Math.PI), p]),
+    );
     psis.forEach((psi, i) => {
       const pose = byPsi.get(psi)!;
       const L = Math.sqrt(a * a + b * b - 2 * a * b * Math.cos(deg(psi)));
@@ -96,7 +107,8 @@ describe("finite free length spring on a pivoting link (Herder 2001)", () => {
   it("balances exactly with an effective zero free length, Fi = k L0", () => {
     const sweep = solveSweep(model(k * L0));
     // Herder 2001: with k a b = m g l and Fi = k L0 the residual is zero everywhere
-    for (const pose of sweep.poses) expect(Math.abs(pose.cases[0]!.holdingTorque["shoulder"]!)).toBeLessThan(1e-9);
+    for (const pose of sweep.poses)
+      expect(Math.abs(pose.cases[0]!.holdingTorque["shoulder"]!)).toBeLessThan(1e-9);
   });
 });
 
@@ -107,11 +119,25 @@ describe("parallelogram stage (Agrawal and Fattah 2004)", () => {
   const payload = 0.6;
   const stage = (withSpring: boolean, payloadAt = { x: 0.03, y: -0.06 }) => {
     const b = new ArmBuilder("clamp", { pivot: { x: 0, y: 0.3 }, anchor: { x: 0, y: 0.35 } })
-      .parallelogram("reach", "clamp", { x: 0, y: 0.3 }, { length: L, spacing: 0.04, angle: deg(10), range: [deg(-30), deg(45)], barMass, headMass, headCom: { x: 0.01, y: 0.02 } })
+      .parallelogram(
+        "reach",
+        "clamp",
+        { x: 0, y: 0.3 },
+        {
+          length: L,
+          spacing: 0.04,
+          angle: deg(10),
+          range: [deg(-30), deg(45)],
+          barMass,
+          headMass,
+          headCom: { x: 0.01, y: 0.02 },
+        },
+      )
       .payload("camera", "reach.head", payloadAt, payload)
       .sweep(16);
     const M = (payload + headMass) * G0 * L + 2 * barMass * G0 * (L / 2);
-    if (withSpring) b.zeroLength("lift", ["clamp", { x: 0, y: 0.35 }], ["reach.lower", { x: 0.1, y: 0 }], M / (0.05 * 0.1));
+    if (withSpring)
+      b.zeroLength("lift", ["clamp", { x: 0, y: 0.35 }], ["reach.lower", { x: 0.1, y: 0 }], M / (0.05 * 0.1));
     return b.build();
   };
 
@@ -136,7 +162,12 @@ describe("parallelogram stage (Agrawal and Fattah 2004)", () => {
     const a = solveSweep(stage(false, { x: 0.03, y: -0.06 }));
     const b = solveSweep(stage(false, { x: 0.2, y: 0.1 }));
     // Agrawal and Fattah 2004: the payload's offset on the head is carried as axial bar forces, not pivot torque
-    a.poses.forEach((p, i) => expect(p.cases[0]!.holdingTorque["reach"]).toBeCloseTo(b.poses[i]!.cases[0]!.holdingTorque["reach"]!, 9));
+    a.poses.forEach((p, i) =>
+      expect(p.cases[0]!.holdingTorque["reach"]).toBeCloseTo(
+        b.poses[i]!.cases[0]!.holdingTorque["reach"]!,
+        9,
+      ),
+    );
   });
 
   it("is balanced by a zero-free-length spring of k = M / (a b) = 501.1 N/m", () => {
@@ -146,6 +177,7 @@ describe("parallelogram stage (Agrawal and Fattah 2004)", () => {
     expect(k).toBeCloseTo(501.1, 1);
     const sweep = solveSweep(model);
     // Streit and Gilmore 1989 applied to the stage's gravity moment: zero holding torque everywhere
-    for (const pose of sweep.poses) expect(Math.abs(pose.cases[0]!.holdingTorque["reach"]!)).toBeLessThan(1e-9);
+    for (const pose of sweep.poses)
+      expect(Math.abs(pose.cases[0]!.holdingTorque["reach"]!)).toBeLessThan(1e-9);
   });
 });

@@ -18,15 +18,47 @@ function assemble(a: number, b: number, c: number, d: number, th2: number) {
   return { th3: Math.atan2(B.y - A.y, B.x - A.x), th4: Math.atan2(B.y, B.x - d) };
 }
 
-function fourBar(a: number, b: number, c: number, d: number, th2: number, mode: { input: "crank" | "rocker"; range: [number, number] }, guessError = deg(3)) {
+function fourBar(
+  a: number,
+  b: number,
+  c: number,
+  d: number,
+  th2: number,
+  mode: { input: "crank" | "rocker"; range: [number, number] },
+  guessError = deg(3),
+) {
   const g = assemble(a, b, c, d, th2);
   return new ArmBuilder()
     .link("crank", a, 0.05)
     .link("coupler", b, 0.1)
     .link("rocker", c, 0.08)
-    .joint("crank", "ground", { x: 0, y: 0 }, "crank", { x: 0, y: 0 }, th2, mode.input === "crank" ? { range: mode.range } : "passive")
-    .joint("coupler_pin", "crank", { x: a, y: 0 }, "coupler", { x: 0, y: 0 }, g.th3 - th2 + guessError, "passive")
-    .joint("rocker", "ground", { x: d, y: 0 }, "rocker", { x: 0, y: 0 }, mode.input === "rocker" ? g.th4 : g.th4 - guessError, mode.input === "rocker" ? { range: mode.range } : "passive")
+    .joint(
+      "crank",
+      "ground",
+      { x: 0, y: 0 },
+      "crank",
+      { x: 0, y: 0 },
+      th2,
+      mode.input === "crank" ? { range: mode.range } : "passive",
+    )
+    .joint(
+      "coupler_pin",
+      "crank",
+      { x: a, y: 0 },
+      "coupler",
+      { x: 0, y: 0 },
+      g.th3 - th2 + guessError,
+      "passive",
+    )
+    .joint(
+      "rocker",
+      "ground",
+      { x: d, y: 0 },
+      "rocker",
+      { x: 0, y: 0 },
+      mode.input === "rocker" ? g.th4 : g.th4 - guessError,
+      mode.input === "rocker" ? { range: mode.range } : "passive",
+    )
     .joint("rocker_pin", "coupler", { x: b, y: 0 }, "rocker", { x: c, y: 0 }, g.th4 - g.th3, "passive");
 }
 
@@ -38,7 +70,9 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
   });
 
   it("follows Freudenstein's equation over the whole input turn", () => {
-    const model = fourBar(a, b, c, d, deg(0), { input: "crank", range: [deg(0), deg(350)] }).sweep(36).build();
+    const model = fourBar(a, b, c, d, deg(0), { input: "crank", range: [deg(0), deg(350)] })
+      .sweep(36)
+      .build();
     const sweep = solveSweep(model);
     expect(sweep.findings).toEqual([]);
     expect(sweep.poses.length).toBe(36);
@@ -83,7 +117,9 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
       .link("crank", a, 0)
       .link("coupler", b, 0)
       .link("rocker", short, 0)
-      .joint("crank", "ground", { x: 0, y: 0 }, "crank", { x: 0, y: 0 }, deg(180), { range: [deg(170), deg(190)] })
+      .joint("crank", "ground", { x: 0, y: 0 }, "crank", { x: 0, y: 0 }, deg(180), {
+        range: [deg(170), deg(190)],
+      })
       .joint("coupler_pin", "crank", { x: a, y: 0 }, "coupler", { x: 0, y: 0 }, deg(-170), "passive")
       .joint("rocker", "ground", { x: d, y: 0 }, "rocker", { x: 0, y: 0 }, deg(170), "passive")
       .joint("rocker_pin", "coupler", { x: b, y: 0 }, "rocker", { x: short, y: 0 }, deg(0), "passive")
@@ -104,7 +140,19 @@ describe("dead points", () => {
     // At 90 deg the bars lie along the spacing line: the four pivots are collinear and the stage
     // can fold either way (change point of a parallelogram linkage; plane geometry).
     const model = new ArmBuilder()
-      .parallelogram("reach", "ground", { x: 0, y: 0 }, { length: 0.3, spacing: 0.04, angle: deg(60), range: [deg(40), deg(130)], barMass: 0.1, headMass: 0.1 })
+      .parallelogram(
+        "reach",
+        "ground",
+        { x: 0, y: 0 },
+        {
+          length: 0.3,
+          spacing: 0.04,
+          angle: deg(60),
+          range: [deg(40), deg(130)],
+          barMass: 0.1,
+          headMass: 0.1,
+        },
+      )
       .sweep(7)
       .build();
     const sweep = solveSweep(model);
@@ -112,7 +160,9 @@ describe("dead points", () => {
     expect(locks.length).toBe(1);
     expect(locks[0]!.data!["deadPoint"]).toBe(true);
     expect(Math.abs((locks[0]!.data!["lockAngle"] as number) - deg(90))).toBeLessThan(deg(0.05));
-    expect(sweep.poses.map((p) => Math.round((p.angles["reach"]! * 180) / Math.PI))).toEqual([40, 55, 70, 85]);
+    expect(sweep.poses.map((p) => Math.round((p.angles["reach"]! * 180) / Math.PI))).toEqual([
+      40, 55, 70, 85,
+    ]);
   });
 });
 
@@ -121,7 +171,19 @@ describe("dead point at the reference pose", () => {
     // Bars at 90 deg along the spacing line: all four pivots collinear (plane geometry), the
     // constraint Jacobian is singular there though the stage is a one-dof linkage elsewhere.
     const model = new ArmBuilder()
-      .parallelogram("reach", "ground", { x: 0, y: 0 }, { length: 0.25, spacing: 0.04, angle: deg(90), range: [deg(80), deg(100)], barMass: 0.1, headMass: 0.1 })
+      .parallelogram(
+        "reach",
+        "ground",
+        { x: 0, y: 0 },
+        {
+          length: 0.25,
+          spacing: 0.04,
+          angle: deg(90),
+          range: [deg(80), deg(100)],
+          barMass: 0.1,
+          headMass: 0.1,
+        },
+      )
       .build();
     const sweep = solveSweep(model);
     expect(sweep.findings.map((f) => f.code)).toEqual(["geometry.cannot-reach"]);
@@ -135,7 +197,9 @@ describe("mobility", () => {
     const model = new ArmBuilder()
       .link("upper", 0.3, 0.2)
       .link("fore", 0.25, 0.1)
-      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(30), { range: [deg(0), deg(60)] })
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(30), {
+        range: [deg(0), deg(60)],
+      })
       .joint("elbow", "upper", { x: 0.3, y: 0 }, "fore", { x: 0, y: 0 }, deg(-40), "passive")
       .sweep(5)
       .build();
@@ -166,14 +230,22 @@ describe("sweep layout", () => {
     const model = new ArmBuilder()
       .link("upper", 0.3, 0.2)
       .link("fore", 0.25, 0.1)
-      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(30), { range: [deg(-60), deg(60)] })
-      .joint("elbow", "upper", { x: 0.3, y: 0 }, "fore", { x: 0, y: 0 }, deg(-40), { range: [deg(-90), deg(0)] })
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(30), {
+        range: [deg(-60), deg(60)],
+      })
+      .joint("elbow", "upper", { x: 0.3, y: 0 }, "fore", { x: 0, y: 0 }, deg(-40), {
+        range: [deg(-90), deg(0)],
+      })
       .sweep(5)
       .build();
     const sweep = solveSweep(model);
     expect(sweep.poses.length).toBe(25);
     // language.md: `steps 5` over -60 deg .. 60 deg visits -60, -30, 0, 30, 60
-    expect(sweep.poses.filter((p) => p.angles["elbow"] === deg(-90)).map((p) => Math.round((p.angles["shoulder"]! * 180) / Math.PI))).toEqual([-60, -30, 0, 30, 60]);
+    expect(
+      sweep.poses
+        .filter((p) => p.angles["elbow"] === deg(-90))
+        .map((p) => Math.round((p.angles["shoulder"]! * 180) / Math.PI)),
+    ).toEqual([-60, -30, 0, 30, 60]);
     expect(sweep.poses[1]!.angles["shoulder"]).toBe(deg(-60));
     expect(sweep.poses[1]!.angles["elbow"]).toBeCloseTo(deg(-67.5), 12);
     const alone = solveSweep({ ...model, sweep: { steps: 5, grid: false } });
@@ -195,7 +267,11 @@ describe("sweep layout", () => {
   });
 
   it("stops at the deadline with partial results", () => {
-    const model = new ArmBuilder().link("arm", 0.3, 0.2).joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [-1, 1] }).sweep(101).build();
+    const model = new ArmBuilder()
+      .link("arm", 0.3, 0.2)
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, 0, { range: [-1, 1] })
+      .sweep(101)
+      .build();
     const sweep = solveSweep(model, { deadline: performance.now() - 1 });
     expect(sweep.findings.map((f) => f.code)).toEqual(["analysis.budget"]);
     expect(sweep.poses.length).toBe(0);

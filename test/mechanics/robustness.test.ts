@@ -8,7 +8,7 @@ import { ArmBuilder, seededRandom } from "./arm-builder";
 
 function wildArm(seed: number) {
   const rnd = seededRandom(seed);
-  const pick = <T,>(xs: T[]) => xs[Math.floor(rnd() * xs.length)]!;
+  const pick = <T>(xs: T[]) => xs[Math.floor(rnd() * xs.length)]!;
   const len = () => pick([0, 1e-9, 0.05, 0.3, 2, 1e3]);
   const ang = () => pick([0, Math.PI / 2, -Math.PI, 1e-12, 3 * (rnd() - 0.5)]);
   const b = new ArmBuilder();
@@ -19,15 +19,37 @@ function wildArm(seed: number) {
     const l = len();
     b.link(id, l, pick([0, 0.1, 5]));
     const parent = pick(ids);
-    const mode = pick<"passive" | "fixed" | { range: [number, number] }>(["passive", "fixed", { range: [-1, 1] }, { range: [-100, 100] }, { range: [0.5, 0.5] }]);
+    const mode = pick<"passive" | "fixed" | { range: [number, number] }>([
+      "passive",
+      "fixed",
+      { range: [-1, 1] },
+      { range: [-100, 100] },
+      { range: [0.5, 0.5] },
+    ]);
     b.joint(`j${i}`, parent, { x: len(), y: 0 }, id, { x: 0, y: 0 }, ang(), mode);
     ids.push(id);
   }
   // Extra joints close loops between random bodies (often impossible ones).
   const loops = Math.floor(rnd() * 3);
-  for (let k = 0; k < loops; k++) b.joint(`c${k}`, pick(ids), { x: len(), y: len() }, pick(ids), { x: len(), y: 0 }, ang(), pick(["passive", "fixed", { range: [-1, 1] }] as const));
+  for (let k = 0; k < loops; k++)
+    b.joint(
+      `c${k}`,
+      pick(ids),
+      { x: len(), y: len() },
+      pick(ids),
+      { x: len(), y: 0 },
+      ang(),
+      pick(["passive", "fixed", { range: [-1, 1] }] as const),
+    );
   b.zeroLength("z", [pick(ids), { x: 0, y: 0 }], [pick(ids), { x: 0, y: 0 }], pick([0, 100, 1e9]));
-  b.extension("e", [pick(ids), { x: len(), y: 0 }], [pick(ids), { x: 0, y: len() }], 300, pick([0, 0.05, 10]), 3);
+  b.extension(
+    "e",
+    [pick(ids), { x: len(), y: 0 }],
+    [pick(ids), { x: 0, y: len() }],
+    300,
+    pick([0, 0.05, 10]),
+    3,
+  );
   b.gas("g", [pick(ids), { x: 0, y: 0 }], [pick(ids), { x: len(), y: 0 }], 50, 1.3, pick([0, 0.05]), 0.2);
   b.torsion("t", `j0`, 0.1, 0.2);
   b.payload("p", pick(ids), { x: len(), y: 0 }, pick([0, 1]), { massRange: [0, 2] });
@@ -40,9 +62,17 @@ describe("robustness", () => {
       const model = wildArm(seed);
       const start = performance.now();
       const sweep = solveSweep(model, { deadline: start + 300 });
-      const ctx: CheckContext = { model, sweep, options: { deadline: start + 600 }, findings: [], readouts: {} };
+      const ctx: CheckContext = {
+        model,
+        sweep,
+        options: { deadline: start + 600 },
+        findings: [],
+        readouts: {},
+      };
       balanceChecks(ctx);
-      for (const pose of sweep.poses) for (const c of pose.cases) for (const v of Object.values(c.holdingTorque)) expect(Number.isNaN(v), `seed ${seed}`).toBe(false);
+      for (const pose of sweep.poses)
+        for (const c of pose.cases)
+          for (const v of Object.values(c.holdingTorque)) expect(Number.isNaN(v), `seed ${seed}`).toBe(false);
       // The budget holds within a margin (the checks stop between parts, not inside one).
       expect(performance.now() - start, `seed ${seed}`).toBeLessThan(3000);
     }

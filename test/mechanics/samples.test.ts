@@ -16,8 +16,12 @@ describe("samples through the mechanics", () => {
       if (file === "mistakes.poise") return;
       expect(a.sweep, file).toBeDefined();
       expect(a.sweep!.poses.length).toBeGreaterThan(0);
-      expect(a.findings.filter((f) => f.code === "geometry.loop-open" || f.code === "geometry.cannot-reach")).toEqual([]);
-      for (const pose of a.sweep!.poses) for (const c of pose.cases) for (const v of Object.values(c.holdingTorque)) expect(Number.isFinite(v)).toBe(true);
+      expect(
+        a.findings.filter((f) => f.code === "geometry.loop-open" || f.code === "geometry.cannot-reach"),
+      ).toEqual([]);
+      for (const pose of a.sweep!.poses)
+        for (const c of pose.cases)
+          for (const v of Object.values(c.holdingTorque)) expect(Number.isFinite(v)).toBe(true);
     });
   }
 

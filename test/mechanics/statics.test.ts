@@ -12,7 +12,10 @@ import { ArmBuilder, deg, G0, seededRandom } from "./arm-builder";
 function world(pose: Pose, model: ArmModel, body: string, p: { x: number; y: number }) {
   if (body === model.bodies[0]!.id) return p;
   const b = pose.bodies[body]!;
-  return { x: b.x + Math.cos(b.phi) * p.x - Math.sin(b.phi) * p.y, y: b.y + Math.sin(b.phi) * p.x + Math.cos(b.phi) * p.y };
+  return {
+    x: b.x + Math.cos(b.phi) * p.x - Math.sin(b.phi) * p.y,
+    y: b.y + Math.sin(b.phi) * p.x + Math.cos(b.phi) * p.y,
+  };
 }
 
 /** Potential energy of a spring, by integrating its published force law over its length. */
@@ -37,7 +40,7 @@ function springEnergy(model: ArmModel, s: Spring, pose: Pose): number {
       // Treloar 3rd ed.: F = G A0 (s - s^-2); V = G A0 L0 (s^2/2 + 1/s - 3/2)
       const st = L / s.freeLength;
       const G = model.materials[s.material]!.shearModulus;
-      return st > 1 ? G * s.area * s.freeLength * (st * st / 2 + 1 / st - 1.5) : 0;
+      return st > 1 ? G * s.area * s.freeLength * ((st * st) / 2 + 1 / st - 1.5) : 0;
     }
     case "gas": {
       // Push F1 (1 + (p - 1) x / stroke) over stroke position x = Le - L: V = F1 (x + (p - 1) x^2 / (2 stroke))
@@ -49,7 +52,8 @@ function springEnergy(model: ArmModel, s: Spring, pose: Pose): number {
 
 function potential(model: ArmModel, pose: Pose): number {
   let v = 0;
-  for (const b of model.bodies) if (b.kind !== "base") v += b.mass * G0 * world(pose, model, b.id, b.centreOfMass).y;
+  for (const b of model.bodies)
+    if (b.kind !== "base") v += b.mass * G0 * world(pose, model, b.id, b.centreOfMass).y;
   for (const p of model.payloads) {
     const at = world(pose, model, p.body, p.point);
     v += p.mass * G0 * at.y - (p.force?.x ?? 0) * at.x - (p.force?.y ?? 0) * at.y;
@@ -76,7 +80,9 @@ function randomArm(seed: number): ArmModel {
       parent = `l${i}`;
       at = { x: len, y: u(-0.01, 0.01) };
     }
-    b.payload("tool", parent, { x: at.x + u(0, 0.05), y: u(-0.05, 0.05) }, u(0.1, 1), { force: { x: u(-2, 2), y: u(-3, 1) } });
+    b.payload("tool", parent, { x: at.x + u(0, 0.05), y: u(-0.05, 0.05) }, u(0.1, 1), {
+      force: { x: u(-2, 2), y: u(-3, 1) },
+    });
   } else {
     const [a, c, d] = [u(0.04, 0.06), u(0.12, 0.16), u(0.15, 0.18)];
     const cb = u(0.14, 0.17);
@@ -91,21 +97,54 @@ function randomArm(seed: number): ArmModel {
     const B = { x: A.x + along * ux - h * uy, y: A.y + along * uy + h * ux };
     const th3 = Math.atan2(B.y - A.y, B.x - A.x);
     const th4 = Math.atan2(B.y, B.x - d);
-    b.link("crank", a, u(0.02, 0.1)).link("coupler", cb, u(0.05, 0.3), { com: { x: cb * u(0.3, 0.7), y: u(-0.03, 0.03) } }).link("rocker", c, u(0.05, 0.2));
+    b.link("crank", a, u(0.02, 0.1))
+      .link("coupler", cb, u(0.05, 0.3), { com: { x: cb * u(0.3, 0.7), y: u(-0.03, 0.03) } })
+      .link("rocker", c, u(0.05, 0.2));
     b.joint("crank", "ground", { x: 0, y: 0 }, "crank", { x: 0, y: 0 }, th2, { range: [0, 3] })
       .joint("coupler_pin", "crank", { x: a, y: 0 }, "coupler", { x: 0, y: 0 }, th3 - th2 + 0.02, "passive")
       .joint("rocker", "ground", { x: d, y: 0 }, "rocker", { x: 0, y: 0 }, th4 - 0.02, "passive")
       .joint("rocker_pin", "coupler", { x: cb, y: 0 }, "rocker", { x: c, y: 0 }, th4 - th3, "passive");
-    b.link("tail", 0.2, u(0.05, 0.2)).joint("wrist", "coupler", { x: cb / 2, y: 0.01 }, "tail", { x: 0, y: 0 }, u(-1, 1), { range: [-2, 2] });
-    b.payload("tool", "tail", { x: 0.2, y: u(-0.03, 0.03) }, u(0.1, 0.8), { force: { x: u(-2, 2), y: u(-3, 1) } });
+    b.link("tail", 0.2, u(0.05, 0.2)).joint(
+      "wrist",
+      "coupler",
+      { x: cb / 2, y: 0.01 },
+      "tail",
+      { x: 0, y: 0 },
+      u(-1, 1),
+      { range: [-2, 2] },
+    );
+    b.payload("tool", "tail", { x: 0.2, y: u(-0.03, 0.03) }, u(0.1, 0.8), {
+      force: { x: u(-2, 2), y: u(-3, 1) },
+    });
   }
   const bodies = b.model.bodies.filter((x) => x.kind !== "base").map((x) => x.id);
   const pick = () => bodies[Math.floor(rnd() * bodies.length)]!;
   const anchor = b.model.bodies[0]!.points["anchor"]!;
   b.zeroLength("zl", ["ground", anchor], [pick(), { x: u(0.02, 0.1), y: 0 }], u(100, 900), u(0, 5));
-  b.extension("ext", ["ground", { x: u(-0.1, 0), y: u(0.15, 0.3) }], [pick(), { x: u(0.02, 0.12), y: 0 }], u(100, 800), 0.01, u(0, 8));
-  b.elastic("cord", ["ground", { x: u(0.05, 0.15), y: u(0.15, 0.3) }], [pick(), { x: u(0.02, 0.12), y: 0 }], 0.03, u(5e-6, 3e-5));
-  b.gas("strut", ["ground", { x: u(-0.1, 0.1), y: u(-0.3, -0.2) }], [pick(), { x: u(0.05, 0.12), y: 0 }], u(20, 60), u(1.1, 1.5), 0.6, 0.9);
+  b.extension(
+    "ext",
+    ["ground", { x: u(-0.1, 0), y: u(0.15, 0.3) }],
+    [pick(), { x: u(0.02, 0.12), y: 0 }],
+    u(100, 800),
+    0.01,
+    u(0, 8),
+  );
+  b.elastic(
+    "cord",
+    ["ground", { x: u(0.05, 0.15), y: u(0.15, 0.3) }],
+    [pick(), { x: u(0.02, 0.12), y: 0 }],
+    0.03,
+    u(5e-6, 3e-5),
+  );
+  b.gas(
+    "strut",
+    ["ground", { x: u(-0.1, 0.1), y: u(-0.3, -0.2) }],
+    [pick(), { x: u(0.05, 0.12), y: 0 }],
+    u(20, 60),
+    u(1.1, 1.5),
+    0.6,
+    0.9,
+  );
   const jointWithDof = b.model.joints.find((j) => j.mode === "range")!;
   b.torsion("coil", jointWithDof.id, u(0.05, 0.5), u(-0.3, 0.3));
   const model = b.build();
@@ -174,7 +213,11 @@ describe("free-body balance of every body", () => {
 
   it("gives the pin of a single link the weight it carries", () => {
     const m = 0.7;
-    const model = new ArmBuilder().link("arm", 0.3, m).joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, deg(20), { range: [0, 1] }).sweep(3).build();
+    const model = new ArmBuilder()
+      .link("arm", 0.3, m)
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "arm", { x: 0, y: 0 }, deg(20), { range: [0, 1] })
+      .sweep(3)
+      .build();
     const sweep = solveSweep(model);
     for (const pose of sweep.poses) {
       // Equilibrium of the link: the pivot pushes up with its weight m g
@@ -223,8 +266,12 @@ describe("hand force with two degrees of freedom", () => {
     const model = new ArmBuilder()
       .link("upper", l1, 0)
       .link("fore", l2, 0)
-      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(40), { range: [deg(10), deg(70)] })
-      .joint("elbow", "upper", { x: l1, y: 0 }, "fore", { x: 0, y: 0 }, deg(-90), { range: [deg(-120), deg(-60)] })
+      .joint("shoulder", "ground", { x: 0, y: 0 }, "upper", { x: 0, y: 0 }, deg(40), {
+        range: [deg(10), deg(70)],
+      })
+      .joint("elbow", "upper", { x: l1, y: 0 }, "fore", { x: 0, y: 0 }, deg(-90), {
+        range: [deg(-120), deg(-60)],
+      })
       .payload("tool", "fore", { x: l2, y: 0 }, mass)
       .sweep(5)
       .build();

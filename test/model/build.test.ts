@@ -67,7 +67,13 @@ describe("parallelogram expansion (conventions.md)", () => {
   test("four joints with the conventions' points, modes and assembly guesses", () => {
     const j = Object.fromEntries(model!.joints.map((x) => [x.id, x]));
     expect(Object.keys(j)).toEqual(["reach", "reach.upper_root", "reach.lower_far", "reach.upper_far"]);
-    expect(j.reach).toMatchObject({ parent: "bench", child: "reach.lower", parentPoint: { x: 0, y: 0.3 }, childPoint: { x: 0, y: 0 }, mode: "range" });
+    expect(j.reach).toMatchObject({
+      parent: "bench",
+      child: "reach.lower",
+      parentPoint: { x: 0, y: 0.3 },
+      childPoint: { x: 0, y: 0 },
+      mode: "range",
+    });
     expect(j.reach!.range![0]).toBeCloseTo(-30 * DEG, 12);
     expect(j.reach!.range![1]).toBeCloseTo(45 * DEG, 12);
     expect(j.reach!.angle).toBeCloseTo(10 * DEG, 12);
@@ -77,12 +83,23 @@ describe("parallelogram expansion (conventions.md)", () => {
     expect(j["reach.upper_root"]!.parentPoint.y).toBeCloseTo(0.34, 12);
     expect(j["reach.upper_root"]).toMatchObject({ child: "reach.upper", mode: "passive" });
     expect(j["reach.upper_root"]!.angle).toBeCloseTo(10 * DEG, 12);
-    expect(j["reach.lower_far"]).toMatchObject({ parent: "reach.lower", child: "reach.head", childPoint: { x: 0, y: 0 }, mode: "passive" });
+    expect(j["reach.lower_far"]).toMatchObject({
+      parent: "reach.lower",
+      child: "reach.head",
+      childPoint: { x: 0, y: 0 },
+      mode: "passive",
+    });
     expect(j["reach.lower_far"]!.parentPoint.x).toBeCloseTo(0.35, 12);
     expect(j["reach.lower_far"]!.angle).toBeCloseTo(-10 * DEG, 12);
-    expect(j["reach.upper_far"]).toMatchObject({ parent: "reach.upper", child: "reach.head", childPoint: { x: 0, y: 0.04 }, mode: "passive" });
+    expect(j["reach.upper_far"]).toMatchObject({
+      parent: "reach.upper",
+      child: "reach.head",
+      childPoint: { x: 0, y: 0.04 },
+      mode: "passive",
+    });
     // Pins on every joint, friction on the lower root only
-    for (const x of Object.values(j)) expect(x.pin).toEqual({ diameter: 0.005, material: "steel_1018", shearPlanes: 2 });
+    for (const x of Object.values(j))
+      expect(x.pin).toEqual({ diameter: 0.005, material: "steel_1018", shearPlanes: 2 });
     expect(j["reach.upper_root"]!.friction).toBeUndefined();
   });
   test("the parallelogram record", () => {
@@ -90,7 +107,12 @@ describe("parallelogram expansion (conventions.md)", () => {
       id: "reach",
       parent: "bench",
       rootPoint: { x: 0, y: 0.3 },
-      joints: { lowerRoot: "reach", upperRoot: "reach.upper_root", lowerFar: "reach.lower_far", upperFar: "reach.upper_far" },
+      joints: {
+        lowerRoot: "reach",
+        upperRoot: "reach.upper_root",
+        lowerFar: "reach.lower_far",
+        upperFar: "reach.upper_far",
+      },
       bodies: { lower: "reach.lower", upper: "reach.upper", head: "reach.head" },
     });
     expect(model!.parallelograms[0]!.upperLength).toBeCloseTo(0.35, 12);
@@ -109,7 +131,13 @@ describe("parallelogram expansion (conventions.md)", () => {
     expect(model!.payloads[0]!.point.y).toBeCloseTo(-0.06, 12);
   });
   test("base", () => {
-    expect(model!.base).toEqual({ bodyId: "bench", mass: 3.5, footprint: { width: 0.22, depth: 0.18 }, yaw: false, surface: 0 });
+    expect(model!.base).toEqual({
+      bodyId: "bench",
+      mass: 3.5,
+      footprint: { width: 0.22, depth: 0.18 },
+      yaw: false,
+      surface: 0,
+    });
   });
 });
 
@@ -159,11 +187,17 @@ describe("derived values", () => {
     expect(findings).toEqual([]);
     const s = model!.springs[0]!;
     // Music wire G = 81.7 GPa, E = 200 GPa (Shigley table 10-5); worked value 1173 N/m
-    const G = 81.7e9, E = 200e9;
+    const G = 81.7e9,
+      E = 200e9;
     if (s.kind !== "extension") throw new Error("kind");
     expect(s.rate).toBeCloseTo((G * 1.2e-3 ** 4) / (8 * 9.6e-3 ** 3 * (20 + G / E)), 9);
     expect(s.rate).toBeCloseTo(1173, 0);
-    expect(s.coil).toEqual({ wireDiameter: 1.2e-3, meanDiameter: 9.6e-3, bodyCoils: 20, material: "music_wire" });
+    expect(s.coil).toEqual({
+      wireDiameter: 1.2e-3,
+      meanDiameter: 9.6e-3,
+      bodyCoils: 20,
+      material: "music_wire",
+    });
     expect(s.initialTension).toBe(5);
   });
 
@@ -196,7 +230,10 @@ describe("derived values", () => {
   });
 
   test("elastic cord tube area: A0 = pi/4 (OD^2 - ID^2); Treloar worked tube 6 x 3 mm bore gives 21.21 mm^2", () => {
-    const text = STAGE.replace("    zero_length\n", "    elastic\n").replace("    rate 0.30 N/mm\n", "    free_length 50 mm\n    tube 6 mm x 1.5 mm\n    material natural_latex\n");
+    const text = STAGE.replace("    zero_length\n", "    elastic\n").replace(
+      "    rate 0.30 N/mm\n",
+      "    free_length 50 mm\n    tube 6 mm x 1.5 mm\n    material natural_latex\n",
+    );
     const { model, findings } = build(text);
     expect(findings).toEqual([]);
     const s = model!.springs[0]!;
@@ -208,8 +245,19 @@ describe("derived values", () => {
 describe("defaults and caps", () => {
   test("requirements take REQUIREMENT_DEFAULTS; per-payload limits", () => {
     const { model } = build(STAGE);
-    expect(model!.require).toMatchObject({ balance: { default: REQUIREMENT_DEFAULTS.balanceN, byPayload: {} }, safety: 2, frequency: 4, tipping: 1.5, clearance: 0.003 });
-    const withReq = build(STAGE.replace("  payload camera", "  require {\n    balance 1.5 N at camera\n    balance 2 N\n    safety 2.5\n    tilt 1 deg at camera\n  }\n  payload camera"));
+    expect(model!.require).toMatchObject({
+      balance: { default: REQUIREMENT_DEFAULTS.balanceN, byPayload: {} },
+      safety: 2,
+      frequency: 4,
+      tipping: 1.5,
+      clearance: 0.003,
+    });
+    const withReq = build(
+      STAGE.replace(
+        "  payload camera",
+        "  require {\n    balance 1.5 N at camera\n    balance 2 N\n    safety 2.5\n    tilt 1 deg at camera\n  }\n  payload camera",
+      ),
+    );
     expect(withReq.findings).toEqual([]);
     expect(withReq.model!.require.balance).toEqual({ default: 2, byPayload: { camera: 1.5 } });
     expect(withReq.model!.require.safety).toBe(2.5);
@@ -217,9 +265,15 @@ describe("defaults and caps", () => {
   });
   test("sweep defaults; steps capped at maxSteps with sweep.capped", () => {
     expect(build(STAGE).model!.sweep).toEqual({ steps: SWEEP_DEFAULTS.steps, grid: true });
-    const capped = build(STAGE.replace("  payload camera", "  sweep {\n    steps 99999\n    grid off\n  }\n  payload camera"));
+    const capped = build(
+      STAGE.replace("  payload camera", "  sweep {\n    steps 99999\n    grid off\n  }\n  payload camera"),
+    );
     expect(capped.findings.map((f) => f.code)).toEqual(["sweep.capped"]);
-    expect(capped.model!.sweep).toMatchObject({ steps: SWEEP_DEFAULTS.maxSteps, requestedSteps: 99999, grid: false });
+    expect(capped.model!.sweep).toMatchObject({
+      steps: SWEEP_DEFAULTS.maxSteps,
+      requestedSteps: 99999,
+      grid: false,
+    });
   });
 });
 
@@ -241,7 +295,9 @@ describe("best effort with errors", () => {
     const { model } = build(STAGE);
     const lift = model!.springs[0]!;
     expect(STAGE.slice(lift.origin.name!.start, lift.origin.name!.end)).toBe("lift");
-    expect(STAGE.slice(lift.origin.properties.rate!.start, lift.origin.properties.rate!.end)).toBe("rate 0.30 N/mm");
+    expect(STAGE.slice(lift.origin.properties.rate!.start, lift.origin.properties.rate!.end)).toBe(
+      "rate 0.30 N/mm",
+    );
     expect(model!.bodies[1]!.origin.generatedBy).toBe("reach");
   });
   test("no arm: arm.missing; second arm: arm.second", () => {
@@ -262,18 +318,35 @@ describe("mobility (Gruebler-Kutzbach per biconnected block)", () => {
     expect(r.unconnected).toEqual([]);
   });
   test("a four-bar: mobility 3 (4 - 1) - 2 x 4 = 1, held by one driven joint", () => {
-    const fourBar = (drivenFirst: boolean) => [j("a", "g", "l1", !drivenFirst), j("b", "g", "l2", true), j("c", "l1", "h", true), j("d", "l2", "h", true)];
+    const fourBar = (drivenFirst: boolean) => [
+      j("a", "g", "l1", !drivenFirst),
+      j("b", "g", "l2", true),
+      j("c", "l1", "h", true),
+      j("d", "l2", "h", true),
+    ];
     expect(analyseMobility(["g", "l1", "l2", "h"], "g", fourBar(true)).unheld).toEqual([]);
-    expect(analyseMobility(["g", "l1", "l2", "h"], "g", fourBar(false)).unheld).toEqual([{ passiveJoints: ["a", "b", "c", "d"], mobility: 1 }]);
+    expect(analyseMobility(["g", "l1", "l2", "h"], "g", fourBar(false)).unheld).toEqual([
+      { passiveJoints: ["a", "b", "c", "d"], mobility: 1 },
+    ]);
   });
   test("a passive tail after a held loop is still unheld; unconnected bodies are listed", () => {
-    const joints = [j("a", "g", "l1", false), j("b", "g", "l2", true), j("c", "l1", "h", true), j("d", "l2", "h", true), j("t", "h", "tail", true)];
+    const joints = [
+      j("a", "g", "l1", false),
+      j("b", "g", "l2", true),
+      j("c", "l1", "h", true),
+      j("d", "l2", "h", true),
+      j("t", "h", "tail", true),
+    ];
     const r = analyseMobility(["g", "l1", "l2", "h", "tail", "loose"], "g", joints);
     expect(r.unheld).toEqual([{ passiveJoints: ["t"], mobility: 1 }]);
     expect(r.unconnected).toEqual(["loose"]);
   });
   test("a triangle of passive joints is rigid: 3 (3 - 1) - 2 x 3 = 0", () => {
-    const r = analyseMobility(["g", "a", "b"], "g", [j("x", "g", "a", true), j("y", "a", "b", true), j("z", "b", "g", true)]);
+    const r = analyseMobility(["g", "a", "b"], "g", [
+      j("x", "g", "a", true),
+      j("y", "a", "b", true),
+      j("z", "b", "g", true),
+    ]);
     expect(r.unheld).toEqual([]);
   });
 });
@@ -286,14 +359,22 @@ describe("one finding per mistake, at the word", () => {
 `;
   const cases: [string, string, string][] = [
     ["joint j2 { connects foot.top boom.end; fixed }", "value.invalid", "boom.end"],
-    ["spring s { extension\n between foot.hook boom.end\n rate 1 N/mm\n free_length 20 mm }", "value.invalid", "boom.end"],
+    [
+      "spring s { extension\n between foot.hook boom.end\n rate 1 N/mm\n free_length 20 mm }",
+      "value.invalid",
+      "boom.end",
+    ],
     ["payload p { mass 1 kg; at reach.lowr(1 mm, 0 mm) }", "name.unknown", "lowr"],
     ["payload p { mass 1 kg; at reach }", "value.invalid", "reach"],
     ["payload p { mass 1 kg; at sh }", "value.invalid", "sh"],
     ["payload p { mass 1 kg; at boom.end(1 mm, 0 mm) }", "value.invalid", "(1 mm, 0 mm)"],
     ["spring s { gas\n between foot.hook and boom.end }", "property.missing", "s"],
     ["spring s { torsion\n at boom\n rate 2 N*m/rad }", "value.invalid", "boom"],
-    ["spring s { extension\n between foot.hook and boom.end\n rate 2 N*m/rad\n free_length 20 mm }", "unit.wrong-dimension", "N*m/rad"],
+    [
+      "spring s { extension\n between foot.hook and boom.end\n rate 2 N*m/rad\n free_length 20 mm }",
+      "unit.wrong-dimension",
+      "N*m/rad",
+    ],
     ["sweep { grid maybe }", "value.invalid", "maybe"],
   ];
   for (const [decl, code, word] of cases) {

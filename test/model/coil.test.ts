@@ -18,7 +18,11 @@ const PSI = LBF / (INCH * INCH);
 
 describe("extension spring from its coil", () => {
   test("SI worked example: music wire d = 1.2 mm, D = 9.6 mm, Nb = 20 (references.md)", () => {
-    const d = 1.2e-3, D = 9.6e-3, G = 81.7e9, E = 200e9, Nb = 20;
+    const d = 1.2e-3,
+      D = 9.6e-3,
+      G = 81.7e9,
+      E = 200e9,
+      Nb = 20;
     // Shigley eq. 10-39: Na = Nb + G/E; worked value 20.41
     expect(extensionActiveCoils(Nb, G, E)).toBeCloseTo(Nb + G / E, 12);
     expect(extensionActiveCoils(Nb, G, E)).toBeCloseTo(20.41, 2);
@@ -37,7 +41,11 @@ describe("extension spring from its coil", () => {
   });
 
   test("Shigley 9th ed. example 10-6 (hard-drawn wire, inputs from memory)", () => {
-    const d = 0.035 * INCH, D = 0.213 * INCH, Nb = 12.17, G = 11.6e6 * PSI, E = 28.7e6 * PSI;
+    const d = 0.035 * INCH,
+      D = 0.213 * INCH,
+      Nb = 12.17,
+      G = 11.6e6 * PSI,
+      E = 28.7e6 * PSI;
     // Na = 12.57, C = 6.086, K_B = 1.234, k = 17.91 lbf/in
     expect(extensionActiveCoils(Nb, G, E)).toBeCloseTo(12.57, 2);
     expect(springIndex(D, d)).toBeCloseTo(6.086, 3);

@@ -3,11 +3,25 @@ import { describe, expect, test } from "vitest";
 import { builtinMaterials, LAYER_STRENGTH_FRACTION } from "../../server/src/model/materials";
 
 const m = builtinMaterials();
-const GPa = 1e9, MPa = 1e6, gcc = 1000;
+const GPa = 1e9,
+  MPa = 1e6,
+  gcc = 1000;
 
 describe("built-in materials", () => {
   test("every material of language.md is there, with a source", () => {
-    for (const id of ["pla", "petg", "abs", "nylon", "pa12", "aluminium_6061_t6", "steel_1018", "stainless_304", "music_wire", "hard_drawn_wire", "natural_latex"]) {
+    for (const id of [
+      "pla",
+      "petg",
+      "abs",
+      "nylon",
+      "pa12",
+      "aluminium_6061_t6",
+      "steel_1018",
+      "stainless_304",
+      "music_wire",
+      "hard_drawn_wire",
+      "natural_latex",
+    ]) {
       expect(m[id], id).toBeDefined();
       expect(m[id]!.source!.length).toBeGreaterThan(20);
       expect(m[id]!.builtin).toBe(true);
@@ -46,14 +60,19 @@ describe("built-in materials", () => {
       if (mat.printed) expect(mat.layerStrength).toBeCloseTo(0.5 * mat.strength, 6);
       else expect(mat.layerStrength).toBeUndefined();
     }
-    expect(m.pla!.printed && m.petg!.printed && m.abs!.printed && m.nylon!.printed && m.pa12!.printed).toBe(true);
+    expect(m.pla!.printed && m.petg!.printed && m.abs!.printed && m.nylon!.printed && m.pa12!.printed).toBe(
+      true,
+    );
   });
   test("natural latex: small-strain E = 3 G (Treloar, 3rd ed.)", () => {
     expect(m.natural_latex!.shearModulus).toBeCloseTo(0.4 * MPa, 6);
     expect(m.natural_latex!.modulus).toBeCloseTo(3 * m.natural_latex!.shearModulus, 6);
   });
   test("shear modulus from E and Poisson where not given: G = E / (2 (1 + nu))", () => {
-    expect(m.steel_1018!.shearModulus).toBeCloseTo(m.steel_1018!.modulus / (2 * (1 + m.steel_1018!.poisson)), 0);
+    expect(m.steel_1018!.shearModulus).toBeCloseTo(
+      m.steel_1018!.modulus / (2 * (1 + m.steel_1018!.poisson)),
+      0,
+    );
   });
   test("each call gives fresh copies", () => {
     const a = builtinMaterials();

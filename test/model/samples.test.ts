@@ -10,7 +10,9 @@ import type { Code } from "../../server/src/checks/codes";
 const sample = (name: string) => readFileSync(join(__dirname, "..", "..", "samples", name), "utf8");
 
 describe("design samples", () => {
-  const designs = readdirSync(join(__dirname, "..", "..", "samples")).filter((f) => f.endsWith(".poise") && f !== "mistakes.poise");
+  const designs = readdirSync(join(__dirname, "..", "..", "samples")).filter(
+    (f) => f.endsWith(".poise") && f !== "mistakes.poise",
+  );
   test("the design samples are there", () => expect(designs.length).toBeGreaterThanOrEqual(3));
   for (const name of designs) {
     test(`${name} has no syntax or model findings`, () => {

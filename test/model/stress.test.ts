@@ -8,8 +8,21 @@ function bigSpec(targetLines: number): string {
   let i = 0;
   while (lines.length < targetLines - 1) {
     const parent = i === 0 ? "bench.top" : `l${i - 1}.end`;
-    lines.push(`  link l${i} {`, "    length 100 mm", "    section rect 10 mm x 4 mm", "    material pla", "    point hook (50 mm, 5 mm)", "  }");
-    lines.push(`  joint j${i} {`, `    connects ${parent} to l${i}.start`, "    angle 1 deg", i % 2 ? "    fixed" : "    range -5 deg .. 5 deg", "  }");
+    lines.push(
+      `  link l${i} {`,
+      "    length 100 mm",
+      "    section rect 10 mm x 4 mm",
+      "    material pla",
+      "    point hook (50 mm, 5 mm)",
+      "  }",
+    );
+    lines.push(
+      `  joint j${i} {`,
+      `    connects ${parent} to l${i}.start`,
+      "    angle 1 deg",
+      i % 2 ? "    fixed" : "    range -5 deg .. 5 deg",
+      "  }",
+    );
     // every tenth block has a typo, to exercise recovery at scale
     if (i % 10 === 7) lines.push(`  lnik broken${i} {`, "    length 10 mm", "    mass 5 g", "  }");
     i++;
@@ -34,7 +47,7 @@ test("5,000 lines", () => {
 
 test("random bytes never throw", () => {
   let seed = 12345;
-  const rand = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+  const rand = () => (seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648;
   const alphabet = 'arm link joint { } ( ) , .. x mm N/mm " # \n ; 3 -4.5 e + @ é';
   const pieces = alphabet.split(" ");
   for (let n = 0; n < 200; n++) {

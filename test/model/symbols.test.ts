@@ -12,7 +12,11 @@ test("declarations: names, kinds, points with their container, implicit bodies",
   const decl = (id: string) => symbols!.declarations.find((d) => d.id === id);
   expect(decl("bench_clamp")).toMatchObject({ kind: "base", name: "bench_clamp" });
   expect(word(decl("bench_clamp")!.nameSpan)).toBe("bench_clamp");
-  expect(decl("bench_clamp.anchor")).toMatchObject({ kind: "point", name: "anchor", container: "bench_clamp" });
+  expect(decl("bench_clamp.anchor")).toMatchObject({
+    kind: "point",
+    name: "anchor",
+    container: "bench_clamp",
+  });
   expect(word(decl("bench_clamp.anchor")!.nameSpan)).toBe("anchor");
   expect(decl("reach")).toMatchObject({ kind: "parallelogram" });
   expect(decl("reach.lower")).toMatchObject({ kind: "body", container: "reach", implicit: true });
@@ -37,6 +41,8 @@ test("references: bodies, points, parallelograms, materials and payloads at thei
     ]),
   );
   // Every `reach` written in a reference is found (for rename): in `reach.lower(...)` and `reach.head(...)`.
-  const reachRefs = symbols!.references.filter((r) => r.target.kind === "parallelogram" && r.target.id === "reach");
+  const reachRefs = symbols!.references.filter(
+    (r) => r.target.kind === "parallelogram" && r.target.id === "reach",
+  );
   expect(reachRefs).toHaveLength(2);
 });

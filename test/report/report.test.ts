@@ -20,7 +20,10 @@ let browser: Browser;
 let page: Page;
 
 beforeAll(async () => {
-  browser = await openBrowser({ [`${ORIGIN}/report.html`]: { body: html, contentType: "text/html" } }, { javaScriptEnabled: false });
+  browser = await openBrowser(
+    { [`${ORIGIN}/report.html`]: { body: html, contentType: "text/html" } },
+    { javaScriptEnabled: false },
+  );
   page = await browser.context.newPage();
   await page.goto(`${ORIGIN}/report.html`);
 }, 60000);
@@ -39,7 +42,10 @@ describe("report page", () => {
   it("draws the arm with the failing part marked and both plots", async () => {
     expect(await page.locator("svg.arm-drawing").count()).toBeGreaterThanOrEqual(1);
     expect(await page.locator('.drawing [data-joint="shoulder"][data-status="error"]').count()).toBe(1);
-    for (const s of ["gravity", "springs", "net"]) expect(await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count()).toBeGreaterThan(0);
+    for (const s of ["gravity", "springs", "net"])
+      expect(
+        await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count(),
+      ).toBeGreaterThan(0);
     expect(await page.locator('svg[data-plot="hand-shoulder"] rect.band').count()).toBe(1);
     // The drawings at both ends of the range.
     expect(await page.locator(".ends figure").count()).toBe(2);
@@ -62,13 +68,19 @@ describe("report page", () => {
 
 describe("report of a sample through the whole pipeline", () => {
   it("marks the printed stage that fails and plots both degrees of freedom", async () => {
-    const { html: magnifier, errors } = reportHtml(readFileSync("samples/magnifier-arm.poise", "utf8"), "samples/magnifier-arm.poise");
+    const { html: magnifier, errors } = reportHtml(
+      readFileSync("samples/magnifier-arm.poise", "utf8"),
+      "samples/magnifier-arm.poise",
+    );
     expect(errors).toBeGreaterThan(0);
     const other = await browser.context.newPage();
     await other.setContent(magnifier);
     expect(await other.locator('.drawing .flag[data-part="stage"][data-status="error"]').count()).toBe(1);
     expect(await other.locator(".drawing svg.arm-drawing").count()).toBe(1);
-    for (const d of ["stage", "lens_tilt"]) expect(await other.locator(`svg[data-plot="torque-${d}"] polyline[data-series="net"]`).count()).toBeGreaterThan(0);
+    for (const d of ["stage", "lens_tilt"])
+      expect(
+        await other.locator(`svg[data-plot="torque-${d}"] polyline[data-series="net"]`).count(),
+      ).toBeGreaterThan(0);
     expect(await other.locator("table.safety tr.fail").count()).toBeGreaterThan(0);
     await other.screenshot({ path: `${ARTIFACTS}/report-magnifier-arm.png`, fullPage: true });
     await other.locator(".drawing").screenshot({ path: `${ARTIFACTS}/report-magnifier-arm-drawing.png` });
@@ -100,7 +112,9 @@ describe("poise report command", () => {
       const out = join(dir, `${sample}.html`);
       const file = `samples/${sample}.poise`;
       const code = await runReport([file, "-o", out]);
-      const errors = analyse(readFileSync(file, "utf8")).findings.filter((f) => f.severity === "error").length;
+      const errors = analyse(readFileSync(file, "utf8")).findings.filter(
+        (f) => f.severity === "error",
+      ).length;
       expect(code).toBe(errors > 0 ? 1 : 0);
       expect(existsSync(out)).toBe(true);
       const page = readFileSync(out, "utf8");

@@ -19,7 +19,8 @@ describe("view and report on half-typed specs", () => {
       for (let i = 1; i <= CUTS; i++) {
         const cut = text.slice(0, Math.round((text.length * i) / CUTS));
         const vm = buildViewModel(analyse(cut, { stepsOverride: STEPS }));
-        for (let p = 0; p < Math.max(1, vm.poses.length); p++) expect(renderArmSvg(vm, p)).toMatch(/^<svg[\s\S]*<\/svg>$/);
+        for (let p = 0; p < Math.max(1, vm.poses.length); p++)
+          expect(renderArmSvg(vm, p)).toMatch(/^<svg[\s\S]*<\/svg>$/);
         const html = renderReportHtml(vm, { file: `${name}.poise` });
         expect(html).toContain("</html>");
         // Whatever the text, the JSON the panel is sent survives a round trip.

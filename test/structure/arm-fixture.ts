@@ -1,7 +1,17 @@
 // Hand-built arm models and solved poses for the structure and check tests, independent of the
 // parser and the solver: forward kinematics on the joint tree and tree statics (each joint's
 // reaction and torque balance everything beyond it). Trees only: no closed loops.
-import type { ArmModel, Body, Joint, Material, Origin, Payload, Section, Spring, Vec2 } from "../../server/src/model/types";
+import type {
+  ArmModel,
+  Body,
+  Joint,
+  Material,
+  Origin,
+  Payload,
+  Section,
+  Spring,
+  Vec2,
+} from "../../server/src/model/types";
 import type { Pose, PoseStatics, SweepResult } from "../../server/src/mechanics/types";
 import { REQUIREMENT_DEFAULTS } from "../../server/src/model/schema";
 import { sectionProperties } from "../../server/src/model/section";
@@ -21,13 +31,57 @@ export function origin(...keys: string[]): Origin {
 
 /** Typical values, references.md materials table (sources there; several "from memory"). */
 export const MATERIALS: Record<string, Material> = {
-  aluminium_6061_t6: { id: "aluminium_6061_t6", density: 2700, modulus: 68.9e9, shearModulus: 26e9, poisson: 0.33, strength: 276e6, printed: false, builtin: true },
-  steel_1018: { id: "steel_1018", density: 7870, modulus: 207e9, shearModulus: 79.3e9, poisson: 0.3, strength: 370e6, printed: false, builtin: true },
-  petg: { id: "petg", density: 1270, modulus: 2.0e9, shearModulus: 0.74e9, poisson: 0.35, strength: 45e6, layerStrength: 22.5e6, printed: true, builtin: true },
-  music_wire: { id: "music_wire", density: 7850, modulus: 200e9, shearModulus: 81.7e9, poisson: 0.3, strength: 2153e6, printed: false, builtin: true },
+  aluminium_6061_t6: {
+    id: "aluminium_6061_t6",
+    density: 2700,
+    modulus: 68.9e9,
+    shearModulus: 26e9,
+    poisson: 0.33,
+    strength: 276e6,
+    printed: false,
+    builtin: true,
+  },
+  steel_1018: {
+    id: "steel_1018",
+    density: 7870,
+    modulus: 207e9,
+    shearModulus: 79.3e9,
+    poisson: 0.3,
+    strength: 370e6,
+    printed: false,
+    builtin: true,
+  },
+  petg: {
+    id: "petg",
+    density: 1270,
+    modulus: 2.0e9,
+    shearModulus: 0.74e9,
+    poisson: 0.35,
+    strength: 45e6,
+    layerStrength: 22.5e6,
+    printed: true,
+    builtin: true,
+  },
+  music_wire: {
+    id: "music_wire",
+    density: 7850,
+    modulus: 200e9,
+    shearModulus: 81.7e9,
+    poisson: 0.3,
+    strength: 2153e6,
+    printed: false,
+    builtin: true,
+  },
 };
 
-export function linkBody(id: string, length: number, section: Section, material: string, kind: "link" | "bar" = "link", points: Record<string, Vec2> = {}): Body {
+export function linkBody(
+  id: string,
+  length: number,
+  section: Section,
+  material: string,
+  kind: "link" | "bar" = "link",
+  points: Record<string, Vec2> = {},
+): Body {
   const mass = sectionProperties(section).area * length * MATERIALS[material]!.density;
   return {
     id,
@@ -44,10 +98,27 @@ export function linkBody(id: string, length: number, section: Section, material:
 }
 
 export function baseBody(id: string, points: Record<string, Vec2>): Body {
-  return { id, kind: "base", length: 0, mass: 0, massGiven: true, centreOfMass: { x: 0, y: 0 }, points, origin: origin("mass", "footprint") };
+  return {
+    id,
+    kind: "base",
+    length: 0,
+    mass: 0,
+    massGiven: true,
+    centreOfMass: { x: 0, y: 0 },
+    points,
+    origin: origin("mass", "footprint"),
+  };
 }
 
-export function joint(id: string, parent: string, parentPoint: Vec2, child: string, angle: number, mode: Joint["mode"], extra: Partial<Joint> = {}): Joint {
+export function joint(
+  id: string,
+  parent: string,
+  parentPoint: Vec2,
+  child: string,
+  angle: number,
+  mode: Joint["mode"],
+  extra: Partial<Joint> = {},
+): Joint {
   return {
     id,
     parent,
@@ -62,11 +133,23 @@ export function joint(id: string, parent: string, parentPoint: Vec2, child: stri
   };
 }
 
-export function payload(id: string, body: string, point: Vec2, mass: number, extra: Partial<Payload> = {}): Payload {
+export function payload(
+  id: string,
+  body: string,
+  point: Vec2,
+  mass: number,
+  extra: Partial<Payload> = {},
+): Payload {
   return { id, body, point, mass, origin: origin("mass", "at", "force"), ...extra };
 }
 
-export function armModel(parts: { bodies: Body[]; joints: Joint[]; springs?: Spring[]; payloads?: Payload[]; base?: ArmModel["base"] }): ArmModel {
+export function armModel(parts: {
+  bodies: Body[];
+  joints: Joint[];
+  springs?: Spring[];
+  payloads?: Payload[];
+  base?: ArmModel["base"];
+}): ArmModel {
   const baseId = parts.bodies.find((b) => b.kind === "base")!.id;
   return {
     title: "fixture",
@@ -106,7 +189,12 @@ function springForceOf(model: ArmModel, sp: Spring, length: number, angle: numbe
 }
 
 /** Solves one pose of a tree-shaped arm: joint angles (default: each joint's `angle`). */
-export function treePose(model: ArmModel, angles: Record<string, number> = {}, index = 0, payloadMass: Record<string, number> = {}): Pose {
+export function treePose(
+  model: ArmModel,
+  angles: Record<string, number> = {},
+  index = 0,
+  payloadMass: Record<string, number> = {},
+): Pose {
   const baseId = model.base!.bodyId;
   const bodies: Pose["bodies"] = { [baseId]: { x: 0, y: 0, phi: 0 } };
   const jointAngles: Record<string, number> = {};
@@ -123,7 +211,11 @@ export function treePose(model: ArmModel, angles: Record<string, number> = {}, i
       const phi = pp.phi + a;
       const c = Math.cos(phi);
       const s = Math.sin(phi);
-      bodies[j.child] = { x: pivot.x - (c * j.childPoint.x - s * j.childPoint.y), y: pivot.y - (s * j.childPoint.x + c * j.childPoint.y), phi };
+      bodies[j.child] = {
+        x: pivot.x - (c * j.childPoint.x - s * j.childPoint.y),
+        y: pivot.y - (s * j.childPoint.x + c * j.childPoint.y),
+        phi,
+      };
       placed.add(j.child);
       progress = true;
     }
@@ -150,7 +242,8 @@ export function treePose(model: ArmModel, angles: Record<string, number> = {}, i
     let grew = true;
     while (grew) {
       grew = false;
-      for (const j of model.joints) if (set.has(j.parent) && !set.has(j.child)) (set.add(j.child), (grew = true));
+      for (const j of model.joints)
+        if (set.has(j.parent) && !set.has(j.child)) (set.add(j.child), (grew = true));
     }
     return set;
   };
@@ -168,9 +261,14 @@ export function treePose(model: ArmModel, angles: Record<string, number> = {}, i
       fy += f.y;
       m += (p.x - pivot.x) * f.y - (p.y - pivot.y) * f.x + couple;
     };
-    for (const b of model.bodies) if (set.has(b.id)) add(world(bodies[b.id]!, b.centreOfMass), { x: 0, y: -b.mass * model.gravity });
+    for (const b of model.bodies)
+      if (set.has(b.id)) add(world(bodies[b.id]!, b.centreOfMass), { x: 0, y: -b.mass * model.gravity });
     for (const p of model.payloads)
-      if (set.has(p.body)) add(world(bodies[p.body]!, p.point), { x: p.force?.x ?? 0, y: -(payloadMass[p.id] ?? p.mass) * model.gravity + (p.force?.y ?? 0) });
+      if (set.has(p.body))
+        add(world(bodies[p.body]!, p.point), {
+          x: p.force?.x ?? 0,
+          y: -(payloadMass[p.id] ?? p.mass) * model.gravity + (p.force?.y ?? 0),
+        });
     for (const sp of model.springs) {
       const T = springForce[sp.id]!;
       if (sp.kind === "torsion") {
@@ -205,7 +303,13 @@ export function treeSweep(model: ArmModel, angleSets: Record<string, number>[]):
     .map((j) => ({ id: j.id, jointId: j.id, range: j.range!, reference: j.angle }));
   return {
     dofs,
-    loadCases: [{ id: "nominal", label: "nominal", payloadMass: Object.fromEntries(model.payloads.map((p) => [p.id, p.mass])) }],
+    loadCases: [
+      {
+        id: "nominal",
+        label: "nominal",
+        payloadMass: Object.fromEntries(model.payloads.map((p) => [p.id, p.mass])),
+      },
+    ],
     reference: treePose(model, {}, -1),
     poses,
     steps: angleSets.length,

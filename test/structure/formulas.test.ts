@@ -103,7 +103,10 @@ describe("extension spring body", () => {
     expect(wahlFactor(C)).toBeCloseTo(1.184, 3);
     // Shigley eq. 10-7: tau = K_B 8 F D / (pi d^3); worked 497.6 MPa
     const tau = coilBodyShearStress(30, D, d);
-    expect(tau / 1e6).toBeCloseTo((bergstraesserFactor(8) * 8 * 30 * 0.0096) / (Math.PI * 0.0012 ** 3) / 1e6, 6);
+    expect(tau / 1e6).toBeCloseTo(
+      (bergstraesserFactor(8) * 8 * 30 * 0.0096) / (Math.PI * 0.0012 ** 3) / 1e6,
+      6,
+    );
     expect(tau / 1e6).toBeCloseTo(497.6, 1);
   });
   it("music wire strength and the extension-body allowable", () => {

@@ -17,7 +17,8 @@ function cantilever(frame: PlaneFrame, count: number, length = L): number[] {
   const nodes: number[] = [];
   for (let k = 0; k <= count; k++) nodes.push(frame.addNode((length * k) / count, 0));
   frame.fix(nodes[0]!);
-  for (let k = 0; k < count; k++) frame.addElement(nodes[k]!, nodes[k + 1]!, E * tube.area, E * tube.secondMoment);
+  for (let k = 0; k < count; k++)
+    frame.addElement(nodes[k]!, nodes[k + 1]!, E * tube.area, E * tube.secondMoment);
   return nodes;
 }
 
@@ -107,7 +108,10 @@ describe("frame statics", () => {
     frame.addElement(top, tip, E * tube.area, E * tube.secondMoment);
     frame.addLoad(tip, 0, -P);
     const u = frame.solveStatic()!.displacement(tip);
-    const vertical = (P * b ** 3) / (3 * E * tube.secondMoment) + (P * b * b * H) / (E * rod.secondMoment) + (P * H) / (E * rod.area);
+    const vertical =
+      (P * b ** 3) / (3 * E * tube.secondMoment) +
+      (P * b * b * H) / (E * rod.secondMoment) +
+      (P * H) / (E * rod.area);
     // unit-load method (derived above)
     expect(-u.uy).toBeCloseTo(vertical, 10);
     // unit-load method (derived above): the column top sways toward +x (the load's side)
@@ -243,6 +247,9 @@ describe("lowest eigenvalue by inverse iteration", () => {
       if (i > 0) a[i * n + i - 1] = a[(i - 1) * n + i] = -1;
     }
     expect(lowestEigenvalue(a, n)).toBeCloseTo(2 - 2 * Math.cos(Math.PI / (n + 1)), 10);
-    expect(symmetricEigen(Float64Array.from(a), n).values[0]).toBeCloseTo(2 - 2 * Math.cos(Math.PI / (n + 1)), 10);
+    expect(symmetricEigen(Float64Array.from(a), n).values[0]).toBeCloseTo(
+      2 - 2 * Math.cos(Math.PI / (n + 1)),
+      10,
+    );
   });
 });

@@ -1,7 +1,13 @@
 // The parser over every construct of the language, with exact spans, and its recovery.
 import { describe, expect, test } from "vitest";
 import { parse } from "../../server/src/syntax/parser";
-import type { DeclarationNode, PropertyNode, QuantityNode, ReferenceNode, SyntaxTree } from "../../server/src/syntax/ast";
+import type {
+  DeclarationNode,
+  PropertyNode,
+  QuantityNode,
+  ReferenceNode,
+  SyntaxTree,
+} from "../../server/src/syntax/ast";
 
 /** Span of the n-th occurrence of `sub` in `text`. */
 function at(text: string, sub: string, nth = 0): { start: number; end: number } {
@@ -13,7 +19,10 @@ function at(text: string, sub: string, nth = 0): { start: number; end: number } 
   return { start: i, end: i + sub.length };
 }
 
-function only(tree: SyntaxTree): { decls: readonly DeclarationNode[]; props: (d: number) => readonly PropertyNode[] } {
+function only(tree: SyntaxTree): {
+  decls: readonly DeclarationNode[];
+  props: (d: number) => readonly PropertyNode[];
+} {
   expect(tree.errors).toEqual([]);
   const arm = tree.arms[0]!;
   return { decls: arm.declarations, props: (d) => arm.declarations[d]!.properties };
@@ -57,7 +66,12 @@ describe("structure", () => {
   test("flags: a key alone", () => {
     const text = wrap("  joint j {\n    fixed\n  }");
     const { props } = only(parse(text));
-    expect(props(0)[0]).toEqual({ kind: "property", key: { text: "fixed", span: at(text, "fixed") }, values: [], span: at(text, "fixed") });
+    expect(props(0)[0]).toEqual({
+      kind: "property",
+      key: { text: "fixed", span: at(text, "fixed") },
+      values: [],
+      span: at(text, "fixed"),
+    });
   });
 
   test("CRLF line ends", () => {
@@ -97,7 +111,10 @@ describe("values", () => {
     const numberText = written.split(" ")[0]!;
     expect(q.numberText).toBe(numberText);
     expect(q.numberSpan).toEqual(at(text, numberText));
-    expect(q.unit).toEqual({ text: unit, span: { start: at(text, written).start + numberText.length + 1, end: at(text, written).end } });
+    expect(q.unit).toEqual({
+      text: unit,
+      span: { start: at(text, written).start + numberText.length + 1, end: at(text, written).end },
+    });
     expect(q.span).toEqual(at(text, written));
   });
 
@@ -128,13 +145,22 @@ describe("values", () => {
 
   test("point", () => {
     const { text, values } = valuesOf("force (40 mm, -2.5 mm)");
-    expect(values[0]).toMatchObject({ kind: "point", span: at(text, "(40 mm, -2.5 mm)"), x: { value: 40, span: at(text, "40 mm") }, y: { value: -2.5, span: at(text, "-2.5 mm") } });
+    expect(values[0]).toMatchObject({
+      kind: "point",
+      span: at(text, "(40 mm, -2.5 mm)"),
+      x: { value: 40, span: at(text, "40 mm") },
+      y: { value: -2.5, span: at(text, "-2.5 mm") },
+    });
   });
 
   test("sections and dims", () => {
     const rect = valuesOf("section rect 20 mm x 6 mm");
     expect(rect.values.map((v) => v.kind)).toEqual(["reference", "dims"]);
-    expect(rect.values[1]).toMatchObject({ span: at(rect.text, "20 mm x 6 mm"), first: { value: 20 }, second: { value: 6 } });
+    expect(rect.values[1]).toMatchObject({
+      span: at(rect.text, "20 mm x 6 mm"),
+      first: { value: 20 },
+      second: { value: 6 },
+    });
     const tube = valuesOf("section tube 25 mm x 2 mm");
     expect(tube.values[1]).toMatchObject({ kind: "dims", first: { value: 25 }, second: { value: 2 } });
     const rod = valuesOf("section rod 8 mm");
@@ -156,7 +182,12 @@ describe("values", () => {
       expect(ref.kind).toBe("reference");
       expect(ref.parts.map((p) => p.text)).toEqual(parts);
       const lineStart = text.indexOf(line);
-      expect(ref.parts.map((p) => p.span)).toEqual(parts.map((p) => ({ start: text.indexOf(p, lineStart + 3), end: text.indexOf(p, lineStart + 3) + p.length })));
+      expect(ref.parts.map((p) => p.span)).toEqual(
+        parts.map((p) => ({
+          start: text.indexOf(p, lineStart + 3),
+          end: text.indexOf(p, lineStart + 3) + p.length,
+        })),
+      );
       expect(ref.span).toEqual(at(text, line.slice(3)));
       expect(ref.point !== undefined).toBe(hasPoint);
     }
@@ -164,7 +195,9 @@ describe("values", () => {
 
   test("connectives stay as one-part references in order", () => {
     const { values } = valuesOf("connects post.top to arm.start");
-    expect(values.map((v) => (v.kind === "reference" ? v.parts.map((p) => p.text).join(".") : v.kind))).toEqual(["post.top", "to", "arm.start"]);
+    expect(
+      values.map((v) => (v.kind === "reference" ? v.parts.map((p) => p.text).join(".") : v.kind)),
+    ).toEqual(["post.top", "to", "arm.start"]);
   });
 
   test("strings with escapes", () => {
@@ -177,7 +210,21 @@ describe("values", () => {
 
 describe("recovery", () => {
   test("never throws, whatever the text", () => {
-    for (const text of ["", "}", "{{{", "arm", 'arm "', "((((", "arm { link { a ( , ) .. x } } }", "\u0000\u0001", "arm \"x\" { link a { length 3 mm ", "#", "\n\n\n", "x x x", "1 2 3"]) {
+    for (const text of [
+      "",
+      "}",
+      "{{{",
+      "arm",
+      'arm "',
+      "((((",
+      "arm { link { a ( , ) .. x } } }",
+      "\u0000\u0001",
+      'arm "x" { link a { length 3 mm ',
+      "#",
+      "\n\n\n",
+      "x x x",
+      "1 2 3",
+    ]) {
       expect(() => parse(text)).not.toThrow();
     }
   });
@@ -190,7 +237,9 @@ describe("recovery", () => {
   });
 
   test("an unclosed `{` does not hide later declarations", () => {
-    const text = wrap("  link boom {\n    length 300 mm\n\n  link fore {\n    length 2 mm\n  }\n  require {\n  }");
+    const text = wrap(
+      "  link boom {\n    length 300 mm\n\n  link fore {\n    length 2 mm\n  }\n  require {\n  }",
+    );
     const tree = parse(text);
     expect(tree.errors).toEqual([{ message: "unclosed `{` of link boom", span: at(text, "{", 1) }]);
     expect(tree.arms[0]!.declarations.map((d) => d.keyword.text)).toEqual(["link", "link", "require"]);

@@ -64,11 +64,44 @@ describe("factors against the exact definitions (NIST SP 811 appendix B; SI Broc
 describe("every unit of language.md against mathjs", () => {
   // mathjs has no ksi or Mpsi: those are compared through psi.
   const units = [
-    "mm", "cm", "m", "in", "ft", "g", "kg", "lb", "oz", "N", "kN", "lbf",
-    "N*m", "N*mm", "lbf*in", "lbf*ft", "N/mm", "N/m", "lbf/in",
-    "N*m/rad", "N*mm/deg", "lbf*in/deg", "deg", "rad",
-    "Pa", "kPa", "MPa", "GPa", "psi", "g/cm^3", "kg/m^3", "lb/in^3", "m/s^2", "Hz",
-    "mm^2", "cm^2", "m^2", "in^2",
+    "mm",
+    "cm",
+    "m",
+    "in",
+    "ft",
+    "g",
+    "kg",
+    "lb",
+    "oz",
+    "N",
+    "kN",
+    "lbf",
+    "N*m",
+    "N*mm",
+    "lbf*in",
+    "lbf*ft",
+    "N/mm",
+    "N/m",
+    "lbf/in",
+    "N*m/rad",
+    "N*mm/deg",
+    "lbf*in/deg",
+    "deg",
+    "rad",
+    "Pa",
+    "kPa",
+    "MPa",
+    "GPa",
+    "psi",
+    "g/cm^3",
+    "kg/m^3",
+    "lb/in^3",
+    "m/s^2",
+    "Hz",
+    "mm^2",
+    "cm^2",
+    "m^2",
+    "in^2",
   ];
   for (const u of units) {
     test(u, () => {
@@ -133,7 +166,10 @@ describe("checking a quantity against a property", () => {
     expect(!c.ok && c.message).toContain("did you mean mm?");
   });
   test("plain numbers take no unit; a second `/` is refused", () => {
-    expect(checkQuantity("coils", 20, "20", undefined, ["dimensionless"])).toMatchObject({ ok: true, valueSI: 20 });
+    expect(checkQuantity("coils", 20, "20", undefined, ["dimensionless"])).toMatchObject({
+      ok: true,
+      valueSI: 20,
+    });
     expect(checkQuantity("coils", 20, "20", "mm", ["dimensionless"]).ok).toBe(false);
     expect(parseUnit("N/m/s").ok).toBe(false);
   });
@@ -164,7 +200,9 @@ describe("display", () => {
     expect(formatQuantity(0.45359237 / 2, "mass", "us")).toBe("8 oz");
     expect(formatQuantity(300, "stiffness", "si")).toBe("0.3 N/mm");
     expect(formatQuantity(276e6, "pressure", "si")).toBe("276 MPa");
-    expect(formatQuantity(276e6, "pressure", "us")).toBe(`${Number((276e6 / (1000 * 6894.757293168361)).toPrecision(4))} ksi`);
+    expect(formatQuantity(276e6, "pressure", "us")).toBe(
+      `${Number((276e6 / (1000 * 6894.757293168361)).toPrecision(4))} ksi`,
+    );
     expect(formatQuantity(Math.PI / 6, "angle", "si")).toBe("30 deg");
     expect(formatQuantity(2.5, "dimensionless", "si")).toBe("2.5");
   });
@@ -198,7 +236,20 @@ describe("did you mean", () => {
 describe("display round trip", () => {
   // What formatQuantity shows reads back (through the same unit table) to the value within the
   // four significant figures it keeps.
-  const dims = ["length", "area", "mass", "force", "torque", "stiffness", "angular_stiffness", "angle", "pressure", "density", "acceleration", "frequency"] as const;
+  const dims = [
+    "length",
+    "area",
+    "mass",
+    "force",
+    "torque",
+    "stiffness",
+    "angular_stiffness",
+    "angle",
+    "pressure",
+    "density",
+    "acceleration",
+    "frequency",
+  ] as const;
   for (const dim of dims) {
     for (const system of ["si", "us"] as const) {
       test(`${dim} in ${system}`, () => {

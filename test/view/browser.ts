@@ -8,7 +8,16 @@ import { join } from "node:path";
 
 export const CHROMIUM = "/usr/bin/chromium";
 export const ARTIFACTS = "test-artifacts";
-const ARGS = ["--headless", "--no-sandbox", "--disable-gpu", "--disable-quic", "--no-first-run", "--disable-background-networking", "--disable-component-update", "--disable-sync"];
+const ARGS = [
+  "--headless",
+  "--no-sandbox",
+  "--disable-gpu",
+  "--disable-quic",
+  "--no-first-run",
+  "--disable-background-networking",
+  "--disable-component-update",
+  "--disable-sync",
+];
 
 export interface Served {
   body: string | Buffer;
@@ -23,7 +32,10 @@ export interface Browser {
 }
 
 /** `files` maps full URLs (e.g. http://preview.test/page.html) to what to answer. */
-export async function openBrowser(files: Record<string, Served>, options: { javaScriptEnabled?: boolean } = {}): Promise<Browser> {
+export async function openBrowser(
+  files: Record<string, Served>,
+  options: { javaScriptEnabled?: boolean } = {},
+): Promise<Browser> {
   const profile = mkdtempSync(join(tmpdir(), "counterpoise-chromium-"));
   mkdirSync(ARTIFACTS, { recursive: true });
   const context = await chromium.launchPersistentContext(profile, {

@@ -28,7 +28,10 @@ describe("torque split by virtual work", () => {
       // along the link contributes -k a b cos(theta) to the holding torque.
       expect(pose.springTorque[0]!).toBeCloseTo(-RATE * A * B * Math.cos(theta), 1);
       // Same source: tau = (m g l - k a b) cos(theta), the sum of both parts.
-      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo((M * G * L_ARM - RATE * A * B) * Math.cos(theta), 1);
+      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo(
+        (M * G * L_ARM - RATE * A * B) * Math.cos(theta),
+        1,
+      );
       expect(pose.netTorque[0]!).toBeCloseTo((M * G * L_ARM - RATE * A * B) * Math.cos(theta), 3);
     }
   });
@@ -47,7 +50,9 @@ describe("view model", () => {
   it("gives each part the editor range of its name", () => {
     const lift = vm.parts.find((p) => p.id === "lift")!;
     const lines = pendulumAnalysis().text.split("\n");
-    expect(lines[lift.range.start.line]!.slice(lift.range.start.character, lift.range.end.character)).toBe("lift");
+    expect(lines[lift.range.start.line]!.slice(lift.range.start.character, lift.range.end.character)).toBe(
+      "lift",
+    );
   });
 
   it("places the payload path on a circle of radius l about the pivot", () => {
@@ -73,10 +78,16 @@ describe("view model", () => {
   it("draws the section depth and brackets to off-line hooks", () => {
     const boom = vm.bodies.find((b) => b.id === "boom")!;
     expect(boom.depthMm).toBe(20);
-    expect(boom.line).toEqual([[0, 0], [400, 0]]);
+    expect(boom.line).toEqual([
+      [0, 0],
+      [400, 0],
+    ]);
     const post = vm.bodies.find((b) => b.id === "post")!;
     // The post stands from the bench to the anchor, 350 mm.
-    expect(post.line).toEqual([[0, 0], [0, (PIVOT_Y + A) * 1000]]);
+    expect(post.line).toEqual([
+      [0, 0],
+      [0, (PIVOT_Y + A) * 1000],
+    ]);
     expect(B).toBeGreaterThan(0);
   });
 
@@ -89,9 +100,17 @@ describe("view model", () => {
 
 describe("thinning a dense grid for the panel", () => {
   const grid: Pose[] = [];
-  for (let i = 0; i < 141; i++) for (let j = 0; j < 141; j++) {
-    grid.push({ index: grid.length, angles: { a: -1 + (2 * i) / 140, b: (0.5 * j) / 140 }, jointAngles: {}, bodies: {}, springs: {}, cases: [] });
-  }
+  for (let i = 0; i < 141; i++)
+    for (let j = 0; j < 141; j++) {
+      grid.push({
+        index: grid.length,
+        angles: { a: -1 + (2 * i) / 140, b: (0.5 * j) / 140 },
+        jointAngles: {},
+        bodies: {},
+        springs: {},
+        cases: [],
+      });
+    }
   const thin = thinPoses(grid, ["a", "b"], 2500);
 
   it("keeps a whole sub-grid under the limit with both ends of every range", () => {

@@ -7,7 +7,9 @@ import { join } from "node:path";
 describe("webview script types", () => {
   it("client/media type-checks against the DOM library", () => {
     const tsc = join("node_modules", "typescript", "bin", "tsc");
-    const r = spawnSync(process.execPath, [tsc, "-p", join("client", "media", "tsconfig.json"), "--noEmit"], { encoding: "utf8" });
+    const r = spawnSync(process.execPath, [tsc, "-p", join("client", "media", "tsconfig.json"), "--noEmit"], {
+      encoding: "utf8",
+    });
     expect(r.stdout + r.stderr).toBe("");
     expect(r.status).toBe(0);
   }, 120000);

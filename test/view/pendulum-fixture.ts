@@ -77,36 +77,82 @@ function origin(text: string, head: string, name: string, props: string[]) {
 
 export function pendulumModel(rate: number, text = PENDULUM_TEXT): ArmModel {
   const base: Body = {
-    id: "post", kind: "base", length: 0, mass: 0, massGiven: false, centreOfMass: { x: 0, y: 0 },
+    id: "post",
+    kind: "base",
+    length: 0,
+    mass: 0,
+    massGiven: false,
+    centreOfMass: { x: 0, y: 0 },
     points: { pivot: { x: 0, y: PIVOT_Y }, anchor: { x: 0, y: PIVOT_Y + A } },
     origin: origin(text, "base post", "post", ["point"]),
   };
   const boom: Body = {
-    id: "boom", kind: "link", length: L_ARM, section: { shape: "rect", depth: 0.02, width: 0.006 }, mass: 0, massGiven: true,
-    centreOfMass: { x: L_ARM / 2, y: 0 }, points: { start: { x: 0, y: 0 }, end: { x: L_ARM, y: 0 } },
+    id: "boom",
+    kind: "link",
+    length: L_ARM,
+    section: { shape: "rect", depth: 0.02, width: 0.006 },
+    mass: 0,
+    massGiven: true,
+    centreOfMass: { x: L_ARM / 2, y: 0 },
+    points: { start: { x: 0, y: 0 }, end: { x: L_ARM, y: 0 } },
     origin: origin(text, "link boom", "boom", ["length", "section", "mass"]),
   };
   const shoulder: Joint = {
-    id: "shoulder", parent: "post", child: "boom", parentPoint: { x: 0, y: PIVOT_Y }, childPoint: { x: 0, y: 0 },
-    parentPointName: "pivot", childPointName: "start", angle: 0, mode: "range", range: [(-45 * Math.PI) / 180, (60 * Math.PI) / 180],
+    id: "shoulder",
+    parent: "post",
+    child: "boom",
+    parentPoint: { x: 0, y: PIVOT_Y },
+    childPoint: { x: 0, y: 0 },
+    parentPointName: "pivot",
+    childPointName: "start",
+    angle: 0,
+    mode: "range",
+    range: [(-45 * Math.PI) / 180, (60 * Math.PI) / 180],
     pin: { diameter: 0.003, material: "steel_1018", shearPlanes: 1 },
     origin: origin(text, "joint shoulder", "shoulder", ["connects", "angle", "range", "pin"]),
   };
   const lift: Spring = {
-    id: "lift", kind: "zero_length", rate, initialTension: 0,
-    a: { body: "post", point: { x: 0, y: PIVOT_Y + A }, pointName: "anchor", span: spanOf(text, "post.anchor") },
+    id: "lift",
+    kind: "zero_length",
+    rate,
+    initialTension: 0,
+    a: {
+      body: "post",
+      point: { x: 0, y: PIVOT_Y + A },
+      pointName: "anchor",
+      span: spanOf(text, "post.anchor"),
+    },
     b: { body: "boom", point: { x: B, y: 0 }, span: spanOf(text, "boom(100 mm, 0 mm)") },
     origin: origin(text, "spring lift", "lift", ["zero_length", "between", "rate"]),
   };
-  const lamp: Payload = { id: "lamp", body: "boom", point: { x: L_ARM, y: 0 }, mass: M, origin: origin(text, "payload lamp", "lamp", ["mass", "at"]) };
+  const lamp: Payload = {
+    id: "lamp",
+    body: "boom",
+    point: { x: L_ARM, y: 0 },
+    mass: M,
+    origin: origin(text, "payload lamp", "lamp", ["mass", "at"]),
+  };
   return {
-    title: "Test pendulum", gravity: G, base: { bodyId: "post", mass: 0, yaw: false, surface: 0 },
-    bodies: [base, boom], joints: [shoulder], parallelograms: [], springs: [lift], payloads: [lamp], materials: {},
+    title: "Test pendulum",
+    gravity: G,
+    base: { bodyId: "post", mass: 0, yaw: false, surface: 0 },
+    bodies: [base, boom],
+    joints: [shoulder],
+    parallelograms: [],
+    springs: [lift],
+    payloads: [lamp],
+    materials: {},
     require: {
-      balance: { default: 1, byPayload: {} }, safety: 2, tilt: { default: 0.035, byPayload: {} },
-      deflection: { default: 0.002, byPayload: {} }, frequency: 4, tipping: 1.5, clearance: 0.003,
+      balance: { default: 1, byPayload: {} },
+      safety: 2,
+      tilt: { default: 0.035, byPayload: {} },
+      deflection: { default: 0.002, byPayload: {} },
+      frequency: 4,
+      tipping: 1.5,
+      clearance: 0.003,
     },
-    sweep: { steps: 22, grid: true }, span: { start: 0, end: text.length },
+    sweep: { steps: 22, grid: true },
+    span: { start: 0, end: text.length },
   };
 }
 
@@ -120,21 +166,37 @@ export function pendulumPose(index: number, theta: number, rate: number): Pose {
   const length = Math.sqrt(A * A + B * B - 2 * A * B * Math.sin(theta));
   const tau = pendulumHoldingTorque(theta, rate);
   return {
-    index, angles: { shoulder: theta }, jointAngles: { shoulder: theta },
+    index,
+    angles: { shoulder: theta },
+    jointAngles: { shoulder: theta },
     bodies: { post: { x: 0, y: 0, phi: 0 }, boom: { x: 0, y: PIVOT_Y, phi: theta } },
     springs: { lift: { length, a: anchor, b: hook } },
-    cases: [{ holdingTorque: { shoulder: tau }, handForce: { lamp: Math.abs(tau) / L_ARM }, reactions: {}, lockedTorque: {}, springForce: { lift: rate * length } }],
+    cases: [
+      {
+        holdingTorque: { shoulder: tau },
+        handForce: { lamp: Math.abs(tau) / L_ARM },
+        reactions: {},
+        lockedTorque: {},
+        springForce: { lift: rate * length },
+      },
+    ],
   };
 }
 
 export function pendulumSweep(rate: number, steps = 22): SweepResult {
   const lo = (-45 * Math.PI) / 180;
   const hi = (60 * Math.PI) / 180;
-  const poses = Array.from({ length: steps }, (_, i) => pendulumPose(i, lo + ((hi - lo) * i) / (steps - 1), rate));
+  const poses = Array.from({ length: steps }, (_, i) =>
+    pendulumPose(i, lo + ((hi - lo) * i) / (steps - 1), rate),
+  );
   return {
     dofs: [{ id: "shoulder", jointId: "shoulder", range: [lo, hi], reference: 0 }],
     loadCases: [{ id: "nominal", label: "nominal", payloadMass: { lamp: M } }],
-    reference: pendulumPose(0, 0, rate), poses, steps, grid: true, findings: [],
+    reference: pendulumPose(0, 0, rate),
+    poses,
+    steps,
+    grid: true,
+    findings: [],
   };
 }
 
@@ -145,16 +207,44 @@ export function pendulumAnalysis(rate = 550): ViewInput {
   const sweep = pendulumSweep(rate);
   const worst = Math.max(...sweep.poses.map((p) => p.cases[0]!.handForce.lamp!));
   const findings: Finding[] = [
-    finding("balance.unbalanced", model.springs[0]!.origin.properties.rate!, `Holding lamp needs up to ${worst.toFixed(2)} N; the arm sinks.`, {
-      data: { springId: "lift", bestRate: K_BALANCED, bestInitialTension: 0, worstHandForceBefore: worst, worstHandForceAfter: 0 },
-    }),
-    finding("strength.overstress", model.joints[0]!.origin.properties.pin!, "Pin of shoulder: safety factor 1.4 in shear, below 2.", {
-      data: { partId: "shoulder", safety: 1.4, required: 2 },
-    }),
+    finding(
+      "balance.unbalanced",
+      model.springs[0]!.origin.properties.rate!,
+      `Holding lamp needs up to ${worst.toFixed(2)} N; the arm sinks.`,
+      {
+        data: {
+          springId: "lift",
+          bestRate: K_BALANCED,
+          bestInitialTension: 0,
+          worstHandForceBefore: worst,
+          worstHandForceAfter: 0,
+        },
+      },
+    ),
+    finding(
+      "strength.overstress",
+      model.joints[0]!.origin.properties.pin!,
+      "Pin of shoulder: safety factor 1.4 in shear, below 2.",
+      {
+        data: { partId: "shoulder", safety: 1.4, required: 2 },
+      },
+    ),
   ];
   const readouts: Readouts = {
-    shoulder: { id: "shoulder", kind: "joint", figures: [], notes: [], worstSafety: { value: 1.4, what: "pin shear", where: "at shoulder -45 deg" } },
-    boom: { id: "boom", kind: "link", figures: [], notes: [], worstSafety: { value: 6.2, what: "bending at start", where: "at shoulder 0 deg" } },
+    shoulder: {
+      id: "shoulder",
+      kind: "joint",
+      figures: [],
+      notes: [],
+      worstSafety: { value: 1.4, what: "pin shear", where: "at shoulder -45 deg" },
+    },
+    boom: {
+      id: "boom",
+      kind: "link",
+      figures: [],
+      notes: [],
+      worstSafety: { value: 6.2, what: "bending at start", where: "at shoulder 0 deg" },
+    },
   };
   return { text, model, sweep, findings, readouts };
 }

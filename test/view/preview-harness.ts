@@ -11,7 +11,15 @@ const ORIGIN = "http://preview.test";
 const NONCE = "testnonce0123456789abcdefghijklmn";
 
 async function pageScript(): Promise<string> {
-  const out = await build({ entryPoints: ["client/media/preview-page.ts"], bundle: true, write: false, platform: "browser", format: "iife", target: "es2020", logLevel: "silent" });
+  const out = await build({
+    entryPoints: ["client/media/preview-page.ts"],
+    bundle: true,
+    write: false,
+    platform: "browser",
+    format: "iife",
+    target: "es2020",
+    logLevel: "silent",
+  });
   return out.outputFiles[0]!.text;
 }
 
@@ -22,11 +30,19 @@ export interface Preview {
 }
 
 export async function openPreview(): Promise<Preview> {
-  const html = previewHtml({ cspSource: ORIGIN, nonce: NONCE, scriptUri: `${ORIGIN}/dist/preview-page.js`, styleUri: `${ORIGIN}/media/preview.css` });
+  const html = previewHtml({
+    cspSource: ORIGIN,
+    nonce: NONCE,
+    scriptUri: `${ORIGIN}/dist/preview-page.js`,
+    styleUri: `${ORIGIN}/media/preview.css`,
+  });
   const browser = await openBrowser({
     [`${ORIGIN}/index.html`]: { body: html, contentType: "text/html" },
     [`${ORIGIN}/dist/preview-page.js`]: { body: await pageScript(), contentType: "text/javascript" },
-    [`${ORIGIN}/media/preview.css`]: { body: readFileSync("client/media/preview.css"), contentType: "text/css" },
+    [`${ORIGIN}/media/preview.css`]: {
+      body: readFileSync("client/media/preview.css"),
+      contentType: "text/css",
+    },
   });
   const page = await browser.context.newPage();
   // Runs in the page (as text: the test's own type-check has no DOM library).
@@ -43,8 +59,12 @@ export async function openPreview(): Promise<Preview> {
     browser,
     page,
     async show(vm, uri = "file:///work/arm.poise") {
-      await page.evaluate(`window.postMessage({ type: "view", model: ${JSON.stringify(vm)}, uri: ${JSON.stringify(uri)} }, "*")`);
-      await page.waitForFunction(`document.getElementById("title").textContent === ${JSON.stringify(vm.title)}`);
+      await page.evaluate(
+        `window.postMessage({ type: "view", model: ${JSON.stringify(vm)}, uri: ${JSON.stringify(uri)} }, "*")`,
+      );
+      await page.waitForFunction(
+        `document.getElementById("title").textContent === ${JSON.stringify(vm.title)}`,
+      );
     },
   };
 }

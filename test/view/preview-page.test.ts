@@ -57,10 +57,16 @@ describe("preview page", () => {
   });
 
   it("plots gravity, spring and net torque and the hand force with its band", async () => {
-    for (const s of ["gravity", "springs", "net"]) expect(await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count()).toBeGreaterThan(0);
+    for (const s of ["gravity", "springs", "net"])
+      expect(
+        await page.locator(`svg[data-plot="torque-shoulder"] polyline[data-series="${s}"]`).count(),
+      ).toBeGreaterThan(0);
     expect(await page.locator('svg[data-plot="hand-shoulder"] polyline[data-series="lamp"]').count()).toBe(1);
     expect(await page.locator('svg[data-plot="hand-shoulder"] rect.band').count()).toBe(1);
-    const points = (await page.getAttribute('svg[data-plot="torque-shoulder"] polyline[data-series="net"]', "points"))!.split(" ");
+    const points = (await page.getAttribute(
+      'svg[data-plot="torque-shoulder"] polyline[data-series="net"]',
+      "points",
+    ))!.split(" ");
     expect(points.length).toBe(vm.poses.length);
   });
 
@@ -71,14 +77,19 @@ describe("preview page", () => {
 
   it("asks the editor to reveal a part's declaration when it is clicked", async () => {
     await page.click('g.payload[data-payload="lamp"] circle');
-    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as { partId?: string; range?: unknown }[];
+    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as {
+      partId?: string;
+      range?: unknown;
+    }[];
     expect(sent.at(-1)?.partId).toBe("lamp");
     expect(sent.at(-1)?.range).toEqual(vm.parts.find((p) => p.id === "lamp")!.range);
   });
 
   it("reveals a diagnostic's own words when it is clicked in the list", async () => {
     await page.click('ul.findings li[data-finding="1"]');
-    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as { range?: unknown }[];
+    const sent = (await page.evaluate("window.__sent.filter((m) => m.type === 'reveal')")) as {
+      range?: unknown;
+    }[];
     expect(sent.at(-1)?.range).toEqual(vm.findings[1]!.range);
   });
 

@@ -9,7 +9,8 @@ import type { ViewModel } from "../../server/src/view/view-model";
 import { ARTIFACTS } from "./browser";
 import { openPreview, type Preview } from "./preview-harness";
 
-const viewOf = (name: string): ViewModel => buildViewModel(analyse(readFileSync(`samples/${name}.poise`, "utf8")));
+const viewOf = (name: string): ViewModel =>
+  buildViewModel(analyse(readFileSync(`samples/${name}.poise`, "utf8")));
 let preview: Preview;
 
 beforeAll(async () => {
@@ -31,7 +32,10 @@ describe("preview of the samples", () => {
       expect(await page.locator("ul.findings li").count()).toBe(vm.findings.length);
       // Every part the findings mark as failing is marked in the drawing, if it is drawn at all.
       for (const part of vm.parts.filter((p) => p.status === "error" && vm.poses.length)) {
-        expect(await page.locator(`svg.arm-drawing .flag[data-part="${part.id}"][data-status="error"]`).count(), part.id).toBe(1);
+        expect(
+          await page.locator(`svg.arm-drawing .flag[data-part="${part.id}"][data-status="error"]`).count(),
+          part.id,
+        ).toBe(1);
       }
       await page.screenshot({ path: `${ARTIFACTS}/preview-${name}.png`, fullPage: true });
     });
@@ -55,7 +59,10 @@ describe("preview of the samples", () => {
     expect(await inner()).not.toBe(inner0);
     expect(await outer()).not.toBe(outer1);
     // The plots against each dof are there.
-    for (const d of ["inner", "outer"]) expect(await page.locator(`svg[data-plot="torque-${d}"] polyline[data-series="net"]`).count()).toBeGreaterThan(0);
+    for (const d of ["inner", "outer"])
+      expect(
+        await page.locator(`svg[data-plot="torque-${d}"] polyline[data-series="net"]`).count(),
+      ).toBeGreaterThan(0);
     await page.screenshot({ path: `${ARTIFACTS}/preview-engraver-arm-posed.png`, fullPage: true });
     expect(await page.evaluate("window.__violations")).toEqual([]);
     expect(preview.browser.blocked).toEqual([]);

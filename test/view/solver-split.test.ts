@@ -21,7 +21,10 @@ describe("torque split on a solved sweep", () => {
       // Streit and Gilmore 1989 (references.md): tau = (m g l - k a b) cos(theta).
       expect(pose.netTorque[0]!).toBeCloseTo((M * G * L_ARM - rate * A * B) * Math.cos(theta), 2);
       // mechanics.md section 3: the holding torque equals dV/dtheta of the total potential.
-      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo(pose.netTorque[0]!, 1);
+      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo(
+        pose.netTorque[0]!,
+        1,
+      );
     }
   });
 });

@@ -42,7 +42,8 @@ export function jointsBetween(model: ArmModel, a: string, b: string): Joint[] {
 export function carrierHead(model: ArmModel, bodyId: string): Body | undefined {
   const byId = new Map(model.bodies.map((b) => [b.id, b]));
   if (byId.get(bodyId)?.kind === "head") return byId.get(bodyId);
-  for (const j of chainToBase(model, bodyId)) if (byId.get(j.parent)?.kind === "head") return byId.get(j.parent);
+  for (const j of chainToBase(model, bodyId))
+    if (byId.get(j.parent)?.kind === "head") return byId.get(j.parent);
   return undefined;
 }
 

@@ -12,7 +12,8 @@ import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
 import { formatResult } from "../units/format";
 import type { DimensionName } from "../units/dimension";
 
-const formatQuantityFor = (valueSI: number, dimension: DimensionName): string => formatResult(valueSI, dimension, "si");
+const formatQuantityFor = (valueSI: number, dimension: DimensionName): string =>
+  formatResult(valueSI, dimension, "si");
 
 /** A best-fit first parameter (rate, force, area) below this fraction of the present one means
  * the spring is better left out: common practice, no source. */
@@ -26,7 +27,14 @@ export function poseWhere(sweep: SweepResult, pose: Pose, caseIndex = 0): string
 }
 
 function spanOfSpring(s: Spring) {
-  const key = s.kind === "gas" ? "force" : s.kind === "elastic" ? (s.origin.properties["area"] ? "area" : "tube") : "rate";
+  const key =
+    s.kind === "gas"
+      ? "force"
+      : s.kind === "elastic"
+        ? s.origin.properties["area"]
+          ? "area"
+          : "tube"
+        : "rate";
   return s.origin.properties[key] ?? s.origin.name ?? s.origin.declaration;
 }
 
@@ -49,7 +57,11 @@ function worstHandForce(sweep: SweepResult, payloadId: string): Worst | undefine
 
 /** Data of a balance quick fix, in SI. */
 function fitData(s: Spring, fit: SpringFit): Record<string, unknown> {
-  const data: Record<string, unknown> = { springId: s.id, worstHandForceBefore: fit.worstHandForceBefore, worstHandForceAfter: fit.worstHandForceAfter };
+  const data: Record<string, unknown> = {
+    springId: s.id,
+    worstHandForceBefore: fit.worstHandForceBefore,
+    worstHandForceAfter: fit.worstHandForceAfter,
+  };
   if (s.kind === "extension" || s.kind === "zero_length") {
     data["bestRate"] = fit.best[0];
     data["bestInitialTension"] = fit.best[1];
@@ -82,7 +94,8 @@ export function balanceChecks(ctx: CheckContext): void {
   if (sweep.poses.length === 0) return;
   const fits = new Map<string, SpringFit | undefined>();
   const fitOf = (id: string) => {
-    if (!fits.has(id)) fits.set(id, performance.now() > ctx.options.deadline ? undefined : bestSpringFit(model, sweep, id));
+    if (!fits.has(id))
+      fits.set(id, performance.now() > ctx.options.deadline ? undefined : bestSpringFit(model, sweep, id));
     return fits.get(id);
   };
 
@@ -96,19 +109,33 @@ export function balanceChecks(ctx: CheckContext): void {
     const sinks = (vec?.y ?? 0) > 0;
     // The dof whose holding torque is the largest at the worst pose: the joint to point at.
     let dofId: string | undefined;
-    for (const d of sweep.dofs) if (!dofId || Math.abs(st.holdingTorque[d.id] ?? 0) > Math.abs(st.holdingTorque[dofId] ?? 0)) dofId = d.id;
+    for (const d of sweep.dofs)
+      if (!dofId || Math.abs(st.holdingTorque[d.id] ?? 0) > Math.abs(st.holdingTorque[dofId] ?? 0))
+        dofId = d.id;
     const joint = model.joints.find((j) => j.id === dofId);
     // The spring that should balance it: the one whose best fit lowers the worst hand force most.
     let chosen: { spring: Spring; fit: SpringFit } | undefined;
     for (const s of model.springs) {
-      const acts = sweep.poses.some((pose) => Object.values(pose.springTorquePerUnit?.[s.id] ?? {}).some((v) => v !== 0));
+      const acts = sweep.poses.some((pose) =>
+        Object.values(pose.springTorquePerUnit?.[s.id] ?? {}).some((v) => v !== 0),
+      );
       if (!acts) continue;
       const fit = fitOf(s.id);
-      if (fit && (!chosen || fit.worstHandForceAfter < chosen.fit.worstHandForceAfter)) chosen = { spring: s, fit };
+      if (fit && (!chosen || fit.worstHandForceAfter < chosen.fit.worstHandForceAfter))
+        chosen = { spring: s, fit };
     }
     const where = poseWhere(sweep, worst.pose, worst.caseIndex);
-    const related: RelatedInfo[] = [{ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id}: ${formatForce(worst.value)} to hold ${where}` }];
-    if (joint) related.push({ span: joint.origin.name ?? joint.origin.declaration, message: `holding torque at ${joint.id}: ${formatTorque(st.holdingTorque[joint.id] ?? 0)} ${where}` });
+    const related: RelatedInfo[] = [
+      {
+        span: p.origin.name ?? p.origin.declaration,
+        message: `payload ${p.id}: ${formatForce(worst.value)} to hold ${where}`,
+      },
+    ];
+    if (joint)
+      related.push({
+        span: joint.origin.name ?? joint.origin.declaration,
+        message: `holding torque at ${joint.id}: ${formatTorque(st.holdingTorque[joint.id] ?? 0)} ${where}`,
+      });
     const head = `Holding ${p.id} takes ${formatForce(worst.value)} ${where}, over the ${formatForce(limit)} that require balance allows: the arm ${sinks ? "sinks" : "rises"} there.`;
     if (chosen) {
       const { spring, fit } = chosen;
@@ -116,25 +143,53 @@ export function balanceChecks(ctx: CheckContext): void {
       // A best fit that all but removes the spring says the spring works against the balance
       // where it is: no setting written into the document would help, so offer none.
       const vanishes =
-        fit.best[0] < USELESS_FRACTION * Math.abs(fit.current[0]) && (fit.names[1] === undefined || Math.abs(fit.best[1]) <= USELESS_FRACTION * Math.abs(fit.current[1]));
+        fit.best[0] < USELESS_FRACTION * Math.abs(fit.current[0]) &&
+        (fit.names[1] === undefined || Math.abs(fit.best[1]) <= USELESS_FRACTION * Math.abs(fit.current[1]));
       const advice = !better
         ? ` Spring ${spring.id} as placed cannot do better (worst ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`
         : vanishes
           ? ` Spring ${spring.id} works against the balance where it is placed (the best setting is almost no spring at all, leaving ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`
           : ` With spring ${spring.id} at ${fitWords(spring, fit)} the worst hand force over the range would be ${formatForce(fit.worstHandForceAfter)}.`;
-      const fix = better && !vanishes ? fitData(spring, fit) : { springId: spring.id, worstHandForceBefore: fit.worstHandForceBefore, worstHandForceAfter: fit.worstHandForceAfter };
+      const fix =
+        better && !vanishes
+          ? fitData(spring, fit)
+          : {
+              springId: spring.id,
+              worstHandForceBefore: fit.worstHandForceBefore,
+              worstHandForceAfter: fit.worstHandForceAfter,
+            };
       ctx.findings.push(
         finding("balance.unbalanced", spanOfSpring(spring), head + advice, {
           related,
-          data: { ...fix, payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
+          data: {
+            ...fix,
+            payloadId: p.id,
+            limit,
+            worstHandForce: worst.value,
+            worstPose: { ...worst.pose.angles },
+            caseId: sweep.loadCases[worst.caseIndex]?.id,
+            sinks,
+          },
         }),
       );
     } else {
       ctx.findings.push(
-        finding("balance.unbalanced", p.origin.properties["mass"] ?? p.origin.name ?? p.origin.declaration, `${head} No spring balances it.`, {
-          related,
-          data: { payloadId: p.id, limit, worstHandForce: worst.value, worstPose: { ...worst.pose.angles }, caseId: sweep.loadCases[worst.caseIndex]?.id, sinks },
-        }),
+        finding(
+          "balance.unbalanced",
+          p.origin.properties["mass"] ?? p.origin.name ?? p.origin.declaration,
+          `${head} No spring balances it.`,
+          {
+            related,
+            data: {
+              payloadId: p.id,
+              limit,
+              worstHandForce: worst.value,
+              worstPose: { ...worst.pose.angles },
+              caseId: sweep.loadCases[worst.caseIndex]?.id,
+              sinks,
+            },
+          },
+        ),
       );
     }
   }
@@ -184,7 +239,9 @@ function driftChecks(ctx: CheckContext): void {
       sweep.poses.map((p) => p.angles[dof.id]!),
       (v) => drifting.has(v),
     );
-    const words = runs.map(([a, b]) => (a === b ? formatAngle(a) : `${formatAngle(a)} .. ${formatAngle(b)}`)).join(", ");
+    const words = runs
+      .map(([a, b]) => (a === b ? formatAngle(a) : `${formatAngle(a)} .. ${formatAngle(b)}`))
+      .join(", ");
     const turn = worst > 0 ? "clockwise" : "counter-clockwise";
     ctx.findings.push(
       finding(
@@ -237,16 +294,39 @@ function jointReadouts(ctx: CheckContext): void {
           if (!reaction || m > reaction.v) reaction = { v: m, pose, ci };
         }
         const lt = c.lockedTorque[id];
-        if (lt !== undefined && (!lockedMax || Math.abs(lt) > Math.abs(lockedMax.v))) lockedMax = { v: lt, pose, ci };
+        if (lt !== undefined && (!lockedMax || Math.abs(lt) > Math.abs(lockedMax.v)))
+          lockedMax = { v: lt, pose, ci };
       }
     }
     figures.push({ label: "angle range", value: angleLo, high: angleHi, dimension: "angle" });
     if (least && most) {
-      figures.push({ label: "holding torque, least", value: least.v, dimension: "torque", where: poseWhere(sweep, least.pose, least.ci) });
-      figures.push({ label: "holding torque, most", value: most.v, dimension: "torque", where: poseWhere(sweep, most.pose, most.ci) });
+      figures.push({
+        label: "holding torque, least",
+        value: least.v,
+        dimension: "torque",
+        where: poseWhere(sweep, least.pose, least.ci),
+      });
+      figures.push({
+        label: "holding torque, most",
+        value: most.v,
+        dimension: "torque",
+        where: poseWhere(sweep, most.pose, most.ci),
+      });
     }
-    if (lockedMax) figures.push({ label: "locked torque, largest", value: lockedMax.v, dimension: "torque", where: poseWhere(sweep, lockedMax.pose, lockedMax.ci) });
-    if (reaction) figures.push({ label: "largest reaction", value: reaction.v, dimension: "force", where: poseWhere(sweep, reaction.pose, reaction.ci) });
+    if (lockedMax)
+      figures.push({
+        label: "locked torque, largest",
+        value: lockedMax.v,
+        dimension: "torque",
+        where: poseWhere(sweep, lockedMax.pose, lockedMax.ci),
+      });
+    if (reaction)
+      figures.push({
+        label: "largest reaction",
+        value: reaction.v,
+        dimension: "force",
+        where: poseWhere(sweep, reaction.pose, reaction.ci),
+      });
     addFigures(ctx.readouts, id, isStage(model, id) ? "parallelogram" : "joint", figures);
   }
 }
@@ -259,12 +339,22 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
     const notes: string[] = [];
     if (s.kind !== "torsion") {
       const lengths = sweep.poses.map((p) => p.springs[s.id]!.length);
-      figures.push({ label: "length range", value: Math.min(...lengths), high: Math.max(...lengths), dimension: "length" });
+      figures.push({
+        label: "length range",
+        value: Math.min(...lengths),
+        high: Math.max(...lengths),
+        dimension: "length",
+      });
     } else {
       // The solver keeps the torque on the parent; the designer reads the spring from the child's
       // side, where a positive preload lifts (counter-clockwise positive), so both signs flip here.
       const turns = sweep.poses.map((p) => -(p.springs[s.id]!.windUp ?? 0));
-      figures.push({ label: "wind-up range (positive lifts the child)", value: Math.min(...turns), high: Math.max(...turns), dimension: "angle" });
+      figures.push({
+        label: "wind-up range (positive lifts the child)",
+        value: Math.min(...turns),
+        high: Math.max(...turns),
+        dimension: "angle",
+      });
     }
     const sign = s.kind === "torsion" ? -1 : 1;
     const forces = sweep.poses.map((p) => sign * (p.cases[0]!.springForce[s.id] ?? 0));
@@ -275,7 +365,13 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
       dimension: s.kind === "torsion" ? "torque" : "force",
     });
     const ideal = idealZeroLengthRate(model, sweep, s.id);
-    if (ideal) figures.push({ label: "ideal rate (zero free length, k = m g l / (a b))", value: ideal.rate, dimension: "stiffness", where: `about ${ideal.dofId}` });
+    if (ideal)
+      figures.push({
+        label: "ideal rate (zero free length, k = m g l / (a b))",
+        value: ideal.rate,
+        dimension: "stiffness",
+        where: `about ${ideal.dofId}`,
+      });
     const fit = fitOf(s.id);
     if (fit) {
       if (s.kind === "extension" || s.kind === "zero_length") {
@@ -284,13 +380,23 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
       } else if (s.kind === "torsion") {
         figures.push({ label: "best-fit rate", value: fit.best[0], dimension: "angular_stiffness" });
         figures.push({ label: "best-fit preload", value: fit.best[1], dimension: "torque" });
-      } else if (s.kind === "gas") figures.push({ label: "best-fit extended force", value: fit.best[0], dimension: "force" });
+      } else if (s.kind === "gas")
+        figures.push({ label: "best-fit extended force", value: fit.best[0], dimension: "force" });
       else figures.push({ label: "best-fit cross-section", value: fit.best[0], dimension: "area" });
       figures.push({ label: "worst hand force now", value: fit.worstHandForceBefore, dimension: "force" });
-      figures.push({ label: "worst hand force with best fit", value: fit.worstHandForceAfter, dimension: "force" });
-      notes.push("Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is (nested golden-section search; the hand force is affine in them where the spring is taut).");
+      figures.push({
+        label: "worst hand force with best fit",
+        value: fit.worstHandForceAfter,
+        dimension: "force",
+      });
+      notes.push(
+        "Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is (nested golden-section search; the hand force is affine in them where the spring is taut).",
+      );
     }
-    if (s.kind === "elastic") notes.push("Rubber creeps and relaxes under a steady stretch: its force falls over days; check the balance again after the cord has settled.");
+    if (s.kind === "elastic")
+      notes.push(
+        "Rubber creeps and relaxes under a steady stretch: its force falls over days; check the balance again after the cord has settled.",
+      );
     addFigures(ctx.readouts, s.id, "spring", figures, notes);
   }
 }
@@ -305,7 +411,13 @@ function payloadReadouts(ctx: CheckContext): void {
       for (const d of sweep.dofs) {
         const dp = jac[d.id];
         // Holding torque its weight causes at the dof: m g (dp/dtheta)_y (virtual work).
-        if (dp) figures.push({ label: `gravity torque about ${d.id}`, value: p.mass * model.gravity * dp.y, dimension: "torque", where: "at the reference pose" });
+        if (dp)
+          figures.push({
+            label: `gravity torque about ${d.id}`,
+            value: p.mass * model.gravity * dp.y,
+            dimension: "torque",
+            where: "at the reference pose",
+          });
       }
     }
     let lo: { v: number; pose: Pose; ci: number } | undefined;
@@ -318,7 +430,14 @@ function payloadReadouts(ctx: CheckContext): void {
         if (!hi || v > hi.v) hi = { v, pose, ci };
       });
     }
-    if (lo && hi) figures.push({ label: "hand force range", value: lo.v, high: hi.v, dimension: "force", where: `most ${poseWhere(sweep, hi.pose, hi.ci)}` });
+    if (lo && hi)
+      figures.push({
+        label: "hand force range",
+        value: lo.v,
+        high: hi.v,
+        dimension: "force",
+        where: `most ${poseWhere(sweep, hi.pose, hi.ci)}`,
+      });
     if (figures.length > 0) addFigures(ctx.readouts, p.id, "payload", figures);
   }
 }

@@ -40,7 +40,11 @@ export function checkGeometry(ctx: CheckContext): void {
 }
 
 /** Perpendicular distance from a point to the line through a and b. */
-export function leverArm(a: { x: number; y: number }, b: { x: number; y: number }, p: { x: number; y: number }): number {
+export function leverArm(
+  a: { x: number; y: number },
+  b: { x: number; y: number },
+  p: { x: number; y: number },
+): number {
   const dx = b.x - a.x;
   const dy = b.y - a.y;
   const L = Math.hypot(dx, dy);
@@ -109,12 +113,25 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
         "geometry.spring-toggle",
         spanOf(s.origin, "between"),
         `spring ${s.id}: a hook sits on the pivot of ${j.id}, so its lever arm about it is zero everywhere in range: it loads the pin and lifts nothing; move the hook off the pivot`,
-        { related: [{ span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` }], data: { spring: s.id, joint: j.id, leverArm: 0 } },
+        {
+          related: [
+            { span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` },
+          ],
+          data: { spring: s.id, joint: j.id, leverArm: 0 },
+        },
       ),
     );
     return;
   }
-  if (smallest) addFigures(ctx.readouts, s.id, "spring", [{ label: `least lever arm about ${j.id}`, value: smallest.arm, dimension: "length", where: describePose(sweep, smallest.pose) }]);
+  if (smallest)
+    addFigures(ctx.readouts, s.id, "spring", [
+      {
+        label: `least lever arm about ${j.id}`,
+        value: smallest.arm,
+        dimension: "length",
+        where: describePose(sweep, smallest.pose),
+      },
+    ]);
   if (!worst || worst.share >= TOGGLE_LEVER_SHARE) return;
   if (largestDuty > 0 && worst.duty < HARMLESS_TORQUE_SHARE * largestDuty) return;
   ctx.findings.push(
@@ -122,7 +139,12 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
       "geometry.spring-toggle",
       spanOf(s.origin, "between"),
       `spring ${s.id}: its line of action passes ${show(worst.arm, "length")} from the pivot of ${j.id} (lever arm ${Math.round(worst.share * 100)} % of its ${show(worst.radius, "length")} hook radius) ${describePose(sweep, worst.pose)}: there it has almost no leverage`,
-      { related: [{ span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` }], data: { spring: s.id, joint: j.id, leverArm: worst.arm } },
+      {
+        related: [
+          { span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` },
+        ],
+        data: { spring: s.id, joint: j.id, leverArm: worst.arm },
+      },
     ),
   );
 }
@@ -143,7 +165,8 @@ function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" | 
   if (slack.length === 0) return;
   const first = describePose(sweep, slack[0]!);
   const last = describePose(sweep, slack[slack.length - 1]!);
-  const span = slack.length === 1 ? first : `from ${first.replace(/^at /, "")} to ${last.replace(/^at /, "")}`;
+  const span =
+    slack.length === 1 ? first : `from ${first.replace(/^at /, "")} to ${last.replace(/^at /, "")}`;
   ctx.findings.push(
     finding(
       "geometry.spring-slack",
@@ -162,7 +185,8 @@ interface TiltRange {
 
 /** Range of a body's world orientation over the sweep. */
 export function orientationRange(sweep: SweepResult, bodyId: string): TiltRange | undefined {
-  const ref = sweep.reference?.bodies[bodyId]?.phi ?? sweep.poses.find((p) => p.bodies[bodyId])?.bodies[bodyId]?.phi;
+  const ref =
+    sweep.reference?.bodies[bodyId]?.phi ?? sweep.poses.find((p) => p.bodies[bodyId])?.bodies[bodyId]?.phi;
   if (ref === undefined) return undefined;
   let low: TiltRange["low"] | undefined;
   let high: TiltRange["high"] | undefined;
@@ -183,7 +207,7 @@ function tiltLimitForHead(model: ArmModel, headId: string): { limit: number; pay
   for (const p of model.payloads) {
     if (carrierHead(model, p.body)?.id !== headId) continue;
     const l = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
-    if (payload === undefined || l < limit) (limit = l), (payload = p.id);
+    if (payload === undefined || l < limit) ((limit = l), (payload = p.id));
   }
   return payload ? { limit, payload } : { limit };
 }
@@ -194,7 +218,9 @@ function checkTilt(ctx: CheckContext): void {
     const r = orientationRange(sweep, par.bodies.head);
     if (!r) continue;
     const { limit, payload } = tiltLimitForHead(model, par.bodies.head);
-    addFigures(ctx.readouts, par.id, "parallelogram", [{ label: "head orientation change", value: r.change, dimension: "angle" }]);
+    addFigures(ctx.readouts, par.id, "parallelogram", [
+      { label: "head orientation change", value: r.change, dimension: "angle" },
+    ]);
     if (r.change <= limit) continue;
     const unequal = Math.abs(par.upperLength - par.length) > 1e-9;
     const why = unequal
@@ -207,7 +233,14 @@ function checkTilt(ctx: CheckContext): void {
         unequal ? spanOf(par.origin, "upper_length") : spanOf(par.origin, "on"),
         `parallelogram ${par.id}: the head turns ${deg(r.change)} over the range, more than the ${deg(limit)} allowed${payload ? ` at ${payload}` : ""}, because ${why} (${deg(r.low.phi)} ${describePose(sweep, r.low.pose)}; ${deg(r.high.phi)} ${describePose(sweep, r.high.pose)})`,
         {
-          related: payload ? [{ span: model.payloads.find((p) => p.id === payload)!.origin.name ?? par.origin.declaration, message: `payload ${payload} rides on the head` }] : [],
+          related: payload
+            ? [
+                {
+                  span: model.payloads.find((p) => p.id === payload)!.origin.name ?? par.origin.declaration,
+                  message: `payload ${payload} rides on the head`,
+                },
+              ]
+            : [],
           data: { parallelogram: par.id, change: r.change, limit },
         },
       ),
@@ -223,7 +256,12 @@ interface Segment {
 }
 
 /** Distance between two segments in the plane (0 where they cross). */
-export function segmentDistance(p1: Segment["a"], p2: Segment["a"], q1: Segment["a"], q2: Segment["a"]): number {
+export function segmentDistance(
+  p1: Segment["a"],
+  p2: Segment["a"],
+  q1: Segment["a"],
+  q2: Segment["a"],
+): number {
   return segmentDistanceXY(p1.x, p1.y, p2.x, p2.y, q1.x, q1.y, q2.x, q2.y);
 }
 
@@ -236,7 +274,16 @@ const SQUARE_MARGIN = 1e-12;
 
 /** segmentDistance on plain numbers: the least of the four endpoint-to-segment distances, the
  * same value as their Math.min of Math.hypot, with hypot called only near the least. */
-function segmentDistanceXY(p1x: number, p1y: number, p2x: number, p2y: number, q1x: number, q1y: number, q2x: number, q2y: number): number {
+function segmentDistanceXY(
+  p1x: number,
+  p1y: number,
+  p2x: number,
+  p2y: number,
+  q1x: number,
+  q1y: number,
+  q2x: number,
+  q2y: number,
+): number {
   const d1 = (q2x - q1x) * (p1y - q1y) - (q2y - q1y) * (p1x - q1x);
   const d2 = (q2x - q1x) * (p2y - q1y) - (q2y - q1y) * (p2x - q1x);
   const d3 = (p2x - p1x) * (q1y - p1y) - (p2y - p1y) * (q1x - p1x);
@@ -255,17 +302,33 @@ function segmentDistanceXY(p1x: number, p1y: number, p2x: number, p2y: number, q
     if (v !== v) nan = true;
     if (v < least) least = v;
   }
-  if (nan || !(least > SQUARE_FLOOR && least < Infinity)) return Math.min(Math.hypot(e[0]!, e[1]!), Math.hypot(e[2]!, e[3]!), Math.hypot(e[4]!, e[5]!), Math.hypot(e[6]!, e[7]!));
+  if (nan || !(least > SQUARE_FLOOR && least < Infinity))
+    return Math.min(
+      Math.hypot(e[0]!, e[1]!),
+      Math.hypot(e[2]!, e[3]!),
+      Math.hypot(e[4]!, e[5]!),
+      Math.hypot(e[6]!, e[7]!),
+    );
   const threshold = least * (1 + SQUARE_MARGIN);
   let d = Infinity;
-  for (let k = 0; k < 4; k++) if (squares[k]! <= threshold) d = Math.min(d, Math.hypot(e[2 * k]!, e[2 * k + 1]!));
+  for (let k = 0; k < 4; k++)
+    if (squares[k]! <= threshold) d = Math.min(d, Math.hypot(e[2 * k]!, e[2 * k + 1]!));
   return d;
 }
 const offsets = new Float64Array(8);
 const squares = new Float64Array(4);
 
 /** The offset from point p to the nearest point of segment ab, written at `out[o]`, `out[o + 1]`. */
-function toSegment(px: number, py: number, ax: number, ay: number, bx: number, by: number, out: Float64Array, o: number): void {
+function toSegment(
+  px: number,
+  py: number,
+  ax: number,
+  ay: number,
+  bx: number,
+  by: number,
+  out: Float64Array,
+  o: number,
+): void {
   const dx = bx - ax;
   const dy = by - ay;
   const L2 = dx * dx + dy * dy;
@@ -292,7 +355,9 @@ function joinedPairs(model: ArmModel): Set<string> {
       sites.set(site(on, p), list);
     }
   }
-  for (const list of sites.values()) for (let i = 0; i < list.length; i++) for (let k = i + 1; k < list.length; k++) pairs.add(key(list[i]!, list[k]!));
+  for (const list of sites.values())
+    for (let i = 0; i < list.length; i++)
+      for (let k = i + 1; k < list.length; k++) pairs.add(key(list[i]!, list[k]!));
   addLayeredPairs(model, pairs, key);
   return pairs;
 }
@@ -370,7 +435,10 @@ function checkClearance(ctx: CheckContext): void {
   const ends = new Float64Array(4 * m);
   const present = new Uint8Array(m);
   const pairWorst = new Map<string, { gap: number; pose: Pose; a: Body; b: Body }>();
-  const belowWorst = new Map<string, { depth: number; pose: Pose; what: string; span: { start: number; end: number } }>();
+  const belowWorst = new Map<
+    string,
+    { depth: number; pose: Pose; what: string; span: { start: number; end: number } }
+  >();
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     for (let i = 0; i < m; i++) {
@@ -394,13 +462,31 @@ function checkClearance(ctx: CheckContext): void {
       // bodies keep `require clearance` from the bench too; payload centres may sit on the work
       if (lowest < surface + need) {
         const prev = belowWorst.get(sh.body.id);
-        if (!prev || surface - lowest > prev.depth) belowWorst.set(sh.body.id, { depth: surface - lowest, pose, what: bodyWord(sh.body), span: sh.body.origin.name ?? sh.body.origin.declaration });
+        if (!prev || surface - lowest > prev.depth)
+          belowWorst.set(sh.body.id, {
+            depth: surface - lowest,
+            pose,
+            what: bodyWord(sh.body),
+            span: sh.body.origin.name ?? sh.body.origin.declaration,
+          });
       }
       for (let k = i + 1; k < m; k++) {
         if (!present[k] || pairSkip[i * m + k]) continue;
         const th = shapes[k]!;
         const q = 4 * k;
-        const gap = segmentDistanceXY(ends[o]!, ends[o + 1]!, ends[o + 2]!, ends[o + 3]!, ends[q]!, ends[q + 1]!, ends[q + 2]!, ends[q + 3]!) - sh.halfThickness - th.halfThickness;
+        const gap =
+          segmentDistanceXY(
+            ends[o]!,
+            ends[o + 1]!,
+            ends[o + 2]!,
+            ends[o + 3]!,
+            ends[q]!,
+            ends[q + 1]!,
+            ends[q + 2]!,
+            ends[q + 3]!,
+          ) -
+          sh.halfThickness -
+          th.halfThickness;
         const key = pairKey[i * m + k]!;
         const prev = pairWorst.get(key);
         if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: sh.body, b: th.body });
@@ -411,7 +497,13 @@ function checkClearance(ctx: CheckContext): void {
       const at = worldPoint(pose, p.body, p.point, model);
       if (at.y < surface) {
         const prev = belowWorst.get(`payload ${p.id}`);
-        if (!prev || surface - at.y > prev.depth) belowWorst.set(`payload ${p.id}`, { depth: surface - at.y, pose, what: `payload ${p.id}`, span: spanOf(p.origin, "at") });
+        if (!prev || surface - at.y > prev.depth)
+          belowWorst.set(`payload ${p.id}`, {
+            depth: surface - at.y,
+            pose,
+            what: `payload ${p.id}`,
+            span: spanOf(p.origin, "at"),
+          });
       }
     }
   }
@@ -421,7 +513,12 @@ function checkClearance(ctx: CheckContext): void {
       w.gap <= 0
         ? `${bodyWord(w.b)} runs into ${bodyWord(w.a)} (they overlap by ${show(-w.gap, "length")}) ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`
         : `${bodyWord(w.b)} comes within ${show(w.gap, "length")} of ${bodyWord(w.a)} ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`;
-    ctx.findings.push(finding("geometry.clearance", w.b.origin.name ?? w.b.origin.declaration, msg, { related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)], data: { a: w.a.id, b: w.b.id, gap: w.gap } }));
+    ctx.findings.push(
+      finding("geometry.clearance", w.b.origin.name ?? w.b.origin.declaration, msg, {
+        related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)],
+        data: { a: w.a.id, b: w.b.id, gap: w.gap },
+      }),
+    );
   }
   for (const w of belowWorst.values()) {
     ctx.findings.push(

@@ -36,7 +36,11 @@ const FAMILIES: CheckFamily[] = [
   checkStiffness,
 ];
 
-export function runChecks(model: ArmModel, sweep: SweepResult, options: CheckOptions): { findings: Finding[]; readouts: Readouts } {
+export function runChecks(
+  model: ArmModel,
+  sweep: SweepResult,
+  options: CheckOptions,
+): { findings: Finding[]; readouts: Readouts } {
   const ctx: CheckContext = { model, sweep, options, findings: [], readouts: {} };
   for (const family of FAMILIES) family(ctx);
   return { findings: ctx.findings, readouts: ctx.readouts };

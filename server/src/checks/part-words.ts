@@ -25,7 +25,9 @@ export { formatNumber };
 
 /** "at shoulder 45 deg" / "at stage -35 deg, lens_tilt -80 deg" (the reference pose when no dof). */
 export function describePose(sweep: SweepResult, pose: Pose, caseIndex = 0): string {
-  const parts = sweep.dofs.map((d) => `${d.id} ${formatNumber(((pose.angles[d.id] ?? d.reference) * 180) / Math.PI)} deg`);
+  const parts = sweep.dofs.map(
+    (d) => `${d.id} ${formatNumber(((pose.angles[d.id] ?? d.reference) * 180) / Math.PI)} deg`,
+  );
   const where = parts.length > 0 ? `at ${parts.join(", ")}` : "at the reference pose";
   const lc = sweep.loadCases[caseIndex];
   return sweep.loadCases.length > 1 && lc ? `${where}, ${lc.label}` : where;
@@ -62,7 +64,11 @@ export function pinSpan(model: ArmModel, joint: Joint): Span {
 }
 
 export function bodyWord(body: Body): string {
-  return body.kind === "bar" ? `bar ${body.id}` : body.kind === "head" ? `head ${body.id}` : `link ${body.id}`;
+  return body.kind === "bar"
+    ? `bar ${body.id}`
+    : body.kind === "head"
+      ? `head ${body.id}`
+      : `link ${body.id}`;
 }
 
 export function relatedBody(body: Body, message: string): RelatedInfo {
@@ -75,7 +81,11 @@ export function pastDeadline(deadline: number): boolean {
 }
 
 /** Payload mass of each payload in a load case (the model's nominal mass where absent). */
-export function payloadMasses(model: ArmModel, sweep: SweepResult, caseIndex: number): Record<string, number> {
+export function payloadMasses(
+  model: ArmModel,
+  sweep: SweepResult,
+  caseIndex: number,
+): Record<string, number> {
   const lc = sweep.loadCases[caseIndex];
   const out: Record<string, number> = {};
   for (const p of model.payloads) out[p.id] = lc?.payloadMass[p.id] ?? p.mass;

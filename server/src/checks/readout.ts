@@ -12,7 +12,8 @@ export interface Figure {
   high?: number;
 }
 
-export type PartKind = "base" | "link" | "bar" | "head" | "joint" | "parallelogram" | "spring" | "payload" | "material";
+export type PartKind =
+  "base" | "link" | "bar" | "head" | "joint" | "parallelogram" | "spring" | "payload" | "material";
 
 export interface PartReadout {
   id: string;
@@ -27,7 +28,13 @@ export interface PartReadout {
 export type Readouts = Record<string, PartReadout>;
 
 /** Adds figures to a part's readout, creating it on first use. */
-export function addFigures(readouts: Readouts, id: string, kind: PartKind, figures: Figure[], notes: string[] = []): PartReadout {
+export function addFigures(
+  readouts: Readouts,
+  id: string,
+  kind: PartKind,
+  figures: Figure[],
+  notes: string[] = [],
+): PartReadout {
   const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
   // Two check families may report the same figure (a joint's largest reaction): keep one.
   for (const f of figures) {
@@ -41,14 +48,26 @@ export function addFigures(readouts: Readouts, id: string, kind: PartKind, figur
 }
 
 /** Keeps the lowest safety factor seen for a part. */
-export function noteSafety(readouts: Readouts, id: string, kind: PartKind, value: number, what: string, where?: string): void {
+export function noteSafety(
+  readouts: Readouts,
+  id: string,
+  kind: PartKind,
+  value: number,
+  what: string,
+  where?: string,
+): void {
   const r = (readouts[id] ??= { id, kind, figures: [], notes: [] });
   if (!Number.isFinite(value)) return;
-  if (!r.worstSafety || value < r.worstSafety.value) r.worstSafety = { value, what, ...(where ? { where } : {}) };
+  if (!r.worstSafety || value < r.worstSafety.value)
+    r.worstSafety = { value, what, ...(where ? { where } : {}) };
 }
 
 function sameFigure(a: Figure, b: Figure): boolean {
-  return a.label === b.label && a.dimension === b.dimension && Math.abs(a.value - b.value) <= 1e-9 * Math.max(1, Math.abs(a.value));
+  return (
+    a.label === b.label &&
+    a.dimension === b.dimension &&
+    Math.abs(a.value - b.value) <= 1e-9 * Math.max(1, Math.abs(a.value))
+  );
 }
 
 function isShowable(f: Figure): boolean {

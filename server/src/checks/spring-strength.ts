@@ -23,7 +23,8 @@ export function wireTensileStrength(ctx: CheckContext, spring: ExtensionSpring):
   const coil = spring.coil;
   if (!coil) return undefined;
   const mat = ctx.model.materials[coil.material];
-  if (/music/i.test(coil.material)) return minimumTensileStrength(MUSIC_WIRE_STRENGTH.aMpaMm, MUSIC_WIRE_STRENGTH.m, coil.wireDiameter);
+  if (/music/i.test(coil.material))
+    return minimumTensileStrength(MUSIC_WIRE_STRENGTH.aMpaMm, MUSIC_WIRE_STRENGTH.m, coil.wireDiameter);
   return mat?.strength;
 }
 
@@ -67,14 +68,29 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
   }
   const where = (e: Extreme) => describePose(sweep, e.pose, e.caseIndex);
   const over = (message: string, key: string, data: Record<string, unknown>) =>
-    ctx.findings.push(finding("strength.overstretch", spanOf(spring.origin, key), message, { data: { spring: spring.id, ...data } }));
+    ctx.findings.push(
+      finding("strength.overstretch", spanOf(spring.origin, key), message, {
+        data: { spring: spring.id, ...data },
+      }),
+    );
   const notes: string[] = [];
   switch (spring.kind) {
     case "extension": {
       if (longest && spring.maxLength !== undefined) {
-        addFigures(ctx.readouts, spring.id, "spring", [{ label: "use of max length", value: longest.value / spring.maxLength, dimension: "dimensionless", where: where(longest) }]);
+        addFigures(ctx.readouts, spring.id, "spring", [
+          {
+            label: "use of max length",
+            value: longest.value / spring.maxLength,
+            dimension: "dimensionless",
+            where: where(longest),
+          },
+        ]);
         if (longest.value > spring.maxLength + LENGTH_SLACK_M)
-          over(`spring ${spring.id}: stretched to ${show(longest.value, "length")}, past its max_length ${show(spring.maxLength, "length")} (${where(longest)})`, "max_length", { length: longest.value, limit: spring.maxLength });
+          over(
+            `spring ${spring.id}: stretched to ${show(longest.value, "length")}, past its max_length ${show(spring.maxLength, "length")} (${where(longest)})`,
+            "max_length",
+            { length: longest.value, limit: spring.maxLength },
+          );
       }
       const Sut = wireTensileStrength(ctx, spring);
       if (spring.coil && force && Sut) {
@@ -95,35 +111,58 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
               { data: { part: spring.id, check: "coil", safety: sf, required: ctx.model.require.safety } },
             ),
           );
-      } else if (!spring.coil) notes.push("Coil body stress needs the wire: give wire, coil and coils to check it.");
+      } else if (!spring.coil)
+        notes.push("Coil body stress needs the wire: give wire, coil and coils to check it.");
       break;
     }
     case "elastic": {
       // one caution is enough: the balance readout may already carry it
       if (!ctx.readouts[spring.id]?.notes.some((n) => /creep/i.test(n)))
-        notes.push("Rubber creeps under constant load and relaxes over time: expect the force to fall and re-check the balance after some days under load.");
+        notes.push(
+          "Rubber creeps under constant load and relaxes over time: expect the force to fall and re-check the balance after some days under load.",
+        );
       if (longest && spring.maxStretch !== undefined) {
         const stretch = longest.value / spring.freeLength;
-        addFigures(ctx.readouts, spring.id, "spring", [{ label: "largest stretch", value: stretch, dimension: "dimensionless", where: where(longest) }]);
+        addFigures(ctx.readouts, spring.id, "spring", [
+          { label: "largest stretch", value: stretch, dimension: "dimensionless", where: where(longest) },
+        ]);
         if (stretch > spring.maxStretch + LENGTH_SLACK_M)
-          over(`cord ${spring.id}: stretched ${stretch.toFixed(2)} times its free length, past its max_stretch ${spring.maxStretch} (${where(longest)})`, "max_stretch", { stretch, limit: spring.maxStretch });
+          over(
+            `cord ${spring.id}: stretched ${stretch.toFixed(2)} times its free length, past its max_stretch ${spring.maxStretch} (${where(longest)})`,
+            "max_stretch",
+            { stretch, limit: spring.maxStretch },
+          );
       }
       break;
     }
     case "torsion": {
       if (windUp && spring.maxAngle !== undefined) {
-        addFigures(ctx.readouts, spring.id, "spring", [{ label: "largest wind-up", value: windUp.value, dimension: "angle", where: where(windUp) }]);
+        addFigures(ctx.readouts, spring.id, "spring", [
+          { label: "largest wind-up", value: windUp.value, dimension: "angle", where: where(windUp) },
+        ]);
         if (windUp.value > spring.maxAngle + LENGTH_SLACK_M)
-          over(`torsion spring ${spring.id}: wound ${show(windUp.value, "angle")}, past its max_angle ${show(spring.maxAngle, "angle")} (${where(windUp)})`, "max_angle", { windUp: windUp.value, limit: spring.maxAngle });
+          over(
+            `torsion spring ${spring.id}: wound ${show(windUp.value, "angle")}, past its max_angle ${show(spring.maxAngle, "angle")} (${where(windUp)})`,
+            "max_angle",
+            { windUp: windUp.value, limit: spring.maxAngle },
+          );
       }
       break;
     }
     case "gas": {
       const closed = spring.extendedLength - spring.stroke;
       if (shortest && shortest.value < closed - LENGTH_SLACK_M)
-        over(`gas strut ${spring.id}: the arm needs it ${show(shortest.value, "length")} long, shorter than fully compressed ${show(closed, "length")}: it bottoms out (${where(shortest)})`, "stroke", { length: shortest.value, limit: closed });
+        over(
+          `gas strut ${spring.id}: the arm needs it ${show(shortest.value, "length")} long, shorter than fully compressed ${show(closed, "length")}: it bottoms out (${where(shortest)})`,
+          "stroke",
+          { length: shortest.value, limit: closed },
+        );
       if (longest && longest.value > spring.extendedLength + LENGTH_SLACK_M)
-        over(`gas strut ${spring.id}: the arm pulls it to ${show(longest.value, "length")}, past its extended length ${show(spring.extendedLength, "length")} (${where(longest)})`, "extended_length", { length: longest.value, limit: spring.extendedLength });
+        over(
+          `gas strut ${spring.id}: the arm pulls it to ${show(longest.value, "length")}, past its extended length ${show(spring.extendedLength, "length")} (${where(longest)})`,
+          "extended_length",
+          { length: longest.value, limit: spring.extendedLength },
+        );
       break;
     }
     case "zero_length":

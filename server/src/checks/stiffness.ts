@@ -25,13 +25,16 @@ export function representativePoses(sweep: SweepResult): Pose[] {
         const a = p.angles[d.id];
         if (a === undefined) continue;
         let score = Math.abs(a - end) * 1e3;
-        for (const o of sweep.dofs) if (o !== d) score += Math.abs((p.angles[o.id] ?? o.reference) - o.reference);
+        for (const o of sweep.dofs)
+          if (o !== d) score += Math.abs((p.angles[o.id] ?? o.reference) - o.reference);
         if (!best || score < best.score) best = { pose: p, score };
       }
       add(best?.pose);
     }
   }
-  return out.length <= MAX_STIFFNESS_POSES ? out : [out[0]!, ...mostExtended(out.slice(1), MAX_STIFFNESS_POSES - 1)];
+  return out.length <= MAX_STIFFNESS_POSES
+    ? out
+    : [out[0]!, ...mostExtended(out.slice(1), MAX_STIFFNESS_POSES - 1)];
 }
 
 /** Poses the frame and eigen solves visit at most: the reference and both ends of three ranges.
@@ -56,7 +59,7 @@ function heaviestCase(model: ArmModel, sweep: SweepResult): number {
   let bestMass = -Infinity;
   sweep.loadCases.forEach((_, ci) => {
     const m = Object.values(payloadMasses(model, sweep, ci)).reduce((a, b) => a + b, 0);
-    if (m > bestMass) (bestMass = m), (best = ci);
+    if (m > bestMass) ((bestMass = m), (best = ci));
   });
   return best;
 }
@@ -97,19 +100,31 @@ export function checkStiffness(ctx: CheckContext): void {
         continue;
       }
       const energy = new Map<string, number>();
-      af.elementBody.forEach((id, k) => id && energy.set(id, (energy.get(id) ?? 0) + elementStrainEnergy(af.frame, sol, k)));
+      af.elementBody.forEach(
+        (id, k) => id && energy.set(id, (energy.get(id) ?? 0) + elementStrainEnergy(af.frame, sol, k)),
+      );
       if (pose === poses[0] && ci === 0)
         for (const [id, n] of Object.entries(af.endNode)) {
           const u = sol.displacement(n);
           const b = model.bodies.find((bb) => bb.id === id)!;
-          addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [{ label: "tip deflection under load", value: Math.hypot(u.ux, u.uy), dimension: "length", where: describePose(sweep, pose) }]);
+          addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [
+            {
+              label: "tip deflection under load",
+              value: Math.hypot(u.ux, u.uy),
+              dimension: "length",
+              where: describePose(sweep, pose),
+            },
+          ]);
         }
       for (const [pid, n] of Object.entries(af.payloadNode)) {
         const u = sol.displacement(n);
         const d = Math.hypot(u.ux, u.uy);
         const w = worst.get(pid) ?? { deflection: -1, deflectionCase: 0, tilt: -1, tiltCase: 0 };
-        if (d > w.deflection) Object.assign(w, { deflection: d, deflectionPose: pose, deflectionCase: ci }), energyForDeflection.set(pid, energy);
-        if (Math.abs(u.rotation) > w.tilt) Object.assign(w, { tilt: Math.abs(u.rotation), tiltPose: pose, tiltCase: ci });
+        if (d > w.deflection)
+          (Object.assign(w, { deflection: d, deflectionPose: pose, deflectionCase: ci }),
+            energyForDeflection.set(pid, energy));
+        if (Math.abs(u.rotation) > w.tilt)
+          Object.assign(w, { tilt: Math.abs(u.rotation), tiltPose: pose, tiltCase: ci });
         worst.set(pid, w);
       }
       const w2 = ci === heaviest ? af.frame.naturalFrequencies(1)?.[0] : undefined;
@@ -119,12 +134,25 @@ export function checkStiffness(ctx: CheckContext): void {
       }
     }
   }
-  if (mechanism) addFigures(ctx.readouts, model.base?.bodyId ?? "arm", "base", [], [`With its degrees of freedom held the arm is still a mechanism ${describePose(sweep, mechanism)}: stiffness not computed there.`]);
+  if (mechanism)
+    addFigures(
+      ctx.readouts,
+      model.base?.bodyId ?? "arm",
+      "base",
+      [],
+      [
+        `With its degrees of freedom held the arm is still a mechanism ${describePose(sweep, mechanism)}: stiffness not computed there.`,
+      ],
+    );
   reportPayloads(ctx, worst, energyForDeflection);
   if (lowest) reportFrequency(ctx, lowest);
 }
 
-function reportPayloads(ctx: CheckContext, worst: Map<string, PayloadWorst>, energies: Map<string, Map<string, number>>): void {
+function reportPayloads(
+  ctx: CheckContext,
+  worst: Map<string, PayloadWorst>,
+  energies: Map<string, Map<string, number>>,
+): void {
   const { model, sweep } = ctx;
   for (const p of model.payloads) {
     const w = worst.get(p.id);
@@ -134,9 +162,21 @@ function reportPayloads(ctx: CheckContext, worst: Map<string, PayloadWorst>, ene
     const geometric = head ? (orientationRange(sweep, head.id)?.change ?? 0) : 0;
     const totalTilt = geometric + w.tilt;
     addFigures(ctx.readouts, p.id, "payload", [
-      { label: "deflection under load", value: w.deflection, dimension: "length", where: describePose(sweep, w.deflectionPose, w.deflectionCase) },
-      { label: "elastic tilt", value: w.tilt, dimension: "angle", where: describePose(sweep, w.tiltPose, w.tiltCase) },
-      ...(head ? [{ label: "head orientation change over the range", value: geometric, dimension: "angle" as const }] : []),
+      {
+        label: "deflection under load",
+        value: w.deflection,
+        dimension: "length",
+        where: describePose(sweep, w.deflectionPose, w.deflectionCase),
+      },
+      {
+        label: "elastic tilt",
+        value: w.tilt,
+        dimension: "angle",
+        where: describePose(sweep, w.tiltPose, w.tiltCase),
+      },
+      ...(head
+        ? [{ label: "head orientation change over the range", value: geometric, dimension: "angle" as const }]
+        : []),
     ]);
     const compliant = mostCompliantBody(model, energies.get(p.id) ?? new Map());
     const partSpan = compliant ? sectionSpan(model, compliant) : spanOf(p.origin, "at");
@@ -166,21 +206,31 @@ function reportPayloads(ctx: CheckContext, worst: Map<string, PayloadWorst>, ene
   }
 }
 
-function reportFrequency(ctx: CheckContext, lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> }): void {
+function reportFrequency(
+  ctx: CheckContext,
+  lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> },
+): void {
   const { model, sweep } = ctx;
   const where = describePose(sweep, lowest.pose, lowest.ci);
   const ids = [model.base?.bodyId, ...model.payloads.map((p) => p.id)].filter((x): x is string => !!x);
-  for (const id of ids) addFigures(ctx.readouts, id, id === model.base?.bodyId ? "base" : "payload", [{ label: "lowest natural frequency of the arm", value: lowest.f, dimension: "frequency", where }]);
+  for (const id of ids)
+    addFigures(ctx.readouts, id, id === model.base?.bodyId ? "base" : "payload", [
+      { label: "lowest natural frequency of the arm", value: lowest.f, dimension: "frequency", where },
+    ]);
   const need = model.require.frequency;
   if (lowest.f >= need) return;
   const compliant = mostCompliantBody(model, lowest.energy);
   ctx.findings.push(
     finding(
       "stiffness.low-frequency",
-      compliant ? sectionSpan(model, compliant) : (model.require.origin?.properties["frequency"] ?? model.span),
+      compliant
+        ? sectionSpan(model, compliant)
+        : (model.require.origin?.properties["frequency"] ?? model.span),
       `the loaded arm's lowest natural frequency is ${show(lowest.f, "frequency")}, below the ${show(need, "frequency")} required (${where}): it will bounce when the tool moves${compliant ? `; ${bodyWord(compliant)} is the most flexible part` : ""}`,
       {
-        related: model.require.origin?.properties["frequency"] ? [{ span: model.require.origin.properties["frequency"], message: "the required frequency" }] : [],
+        related: model.require.origin?.properties["frequency"]
+          ? [{ span: model.require.origin.properties["frequency"], message: "the required frequency" }]
+          : [],
         data: { frequency: lowest.f, required: need },
       },
     ),

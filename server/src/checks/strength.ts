@@ -11,7 +11,17 @@ import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/
 import type { CheckContext } from "./index";
 import { finding } from "./finding";
 import { addFigures, noteSafety, type Figure } from "./readout";
-import { bodyWord, describePose, owningOrigin, pastDeadline, pinSpan, relatedBody, sectionSpan, show, showSafety } from "./part-words";
+import {
+  bodyWord,
+  describePose,
+  owningOrigin,
+  pastDeadline,
+  pinSpan,
+  relatedBody,
+  sectionSpan,
+  show,
+  showSafety,
+} from "./part-words";
 
 /** Share of in-plane strength a print keeps across its layers when the material gives no
  * `layer_strength`: 0.5 is the conservative default of references.md (Ahn et al., Rapid
@@ -30,12 +40,15 @@ const END_MATCH_M = 1e-4;
 /** Strength against normal stress: printed bodies that bend have layers in tension across the
  * print (orientation unknown), so they use the layer strength. */
 export function normalStrength(material: Material, bends: boolean): { value: number; layer: boolean } {
-  if (material.printed && bends) return { value: material.layerStrength ?? PRINTED_LAYER_SHARE * material.strength, layer: true };
+  if (material.printed && bends)
+    return { value: material.layerStrength ?? PRINTED_LAYER_SHARE * material.strength, layer: true };
   return { value: material.strength, layer: false };
 }
 
 function strengthWords(material: Material, s: { value: number; layer: boolean }): string {
-  return s.layer ? `layer strength ${show(s.value, "pressure")} of printed ${material.id}` : `strength ${show(s.value, "pressure")} of ${material.id}`;
+  return s.layer
+    ? `layer strength ${show(s.value, "pressure")} of printed ${material.id}`
+    : `strength ${show(s.value, "pressure")} of ${material.id}`;
 }
 
 interface Worst {
@@ -81,7 +94,14 @@ interface BeamTable {
 
 export function checkStrength(ctx: CheckContext): void {
   const { model, sweep } = ctx;
-  const beams = model.bodies.filter((b) => (b.kind === "link" || b.kind === "bar") && b.section && b.material && model.materials[b.material] && b.length > 0);
+  const beams = model.bodies.filter(
+    (b) =>
+      (b.kind === "link" || b.kind === "bar") &&
+      b.section &&
+      b.material &&
+      model.materials[b.material] &&
+      b.length > 0,
+  );
   const pinned = model.joints.filter((j) => j.pin && model.materials[j.pin.material]);
   const stressWorst = new Map<string, Worst>();
   const columnWorst = new Map<string, Worst>();
@@ -114,7 +134,13 @@ export function checkStrength(ctx: CheckContext): void {
         const { sec, mat, w } = t;
         // Its own weight is spread along it, not among the point loads.
         const count = localBeamLoads(model, sweep.loadCases, dofJoints, pose, ci, body.id, loads);
-        const r = beamStress(loads, { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) }, body.length, sec, count);
+        const r = beamStress(
+          loads,
+          { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) },
+          body.length,
+          sec,
+          count,
+        );
         const allow = r.bendingShare > 0 ? t.allowBending : t.allowAxial;
         const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
         const prevWorst = stressWorst.get(body.id);
@@ -130,10 +156,23 @@ export function checkStrength(ctx: CheckContext): void {
           });
         }
         const prevLargest = largestStress.get(body.id);
-        if (!prevLargest || r.stress > prevLargest.figure) largestStress.set(body.id, { safety: sf, pose, caseIndex: ci, detail: NO_DETAIL, figure: r.stress });
+        if (!prevLargest || r.stress > prevLargest.figure)
+          largestStress.set(body.id, {
+            safety: sf,
+            pose,
+            caseIndex: ci,
+            detail: NO_DETAIL,
+            figure: r.stress,
+          });
         if (r.compression > 0) {
           const K = t.K;
-          const col = (t.col ??= columnCriticalLoad(mat.modulus, sec.area, leastSecondMoment(body.section!), t.allowBending.value, K * body.length));
+          const col = (t.col ??= columnCriticalLoad(
+            mat.modulus,
+            sec.area,
+            leastSecondMoment(body.section!),
+            t.allowBending.value,
+            K * body.length,
+          ));
           const csf = col.criticalLoad / r.compression;
           const P = r.compression;
           const prevCol = columnWorst.get(body.id);
@@ -142,7 +181,8 @@ export function checkStrength(ctx: CheckContext): void {
               safety: csf,
               pose,
               caseIndex: ci,
-              detail: () => `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`,
+              detail: () =>
+                `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`,
               figure: P,
             });
         }
@@ -153,10 +193,12 @@ export function checkStrength(ctx: CheckContext): void {
         if (!reaction) continue;
         const F = Math.hypot(reaction.x, reaction.y);
         const prevR = reactionMax.get(j.id);
-        if (!prevR || F > prevR.figure) reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F });
+        if (!prevR || F > prevR.figure)
+          reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F });
         const prevPin = pinWorst.get(j.id);
         const safety = pinTableSafety(pt, F);
-        if (!prevPin || safety < prevPin.safety) pinWorst.set(j.id, { ...pinSafety(model, j, F), pose, caseIndex: ci, figure: F });
+        if (!prevPin || safety < prevPin.safety)
+          pinWorst.set(j.id, { ...pinSafety(model, j, F), pose, caseIndex: ci, figure: F });
       }
     }
   }
@@ -199,13 +241,18 @@ function pinTableSafety(pt: PinTable, force: number): number {
 }
 
 /** Least of the pin's shear safety and the bearing safety of each hole it passes through. */
-export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: number; detail: () => string } {
+export function pinSafety(
+  model: ArmModel,
+  j: Joint,
+  force: number,
+): { safety: number; detail: () => string } {
   const pin = j.pin!;
   const pinMat = model.materials[pin.material]!;
   const tau = pinShearStress(force, pin.diameter, pin.shearPlanes);
   const shearAllow = shearYieldStrength(pinMat.strength);
   let safety = tau > 0 ? shearAllow / tau : Infinity;
-  let detail = () => `${pin.shearPlanes === 2 ? "double" : "single"}-shear stress ${show(tau, "pressure")} against ${show(shearAllow, "pressure")}`;
+  let detail = () =>
+    `${pin.shearPlanes === 2 ? "double" : "single"}-shear stress ${show(tau, "pressure")} against ${show(shearAllow, "pressure")}`;
   for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
     if (!b || b.kind === "base") continue;
     const t = b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined);
@@ -216,7 +263,8 @@ export function pinSafety(model: ArmModel, j: Joint, force: number): { safety: n
     const sf = sigma > 0 ? allow / sigma : Infinity;
     if (sf < safety) {
       safety = sf;
-      detail = () => `bearing stress ${show(sigma, "pressure")} in the ${show(t, "length")} wall of ${bodyWord(b)} against ${show(allow, "pressure")}`;
+      detail = () =>
+        `bearing stress ${show(sigma, "pressure")} in the ${show(t, "length")} wall of ${bodyWord(b)} against ${show(allow, "pressure")}`;
     }
   }
   return { safety, detail };
@@ -226,7 +274,13 @@ function bodyOf(model: ArmModel, id: string): Body | undefined {
   return model.bodies.find((b) => b.id === id);
 }
 
-function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string, Worst>, columnWorst: Map<string, Worst>, largest: Map<string, Worst>): void {
+function reportBodies(
+  ctx: CheckContext,
+  beams: Body[],
+  stressWorst: Map<string, Worst>,
+  columnWorst: Map<string, Worst>,
+  largest: Map<string, Worst>,
+): void {
   const { model, sweep } = ctx;
   const need = model.require.safety;
   for (const body of beams) {
@@ -234,7 +288,13 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
     const s = stressWorst.get(body.id);
     const big = largest.get(body.id);
     const figures: Figure[] = [{ label: "mass", value: body.mass, dimension: "mass" }];
-    if (big) figures.push({ label: "largest stress", value: big.figure, dimension: "pressure", where: describePose(sweep, big.pose, big.caseIndex) });
+    if (big)
+      figures.push({
+        label: "largest stress",
+        value: big.figure,
+        dimension: "pressure",
+        where: describePose(sweep, big.pose, big.caseIndex),
+      });
     addFigures(ctx.readouts, body.id, kind, figures);
     const own = owningOrigin(model, body.origin);
     for (const [w, what] of [
@@ -244,8 +304,18 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
       if (!w) continue;
       const where = describePose(sweep, w.pose, w.caseIndex);
       noteSafety(ctx.readouts, body.id, kind, w.safety, what, where);
-      if (own.parallelogram) noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `${what} of ${body.id}`, where);
-      addFigures(ctx.readouts, body.id, kind, [{ label: `${what} safety factor`, value: w.safety, dimension: "dimensionless", where }]);
+      if (own.parallelogram)
+        noteSafety(
+          ctx.readouts,
+          own.parallelogram,
+          "parallelogram",
+          w.safety,
+          `${what} of ${body.id}`,
+          where,
+        );
+      addFigures(ctx.readouts, body.id, kind, [
+        { label: `${what} safety factor`, value: w.safety, dimension: "dimensionless", where },
+      ]);
       if (w.safety < need) {
         const msg =
           what === "stress"
@@ -253,7 +323,12 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
             : `${bodyWord(body)}: ${w.detail()}: buckling safety ${showSafety(w.safety)} < ${showSafety(need)} required (${where})`;
         ctx.findings.push(
           finding("strength.overstress", sectionSpan(model, body), msg, {
-            related: model.payloads.filter((p) => p.body === body.id).map((p) => ({ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id} loads it` })),
+            related: model.payloads
+              .filter((p) => p.body === body.id)
+              .map((p) => ({
+                span: p.origin.name ?? p.origin.declaration,
+                message: `payload ${p.id} loads it`,
+              })),
             data: { part: body.id, check: what, safety: w.safety, required: need },
           }),
         );
@@ -262,7 +337,12 @@ function reportBodies(ctx: CheckContext, beams: Body[], stressWorst: Map<string,
   }
 }
 
-function reportPins(ctx: CheckContext, pinned: Joint[], pinWorst: Map<string, Worst>, reactionMax: Map<string, Worst>): void {
+function reportPins(
+  ctx: CheckContext,
+  pinned: Joint[],
+  pinWorst: Map<string, Worst>,
+  reactionMax: Map<string, Worst>,
+): void {
   const { model, sweep } = ctx;
   const need = model.require.safety;
   for (const j of pinned) {
@@ -273,18 +353,33 @@ function reportPins(ctx: CheckContext, pinned: Joint[], pinWorst: Map<string, Wo
     const where = describePose(sweep, w.pose, w.caseIndex);
     let bearing = 0;
     for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
-      const t = b && b.kind !== "base" ? (b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined)) : undefined;
+      const t =
+        b && b.kind !== "base"
+          ? (b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined))
+          : undefined;
       if (t) bearing = Math.max(bearing, bearingStress(r.figure, pin.diameter, t));
     }
     addFigures(ctx.readouts, j.id, "joint", [
-      { label: "largest reaction", value: r.figure, dimension: "force", where: describePose(sweep, r.pose, r.caseIndex) },
-      { label: "pin shear stress", value: pinShearStress(r.figure, pin.diameter, pin.shearPlanes), dimension: "pressure" },
-      ...(bearing > 0 ? [{ label: "largest hole bearing stress", value: bearing, dimension: "pressure" as const }] : []),
+      {
+        label: "largest reaction",
+        value: r.figure,
+        dimension: "force",
+        where: describePose(sweep, r.pose, r.caseIndex),
+      },
+      {
+        label: "pin shear stress",
+        value: pinShearStress(r.figure, pin.diameter, pin.shearPlanes),
+        dimension: "pressure",
+      },
+      ...(bearing > 0
+        ? [{ label: "largest hole bearing stress", value: bearing, dimension: "pressure" as const }]
+        : []),
       { label: "pin safety factor", value: w.safety, dimension: "dimensionless", where },
     ]);
     noteSafety(ctx.readouts, j.id, "joint", w.safety, "pin", where);
     const own = owningOrigin(model, j.origin);
-    if (own.parallelogram) noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `pin of ${j.id}`, where);
+    if (own.parallelogram)
+      noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `pin of ${j.id}`, where);
     if (w.safety < need) {
       const related = [j.parent, j.child]
         .map((id) => model.bodies.find((b) => b.id === id))

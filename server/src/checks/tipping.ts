@@ -20,7 +20,12 @@ export interface PlaneLoad {
 
 /** Overturning moment about the edge at distance `edge` from the base's centre along the
  * heading (sign +1 toward +x, -1 toward -x), at bench height `surface`: positive tips. */
-export function overturningMoment(loads: readonly PlaneLoad[], edge: number, sign: 1 | -1, surface: number): number {
+export function overturningMoment(
+  loads: readonly PlaneLoad[],
+  edge: number,
+  sign: 1 | -1,
+  surface: number,
+): number {
   let m = 0;
   for (const l of loads) {
     const u = sign * l.x; // distance along the heading
@@ -48,7 +53,12 @@ export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, num
   for (const p of model.payloads) {
     if (!pose.bodies[p.body]) continue;
     const c = worldPoint(pose, p.body, p.point, model);
-    out.push({ x: c.x, y: c.y, fx: p.force?.x ?? 0, fy: -(masses[p.id] ?? p.mass) * model.gravity + (p.force?.y ?? 0) });
+    out.push({
+      x: c.x,
+      y: c.y,
+      fx: p.force?.x ?? 0,
+      fy: -(masses[p.id] ?? p.mass) * model.gravity + (p.force?.y ?? 0),
+    });
   }
   return out;
 }
@@ -59,7 +69,9 @@ export function checkTipping(ctx: CheckContext): void {
   if (!base) return;
   const baseBody = model.bodies.find((b) => b.id === base.bodyId);
   if (!baseBody) return;
-  let worst: { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string } | undefined;
+  let worst:
+    | { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string }
+    | undefined;
   type Peak = { value: number; pose?: Pose; ci: number };
   let thrust: Peak = { value: 0, ci: 0 };
   let moment: Peak = { value: 0, ci: 0 };
@@ -88,7 +100,15 @@ export function checkTipping(ctx: CheckContext): void {
           const over = overturningMoment(loads, e.edge, sign, base.surface);
           const restoring = restoringMoment(base.mass, model.gravity, e.edge);
           const safety = over > 0 ? restoring / over : Infinity;
-          if (!worst || safety < worst.safety) worst = { safety, pose, ci, overturning: over, restoring, heading: e.heading ? `${e.heading}, ` : "" };
+          if (!worst || safety < worst.safety)
+            worst = {
+              safety,
+              pose,
+              ci,
+              overturning: over,
+              restoring,
+              heading: e.heading ? `${e.heading}, ` : "",
+            };
         }
       }
     }
@@ -100,12 +120,20 @@ export function checkTipping(ctx: CheckContext): void {
     { label: "radial load on the base", value: radial.value, dimension: "force", where: at(radial) },
   ]);
   if (!base.footprint) {
-    addFigures(ctx.readouts, base.bodyId, "base", [], ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."]);
+    addFigures(
+      ctx.readouts,
+      base.bodyId,
+      "base",
+      [],
+      ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."],
+    );
     return;
   }
   if (!worst) return;
   const where = `${worst.heading}${describePose(sweep, worst.pose, worst.ci)}`;
-  addFigures(ctx.readouts, base.bodyId, "base", [{ label: "tipping safety factor", value: worst.safety, dimension: "dimensionless", where }]);
+  addFigures(ctx.readouts, base.bodyId, "base", [
+    { label: "tipping safety factor", value: worst.safety, dimension: "dimensionless", where },
+  ]);
   noteSafety(ctx.readouts, base.bodyId, "base", worst.safety, "tipping", where);
   const need = model.require.tipping;
   if (worst.safety < need) {
@@ -114,9 +142,14 @@ export function checkTipping(ctx: CheckContext): void {
         "geometry.tipping",
         spanOf(baseBody.origin, "mass", "footprint"),
         `base ${base.bodyId}: overturning moment ${show(worst.overturning, "torque")} about the footprint's edge against a restoring ${show(worst.restoring, "torque")}: tipping safety ${showSafety(worst.safety)} < ${showSafety(need)} required (${where})`,
-        { related: model.payloads.map((p) => ({ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id} adds to the overturning moment` })), data: { safety: worst.safety, required: need } },
+        {
+          related: model.payloads.map((p) => ({
+            span: p.origin.name ?? p.origin.declaration,
+            message: `payload ${p.id} adds to the overturning moment`,
+          })),
+          data: { safety: worst.safety, required: need },
+        },
       ),
     );
   }
 }
-

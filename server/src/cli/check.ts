@@ -64,7 +64,9 @@ export function runCheck(files: string[], json: boolean, out: Output): number {
     const count = (s: string) => all.filter((d) => d.severity === s).length;
     const notes = count("information") + count("hint");
     const checked = files.length - unreadable;
-    out.out(`${plural(checked, "file")} checked: ${plural(count("error"), "error")}, ${plural(count("warning"), "warning")}${notes ? `, ${plural(notes, "note")}` : ""}${unreadable ? `; ${plural(unreadable, "file")} could not be read` : ""}\n`);
+    out.out(
+      `${plural(checked, "file")} checked: ${plural(count("error"), "error")}, ${plural(count("warning"), "warning")}${notes ? `, ${plural(notes, "note")}` : ""}${unreadable ? `; ${plural(unreadable, "file")} could not be read` : ""}\n`,
+    );
   }
   if (unreadable > 0) return 2;
   return all.some((d) => d.severity === "error") ? 1 : 0;

@@ -31,7 +31,9 @@ export function readSpec(file: string, out: Output, command: string): string | u
     return readFileSync(file, "utf8");
   } catch (err) {
     const code = (err as NodeJS.ErrnoException).code;
-    out.err(`poise ${command}: cannot read ${file}${code === "ENOENT" ? ": no such file" : code ? ` (${code})` : ""}\n`);
+    out.err(
+      `poise ${command}: cannot read ${file}${code === "ENOENT" ? ": no such file" : code ? ` (${code})` : ""}\n`,
+    );
     return undefined;
   }
 }

@@ -42,7 +42,11 @@ export async function main(argv: string[], out: Output = processOutput): Promise
         out.err(`poise check: unknown option ${unknown} (poise check FILE... [--json])\n`);
         return 2;
       }
-      return runCheck(rest.filter((a) => a !== "--json"), json, out);
+      return runCheck(
+        rest.filter((a) => a !== "--json"),
+        json,
+        out,
+      );
     }
     case "sweep":
       return runSweep(rest, out);
@@ -74,7 +78,9 @@ main(process.argv.slice(2)).then(
     process.exitCode = code;
   },
   (err: unknown) => {
-    process.stderr.write(`poise: internal fault: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`);
+    process.stderr.write(
+      `poise: internal fault: ${err instanceof Error ? (err.stack ?? err.message) : String(err)}\n`,
+    );
     process.exitCode = 2;
   },
 );

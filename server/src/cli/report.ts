@@ -38,11 +38,18 @@ function parseArgs(args: readonly string[]): ReportArgs | string {
 }
 
 /** Builds the report page for a spec's text: the part the tests call without touching files. */
-export function reportHtml(text: string, file: string, units: "si" | "us" = "si"): { html: string; errors: number } {
+export function reportHtml(
+  text: string,
+  file: string,
+  units: "si" | "us" = "si",
+): { html: string; errors: number } {
   const analysis = analyse(text);
   // Every pose: the page carries drawings and curves, not the pose list, so a dense sweep costs little.
   const vm = buildViewModel(analysis, { units, maxPoses: Infinity });
-  return { html: renderReportHtml(vm, { file }), errors: analysis.findings.filter((f) => f.severity === "error").length };
+  return {
+    html: renderReportHtml(vm, { file }),
+    errors: analysis.findings.filter((f) => f.severity === "error").length,
+  };
 }
 
 export async function runReport(args: string[]): Promise<number> {
@@ -55,7 +62,9 @@ export async function runReport(args: string[]): Promise<number> {
   try {
     text = readFileSync(parsed.file, "utf8");
   } catch (err) {
-    process.stderr.write(`poise report: cannot read ${parsed.file}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`);
+    process.stderr.write(
+      `poise report: cannot read ${parsed.file}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`,
+    );
     return 2;
   }
   const { html, errors } = reportHtml(text, parsed.file, parsed.units);
@@ -64,10 +73,14 @@ export async function runReport(args: string[]): Promise<number> {
     try {
       writeFileSync(parsed.out, html, "utf8");
     } catch (err) {
-      process.stderr.write(`poise report: cannot write ${parsed.out}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`);
+      process.stderr.write(
+        `poise report: cannot write ${parsed.out}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`,
+      );
       return 2;
     }
-    process.stderr.write(`poise report: wrote ${parsed.out}${errors ? ` (${errors} error${errors > 1 ? "s" : ""} in the spec)` : ""}\n`);
+    process.stderr.write(
+      `poise report: wrote ${parsed.out}${errors ? ` (${errors} error${errors > 1 ? "s" : ""} in the spec)` : ""}\n`,
+    );
   }
   return errors > 0 ? 1 : 0;
 }

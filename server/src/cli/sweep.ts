@@ -42,11 +42,21 @@ function tablePose(pose: Pose): SweepTablePose {
   const statics = pose.cases[0];
   return {
     angles: mapValues(pose.angles, (a) => round(a * RAD_TO_DEG)),
-    bodies: mapValues(pose.bodies, (b) => ({ x: round(b.x * M_TO_MM), y: round(b.y * M_TO_MM), angle: round(b.phi * RAD_TO_DEG) })),
+    bodies: mapValues(pose.bodies, (b) => ({
+      x: round(b.x * M_TO_MM),
+      y: round(b.y * M_TO_MM),
+      angle: round(b.phi * RAD_TO_DEG),
+    })),
     holding_torque: mapValues(statics?.holdingTorque ?? {}, round),
     hand_force: mapValues(statics?.handForce ?? {}, round),
-    reactions: mapValues(statics?.reactions ?? {}, (r) => [round(r.x), round(r.y)] as [number | null, number | null]),
-    springs: mapValues(pose.springs, (s, id) => ({ length: round(s.length * M_TO_MM), force: round(statics?.springForce[id] ?? NaN) })),
+    reactions: mapValues(
+      statics?.reactions ?? {},
+      (r) => [round(r.x), round(r.y)] as [number | null, number | null],
+    ),
+    springs: mapValues(pose.springs, (s, id) => ({
+      length: round(s.length * M_TO_MM),
+      force: round(statics?.springForce[id] ?? NaN),
+    })),
   };
 }
 
@@ -69,11 +79,19 @@ export function sweepCsv(table: SweepTable): string {
   if (!first) return `${table.dofs.map((d) => csvName(`angles/${d}`)).join(",")}\n`;
   const columns: { name: string; get: (p: SweepTablePose) => number | null | undefined }[] = [];
   for (const d of Object.keys(first.angles)) columns.push({ name: `angles/${d}`, get: (p) => p.angles[d] });
-  for (const b of Object.keys(first.bodies)) for (const c of ["x", "y", "angle"] as const) columns.push({ name: `bodies/${b}/${c}`, get: (p) => p.bodies[b]?.[c] });
-  for (const d of Object.keys(first.holding_torque)) columns.push({ name: `holding_torque/${d}`, get: (p) => p.holding_torque[d] });
-  for (const h of Object.keys(first.hand_force)) columns.push({ name: `hand_force/${h}`, get: (p) => p.hand_force[h] });
-  for (const j of Object.keys(first.reactions)) for (const [i, c] of ["x", "y"].entries()) columns.push({ name: `reactions/${j}/${c}`, get: (p) => p.reactions[j]?.[i] });
-  for (const s of Object.keys(first.springs)) for (const c of ["length", "force"] as const) columns.push({ name: `springs/${s}/${c}`, get: (p) => p.springs[s]?.[c] });
+  for (const b of Object.keys(first.bodies))
+    for (const c of ["x", "y", "angle"] as const)
+      columns.push({ name: `bodies/${b}/${c}`, get: (p) => p.bodies[b]?.[c] });
+  for (const d of Object.keys(first.holding_torque))
+    columns.push({ name: `holding_torque/${d}`, get: (p) => p.holding_torque[d] });
+  for (const h of Object.keys(first.hand_force))
+    columns.push({ name: `hand_force/${h}`, get: (p) => p.hand_force[h] });
+  for (const j of Object.keys(first.reactions))
+    for (const [i, c] of ["x", "y"].entries())
+      columns.push({ name: `reactions/${j}/${c}`, get: (p) => p.reactions[j]?.[i] });
+  for (const s of Object.keys(first.springs))
+    for (const c of ["length", "force"] as const)
+      columns.push({ name: `springs/${s}/${c}`, get: (p) => p.springs[s]?.[c] });
   const rows = [columns.map((c) => csvName(c.name)).join(",")];
   for (const p of table.poses) rows.push(columns.map((c) => csvCell(c.get(p))).join(","));
   return `${rows.join("\n")}\n`;
@@ -100,11 +118,23 @@ export function runSweep(args: string[], out: Output): number {
   const analysis = analyse(text);
   const errors = analysis.findings.filter((f) => f.severity === "error");
   if (!analysis.sweep) {
-    out.err(`poise sweep: ${file} cannot be swept: ${errors.length ? errors.map((e) => e.message).slice(0, 3).join("; ") : "no model"} (run poise check ${file})\n`);
+    out.err(
+      `poise sweep: ${file} cannot be swept: ${
+        errors.length
+          ? errors
+              .map((e) => e.message)
+              .slice(0, 3)
+              .join("; ")
+          : "no model"
+      } (run poise check ${file})\n`,
+    );
     return errors.length > 0 ? 1 : 2;
   }
   const table = sweepTable(analysis.sweep);
   out.out(format === "csv" ? sweepCsv(table) : `${JSON.stringify(table, null, 2)}\n`);
-  if (errors.length > 0) out.err(`poise sweep: ${file} has ${errors.length} error${errors.length === 1 ? "" : "s"} (run poise check ${file})\n`);
+  if (errors.length > 0)
+    out.err(
+      `poise sweep: ${file} has ${errors.length} error${errors.length === 1 ? "" : "s"} (run poise check ${file})\n`,
+    );
   return errors.length > 0 ? 1 : 0;
 }

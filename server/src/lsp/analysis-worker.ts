@@ -9,7 +9,7 @@ parentPort?.on("message", (request: WorkerRequest) => {
   try {
     reply = { id: request.id, analysis: analyse(request.text, request.options) };
   } catch (err) {
-    reply = { id: request.id, error: err instanceof Error ? err.stack ?? err.message : String(err) };
+    reply = { id: request.id, error: err instanceof Error ? (err.stack ?? err.message) : String(err) };
   }
   try {
     parentPort!.postMessage(reply);

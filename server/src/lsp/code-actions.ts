@@ -1,7 +1,13 @@
 // Quick fixes, found by the finding code riding in a diagnostic's data: write the best-fit spring
 // rate (and initial tension), add a missing unit, take the suggested name, widen a pin to the
 // smallest standard size that meets `require safety`.
-import { CodeActionKind, type CodeAction, type CodeActionParams, type Diagnostic, type TextEdit } from "vscode-languageserver";
+import {
+  CodeActionKind,
+  type CodeAction,
+  type CodeActionParams,
+  type Diagnostic,
+  type TextEdit,
+} from "vscode-languageserver";
 import type { FeatureContext, ServerFeature } from "./context";
 import type { DiagnosticData } from "./convert";
 import { DIAGNOSTIC_SOURCE } from "./convert";
@@ -53,28 +59,43 @@ function propertyOf(decl: DeclarationNode, key: string): PropertyNode | undefine
 
 function quantitiesIn(v: ValueNode): QuantityNode[] {
   switch (v.kind) {
-    case "quantity": return [v];
-    case "range": return [v.low, v.high];
-    case "point": return [v.x, v.y];
-    case "dims": return [v.first, v.second];
-    case "reference": return v.point ? [v.point.x, v.point.y] : [];
-    default: return [];
+    case "quantity":
+      return [v];
+    case "range":
+      return [v.low, v.high];
+    case "point":
+      return [v.x, v.y];
+    case "dims":
+      return [v.first, v.second];
+    case "reference":
+      return v.point ? [v.point.x, v.point.y] : [];
+    default:
+      return [];
   }
 }
 
 /** The first dimension a property's shape expects (a sequence: its first quantity). */
 function dimensionOfShape(shape: ValueShape): DimensionName | undefined {
   switch (shape.type) {
-    case "quantity": case "range": case "vector": case "dims": return shape.dimension;
-    case "quantity-or": return shape.dimensions[0];
-    case "point": case "named-point": return "length";
+    case "quantity":
+    case "range":
+    case "vector":
+    case "dims":
+      return shape.dimension;
+    case "quantity-or":
+      return shape.dimensions[0];
+    case "point":
+    case "named-point":
+      return "length";
     case "sequence":
-      for (const item of shape.items) if (item.type !== "keyword") {
-        const d = dimensionOfShape(item);
-        if (d) return d;
-      }
+      for (const item of shape.items)
+        if (item.type !== "keyword") {
+          const d = dimensionOfShape(item);
+          if (d) return d;
+        }
       return undefined;
-    default: return undefined;
+    default:
+      return undefined;
   }
 }
 
@@ -108,14 +129,29 @@ function handForceText(n: number): string {
 
 /** What the balance fit may write, by spring kind: property, key of the finding's data, dimension,
  * and whether the property must already be written (else the fix adds it). */
-const FIT_SETTINGS: Record<string, { key: string; data: string; dimension: DimensionName; words: string; mustExist: boolean }[]> = {
+const FIT_SETTINGS: Record<
+  string,
+  { key: string; data: string; dimension: DimensionName; words: string; mustExist: boolean }[]
+> = {
   extension: [
     { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
-    { key: "initial_tension", data: "bestInitialTension", dimension: "force", words: "initial tension", mustExist: false },
+    {
+      key: "initial_tension",
+      data: "bestInitialTension",
+      dimension: "force",
+      words: "initial tension",
+      mustExist: false,
+    },
   ],
   zero_length: [
     { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
-    { key: "initial_tension", data: "bestInitialTension", dimension: "force", words: "initial tension", mustExist: false },
+    {
+      key: "initial_tension",
+      data: "bestInitialTension",
+      dimension: "force",
+      words: "initial tension",
+      mustExist: false,
+    },
   ],
   torsion: [
     { key: "rate", data: "bestRate", dimension: "angular_stiffness", words: "rate", mustExist: true },
@@ -141,7 +177,11 @@ function writeInDimension(valueSI: number, written: ValueNode | undefined, dimen
   return writeIn(valueSI, fits ? q : undefined, dimension);
 }
 
-export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string, unknown> | undefined): TextFix | undefined {
+export function balanceFix(
+  text: string,
+  tree: SyntaxTree,
+  detail: Record<string, unknown> | undefined,
+): TextFix | undefined {
   const springId = typeof detail?.["springId"] === "string" ? (detail["springId"] as string) : undefined;
   const decl = springId ? declarationNamed(tree, "spring", springId) : undefined;
   const kind = decl && springKindOf(decl);
@@ -153,12 +193,21 @@ export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string
   for (const setting of settings) {
     const value = num(detail?.[setting.data]);
     const prop = propertyOf(decl, setting.key);
-    if (value === undefined || (setting.dimension !== "torque" && setting.dimension !== "force" && value <= 0)) {
+    if (
+      value === undefined ||
+      (setting.dimension !== "torque" && setting.dimension !== "force" && value <= 0)
+    ) {
       if (setting.mustExist) return undefined;
       continue;
     }
     if (setting.mustExist && !prop) return undefined;
-    if (kind === "zero_length" && setting.key === "initial_tension" && !prop && Math.abs(value) < NEGLIGIBLE_TENSION_N) continue;
+    if (
+      kind === "zero_length" &&
+      setting.key === "initial_tension" &&
+      !prop &&
+      Math.abs(value) < NEGLIGIBLE_TENSION_N
+    )
+      continue;
     const written = writeInDimension(value, prop?.values[0], setting.dimension);
     if (!written) return undefined;
     const v = prop?.values[0];
@@ -171,13 +220,20 @@ export function balanceFix(text: string, tree: SyntaxTree, detail: Record<string
   if (edits.length === 0) return undefined;
   const before = num(detail?.["worstHandForceBefore"]);
   const after = num(detail?.["worstHandForceAfter"]);
-  const forces = before !== undefined && after !== undefined ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)} over every payload)` : "";
+  const forces =
+    before !== undefined && after !== undefined
+      ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)} over every payload)`
+      : "";
   return { title: `Set ${springId}'s ${words.join(" and ")}${forces}`, edits, preferred: true };
 }
 
 // ---- a missing unit ----------------------------------------------------------------------------
 
-export function missingUnitFix(tree: SyntaxTree, span: Span, detail: Record<string, unknown> | undefined): TextFix | undefined {
+export function missingUnitFix(
+  tree: SyntaxTree,
+  span: Span,
+  detail: Record<string, unknown> | undefined,
+): TextFix | undefined {
   for (const arm of tree.arms) {
     const scopes: { keyword?: string; properties: readonly PropertyNode[] }[] = [
       { properties: arm.properties },
@@ -187,20 +243,30 @@ export function missingUnitFix(tree: SyntaxTree, span: Span, detail: Record<stri
       for (const prop of scope.properties) {
         if (span.start < prop.span.start || span.start >= prop.span.end) continue;
         const quantities = prop.values.flatMap(quantitiesIn);
-        const q = quantities.find((n) => !n.unit && span.start >= n.span.start && span.start < Math.max(n.span.end, n.span.start + 1));
+        const q = quantities.find(
+          (n) => !n.unit && span.start >= n.span.start && span.start < Math.max(n.span.end, n.span.start + 1),
+        );
         if (!q) continue;
         // A sibling that has a unit (the other end of a range, the other coordinate) says it best.
         let unit = quantities.find((n) => n.unit)?.unit?.text;
-        const suggestion = typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
-        if (!unit && suggestion?.startsWith(q.numberText + " ")) unit = suggestion.slice(q.numberText.length + 1);
+        const suggestion =
+          typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+        if (!unit && suggestion?.startsWith(q.numberText + " "))
+          unit = suggestion.slice(q.numberText.length + 1);
         if (!unit) {
-          const specs: readonly PropertySpec[] = scope.keyword ? declarationSpec(scope.keyword)?.properties ?? [] : ARM_PROPERTIES;
+          const specs: readonly PropertySpec[] = scope.keyword
+            ? (declarationSpec(scope.keyword)?.properties ?? [])
+            : ARM_PROPERTIES;
           const spec = specs.find((p) => p.key === prop.key.text);
           const dim = spec && dimensionOfShape(spec.shape);
           unit = dim ? USUAL_UNIT[dim] : undefined;
         }
         if (!unit) return undefined;
-        return { title: `Add the unit: ${q.numberText} ${unit}`, edits: [{ span: { start: q.numberSpan.end, end: q.numberSpan.end }, newText: ` ${unit}` }], preferred: true };
+        return {
+          title: `Add the unit: ${q.numberText} ${unit}`,
+          edits: [{ span: { start: q.numberSpan.end, end: q.numberSpan.end }, newText: ` ${unit}` }],
+          preferred: true,
+        };
       }
     }
   }
@@ -210,7 +276,10 @@ export function missingUnitFix(tree: SyntaxTree, span: Span, detail: Record<stri
 // ---- an unknown name ---------------------------------------------------------------------------
 
 /** The suggestion of a name or unit finding: from its data, else the "did you mean" of its message. */
-export function suggestionOf(message: string, detail: Record<string, unknown> | undefined): string | undefined {
+export function suggestionOf(
+  message: string,
+  detail: Record<string, unknown> | undefined,
+): string | undefined {
   for (const key of ["suggestion", "closest", "didYouMean"]) {
     const v = detail?.[key];
     if (typeof v === "string" && v) return v;
@@ -219,7 +288,12 @@ export function suggestionOf(message: string, detail: Record<string, unknown> | 
   return m?.[1];
 }
 
-export function unknownNameFix(text: string, span: Span, message: string, detail: Record<string, unknown> | undefined): TextFix | undefined {
+export function unknownNameFix(
+  text: string,
+  span: Span,
+  message: string,
+  detail: Record<string, unknown> | undefined,
+): TextFix | undefined {
   const suggestion = suggestionOf(message, detail);
   if (!suggestion || span.end <= span.start) return undefined;
   const written = text.slice(span.start, span.end);
@@ -227,15 +301,28 @@ export function unknownNameFix(text: string, span: Span, message: string, detail
   // A finding on a whole dotted reference whose suggestion is one part: replace the last part.
   if (written.includes(".") && !suggestion.includes(".")) {
     const dot = written.lastIndexOf(".");
-    return { title: `Change ${written.slice(dot + 1)} to ${suggestion}`, edits: [{ span: { start: span.start + dot + 1, end: span.end }, newText: suggestion }], preferred: true };
+    return {
+      title: `Change ${written.slice(dot + 1)} to ${suggestion}`,
+      edits: [{ span: { start: span.start + dot + 1, end: span.end }, newText: suggestion }],
+      preferred: true,
+    };
   }
-  return { title: `Change ${written} to ${suggestion}`, edits: [{ span, newText: suggestion }], preferred: true };
+  return {
+    title: `Change ${written} to ${suggestion}`,
+    edits: [{ span, newText: suggestion }],
+    preferred: true,
+  };
 }
 
 // ---- a pin too small ---------------------------------------------------------------------------
 
 /** The pin property of the declaration a strength finding sits in, when the finding is about the pin. */
-function pinOf(tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
+function pinOf(
+  tree: SyntaxTree,
+  span: Span,
+  message: string,
+  detail: Record<string, unknown> | undefined,
+): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
   const decl = declarationAt(tree, span.start);
   if (!decl) return undefined;
   const prop = propertyOf(decl, "pin") ?? propertyOf(decl, "pins");
@@ -248,8 +335,13 @@ function pinOf(tree: SyntaxTree, span: Span, message: string, detail: Record<str
 
 function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boolean {
   return analysis.findings.some(
-    (f) => f.code === "strength.overstress" && f.span.start >= declSpan.start && f.span.start < declSpan.end &&
-      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) || f.data?.["check"] === "pin" || /\bpins?\b/i.test(f.message)),
+    (f) =>
+      f.code === "strength.overstress" &&
+      f.span.start >= declSpan.start &&
+      f.span.start < declSpan.end &&
+      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) ||
+        f.data?.["check"] === "pin" ||
+        /\bpins?\b/i.test(f.message)),
   );
 }
 
@@ -258,7 +350,14 @@ function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boole
  * Shear stress goes as 1/d^2 and bearing as 1/d (mechanics.md section 4), so the shear-governed
  * size d sqrt(S_req / S) is a lower bound and the search starts at the first standard size above it.
  */
-export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message: string, detail: Record<string, unknown> | undefined, budgetMs = PIN_FIX_BUDGET_MS): TextFix | undefined {
+export function widenPinFix(
+  text: string,
+  tree: SyntaxTree,
+  span: Span,
+  message: string,
+  detail: Record<string, unknown> | undefined,
+  budgetMs = PIN_FIX_BUDGET_MS,
+): TextFix | undefined {
   const deadline = performance.now() + budgetMs;
   const pin = pinOf(tree, span, message, detail);
   if (!pin) return undefined;
@@ -269,7 +368,9 @@ export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message:
   const safety = num(detail?.["safety"]) ?? num(detail?.["value"]);
   const required = num(detail?.["required"]);
   const lowest = safety && required && safety > 0 ? current * Math.sqrt(required / safety) : current;
-  const candidates = STANDARD_PIN_DIAMETERS_M.filter((c) => c > current * (1 + 1e-9) && c >= lowest * (1 - 1e-9)).slice(0, PIN_TRIES);
+  const candidates = STANDARD_PIN_DIAMETERS_M.filter(
+    (c) => c > current * (1 + 1e-9) && c >= lowest * (1 - 1e-9),
+  ).slice(0, PIN_TRIES);
   for (const c of candidates) {
     const newText = `${formatNumber(fromSI(c, unit)!)} ${unit}`;
     const edited = text.slice(0, pin.diameter.span.start) + newText + text.slice(pin.diameter.span.end);
@@ -279,7 +380,11 @@ export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message:
     const left = deadline - performance.now();
     if (left <= 0) return undefined;
     const analysis = analyse(edited, { budgetMs: left });
-    if (!analysis.sweep || analysis.findings.some((f) => f.code === "analysis.budget" || f.code === "analysis.internal")) return undefined;
+    if (
+      !analysis.sweep ||
+      analysis.findings.some((f) => f.code === "analysis.budget" || f.code === "analysis.internal")
+    )
+      return undefined;
     if (!pinStillFails(analysis, declSpan, pinSpan)) {
       const name = pin.decl.name?.text ?? "the joint";
       return {
@@ -296,9 +401,15 @@ export function widenPinFix(text: string, tree: SyntaxTree, span: Span, message:
 
 /** A finding whose data carries the corrected text of exactly the words it points at (a reversed
  * range written the right way round). */
-export function suggestedValueFix(text: string, span: Span, detail: Record<string, unknown> | undefined): TextFix | undefined {
-  const suggestion = typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
-  if (!suggestion || span.end <= span.start || text.slice(span.start, span.end) === suggestion) return undefined;
+export function suggestedValueFix(
+  text: string,
+  span: Span,
+  detail: Record<string, unknown> | undefined,
+): TextFix | undefined {
+  const suggestion =
+    typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+  if (!suggestion || span.end <= span.start || text.slice(span.start, span.end) === suggestion)
+    return undefined;
   return { title: `Write ${suggestion}`, edits: [{ span, newText: suggestion }], preferred: true };
 }
 
@@ -314,11 +425,25 @@ export interface FixRequest {
 export function fixesFor(text: string, tree: SyntaxTree, req: FixRequest): TextFix[] {
   let fix: TextFix | undefined;
   switch (req.code) {
-    case "balance.unbalanced": fix = balanceFix(text, tree, req.detail); break;
-    case "unit.missing": fix = missingUnitFix(tree, req.span, req.detail); break;
-    case "name.unknown": case "name.unknown-point": case "unit.unknown": case "property.unknown": case "declaration.unknown": fix = unknownNameFix(text, req.span, req.message, req.detail); break;
-    case "strength.overstress": fix = widenPinFix(text, tree, req.span, req.message, req.detail); break;
-    case "value.impossible": fix = suggestedValueFix(text, req.span, req.detail); break;
+    case "balance.unbalanced":
+      fix = balanceFix(text, tree, req.detail);
+      break;
+    case "unit.missing":
+      fix = missingUnitFix(tree, req.span, req.detail);
+      break;
+    case "name.unknown":
+    case "name.unknown-point":
+    case "unit.unknown":
+    case "property.unknown":
+    case "declaration.unknown":
+      fix = unknownNameFix(text, req.span, req.message, req.detail);
+      break;
+    case "strength.overstress":
+      fix = widenPinFix(text, tree, req.span, req.message, req.detail);
+      break;
+    case "value.impossible":
+      fix = suggestedValueFix(text, req.span, req.detail);
+      break;
   }
   return fix ? [fix] : [];
 }
@@ -345,8 +470,17 @@ function hash(s: string): number {
 }
 
 function toAction(uri: string, index: LineIndex, fix: TextFix, diagnostic: Diagnostic): CodeAction {
-  const edits: TextEdit[] = fix.edits.map((e) => ({ range: { start: index.position(e.span.start), end: index.position(e.span.end) }, newText: e.newText }));
-  return { title: fix.title, kind: CodeActionKind.QuickFix, diagnostics: [diagnostic], isPreferred: fix.preferred ?? false, edit: { changes: { [uri]: edits } } };
+  const edits: TextEdit[] = fix.edits.map((e) => ({
+    range: { start: index.position(e.span.start), end: index.position(e.span.end) },
+    newText: e.newText,
+  }));
+  return {
+    title: fix.title,
+    kind: CodeActionKind.QuickFix,
+    diagnostics: [diagnostic],
+    isPreferred: fix.preferred ?? false,
+    edit: { changes: { [uri]: edits } },
+  };
 }
 
 export const codeActionsFeature: ServerFeature = {
@@ -368,10 +502,15 @@ export const codeActionsFeature: ServerFeature = {
           if (!code) continue;
           // The editor keeps the diagnostic's range in step with edits; the data's span is of the
           // analysed text, which may be older.
-          const span = { start: index.offset(diagnostic.range.start), end: index.offset(diagnostic.range.end) };
-          const message = typeof diagnostic.message === "string" ? diagnostic.message : diagnostic.message.value;
+          const span = {
+            start: index.offset(diagnostic.range.start),
+            end: index.offset(diagnostic.range.end),
+          };
+          const message =
+            typeof diagnostic.message === "string" ? diagnostic.message : diagnostic.message.value;
           const req: FixRequest = { code, span, message, ...(data?.detail ? { detail: data.detail } : {}) };
-          for (const fix of cachedFixes(text, tree, req)) actions.push(toAction(doc.uri, index, fix, diagnostic));
+          for (const fix of cachedFixes(text, tree, req))
+            actions.push(toAction(doc.uri, index, fix, diagnostic));
         }
         return actions;
       }),

@@ -1,12 +1,33 @@
 // Completion that fits the position: declaration keywords inside the arm, the declaration's own
 // property names (a spring's by its kind), names of the right kind after `connects`, `between`,
 // `on`, `at` and in material positions, point names after `body.`, units that fit after a number.
-import { CompletionItemKind, InsertTextFormat, type CompletionItem, type CompletionList } from "vscode-languageserver";
-import { ARM_PROPERTIES, DECLARATIONS, SPRING_KINDS, declarationSpec, type PropertySpec, type ValueShape } from "../model/schema";
+import {
+  CompletionItemKind,
+  InsertTextFormat,
+  type CompletionItem,
+  type CompletionList,
+} from "vscode-languageserver";
+import {
+  ARM_PROPERTIES,
+  DECLARATIONS,
+  SPRING_KINDS,
+  declarationSpec,
+  type PropertySpec,
+  type ValueShape,
+} from "../model/schema";
 import type { DimensionName } from "../units/dimension";
 import type { ServerFeature } from "./context";
 import { blockText, cursorContext, type CursorContext } from "./cursor-context";
-import { bodyPrefixLength, isBodyKind, pointsOf, symbolsOfKind, PARALLELOGRAM_PARTS, SECTION_SHAPES, type NameKind, type NameSymbol } from "./names";
+import {
+  bodyPrefixLength,
+  isBodyKind,
+  pointsOf,
+  symbolsOfKind,
+  PARALLELOGRAM_PARTS,
+  SECTION_SHAPES,
+  type NameKind,
+  type NameSymbol,
+} from "./names";
 import { guarded } from "./safe";
 import type { SyntaxView } from "./syntax-view";
 import { UNITS_BY_DIMENSION } from "./unit-words";
@@ -46,14 +67,20 @@ function dimensionsOf(shape: ValueShape): DimensionName[] {
 
 /** A spring's `rate` is angular only for a torsion spring. */
 function dimensionsFor(spec: PropertySpec, springKind: string | undefined): DimensionName[] {
-  if (spec.key === "rate" && springKind) return [springKind === "torsion" ? "angular_stiffness" : "stiffness"];
+  if (spec.key === "rate" && springKind)
+    return [springKind === "torsion" ? "angular_stiffness" : "stiffness"];
   return dimensionsOf(spec.shape);
 }
 
 const isUnitWord = (w: string) => /^[A-Za-z][A-Za-z0-9*/^]*$/.test(w) && !SECTION_SHAPES.has(w);
 
 /** What may come next in a property, given the complete words after its key. */
-function wantAfter(keyword: string, spec: PropertySpec, done: string[], springKind: string | undefined): Want | undefined {
+function wantAfter(
+  keyword: string,
+  spec: PropertySpec,
+  done: string[],
+  springKind: string | undefined,
+): Want | undefined {
   const last = done[done.length - 1];
   const prevIsNumber = last !== undefined && NUMBER.test(last);
   if (prevIsNumber) return { kind: "units", dimensions: dimensionsFor(spec, springKind) };
@@ -62,9 +89,17 @@ function wantAfter(keyword: string, spec: PropertySpec, done: string[], springKi
   switch (spec.key) {
     case "connects":
       if (done.length === 1) return { kind: "words", words: ["to"] };
-      return done.length === 0 ? { kind: "place" } : last === "to" ? { kind: "place", child: true } : undefined;
+      return done.length === 0
+        ? { kind: "place" }
+        : last === "to"
+          ? { kind: "place", child: true }
+          : undefined;
     case "between":
-      return done.length === 1 ? { kind: "words", words: ["and"] } : done.length === 0 || last === "and" ? { kind: "place" } : undefined;
+      return done.length === 1
+        ? { kind: "words", words: ["and"] }
+        : done.length === 0 || last === "and"
+          ? { kind: "place" }
+          : undefined;
     case "on":
       return done.length === 0 ? { kind: "place" } : undefined;
     case "at":
@@ -86,7 +121,8 @@ function wantAfter(keyword: string, spec: PropertySpec, done: string[], springKi
       if (!shape) return done.length === 0 ? { kind: "words", words: [...SECTION_SHAPES] } : undefined;
       const needed = shape === "rod" ? 1 : 2;
       if (afterUnit && quantities < needed) return { kind: "words", words: ["x"] };
-      if (afterUnit && quantities >= needed && spec.key === "bars") return { kind: "names", names: ["material"] };
+      if (afterUnit && quantities >= needed && spec.key === "bars")
+        return { kind: "names", names: ["material"] };
       return undefined;
     }
   }
@@ -142,23 +178,43 @@ function declarationItems(snippets: boolean): CompletionItem[] {
     insertTextFormat: snippets ? InsertTextFormat.Snippet : InsertTextFormat.PlainText,
     insertText: snippets ? `${d.keyword}${d.named ? " ${1:name}" : ""} {\n\t$0\n}` : `${d.keyword} `,
   }));
-  for (const p of ARM_PROPERTIES) items.push({ label: p.key, kind: CompletionItemKind.Property, detail: p.doc, insertText: `${p.key} ` });
+  for (const p of ARM_PROPERTIES)
+    items.push({ label: p.key, kind: CompletionItemKind.Property, detail: p.doc, insertText: `${p.key} ` });
   return items;
 }
 
 function nameItem(s: NameSymbol, label = s.id): CompletionItem {
-  const kind = s.kind === "material" ? CompletionItemKind.Constant : s.kind === "point" ? CompletionItemKind.Field : isBodyKind(s.kind) ? CompletionItemKind.Class : CompletionItemKind.Variable;
+  const kind =
+    s.kind === "material"
+      ? CompletionItemKind.Constant
+      : s.kind === "point"
+        ? CompletionItemKind.Field
+        : isBodyKind(s.kind)
+          ? CompletionItemKind.Class
+          : CompletionItemKind.Variable;
   return { label, kind, detail: s.builtin ? `${s.kind} (built in)` : s.kind };
 }
 
 /** Names for a place reference: bodies, or after `body.` that body's points. */
-function placeItems(view: SyntaxView, partial: string, child = false): { items: CompletionItem[]; replaceFrom: number } {
+function placeItems(
+  view: SyntaxView,
+  partial: string,
+  child = false,
+): { items: CompletionItem[]; replaceFrom: number } {
   const dot = partial.lastIndexOf(".");
   if (dot < 0) {
-    const bodies = [...view.names.bodies].filter((id) => !(child && view.names.symbols.get(id)?.kind === "base"));
+    const bodies = [...view.names.bodies].filter(
+      (id) => !(child && view.names.symbols.get(id)?.kind === "base"),
+    );
     const items = bodies.map((id) => nameItem(view.names.symbols.get(id)!));
     // A parallelogram's name alone reads as its head in no position; offer `NAME.` to go on.
-    for (const p of symbolsOfKind(view.names, ["parallelogram"])) items.push({ ...nameItem(p), label: `${p.id}.`, insertText: `${p.id}.`, command: { title: "more", command: "editor.action.triggerSuggest" } });
+    for (const p of symbolsOfKind(view.names, ["parallelogram"]))
+      items.push({
+        ...nameItem(p),
+        label: `${p.id}.`,
+        insertText: `${p.id}.`,
+        command: { title: "more", command: "editor.action.triggerSuggest" },
+      });
     return { items, replaceFrom: partial.length };
   }
   const prefix = partial.slice(0, dot).split(".");
@@ -167,7 +223,8 @@ function placeItems(view: SyntaxView, partial: string, child = false): { items: 
   if (k === prefix.length) {
     for (const p of pointsOf(view.names, prefix.join("."))) items.push(nameItem(p, p.name));
   } else if (prefix.length === 1 && view.names.symbols.get(prefix[0]!)?.kind === "parallelogram") {
-    for (const part of PARALLELOGRAM_PARTS) items.push(nameItem(view.names.symbols.get(`${prefix[0]}.${part}`)!, part));
+    for (const part of PARALLELOGRAM_PARTS)
+      items.push(nameItem(view.names.symbols.get(`${prefix[0]}.${part}`)!, part));
   }
   return { items, replaceFrom: partial.length - dot - 1 };
 }
@@ -181,14 +238,23 @@ export function completionsAt(view: SyntaxView, offset: number, snippets: boolea
   let items: CompletionItem[] = [];
   let replaceLength = partial.length;
   if (ctx.depth === 0) {
-    if (done.length === 0) items = [{ label: "arm", kind: CompletionItemKind.Keyword, insertTextFormat: snippets ? InsertTextFormat.Snippet : InsertTextFormat.PlainText, insertText: snippets ? 'arm "${1:title}" {\n\t$0\n}' : "arm " }];
+    if (done.length === 0)
+      items = [
+        {
+          label: "arm",
+          kind: CompletionItemKind.Keyword,
+          insertTextFormat: snippets ? InsertTextFormat.Snippet : InsertTextFormat.PlainText,
+          insertText: snippets ? 'arm "${1:title}" {\n\t$0\n}' : "arm ",
+        },
+      ];
   } else if (ctx.depth === 1) {
     if (done.length === 0) items = declarationItems(snippets);
   } else if (done.length === 0) {
     items = propertyItems(ctx, view.text);
   } else {
     const spec = declarationSpec(ctx.keyword ?? "")?.properties.find((p) => p.key === done[0]);
-    const springKind = ctx.keyword === "spring" ? springKindOf(blockText(view.text, ctx.blockStart)) : undefined;
+    const springKind =
+      ctx.keyword === "spring" ? springKindOf(blockText(view.text, ctx.blockStart)) : undefined;
     const inPoint = done.includes("(") || done.some((w) => w.endsWith("("));
     const glued = NUMBER_THEN_UNIT.exec(partial);
     let want: Want | undefined;
@@ -197,11 +263,16 @@ export function completionsAt(view: SyntaxView, offset: number, snippets: boolea
       replaceLength = glued[2]!.length;
     } else if (inPoint) {
       const last = done[done.length - 1];
-      if (last && NUMBER.test(last)) want = { kind: "units", dimensions: spec?.key === "force" ? ["force"] : ["length"] };
+      if (last && NUMBER.test(last))
+        want = { kind: "units", dimensions: spec?.key === "force" ? ["force"] : ["length"] };
     } else if (spec) want = wantAfter(ctx.keyword ?? "", spec, done.slice(1), springKind);
     if (want?.kind === "units") {
       const units = [...new Set((want.dimensions ?? []).flatMap((d) => UNITS_BY_DIMENSION[d]))];
-      items = units.map((u, i) => ({ label: u, kind: CompletionItemKind.Unit, sortText: String(i).padStart(3, "0") }));
+      items = units.map((u, i) => ({
+        label: u,
+        kind: CompletionItemKind.Unit,
+        sortText: String(i).padStart(3, "0"),
+      }));
     } else if (want?.kind === "words") {
       items = (want.words ?? []).map((w) => ({ label: w, kind: CompletionItemKind.Keyword }));
     } else if (want?.kind === "names") {
@@ -215,7 +286,11 @@ export function completionsAt(view: SyntaxView, offset: number, snippets: boolea
   // Replace exactly the word being typed (units such as N/mm hold characters editors split at).
   const start = view.lines.position(offset - replaceLength);
   const end = view.lines.position(offset);
-  return items.map((item) => ({ ...item, textEdit: { range: { start, end }, newText: item.insertText ?? item.label }, insertText: undefined }));
+  return items.map((item) => ({
+    ...item,
+    textEdit: { range: { start, end }, newText: item.insertText ?? item.label },
+    insertText: undefined,
+  }));
 }
 
 export const completionFeature: ServerFeature = {
@@ -227,7 +302,10 @@ export const completionFeature: ServerFeature = {
         const view = ctx.syntax(params.textDocument.uri);
         if (!view) return { isIncomplete: false, items: [] };
         const snippets = ctx.client().textDocument?.completion?.completionItem?.snippetSupport === true;
-        return { isIncomplete: false, items: completionsAt(view, view.lines.offset(params.position), snippets) };
+        return {
+          isIncomplete: false,
+          items: completionsAt(view, view.lines.offset(params.position), snippets),
+        };
       }),
     );
   },

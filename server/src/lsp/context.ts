@@ -1,6 +1,11 @@
 // What every editor feature of the server is handed: the connection, the open documents, the
 // analyses, the fast parse of the current text, and the settings.
-import type { ClientCapabilities, Connection, ServerCapabilities, TextDocuments } from "vscode-languageserver";
+import type {
+  ClientCapabilities,
+  Connection,
+  ServerCapabilities,
+  TextDocuments,
+} from "vscode-languageserver";
 import type { TextDocument } from "vscode-languageserver-textdocument";
 import type { Analysis } from "../analysis";
 import type { AnalysisScheduler } from "./scheduler";

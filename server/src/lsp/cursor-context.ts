@@ -47,7 +47,12 @@ export function cursorContext(text: string, offset: number): CursorContext {
     } else if (c === "\n" || c === ";") lineStart = i + 1;
   }
   const blockStart = stack.length > 0 ? stack[stack.length - 1]! : 0;
-  const ctx: CursorContext = { depth: stack.length, blockStart, words: splitWords(text.slice(lineStart, offset)), quiet: inString || inComment };
+  const ctx: CursorContext = {
+    depth: stack.length,
+    blockStart,
+    words: splitWords(text.slice(lineStart, offset)),
+    quiet: inString || inComment,
+  };
   if (stack.length >= 2) {
     const header = splitWords(text.slice(headerStart(text, blockStart), blockStart));
     ctx.keyword = header[0];

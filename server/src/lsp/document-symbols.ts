@@ -37,7 +37,13 @@ function declarationSymbol(d: DeclarationNode, lines: LineIndex, text: string): 
   const children = d.properties.map((p) => propertySymbol(p, lines, text));
   if (d.keyword.text === "parallelogram" && d.name) {
     for (const part of ["lower", "upper", "head"]) {
-      children.push({ name: `${d.name.text}.${part}`, detail: part === "head" ? "far upright" : "bar", kind: SymbolKind.Class, range: spanToRange(lines, d.name.span), selectionRange: spanToRange(lines, d.name.span) });
+      children.push({
+        name: `${d.name.text}.${part}`,
+        detail: part === "head" ? "far upright" : "bar",
+        kind: SymbolKind.Class,
+        range: spanToRange(lines, d.name.span),
+        selectionRange: spanToRange(lines, d.name.span),
+      });
     }
   }
   return {

@@ -19,7 +19,8 @@ export function foldingRanges(view: SyntaxView): FoldingRange[] {
   let runStart = -1;
   let runEnd = -1;
   const flush = () => {
-    if (runStart >= 0 && runEnd > runStart) out.push({ startLine: runStart, endLine: runEnd, kind: FoldingRangeKind.Comment });
+    if (runStart >= 0 && runEnd > runStart)
+      out.push({ startLine: runStart, endLine: runEnd, kind: FoldingRangeKind.Comment });
     runStart = runEnd = -1;
   };
   for (const c of view.tree.comments) {

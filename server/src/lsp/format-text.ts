@@ -35,7 +35,14 @@ function gapBefore(text: string, at: number): string {
   return text.slice(k, at).replace(/[^\t]/g, " ");
 }
 
-const SINGLE: Record<string, Tok["t"]> = { "{": "open", "}": "close", "(": "lparen", ")": "rparen", ",": "comma", ";": "semi" };
+const SINGLE: Record<string, Tok["t"]> = {
+  "{": "open",
+  "}": "close",
+  "(": "lparen",
+  ")": "rparen",
+  ",": "comma",
+  ";": "semi",
+};
 
 function tokenize(text: string): Tok[] {
   const out: Tok[] = [];
@@ -62,7 +69,13 @@ function tokenize(text: string): Tok[] {
     if (c === "#") {
       let j = i;
       while (j < text.length && text[j] !== "\n" && text[j] !== "\r") j++;
-      out.push({ t: "comment", s: text.slice(i, j).trimEnd(), line, glued, gap: glued ? "" : gapBefore(text, i) });
+      out.push({
+        t: "comment",
+        s: text.slice(i, j).trimEnd(),
+        line,
+        glued,
+        gap: glued ? "" : gapBefore(text, i),
+      });
       i = j;
       continue;
     }
@@ -85,7 +98,13 @@ function tokenize(text: string): Tok[] {
     // `..` inside a run (`-30deg..45deg`) is the range operator: split it out.
     const run = text.slice(i, j);
     const pieces = run.split(/(\.\.)/).filter((p) => p.length > 0);
-    pieces.forEach((p, k) => out.push(p === ".." ? { t: "range", s: p, glued: k === 0 ? glued : true } : { t: "word", s: p, glued: k === 0 ? glued : true }));
+    pieces.forEach((p, k) =>
+      out.push(
+        p === ".."
+          ? { t: "range", s: p, glued: k === 0 ? glued : true }
+          : { t: "word", s: p, glued: k === 0 ? glued : true },
+      ),
+    );
     i = j;
     glued = true;
   }
@@ -107,7 +126,14 @@ function indentFor(depth: number): string {
 
 export function formatSpec(text: string): string {
   const eol = text.includes("\r\n") ? "\r\n" : "\n";
-  const lines: { depth: number; text: string; comment?: string; gap?: string; endsOpen: boolean; sourceLine: number }[] = [];
+  const lines: {
+    depth: number;
+    text: string;
+    comment?: string;
+    gap?: string;
+    endsOpen: boolean;
+    sourceLine: number;
+  }[] = [];
   let depth = 0;
   let parens = 0;
   let current = "";
@@ -121,9 +147,16 @@ export function formatSpec(text: string): string {
   const emit = (lineText: string, endsOpen: boolean, comment?: string, gap?: string) => {
     const isClose = lineText === "}";
     const last = lines[lines.length - 1];
-    if (blankPending && last && !last.endsOpen && !isClose) lines.push({ depth: 0, text: "", endsOpen: false, sourceLine: -1 });
+    if (blankPending && last && !last.endsOpen && !isClose)
+      lines.push({ depth: 0, text: "", endsOpen: false, sourceLine: -1 });
     blankPending = false;
-    lines.push({ depth, text: lineText, endsOpen, sourceLine: currentLine, ...(comment !== undefined ? { comment, gap: gap ?? "" } : {}) });
+    lines.push({
+      depth,
+      text: lineText,
+      endsOpen,
+      sourceLine: currentLine,
+      ...(comment !== undefined ? { comment, gap: gap ?? "" } : {}),
+    });
   };
   const endLine = (endsOpen = false) => {
     if (current.length > 0) emit(current, endsOpen);

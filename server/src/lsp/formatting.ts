@@ -15,7 +15,12 @@ export const formattingFeature: ServerFeature = {
         const text = doc.getText();
         const formatted = formatSpec(text);
         if (formatted === text) return [];
-        return [{ range: { start: { line: 0, character: 0 }, end: doc.positionAt(text.length) }, newText: formatted }];
+        return [
+          {
+            range: { start: { line: 0, character: 0 }, end: doc.positionAt(text.length) },
+            newText: formatted,
+          },
+        ];
       }),
     );
   },

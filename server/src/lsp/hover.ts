@@ -37,7 +37,9 @@ function quantityHover(q: QuantityNode, system: UnitSystem): string | undefined 
 function bodyFacts(b: Body, system: UnitSystem): string[] {
   const facts: string[] = [];
   if (b.length > 0) facts.push(`length ${f(b.length, "length", system)}`);
-  facts.push(`mass ${f(b.mass, "mass", system)}${b.massGiven ? " (given)" : b.material ? ` (${b.material})` : ""}`);
+  facts.push(
+    `mass ${f(b.mass, "mass", system)}${b.massGiven ? " (given)" : b.material ? ` (${b.material})` : ""}`,
+  );
   const pts = Object.keys(b.points);
   if (pts.length) facts.push(`points ${pts.join(", ")}`);
   return facts;
@@ -46,15 +48,34 @@ function bodyFacts(b: Body, system: UnitSystem): string[] {
 function springFacts(s: Spring, system: UnitSystem): string[] {
   switch (s.kind) {
     case "extension":
-      return [`extension spring`, `rate ${f(s.rate, "stiffness", system)}`, `free length ${f(s.freeLength, "length", system)}`, `initial tension ${f(s.initialTension, "force", system)}`];
+      return [
+        `extension spring`,
+        `rate ${f(s.rate, "stiffness", system)}`,
+        `free length ${f(s.freeLength, "length", system)}`,
+        `initial tension ${f(s.initialTension, "force", system)}`,
+      ];
     case "zero_length":
       return [`zero-free-length spring`, `rate ${f(s.rate, "stiffness", system)}`];
     case "elastic":
-      return [`elastic cord`, `free length ${f(s.freeLength, "length", system)}`, `area ${f(s.area, "area", system)}`, `material ${s.material}`];
+      return [
+        `elastic cord`,
+        `free length ${f(s.freeLength, "length", system)}`,
+        `area ${f(s.area, "area", system)}`,
+        `material ${s.material}`,
+      ];
     case "gas":
-      return [`gas strut`, `force ${f(s.force, "force", system)} extended`, `progression ${formatNumber(s.progression)}`, `stroke ${f(s.stroke, "length", system)}`];
+      return [
+        `gas strut`,
+        `force ${f(s.force, "force", system)} extended`,
+        `progression ${formatNumber(s.progression)}`,
+        `stroke ${f(s.stroke, "length", system)}`,
+      ];
     case "torsion":
-      return [`torsion spring at ${s.joint}`, `rate ${f(s.rate, "angular_stiffness", system)}`, `preload ${f(s.preloadTorque, "torque", system)}`];
+      return [
+        `torsion spring at ${s.joint}`,
+        `rate ${f(s.rate, "angular_stiffness", system)}`,
+        `preload ${f(s.preloadTorque, "torque", system)}`,
+      ];
   }
 }
 
@@ -72,7 +93,8 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
       const j = model.joints.find((x) => x.id === id);
       if (!j) return [];
       const facts = [`${j.parent} → ${j.child}`, `angle ${f(j.angle, "angle", system)}`];
-      if (j.mode === "range" && j.range) facts.push(`range ${f(j.range[0], "angle", system)} .. ${f(j.range[1], "angle", system)}`);
+      if (j.mode === "range" && j.range)
+        facts.push(`range ${f(j.range[0], "angle", system)} .. ${f(j.range[1], "angle", system)}`);
       else facts.push(j.mode);
       if (j.pin) facts.push(`pin ${f(j.pin.diameter, "length", system)} ${j.pin.material}`);
       return facts;
@@ -80,7 +102,12 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
     case "parallelogram": {
       const p = model.parallelograms.find((x) => x.id === id);
       if (!p) return [];
-      const facts = [`on ${p.parent}`, `length ${f(p.length, "length", system)}`, `spacing ${f(p.spacing, "length", system)}`, `angle ${f(p.angle, "angle", system)}`];
+      const facts = [
+        `on ${p.parent}`,
+        `length ${f(p.length, "length", system)}`,
+        `spacing ${f(p.spacing, "length", system)}`,
+        `angle ${f(p.angle, "angle", system)}`,
+      ];
       if (p.range) facts.push(`range ${f(p.range[0], "angle", system)} .. ${f(p.range[1], "angle", system)}`);
       facts.push(`bodies ${p.bodies.lower}, ${p.bodies.upper}, ${p.bodies.head}`);
       return facts;
@@ -93,14 +120,20 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
       const p = model.payloads.find((x) => x.id === id);
       if (!p) return [];
       const facts = [`mass ${f(p.mass, "mass", system)}`, `on ${p.body}`];
-      if (p.massRange) facts.push(`mass range ${f(p.massRange[0], "mass", system)} .. ${f(p.massRange[1], "mass", system)}`);
+      if (p.massRange)
+        facts.push(`mass range ${f(p.massRange[0], "mass", system)} .. ${f(p.massRange[1], "mass", system)}`);
       return facts;
     }
     case "material": {
       const m = model.materials[id];
       if (!m) return [];
-      const facts = [`density ${f(m.density, "density", system)}`, `modulus ${f(m.modulus, "pressure", system)}`, `strength ${f(m.strength, "pressure", system)}`];
-      if (m.layerStrength !== undefined) facts.push(`across layers ${f(m.layerStrength, "pressure", system)}`);
+      const facts = [
+        `density ${f(m.density, "density", system)}`,
+        `modulus ${f(m.modulus, "pressure", system)}`,
+        `strength ${f(m.strength, "pressure", system)}`,
+      ];
+      if (m.layerStrength !== undefined)
+        facts.push(`across layers ${f(m.layerStrength, "pressure", system)}`);
       if (m.source) facts.push(`source: ${m.source}`);
       return facts;
     }
@@ -114,10 +147,16 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
 
 function readoutLines(r: PartReadout, system: UnitSystem): string[] {
   const lines = r.figures.map((fig) => {
-    const value = fig.high !== undefined ? `${formatResult(fig.value, fig.dimension, system)} .. ${formatResult(fig.high, fig.dimension, system)}` : formatResult(fig.value, fig.dimension, system);
+    const value =
+      fig.high !== undefined
+        ? `${formatResult(fig.value, fig.dimension, system)} .. ${formatResult(fig.high, fig.dimension, system)}`
+        : formatResult(fig.value, fig.dimension, system);
     return `- ${fig.label}: ${value}${fig.where ? ` (${fig.where})` : ""}`;
   });
-  if (r.worstSafety) lines.push(`- least safety factor: ${formatNumber(r.worstSafety.value)} (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`);
+  if (r.worstSafety)
+    lines.push(
+      `- least safety factor: ${formatNumber(r.worstSafety.value)} (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`,
+    );
   for (const note of r.notes) lines.push(`- ${note}`);
   return lines;
 }
@@ -152,7 +191,13 @@ function nameHover(symbol: NameSymbol, analysis: Analysis | undefined, system: U
   return parts.join("\n\n");
 }
 
-export function hoverAt(view: SyntaxView, offset: number, analysis: Analysis | undefined, current: Analysis | undefined, system: UnitSystem): Hover | null {
+export function hoverAt(
+  view: SyntaxView,
+  offset: number,
+  analysis: Analysis | undefined,
+  current: Analysis | undefined,
+  system: UnitSystem,
+): Hover | null {
   const sections: string[] = [];
   let range = undefined;
   const occ = occurrenceAt(view.names, offset);
@@ -167,8 +212,11 @@ export function hoverAt(view: SyntaxView, offset: number, analysis: Analysis | u
     range = spanToRange(view.lines, spot.quantity.span);
   } else if (spot.property && spanContains(spot.property.key.span, offset)) {
     const key = spot.property.key.text;
-    const spec = spot.declaration ? declarationSpec(spot.declaration.keyword.text)?.properties.find((p) => p.key === key) : ARM_PROPERTIES.find((p) => p.key === key);
-    if (spec) sections.push(`**${key}**${spec.required ? " (required)" : ""} — ${spec.doc}\n\n\`${spec.example}\``);
+    const spec = spot.declaration
+      ? declarationSpec(spot.declaration.keyword.text)?.properties.find((p) => p.key === key)
+      : ARM_PROPERTIES.find((p) => p.key === key);
+    if (spec)
+      sections.push(`**${key}**${spec.required ? " (required)" : ""} — ${spec.doc}\n\n\`${spec.example}\``);
     range = spanToRange(view.lines, spot.property.key.span);
   } else if (spot.declaration && spanContains(spot.declaration.keyword.span, offset)) {
     const spec = declarationSpec(spot.declaration.keyword.text);
@@ -195,7 +243,13 @@ export const hoverFeature: ServerFeature = {
         const uri = params.textDocument.uri;
         const view = ctx.syntax(uri);
         if (!view) return null;
-        return hoverAt(view, view.lines.offset(params.position), ctx.figures(uri), ctx.scheduler.current(uri), ctx.settings().displayUnits);
+        return hoverAt(
+          view,
+          view.lines.offset(params.position),
+          ctx.figures(uri),
+          ctx.scheduler.current(uri),
+          ctx.settings().displayUnits,
+        );
       }),
     );
   },

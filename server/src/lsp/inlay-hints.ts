@@ -9,7 +9,8 @@ import type { Figure, PartReadout } from "../checks/readout";
 /** The figure most worth a glance for a part without a safety factor: a payload's hand force, a
  * spring's force, else the first the checks give. */
 function keyFigure(readout: PartReadout): Figure | undefined {
-  const preferred = readout.kind === "payload" ? /hand force/i : readout.kind === "spring" ? /force/i : undefined;
+  const preferred =
+    readout.kind === "payload" ? /hand force/i : readout.kind === "spring" ? /force/i : undefined;
   return (preferred && readout.figures.find((f) => preferred.test(f.label))) || readout.figures[0];
 }
 
@@ -45,8 +46,16 @@ export const inlayHintsFeature: ServerFeature = {
           const position = view.lines.position(d.bodySpan.start + 1);
           if (position.line !== line) continue;
           if (line < params.range.start.line || line > params.range.end.line) continue;
-          const tooltip = readout.worstSafety ? `${readout.worstSafety.what}${readout.worstSafety.where ? `, ${readout.worstSafety.where}` : ""}` : undefined;
-          hints.push({ position, label, kind: InlayHintKind.Parameter, paddingLeft: true, ...(tooltip ? { tooltip } : {}) });
+          const tooltip = readout.worstSafety
+            ? `${readout.worstSafety.what}${readout.worstSafety.where ? `, ${readout.worstSafety.where}` : ""}`
+            : undefined;
+          hints.push({
+            position,
+            label,
+            kind: InlayHintKind.Parameter,
+            paddingLeft: true,
+            ...(tooltip ? { tooltip } : {}),
+          });
         }
         return hints;
       }),

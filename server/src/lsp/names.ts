@@ -8,7 +8,8 @@ import type { Span } from "../syntax/span";
 import type { SymbolTable } from "../model/symbols";
 import { HEAD_POINTS } from "../model/build-parts";
 
-export type NameKind = "material" | "base" | "link" | "joint" | "parallelogram" | "spring" | "payload" | "bar" | "head" | "point";
+export type NameKind =
+  "material" | "base" | "link" | "joint" | "parallelogram" | "spring" | "payload" | "bar" | "head" | "point";
 
 export interface NameSymbol {
   /** Model id: a declaration's name, `reach.lower` for generated bodies, `body.point` for points. */
@@ -43,7 +44,15 @@ export interface NameIndex {
 }
 
 const BODY_KINDS: ReadonlySet<NameKind> = new Set<NameKind>(["base", "link", "bar", "head"]);
-const DECLARED_KINDS: ReadonlySet<string> = new Set(["material", "base", "link", "joint", "parallelogram", "spring", "payload"]);
+const DECLARED_KINDS: ReadonlySet<string> = new Set([
+  "material",
+  "base",
+  "link",
+  "joint",
+  "parallelogram",
+  "spring",
+  "payload",
+]);
 export const PARALLELOGRAM_PARTS = ["lower", "upper", "head"] as const;
 export const SECTION_SHAPES: ReadonlySet<string> = new Set(["rect", "tube", "rod"]);
 /** Words that join the parts of a property (`connects A to B`, `between A and B`, `... at P`). */
@@ -77,7 +86,8 @@ function referenceRole(keyword: string, key: string): (ref: ReferenceNode, posit
     case "bars":
       return (r) => (r.parts.length === 1 && SECTION_SHAPES.has(r.parts[0]!.text) ? "none" : "material");
     case "point":
-      return (_r, position) => (position === 0 && (keyword === "base" || keyword === "link") ? "point-declaration" : "none");
+      return (_r, position) =>
+        position === 0 && (keyword === "base" || keyword === "link") ? "point-declaration" : "none";
     default:
       return () => "none";
   }
@@ -87,7 +97,10 @@ function isConnective(r: ReferenceNode): boolean {
   return r.parts.length === 1 && CONNECTIVES.has(r.parts[0]!.text);
 }
 
-function forEachReference(property: PropertyNode, visit: (ref: ReferenceNode, position: number) => void): void {
+function forEachReference(
+  property: PropertyNode,
+  visit: (ref: ReferenceNode, position: number) => void,
+): void {
   property.values.forEach((v: ValueNode, i) => {
     if (v.kind === "reference") visit(v, i);
   });
@@ -109,20 +122,35 @@ export function buildNameIndex(tree: SyntaxTree, builtinMaterials: readonly stri
     return s;
   };
 
-  for (const name of builtinMaterials) addSymbol({ id: name, kind: "material", name, builtin: true, renameable: false });
+  for (const name of builtinMaterials)
+    addSymbol({ id: name, kind: "material", name, builtin: true, renameable: false });
 
   // Declarations first, so that references may point forward.
   for (const decl of declarations) {
     const keyword = decl.keyword.text;
     if (!decl.name || !DECLARED_KINDS.has(keyword)) continue;
     const id = decl.name.text;
-    const declared = { nameSpan: decl.name.span, declarationSpan: decl.span, builtin: false, renameable: true };
+    const declared = {
+      nameSpan: decl.name.span,
+      declarationSpan: decl.span,
+      builtin: false,
+      renameable: true,
+    };
     if (symbols.get(id)?.builtin) symbols.delete(id); // the arm's own material shadows the library's
     addSymbol({ id, kind: keyword as NameKind, name: id, ...declared });
     occurrences.push({ symbolId: id, span: decl.name.span, declaration: true });
     if (keyword === "parallelogram") {
       for (const part of PARALLELOGRAM_PARTS) {
-        addSymbol({ id: `${id}.${part}`, kind: part === "head" ? "head" : "bar", name: part, nameSpan: decl.name.span, declarationSpan: decl.span, builtin: false, parent: id, renameable: false });
+        addSymbol({
+          id: `${id}.${part}`,
+          kind: part === "head" ? "head" : "bar",
+          name: part,
+          nameSpan: decl.name.span,
+          declarationSpan: decl.span,
+          builtin: false,
+          parent: id,
+          renameable: false,
+        });
       }
       for (const bar of ["lower", "upper"]) addEndPoints(addSymbol, `${id}.${bar}`);
       addEndPoints(addSymbol, `${id}.head`, HEAD_POINT_NAMES);
@@ -141,7 +169,16 @@ export function buildNameIndex(tree: SyntaxTree, builtinMaterials: readonly stri
       const id = `${decl.name.text}.${name.text}`;
       const existing = symbols.get(id);
       if (existing?.builtin) symbols.delete(id); // `point end (...)` redefines the built-in end
-      addSymbol({ id, kind: "point", name: name.text, nameSpan: name.span, declarationSpan: p.span, builtin: false, parent: decl.name.text, renameable: true });
+      addSymbol({
+        id,
+        kind: "point",
+        name: name.text,
+        nameSpan: name.span,
+        declarationSpan: p.span,
+        builtin: false,
+        parent: decl.name.text,
+        renameable: true,
+      });
       occurrences.push({ symbolId: id, span: name.span, declaration: true });
     }
   }
@@ -162,7 +199,10 @@ export function buildNameIndex(tree: SyntaxTree, builtinMaterials: readonly stri
 }
 
 /** The index from the model builder's own symbol table (the authority when it is of this text). */
-export function nameIndexFromSymbols(table: SymbolTable, builtinMaterials: readonly string[] = []): NameIndex {
+export function nameIndexFromSymbols(
+  table: SymbolTable,
+  builtinMaterials: readonly string[] = [],
+): NameIndex {
   const symbols = new Map<string, NameSymbol>();
   const occurrences: Occurrence[] = [];
   const bodies = new Set<string>();
@@ -186,8 +226,12 @@ export function nameIndexFromSymbols(table: SymbolTable, builtinMaterials: reado
     if (BODY_KINDS.has(kind)) bodies.add(d.id);
     if (!implicit) occurrences.push({ symbolId: d.id, span: d.nameSpan, declaration: true });
   }
-  for (const name of builtinMaterials) if (!symbols.has(name)) symbols.set(name, { id: name, kind: "material", name, builtin: true, renameable: false });
-  for (const r of table.references) if (symbols.has(r.target.id)) occurrences.push({ symbolId: r.target.id, span: r.span, declaration: false });
+  for (const name of builtinMaterials)
+    if (!symbols.has(name))
+      symbols.set(name, { id: name, kind: "material", name, builtin: true, renameable: false });
+  for (const r of table.references)
+    if (symbols.has(r.target.id))
+      occurrences.push({ symbolId: r.target.id, span: r.span, declaration: false });
   occurrences.sort((a, b) => a.span.start - b.span.start);
   return { symbols, occurrences, bodies };
 }
@@ -202,13 +246,28 @@ export function mergeNameIndexes(primary: NameIndex, secondary: NameIndex): Name
   const symbols = new Map(primary.symbols);
   for (const [id, sym] of secondary.symbols) if (!symbols.has(id)) symbols.set(id, sym);
   const taken = new Set(primary.occurrences.map((o) => o.span.start));
-  const occurrences = [...primary.occurrences, ...secondary.occurrences.filter((o) => !taken.has(o.span.start))];
+  const occurrences = [
+    ...primary.occurrences,
+    ...secondary.occurrences.filter((o) => !taken.has(o.span.start)),
+  ];
   occurrences.sort((a, b) => a.span.start - b.span.start);
   return { symbols, occurrences, bodies: new Set([...primary.bodies, ...secondary.bodies]) };
 }
 
-function addEndPoints(addSymbol: (s: NameSymbol) => NameSymbol, bodyId: string, names: readonly string[] = END_POINTS): void {
-  for (const name of names) addSymbol({ id: `${bodyId}.${name}`, kind: "point", name, builtin: true, parent: bodyId, renameable: false });
+function addEndPoints(
+  addSymbol: (s: NameSymbol) => NameSymbol,
+  bodyId: string,
+  names: readonly string[] = END_POINTS,
+): void {
+  for (const name of names)
+    addSymbol({
+      id: `${bodyId}.${name}`,
+      kind: "point",
+      name,
+      builtin: true,
+      parent: bodyId,
+      renameable: false,
+    });
 }
 
 /** Where the body part of a dotted reference ends: the longest prefix naming a body. */

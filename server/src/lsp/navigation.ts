@@ -1,6 +1,15 @@
 // Go to definition, find references, highlights and rename, over the name index of the current
 // text. Renaming a parallelogram renames the prefix of `reach.lower` too (it is the same word).
-import { ResponseError, ErrorCodes, type Location, type Range, type TextEdit, type WorkspaceEdit, type DocumentHighlight, DocumentHighlightKind } from "vscode-languageserver";
+import {
+  ResponseError,
+  ErrorCodes,
+  type Location,
+  type Range,
+  type TextEdit,
+  type WorkspaceEdit,
+  type DocumentHighlight,
+  DocumentHighlightKind,
+} from "vscode-languageserver";
 import type { ServerFeature } from "./context";
 import { spanToRange } from "./convert";
 import { IDENTIFIER, occurrenceAt, occurrencesOf, type NameSymbol } from "./names";
@@ -23,17 +32,43 @@ function definitionSpan(view: SyntaxView, symbol: NameSymbol) {
 }
 
 /** Words a new name may not be: declaration keywords and the words the grammar reads by position. */
-const RESERVED = new Set(["arm", "to", "and", "at", "x", "rect", "tube", "rod", "on", "off", "single", "double", "fixed", "yaw", "extension", "zero_length", "elastic", "gas", "torsion"]);
+const RESERVED = new Set([
+  "arm",
+  "to",
+  "and",
+  "at",
+  "x",
+  "rect",
+  "tube",
+  "rod",
+  "on",
+  "off",
+  "single",
+  "double",
+  "fixed",
+  "yaw",
+  "extension",
+  "zero_length",
+  "elastic",
+  "gas",
+  "torsion",
+]);
 
 function renameEdits(view: SyntaxView, symbol: NameSymbol, newName: string): TextEdit[] {
   if (!IDENTIFIER.test(newName) || RESERVED.has(newName) || DECLARATIONS.some((d) => d.keyword === newName)) {
-    throw new ResponseError(ErrorCodes.InvalidParams, `"${newName}" cannot be a name: use letters, digits and _ (not a keyword), starting with a letter or _.`);
+    throw new ResponseError(
+      ErrorCodes.InvalidParams,
+      `"${newName}" cannot be a name: use letters, digits and _ (not a keyword), starting with a letter or _.`,
+    );
   }
   const clashId = symbol.parent && symbol.kind === "point" ? `${symbol.parent}.${newName}` : newName;
   if (newName !== symbol.name && view.names.symbols.has(clashId)) {
     throw new ResponseError(ErrorCodes.InvalidParams, `"${newName}" is already a name in this arm.`);
   }
-  return occurrencesOf(view.names, symbol.id).map((o) => ({ range: spanToRange(view.lines, o.span), newText: newName }));
+  return occurrencesOf(view.names, symbol.id).map((o) => ({
+    range: spanToRange(view.lines, o.span),
+    newText: newName,
+  }));
 }
 
 export const navigationFeature: ServerFeature = {
@@ -97,7 +132,9 @@ export const navigationFeature: ServerFeature = {
         if (!view) return null;
         const hit = symbolAt(view, view.lines.offset(params.position));
         if (!hit || !hit.symbol.renameable) return null;
-        const edit: WorkspaceEdit = { changes: { [view.uri]: renameEdits(view, hit.symbol, params.newName) } };
+        const edit: WorkspaceEdit = {
+          changes: { [view.uri]: renameEdits(view, hit.symbol, params.newName) },
+        };
         return edit;
       } catch (err) {
         if (err instanceof ResponseError) return err;

@@ -29,11 +29,16 @@ export const previewFeature: ServerFeature = {
       guarded("arm view", null as ArmViewResult, async (params: ArmViewParams): Promise<ArmViewResult> => {
         const doc = params?.uri ? ctx.documents.get(params.uri) : undefined;
         if (!doc) return null;
-        const current: Analysis | undefined = await within(ctx.scheduler.whenAnalysed(doc.uri, doc.version), WAIT_FOR_CURRENT_MS);
-        const analysis = current?.model ? current : ctx.scheduler.latest(doc.uri) ?? current;
+        const current: Analysis | undefined = await within(
+          ctx.scheduler.whenAnalysed(doc.uri, doc.version),
+          WAIT_FOR_CURRENT_MS,
+        );
+        const analysis = current?.model ? current : (ctx.scheduler.latest(doc.uri) ?? current);
         if (!analysis) return null;
         const vm = buildViewModel(analysis, { units: ctx.settings().displayUnits });
-        if (analysis.text !== doc.getText()) vm.staleNote = "Showing the last text that described an arm; the current text does not build one yet.";
+        if (analysis.text !== doc.getText())
+          vm.staleNote =
+            "Showing the last text that described an arm; the current text does not build one yet.";
         return vm;
       }),
     );

@@ -97,7 +97,8 @@ export class WorkerRunner implements AnalysisRunner {
     worker.on("exit", () => {
       if (this.worker !== worker) return;
       this.worker = undefined;
-      if (this.current) this.finish(this.current, { kind: "failed", message: "the analysis worker stopped" }, false);
+      if (this.current)
+        this.finish(this.current, { kind: "failed", message: "the analysis worker stopped" }, false);
     });
     this.worker = worker;
     return worker;
@@ -127,7 +128,13 @@ export class WorkerRunner implements AnalysisRunner {
     const job = this.current;
     if (!job || job.id !== reply.id) return; // a reply for a run already given up on
     this.faults = 0;
-    this.finish(job, "analysis" in reply ? { kind: "done", analysis: reply.analysis } : { kind: "failed", message: reply.error }, false);
+    this.finish(
+      job,
+      "analysis" in reply
+        ? { kind: "done", analysis: reply.analysis }
+        : { kind: "failed", message: reply.error },
+      false,
+    );
   }
 
   /** Settles a job once; a job stopped while running takes the worker down with it. */

@@ -162,7 +162,10 @@ export class AnalysisScheduler {
       this.stopIfStale(entry, false);
       if (entry.running) {
         const startedAt = entry.running.handle.started();
-        const wait = startedAt === undefined ? STALE_RUN_GRACE_MS : STALE_RUN_GRACE_MS - (performance.now() - startedAt) + 1;
+        const wait =
+          startedAt === undefined
+            ? STALE_RUN_GRACE_MS
+            : STALE_RUN_GRACE_MS - (performance.now() - startedAt) + 1;
         entry.debounce = setTimeout(() => this.safeStart(entry), Math.max(1, wait));
         return;
       }
@@ -179,7 +182,12 @@ export class AnalysisScheduler {
       if (outcome.kind === "cancelled") return this.startIfBehind(entry);
       let analysis: Analysis;
       if (outcome.kind === "done") analysis = outcome.analysis;
-      else analysis = await this.fallbackAnalysis(entry.text, outcome.kind === "timeout" ? hardLimit : undefined, outcome.kind === "failed" ? outcome.message : undefined);
+      else
+        analysis = await this.fallbackAnalysis(
+          entry.text,
+          outcome.kind === "timeout" ? hardLimit : undefined,
+          outcome.kind === "failed" ? outcome.message : undefined,
+        );
       if (this.docs.get(entry.uri) !== entry) return;
       if (entry.version !== version) return this.startIfBehind(entry); // stale: drop it
       this.accept(entry, version, density, analysis);
@@ -201,20 +209,31 @@ export class AnalysisScheduler {
     if (density === "typing" && this.settings().stepsWhileTyping > 0) {
       entry.idle = setTimeout(() => {
         entry.idle = undefined;
-        if (entry.version === version && this.docs.get(entry.uri) === entry) this.update(entry.uri, version, entry.text, "full", true);
+        if (entry.version === version && this.docs.get(entry.uri) === entry)
+          this.update(entry.uri, version, entry.text, "full", true);
       }, IDLE_FULL_RUN_MS);
     }
   }
 
   /** After a run timed out or failed: the syntax and model findings at least, from a model-only
    * run under its own hard limit, plus a finding that says what happened. */
-  private async fallbackAnalysis(text: string, timedOutAfterMs: number | undefined, failure: string | undefined): Promise<Analysis> {
+  private async fallbackAnalysis(
+    text: string,
+    timedOutAfterMs: number | undefined,
+    failure: string | undefined,
+  ): Promise<Analysis> {
     const limit = this.settings().analysisBudgetMs + HARD_LIMIT_MARGIN_MS;
     const outcome = await this.runner.run(text, { modelOnly: true }, limit).outcome;
     const base: Analysis =
       outcome.kind === "done"
         ? outcome.analysis
-        : { text, tree: emptyTree(), findings: [], readouts: {}, timings: { parse: 0, model: 0, solve: 0, checks: 0 } };
+        : {
+            text,
+            tree: emptyTree(),
+            findings: [],
+            readouts: {},
+            timings: { parse: 0, model: 0, solve: 0, checks: 0 },
+          };
     const message =
       timedOutAfterMs !== undefined
         ? `The analysis was stopped after ${Math.round(timedOutAfterMs)} ms; only the text and model were checked. Raise counterpoise.analysisBudgetMs or lower the sweep steps.`

@@ -10,11 +10,27 @@ import { guarded } from "./safe";
 import type { SyntaxView } from "./syntax-view";
 import { allQuantities } from "./tree-walk";
 
-export const TOKEN_TYPES = ["keyword", "property", "number", "string", "unit", "class", "struct", "function", "event", "variable", "type", "enumMember"] as const;
+export const TOKEN_TYPES = [
+  "keyword",
+  "property",
+  "number",
+  "string",
+  "unit",
+  "class",
+  "struct",
+  "function",
+  "event",
+  "variable",
+  "type",
+  "enumMember",
+] as const;
 export const TOKEN_MODIFIERS = ["declaration", "defaultLibrary"] as const;
 type TokenType = (typeof TOKEN_TYPES)[number];
 
-export const LEGEND: SemanticTokensLegend = { tokenTypes: [...TOKEN_TYPES], tokenModifiers: [...TOKEN_MODIFIERS] };
+export const LEGEND: SemanticTokensLegend = {
+  tokenTypes: [...TOKEN_TYPES],
+  tokenModifiers: [...TOKEN_MODIFIERS],
+};
 
 const TYPE_OF_NAME: Record<NameKind, TokenType> = {
   base: "class",
@@ -74,7 +90,13 @@ export function semanticTokens(view: SyntaxView): SemanticTokens {
     const start = view.lines.position(t.span.start);
     const end = view.lines.position(t.span.end);
     if (end.line !== start.line) continue; // tokens never span lines in this language but a string might
-    builder.push(start.line, start.character, end.character - start.character, TOKEN_TYPES.indexOf(t.type), t.modifiers);
+    builder.push(
+      start.line,
+      start.character,
+      end.character - start.character,
+      TOKEN_TYPES.indexOf(t.type),
+      t.modifiers,
+    );
     lastEnd = t.span.end;
   }
   return builder.build();

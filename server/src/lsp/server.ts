@@ -69,8 +69,12 @@ export function startServer(connection: Connection): void {
     if (!doc || doc.version !== version) return; // the text moved on: a newer run will publish
     const diagnostics = findingsToDiagnostics(analysis.findings, analysis.text, uri);
     void connection.sendDiagnostics({ uri, version, diagnostics });
-    void connection.sendNotification(SPEC_SUMMARY_NOTIFICATION, specSummary(uri, version, analysis, settings));
-    if (client.workspace?.inlayHint?.refreshSupport) void connection.languages.inlayHint.refresh().catch(() => undefined);
+    void connection.sendNotification(
+      SPEC_SUMMARY_NOTIFICATION,
+      specSummary(uri, version, analysis, settings),
+    );
+    if (client.workspace?.inlayHint?.refreshSupport)
+      void connection.languages.inlayHint.refresh().catch(() => undefined);
   }
 
   async function pullSettings(): Promise<void> {
@@ -83,29 +87,33 @@ export function startServer(connection: Connection): void {
     }
   }
 
-  connection.onInitialize(
-    (params): InitializeResult => {
-      client = params.capabilities ?? {};
-      const init = params.initializationOptions as Record<string, unknown> | undefined;
-      if (init) settings = readSettings(init["settings"] ?? init);
-      let capabilities: ServerCapabilities = {
-        textDocumentSync: { openClose: true, change: TextDocumentSyncKind.Incremental, save: { includeText: false } },
-      };
-      for (const feature of FEATURES) {
-        try {
-          capabilities = { ...capabilities, ...feature.capabilities(client) };
-        } catch (err) {
-          log(`Counterpoise: feature ${feature.name} could not state its capabilities: ${String(err)}`);
-        }
+  connection.onInitialize((params): InitializeResult => {
+    client = params.capabilities ?? {};
+    const init = params.initializationOptions as Record<string, unknown> | undefined;
+    if (init) settings = readSettings(init["settings"] ?? init);
+    let capabilities: ServerCapabilities = {
+      textDocumentSync: {
+        openClose: true,
+        change: TextDocumentSyncKind.Incremental,
+        save: { includeText: false },
+      },
+    };
+    for (const feature of FEATURES) {
+      try {
+        capabilities = { ...capabilities, ...feature.capabilities(client) };
+      } catch (err) {
+        log(`Counterpoise: feature ${feature.name} could not state its capabilities: ${String(err)}`);
       }
-      return { capabilities, serverInfo: { name: SERVER_NAME, version: SERVER_VERSION } };
-    },
-  );
+    }
+    return { capabilities, serverInfo: { name: SERVER_NAME, version: SERVER_VERSION } };
+  });
 
   connection.onInitialized(
     guarded("initialized", undefined, async () => {
       if (client.workspace?.didChangeConfiguration?.dynamicRegistration) {
-        await connection.client.register(DidChangeConfigurationNotification.type, { section: "counterpoise" });
+        await connection.client.register(DidChangeConfigurationNotification.type, {
+          section: "counterpoise",
+        });
       }
       await pullSettings();
     }),

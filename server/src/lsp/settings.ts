@@ -43,10 +43,16 @@ export function readSettings(raw: unknown): Settings {
   }
   const d = DEFAULT_SETTINGS;
   return {
-    displayUnits: section["displayUnits"] === "us" ? "us" : section["displayUnits"] === "si" ? "si" : d.displayUnits,
+    displayUnits:
+      section["displayUnits"] === "us" ? "us" : section["displayUnits"] === "si" ? "si" : d.displayUnits,
     stepsWhileTyping: clampInt(section["stepsWhileTyping"], LIMITS.stepsWhileTyping, d.stepsWhileTyping),
-    diagnosticsDelayMs: clampInt(section["diagnosticsDelayMs"], LIMITS.diagnosticsDelayMs, d.diagnosticsDelayMs),
-    inlayHints: typeof section["inlayHints"] === "boolean" ? (section["inlayHints"] as boolean) : d.inlayHints,
+    diagnosticsDelayMs: clampInt(
+      section["diagnosticsDelayMs"],
+      LIMITS.diagnosticsDelayMs,
+      d.diagnosticsDelayMs,
+    ),
+    inlayHints:
+      typeof section["inlayHints"] === "boolean" ? (section["inlayHints"] as boolean) : d.inlayHints,
     analysisBudgetMs: clampInt(section["analysisBudgetMs"], LIMITS.analysisBudgetMs, d.analysisBudgetMs),
   };
 }

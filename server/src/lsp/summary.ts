@@ -22,12 +22,18 @@ export function worstSafety(analysis: Analysis): { value: number; part: string; 
   let worst: { value: number; part: string; what: string } | undefined;
   for (const r of Object.values(analysis.readouts)) {
     const s = r.worstSafety;
-    if (s && Number.isFinite(s.value) && (!worst || s.value < worst.value)) worst = { value: s.value, part: r.id, what: s.what };
+    if (s && Number.isFinite(s.value) && (!worst || s.value < worst.value))
+      worst = { value: s.value, part: r.id, what: s.what };
   }
   return worst;
 }
 
-export function specSummary(uri: string, version: number, analysis: Analysis, settings: Settings): SpecSummary {
+export function specSummary(
+  uri: string,
+  version: number,
+  analysis: Analysis,
+  settings: Settings,
+): SpecSummary {
   const errors = analysis.findings.filter((f) => f.severity === "error").length;
   const warnings = analysis.findings.filter((f) => f.severity === "warning").length;
   const hand = worstHandForce(analysis);
@@ -37,19 +43,27 @@ export function specSummary(uri: string, version: number, analysis: Analysis, se
   const tips: string[] = [];
   const summary: SpecSummary = { uri, version, text: "", tooltip: "", errors, warnings };
   if (hand) {
-    const limit = model ? (model.require.balance.byPayload[hand.payload] ?? model.require.balance.default) : REQUIREMENT_DEFAULTS.balanceN;
+    const limit = model
+      ? (model.require.balance.byPayload[hand.payload] ?? model.require.balance.default)
+      : REQUIREMENT_DEFAULTS.balanceN;
     summary.worstHandForce = { ...hand, limitN: limit };
     const shown = formatQuantity(hand.valueN, "force", settings.displayUnits);
     parts.push(`hand ${shown}`);
-    tips.push(`Worst hand force: ${shown} at ${hand.payload} (limit ${formatQuantity(limit, "force", settings.displayUnits)})`);
+    tips.push(
+      `Worst hand force: ${shown} at ${hand.payload} (limit ${formatQuantity(limit, "force", settings.displayUnits)})`,
+    );
   }
   if (safety) {
     // Tipping has its own requirement; every other safety factor answers to `require safety`.
     const tipping = /tipping/i.test(safety.what);
-    const limit = tipping ? (model?.require.tipping ?? REQUIREMENT_DEFAULTS.tipping) : (model?.require.safety ?? REQUIREMENT_DEFAULTS.safety);
+    const limit = tipping
+      ? (model?.require.tipping ?? REQUIREMENT_DEFAULTS.tipping)
+      : (model?.require.safety ?? REQUIREMENT_DEFAULTS.safety);
     summary.worstSafety = { ...safety, limit };
     parts.push(`safety ${formatNumber(safety.value)}`);
-    tips.push(`Least safety factor: ${formatNumber(safety.value)} (${safety.part}, ${safety.what}; required ${formatNumber(limit)})`);
+    tips.push(
+      `Least safety factor: ${formatNumber(safety.value)} (${safety.part}, ${safety.what}; required ${formatNumber(limit)})`,
+    );
   }
   if (!model) parts.push("no model");
   tips.push(`${errors} error${errors === 1 ? "" : "s"}, ${warnings} warning${warnings === 1 ? "" : "s"}`);

@@ -26,12 +26,17 @@ export class SyntaxViews {
   /** `builtinMaterials` are the library's names; `analysed` is the current analysis: when it is
    * of this very text its tree serves (a large spec is not parsed twice) and its symbol table
    * names things, as the model builder resolved them. */
-  view(doc: TextDocument, builtinMaterials: readonly string[], analysed?: Pick<Analysis, "text" | "tree" | "symbols">): SyntaxView {
+  view(
+    doc: TextDocument,
+    builtinMaterials: readonly string[],
+    analysed?: Pick<Analysis, "text" | "tree" | "symbols">,
+  ): SyntaxView {
     const key = builtinMaterials.join(",");
     const hit = this.cache.get(doc.uri);
     const text = doc.getText();
     const fromModel = !!analysed?.symbols && analysed.text === text;
-    if (hit && hit.view.version === doc.version && hit.materialsKey === key && (hit.fromModel || !fromModel)) return hit.view;
+    if (hit && hit.view.version === doc.version && hit.materialsKey === key && (hit.fromModel || !fromModel))
+      return hit.view;
     let tree: SyntaxTree;
     try {
       if (hit && hit.view.version === doc.version) tree = hit.view.tree;
@@ -41,8 +46,17 @@ export class SyntaxViews {
       tree = EMPTY_TREE; // parsing never fails by contract; this guards a broken parser
     }
     const fromTree = buildNameIndex(tree, builtinMaterials);
-    const names = fromModel ? mergeNameIndexes(nameIndexFromSymbols(analysed!.symbols!, builtinMaterials), fromTree) : fromTree;
-    const view: SyntaxView = { uri: doc.uri, version: doc.version, text, tree, lines: new LineIndex(text), names };
+    const names = fromModel
+      ? mergeNameIndexes(nameIndexFromSymbols(analysed!.symbols!, builtinMaterials), fromTree)
+      : fromTree;
+    const view: SyntaxView = {
+      uri: doc.uri,
+      version: doc.version,
+      text,
+      tree,
+      lines: new LineIndex(text),
+      names,
+    };
     this.cache.set(doc.uri, { view, materialsKey: key, fromModel });
     return view;
   }

@@ -22,11 +22,23 @@ interface SweepShape {
 /** Degrees of freedom (joints and parallelograms with a `range`, not `fixed`), the spec's steps
  * and whether it sweeps the grid, read from the syntax tree. */
 export function sweepShape(tree: SyntaxTree): SweepShape {
-  const shape: SweepShape = { dofs: 0, bodies: 0, steps: SWEEP_DEFAULTS.steps, grid: SWEEP_DEFAULTS.grid, loadCases: 1 };
+  const shape: SweepShape = {
+    dofs: 0,
+    bodies: 0,
+    steps: SWEEP_DEFAULTS.steps,
+    grid: SWEEP_DEFAULTS.grid,
+    loadCases: 1,
+  };
   for (const d of tree.arms[0]?.declarations ?? []) {
     const keys = new Set(d.properties.map((p) => p.key.text));
-    shape.bodies += d.keyword.text === "parallelogram" ? 3 : d.keyword.text === "link" || d.keyword.text === "base" ? 1 : 0;
-    if ((d.keyword.text === "joint" || d.keyword.text === "parallelogram") && keys.has("range") && !keys.has("fixed")) shape.dofs++;
+    shape.bodies +=
+      d.keyword.text === "parallelogram" ? 3 : d.keyword.text === "link" || d.keyword.text === "base" ? 1 : 0;
+    if (
+      (d.keyword.text === "joint" || d.keyword.text === "parallelogram") &&
+      keys.has("range") &&
+      !keys.has("fixed")
+    )
+      shape.dofs++;
     if (d.keyword.text === "payload" && keys.has("range")) shape.loadCases += 2;
     if (d.keyword.text !== "sweep") continue;
     for (const p of d.properties) {

@@ -7,7 +7,8 @@ import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/type
 import type { Pose, SweepResult } from "./types";
 import type { BeamPointLoad } from "./structure/beam";
 
-export type LoadKind = "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
+export type LoadKind =
+  "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
 
 export interface AppliedLoad {
   kind: LoadKind;
@@ -41,7 +42,13 @@ function push<T>(map: Map<string, T[]>, key: string, value: T): void {
 function bodyIndex(model: ArmModel): BodyIndex {
   let ix = indexes.get(model);
   if (ix) return ix;
-  ix = { bodies: new Map(model.bodies.map((b) => [b.id, b])), payloads: new Map(), springEnds: new Map(), torsions: new Map(), joints: new Map() };
+  ix = {
+    bodies: new Map(model.bodies.map((b) => [b.id, b])),
+    payloads: new Map(),
+    springEnds: new Map(),
+    torsions: new Map(),
+    joints: new Map(),
+  };
   for (const p of model.payloads) push(ix.payloads, p.body, p);
   const jointsById = new Map(model.joints.map((j) => [j.id, j]));
   for (const s of model.springs) {
@@ -74,7 +81,13 @@ export function worldPoint(pose: Pose, bodyId: string, localPoint: Vec2, model: 
   return { x: bp.x + c * localPoint.x - s * localPoint.y, y: bp.y + s * localPoint.x + c * localPoint.y };
 }
 
-export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" | "dofs">, pose: Pose, caseIndex: number, bodyId: string): AppliedLoad[] {
+export function bodyLoads(
+  model: ArmModel,
+  sweep: Pick<SweepResult, "loadCases" | "dofs">,
+  pose: Pose,
+  caseIndex: number,
+  bodyId: string,
+): AppliedLoad[] {
   const loads: AppliedLoad[] = [];
   const statics = pose.cases[caseIndex];
   const loadCase = sweep.loadCases[caseIndex];
@@ -84,13 +97,20 @@ export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" 
   const zero = { x: 0, y: 0 };
   const body = ix.bodies.get(bodyId);
   if (body && body.mass !== 0 && body.kind !== "base") {
-    loads.push({ kind: "gravity", id: body.id, point: worldPoint(pose, bodyId, body.centreOfMass, model), force: { x: 0, y: -body.mass * g }, couple: 0 });
+    loads.push({
+      kind: "gravity",
+      id: body.id,
+      point: worldPoint(pose, bodyId, body.centreOfMass, model),
+      force: { x: 0, y: -body.mass * g },
+      couple: 0,
+    });
   }
   for (const p of ix.payloads.get(bodyId) ?? []) {
     const at = worldPoint(pose, bodyId, p.point, model);
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     loads.push({ kind: "payload", id: p.id, point: at, force: { x: 0, y: -mass * g }, couple: 0 });
-    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) loads.push({ kind: "payload-force", id: p.id, point: at, force: { ...p.force }, couple: 0 });
+    if (p.force && (p.force.x !== 0 || p.force.y !== 0))
+      loads.push({ kind: "payload-force", id: p.id, point: at, force: { ...p.force }, couple: 0 });
   }
   for (const t of ix.torsions.get(bodyId) ?? []) {
     const state = pose.springs[t.spring.id];
@@ -103,18 +123,35 @@ export function bodyLoads(model: ArmModel, sweep: Pick<SweepResult, "loadCases" 
     const state = pose.springs[s.id];
     const force = statics.springForce[s.id];
     if (!state || force === undefined || !hookForce(state, force, end, HOOK)) continue;
-    loads.push({ kind: "spring", id: s.id, point: end === "a" ? state.a : state.b, force: { x: HOOK.x, y: HOOK.y }, couple: 0 });
+    loads.push({
+      kind: "spring",
+      id: s.id,
+      point: end === "a" ? state.a : state.b,
+      force: { x: HOOK.x, y: HOOK.y },
+      couple: 0,
+    });
   }
   for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
     const r = statics.reactions[j.id];
     if (!r) continue;
-    const pivot = side === 1 ? worldPoint(pose, j.child, j.childPoint, model) : worldPoint(pose, j.parent, j.parentPoint, model);
-    loads.push({ kind: "reaction", id: j.id, point: pivot, force: { x: side * r.x, y: side * r.y }, couple: 0 });
+    const pivot =
+      side === 1
+        ? worldPoint(pose, j.child, j.childPoint, model)
+        : worldPoint(pose, j.parent, j.parentPoint, model);
+    loads.push({
+      kind: "reaction",
+      id: j.id,
+      point: pivot,
+      force: { x: side * r.x, y: side * r.y },
+      couple: 0,
+    });
     // A dof's id is its joint's id (conventions).
     const hold = statics.holdingTorque[j.id];
-    if (hold !== undefined && sweep.dofs.some((d) => d.jointId === j.id)) loads.push({ kind: "holding", id: j.id, point: pivot, force: zero, couple: side * hold });
+    if (hold !== undefined && sweep.dofs.some((d) => d.jointId === j.id))
+      loads.push({ kind: "holding", id: j.id, point: pivot, force: zero, couple: side * hold });
     const locked = statics.lockedTorque[j.id];
-    if (locked !== undefined) loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: side * locked });
+    if (locked !== undefined)
+      loads.push({ kind: "locked", id: j.id, point: pivot, force: zero, couple: side * locked });
   }
   return loads;
 }
@@ -150,7 +187,8 @@ export function localBeamLoads(
     const py = base ? ly : bp.y + s * lx + c * ly;
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     n = putLocalLoad(out, n, bp, c, s, px, py, 0, -mass * g, 0);
-    if (p.force && (p.force.x !== 0 || p.force.y !== 0)) n = putLocalLoad(out, n, bp, c, s, px, py, p.force.x, p.force.y, 0);
+    if (p.force && (p.force.x !== 0 || p.force.y !== 0))
+      n = putLocalLoad(out, n, bp, c, s, px, py, p.force.x, p.force.y, 0);
   }
   for (const t of ix.torsions.get(bodyId) ?? []) {
     const state = pose.springs[t.spring.id];
@@ -174,7 +212,8 @@ export function localBeamLoads(
     const py = base ? lp.y : bp.y + s * lp.x + c * lp.y;
     n = putLocalLoad(out, n, bp, c, s, px, py, side * r.x, side * r.y, 0);
     const hold = statics.holdingTorque[j.id];
-    if (hold !== undefined && dofJoints.has(j.id)) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * hold);
+    if (hold !== undefined && dofJoints.has(j.id))
+      n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * hold);
     const locked = statics.lockedTorque[j.id];
     if (locked !== undefined) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * locked);
   }
@@ -186,7 +225,12 @@ const HOOK = { x: 0, y: 0 };
 
 /** The force a spring of tension `force` puts on the body at its `end` hook (tension pulls each
  * hook toward the other), written into `out`; false when the hooks meet and it has no direction. */
-function hookForce(state: { a: Vec2; b: Vec2 }, force: number, end: "a" | "b", out: { x: number; y: number }): boolean {
+function hookForce(
+  state: { a: Vec2; b: Vec2 },
+  force: number,
+  end: "a" | "b",
+  out: { x: number; y: number },
+): boolean {
   const dx = state.b.x - state.a.x;
   const dy = state.b.y - state.a.y;
   const len = Math.hypot(dx, dy);
@@ -199,7 +243,18 @@ function hookForce(state: { a: Vec2; b: Vec2 }, force: number, end: "a" | "b", o
 }
 
 /** Writes one world load (at px, py) as a local beam load at out[n]; returns n + 1. */
-function putLocalLoad(out: BeamPointLoad[], n: number, bp: { x: number; y: number }, c: number, s: number, px: number, py: number, forceX: number, forceY: number, couple: number): number {
+function putLocalLoad(
+  out: BeamPointLoad[],
+  n: number,
+  bp: { x: number; y: number },
+  c: number,
+  s: number,
+  px: number,
+  py: number,
+  forceX: number,
+  forceY: number,
+  couple: number,
+): number {
   const dx = px - bp.x;
   const dy = py - bp.y;
   let l = out[n];

@@ -31,7 +31,12 @@ export interface ConstraintSet {
 
 export function createConstraintSet(
   bodyCount: number,
-  revolutes: { parent: number; child: number; parentPoint: { x: number; y: number }; childPoint: { x: number; y: number } }[],
+  revolutes: {
+    parent: number;
+    child: number;
+    parentPoint: { x: number; y: number };
+    childPoint: { x: number; y: number };
+  }[],
   drives: { parent: number; child: number; theta: number }[],
   rows: { kind: number; ref: number }[],
 ): ConstraintSet {

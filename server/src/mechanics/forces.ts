@@ -1,20 +1,38 @@
 // Force laws of the spring elements and how much each one pulls at a given length (or joint
 // angle). Tension is positive when it pulls the two hooks together; gas struts push (negative).
-import type { ArmModel, ElasticCord, ExtensionSpring, GasStrut, Spring, TorsionSpring, ZeroLengthSpring } from "../model/types";
+import type {
+  ArmModel,
+  ElasticCord,
+  ExtensionSpring,
+  GasStrut,
+  Spring,
+  TorsionSpring,
+  ZeroLengthSpring,
+} from "../model/types";
 
 /** Helical extension spring: F = Fi + k (L - L0) past its free length, slack (0) below it. */
-export function extensionSpringTension(s: Pick<ExtensionSpring, "rate" | "freeLength" | "initialTension">, length: number): number {
+export function extensionSpringTension(
+  s: Pick<ExtensionSpring, "rate" | "freeLength" | "initialTension">,
+  length: number,
+): number {
   return length > s.freeLength ? s.initialTension + s.rate * (length - s.freeLength) : 0;
 }
 
 /** Ideal zero-free-length spring: F = Fi + k L. */
-export function zeroLengthTension(s: Pick<ZeroLengthSpring, "rate" | "initialTension">, length: number): number {
+export function zeroLengthTension(
+  s: Pick<ZeroLengthSpring, "rate" | "initialTension">,
+  length: number,
+): number {
   return s.initialTension + s.rate * length;
 }
 
 /** Neo-Hookean cord in uniaxial tension: F = G A0 (s - s^-2), s = L / L0, slack below L0
  * (Treloar, The Physics of Rubber Elasticity, 3rd ed., 1975). */
-export function elasticCordTension(s: Pick<ElasticCord, "freeLength" | "area">, shearModulus: number, length: number): number {
+export function elasticCordTension(
+  s: Pick<ElasticCord, "freeLength" | "area">,
+  shearModulus: number,
+  length: number,
+): number {
   if (!(s.freeLength > 0) || length <= s.freeLength) return 0;
   const stretch = length / s.freeLength;
   return shearModulus * s.area * (stretch - 1 / (stretch * stretch));
@@ -22,13 +40,19 @@ export function elasticCordTension(s: Pick<ElasticCord, "freeLength" | "area">, 
 
 /** Stroke position of a gas strut: how far it is pushed in from full extension, clamped to
  * 0..stroke (outside it the strut is topped or bottomed out and its force stays at the end value). */
-export function gasStrutStrokePosition(s: Pick<GasStrut, "stroke" | "extendedLength">, length: number): number {
+export function gasStrutStrokePosition(
+  s: Pick<GasStrut, "stroke" | "extendedLength">,
+  length: number,
+): number {
   return Math.min(Math.max(s.extendedLength - length, 0), Math.max(s.stroke, 0));
 }
 
 /** Gas strut: pushes with a force linear in stroke position from `force` fully extended to
  * progression x force fully compressed. Returned as (negative) tension. */
-export function gasStrutTension(s: Pick<GasStrut, "force" | "progression" | "stroke" | "extendedLength">, length: number): number {
+export function gasStrutTension(
+  s: Pick<GasStrut, "force" | "progression" | "stroke" | "extendedLength">,
+  length: number,
+): number {
   const x = gasStrutStrokePosition(s, length);
   const fraction = s.stroke > 0 ? x / s.stroke : 0;
   return -s.force * (1 + (s.progression - 1) * fraction);
@@ -38,7 +62,11 @@ export function gasStrutTension(s: Pick<GasStrut, "force" | "progression" | "str
  * parent and -T to the child (CCW positive), so turning the child CCW winds it up and it pushes
  * back; a positive preload pushes the child counter-clockwise at the reference pose (it lifts a
  * child that reaches out to the right, as a counterbalance does). */
-export function torsionSpringTorque(s: Pick<TorsionSpring, "rate" | "preloadTorque">, jointAngle: number, referenceAngle: number): number {
+export function torsionSpringTorque(
+  s: Pick<TorsionSpring, "rate" | "preloadTorque">,
+  jointAngle: number,
+  referenceAngle: number,
+): number {
   return s.rate * (jointAngle - referenceAngle) - s.preloadTorque;
 }
 

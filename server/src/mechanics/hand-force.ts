@@ -20,7 +20,11 @@ export const HAND_FORCE_PINV_TOLERANCE = 1e-12;
  * finite; above it the force is exact. Common practice, the value has no source. */
 export const HAND_FORCE_DAMPING_FLOOR = 0.01;
 
-export function handForceVector(jacobian: ArrayLike<number>, holdingTorque: ArrayLike<number>, dofCount: number): Vec2 {
+export function handForceVector(
+  jacobian: ArrayLike<number>,
+  holdingTorque: ArrayLike<number>,
+  dofCount: number,
+): Vec2 {
   let a = 0;
   let b = 0;
   let c = 0;

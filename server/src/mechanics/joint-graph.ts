@@ -22,7 +22,9 @@ export function jointGraph(model: ArmModel): JointGraph | undefined {
   const base = model.bodies.find((b) => b.kind === "base");
   if (!base) return undefined;
   const known = new Set(model.bodies.map((b) => b.id));
-  const usable = model.joints.filter((j) => known.has(j.parent) && known.has(j.child) && j.parent !== j.child);
+  const usable = model.joints.filter(
+    (j) => known.has(j.parent) && known.has(j.child) && j.parent !== j.child,
+  );
   const incident = new Map<string, number[]>();
   usable.forEach((j, i) => {
     for (const id of [j.parent, j.child]) {
@@ -106,7 +108,12 @@ export function placeTree(graph: JointGraph, angles: Float64Array, q: Float64Arr
 }
 
 /** World position of a body's local point from q (base: local = world). */
-export function worldPointFromQ(q: Float64Array, body: number, x: number, y: number): { x: number; y: number } {
+export function worldPointFromQ(
+  q: Float64Array,
+  body: number,
+  x: number,
+  y: number,
+): { x: number; y: number } {
   if (body < 0) return { x, y };
   const phi = q[3 * body + 2]!;
   const c = Math.cos(phi);

@@ -4,7 +4,13 @@
 import type { ArmModel, Joint } from "../model/types";
 import type { Dof } from "./types";
 import { finding, type Finding } from "../checks/finding";
-import { createConstraintSet, ROW_DRIVE, ROW_REVOLUTE_X, ROW_REVOLUTE_Y, type ConstraintSet } from "./constraints";
+import {
+  createConstraintSet,
+  ROW_DRIVE,
+  ROW_REVOLUTE_X,
+  ROW_REVOLUTE_Y,
+  type ConstraintSet,
+} from "./constraints";
 import { jointGraph, type JointGraph } from "./joint-graph";
 import { referencePose, LOOP_ANGLE_TOLERANCE, LOOP_GAP_TOLERANCE } from "./reference-pose";
 import { formatAngle, formatLength } from "./format";
@@ -99,8 +105,11 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   for (const ji of treeFirst) {
     candidates.push({ kind: ROW_REVOLUTE_X, joint: ji }, { kind: ROW_REVOLUTE_Y, joint: ji });
   }
-  for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "fixed") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "fixed" });
-  for (let ji = 0; ji < nj; ji++) if (graph.joints[ji]!.mode === "range") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "dof" });
+  for (let ji = 0; ji < nj; ji++)
+    if (graph.joints[ji]!.mode === "fixed")
+      candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "fixed" });
+  for (let ji = 0; ji < nj; ji++)
+    if (graph.joints[ji]!.mode === "range") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "dof" });
 
   const rowVector = (kind: number, ji: number, q: Float64Array): Float64Array => {
     // One row of Phi_q at the reference pose, phi columns divided by the length scale and drive
@@ -171,7 +180,8 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     rows.push({ kind: ROW_DRIVE, ref: drives.length - 1 });
   };
   for (const c of candidates) {
-    const atGeneric = basisGeneric.length < n && independent(basisGeneric, rowVector(c.kind, c.joint, generic), true);
+    const atGeneric =
+      basisGeneric.length < n && independent(basisGeneric, rowVector(c.kind, c.joint, generic), true);
     const atReference = basisRef.length < n && independent(basisRef, rowVector(c.kind, c.joint, ref.q), true);
     if (!atReference) {
       if (atGeneric) deadPointAtReference = true;
@@ -207,22 +217,36 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   }
   if (rows.length < n && ok) {
     ok = false;
-    const first = graph.joints.filter((j) => j.mode === "range").sort((a, b) => a.origin.declaration.start - b.origin.declaration.start)[0] ?? graph.joints[0];
+    const first =
+      graph.joints
+        .filter((j) => j.mode === "range")
+        .sort((a, b) => a.origin.declaration.start - b.origin.declaration.start)[0] ?? graph.joints[0];
     findings.push(
       finding(
         "geometry.cannot-reach",
-        first ? (first.origin.properties["range"] ?? first.origin.name ?? first.origin.declaration) : model.span,
+        first
+          ? (first.origin.properties["range"] ?? first.origin.name ?? first.origin.declaration)
+          : model.span,
         `At its reference pose the linkage sits at a dead point${deadPointAtReference ? "" : " or cannot be solved"}: its pivots line up, so it could fold either way and cannot be moved from there; choose another reference angle.`,
         { data: { jointId: first?.id, deadPoint: true } },
       ),
     );
   }
 
-  const revolutes = graph.joints.map((j, i) => ({ parent: graph.parent[i]!, child: graph.child[i]!, parentPoint: j.parentPoint, childPoint: j.childPoint }));
+  const revolutes = graph.joints.map((j, i) => ({
+    parent: graph.parent[i]!,
+    child: graph.child[i]!,
+    parentPoint: j.parentPoint,
+    childPoint: j.childPoint,
+  }));
   const cs = createConstraintSet(nb, revolutes, drives, rows);
   // Degrees of freedom in the order the text declares them (the grid's slowest first).
   const dofDrives = driveKind.map((k, d) => (k === "dof" ? d : -1)).filter((d) => d >= 0);
-  dofDrives.sort((a, b) => graph.joints[driveJoint[a]!]!.origin.declaration.start - graph.joints[driveJoint[b]!]!.origin.declaration.start);
+  dofDrives.sort(
+    (a, b) =>
+      graph.joints[driveJoint[a]!]!.origin.declaration.start -
+      graph.joints[driveJoint[b]!]!.origin.declaration.start,
+  );
   const dofs: Dof[] = dofDrives.map((d) => {
     const j = graph.joints[driveJoint[d]!]!;
     const range: [number, number] = j.range ? [j.range[0], j.range[1]] : [j.angle, j.angle];

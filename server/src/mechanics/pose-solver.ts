@@ -133,7 +133,15 @@ export class PoseSolver {
       const a = idx.get(s.a.body);
       const b = idx.get(s.b.body);
       if (a === undefined || b === undefined) continue;
-      this.pointSprings.push({ spring: s, a, ax: s.a.point.x, ay: s.a.point.y, b, bx: s.b.point.x, by: s.b.point.y });
+      this.pointSprings.push({
+        spring: s,
+        a,
+        ax: s.a.point.x,
+        ay: s.a.point.y,
+        b,
+        bx: s.b.point.x,
+        by: s.b.point.y,
+      });
     }
   }
 
@@ -289,7 +297,8 @@ export class PoseSolver {
       }
       if (!converged) return false;
     }
-    for (let b = 0; b < cs.bodyCount; b++) if (Math.abs(q[3 * b + 2]! - this.qPredicted[3 * b + 2]!) > BRANCH_JUMP) return false;
+    for (let b = 0; b < cs.bodyCount; b++)
+      if (Math.abs(q[3 * b + 2]! - this.qPredicted[3 * b + 2]!) > BRANCH_JUMP) return false;
     updateAngles(cs, q);
     constraintJacobian(cs, this.jac);
     this.factorizations++;
@@ -308,7 +317,15 @@ export class PoseSolver {
     return { x: this.q[3 * body]! + c * x - s * y, y: this.q[3 * body + 1]! + s * x + c * y };
   }
 
-  private addForce(Q: Float64Array, body: number, x: number, y: number, fx: number, fy: number, scale = 1): void {
+  private addForce(
+    Q: Float64Array,
+    body: number,
+    x: number,
+    y: number,
+    fx: number,
+    fy: number,
+    scale = 1,
+  ): void {
     if (body < 0) return;
     const cs = this.linkage.cs;
     const c = cs.cos[body]!;
@@ -344,7 +361,9 @@ export class PoseSolver {
     const jointAngles: Record<string, number> = {};
     g.joints.forEach((j, i) => (jointAngles[j.id] = this.jointAngle(i)));
     const bodies: Pose["bodies"] = { [g.baseId]: { x: 0, y: 0, phi: 0 } };
-    g.bodyIds.forEach((id, b) => (bodies[id] = { x: this.q[3 * b]!, y: this.q[3 * b + 1]!, phi: this.q[3 * b + 2]! }));
+    g.bodyIds.forEach(
+      (id, b) => (bodies[id] = { x: this.q[3 * b]!, y: this.q[3 * b + 1]!, phi: this.q[3 * b + 2]! }),
+    );
 
     // Springs: state, tension, generalized force and the holding torque per unit of tension.
     const springs: Record<string, SpringState> = {};
@@ -375,7 +394,12 @@ export class PoseSolver {
       const torque = torsionSpringTorque(t.spring, theta, g.joints[t.joint]!.angle);
       const j = g.joints[t.joint]!;
       const pivot = this.world(g.parent[t.joint]!, j.parentPoint.x, j.parentPoint.y);
-      springs[t.spring.id] = { length: NaN, a: pivot, b: pivot, windUp: t.spring.rate !== 0 ? torque / t.spring.rate : theta - j.angle };
+      springs[t.spring.id] = {
+        length: NaN,
+        a: pivot,
+        b: pivot,
+        windUp: t.spring.rate !== 0 ? torque / t.spring.rate : theta - j.angle,
+      };
       springForce[t.spring.id] = torque;
       this.unit.fill(0);
       const p = g.parent[t.joint]!;
@@ -428,7 +452,14 @@ export class PoseSolver {
         const b = payloadBody[k]!;
         if (b < 0) return;
         const mass = lc.payloadMass[p.id] ?? p.mass;
-        this.addForce(this.qCase, b, p.point.x, p.point.y, p.force?.x ?? 0, (p.force?.y ?? 0) - mass * gravity);
+        this.addForce(
+          this.qCase,
+          b,
+          p.point.x,
+          p.point.y,
+          p.force?.x ?? 0,
+          (p.force?.y ?? 0) - mass * gravity,
+        );
       });
       this.luCurrent.solveTransposed(this.qCase, this.lambda);
       const holdingTorque: Record<string, number> = {};
@@ -456,7 +487,14 @@ export class PoseSolver {
         handForce[p.id] = Math.hypot(f.x, f.y);
         handForceVectorRec[p.id] = f;
       });
-      return { holdingTorque, handForce, handForceVector: handForceVectorRec, reactions, lockedTorque, springForce };
+      return {
+        holdingTorque,
+        handForce,
+        handForceVector: handForceVectorRec,
+        reactions,
+        lockedTorque,
+        springForce,
+      };
     });
     return { index, angles, jointAngles, bodies, springs, cases, payloadJacobian, springTorquePerUnit };
   }

@@ -57,7 +57,8 @@ export function referencePose(graph: JointGraph, lengthScale: number): Reference
     for (const c of heldClosing) {
       const j = graph.joints[c]!;
       // Angle residuals weighted by a length so that metres and radians compare.
-      out[k++] = (wrapNear(relativeAngle(q, graph.parent[c]!, graph.child[c]!), j.angle) - j.angle) * lengthScale;
+      out[k++] =
+        (wrapNear(relativeAngle(q, graph.parent[c]!, graph.child[c]!), j.angle) - j.angle) * lengthScale;
     }
     for (let i = 0; i < m; i++) sum += out[i]! * out[i]!;
     return sum;
@@ -97,7 +98,8 @@ export function referencePose(graph: JointGraph, lengthScale: number): Reference
       let improved = false;
       while (mu < 1e12) {
         const damped = Float64Array.from(normal);
-        for (let a = 0; a < nu; a++) damped[a * nu + a]! += mu * (normal[a * nu + a]! + lengthScale * lengthScale * 1e-6);
+        for (let a = 0; a < nu; a++)
+          damped[a * nu + a]! += mu * (normal[a * nu + a]! + lengthScale * lengthScale * 1e-6);
         if (!lu.factor(damped)) {
           mu *= 10;
           continue;

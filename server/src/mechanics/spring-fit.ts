@@ -189,13 +189,19 @@ function golden(f: (x: number) => number, lo: number, hi: number): number {
 
 /** Least-squares estimate of the parameters (sum of squared hand forces), to bracket the search. */
 function leastSquares(d: Float64Array, count: number, twoParameters: boolean): [number, number] {
-  let uu = 0, uw = 0, ww = 0, ue = 0, we = 0;
+  let uu = 0,
+    uw = 0,
+    ww = 0,
+    ue = 0,
+    we = 0;
   for (let i = 0; i < count; i++) {
     const o = 7 * i;
     const ex = d[o]! - d[o + 2]! * d[o + 4]!;
     const ey = d[o + 1]! - d[o + 3]! * d[o + 4]!;
-    const ux = d[o + 2]! * d[o + 5]!, uy = d[o + 3]! * d[o + 5]!;
-    const wx = d[o + 2]! * d[o + 6]!, wy = d[o + 3]! * d[o + 6]!;
+    const ux = d[o + 2]! * d[o + 5]!,
+      uy = d[o + 3]! * d[o + 5]!;
+    const wx = d[o + 2]! * d[o + 6]!,
+      wy = d[o + 3]! * d[o + 6]!;
     uu += ux * ux + uy * uy;
     uw += ux * wx + uy * wy;
     ww += wx * wx + wy * wy;
@@ -249,7 +255,14 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
     best = [c0, c1];
     after = before;
   }
-  return { springId, names: params.names, current: [c0, c1], best, worstHandForceBefore: before, worstHandForceAfter: after };
+  return {
+    springId,
+    names: params.names,
+    current: [c0, c1],
+    best,
+    worstHandForceBefore: before,
+    worstHandForceAfter: after,
+  };
 }
 
 export interface IdealRate {
@@ -272,7 +285,11 @@ function rotate(v: Vec2, phi: number): Vec2 {
  * geometry holds: one end on a body that does not turn, straight above the pivot of a degree of
  * freedom, the other on the turning link (or a parallelogram bar), and the gravity torque at that
  * dof following m g l cos(angle of the hook line). Undefined otherwise. */
-export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springId: string): IdealRate | undefined {
+export function idealZeroLengthRate(
+  model: ArmModel,
+  sweep: SweepResult,
+  springId: string,
+): IdealRate | undefined {
   const s = model.springs.find((x) => x.id === springId);
   if (!s || (s.kind !== "extension" && s.kind !== "zero_length")) return undefined;
   const ref = sweep.reference;
@@ -285,7 +302,9 @@ export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springI
     const upperRoot = stage ? model.joints.find((j) => j.id === stage.joints.upperRoot) : undefined;
     const pivots = [
       { child: joint.child, parentPoint: joint.parentPoint, childPoint: joint.childPoint },
-      ...(upperRoot ? [{ child: upperRoot.child, parentPoint: upperRoot.parentPoint, childPoint: upperRoot.childPoint }] : []),
+      ...(upperRoot
+        ? [{ child: upperRoot.child, parentPoint: upperRoot.parentPoint, childPoint: upperRoot.childPoint }]
+        : []),
     ];
     for (const pv of pivots) {
       const ends = [s.a, s.b];
@@ -297,7 +316,10 @@ export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springI
       // The anchor's body must not turn over the sweep.
       const phis = sweep.poses.map((p) => p.bodies[joint.parent]?.phi ?? 0);
       if (Math.max(...phis) - Math.min(...phis) > 1e-9) continue;
-      const av = rotate({ x: anchor.point.x - pv.parentPoint.x, y: anchor.point.y - pv.parentPoint.y }, parentPose.phi);
+      const av = rotate(
+        { x: anchor.point.x - pv.parentPoint.x, y: anchor.point.y - pv.parentPoint.y },
+        parentPose.phi,
+      );
       const a = Math.hypot(av.x, av.y);
       if (!(a > 0) || Math.abs(Math.atan2(av.x, av.y)) > VERTICAL_TOLERANCE) continue;
       const hv = { x: hook.point.x - pv.childPoint.x, y: hook.point.y - pv.childPoint.y };
@@ -307,8 +329,17 @@ export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springI
       // Gravity torque at the dof alone (springs taken out), over poses with the other dofs
       // nearest their reference.
       const others = sweep.dofs.filter((x) => x !== dof);
-      const nearest = new Map(others.map((o) => [o.id, nearestValue(sweep.poses.map((p) => p.angles[o.id]!), o.reference)]));
-      let sc = 0, cc = 0;
+      const nearest = new Map(
+        others.map((o) => [
+          o.id,
+          nearestValue(
+            sweep.poses.map((p) => p.angles[o.id]!),
+            o.reference,
+          ),
+        ]),
+      );
+      let sc = 0,
+        cc = 0;
       const pts: { t: number; c: number }[] = [];
       for (const pose of sweep.poses) {
         if (others.some((o) => pose.angles[o.id] !== nearest.get(o.id))) continue;
@@ -316,7 +347,8 @@ export function idealZeroLengthRate(model: ArmModel, sweep: SweepResult, springI
         const child = pose.bodies[pv.child];
         if (!st || !child) continue;
         let t = st.holdingTorque[dof.id] ?? 0;
-        for (const sp of model.springs) t -= (pose.springTorquePerUnit?.[sp.id]?.[dof.id] ?? 0) * (st.springForce[sp.id] ?? 0);
+        for (const sp of model.springs)
+          t -= (pose.springTorquePerUnit?.[sp.id]?.[dof.id] ?? 0) * (st.springForce[sp.id] ?? 0);
         const c = Math.cos(child.phi + hookAngle);
         pts.push({ t, c });
         sc += t * c;

@@ -25,8 +25,16 @@ export function loadCases(model: ArmModel): LoadCase[] {
   for (const p of model.payloads) {
     if (!p.massRange) continue;
     const [lo, hi] = p.massRange;
-    cases.push({ id: `${p.id}.low`, label: `${p.id} at ${(lo * 1000).toFixed(0)} g`, payloadMass: { ...nominal, [p.id]: lo } });
-    cases.push({ id: `${p.id}.high`, label: `${p.id} at ${(hi * 1000).toFixed(0)} g`, payloadMass: { ...nominal, [p.id]: hi } });
+    cases.push({
+      id: `${p.id}.low`,
+      label: `${p.id} at ${(lo * 1000).toFixed(0)} g`,
+      payloadMass: { ...nominal, [p.id]: lo },
+    });
+    cases.push({
+      id: `${p.id}.high`,
+      label: `${p.id} at ${(hi * 1000).toFixed(0)} g`,
+      payloadMass: { ...nominal, [p.id]: hi },
+    });
   }
   return cases;
 }
@@ -48,7 +56,8 @@ interface SweepNode {
 
 function nearestIndex(samples: number[], value: number): number {
   let best = 0;
-  for (let i = 1; i < samples.length; i++) if (Math.abs(samples[i]! - value) < Math.abs(samples[best]! - value)) best = i;
+  for (let i = 1; i < samples.length; i++)
+    if (Math.abs(samples[i]! - value) < Math.abs(samples[best]! - value)) best = i;
   return best;
 }
 
@@ -121,15 +130,28 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   if (!solver.setCurrent(linkage.qReference, refAngles)) {
     const j = linkage.graph.joints[linkage.driveJoint[linkage.dofDrive[0] ?? 0] ?? 0];
     findings.push(
-      finding("geometry.cannot-reach", j ? (j.origin.name ?? j.origin.declaration) : model.span, "The linkage is locked at its reference pose (its constraint Jacobian is singular there): it cannot move from it.", {
-        data: { jointId: j?.id },
-      }),
+      finding(
+        "geometry.cannot-reach",
+        j ? (j.origin.name ?? j.origin.declaration) : model.span,
+        "The linkage is locked at its reference pose (its constraint Jacobian is singular there): it cannot move from it.",
+        {
+          data: { jointId: j?.id },
+        },
+      ),
     );
     return { dofs, loadCases: cases, poses: [], steps: 0, grid, findings };
   }
   const reference = solver.record(-1);
   if (dofs.length === 0) {
-    return { dofs, loadCases: cases, reference, poses: [{ ...reference, index: 0 }], steps: 1, grid, findings };
+    return {
+      dofs,
+      loadCases: cases,
+      reference,
+      poses: [{ ...reference, index: 0 }],
+      steps: 1,
+      grid,
+      findings,
+    };
   }
 
   let steps = Math.round(options.stepsOverride ?? model.sweep?.steps ?? SWEEP_DEFAULTS.steps);
@@ -181,9 +203,14 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   const budgetStop = () => {
     const solved = out.filter(Boolean).length;
     findings.push(
-      finding("analysis.budget", model.span, `The sweep stopped at its time budget after ${solved} of ${nodes.length} poses; results are partial.`, {
-        data: { solved, planned: nodes.length },
-      }),
+      finding(
+        "analysis.budget",
+        model.span,
+        `The sweep stopped at its time budget after ${solved} of ${nodes.length} poses; results are partial.`,
+        {
+          data: { solved, planned: nodes.length },
+        },
+      ),
     );
   };
   for (let i = 0; i < nodes.length; i++) {
@@ -215,7 +242,8 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
       break;
     }
     let moved = 0;
-    for (let d = 1; d < dofs.length; d++) if (Math.abs(node.angles[d]! - from[d]!) > Math.abs(node.angles[moved]! - from[moved]!)) moved = d;
+    for (let d = 1; d < dofs.length; d++)
+      if (Math.abs(node.angles[d]! - from[d]!) > Math.abs(node.angles[moved]! - from[moved]!)) moved = d;
     const dir = node.angles[moved]! > from[moved]! ? "up" : "down";
     const key = `${moved}:${dir}`;
     if (reported.has(key)) continue;

@@ -38,7 +38,11 @@ export class BuildContext {
   /** Reports a name that is not an identifier; true if it is fine. */
   checkName(text: string, at: Span): boolean {
     if (NAME_PATTERN.test(text)) return true;
-    this.r.add("value.invalid", at, `the name \`${text}\` may use only the letters A-Z and a-z, digits and _ (not starting with a digit)`);
+    this.r.add(
+      "value.invalid",
+      at,
+      `the name \`${text}\` may use only the letters A-Z and a-z, digits and _ (not starting with a digit)`,
+    );
     return false;
   }
 
@@ -50,13 +54,22 @@ export class BuildContext {
 
   /** `body`, `body.point`, `body(x, y)`: the longest dotted prefix naming a body is the body; at
    * most one part after it names a point; an inline point goes on the body alone. */
-  resolvePoint(ref: ReferenceNode, key: string, opts: { keepBodyOnBadPoint?: boolean } = {}): Attachment | undefined {
+  resolvePoint(
+    ref: ReferenceNode,
+    key: string,
+    opts: { keepBodyOnBadPoint?: boolean } = {},
+  ): Attachment | undefined {
     const a = this.resolvePointStrict(ref, key);
     if (a || !opts.keepBodyOnBadPoint) return a;
     // The point was wrong (and reported) but the body is known: keep the body, at its origin, so
     // that the joint graph stays whole for the editor and the mobility count.
     for (let k = ref.parts.length; k >= 1; k--) {
-      const body = this.bodies.get(ref.parts.slice(0, k).map((p) => p.text).join("."));
+      const body = this.bodies.get(
+        ref.parts
+          .slice(0, k)
+          .map((p) => p.text)
+          .join("."),
+      );
       if (body) return { body: body.id, point: { x: 0, y: 0 }, span: ref.span };
     }
     return undefined;
@@ -67,7 +80,12 @@ export class BuildContext {
     let body: Body | undefined;
     let k = parts.length;
     for (; k >= 1; k--) {
-      body = this.bodies.get(parts.slice(0, k).map((p) => p.text).join("."));
+      body = this.bodies.get(
+        parts
+          .slice(0, k)
+          .map((p) => p.text)
+          .join("."),
+      );
       if (body) break;
     }
     if (!body) {
@@ -84,12 +102,20 @@ export class BuildContext {
       return { body: body.id, point: { x: 0, y: 0 }, span: ref.span };
     }
     if (rest.length > 1) {
-      this.r.add("value.invalid", rest[1]!.span, `\`${this.r.quote(ref.span)}\` has too many parts: write \`body.point\` or \`body(x, y)\``);
+      this.r.add(
+        "value.invalid",
+        rest[1]!.span,
+        `\`${this.r.quote(ref.span)}\` has too many parts: write \`body.point\` or \`body(x, y)\``,
+      );
       return undefined;
     }
     const pointPart = rest[0]!;
     if (ref.point) {
-      this.r.add("value.invalid", ref.point.span, `an inline point goes on the body alone: \`${body.id}(x, y)\`, not after \`${body.id}.${pointPart.text}\``);
+      this.r.add(
+        "value.invalid",
+        ref.point.span,
+        `an inline point goes on the body alone: \`${body.id}(x, y)\`, not after \`${body.id}.${pointPart.text}\``,
+      );
       return undefined;
     }
     const p = body.points[pointPart.text];
@@ -97,17 +123,28 @@ export class BuildContext {
       const names = Object.keys(body.points);
       const best = closestWord(pointPart.text, names);
       const list = names.length === 0 ? "it has no named points" : `its points are ${listWords(names)}`;
-      this.r.add("name.unknown-point", pointPart.span, `${body.id} has no point \`${pointPart.text}\`${best ? `; did you mean \`${best}\`?` : ""} (${list})`, best ? { data: { suggestion: best } } : {});
+      this.r.add(
+        "name.unknown-point",
+        pointPart.span,
+        `${body.id} has no point \`${pointPart.text}\`${best ? `; did you mean \`${best}\`?` : ""} (${list})`,
+        best ? { data: { suggestion: best } } : {},
+      );
       return undefined;
     }
-    this.symbols.references.push({ span: pointPart.span, target: { kind: "point", id: `${body.id}.${pointPart.text}` } });
+    this.symbols.references.push({
+      span: pointPart.span,
+      target: { kind: "point", id: `${body.id}.${pointPart.text}` },
+    });
     return { body: body.id, point: { ...p }, pointName: pointPart.text, span: ref.span };
   }
 
   private referBody(body: Body, ref: ReferenceNode, partsUsed: number): void {
     const generatedBy = body.origin.generatedBy;
     if (generatedBy && partsUsed >= 2) {
-      this.symbols.references.push({ span: ref.parts[0]!.span, target: { kind: "parallelogram", id: generatedBy } });
+      this.symbols.references.push({
+        span: ref.parts[0]!.span,
+        target: { kind: "parallelogram", id: generatedBy },
+      });
       this.symbols.references.push({ span: ref.parts[1]!.span, target: { kind: "body", id: body.id } });
       return;
     }
@@ -124,9 +161,18 @@ export class BuildContext {
       const second = ref.parts[1];
       if (second) {
         const best = closestWord(second.text, ["lower", "upper", "head"]);
-        this.r.add("name.unknown", second.span, `${first.text} has no body \`${second.text}\`${best ? `; did you mean \`${best}\`?` : ""} (a parallelogram makes ${listWords(bodies)})`, best ? { data: { suggestion: best } } : {});
+        this.r.add(
+          "name.unknown",
+          second.span,
+          `${first.text} has no body \`${second.text}\`${best ? `; did you mean \`${best}\`?` : ""} (a parallelogram makes ${listWords(bodies)})`,
+          best ? { data: { suggestion: best } } : {},
+        );
       } else {
-        this.r.add("value.invalid", first.span, `\`${first.text}\` is a parallelogram: refer to one of its bodies, ${listWords(bodies)}`);
+        this.r.add(
+          "value.invalid",
+          first.span,
+          `\`${first.text}\` is a parallelogram: refer to one of its bodies, ${listWords(bodies)}`,
+        );
       }
       return;
     }
@@ -134,8 +180,16 @@ export class BuildContext {
       this.r.add("value.invalid", first.span, `\`${first.text}\` is a ${kind}, not a body`);
       return;
     }
-    const best = closestWord(first.text, [...this.bodies.keys()].filter((id) => !id.includes(".")).concat([...this.parallelograms.keys()]));
-    this.r.add("name.unknown", first.span, `unknown body \`${first.text}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+    const best = closestWord(
+      first.text,
+      [...this.bodies.keys()].filter((id) => !id.includes(".")).concat([...this.parallelograms.keys()]),
+    );
+    this.r.add(
+      "name.unknown",
+      first.span,
+      `unknown body \`${first.text}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+      best ? { data: { suggestion: best } } : {},
+    );
   }
 
   /** A material by name: declared in the arm or built in. */
@@ -150,12 +204,21 @@ export class BuildContext {
       return undefined;
     }
     const best = closestWord(word.value, Object.keys(this.materials));
-    this.r.add("name.unknown", word.span, `unknown material \`${word.value}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+    this.r.add(
+      "name.unknown",
+      word.span,
+      `unknown material \`${word.value}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+      best ? { data: { suggestion: best } } : {},
+    );
     return undefined;
   }
 
   /** A name of one of the given kinds; returns the name and its kind. */
-  resolveName(word: Read<string>, kinds: readonly SymbolKind[], what: string): { id: string; kind: SymbolKind } | undefined {
+  resolveName(
+    word: Read<string>,
+    kinds: readonly SymbolKind[],
+    what: string,
+  ): { id: string; kind: SymbolKind } | undefined {
     const kind = this.kindOf(word.value);
     if (kind && kinds.includes(kind)) {
       this.symbols.references.push({ span: word.span, target: { kind, id: word.value } });
@@ -167,7 +230,12 @@ export class BuildContext {
     }
     const candidates = [...this.names].filter(([, d]) => kinds.includes(d.kind)).map(([n]) => n);
     const best = closestWord(word.value, candidates);
-    this.r.add("name.unknown", word.span, `unknown ${kinds.join(" or ")} \`${word.value}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+    this.r.add(
+      "name.unknown",
+      word.span,
+      `unknown ${kinds.join(" or ")} \`${word.value}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+      best ? { data: { suggestion: best } } : {},
+    );
     return undefined;
   }
 }
@@ -193,14 +261,28 @@ export class Props {
       const key = prop.key.text;
       if (!keys.includes(key)) {
         const best = closestWord(key, keys);
-        this.r.add("property.unknown", prop.key.span, `${decl.keyword.text} has no property \`${key}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+        this.r.add(
+          "property.unknown",
+          prop.key.span,
+          `${decl.keyword.text} has no property \`${key}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+          best ? { data: { suggestion: best } } : {},
+        );
         continue;
       }
       const list = this.byKey.get(key) ?? [];
-      if (list.length > 0 && !REPEATABLE_KEYS.has(key) && !(REPEATABLE_PER_PAYLOAD.has(key) && decl.keyword.text === "require")) {
-        this.r.add("property.repeated", prop.key.span, `\`${key}\` is given twice in ${this.what}; this one counts`, {
-          related: [{ span: list[list.length - 1]!.span, message: "the earlier one" }],
-        });
+      if (
+        list.length > 0 &&
+        !REPEATABLE_KEYS.has(key) &&
+        !(REPEATABLE_PER_PAYLOAD.has(key) && decl.keyword.text === "require")
+      ) {
+        this.r.add(
+          "property.repeated",
+          prop.key.span,
+          `\`${key}\` is given twice in ${this.what}; this one counts`,
+          {
+            related: [{ span: list[list.length - 1]!.span, message: "the earlier one" }],
+          },
+        );
       }
       list.push(prop);
       this.byKey.set(key, list);
@@ -257,9 +339,14 @@ export class Props {
     const keys = this.missingKeys.map((m) => `\`${m.key}\``);
     const note = [...new Set(this.missingKeys.map((m) => m.note).filter((n) => n))].join("");
     const examples = this.missingKeys.map((m) => this.specOf(m.key).example);
-    this.r.add("property.missing", this.nameSpan, `${this.what} needs ${listWords(keys)}${note}, e.g. \`${examples[0]}\``, {
-      data: { insert: examples.join("\n"), keys: this.missingKeys.map((m) => m.key) },
-    });
+    this.r.add(
+      "property.missing",
+      this.nameSpan,
+      `${this.what} needs ${listWords(keys)}${note}, e.g. \`${examples[0]}\``,
+      {
+        data: { insert: examples.join("\n"), keys: this.missingKeys.map((m) => m.key) },
+      },
+    );
     this.missingKeys.length = 0;
   }
 
@@ -269,7 +356,8 @@ export class Props {
     for (const [key, list] of this.byKey) properties[key] = list[list.length - 1]!.span;
     for (const p of this.all("point")) {
       const name = p.values[0];
-      if (name?.kind === "reference" && name.parts.length === 1) properties[`point.${name.parts[0]!.text}`] = p.span;
+      if (name?.kind === "reference" && name.parts.length === 1)
+        properties[`point.${name.parts[0]!.text}`] = p.span;
     }
     return {
       declaration: this.decl.span,

@@ -2,7 +2,16 @@
 // settings (steps capped).
 import type { Payload, Requirements, SweepSettings, Vec2 } from "./types";
 import { REQUIREMENT_DEFAULTS, SWEEP_DEFAULTS } from "./schema";
-import { isWord, pointValue, readChoice, readQuantity, readRange, readReference, readWord, type Read } from "./read-values";
+import {
+  isWord,
+  pointValue,
+  readChoice,
+  readQuantity,
+  readRange,
+  readReference,
+  readWord,
+  type Read,
+} from "./read-values";
 import type { BuildContext, Props } from "./build-context";
 import type { DimensionName } from "../units/dimension";
 
@@ -23,10 +32,15 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
   if (rv) {
     const r = readRange(rv, "mass");
     rv.finish();
-    if (r && r.value[0] < 0) ctx.r.add("value.impossible", r.span, `a mass cannot be negative: ${ctx.r.quote(r.span)}`);
+    if (r && r.value[0] < 0)
+      ctx.r.add("value.impossible", r.span, `a mass cannot be negative: ${ctx.r.quote(r.span)}`);
     else if (r) massRange = r.value;
     if (r && mass && massRange && (mass.value < massRange[0] || mass.value > massRange[1])) {
-      ctx.r.add("value.impossible", mass.span, `the mass ${ctx.r.quote(mass.span)} lies outside its range ${ctx.r.quote(r.span)}`);
+      ctx.r.add(
+        "value.impossible",
+        mass.span,
+        `the mass ${ctx.r.quote(mass.span)} lies outside its range ${ctx.r.quote(r.span)}`,
+      );
     }
   }
   let force: Vec2 | undefined;
@@ -34,7 +48,8 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
   if (fv) {
     const node = fv.next();
     if (!node || node.kind !== "point") {
-      if (node) ctx.r.add("value.invalid", node.span, `\`force\` expects \`(Fx, Fy)\`, e.g. \`force (0 N, -5 N)\``);
+      if (node)
+        ctx.r.add("value.invalid", node.span, `\`force\` expects \`(Fx, Fy)\`, e.g. \`force (0 N, -5 N)\``);
       else fv.missing("a force `(Fx, Fy)`");
     } else force = pointValue(node, "force", "force", ctx.r);
     fv.finish();
@@ -50,12 +65,20 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
       at = a.point;
       body = a.body;
       if (ctx.bodies.get(a.body)?.kind === "base") {
-        ctx.r.add("payload.on-base", ref!.span, `payload ${id} sits on the base ${a.body}: no joint carries it, so no hand holds it and it takes no part in balance`);
+        ctx.r.add(
+          "payload.on-base",
+          ref!.span,
+          `payload ${id} sits on the base ${a.body}: no joint carries it, so no hand holds it and it takes no part in balance`,
+        );
       }
     }
   }
   if (mass && mass.value === 0 && !massRange && !force) {
-    ctx.r.add("payload.weightless", mass.span, `payload ${id} has no mass and no force: it loads nothing, so the balance checks have nothing to hold there`);
+    ctx.r.add(
+      "payload.weightless",
+      mass.span,
+      `payload ${id} has no mass and no force: it loads nothing, so the balance checks have nothing to hold there`,
+    );
   }
   if (!body || !at) return undefined;
   return {
@@ -101,7 +124,11 @@ export function buildRequirements(ctx: BuildContext, p: Props): Requirements {
       }
       v.finish();
       if (seen.has(target)) {
-        ctx.r.add("property.repeated", prop.key.span, `\`${key}\`${target ? ` at ${target}` : ""} is given twice; this one counts`);
+        ctx.r.add(
+          "property.repeated",
+          prop.key.span,
+          `\`${key}\`${target ? ` at ${target}` : ""} is given twice; this one counts`,
+        );
       }
       seen.set(target, true);
       if (!q) continue;
@@ -116,7 +143,12 @@ export function buildRequirements(ctx: BuildContext, p: Props): Requirements {
   perPayload("balance", "force");
   perPayload("tilt", "angle");
   perPayload("deflection", "length");
-  const single = (key: "safety" | "frequency" | "tipping" | "clearance", dim: DimensionName, atLeast: number, note: string) => {
+  const single = (
+    key: "safety" | "frequency" | "tipping" | "clearance",
+    dim: DimensionName,
+    atLeast: number,
+    note: string,
+  ) => {
     const v = p.values(key);
     if (!v) return;
     const q = readQuantity(v, [dim]);
@@ -147,11 +179,20 @@ export function buildSweep(ctx: BuildContext, p: Props): SweepSettings {
     const q = readQuantity(sv, ["dimensionless"]);
     sv.finish();
     if (q && (!Number.isInteger(q.value) || q.value < 2)) {
-      ctx.r.add("value.impossible", q.span, `steps is a whole number of poses, at least 2 (both ends of the range), got ${ctx.r.quote(q.span)}`);
+      ctx.r.add(
+        "value.impossible",
+        q.span,
+        `steps is a whole number of poses, at least 2 (both ends of the range), got ${ctx.r.quote(q.span)}`,
+      );
     } else if (q && q.value > SWEEP_DEFAULTS.maxSteps) {
-      ctx.r.add("sweep.capped", q.span, `${q.value} steps per degree of freedom is more than the ${SWEEP_DEFAULTS.maxSteps} allowed: ${SWEEP_DEFAULTS.maxSteps} are used`, {
-        data: { requested: q.value, used: SWEEP_DEFAULTS.maxSteps },
-      });
+      ctx.r.add(
+        "sweep.capped",
+        q.span,
+        `${q.value} steps per degree of freedom is more than the ${SWEEP_DEFAULTS.maxSteps} allowed: ${SWEEP_DEFAULTS.maxSteps} are used`,
+        {
+          data: { requested: q.value, used: SWEEP_DEFAULTS.maxSteps },
+        },
+      );
       sweep.steps = SWEEP_DEFAULTS.maxSteps;
       sweep.requestedSteps = q.value;
     } else if (q) sweep.steps = q.value;

@@ -3,7 +3,20 @@
 import type { Base, Body, Joint, JointMode, Material, Parallelogram, Pin, Section, Vec2 } from "./types";
 import { sectionProperties } from "./section";
 import { DEFAULT_POISSON } from "./materials";
-import { pointValue, readChoice, readDims, readFlag, readKeyword, readPoint, readQuantity, readRange, readReference, readSection, readWord, type Read } from "./read-values";
+import {
+  pointValue,
+  readChoice,
+  readDims,
+  readFlag,
+  readKeyword,
+  readPoint,
+  readQuantity,
+  readRange,
+  readReference,
+  readSection,
+  readWord,
+  type Read,
+} from "./read-values";
 import type { BuildContext, Props } from "./build-context";
 
 // ---- materials ----
@@ -32,7 +45,12 @@ export function buildMaterial(ctx: BuildContext, p: Props, id: string): Material
     const q = readQuantity(pv, ["dimensionless"]);
     pv.finish();
     // Poisson's ratio of an isotropic solid lies in (-1, 0.5] (Timoshenko and Goodier, Theory of Elasticity).
-    if (q && (q.value <= -1 || q.value > 0.5)) ctx.r.add("value.impossible", q.span, `Poisson's ratio lies between -1 and 0.5, got ${ctx.r.quote(q.span)}`);
+    if (q && (q.value <= -1 || q.value > 0.5))
+      ctx.r.add(
+        "value.impossible",
+        q.span,
+        `Poisson's ratio lies between -1 and 0.5, got ${ctx.r.quote(q.span)}`,
+      );
     else if (q) poisson = q.value;
   }
   return {
@@ -64,7 +82,13 @@ function positiveLength(ctx: BuildContext, p: Props, key: string, what: string):
   return q;
 }
 
-function nonNegative(ctx: BuildContext, p: Props, key: string, dim: "mass" | "torque" | "force", what: string): Read<number> | undefined {
+function nonNegative(
+  ctx: BuildContext,
+  p: Props,
+  key: string,
+  dim: "mass" | "torque" | "force",
+  what: string,
+): Read<number> | undefined {
   const v = p.values(key);
   if (!v) return undefined;
   const q = readQuantity(v, [dim]);
@@ -77,12 +101,22 @@ function nonNegative(ctx: BuildContext, p: Props, key: string, dim: "mass" | "to
 }
 
 /** `point NAME (x, y)` properties (also written `point NAME(x, y)`). */
-function namedPoints(ctx: BuildContext, p: Props, bodyId: string, points: Record<string, Vec2>, reserved: readonly string[]): void {
+function namedPoints(
+  ctx: BuildContext,
+  p: Props,
+  bodyId: string,
+  points: Record<string, Vec2>,
+  reserved: readonly string[],
+): void {
   for (const prop of p.all("point")) {
     const v = p.cursor(prop);
     const nameNode = v.next();
     if (!nameNode || nameNode.kind !== "reference" || nameNode.parts.length !== 1) {
-      ctx.r.add("value.invalid", nameNode?.span ?? prop.key.span, `expected a point name and its place, e.g. \`${v.example}\``);
+      ctx.r.add(
+        "value.invalid",
+        nameNode?.span ?? prop.key.span,
+        `expected a point name and its place, e.g. \`${v.example}\``,
+      );
       continue;
     }
     const name = nameNode.parts[0]!;
@@ -96,15 +130,33 @@ function namedPoints(ctx: BuildContext, p: Props, bodyId: string, points: Record
     v.finish();
     if (!ctx.checkName(name.text, name.span)) continue;
     if (reserved.includes(name.text)) {
-      ctx.r.add("value.invalid", name.span, `\`${name.text}\` is a built-in point of ${bodyId}; give this point another name`);
+      ctx.r.add(
+        "value.invalid",
+        name.span,
+        `\`${name.text}\` is a built-in point of ${bodyId}; give this point another name`,
+      );
       continue;
     }
     if (points[name.text] && !reserved.includes(name.text)) {
-      const earlier = ctx.symbols.declarations.find((d) => d.kind === "point" && d.id === `${bodyId}.${name.text}`);
-      ctx.r.add("name.duplicate", name.span, `${bodyId} already has a point \`${name.text}\``, earlier ? { related: [{ span: earlier.nameSpan, message: "the first one" }] } : {});
+      const earlier = ctx.symbols.declarations.find(
+        (d) => d.kind === "point" && d.id === `${bodyId}.${name.text}`,
+      );
+      ctx.r.add(
+        "name.duplicate",
+        name.span,
+        `${bodyId} already has a point \`${name.text}\``,
+        earlier ? { related: [{ span: earlier.nameSpan, message: "the first one" }] } : {},
+      );
       continue;
     }
-    ctx.symbols.declarations.push({ id: `${bodyId}.${name.text}`, kind: "point", name: name.text, nameSpan: name.span, span: prop.span, container: bodyId });
+    ctx.symbols.declarations.push({
+      id: `${bodyId}.${name.text}`,
+      kind: "point",
+      name: name.text,
+      nameSpan: name.span,
+      span: prop.span,
+      container: bodyId,
+    });
     if (place) points[name.text] = place;
     else points[name.text] = { x: 0, y: 0 }; // keeps the name for the editor; the error stands
   }
@@ -112,7 +164,12 @@ function namedPoints(ctx: BuildContext, p: Props, bodyId: string, points: Record
 
 /** A declared material by name, given as a word in a property (`material pla`); `what` names it
  * in the message when the word is missing. */
-export function materialOf(ctx: BuildContext, p: Props, key: string, what = "a material name"): string | undefined {
+export function materialOf(
+  ctx: BuildContext,
+  p: Props,
+  key: string,
+  what = "a material name",
+): string | undefined {
   const v = p.values(key);
   if (!v) return undefined;
   const w = readWord(v, what);
@@ -154,9 +211,14 @@ function readMode(ctx: BuildContext, p: Props): { angle: number; mode: JointMode
   const fv = p.values("fixed");
   if (fv) readFlag(fv);
   if (rv && fv) {
-    ctx.r.add("property.conflict", p.get("fixed")!.key.span, `${p.what} has both \`range\` and \`fixed\`: a joint is either swept over a range or locked`, {
-      related: [{ span: p.get("range")!.span, message: "the range" }],
-    });
+    ctx.r.add(
+      "property.conflict",
+      p.get("fixed")!.key.span,
+      `${p.what} has both \`range\` and \`fixed\`: a joint is either swept over a range or locked`,
+      {
+        related: [{ span: p.get("range")!.span, message: "the range" }],
+      },
+    );
   }
   let angle: number | undefined;
   const av = p.values("angle");
@@ -182,7 +244,12 @@ export function buildBase(ctx: BuildContext, p: Props, id: string): { body: Body
   if (fv) {
     const d = readDims(fv);
     fv.finish();
-    if (d && (d.value[0] <= 0 || d.value[1] <= 0)) ctx.r.add("value.impossible", d.span, `a footprint's sides must be positive, got ${ctx.r.quote(d.span)}`);
+    if (d && (d.value[0] <= 0 || d.value[1] <= 0))
+      ctx.r.add(
+        "value.impossible",
+        d.span,
+        `a footprint's sides must be positive, got ${ctx.r.quote(d.span)}`,
+      );
     else if (d) footprint = { width: d.value[0], depth: d.value[1] };
   }
   const yv = p.values("yaw");
@@ -205,7 +272,16 @@ export function buildBase(ctx: BuildContext, p: Props, id: string): { body: Body
     points,
     origin: p.origin(),
   };
-  return { body, base: { bodyId: id, mass: mass?.value ?? 0, ...(footprint ? { footprint } : {}), yaw: p.has("yaw"), surface } };
+  return {
+    body,
+    base: {
+      bodyId: id,
+      mass: mass?.value ?? 0,
+      ...(footprint ? { footprint } : {}),
+      yaw: p.has("yaw"),
+      surface,
+    },
+  };
 }
 
 // ---- links ----
@@ -227,11 +303,20 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
   const holes = positiveLength(ctx, p, "holes", "a hole's wall");
   const L = length?.value ?? 0;
   let massValue = mass?.value ?? 0;
-  if (!mass && section && material && ctx.materials[material]) massValue = sectionProperties(section).area * L * ctx.materials[material]!.density;
+  if (!mass && section && material && ctx.materials[material])
+    massValue = sectionProperties(section).area * L * ctx.materials[material]!.density;
   const points: Record<string, Vec2> = { start: { x: 0, y: 0 }, end: { x: L, y: 0 } };
   const nameSpan = p.nameSpan;
   for (const implicit of ["start", "end"]) {
-    ctx.symbols.declarations.push({ id: `${id}.${implicit}`, kind: "point", name: implicit, nameSpan, span: p.decl.span, container: id, implicit: true });
+    ctx.symbols.declarations.push({
+      id: `${id}.${implicit}`,
+      kind: "point",
+      name: implicit,
+      nameSpan,
+      span: p.decl.span,
+      container: id,
+      implicit: true,
+    });
   }
   namedPoints(ctx, p, id, points, ["start", "end"]);
   const holeThickness = holes?.value ?? (section ? sectionProperties(section).width : undefined);
@@ -265,7 +350,9 @@ export function buildJoint(ctx: BuildContext, p: Props, id: string): Joint | und
   const hasTo = parentRef ? readKeyword(cv, "to", "and the child's point") : false;
   const childRef = hasTo ? readReference(cv, "the child's point") : undefined;
   cv.finish();
-  const parent = parentRef ? ctx.resolvePoint(parentRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
+  const parent = parentRef
+    ? ctx.resolvePoint(parentRef, "connects", { keepBodyOnBadPoint: true })
+    : undefined;
   const child = childRef ? ctx.resolvePoint(childRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
   if (!parent || !child) return undefined;
   if (parent.body === child.body) {
@@ -273,7 +360,11 @@ export function buildJoint(ctx: BuildContext, p: Props, id: string): Joint | und
     return undefined;
   }
   if (ctx.bodies.get(child.body)?.kind === "base") {
-    ctx.r.add("value.invalid", childRef!.span, `the base cannot be a joint's child: write the base first, \`connects ${ctx.r.quote(childRef!.span)} to ...\` (the parent comes first)`);
+    ctx.r.add(
+      "value.invalid",
+      childRef!.span,
+      `the base cannot be a joint's child: write the base first, \`connects ${ctx.r.quote(childRef!.span)} to ...\` (the parent comes first)`,
+    );
     return undefined;
   }
   return {
@@ -313,7 +404,11 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
   const Lu = upperGiven?.value ?? L;
   const s = spacing?.value ?? 0;
   if (spacing && length && s >= L) {
-    ctx.r.add("value.impossible", spacing.span, `a spacing of ${ctx.r.quote(spacing.span)} is not less than the bars' length ${ctx.r.quote(length.span)}: the stage would be taller than it is long`);
+    ctx.r.add(
+      "value.impossible",
+      spacing.span,
+      `a spacing of ${ctx.r.quote(spacing.span)} is not less than the bars' length ${ctx.r.quote(length.span)}: the stage would be taller than it is long`,
+    );
   }
   let section: Section | undefined;
   let material: string | undefined;
@@ -357,10 +452,27 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
   };
   const bodies = [bar("lower", L), bar("upper", Lu), head];
   const nameSpan = p.nameSpan;
-  for (const b of bodies) ctx.symbols.declarations.push({ id: b.id, kind: "body", name: b.id, nameSpan, span: p.decl.span, container: id, implicit: true });
+  for (const b of bodies)
+    ctx.symbols.declarations.push({
+      id: b.id,
+      kind: "body",
+      name: b.id,
+      nameSpan,
+      span: p.decl.span,
+      container: id,
+      implicit: true,
+    });
   for (const b of bodies)
     for (const pt of Object.keys(b.points))
-      ctx.symbols.declarations.push({ id: `${b.id}.${pt}`, kind: "point", name: pt, nameSpan, span: p.decl.span, container: b.id, implicit: true });
+      ctx.symbols.declarations.push({
+        id: `${b.id}.${pt}`,
+        kind: "point",
+        name: pt,
+        nameSpan,
+        span: p.decl.span,
+        container: b.id,
+        implicit: true,
+      });
 
   const finish = (): { joints: Joint[]; parallelogram?: Parallelogram } => {
     const ov = p.values("on");
@@ -373,9 +485,24 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
       ctx.r.add("value.impossible", onRef!.span, `${p.what} cannot sit on its own bodies`);
       return { joints: [] };
     }
-    const ids = { lowerRoot: id, upperRoot: `${id}.upper_root`, lowerFar: `${id}.lower_far`, upperFar: `${id}.upper_far` };
+    const ids = {
+      lowerRoot: id,
+      upperRoot: `${id}.upper_root`,
+      lowerFar: `${id}.lower_far`,
+      upperFar: `${id}.upper_far`,
+    };
     const upperRootPoint = { x: on.point.x, y: on.point.y + s };
-    const joint = (jid: string, parent: string, parentPoint: Vec2, child: string, childPoint: Vec2, a: number, jmode: JointMode, parentPointName?: string, childPointName?: string): Joint => ({
+    const joint = (
+      jid: string,
+      parent: string,
+      parentPoint: Vec2,
+      child: string,
+      childPoint: Vec2,
+      a: number,
+      jmode: JointMode,
+      parentPointName?: string,
+      childPointName?: string,
+    ): Joint => ({
       id: jid,
       parent,
       child,
@@ -391,10 +518,50 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
       origin,
     });
     const joints = [
-      joint(ids.lowerRoot, on.body, on.point, `${id}.lower`, { x: 0, y: 0 }, angle, mode, on.pointName, "start"),
-      joint(ids.upperRoot, on.body, upperRootPoint, `${id}.upper`, { x: 0, y: 0 }, angle, "passive", undefined, "start"),
-      joint(ids.lowerFar, `${id}.lower`, { x: L, y: 0 }, `${id}.head`, { x: 0, y: 0 }, -angle, "passive", "end", HEAD_POINTS.lower),
-      joint(ids.upperFar, `${id}.upper`, { x: Lu, y: 0 }, `${id}.head`, { x: 0, y: s }, -angle, "passive", "end", HEAD_POINTS.upper),
+      joint(
+        ids.lowerRoot,
+        on.body,
+        on.point,
+        `${id}.lower`,
+        { x: 0, y: 0 },
+        angle,
+        mode,
+        on.pointName,
+        "start",
+      ),
+      joint(
+        ids.upperRoot,
+        on.body,
+        upperRootPoint,
+        `${id}.upper`,
+        { x: 0, y: 0 },
+        angle,
+        "passive",
+        undefined,
+        "start",
+      ),
+      joint(
+        ids.lowerFar,
+        `${id}.lower`,
+        { x: L, y: 0 },
+        `${id}.head`,
+        { x: 0, y: 0 },
+        -angle,
+        "passive",
+        "end",
+        HEAD_POINTS.lower,
+      ),
+      joint(
+        ids.upperFar,
+        `${id}.upper`,
+        { x: Lu, y: 0 },
+        `${id}.head`,
+        { x: 0, y: s },
+        -angle,
+        "passive",
+        "end",
+        HEAD_POINTS.upper,
+      ),
     ];
     const parallelogram: Parallelogram = {
       id,

@@ -3,7 +3,15 @@
 import { SPRING_KINDS } from "./schema";
 import type { Attachment, CoilGeometry, Spring, SpringKind } from "./types";
 import { extensionSpringRate } from "./coil";
-import { readDims, readFlag, readKeyword, readQuantity, readReference, readWord, type Read } from "./read-values";
+import {
+  readDims,
+  readFlag,
+  readKeyword,
+  readQuantity,
+  readReference,
+  readWord,
+  type Read,
+} from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
 import { materialOf } from "./build-parts";
 
@@ -22,25 +30,43 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   const kinds = SPRING_KINDS.filter((k) => p.has(k));
   for (const k of kinds) readFlag(p.values(k)!);
   if (kinds.length === 0) {
-    ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS], "or")}`, { data: { insert: "extension" } });
+    ctx.r.add(
+      "property.missing",
+      p.nameSpan,
+      `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS], "or")}`,
+      { data: { insert: "extension" } },
+    );
     return undefined;
   }
   if (kinds.length > 1) {
     const second = p.get(kinds[1]!)!;
-    ctx.r.add("property.conflict", second.key.span, `${p.what} is already \`${kinds[0]}\`: a spring has one kind`, {
-      related: [{ span: p.get(kinds[0]!)!.key.span, message: "its first kind" }],
-    });
+    ctx.r.add(
+      "property.conflict",
+      second.key.span,
+      `${p.what} is already \`${kinds[0]}\`: a spring has one kind`,
+      {
+        related: [{ span: p.get(kinds[0]!)!.key.span, message: "its first kind" }],
+      },
+    );
   }
   const kind = kinds[0]!;
   // Properties of other kinds do not apply.
   for (const key of p.keys()) {
     const spec = p.specOf(key);
     if (!spec.springKinds || spec.springKinds.includes(kind)) continue;
-    ctx.r.add("property.unknown", p.get(key)!.key.span, `\`${key}\` does not apply to ${KIND_WORDS[kind]} (it is for ${listWords(spec.springKinds.map((k) => KIND_WORDS[k as SpringKind]))})`);
+    ctx.r.add(
+      "property.unknown",
+      p.get(key)!.key.span,
+      `\`${key}\` does not apply to ${KIND_WORDS[kind]} (it is for ${listWords(spec.springKinds.map((k) => KIND_WORDS[k as SpringKind]))})`,
+    );
   }
   const origin = p.origin();
 
-  const q = (key: string, dim: Parameters<typeof readQuantity>[1][number], opts: { positive?: boolean; atLeastOne?: boolean } = {}): Read<number> | undefined => {
+  const q = (
+    key: string,
+    dim: Parameters<typeof readQuantity>[1][number],
+    opts: { positive?: boolean; atLeastOne?: boolean } = {},
+  ): Read<number> | undefined => {
     const v = p.values(key);
     if (!v) return undefined;
     const r = readQuantity(v, [dim]);
@@ -82,7 +108,15 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     }
     const maxAngle = q("max_angle", "angle", { positive: true });
     if (!joint) return undefined;
-    return { kind, id, origin, joint, rate: rate?.value ?? 0, preloadTorque, ...(maxAngle ? { maxAngle: maxAngle.value } : {}) };
+    return {
+      kind,
+      id,
+      origin,
+      joint,
+      rate: rate?.value ?? 0,
+      preloadTorque,
+      ...(maxAngle ? { maxAngle: maxAngle.value } : {}),
+    };
   }
 
   need("between");
@@ -93,11 +127,21 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     const coilKeys = ["wire", "coil", "coils", "material"];
     const coilGiven = coilKeys.filter((k) => p.has(k));
     if (p.has("rate") && coilGiven.length > 0) {
-      ctx.r.add("property.conflict", p.get(coilGiven[0]!)!.key.span, `${p.what} has both \`rate\` and a coil: give the rate, or the coil (\`wire\`, \`coil\`, \`coils\`, \`material\`) to compute it`, {
-        related: [{ span: p.get("rate")!.span, message: "the rate" }],
-      });
+      ctx.r.add(
+        "property.conflict",
+        p.get(coilGiven[0]!)!.key.span,
+        `${p.what} has both \`rate\` and a coil: give the rate, or the coil (\`wire\`, \`coil\`, \`coils\`, \`material\`) to compute it`,
+        {
+          related: [{ span: p.get("rate")!.span, message: "the rate" }],
+        },
+      );
     } else if (!p.has("rate") && coilGiven.length === 0) {
-      ctx.r.add("property.missing", p.nameSpan, `${p.what} needs \`rate\` (or its coil: \`wire\`, \`coil\`, \`coils\`, \`material\`), e.g. \`rate 0.8 N/mm\``, { data: { insert: "rate 0.8 N/mm" } });
+      ctx.r.add(
+        "property.missing",
+        p.nameSpan,
+        `${p.what} needs \`rate\` (or its coil: \`wire\`, \`coil\`, \`coils\`, \`material\`), e.g. \`rate 0.8 N/mm\``,
+        { data: { insert: "rate 0.8 N/mm" } },
+      );
     } else if (!p.has("rate")) {
       for (const k of coilKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
       p.flushMissing();
@@ -107,7 +151,11 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     const fi = q("initial_tension", "force");
     const max = q("max_length", "length", { positive: true });
     if (max && free && max.value <= free.value) {
-      ctx.r.add("value.impossible", max.span, `max_length ${ctx.r.quote(max.span)} must be longer than free_length ${ctx.r.quote(free.span)}`);
+      ctx.r.add(
+        "value.impossible",
+        max.span,
+        `max_length ${ctx.r.quote(max.span)} must be longer than free_length ${ctx.r.quote(free.span)}`,
+      );
     }
     let coil: CoilGeometry | undefined;
     let coilRate: number | undefined;
@@ -117,7 +165,11 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       const coils = q("coils", "dimensionless", { positive: true });
       const material = materialOf(ctx, p, "material", "the wire's material");
       if (wire && mean && mean.value <= wire.value) {
-        ctx.r.add("value.impossible", mean.span, `the mean coil diameter ${ctx.r.quote(mean.span)} must be larger than the wire ${ctx.r.quote(wire.span)}`);
+        ctx.r.add(
+          "value.impossible",
+          mean.span,
+          `the mean coil diameter ${ctx.r.quote(mean.span)} must be larger than the wire ${ctx.r.quote(wire.span)}`,
+        );
       } else if (wire && mean && coils && material) {
         coil = { wireDiameter: wire.value, meanDiameter: mean.value, bodyCoils: coils.value, material };
         const m = ctx.materials[material]!;
@@ -152,15 +204,26 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     const free = q("free_length", "length", { positive: true });
     let area: number | undefined;
     if (p.has("area") && p.has("tube")) {
-      ctx.r.add("property.conflict", p.get("tube")!.key.span, `${p.what} has both \`area\` and \`tube\`: give one`, { related: [{ span: p.get("area")!.span, message: "the area" }] });
+      ctx.r.add(
+        "property.conflict",
+        p.get("tube")!.key.span,
+        `${p.what} has both \`area\` and \`tube\`: give one`,
+        { related: [{ span: p.get("area")!.span, message: "the area" }] },
+      );
     } else if (!p.has("area") && !p.has("tube")) {
-      ctx.r.add("property.missing", p.nameSpan, `${p.what} needs its cross-section: \`area\` or \`tube OD x wall\`, e.g. \`tube 6 mm x 1.5 mm\``, { data: { insert: "tube 6 mm x 1.5 mm" } });
+      ctx.r.add(
+        "property.missing",
+        p.nameSpan,
+        `${p.what} needs its cross-section: \`area\` or \`tube OD x wall\`, e.g. \`tube 6 mm x 1.5 mm\``,
+        { data: { insert: "tube 6 mm x 1.5 mm" } },
+      );
     }
     const av = p.values("area");
     if (av) {
       const r = readQuantity(av, ["area"]);
       av.finish();
-      if (r && r.value <= 0) ctx.r.add("value.impossible", r.span, `an area must be positive, got ${ctx.r.quote(r.span)}`);
+      if (r && r.value <= 0)
+        ctx.r.add("value.impossible", r.span, `an area must be positive, got ${ctx.r.quote(r.span)}`);
       else if (r) area = r.value;
     }
     const tv = p.values("tube");
@@ -169,16 +232,40 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       tv.finish();
       if (d) {
         const [od, wall] = d.value;
-        if (od <= 0 || wall <= 0) ctx.r.add("value.impossible", d.span, `a tube's sizes must be positive, got ${ctx.r.quote(d.span)}`);
-        else if (wall >= od / 2) ctx.r.add("value.impossible", d.span, `a tube's wall must be less than its radius: ${ctx.r.quote(d.span)}`);
+        if (od <= 0 || wall <= 0)
+          ctx.r.add(
+            "value.impossible",
+            d.span,
+            `a tube's sizes must be positive, got ${ctx.r.quote(d.span)}`,
+          );
+        else if (wall >= od / 2)
+          ctx.r.add(
+            "value.impossible",
+            d.span,
+            `a tube's wall must be less than its radius: ${ctx.r.quote(d.span)}`,
+          );
         else if (area === undefined) area = (Math.PI / 4) * (od * od - (od - 2 * wall) ** 2);
       }
     }
     const material = materialOf(ctx, p, "material", "the cord's material");
     const stretch = q("max_stretch", "dimensionless", { positive: true });
-    if (stretch && stretch.value <= 1) ctx.r.add("value.impossible", stretch.span, `max_stretch is a ratio L / L0 above 1, got ${ctx.r.quote(stretch.span)}`);
+    if (stretch && stretch.value <= 1)
+      ctx.r.add(
+        "value.impossible",
+        stretch.span,
+        `max_stretch is a ratio L / L0 above 1, got ${ctx.r.quote(stretch.span)}`,
+      );
     if (!ends) return undefined;
-    return { kind, id, origin, ...ends, freeLength: free?.value ?? 0, area: area ?? 0, material: material ?? "", ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}) };
+    return {
+      kind,
+      id,
+      origin,
+      ...ends,
+      freeLength: free?.value ?? 0,
+      area: area ?? 0,
+      material: material ?? "",
+      ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}),
+    };
   }
 
   // gas
@@ -186,12 +273,20 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   const force = q("force", "force", { positive: true });
   const progression = q("progression", "dimensionless", { positive: true });
   if (progression && progression.value < 1) {
-    ctx.r.add("value.impossible", progression.span, `progression is compressed force / extended force, at least 1; got ${ctx.r.quote(progression.span)}`);
+    ctx.r.add(
+      "value.impossible",
+      progression.span,
+      `progression is compressed force / extended force, at least 1; got ${ctx.r.quote(progression.span)}`,
+    );
   }
   const stroke = q("stroke", "length", { positive: true });
   const extended = q("extended_length", "length", { positive: true });
   if (stroke && extended && stroke.value >= extended.value) {
-    ctx.r.add("value.impossible", stroke.span, `a stroke of ${ctx.r.quote(stroke.span)} does not fit in an extended length of ${ctx.r.quote(extended.span)}`);
+    ctx.r.add(
+      "value.impossible",
+      stroke.span,
+      `a stroke of ${ctx.r.quote(stroke.span)} does not fit in an extended length of ${ctx.r.quote(extended.span)}`,
+    );
   }
   if (!ends) return undefined;
   return {
@@ -218,7 +313,11 @@ function readBetween(ctx: BuildContext, p: Props): { a: Attachment; b: Attachmen
   const b = second ? ctx.resolvePoint(second, "between") : undefined;
   if (!a || !b) return undefined;
   if (a.body === b.body) {
-    ctx.r.add("spring.same-body", p.get("between")!.span, `both hooks of ${p.what} are on ${a.body}: it pulls the body on itself and does nothing`);
+    ctx.r.add(
+      "spring.same-body",
+      p.get("between")!.span,
+      `both hooks of ${p.what} are on ${a.body}: it pulls the body on itself and does nothing`,
+    );
   }
   return { a, b };
 }

@@ -6,14 +6,37 @@ import { LineIndex, span } from "../syntax/span";
 import type { Finding } from "../checks/finding";
 import { closestWord } from "../units/did-you-mean";
 import { STANDARD_GRAVITY } from "../units/unit-table";
-import type { ArmModel, Base, Body, Joint, Parallelogram, Payload, Requirements, Spring, SweepSettings } from "./types";
+import type {
+  ArmModel,
+  Base,
+  Body,
+  Joint,
+  Parallelogram,
+  Payload,
+  Requirements,
+  Spring,
+  SweepSettings,
+} from "./types";
 import { ARM_PROPERTIES, DECLARATIONS, declarationSpec } from "./schema";
 import { builtinMaterials } from "./materials";
 import { Reporter, Values, readQuantity } from "./read-values";
 import { BuildContext, Props } from "./build-context";
-import { buildBase, buildJoint, buildLink, buildMaterial, buildParallelogram, type ParallelogramBuild } from "./build-parts";
+import {
+  buildBase,
+  buildJoint,
+  buildLink,
+  buildMaterial,
+  buildParallelogram,
+  type ParallelogramBuild,
+} from "./build-parts";
 import { buildSpring } from "./build-springs";
-import { buildPayload, buildRequirements, buildSweep, defaultRequirements, defaultSweep } from "./build-limits";
+import {
+  buildPayload,
+  buildRequirements,
+  buildSweep,
+  defaultRequirements,
+  defaultSweep,
+} from "./build-limits";
 import { analyseMobility } from "./mobility";
 import { emptySymbols, type SymbolKind, type SymbolTable } from "./symbols";
 
@@ -65,8 +88,16 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   for (const decl of arm.declarations) {
     let spec = declarationSpec(decl.keyword.text);
     if (!spec) {
-      const best = closestWord(decl.keyword.text, DECLARATIONS.map((d) => d.keyword));
-      r.add("declaration.unknown", decl.keyword.span, `unknown declaration \`${decl.keyword.text}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+      const best = closestWord(
+        decl.keyword.text,
+        DECLARATIONS.map((d) => d.keyword),
+      );
+      r.add(
+        "declaration.unknown",
+        decl.keyword.span,
+        `unknown declaration \`${decl.keyword.text}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+        best ? { data: { suggestion: best } } : {},
+      );
       // A likely typo is read as the keyword it resembles, so its name and contents still count
       // (and references to it raise nothing more); the error above stands.
       spec = best ? declarationSpec(best) : undefined;
@@ -74,11 +105,23 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     }
     if (!spec.named) {
       const props = new Props(decl, spec, r);
-      ctx.symbols.declarations.push({ id: spec.keyword, kind: spec.keyword as SymbolKind, name: spec.keyword, nameSpan: decl.keyword.span, span: decl.span });
+      ctx.symbols.declarations.push({
+        id: spec.keyword,
+        kind: spec.keyword as SymbolKind,
+        name: spec.keyword,
+        nameSpan: decl.keyword.span,
+        span: decl.span,
+      });
       if (spec.keyword === "require") {
-        if (requireDecl) r.add("property.repeated", decl.keyword.span, "a second `require` block: put every limit in one", { related: [{ span: requireDecl.decl.keyword.span, message: "the first one" }] });
+        if (requireDecl)
+          r.add("property.repeated", decl.keyword.span, "a second `require` block: put every limit in one", {
+            related: [{ span: requireDecl.decl.keyword.span, message: "the first one" }],
+          });
         else requireDecl = props;
-      } else if (sweepDecl) r.add("property.repeated", decl.keyword.span, "a second `sweep` block: put every setting in one", { related: [{ span: sweepDecl.decl.keyword.span, message: "the first one" }] });
+      } else if (sweepDecl)
+        r.add("property.repeated", decl.keyword.span, "a second `sweep` block: put every setting in one", {
+          related: [{ span: sweepDecl.decl.keyword.span, message: "the first one" }],
+        });
       else sweepDecl = props;
       continue;
     }
@@ -87,13 +130,24 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     if (!ctx.checkName(name, decl.name.span)) continue;
     const earlier = ctx.names.get(name);
     if (earlier) {
-      r.add("name.duplicate", decl.name.span, `\`${name}\` is already the name of a ${earlier.kind}: names are unique within the arm`, {
-        related: [{ span: earlier.decl.name!.span, message: "the first one" }],
-      });
+      r.add(
+        "name.duplicate",
+        decl.name.span,
+        `\`${name}\` is already the name of a ${earlier.kind}: names are unique within the arm`,
+        {
+          related: [{ span: earlier.decl.name!.span, message: "the first one" }],
+        },
+      );
       continue;
     }
     ctx.names.set(name, { kind: spec.keyword as SymbolKind, decl });
-    ctx.symbols.declarations.push({ id: name, kind: spec.keyword as SymbolKind, name, nameSpan: decl.name.span, span: decl.span });
+    ctx.symbols.declarations.push({
+      id: name,
+      kind: spec.keyword as SymbolKind,
+      name,
+      nameSpan: decl.name.span,
+      span: decl.span,
+    });
     declared.push({ decl, props: new Props(decl, spec, r), id: name, keyword: spec.keyword });
   }
   const of = (keyword: string) => declared.filter((d) => d.keyword === keyword);
@@ -108,13 +162,20 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   for (const d of of("base")) {
     const built = buildBase(ctx, d.props, d.id);
     if (base) {
-      r.add("base.second", d.decl.name!.span, `an arm has one base: \`${d.id}\` is a second one`, { related: [{ span: ctx.names.get(base.bodyId)!.decl.name!.span, message: "the base that counts" }] });
+      r.add("base.second", d.decl.name!.span, `an arm has one base: \`${d.id}\` is a second one`, {
+        related: [{ span: ctx.names.get(base.bodyId)!.decl.name!.span, message: "the base that counts" }],
+      });
       continue;
     }
     base = built.base;
     bodies.push(built.body);
   }
-  if (!base) r.add("base.missing", arm.keywordSpan, "the arm has no `base`: declare the fixed ground, e.g. `base bench { point top (0 mm, 300 mm) }`");
+  if (!base)
+    r.add(
+      "base.missing",
+      arm.keywordSpan,
+      "the arm has no `base`: declare the fixed ground, e.g. `base bench { point top (0 mm, 300 mm) }`",
+    );
   for (const d of of("link")) bodies.push(buildLink(ctx, d.props, d.id));
   const stages: { id: string; build: ParallelogramBuild }[] = [];
   for (const d of of("parallelogram")) {
@@ -192,21 +253,38 @@ function readGravity(ctx: BuildContext, arm: ArmNode): number {
     const spec = ARM_PROPERTIES.find((p) => p.key === key);
     if (!spec) {
       const best = closestWord(key, [...keys, ...DECLARATIONS.map((d) => d.keyword)]);
-      ctx.r.add("property.unknown", prop.key.span, `the arm has no property \`${key}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+      ctx.r.add(
+        "property.unknown",
+        prop.key.span,
+        `the arm has no property \`${key}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+        best ? { data: { suggestion: best } } : {},
+      );
       continue;
     }
-    if (seen.has(key)) ctx.r.add("property.repeated", prop.key.span, `\`${key}\` is given twice; this one counts`);
+    if (seen.has(key))
+      ctx.r.add("property.repeated", prop.key.span, `\`${key}\` is given twice; this one counts`);
     seen.add(key);
     const v = new Values(prop, ctx.r, spec.example);
     const g = readQuantity(v, ["acceleration"]);
     v.finish();
-    if (g && g.value <= 0) ctx.r.add("value.impossible", g.span, `gravity must be positive (it points down), got ${ctx.r.quote(g.span)}`);
+    if (g && g.value <= 0)
+      ctx.r.add(
+        "value.impossible",
+        g.span,
+        `gravity must be positive (it points down), got ${ctx.r.quote(g.span)}`,
+      );
     else if (g) gravity = g.value;
   }
   return gravity;
 }
 
-function reportMobility(ctx: BuildContext, bodies: Body[], base: Base | undefined, joints: Joint[], parallelograms: Parallelogram[]): void {
+function reportMobility(
+  ctx: BuildContext,
+  bodies: Body[],
+  base: Base | undefined,
+  joints: Joint[],
+  parallelograms: Parallelogram[],
+): void {
   const result = analyseMobility(
     bodies.map((b) => b.id),
     base?.bodyId,
@@ -219,7 +297,11 @@ function reportMobility(ctx: BuildContext, bodies: Body[], base: Base | undefine
     const pick = block.passiveJoints.find((id) => !id.includes(".")) ?? block.passiveJoints[0]!;
     const joint = ctx.joints.get(pick)!;
     const at = joint.origin.name ?? joint.origin.declaration;
-    const what = stageIds.has(pick) ? `parallelogram ${pick}` : joint.origin.generatedBy ? `joint ${pick} of parallelogram ${joint.origin.generatedBy}` : `joint ${pick}`;
+    const what = stageIds.has(pick)
+      ? `parallelogram ${pick}`
+      : joint.origin.generatedBy
+        ? `joint ${pick} of parallelogram ${joint.origin.generatedBy}`
+        : `joint ${pick}`;
     ctx.r.add("joint.unheld", at, `${what} is free but nothing holds it: give it a range or make it fixed`, {
       data: { joints: block.passiveJoints, mobility: block.mobility },
     });
@@ -232,10 +314,18 @@ function reportMobility(ctx: BuildContext, bodies: Body[], base: Base | undefine
       // A stage whose `on` could not be read already has its error; otherwise say it once.
       if (reportedStages.has(stage) || !ctx.parallelograms.has(stage)) continue;
       reportedStages.add(stage);
-      ctx.r.add("body.unconnected", body.origin.name ?? body.origin.declaration, `parallelogram ${stage} is not connected to the base`);
+      ctx.r.add(
+        "body.unconnected",
+        body.origin.name ?? body.origin.declaration,
+        `parallelogram ${stage} is not connected to the base`,
+      );
       continue;
     }
     if (body.kind === "base") continue;
-    ctx.r.add("body.unconnected", body.origin.name ?? body.origin.declaration, `link ${id} is not connected to the base: no joint chain reaches it`);
+    ctx.r.add(
+      "body.unconnected",
+      body.origin.name ?? body.origin.declaration,
+      `link ${id} is not connected to the base: no joint chain reaches it`,
+    );
   }
 }

@@ -14,13 +14,29 @@ export function extensionActiveCoils(bodyCoils: number, shearModulus: number, mo
 }
 
 /** Rate of a helical spring k = G d^4 / (8 D^3 Na), N/m (Shigley eq. 10-9). */
-export function helicalSpringRate(wireDiameter: number, meanDiameter: number, activeCoils: number, shearModulus: number): number {
+export function helicalSpringRate(
+  wireDiameter: number,
+  meanDiameter: number,
+  activeCoils: number,
+  shearModulus: number,
+): number {
   return (shearModulus * wireDiameter ** 4) / (8 * meanDiameter ** 3 * activeCoils);
 }
 
 /** Rate of an extension spring from its coil: Na = Nb + G/E, then k = G d^4 / (8 D^3 Na). */
-export function extensionSpringRate(wireDiameter: number, meanDiameter: number, bodyCoils: number, shearModulus: number, modulus: number): number {
-  return helicalSpringRate(wireDiameter, meanDiameter, extensionActiveCoils(bodyCoils, shearModulus, modulus), shearModulus);
+export function extensionSpringRate(
+  wireDiameter: number,
+  meanDiameter: number,
+  bodyCoils: number,
+  shearModulus: number,
+  modulus: number,
+): number {
+  return helicalSpringRate(
+    wireDiameter,
+    meanDiameter,
+    extensionActiveCoils(bodyCoils, shearModulus, modulus),
+    shearModulus,
+  );
 }
 
 /** Bergstraesser factor K_B = (4C + 2) / (4C - 3) (Shigley eq. 10-5). */
@@ -34,12 +50,22 @@ export function wahlFactor(index: number): number {
 }
 
 /** Body shear stress tau = K 8 F D / (pi d^3), Pa, with K the curvature factor (Shigley eq. 10-7). */
-export function coilShearStress(force: number, meanDiameter: number, wireDiameter: number, curvatureFactor: number): number {
+export function coilShearStress(
+  force: number,
+  meanDiameter: number,
+  wireDiameter: number,
+  curvatureFactor: number,
+): number {
   return (curvatureFactor * 8 * force * meanDiameter) / (Math.PI * wireDiameter ** 3);
 }
 
 /** Torsion spring rate per radian: k' = d^4 E / (10.8 D Na) per turn, over 2 pi (Shigley
  * section 10-12, eq. 10-51). */
-export function torsionSpringRatePerRad(wireDiameter: number, meanDiameter: number, activeCoils: number, modulus: number): number {
+export function torsionSpringRatePerRad(
+  wireDiameter: number,
+  meanDiameter: number,
+  activeCoils: number,
+  modulus: number,
+): number {
   return (wireDiameter ** 4 * modulus) / (10.8 * meanDiameter * activeCoils) / (2 * Math.PI);
 }

@@ -37,7 +37,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.36,
     strength: 56.6 * MPa,
     printed: true,
-    source: "Printed PLA, in plane: density, E and mean tensile strength from Tymrak, Kreiger and Pearce, Materials & Design 58, 2014 (from memory); Poisson's ratio from memory.",
+    source:
+      "Printed PLA, in plane: density, E and mean tensile strength from Tymrak, Kreiger and Pearce, Materials & Design 58, 2014 (from memory); Poisson's ratio from memory.",
   },
   {
     id: "petg",
@@ -46,7 +47,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.38,
     strength: 40 * MPa,
     printed: true,
-    source: "Printed PETG, in plane: E 1.9-2.1 GPa (middle taken), tensile 40-50 MPa (low end taken), Ozen et al., Materials 14:2556, 2021 (from memory); Poisson's ratio from memory.",
+    source:
+      "Printed PETG, in plane: E 1.9-2.1 GPa (middle taken), tensile 40-50 MPa (low end taken), Ozen et al., Materials 14:2556, 2021 (from memory); Poisson's ratio from memory.",
   },
   {
     id: "abs",
@@ -55,7 +57,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.35,
     strength: 28.5 * MPa,
     printed: true,
-    source: "Printed ABS, in plane: Tymrak, Kreiger and Pearce, Materials & Design 58, 2014 (from memory); Poisson's ratio from memory.",
+    source:
+      "Printed ABS, in plane: Tymrak, Kreiger and Pearce, Materials & Design 58, 2014 (from memory); Poisson's ratio from memory.",
   },
   {
     id: "nylon",
@@ -64,7 +67,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.39,
     strength: 50 * MPa,
     printed: true,
-    source: "Printed PA6, dry: E 1.5-2.5 GPa (middle), tensile 50-70 MPa (low end), 30-50 % lower when moist; Lay et al., Compos. B 176, 2019 (from memory); Poisson's ratio from memory.",
+    source:
+      "Printed PA6, dry: E 1.5-2.5 GPa (middle), tensile 50-70 MPa (low end), 30-50 % lower when moist; Lay et al., Compos. B 176, 2019 (from memory); Poisson's ratio from memory.",
   },
   {
     id: "pa12",
@@ -82,7 +86,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.33,
     strength: 276 * MPa,
     printed: false,
-    source: "Aluminium 6061-T6, typical: yield 276 MPa (ultimate 310), E 68.9 GPa, ASM Handbook vol. 2 (from memory).",
+    source:
+      "Aluminium 6061-T6, typical: yield 276 MPa (ultimate 310), E 68.9 GPa, ASM Handbook vol. 2 (from memory).",
   },
   {
     id: "steel_1018",
@@ -91,7 +96,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.292,
     strength: 370 * MPa,
     printed: false,
-    source: "AISI 1018 cold drawn: yield 370 MPa (ultimate 440), Shigley table A-20; E 207 GPa and Poisson's ratio 0.292, Shigley table A-5.",
+    source:
+      "AISI 1018 cold drawn: yield 370 MPa (ultimate 440), Shigley table A-20; E 207 GPa and Poisson's ratio 0.292, Shigley table A-5.",
   },
   {
     id: "stainless_304",
@@ -100,7 +106,8 @@ const ENTRIES: Entry[] = [
     poisson: 0.29,
     strength: 205 * MPa,
     printed: false,
-    source: "Stainless 304 annealed: yield >= 205 MPa (ultimate >= 515), ASTM A240 minimums (from memory); E 193 GPa; Poisson's ratio from memory.",
+    source:
+      "Stainless 304 annealed: yield >= 205 MPa (ultimate >= 515), ASTM A240 minimums (from memory); E 193 GPa; Poisson's ratio from memory.",
   },
   {
     id: "music_wire",

@@ -30,7 +30,11 @@ export interface MobilityResult {
   unconnected: string[];
 }
 
-export function analyseMobility(bodyIds: readonly string[], baseId: string | undefined, joints: readonly MobilityJoint[]): MobilityResult {
+export function analyseMobility(
+  bodyIds: readonly string[],
+  baseId: string | undefined,
+  joints: readonly MobilityJoint[],
+): MobilityResult {
   const adjacency = new Map<string, { edge: number; other: string }[]>();
   for (const b of bodyIds) adjacency.set(b, []);
   joints.forEach((j, edge) => {
@@ -45,7 +49,8 @@ export function analyseMobility(bodyIds: readonly string[], baseId: string | und
     reached.add(baseId);
     while (queue.length > 0) {
       const b = queue.pop()!;
-      for (const { other } of adjacency.get(b) ?? []) if (!reached.has(other)) (reached.add(other), queue.push(other));
+      for (const { other } of adjacency.get(b) ?? [])
+        if (!reached.has(other)) (reached.add(other), queue.push(other));
     }
   }
   const unconnected = bodyIds.filter((b) => !reached.has(b));

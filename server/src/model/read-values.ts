@@ -22,7 +22,12 @@ export class Reporter {
     this.index = quietLines.size > 0 ? new LineIndex(text) : undefined;
   }
 
-  add(code: Code, at: Span, message: string, extra: { related?: RelatedInfo[]; data?: Record<string, unknown> } = {}): void {
+  add(
+    code: Code,
+    at: Span,
+    message: string,
+    extra: { related?: RelatedInfo[]; data?: Record<string, unknown> } = {},
+  ): void {
     if (this.index && this.quietLines.has(this.index.position(at.start).line)) return;
     this.findings.push(finding(code, at, message, extra));
   }
@@ -69,7 +74,11 @@ export class Values {
 
   missing(what: string): void {
     const after = this.index === 0 ? `\`${this.key}\`` : `\`${this.r.quote(this.missingAt())}\``;
-    this.r.add("value.invalid", this.missingAt(), `expected ${what} after ${after}, e.g. \`${this.example}\``);
+    this.r.add(
+      "value.invalid",
+      this.missingAt(),
+      `expected ${what} after ${after}, e.g. \`${this.example}\``,
+    );
   }
 
   /** Reports values left over after the shape is read. */
@@ -77,7 +86,11 @@ export class Values {
     const rest = this.prop.values.slice(this.index);
     if (rest.length === 0) return;
     const s = makeSpan(rest[0]!.span.start, rest[rest.length - 1]!.span.end);
-    this.r.add("value.invalid", s, `unexpected \`${this.r.quote(s)}\` after \`${this.key}\`: write it as \`${this.example}\``);
+    this.r.add(
+      "value.invalid",
+      s,
+      `unexpected \`${this.r.quote(s)}\` after \`${this.key}\`: write it as \`${this.example}\``,
+    );
     this.index = this.prop.values.length;
   }
 }
@@ -104,7 +117,12 @@ export function isWord(v: ValueNode | undefined): v is ReferenceNode {
 
 /** Checks one quantity node; reports on the number (missing unit) or on the unit (unknown, wrong
  * dimension). Returns SI. */
-export function quantityValue(q: QuantityNode, key: string, dims: readonly DimensionName[], r: Reporter): number | undefined {
+export function quantityValue(
+  q: QuantityNode,
+  key: string,
+  dims: readonly DimensionName[],
+  r: Reporter,
+): number | undefined {
   return checkedQuantity(q, key, dims, r)?.value;
 }
 
@@ -115,17 +133,32 @@ export function quantityValue(q: QuantityNode, key: string, dims: readonly Dimen
 const SMALLEST_MAGNITUDE = 1e-15;
 const LARGEST_MAGNITUDE = 1e15;
 
-function checkedQuantity(q: QuantityNode, key: string, dims: readonly DimensionName[], r: Reporter): { value: number; dimension: DimensionName } | undefined {
+function checkedQuantity(
+  q: QuantityNode,
+  key: string,
+  dims: readonly DimensionName[],
+  r: Reporter,
+): { value: number; dimension: DimensionName } | undefined {
   if (!Number.isFinite(q.value)) {
     r.add("value.invalid", q.numberSpan, `\`${q.numberText}\` is too large a number to compute with`);
     return undefined;
   }
   if (q.value === 0 && /[1-9]/.test(q.numberText.replace(/[eE].*$/, ""))) {
-    r.add("value.invalid", q.numberSpan, `\`${q.numberText}\` is too small a number to compute with (it reads as 0)`);
+    r.add(
+      "value.invalid",
+      q.numberSpan,
+      `\`${q.numberText}\` is too small a number to compute with (it reads as 0)`,
+    );
     return undefined;
   }
   const c = checkQuantity(key, q.value, q.numberText, q.unit?.text, dims);
-  if (c.ok && c.valueSI !== 0 && (!Number.isFinite(c.valueSI) || Math.abs(c.valueSI) < SMALLEST_MAGNITUDE || Math.abs(c.valueSI) > LARGEST_MAGNITUDE)) {
+  if (
+    c.ok &&
+    c.valueSI !== 0 &&
+    (!Number.isFinite(c.valueSI) ||
+      Math.abs(c.valueSI) < SMALLEST_MAGNITUDE ||
+      Math.abs(c.valueSI) > LARGEST_MAGNITUDE)
+  ) {
     r.add("value.impossible", q.span, `\`${r.quote(q.span)}\` is far outside anything an arm can have`);
     return undefined;
   }
@@ -140,7 +173,11 @@ function checkedQuantity(q: QuantityNode, key: string, dims: readonly DimensionN
  * a number with an unknown unit (`30 gr`: "unknown unit `gr`; did you mean g?"): the parser only
  * joins known units to their number, so the word arrives here on its own.
  */
-export function readQuantity(v: Values, dims: readonly DimensionName[], opts: { nextTakesWord?: boolean } = {}): (Read<number> & { dimension: DimensionName }) | undefined {
+export function readQuantity(
+  v: Values,
+  dims: readonly DimensionName[],
+  opts: { nextTakesWord?: boolean } = {},
+): (Read<number> & { dimension: DimensionName }) | undefined {
   const node = v.next();
   const what = dims.map((d) => DIMENSION_WORDS[d]).join(" or ");
   if (!node) {
@@ -148,15 +185,26 @@ export function readQuantity(v: Values, dims: readonly DimensionName[], opts: { 
     return undefined;
   }
   if (node.kind !== "quantity") {
-    v.r.add("value.invalid", node.span, `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``);
+    v.r.add(
+      "value.invalid",
+      node.span,
+      `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``,
+    );
     return undefined;
   }
   const following = v.peek();
   if (!node.unit && !dims.includes("dimensionless") && isWord(following) && !opts.nextTakesWord) {
     v.next();
     const parsed = parseUnit(following.parts[0]!.text);
-    const message = parsed.ok ? `unexpected space inside \`${v.r.quote(makeSpan(node.span.start, following.span.end))}\`` : parsed.message;
-    v.r.add("unit.unknown", following.span, message, !parsed.ok && parsed.suggestion ? { data: { suggestion: parsed.suggestion } } : {});
+    const message = parsed.ok
+      ? `unexpected space inside \`${v.r.quote(makeSpan(node.span.start, following.span.end))}\``
+      : parsed.message;
+    v.r.add(
+      "unit.unknown",
+      following.span,
+      message,
+      !parsed.ok && parsed.suggestion ? { data: { suggestion: parsed.suggestion } } : {},
+    );
     return undefined;
   }
   const c = checkedQuantity(node, v.key, dims, v.r);
@@ -170,16 +218,25 @@ export function readRange(v: Values, dim: DimensionName): Read<[number, number]>
     return undefined;
   }
   if (node.kind !== "range") {
-    v.r.add("value.invalid", node.span, `\`${v.key}\` expects a range \`low .. high\`, e.g. \`${v.example}\``);
+    v.r.add(
+      "value.invalid",
+      node.span,
+      `\`${v.key}\` expects a range \`low .. high\`, e.g. \`${v.example}\``,
+    );
     return undefined;
   }
   const lo = quantityValue(node.low, v.key, [dim], v.r);
   const hi = quantityValue(node.high, v.key, [dim], v.r);
   if (lo === undefined || hi === undefined) return undefined;
   if (lo > hi) {
-    v.r.add("value.impossible", node.span, `reversed range: the low end ${v.r.quote(node.low.span)} is above the high end ${v.r.quote(node.high.span)}`, {
-      data: { suggestion: `${v.r.quote(node.high.span)} .. ${v.r.quote(node.low.span)}` },
-    });
+    v.r.add(
+      "value.impossible",
+      node.span,
+      `reversed range: the low end ${v.r.quote(node.low.span)} is above the high end ${v.r.quote(node.high.span)}`,
+      {
+        data: { suggestion: `${v.r.quote(node.high.span)} .. ${v.r.quote(node.low.span)}` },
+      },
+    );
     // Kept in order so that what is built from it stays consistent; the error stands.
     return { value: [hi, lo], span: node.span };
   }
@@ -187,7 +244,12 @@ export function readRange(v: Values, dim: DimensionName): Read<[number, number]>
 }
 
 /** `(x, y)` with both parts of one dimension (lengths for points, forces for `force`). */
-export function pointValue(node: ValueNode | undefined, key: string, dim: DimensionName, r: Reporter): Vec2 | undefined {
+export function pointValue(
+  node: ValueNode | undefined,
+  key: string,
+  dim: DimensionName,
+  r: Reporter,
+): Vec2 | undefined {
   if (!node || node.kind !== "point") return undefined;
   const x = quantityValue(node.x, key, [dim], r);
   const y = quantityValue(node.y, key, [dim], r);
@@ -239,14 +301,23 @@ export function readSection(v: Values): Read<Section> | undefined {
     return undefined;
   }
   if (!isWord(shapeNode)) {
-    v.r.add("value.invalid", shapeNode.span, `expected the section's shape first: rect, tube or rod, e.g. \`rect 20 mm x 6 mm\``);
+    v.r.add(
+      "value.invalid",
+      shapeNode.span,
+      `expected the section's shape first: rect, tube or rod, e.g. \`rect 20 mm x 6 mm\``,
+    );
     if (shapeNode.kind === "dims" || shapeNode.kind === "quantity") return undefined;
     return undefined;
   }
   const shape = shapeNode.parts[0]!.text;
   if (!(SECTION_SHAPES as readonly string[]).includes(shape)) {
     const best = closestWord(shape, SECTION_SHAPES);
-    v.r.add("value.invalid", shapeNode.span, `unknown section \`${shape}\`${best ? `; did you mean \`${best}\`?` : ""} (the sections are rect, tube and rod)`, best ? { data: { suggestion: best } } : {});
+    v.r.add(
+      "value.invalid",
+      shapeNode.span,
+      `unknown section \`${shape}\`${best ? `; did you mean \`${best}\`?` : ""} (the sections are rect, tube and rod)`,
+      best ? { data: { suggestion: best } } : {},
+    );
     v.next();
     return undefined;
   }
@@ -262,8 +333,14 @@ export function readSection(v: Values): Read<Section> | undefined {
   const sizes = v.next();
   if (!sizes || sizes.kind !== "dims") {
     const example = shape === "rect" ? "rect 20 mm x 6 mm" : "tube 25 mm x 2 mm";
-    if (sizes) v.r.add("value.invalid", sizes.span, `a ${shape} section takes two sizes, e.g. \`${example}\``);
-    else v.r.add("value.invalid", shapeNode.span, `expected the ${shape}'s two sizes after \`${shape}\`, e.g. \`${example}\``);
+    if (sizes)
+      v.r.add("value.invalid", sizes.span, `a ${shape} section takes two sizes, e.g. \`${example}\``);
+    else
+      v.r.add(
+        "value.invalid",
+        shapeNode.span,
+        `expected the ${shape}'s two sizes after \`${shape}\`, e.g. \`${example}\``,
+      );
     return undefined;
   }
   const d = dimsValue(sizes, v.key, v.r);
@@ -271,16 +348,28 @@ export function readSection(v: Values): Read<Section> | undefined {
   const whole = makeSpan(shapeNode.span.start, sizes.span.end);
   const [a, b] = d;
   if (a <= 0) {
-    v.r.add("value.impossible", sizes.first.span, `a section's size must be positive, got ${v.r.quote(sizes.first.span)}`);
+    v.r.add(
+      "value.impossible",
+      sizes.first.span,
+      `a section's size must be positive, got ${v.r.quote(sizes.first.span)}`,
+    );
     return undefined;
   }
   if (b <= 0) {
-    v.r.add("value.impossible", sizes.second.span, `a section's size must be positive, got ${v.r.quote(sizes.second.span)}`);
+    v.r.add(
+      "value.impossible",
+      sizes.second.span,
+      `a section's size must be positive, got ${v.r.quote(sizes.second.span)}`,
+    );
     return undefined;
   }
   if (shape === "rect") return { value: { shape: "rect", depth: a, width: b }, span: whole };
   if (b >= a / 2) {
-    v.r.add("value.impossible", sizes.second.span, `a tube's wall (${v.r.quote(sizes.second.span)}) must be less than its radius (half of ${v.r.quote(sizes.first.span)}): for a solid bar write \`rod ${v.r.quote(sizes.first.span)}\``);
+    v.r.add(
+      "value.impossible",
+      sizes.second.span,
+      `a tube's wall (${v.r.quote(sizes.second.span)}) must be less than its radius (half of ${v.r.quote(sizes.first.span)}): for a solid bar write \`rod ${v.r.quote(sizes.first.span)}\``,
+    );
     return undefined;
   }
   return { value: { shape: "tube", outerDiameter: a, wall: b }, span: whole };
@@ -294,7 +383,11 @@ export function readWord(v: Values, what: string): Read<string> | undefined {
     return undefined;
   }
   if (!isWord(node)) {
-    v.r.add("value.invalid", node.span, `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``);
+    v.r.add(
+      "value.invalid",
+      node.span,
+      `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``,
+    );
     return undefined;
   }
   return { value: node.parts[0]!.text, span: node.span };
@@ -306,7 +399,12 @@ export function readChoice(v: Values, words: readonly string[]): Read<string> | 
   if (!w) return undefined;
   if (!words.includes(w.value)) {
     const best = closestWord(w.value, words);
-    v.r.add("value.invalid", w.span, `\`${v.key}\` is one of ${words.join(", ").replace(/, ([^,]*)$/, " or $1")}; got \`${w.value}\`${best ? `; did you mean \`${best}\`?` : ""}`, best ? { data: { suggestion: best } } : {});
+    v.r.add(
+      "value.invalid",
+      w.span,
+      `\`${v.key}\` is one of ${words.join(", ").replace(/, ([^,]*)$/, " or $1")}; got \`${w.value}\`${best ? `; did you mean \`${best}\`?` : ""}`,
+      best ? { data: { suggestion: best } } : {},
+    );
     return undefined;
   }
   return w;
@@ -324,7 +422,12 @@ export function readKeyword(v: Values, word: string, before: string): boolean {
     v.missing(`\`${word}\` ${before}`);
     return false;
   }
-  v.r.add("value.invalid", node.span, `expected \`${word}\` before \`${v.r.quote(node.span)}\`, e.g. \`${v.example}\``, { data: { insert: `${word} ` } });
+  v.r.add(
+    "value.invalid",
+    node.span,
+    `expected \`${word}\` before \`${v.r.quote(node.span)}\`, e.g. \`${v.example}\``,
+    { data: { insert: `${word} ` } },
+  );
   return true;
 }
 
@@ -335,7 +438,11 @@ export function readReference(v: Values, what: string): ReferenceNode | undefine
     return undefined;
   }
   if (node.kind !== "reference") {
-    v.r.add("value.invalid", node.span, `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``);
+    v.r.add(
+      "value.invalid",
+      node.span,
+      `\`${v.key}\` expects ${what}, e.g. \`${v.example}\`; got \`${v.r.quote(node.span)}\``,
+    );
     return undefined;
   }
   return node;

@@ -20,11 +20,23 @@ export function sectionProperties(section: Section): SectionProperties {
   switch (section.shape) {
     case "rect": {
       const { depth, width } = section;
-      return { area: depth * width, secondMoment: (width * depth ** 3) / 12, extremeFibre: depth / 2, depth, width };
+      return {
+        area: depth * width,
+        secondMoment: (width * depth ** 3) / 12,
+        extremeFibre: depth / 2,
+        depth,
+        width,
+      };
     }
     case "rod": {
       const d = section.diameter;
-      return { area: (Math.PI * d * d) / 4, secondMoment: (Math.PI * d ** 4) / 64, extremeFibre: d / 2, depth: d, width: d };
+      return {
+        area: (Math.PI * d * d) / 4,
+        secondMoment: (Math.PI * d ** 4) / 64,
+        extremeFibre: d / 2,
+        depth: d,
+        width: d,
+      };
     }
     case "tube": {
       const od = section.outerDiameter;

@@ -53,7 +53,13 @@ function allTokens(node: CstNode): IToken[] {
 
 function nodeSpan(node: CstNode): Span {
   const loc = node.location;
-  if (loc && Number.isFinite(loc.startOffset) && loc.endOffset !== undefined && Number.isFinite(loc.endOffset)) return span(loc.startOffset, loc.endOffset + 1);
+  if (
+    loc &&
+    Number.isFinite(loc.startOffset) &&
+    loc.endOffset !== undefined &&
+    Number.isFinite(loc.endOffset)
+  )
+    return span(loc.startOffset, loc.endOffset + 1);
   const ts = allTokens(node);
   if (ts.length === 0) return span(0, 0);
   return span(ts[0]!.startOffset, ts[ts.length - 1]!.endOffset! + 1);
@@ -67,7 +73,8 @@ function quote(text: string): string {
 /** The direct parts of a node (tokens and sub-rules) in source order. */
 function ordered(node: CstNode): (CstNode | IToken)[] {
   const parts: (CstNode | IToken)[] = [];
-  for (const list of Object.values(node.children)) for (const c of list ?? []) if (!isToken(c) || !c.isInsertedInRecovery) parts.push(c);
+  for (const list of Object.values(node.children))
+    for (const c of list ?? []) if (!isToken(c) || !c.isInsertedInRecovery) parts.push(c);
   const starts = new Map(parts.map((p) => [p, isToken(p) ? p.startOffset : nodeSpan(p).start]));
   return parts.sort((a, b) => starts.get(a)! - starts.get(b)!);
 }
@@ -134,9 +141,14 @@ export class TreeBuilder {
         const head = tokens(part.children, "Identifier")[0]!;
         const block = nodes(part.children, "block")[0];
         const last = arms[arms.length - 1];
-        const looksLikeArm = head.image === "arm" || (block !== undefined && !isDeclarationKeyword(head.image) && !last);
+        const looksLikeArm =
+          head.image === "arm" || (block !== undefined && !isDeclarationKeyword(head.image) && !last);
         if (looksLikeArm && block) {
-          if (head.image !== "arm") this.error(`unknown word \`${head.image}\`: a file starts with \`arm "title" {\``, tokenSpan(head));
+          if (head.image !== "arm")
+            this.error(
+              `unknown word \`${head.image}\`: a file starts with \`arm "title" {\``,
+              tokenSpan(head),
+            );
           arms.push(this.arm(part, head, block));
           reopened = undefined;
           continue;
@@ -144,7 +156,10 @@ export class TreeBuilder {
         if (last && (last.closeBrace || reopened === last)) {
           // A declaration after the arm's closing brace: that brace was most likely one too many.
           if (!reported.has(last) && last.closeBrace) {
-            this.error("this `}` closes the arm, but declarations follow it: is it one `}` too many?", last.closeBrace);
+            this.error(
+              "this `}` closes the arm, but declarations follow it: is it one `}` too many?",
+              last.closeBrace,
+            );
             reported.add(last);
           }
           reopened = last;
@@ -153,11 +168,18 @@ export class TreeBuilder {
           continue;
         }
         if (head.image === "arm") this.error("expected `{` after the arm's title", nodeSpan(part));
-        else this.error(`\`${head.image}\` is outside the arm: declarations go inside \`arm "title" { ... }\``, tokenSpan(head));
+        else
+          this.error(
+            `\`${head.image}\` is outside the arm: declarations go inside \`arm "title" { ... }\``,
+            tokenSpan(head),
+          );
         continue;
       }
       if (part.name === "block") {
-        this.error('a `{` with nothing before it: expected `arm "title" {`', tokenSpan(tokens(part.children, "LCurly")[0]!));
+        this.error(
+          'a `{` with nothing before it: expected `arm "title" {`',
+          tokenSpan(tokens(part.children, "LCurly")[0]!),
+        );
         continue;
       }
       if (part.name === "strayLine") this.strayLine(part);
@@ -182,7 +204,8 @@ export class TreeBuilder {
     for (const [i, v] of nodes(item.children, "value").entries()) {
       const node = this.value(v);
       if (i === 0 && node?.kind === "string") title = node;
-      else if (node) this.error(`unexpected \`${this.textOf(node.span)}\`: the arm takes a title in quotes`, node.span);
+      else if (node)
+        this.error(`unexpected \`${this.textOf(node.span)}\`: the arm takes a title in quotes`, node.span);
     }
     for (const j of nodes(item.children, "junk")) this.junk(j);
     const lcurly = tokens(block.children, "LCurly")[0]!;
@@ -200,7 +223,8 @@ export class TreeBuilder {
 
   private armPart(part: CstNode, arm: MutableArm): void {
     if (part.name === "item") this.armItem(part, arm);
-    else if (part.name === "block") this.error("a `{` with no declaration before it", tokenSpan(tokens(part.children, "LCurly")[0]!));
+    else if (part.name === "block")
+      this.error("a `{` with no declaration before it", tokenSpan(tokens(part.children, "LCurly")[0]!));
     else if (part.name === "strayLine") this.strayLine(part);
   }
 
@@ -230,10 +254,14 @@ export class TreeBuilder {
     if (first?.kind === "reference" && first.parts.length === 1 && !first.point) name = first.parts[0];
     const known = isDeclarationKeyword(head.image);
     const named = !(UNNAMED_DECLARATIONS as readonly string[]).includes(head.image);
-    if (first && !name) this.error(`expected a name after \`${head.image}\`, got \`${this.textOf(first.span)}\``, first.span);
-    else if (name && !named) this.error(`\`${head.image}\` takes no name: write \`${head.image} {\``, name.span);
-    else if (!name && named && known) this.error(`\`${head.image}\` needs a name: \`${head.image} NAME {\``, keyword.span);
-    for (const extra of values.slice(1)) if (extra) this.error(`unexpected \`${this.textOf(extra.span)}\` before \`{\``, extra.span);
+    if (first && !name)
+      this.error(`expected a name after \`${head.image}\`, got \`${this.textOf(first.span)}\``, first.span);
+    else if (name && !named)
+      this.error(`\`${head.image}\` takes no name: write \`${head.image} {\``, name.span);
+    else if (!name && named && known)
+      this.error(`\`${head.image}\` needs a name: \`${head.image} NAME {\``, keyword.span);
+    for (const extra of values.slice(1))
+      if (extra) this.error(`unexpected \`${this.textOf(extra.span)}\` before \`{\``, extra.span);
     for (const j of nodes(item.children, "junk")) this.junk(j);
 
     const what = name ? `${head.image} ${name.text}` : head.image;
@@ -246,9 +274,17 @@ export class TreeBuilder {
         if (part.name === "item") {
           const h = tokens(part.children, "Identifier")[0]!;
           const inner = nodes(part.children, "block")[0];
-          if (inner) this.error(`a \`{ }\` block cannot sit inside ${what}`, tokenSpan(tokens(inner.children, "LCurly")[0]!));
+          if (inner)
+            this.error(
+              `a \`{ }\` block cannot sit inside ${what}`,
+              tokenSpan(tokens(inner.children, "LCurly")[0]!),
+            );
           else properties.push(this.property(part, h));
-        } else if (part.name === "block") this.error(`a \`{ }\` block cannot sit inside ${what}`, tokenSpan(tokens(part.children, "LCurly")[0]!));
+        } else if (part.name === "block")
+          this.error(
+            `a \`{ }\` block cannot sit inside ${what}`,
+            tokenSpan(tokens(part.children, "LCurly")[0]!),
+          );
         else if (part.name === "strayLine") this.strayLine(part);
       }
     }
@@ -279,7 +315,12 @@ export class TreeBuilder {
       if (node) values.push(node);
     }
     for (const j of nodes(item.children, "junk")) this.junk(j, head);
-    return { kind: "property", key: { text: head.image, span: tokenSpan(head) }, values, span: nodeSpan(item) };
+    return {
+      kind: "property",
+      key: { text: head.image, span: tokenSpan(head) },
+      values,
+      span: nodeSpan(item),
+    };
   }
 
   private value(v: CstNode): ValueNode | undefined {
@@ -312,7 +353,9 @@ export class TreeBuilder {
       return low;
     }
     const whole = span(low.span.start, high.span.end);
-    return joiner.tokenType.name === "DotDot" ? { kind: "range", low, high, span: whole } : { kind: "dims", first: low, second: high, span: whole };
+    return joiner.tokenType.name === "DotDot"
+      ? { kind: "range", low, high, span: whole }
+      : { kind: "dims", first: low, second: high, span: whole };
   }
 
   private quantity(node: CstNode): QuantityNode {
@@ -338,7 +381,11 @@ export class TreeBuilder {
     const rparen = tokens(c, "RParen")[0];
     const x = qs[0] && (!comma || qs[0].span.start < comma.startOffset) ? qs[0] : undefined;
     const y = x ? qs[1] : qs[0];
-    if (!x) this.error("expected the point's x after `(`, e.g. `(40 mm, 0 mm)`", comma ? tokenSpan(comma) : tokenSpan(lparen));
+    if (!x)
+      this.error(
+        "expected the point's x after `(`, e.g. `(40 mm, 0 mm)`",
+        comma ? tokenSpan(comma) : tokenSpan(lparen),
+      );
     else if (!comma) this.error("expected `,` between the point's x and y", y ? y.span : x.span);
     else if (!y) this.error("expected the point's y after `,`", tokenSpan(comma));
     else if (!rparen) this.error("unclosed `(`: expected `)` after the point's y", tokenSpan(lparen));
@@ -352,7 +399,11 @@ export class TreeBuilder {
     const dots = tokens(c, "Dot");
     // Every dot is followed by a name unless the reference stops at a dangling dot (`mast.`).
     const dangling = dots.length >= ids.length ? dots[dots.length - 1] : undefined;
-    if (dangling) this.error(`expected a point name after \`${this.textOf(span(ids[0]!.span.start, dangling.endOffset! + 1))}\``, tokenSpan(dangling));
+    if (dangling)
+      this.error(
+        `expected a point name after \`${this.textOf(span(ids[0]!.span.start, dangling.endOffset! + 1))}\``,
+        tokenSpan(dangling),
+      );
     const pt = nodes(c, "point")[0];
     const point = pt ? this.point(pt) : undefined;
     const whole = nodeSpan(node);
@@ -374,7 +425,10 @@ export class TreeBuilder {
         return;
       case "Comma":
         // `1,5 mm`: a decimal comma between two digits.
-        if (/\d/.test(this.text[first.startOffset - 1] ?? "") && /\d/.test(this.text[first.endOffset! + 1] ?? "")) {
+        if (
+          /\d/.test(this.text[first.startOffset - 1] ?? "") &&
+          /\d/.test(this.text[first.endOffset! + 1] ?? "")
+        ) {
           this.error("write decimals with a point, e.g. `1.5`, not a comma", tokenSpan(first));
           return;
         }
@@ -390,7 +444,8 @@ export class TreeBuilder {
   private strayLine(node: CstNode): void {
     const whole = nodeSpan(node);
     const first = allTokens(node)[0];
-    if (first?.tokenType.name === "NumberLiteral") this.error(`expected a property name before \`${this.textOf(whole)}\``, whole);
+    if (first?.tokenType.name === "NumberLiteral")
+      this.error(`expected a property name before \`${this.textOf(whole)}\``, whole);
     else this.error(`unexpected \`${this.textOf(whole)}\``, whole);
   }
 }

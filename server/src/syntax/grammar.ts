@@ -57,7 +57,9 @@ export class ArmGrammar extends CstParser {
     const second = this.LA(2);
     if (second.tokenType === LCurly) return true;
     const third = this.LA(3);
-    return (second.tokenType === Identifier || second.tokenType === StringLiteral) && third.tokenType === LCurly;
+    return (
+      (second.tokenType === Identifier || second.tokenType === StringLiteral) && third.tokenType === LCurly
+    );
   }
 
   private isUnitWord(token: IToken): boolean {

@@ -13,13 +13,20 @@ export function parse(text: string): SyntaxTree {
   } catch (err) {
     // A fault in the parser itself must not take the editor down: say so and return nothing.
     const detail = err instanceof Error ? err.message : String(err);
-    return { arms: [], comments: [], errors: [{ message: `internal parser fault: ${detail}`, span: span(0, 0) }] };
+    return {
+      arms: [],
+      comments: [],
+      errors: [{ message: `internal parser fault: ${detail}`, span: span(0, 0) }],
+    };
   }
 }
 
 function parseUnguarded(text: string): SyntaxTree {
   const lexed = armLexer.tokenize(text);
-  const comments: CommentNode[] = (lexed.groups["comments"] ?? []).map((t) => ({ text: t.image, span: tokenSpan(t) }));
+  const comments: CommentNode[] = (lexed.groups["comments"] ?? []).map((t) => ({
+    text: t.image,
+    span: tokenSpan(t),
+  }));
   const lexErrors = lexingErrors(text, lexed.errors);
 
   armGrammar.resetDepth();
@@ -50,7 +57,8 @@ function lexingErrors(text: string, errors: ILexingError[]): SyntaxError[] {
   }
   return out.map((r) => {
     const chars = text.slice(r.start, r.end);
-    const message = chars === "\u00B0" ? "write angles with `deg`, e.g. `30 deg`" : `unexpected character \`${chars}\``;
+    const message =
+      chars === "\u00B0" ? "write angles with `deg`, e.g. `30 deg`" : `unexpected character \`${chars}\``;
     return { message, span: span(r.start, r.end) };
   });
 }

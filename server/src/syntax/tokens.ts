@@ -12,11 +12,23 @@ export const NonWord = createToken({ name: "NonWord", pattern: Lexer.NA, categor
 export const StrayStart = createToken({ name: "StrayStart", pattern: Lexer.NA, categories: [NonWord] });
 
 export const NewLine = createToken({ name: "NewLine", pattern: /\r\n|\r|\n/, line_breaks: true });
-export const WhiteSpace = createToken({ name: "WhiteSpace", pattern: /[ \t\f\v\u00A0\uFEFF]+/, group: Lexer.SKIPPED });
+export const WhiteSpace = createToken({
+  name: "WhiteSpace",
+  pattern: /[ \t\f\v\u00A0\uFEFF]+/,
+  group: Lexer.SKIPPED,
+});
 export const Comment = createToken({ name: "Comment", pattern: /#[^\r\n]*/, group: "comments" });
-export const StringLiteral = createToken({ name: "StringLiteral", pattern: /"(?:[^"\\\r\n]|\\.)*"/, categories: [NonWord] });
+export const StringLiteral = createToken({
+  name: "StringLiteral",
+  pattern: /"(?:[^"\\\r\n]|\\.)*"/,
+  categories: [NonWord],
+});
 /** A string whose closing quote is missing before the end of the line. */
-export const UnclosedString = createToken({ name: "UnclosedString", pattern: /"(?:[^"\\\r\n]|\\.)*\\?/, categories: [NonWord] });
+export const UnclosedString = createToken({
+  name: "UnclosedString",
+  pattern: /"(?:[^"\\\r\n]|\\.)*\\?/,
+  categories: [NonWord],
+});
 export const LCurly = createToken({ name: "LCurly", pattern: /\{/ });
 export const RCurly = createToken({ name: "RCurly", pattern: /\}/ });
 export const LParen = createToken({ name: "LParen", pattern: /\(/, categories: [NonWord] });
@@ -45,12 +57,18 @@ export const CompoundUnit = createToken({
  * part of a word so the model can say the name is not allowed (instead of a cascade of errors). */
 export const Identifier = createToken({
   name: "Identifier",
-  pattern: /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\uFFFF][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\uFFFF]*/,
+  pattern:
+    /[A-Za-z_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\uFFFF][A-Za-z0-9_\u00C0-\u00D6\u00D8-\u00F6\u00F8-\uFFFF]*/,
   categories: [LineToken],
 });
 /** `x` between two quantities (`20 mm x 6 mm`); the multiplication sign is accepted too. A word
  * that merely starts with x (`xmax`) stays an Identifier. */
-export const Cross = createToken({ name: "Cross", pattern: /x|\u00D7/, longer_alt: Identifier, categories: [StrayStart] });
+export const Cross = createToken({
+  name: "Cross",
+  pattern: /x|\u00D7/,
+  longer_alt: Identifier,
+  categories: [StrayStart],
+});
 
 /** In lexing order. */
 export const ALL_TOKENS: TokenType[] = [

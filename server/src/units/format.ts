@@ -19,35 +19,61 @@ function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI: numb
   const big = Math.abs(valueSI);
   if (system === "si") {
     switch (dimension) {
-      case "length": return unit("mm");
-      case "area": return unit("mm^2");
-      case "mass": return unit(big >= 1 ? "kg" : "g");
-      case "force": return unit("N");
-      case "torque": return unit("N*m");
-      case "stiffness": return unit("N/mm");
-      case "angular_stiffness": return unit("N*mm/deg");
-      case "angle": return unit("deg");
-      case "pressure": return unit(big >= 1e10 ? "GPa" : "MPa"); // moduli read in GPa, stresses in MPa
-      case "density": return unit("g/cm^3");
-      case "acceleration": return unit("m/s^2");
-      case "frequency": return unit("Hz");
-      case "dimensionless": return { symbol: "", factor: 1 };
+      case "length":
+        return unit("mm");
+      case "area":
+        return unit("mm^2");
+      case "mass":
+        return unit(big >= 1 ? "kg" : "g");
+      case "force":
+        return unit("N");
+      case "torque":
+        return unit("N*m");
+      case "stiffness":
+        return unit("N/mm");
+      case "angular_stiffness":
+        return unit("N*mm/deg");
+      case "angle":
+        return unit("deg");
+      case "pressure":
+        return unit(big >= 1e10 ? "GPa" : "MPa"); // moduli read in GPa, stresses in MPa
+      case "density":
+        return unit("g/cm^3");
+      case "acceleration":
+        return unit("m/s^2");
+      case "frequency":
+        return unit("Hz");
+      case "dimensionless":
+        return { symbol: "", factor: 1 };
     }
   }
   switch (dimension) {
-    case "length": return unit("in");
-    case "area": return unit("in^2");
-    case "mass": return unit(big >= unit("lb").factor ? "lb" : "oz");
-    case "force": return unit("lbf");
-    case "torque": return unit("lbf*in");
-    case "stiffness": return unit("lbf/in");
-    case "angular_stiffness": return unit("lbf*in/deg");
-    case "angle": return unit("deg");
-    case "pressure": return unit(big >= unit("ksi").factor ? "ksi" : "psi");
-    case "density": return unit("lb/in^3");
-    case "acceleration": return unit("ft/s^2");
-    case "frequency": return unit("Hz");
-    case "dimensionless": return { symbol: "", factor: 1 };
+    case "length":
+      return unit("in");
+    case "area":
+      return unit("in^2");
+    case "mass":
+      return unit(big >= unit("lb").factor ? "lb" : "oz");
+    case "force":
+      return unit("lbf");
+    case "torque":
+      return unit("lbf*in");
+    case "stiffness":
+      return unit("lbf/in");
+    case "angular_stiffness":
+      return unit("lbf*in/deg");
+    case "angle":
+      return unit("deg");
+    case "pressure":
+      return unit(big >= unit("ksi").factor ? "ksi" : "psi");
+    case "density":
+      return unit("lb/in^3");
+    case "acceleration":
+      return unit("ft/s^2");
+    case "frequency":
+      return unit("Hz");
+    case "dimensionless":
+      return { symbol: "", factor: 1 };
   }
 }
 
@@ -99,7 +125,11 @@ export function unitSystemOf(unitText: string): UnitSystem | undefined {
 
 /** The value as it reads in the other unit system than the one it was written in, for hovers;
  * undefined where both systems show the same (angles, frequencies, plain numbers). */
-export function formatInOtherSystem(valueSI: number, dimension: DimensionName, writtenUnit: string): string | undefined {
+export function formatInOtherSystem(
+  valueSI: number,
+  dimension: DimensionName,
+  writtenUnit: string,
+): string | undefined {
   if (dimension === "angle" || dimension === "frequency" || dimension === "dimensionless") return undefined;
   const written = unitSystemOf(writtenUnit) ?? "si";
   return formatQuantity(valueSI, dimension, otherSystem(written));

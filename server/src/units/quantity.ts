@@ -23,7 +23,11 @@ const FACTOR_PATTERN = /^([A-Za-z_][A-Za-z0-9_]*)(?:\^([-+]?\d+))?$/;
  */
 export function parseUnit(text: string): UnitParse {
   const halves = text.split("/");
-  if (halves.length > 2) return { ok: false, message: `unit \`${text}\` has more than one \`/\`: put the whole denominator after one \`/\`, e.g. N/m*s` };
+  if (halves.length > 2)
+    return {
+      ok: false,
+      message: `unit \`${text}\` has more than one \`/\`: put the whole denominator after one \`/\`, e.g. N/m*s`,
+    };
   let factor = 1;
   const dim = { mass: 0, length: 0, time: 0, angle: 0 };
   let system: UnitSystem = "si";
@@ -39,7 +43,11 @@ export function parseUnit(text: string): UnitParse {
         const best = closestWord(symbol, UNIT_SYMBOLS.keys());
         const whole = text === symbol ? `\`${symbol}\`` : `\`${symbol}\` in \`${text}\``;
         return best
-          ? { ok: false, message: `unknown unit ${whole}; did you mean ${best}?`, suggestion: text === symbol ? best : text.replace(symbol, best) }
+          ? {
+              ok: false,
+              message: `unknown unit ${whole}; did you mean ${best}?`,
+              suggestion: text === symbol ? best : text.replace(symbol, best),
+            }
           : { ok: false, message: `unknown unit ${whole}` };
       }
       factor *= u.factor ** power;
@@ -81,7 +89,13 @@ export const USUAL_UNIT: Readonly<Record<DimensionName, string>> = {
 
 export type QuantityCheck =
   | { ok: true; valueSI: number; dimension: DimensionName; system: UnitSystem | undefined }
-  | { ok: false; problem: "unit.missing" | "unit.unknown" | "unit.wrong-dimension"; message: string; onUnit: boolean; suggestion?: string };
+  | {
+      ok: false;
+      problem: "unit.missing" | "unit.unknown" | "unit.wrong-dimension";
+      message: string;
+      onUnit: boolean;
+      suggestion?: string;
+    };
 
 function expectation(key: string, expected: readonly DimensionName[]): string {
   return `${key} expects ${expected.map((d) => DIMENSION_WITH_ARTICLE[d]).join(" or ")}`;
@@ -91,9 +105,16 @@ function expectation(key: string, expected: readonly DimensionName[]): string {
  * Checks a number and its unit as written against the dimensions a property accepts and converts
  * to SI. `key` names the property for the message ("mass expects a mass, got a length: 30 mm").
  */
-export function checkQuantity(key: string, value: number, numberText: string, unitText: string | undefined, expected: readonly DimensionName[]): QuantityCheck {
+export function checkQuantity(
+  key: string,
+  value: number,
+  numberText: string,
+  unitText: string | undefined,
+  expected: readonly DimensionName[],
+): QuantityCheck {
   if (unitText === undefined) {
-    if (expected.includes("dimensionless")) return { ok: true, valueSI: value, dimension: "dimensionless", system: undefined };
+    if (expected.includes("dimensionless"))
+      return { ok: true, valueSI: value, dimension: "dimensionless", system: undefined };
     const usual = USUAL_UNIT[expected[0]!];
     return {
       ok: false,
@@ -104,12 +125,24 @@ export function checkQuantity(key: string, value: number, numberText: string, un
     };
   }
   const parsed = parseUnit(unitText);
-  if (!parsed.ok) return { ok: false, problem: "unit.unknown", message: parsed.message, onUnit: true, ...(parsed.suggestion ? { suggestion: parsed.suggestion } : {}) };
+  if (!parsed.ok)
+    return {
+      ok: false,
+      problem: "unit.unknown",
+      message: parsed.message,
+      onUnit: true,
+      ...(parsed.suggestion ? { suggestion: parsed.suggestion } : {}),
+    };
   const got = dimensionNameOf(parsed.unit.dimension);
   const match = expected.find((d) => sameDimension(DIMENSIONS[d], parsed.unit.dimension));
   if (!match) {
     const gotText = got ? DIMENSION_WITH_ARTICLE[got] : `a quantity in ${unitText}`;
-    return { ok: false, problem: "unit.wrong-dimension", message: `${expectation(key, expected)}, got ${gotText}: ${numberText} ${unitText}`, onUnit: true };
+    return {
+      ok: false,
+      problem: "unit.wrong-dimension",
+      message: `${expectation(key, expected)}, got ${gotText}: ${numberText} ${unitText}`,
+      onUnit: true,
+    };
   }
   return { ok: true, valueSI: value * parsed.unit.factor, dimension: match, system: parsed.unit.system };
 }

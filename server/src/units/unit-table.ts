@@ -13,7 +13,12 @@ export interface UnitSymbol {
   system: UnitSystem | "both";
 }
 
-const dim = (mass: number, length: number, time: number, angle: number): DimensionVector => ({ mass, length, time, angle });
+const dim = (mass: number, length: number, time: number, angle: number): DimensionVector => ({
+  mass,
+  length,
+  time,
+  angle,
+});
 
 const LENGTH = dim(0, 1, 0, 0);
 const MASS = dim(1, 0, 0, 0);

@@ -7,7 +7,16 @@ import type { Readouts } from "../checks/readout";
 import type { Span } from "../syntax/span";
 import { LineIndex } from "../syntax/span";
 import { sectionProperties } from "../model/section";
-import type { PartStatus, ViewBody, ViewFinding, ViewModel, ViewPart, ViewPose, ViewRange, SafetyRow } from "./view-model";
+import type {
+  PartStatus,
+  ViewBody,
+  ViewFinding,
+  ViewModel,
+  ViewPart,
+  ViewPose,
+  ViewRange,
+  SafetyRow,
+} from "./view-model";
 import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
 import { splitHoldingTorque, TORQUE_METHOD } from "./torque-split";
 import { payloadPaths, viewBounds } from "./envelope";
@@ -48,12 +57,22 @@ function toRange(index: LineIndex, s: Span): ViewRange {
 function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; spans: Map<string, Span> } {
   const parts: ViewPart[] = [];
   const spans = new Map<string, Span>();
-  const add = (id: string, kind: ViewPart["kind"], origin: { declaration: Span; name?: Span; generatedBy?: string }) => {
+  const add = (
+    id: string,
+    kind: ViewPart["kind"],
+    origin: { declaration: Span; name?: Span; generatedBy?: string },
+  ) => {
     // Bodies and joints a parallelogram generated belong to it (the parallelogram itself may carry
     // its own id as `generatedBy`).
     if ((origin.generatedBy && origin.generatedBy !== id) || spans.has(id)) return;
     spans.set(id, origin.declaration);
-    parts.push({ id, kind, range: toRange(index, origin.name ?? origin.declaration), status: "ok", codes: [] });
+    parts.push({
+      id,
+      kind,
+      range: toRange(index, origin.name ?? origin.declaration),
+      status: "ok",
+      codes: [],
+    });
   };
   // Parallelograms before joints: a stage's root joint shares its id.
   for (const p of model.parallelograms) add(p.id, "parallelogram", p.origin);
@@ -113,15 +132,25 @@ function nearestOnSegment(p: Vec2, a: Vec2, b: Vec2): Vec2 {
 /** The centre line of a body in local m: a link's start to end, a head's two far pivots, the
  * base's post from the bench up to its highest attachment. */
 function centreLine(model: ArmModel, body: Body, attachments: Vec2[]): Vec2[] {
-  if (body.kind === "link" || body.kind === "bar") return [{ x: 0, y: 0 }, { x: body.length, y: 0 }];
+  if (body.kind === "link" || body.kind === "bar")
+    return [
+      { x: 0, y: 0 },
+      { x: body.length, y: 0 },
+    ];
   if (body.kind === "head") {
     const stage = model.parallelograms.find((p) => p.bodies.head === body.id);
-    return [{ x: 0, y: 0 }, { x: 0, y: stage ? stage.spacing : 0 }];
+    return [
+      { x: 0, y: 0 },
+      { x: 0, y: stage ? stage.spacing : 0 },
+    ];
   }
   if (attachments.length === 0) return [];
   const first = attachments[0]!;
   const top = Math.max(...attachments.filter((p) => p.x === first.x).map((p) => p.y));
-  return [{ x: first.x, y: model.base?.surface ?? 0 }, { x: first.x, y: top }];
+  return [
+    { x: first.x, y: model.base?.surface ?? 0 },
+    { x: first.x, y: top },
+  ];
 }
 
 function depthOf(model: ArmModel, body: Body): number | undefined {
@@ -141,7 +170,8 @@ function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): 
   for (const p of attachments) {
     let near: Vec2 | undefined;
     for (let i = 0; i + 1 < line.length; i++) near = nearestOnSegment(p, line[i]!, line[i + 1]!);
-    if (near && Math.hypot(p.x - near.x, p.y - near.y) > BRACKET_MIN_M) brackets.push([r4(near.x * MM), r4(near.y * MM), r4(p.x * MM), r4(p.y * MM)]);
+    if (near && Math.hypot(p.x - near.x, p.y - near.y) > BRACKET_MIN_M)
+      brackets.push([r4(near.x * MM), r4(near.y * MM), r4(p.x * MM), r4(p.y * MM)]);
   }
   const depth = depthOf(model, body);
   return {
@@ -158,11 +188,14 @@ function viewPoses(model: ArmModel, sweep: SweepResult, lines: number[][][]): Vi
   const split = splitHoldingTorque(model, sweep, lines);
   return sweep.poses.map((pose, p) => {
     const bodies: ViewPose["bodies"] = {};
-    for (const [id, b] of Object.entries(pose.bodies)) bodies[id] = [r2(b.x * MM), r2(b.y * MM), r4(b.phi * DEG)];
+    for (const [id, b] of Object.entries(pose.bodies))
+      bodies[id] = [r2(b.x * MM), r2(b.y * MM), r4(b.phi * DEG)];
     const springs: ViewPose["springs"] = {};
-    for (const [id, s] of Object.entries(pose.springs)) springs[id] = [r2(s.a.x * MM), r2(s.a.y * MM), r2(s.b.x * MM), r2(s.b.y * MM)];
+    for (const [id, s] of Object.entries(pose.springs))
+      springs[id] = [r2(s.a.x * MM), r2(s.a.y * MM), r2(s.b.x * MM), r2(s.b.y * MM)];
     const handForce: ViewPose["handForce"] = {};
-    for (const payload of model.payloads) handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
+    for (const payload of model.payloads)
+      handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
     const nominal = pose.cases[0];
     return {
       anglesDeg: sweep.dofs.map((d) => r4((pose.angles[d.id] ?? d.reference) * DEG)),
@@ -239,7 +272,13 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   const byId = new Map(vm.parts.map((p) => [p.id, p]));
   for (const f of input.findings) {
     const partId = partAt(spans, f.span.start);
-    vm.findings.push({ code: f.code, severity: f.severity, message: f.message, range: toRange(index, f.span), ...(partId ? { partId } : {}) });
+    vm.findings.push({
+      code: f.code,
+      severity: f.severity,
+      message: f.message,
+      range: toRange(index, f.span),
+      ...(partId ? { partId } : {}),
+    });
     const part = partId ? byId.get(partId) : undefined;
     if (!part || (f.severity !== "error" && f.severity !== "warning")) continue;
     if (RANK[f.severity] > RANK[part.status]) part.status = f.severity;
@@ -266,15 +305,29 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     ...(s.kind === "torsion" ? { jointId: s.joint } : {}),
     ...(s.kind === "gas" ? { cylinderMm: r4(Math.max(0, s.extendedLength - s.stroke) * MM) } : {}),
   }));
-  vm.payloads = model.payloads.map((p) => ({ id: p.id, body: p.body, local: [r4(p.point.x * MM), r4(p.point.y * MM)] as [number, number], massKg: p.mass }));
-  for (const p of model.payloads) vm.balanceLimitN[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
+  vm.payloads = model.payloads.map((p) => ({
+    id: p.id,
+    body: p.body,
+    local: [r4(p.point.x * MM), r4(p.point.y * MM)] as [number, number],
+    massKg: p.mass,
+  }));
+  for (const p of model.payloads)
+    vm.balanceLimitN[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
   vm.safety = safetyRows(model, input.readouts, partOf);
 
   const sweep = input.sweep;
-  const solved = sweep && sweep.poses.length === 0 && sweep.reference ? { ...sweep, poses: [sweep.reference] } : sweep;
-  const kept = solved ? thinPoses(solved.poses, solved.dofs.map((d) => d.id), options.maxPoses ?? MAX_VIEW_POSES) : [];
+  const solved =
+    sweep && sweep.poses.length === 0 && sweep.reference ? { ...sweep, poses: [sweep.reference] } : sweep;
+  const kept = solved
+    ? thinPoses(
+        solved.poses,
+        solved.dofs.map((d) => d.id),
+        options.maxPoses ?? MAX_VIEW_POSES,
+      )
+    : [];
   const poses = solved && kept.length < solved.poses.length ? { ...solved, poses: kept } : solved;
-  if (solved && poses && poses.poses.length < solved.poses.length) vm.thinned = { shown: poses.poses.length, solved: solved.poses.length };
+  if (solved && poses && poses.poses.length < solved.poses.length)
+    vm.thinned = { shown: poses.poses.length, solved: solved.poses.length };
   if (!poses || poses.poses.length === 0) {
     vm.emptyReason = "The arm has no solved pose yet: fix the errors listed below.";
     return vm;

@@ -14,7 +14,9 @@ export function shownForce(system: UnitSystem): Shown {
 }
 
 export function shownTorque(system: UnitSystem): Shown {
-  return system === "us" ? { symbol: "lbf·in", scale: 1 / (POUND_FORCE_N * INCH_M) } : { symbol: "N·m", scale: 1 };
+  return system === "us"
+    ? { symbol: "lbf·in", scale: 1 / (POUND_FORCE_N * INCH_M) }
+    : { symbol: "N·m", scale: 1 };
 }
 
 export function shownLength(system: UnitSystem): Shown {

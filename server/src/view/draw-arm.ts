@@ -17,7 +17,8 @@ interface Frame {
   u: number;
 }
 
-const statusColour = (s: PartStatus | undefined) => (s === "error" ? PALETTE.error : s === "warning" ? PALETTE.warning : undefined);
+const statusColour = (s: PartStatus | undefined) =>
+  s === "error" ? PALETTE.error : s === "warning" ? PALETTE.warning : undefined;
 
 /** SVG y runs down; the arm's y runs up. */
 const Y = (y: number) => -y;
@@ -31,7 +32,8 @@ function bench(vm: ViewModel, f: Frame): string {
   const y = vm.surfaceMm;
   const hatch: string[] = [];
   const step = 12 * f.u;
-  for (let x = minX; x < maxX; x += step) hatch.push(`M${c2(x)} ${c2(Y(y))}l${c2(-step * 0.7)} ${c2(step * 0.7)}`);
+  for (let x = minX; x < maxX; x += step)
+    hatch.push(`M${c2(x)} ${c2(Y(y))}l${c2(-step * 0.7)} ${c2(step * 0.7)}`);
   let out = `<g class="bench"><path d="${hatch.join("")}" stroke="${PALETTE.benchHatch}" stroke-width="${c2(f.u)}" fill="none"/>`;
   out += `<line x1="${c2(minX)}" y1="${c2(Y(y))}" x2="${c2(maxX)}" y2="${c2(Y(y))}" stroke="${PALETTE.bench}" stroke-width="${c2(2.5 * f.u)}"/>`;
   if (vm.footprintMm !== undefined) {
@@ -56,21 +58,33 @@ function bodies(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
   // Base first, then bars, links and heads on top, so pivots sit over everything.
   const order = { base: 0, bar: 1, link: 2, head: 3 } as const;
   for (const body of [...vm.bodies].sort((a, b) => order[a.kind] - order[b.kind])) {
-    const line = body.line.map((p) => place(pose, body.id, p)).filter((w): w is [number, number] => w !== undefined);
+    const line = body.line
+      .map((p) => place(pose, body.id, p))
+      .filter((w): w is [number, number] => w !== undefined);
     if (line.length < 2) continue;
     const st = status.get(body.partId);
     const depth = Math.max(body.depthMm ?? DEFAULT_DEPTH_MM, 2 * f.u);
-    const colour = body.kind === "base" ? PALETTE.base : body.kind === "bar" ? PALETTE.bar : body.kind === "head" ? PALETTE.head : PALETTE.link;
+    const colour =
+      body.kind === "base"
+        ? PALETTE.base
+        : body.kind === "bar"
+          ? PALETTE.bar
+          : body.kind === "head"
+            ? PALETTE.head
+            : PALETTE.link;
     const mark = statusColour(st);
     out += `<g class="part body" data-part="${esc(body.partId)}" data-body="${esc(body.id)}" data-status="${st ?? "ok"}"><title>${esc(body.id)}${st && st !== "ok" ? ` (${st})` : ""}</title>`;
-    if (mark) out += `<polyline class="halo" points="${pts(line)}" fill="none" stroke="${mark}" stroke-opacity="0.35" stroke-width="${c2(depth + 8 * f.u)}" stroke-linecap="round" stroke-linejoin="round"/>`;
+    if (mark)
+      out += `<polyline class="halo" points="${pts(line)}" fill="none" stroke="${mark}" stroke-opacity="0.35" stroke-width="${c2(depth + 8 * f.u)}" stroke-linecap="round" stroke-linejoin="round"/>`;
     for (const br of body.brackets) {
       const a = place(pose, body.id, [br[0], br[1]]);
       const b = place(pose, body.id, [br[2], br[3]]);
-      if (a && b) out += `<line class="bracket" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${colour}" stroke-width="${c2(Math.max(depth * 0.35, 1.5 * f.u))}" stroke-linecap="round"/>`;
+      if (a && b)
+        out += `<line class="bracket" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${colour}" stroke-width="${c2(Math.max(depth * 0.35, 1.5 * f.u))}" stroke-linecap="round"/>`;
     }
     out += `<polyline class="centre" points="${pts(line)}" fill="none" stroke="${colour}" stroke-width="${c2(depth)}" stroke-linecap="round" stroke-linejoin="round"/>`;
-    if (mark) out += `<polyline points="${pts(line)}" fill="none" stroke="${mark}" stroke-width="${c2(1.6 * f.u)}" stroke-dasharray="${c2(4 * f.u)} ${c2(2.5 * f.u)}"/>`;
+    if (mark)
+      out += `<polyline points="${pts(line)}" fill="none" stroke="${mark}" stroke-width="${c2(1.6 * f.u)}" stroke-dasharray="${c2(4 * f.u)} ${c2(2.5 * f.u)}"/>`;
     out += "</g>";
   }
   return out;
@@ -80,7 +94,10 @@ function coilPath(a: [number, number], b: [number, number], f: Frame): string {
   const dx = b[0] - a[0];
   const dy = b[1] - a[1];
   const len = Math.hypot(dx, dy) || 1;
-  const ux = dx / len, uy = dy / len, nx = -uy, ny = ux;
+  const ux = dx / len,
+    uy = dy / len,
+    nx = -uy,
+    ny = ux;
   const amp = Math.min(Math.max(0.06 * len, 3 * f.u), 10 * f.u);
   const lead = 0.12 * len;
   const p: [number, number][] = [a, [a[0] + ux * lead, a[1] + uy * lead]];
@@ -97,7 +114,8 @@ function cordPath(a: [number, number], b: [number, number], f: Frame): string {
   const dx = b[0] - a[0];
   const dy = b[1] - a[1];
   const len = Math.hypot(dx, dy) || 1;
-  const nx = -dy / len, ny = dx / len;
+  const nx = -dy / len,
+    ny = dx / len;
   const amp = Math.min(Math.max(0.025 * len, 1.5 * f.u), 5 * f.u);
   const p: [number, number][] = [];
   for (let i = 0; i <= 48; i++) {
@@ -108,7 +126,14 @@ function cordPath(a: [number, number], b: [number, number], f: Frame): string {
   return pts(p);
 }
 
-function springMark(vm: ViewModel, spring: ViewSpring, hooks: [number, number, number, number], st: PartStatus | undefined, force: number | undefined, f: Frame): string {
+function springMark(
+  vm: ViewModel,
+  spring: ViewSpring,
+  hooks: [number, number, number, number],
+  st: PartStatus | undefined,
+  force: number | undefined,
+  f: Frame,
+): string {
   const a: [number, number] = [hooks[0], hooks[1]];
   const b: [number, number] = [hooks[2], hooks[3]];
   const mark = statusColour(st);
@@ -136,7 +161,8 @@ function springMark(vm: ViewModel, spring: ViewSpring, hooks: [number, number, n
   } else {
     out += `<polyline points="${coilPath(a, b, f)}" fill="none" stroke="${mark ?? PALETTE.coil}" stroke-width="${c2(w)}" stroke-linejoin="round"/>`;
   }
-  for (const h of spring.kind === "torsion" ? [] : [a, b]) out += `<circle cx="${c2(h[0])}" cy="${c2(Y(h[1]))}" r="${c2(2 * f.u)}" fill="${PALETTE.coil}"/>`;
+  for (const h of spring.kind === "torsion" ? [] : [a, b])
+    out += `<circle cx="${c2(h[0])}" cy="${c2(Y(h[1]))}" r="${c2(2 * f.u)}" fill="${PALETTE.coil}"/>`;
   return out + "</g>";
 }
 
@@ -149,9 +175,12 @@ function pivots(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
     const ring = statusColour(st) ?? PALETTE.pivotRing;
     const r = Math.max((pv.pinMm ?? 4) / 2 + 1, 3 * f.u);
     out += `<g class="part pivot" data-part="${esc(pv.partId)}" data-joint="${esc(pv.jointId)}" data-status="${st ?? "ok"}"><title>${esc(pv.jointId)} (${pv.mode})${st && st !== "ok" ? ` (${st})` : ""}</title>`;
-    if (pv.mode === "fixed") out += `<rect x="${c2(w[0] - r)}" y="${c2(Y(w[1]) - r)}" width="${c2(2 * r)}" height="${c2(2 * r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2(1.6 * f.u)}"/>`;
-    else out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1.6) * f.u)}"/>`;
-    if (pv.mode === "range") out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r * 0.35)}" fill="${ring}"/>`;
+    if (pv.mode === "fixed")
+      out += `<rect x="${c2(w[0] - r)}" y="${c2(Y(w[1]) - r)}" width="${c2(2 * r)}" height="${c2(2 * r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2(1.6 * f.u)}"/>`;
+    else
+      out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1.6) * f.u)}"/>`;
+    if (pv.mode === "range")
+      out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r * 0.35)}" fill="${ring}"/>`;
     out += "</g>";
   }
   return out;
@@ -218,12 +247,15 @@ function scaleBar(vm: ViewModel, f: Frame): string {
   const span = maxX - minX;
   const length = shownLength(vm.units);
   // A round length in the reader's unit, about a sixth of the frame.
-  const shown = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].find((s) => s / length.scale >= span / 6) ?? 1000;
+  const shown =
+    [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].find((s) => s / length.scale >= span / 6) ?? 1000;
   const nice = shown / length.scale;
   const x = minX + 8 * f.u;
   const y = Y(minY) - 8 * f.u;
-  return `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
-    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${length.symbol}</text></g>`;
+  return (
+    `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
+    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${length.symbol}</text></g>`
+  );
 }
 
 export interface DrawOptions {
@@ -244,8 +276,10 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
   const pose = vm.poses[poseIndex];
   if (!pose) {
     // Nothing solved: a short strip with the reason, not an empty frame the size of an arm.
-    return `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing empty" viewBox="0 0 ${widthPx} 64" width="${widthPx}" height="64" role="img" aria-label="${esc(vm.title)}">` +
-      `<rect x="0" y="0" width="${widthPx}" height="64" fill="${PALETTE.paper}"/><text x="${widthPx / 2}" y="37" text-anchor="middle" font-size="14" font-family="sans-serif" fill="${PALETTE.muted}">${esc(vm.emptyReason ?? "Nothing to draw")}</text></svg>`;
+    return (
+      `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing empty" viewBox="0 0 ${widthPx} 64" width="${widthPx}" height="64" role="img" aria-label="${esc(vm.title)}">` +
+      `<rect x="0" y="0" width="${widthPx}" height="64" fill="${PALETTE.paper}"/><text x="${widthPx / 2}" y="37" text-anchor="middle" font-size="14" font-family="sans-serif" fill="${PALETTE.muted}">${esc(vm.emptyReason ?? "Nothing to draw")}</text></svg>`
+    );
   }
   const status = new Map(vm.parts.map((p) => [p.id, p.status]));
   let springs = "";
@@ -255,5 +289,18 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
   }
   const angles = vm.dofs.map((d, i) => `${d.id} ${fig(pose.anglesDeg[i]!)}°`).join(", ");
   const caption = `<text class="pose-caption" x="${c2(minX + 8 * f.u)}" y="${c2(-maxY + 16 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(angles)}</text>`;
-  return head + ground + bench(vm, f) + envelope(vm, f) + bodies(vm, pose, status, f) + springs + pivots(vm, pose, status, f) + payloads(vm, pose, status, f) + trouble(vm, pose, f) + scaleBar(vm, f) + caption + "</svg>";
+  return (
+    head +
+    ground +
+    bench(vm, f) +
+    envelope(vm, f) +
+    bodies(vm, pose, status, f) +
+    springs +
+    pivots(vm, pose, status, f) +
+    payloads(vm, pose, status, f) +
+    trouble(vm, pose, f) +
+    scaleBar(vm, f) +
+    caption +
+    "</svg>"
+  );
 }

@@ -61,17 +61,32 @@ function tickLabel(t: number, step: number): string {
 export function renderPlotSvg(spec: PlotSpec): string {
   const W = spec.widthPx ?? 420;
   const H = spec.heightPx ?? 230;
-  const all = spec.series.flatMap((s) => s.points).filter(([x, y]) => Number.isFinite(x) && Number.isFinite(y));
+  const all = spec.series
+    .flatMap((s) => s.points)
+    .filter(([x, y]) => Number.isFinite(x) && Number.isFinite(y));
   let x0 = Math.min(...all.map((p) => p[0]));
   let x1 = Math.max(...all.map((p) => p[0]));
   let y0 = Math.min(0, ...all.map((p) => p[1]));
   let y1 = Math.max(0, ...all.map((p) => p[1]));
-  if (spec.band) { y0 = Math.min(y0, spec.band.from); y1 = Math.max(y1, spec.band.to * 1.15); }
-  if (!Number.isFinite(x0)) { x0 = 0; x1 = 1; }
-  if (x1 === x0) { x0 -= 1; x1 += 1; }
-  if (y1 - y0 < 1e-9) { y0 -= 1; y1 += 1; }
+  if (spec.band) {
+    y0 = Math.min(y0, spec.band.from);
+    y1 = Math.max(y1, spec.band.to * 1.15);
+  }
+  if (!Number.isFinite(x0)) {
+    x0 = 0;
+    x1 = 1;
+  }
+  if (x1 === x0) {
+    x0 -= 1;
+    x1 += 1;
+  }
+  if (y1 - y0 < 1e-9) {
+    y0 -= 1;
+    y1 += 1;
+  }
   const pad = (y1 - y0) * 0.06;
-  y0 -= pad; y1 += pad;
+  y0 -= pad;
+  y1 += pad;
   const legend = legendLayout(spec.series, W);
   const top = PAD.top + LEGEND_ROW * (legend.length ? Math.max(...legend.map((l) => l.row)) + 1 : 0);
   const sx = (x: number) => PAD.left + ((x - x0) / (x1 - x0)) * (W - PAD.left - PAD.right);

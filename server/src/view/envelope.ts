@@ -22,26 +22,37 @@ export function payloadPaths(vm: ViewModel): ViewModel["envelope"] {
     for (const run of perDof) if (run.length >= 2 && onEdge(vm, d, run)) runs.push(run);
   });
   // Each dof swept alone (grid off): its runs are not on an edge; trace them all.
-  if (runs.length === 0) for (const perDof of vm.lines) for (const run of perDof) if (run.length >= 2) runs.push(run);
+  if (runs.length === 0)
+    for (const perDof of vm.lines) for (const run of perDof) if (run.length >= 2) runs.push(run);
   const paths: ViewModel["envelope"] = {};
   for (const payload of vm.payloads) {
     paths[payload.id] = runs.map((run) =>
-      run.map((p) => place(vm.poses[p]!, payload.body, payload.local)).filter((w): w is [number, number] => w !== undefined),
+      run
+        .map((p) => place(vm.poses[p]!, payload.body, payload.local))
+        .filter((w): w is [number, number] => w !== undefined),
     );
   }
   return paths;
 }
 
 export function viewBounds(vm: ViewModel): [number, number, number, number] {
-  let minX = Infinity, minY = Infinity, maxX = -Infinity, maxY = -Infinity;
+  let minX = Infinity,
+    minY = Infinity,
+    maxX = -Infinity,
+    maxY = -Infinity;
   const take = (x: number, y: number) => {
     if (!Number.isFinite(x) || !Number.isFinite(y)) return;
-    minX = Math.min(minX, x); maxX = Math.max(maxX, x);
-    minY = Math.min(minY, y); maxY = Math.max(maxY, y);
+    minX = Math.min(minX, x);
+    maxX = Math.max(maxX, x);
+    minY = Math.min(minY, y);
+    maxY = Math.max(maxY, y);
   };
   for (const pose of vm.poses) for (const [x, y] of posePoints(vm, pose)) take(x, y);
   take(0, vm.surfaceMm);
-  if (vm.footprintMm !== undefined) { take(-vm.footprintMm / 2, vm.surfaceMm); take(vm.footprintMm / 2, vm.surfaceMm); }
+  if (vm.footprintMm !== undefined) {
+    take(-vm.footprintMm / 2, vm.surfaceMm);
+    take(vm.footprintMm / 2, vm.surfaceMm);
+  }
   if (!Number.isFinite(minX)) return [-100, -20, 400, 400];
   const margin = FRAME_MARGIN * Math.max(maxX - minX, maxY - minY, 50);
   return [minX - margin, minY - margin, maxX + margin, maxY + margin];

@@ -5,7 +5,11 @@ import type { ViewModel, ViewPose } from "./view-model";
 const RAD = Math.PI / 180;
 
 /** World mm of a local point (mm) on a body in a pose; undefined when the pose lacks the body. */
-export function place(pose: ViewPose, bodyId: string, local: readonly [number, number]): [number, number] | undefined {
+export function place(
+  pose: ViewPose,
+  bodyId: string,
+  local: readonly [number, number],
+): [number, number] | undefined {
   const b = pose.bodies[bodyId];
   if (!b) return undefined;
   const c = Math.cos(b[2] * RAD);

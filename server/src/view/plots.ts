@@ -16,14 +16,16 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
   const run = along(vm, d, poseIndex);
   const torque = shownTorque(vm.units);
   const x = (p: number) => vm.poses[p]!.anglesDeg[d]!;
-  const pick = (key: "gravityTorque" | "springTorque" | "loadTorque" | "netTorque") => run.map((p) => [x(p), vm.poses[p]![key][d]! * torque.scale] as [number, number]);
+  const pick = (key: "gravityTorque" | "springTorque" | "loadTorque" | "netTorque") =>
+    run.map((p) => [x(p), vm.poses[p]![key][d]! * torque.scale] as [number, number]);
   const series: PlotSpec["series"] = [
     { name: "gravity", colour: PALETTE.gravity, dashed: true, points: pick("gravityTorque") },
     { name: "springs", colour: PALETTE.spring, dashed: true, points: pick("springTorque") },
     { name: "net", colour: PALETTE.net, points: pick("netTorque") },
   ];
   const load = pick("loadTorque");
-  if (load.some(([, y]) => Number.isFinite(y) && y !== 0)) series.splice(2, 0, { name: "steady load", colour: PALETTE.load, dashed: true, points: load });
+  if (load.some(([, y]) => Number.isFinite(y) && y !== 0))
+    series.splice(2, 0, { name: "steady load", colour: PALETTE.load, dashed: true, points: load });
   return {
     id: `torque-${vm.dofs[d]!.id}`,
     title: `Holding torque at ${vm.dofs[d]!.id}`,
@@ -47,7 +49,13 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
         name,
         colour: SERIES_CYCLE[k++ % SERIES_CYCLE.length]!,
         ...(c > 0 ? { dashed: true } : {}),
-        points: run.map((p) => [vm.poses[p]!.anglesDeg[d]!, (vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN) * force.scale] as [number, number]),
+        points: run.map(
+          (p) =>
+            [vm.poses[p]!.anglesDeg[d]!, (vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN) * force.scale] as [
+              number,
+              number,
+            ],
+        ),
       });
     });
   }
@@ -59,7 +67,9 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
     xLabel: `${vm.dofs[d]!.id} angle, deg`,
     yLabel: `hand force, ${force.symbol}`,
     series,
-    ...(limit !== undefined ? { band: { from: 0, to: limit, label: `require balance ${fig(limit)} ${force.symbol}` } } : {}),
+    ...(limit !== undefined
+      ? { band: { from: 0, to: limit, label: `require balance ${fig(limit)} ${force.symbol}` } }
+      : {}),
     markerX: vm.poses[poseIndex]?.anglesDeg[d],
   };
 }

@@ -32,7 +32,11 @@ export function linesPerDof(poses: readonly Pose[], dofIds: readonly string[]): 
       const run: number[] = [];
       for (const p of g) {
         const last = run[run.length - 1];
-        if (last !== undefined && Math.abs((poses[last]!.angles[id] ?? 0) - (poses[p]!.angles[id] ?? 0)) < SAME_ANGLE_RAD) continue;
+        if (
+          last !== undefined &&
+          Math.abs((poses[last]!.angles[id] ?? 0) - (poses[p]!.angles[id] ?? 0)) < SAME_ANGLE_RAD
+        )
+          continue;
         run.push(p);
       }
       runs.push(run);
@@ -43,7 +47,11 @@ export function linesPerDof(poses: readonly Pose[], dofIds: readonly string[]): 
 
 /** The pose whose dof values are nearest the targets, each dof weighted by its range so that
  * degrees of freedom with short ranges count as much as long ones. */
-export function nearestPose(anglesPerPose: readonly (readonly number[])[], target: readonly number[], spans: readonly number[]): number {
+export function nearestPose(
+  anglesPerPose: readonly (readonly number[])[],
+  target: readonly number[],
+  spans: readonly number[],
+): number {
   let best = 0;
   let bestDistance = Infinity;
   for (let p = 0; p < anglesPerPose.length; p++) {
@@ -73,12 +81,16 @@ export function runThrough(lines: readonly (readonly number[])[], p: number): re
 export function thinPoses(poses: readonly Pose[], dofIds: readonly string[], max: number): Pose[] {
   if (poses.length <= max || dofIds.length === 0) return [...poses];
   const values = dofIds.map((id) => {
-    const sorted = [...new Set(poses.map((p) => Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD)))].sort((a, b) => a - b);
+    const sorted = [...new Set(poses.map((p) => Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD)))].sort(
+      (a, b) => a - b,
+    );
     return sorted;
   });
   for (let k = 2; k < 10000; k++) {
     const kept = values.map((v) => new Set(v.filter((_, i) => i % k === 0 || i === v.length - 1)));
-    const subset = poses.filter((p) => dofIds.every((id, d) => kept[d]!.has(Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD))));
+    const subset = poses.filter((p) =>
+      dofIds.every((id, d) => kept[d]!.has(Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD))),
+    );
     if (subset.length <= max) return subset;
   }
   return [...poses];

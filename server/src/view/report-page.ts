@@ -34,7 +34,8 @@ ul.findings li.error { border-color: ${PALETTE.error}; } ul.findings li.warning 
 function verdict(vm: ViewModel): string {
   const errors = vm.findings.filter((f) => f.severity === "error").length;
   const warnings = vm.findings.filter((f) => f.severity === "warning").length;
-  if (errors) return `<span class="verdict error">${errors} error${errors > 1 ? "s" : ""}${warnings ? `, ${warnings} warning${warnings > 1 ? "s" : ""}` : ""}</span>`;
+  if (errors)
+    return `<span class="verdict error">${errors} error${errors > 1 ? "s" : ""}${warnings ? `, ${warnings} warning${warnings > 1 ? "s" : ""}` : ""}</span>`;
   if (warnings) return `<span class="verdict warning">${warnings} warning${warnings > 1 ? "s" : ""}</span>`;
   return `<span class="verdict ok">no errors or warnings</span>`;
 }
@@ -62,7 +63,11 @@ export interface ReportOptions {
 
 export function renderReportHtml(vm: ViewModel, options: ReportOptions): string {
   const plots = vm.dofs
-    .map((_, d) => renderPlotSvg(torquePlot(vm, d, vm.referencePose)) + (vm.payloads.length ? renderPlotSvg(handForcePlot(vm, d, vm.referencePose)) : ""))
+    .map(
+      (_, d) =>
+        renderPlotSvg(torquePlot(vm, d, vm.referencePose)) +
+        (vm.payloads.length ? renderPlotSvg(handForcePlot(vm, d, vm.referencePose)) : ""),
+    )
     .join("");
   const body = [
     `<h1>${esc(vm.title)}</h1>`,
@@ -72,7 +77,9 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<div class="drawing">${renderArmSvg(vm, vm.referencePose, { widthPx: 760 })}</div>`,
     rangeEnds(vm),
     `<h2>Torques and hand force</h2>`,
-    vm.poses.length ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the shaded band is the hand force <code>require balance</code> allows.</p>` : `<p class="none">No poses were solved.</p>`,
+    vm.poses.length
+      ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the shaded band is the hand force <code>require balance</code> allows.</p>`
+      : `<p class="none">No poses were solved.</p>`,
     `<h2>Safety factors</h2>`,
     `<p class="note">Required: ${vm.requiredSafety}. Lowest first.</p>`,
     safetyTableHtml(vm),

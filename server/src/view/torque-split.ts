@@ -63,7 +63,11 @@ function springStroke(model: ArmModel, pose: Pose, springIndex: number): number 
 /** Three-point (second-order) derivative weights at run position i: central inside the run,
  * one-sided at its ends, valid for uneven spacing (Lagrange interpolation); two points when the
  * run has only two. */
-function stencil(run: readonly number[], i: number, angle: (p: number) => number): { at: number[]; w: number[] } {
+function stencil(
+  run: readonly number[],
+  i: number,
+  angle: (p: number) => number,
+): { at: number[]; w: number[] } {
   if (run.length === 2) {
     const h = angle(run[1]!) - angle(run[0]!);
     return { at: [run[0]!, run[1]!], w: [-1 / h, 1 / h] };
@@ -86,7 +90,13 @@ function derivative(st: { at: number[]; w: number[] }, value: (p: number) => num
   return sum;
 }
 
-function springPart(model: ArmModel, poses: readonly Pose[], here: Pose, st: { at: number[]; w: number[] }, dofId: string): number {
+function springPart(
+  model: ArmModel,
+  poses: readonly Pose[],
+  here: Pose,
+  st: { at: number[]; w: number[] },
+  dofId: string,
+): number {
   const forces = here.cases[0]?.springForce ?? {};
   let sum = 0;
   for (let s = 0; s < model.springs.length; s++) {
@@ -119,7 +129,11 @@ function loadPart(model: ArmModel, poses: readonly Pose[], st: { at: number[]; w
   return sum;
 }
 
-export function splitHoldingTorque(model: ArmModel, sweep: SweepResult, lines: readonly (readonly (readonly number[])[])[]): TorqueSplit {
+export function splitHoldingTorque(
+  model: ArmModel,
+  sweep: SweepResult,
+  lines: readonly (readonly (readonly number[])[])[],
+): TorqueSplit {
   const n = sweep.poses.length;
   const potential = new Float64Array(n);
   for (let p = 0; p < n; p++) potential[p] = gravityPotential(model, sweep, sweep.poses[p]!);

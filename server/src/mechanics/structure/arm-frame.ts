@@ -68,7 +68,12 @@ function interestPoints(model: ArmModel, body: Body): Vec2[] {
 
 /** Builds the frame of the arm at `pose` with the loads of `statics` (spring tensions) and the
  * given payload masses. */
-export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics | undefined, payloadMass: Record<string, number>): ArmFrame {
+export function buildArmFrame(
+  model: ArmModel,
+  pose: Pose,
+  statics: PoseStatics | undefined,
+  payloadMass: Record<string, number>,
+): ArmFrame {
   const frame = new PlaneFrame();
   const g = model.gravity;
   const nodes = new Map<string, number>();
@@ -141,7 +146,8 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
       for (let k = 1; k < MIN_ELEMENTS_PER_LINK; k++) raw.push((k * L) / MIN_ELEMENTS_PER_LINK);
       raw.sort((a, b) => a - b);
       const stations: number[] = [];
-      for (const s of raw) if (stations.length === 0 || s - stations[stations.length - 1]! > STATION_MERGE_M) stations.push(s);
+      for (const s of raw)
+        if (stations.length === 0 || s - stations[stations.length - 1]! > STATION_MERGE_M) stations.push(s);
       stationsOf.set(body.id, stations);
       const axis = stations.map((s) => nodeAt(body, { x: s, y: 0 }));
       const props = real.get(body.id);
@@ -178,7 +184,8 @@ export function buildArmFrame(model: ArmModel, pose: Pose, statics: PoseStatics 
       const j = model.joints.find((jj) => jj.id === sp.joint);
       const parent = j && bodyById.get(j.parent);
       const child = j && bodyById.get(j.child);
-      if (j && parent && child && j.mode === "passive") frame.addRotationalSpring(nodeAt(parent, j.parentPoint), nodeAt(child, j.childPoint), sp.rate);
+      if (j && parent && child && j.mode === "passive")
+        frame.addRotationalSpring(nodeAt(parent, j.parentPoint), nodeAt(child, j.childPoint), sp.rate);
       continue;
     }
     const A = bodyById.get(sp.a.body);

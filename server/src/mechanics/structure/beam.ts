@@ -86,7 +86,11 @@ export function beamStress(
     visitStation(loads, count, distributed, length, section, s, true);
     const shearAfter = st.scratch.shear;
     let next = -1;
-    for (let m = k + 1; m < pos.length; m++) if (pos[m]! > s) { next = pos[m]!; break; }
+    for (let m = k + 1; m < pos.length; m++)
+      if (pos[m]! > s) {
+        next = pos[m]!;
+        break;
+      }
     if (next > s && distributed.qy !== 0) {
       // the shear V(s') = V(s) - qy (s' - s) is linear between loads: it vanishes at s*
       const sStar = s + shearAfter / distributed.qy;
@@ -94,7 +98,13 @@ export function beamStress(
     }
   }
   const bestStress = st.bestStress;
-  return { stress: bestStress, at: { ...best }, bendingShare: bestStress > 0 ? st.bestBending / bestStress : 0, compression: st.compression, moment: st.moment };
+  return {
+    stress: bestStress,
+    at: { ...best },
+    bendingShare: bestStress > 0 ? st.bestBending / bestStress : 0,
+    compression: st.compression,
+    moment: st.moment,
+  };
 }
 
 /** The running state of the current beamStress call (one body at a time; nothing keeps it). */

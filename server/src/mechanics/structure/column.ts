@@ -19,7 +19,12 @@ export function transitionSlenderness(modulus: number, yieldStrength: number): n
 }
 
 /** Johnson parabola P_cr = A [S_y - (S_y slenderness / (2 pi))^2 / E], N. */
-export function johnsonCriticalLoad(area: number, yieldStrength: number, modulus: number, slenderness: number): number {
+export function johnsonCriticalLoad(
+  area: number,
+  yieldStrength: number,
+  modulus: number,
+  slenderness: number,
+): number {
   const t = (yieldStrength * slenderness) / (2 * Math.PI);
   return area * (yieldStrength - (t * t) / modulus);
 }
@@ -40,9 +45,17 @@ export function columnCriticalLoad(
 ): ColumnResult {
   const slenderness = slendernessRatio(effectiveLength, area, secondMoment);
   if (slenderness >= transitionSlenderness(modulus, yieldStrength)) {
-    return { criticalLoad: eulerCriticalLoad(modulus, secondMoment, effectiveLength), slenderness, method: "Euler" };
+    return {
+      criticalLoad: eulerCriticalLoad(modulus, secondMoment, effectiveLength),
+      slenderness,
+      method: "Euler",
+    };
   }
-  return { criticalLoad: johnsonCriticalLoad(area, yieldStrength, modulus, slenderness), slenderness, method: "Johnson" };
+  return {
+    criticalLoad: johnsonCriticalLoad(area, yieldStrength, modulus, slenderness),
+    slenderness,
+    method: "Johnson",
+  };
 }
 
 /** The least second moment of area of a section, m^4: a bar buckles about its weaker axis, and

@@ -279,7 +279,8 @@ export class PlaneFrame {
     }
     // Standard symmetric form M^-1/2 K* M^-1/2.
     for (let a = 0; a < nm; a++)
-      for (let b = 0; b < nm; b++) condensed[a * nm + b] = condensed[a * nm + b]! / Math.sqrt(mass[m[a]!]! * mass[m[b]!]!);
+      for (let b = 0; b < nm; b++)
+        condensed[a * nm + b] = condensed[a * nm + b]! / Math.sqrt(mass[m[a]!]! * mass[m[b]!]!);
     if (count === 1) {
       const lowest = lowestEigenvalue(condensed, nm);
       return lowest !== undefined && lowest > 0 ? [lowest] : undefined;
@@ -355,7 +356,11 @@ const GENERALIZED_ITERATION_MAX_STEPS = 300;
  * factorisation of K and no static condensation: massless dofs follow statically in every step.
  * `factor` is K's Cholesky factor. Undefined when there is no mass or the iteration does not
  * settle (the caller then uses the condensed dense problem). */
-function lowestGeneralizedEigenvalue(factor: Float64Array, mass: Float64Array, n: number): number | undefined {
+function lowestGeneralizedEigenvalue(
+  factor: Float64Array,
+  mass: Float64Array,
+  n: number,
+): number | undefined {
   let totalMass = 0;
   for (let i = 0; i < n; i++) totalMass += mass[i]!;
   if (!(totalMass > 0) || n === 0) return undefined;

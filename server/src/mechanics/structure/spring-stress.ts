@@ -17,7 +17,12 @@ export function wahlFactor(index: number): number {
 }
 
 /** Body shear stress tau = K 8 F D / (pi d^3), Pa, with curvature factor K (Bergstraesser by default). */
-export function coilBodyShearStress(force: number, meanDiameter: number, wireDiameter: number, factor?: number): number {
+export function coilBodyShearStress(
+  force: number,
+  meanDiameter: number,
+  wireDiameter: number,
+  factor?: number,
+): number {
   const k = factor ?? bergstraesserFactor(springIndex(meanDiameter, wireDiameter));
   return (k * 8 * Math.abs(force) * meanDiameter) / (Math.PI * wireDiameter ** 3);
 }
