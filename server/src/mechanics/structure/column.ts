@@ -62,9 +62,6 @@ export function columnCriticalLoad(
  * a rectangle's out-of-plane axis (depth width^3 / 12) is often the weaker (Roark 8th ed.,
  * table of section properties). Round sections are the same about every axis. */
 export function leastSecondMoment(section: Section): number {
-  if (section.shape === "rect") {
-    const { depth, width } = section;
-    return Math.min((width * depth ** 3) / 12, (depth * width ** 3) / 12);
-  }
-  return sectionProperties(section).secondMoment;
+  const p = sectionProperties(section);
+  return Math.min(p.secondMoment, p.secondMomentAcross);
 }
