@@ -5,6 +5,7 @@ import { checkStrength } from "../../server/src/checks/strength";
 import { checkSpringStrength } from "../../server/src/checks/spring-strength";
 import { sectionProperties } from "../../server/src/model/section";
 import type { ExtensionSpring } from "../../server/src/model/types";
+import { builtinMaterials } from "../../server/src/model/materials";
 import {
   armModel,
   baseBody,
@@ -164,6 +165,70 @@ describe("springs", () => {
       treeSweep(model, [{ shoulder: -0.3 }, { shoulder: 0.3 }]),
     );
     expect(ctx.findings.filter((f) => f.code === "strength.overstretch")).toEqual([]);
+  });
+});
+
+describe("spring wire strength by size (issue 10 item 6)", () => {
+  /** The springs arm above with the coil's wire and material swapped, the library loaded. */
+  function wireArm(wireDiameter: number, meanDiameter: number, material: string, mats = builtinMaterials()) {
+    const base = baseBody("post", { top: { x: 0, y: 0.3 }, anchor: { x: 0, y: 0.4 } });
+    const boom = linkBody("boom", L, tube, "aluminium_6061_t6");
+    const spring: ExtensionSpring = {
+      id: "lift",
+      kind: "extension",
+      a: { body: "post", point: { x: 0, y: 0.4 }, span: { start: 0, end: 1 } },
+      b: { body: "boom", point: { x: 0.2, y: 0 }, span: { start: 0, end: 1 } },
+      rate: 3000,
+      freeLength: 0.15,
+      initialTension: 20,
+      coil: { wireDiameter, meanDiameter, bodyCoils: 20, material },
+      origin: origin("rate", "free_length", "wire"),
+    };
+    const model = armModel({
+      bodies: [base, boom],
+      joints: [joint("shoulder", "post", { x: 0, y: 0.3 }, "boom", 0, "range")],
+      springs: [spring],
+    });
+    model.materials = { ...model.materials, ...mats };
+    const ctx = runFamily(checkSpringStrength, model, treeSweep(model, [{ shoulder: 0 }]));
+    const length = Math.hypot(0.2, 0.1);
+    const F = 20 + 3000 * (length - 0.15);
+    const C = meanDiameter / wireDiameter;
+    // Shigley eq. 10-7 with the Bergstraesser factor (eq. 10-5)
+    const tau = (((4 * C + 2) / (4 * C - 3)) * 8 * F * meanDiameter) / (Math.PI * wireDiameter ** 3);
+    return { ctx, tau };
+  }
+
+  it("hard-drawn wire of 2.5 mm: S_ut = A / d^m at its own size, not at 1 mm", () => {
+    const { ctx, tau } = wireArm(0.0025, 0.02, "hard_drawn_wire");
+    // Shigley 9th-11th ed., eq. 10-14 and table 10-4: ASTM A227, A = 1783 MPa mm^m, m = 0.190;
+    // table 10-7: body 45 % of S_ut
+    const Sut = (1783 / 2.5 ** 0.19) * 1e6;
+    expect(figure(ctx, "lift", "body safety factor")).toBeCloseTo((0.45 * Sut) / tau, 9);
+    // the old figure credited the wire with S_ut at 1 mm, 2.5^0.19 = 1.19 times too strong
+    expect(figure(ctx, "lift", "body safety factor")! * 2.5 ** 0.19).toBeCloseTo((0.45 * 1783e6) / tau, 6);
+  });
+
+  it("stainless wire: its own row of the table and the stainless share of S_ut", () => {
+    const { ctx, tau } = wireArm(0.003, 0.024, "stainless_302_wire");
+    // Shigley table 10-4: A313 (302) from 2.5 to 5 mm, A = 2065 MPa mm^m, m = 0.263;
+    // table 10-7: austenitic stainless body 35 % of S_ut
+    const Sut = (2065 / 3 ** 0.263) * 1e6;
+    expect(figure(ctx, "lift", "body safety factor")).toBeCloseTo((0.35 * Sut) / tau, 9);
+  });
+
+  it("outside the table's sizes the readout says the strength is extrapolated", () => {
+    const { ctx } = wireArm(0.0005, 0.004, "hard_drawn_wire");
+    // Shigley table 10-4 lists hard-drawn wire from 0.7 mm
+    expect(ctx.readouts["lift"]!.notes.join(" ")).toMatch(/outside the 0\.7-12\.7 mm of Shigley table 10-4/);
+  });
+
+  it("a declared material named like a wire keeps its own strength", () => {
+    const mats = builtinMaterials();
+    const own = { ...mats.music_wire!, id: "music_wire", builtin: false, strength: 1500e6 };
+    const { ctx, tau } = wireArm(0.0025, 0.02, "music_wire", { ...mats, music_wire: own });
+    // its own strength, with the carbon-steel body share of table 10-7 (45 %)
+    expect(figure(ctx, "lift", "body safety factor")).toBeCloseTo((0.45 * 1500e6) / tau, 9);
   });
 });
 

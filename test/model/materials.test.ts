@@ -79,4 +79,50 @@ describe("built-in materials", () => {
     a.pla!.density = 1;
     expect(builtinMaterials().pla!.density).toBeCloseTo(1240, 9);
   });
+  test("bearing balls: ISO 76 contact stress for bearing steel; the ring-crack rule for glass", () => {
+    // ISO 76: a ball bearing's static rating C0 is the load giving 4200 MPa at the centre of the
+    // most loaded contact
+    expect(m.chrome_steel!.contactStrength).toBe(4200 * MPa);
+    // Johnson, Contact Mechanics, sections 3.4 and 4.2: the surface tension at the contact's edge is
+    // (1 - 2 nu) p0 / 3; the allowable p0 brings it to the tensile strength
+    const glass = m.soda_lime_glass!;
+    expect(((1 - 2 * glass.poisson) * glass.contactStrength!) / 3).toBeCloseTo(glass.strength, 0);
+    for (const id of ["stainless_440c", "acetal", "nylon_66", "ptfe"]) expect(m[id], id).toBeDefined();
+  });
+  test("bolt property classes (ISO 898-1, ISO 3506-1; from memory)", () => {
+    // ISO 898-1, class 8.8 up to 16 mm: proof 580, yield 640, tensile 800 MPa
+    expect(m.steel_8_8!.proofStrength).toBe(580 * MPa);
+    expect(m.steel_8_8!.strength).toBe(640 * MPa);
+    expect(m.steel_8_8!.ultimateStrength).toBe(800 * MPa);
+    // the class number is the tensile strength / 100 MPa and the fraction the yield ratio:
+    // 4.6 -> 400 MPa and 0.6 x 400; 10.9 -> 1000 (1040 minimum) and 0.9 x 1000 (940 minimum)
+    expect(m.steel_4_6!.ultimateStrength).toBe(400 * MPa);
+    expect(m.steel_4_6!.strength).toBe(0.6 * 400 * MPa);
+    expect(m.steel_10_9!.strength).toBeGreaterThanOrEqual(0.9 * 1000 * MPa);
+    expect(m.steel_12_9!.strength).toBeGreaterThanOrEqual(0.9 * 1200 * MPa);
+    // ISO 3506-1: A2-70 tensile 700, 0.2 % yield 450 MPa
+    expect(m.stainless_a2_70!.ultimateStrength).toBe(700 * MPa);
+    expect(m.stainless_a2_70!.strength).toBe(450 * MPa);
+    for (const mat of Object.values(m))
+      if (mat.proofStrength !== undefined) {
+        expect(mat.proofStrength).toBeLessThanOrEqual(mat.strength);
+        expect(mat.strength).toBeLessThan(mat.ultimateStrength!);
+      }
+  });
+  test("adhesives: strength is the lap shear, with the peel caution", () => {
+    for (const id of [
+      "epoxy",
+      "cyanoacrylate",
+      "structural_acrylic",
+      "polyurethane_glue",
+      "wood_glue",
+      "hot_melt",
+      "silicone_sealant",
+    ]) {
+      expect(m[id]!.source).toMatch(/peel/);
+      expect(m[id]!.strength).toBeLessThanOrEqual(30 * MPa);
+    }
+    // makers' typical two-part epoxy on abraded metal: 15-30 MPa, low end (from memory)
+    expect(m.epoxy!.strength).toBe(15 * MPa);
+  });
 });

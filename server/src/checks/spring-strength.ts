@@ -1,14 +1,17 @@
 // Springs over the swept range: past max_length, max_stretch, max_angle or a gas strut's
-// stroke (`strength.overstretch`); coil body stress of extension springs against 0.45 S_ut
-// (Shigley ch. 10); readouts of length use, stress and safety; the rubber creep caution.
-import type { ExtensionSpring, Spring } from "../model/types";
+// stroke (`strength.overstretch`); coil body stress of extension springs against their wire's
+// share of S_ut (Shigley ch. 10, model/spring-wire.ts); readouts of length use, stress and
+// safety; the rubber creep caution.
+import type { CoilGeometry, Spring } from "../model/types";
 import type { Pose } from "../mechanics/types";
+import { coilBodyShearStress } from "../mechanics/structure/spring-stress";
 import {
-  coilBodyShearStress,
-  EXTENSION_BODY_ALLOWABLE_RATIO,
-  minimumTensileStrength,
-  MUSIC_WIRE_STRENGTH,
-} from "../mechanics/structure/spring-stress";
+  DECLARED_WIRE_FAMILY,
+  gradeTensileStrength,
+  WIRE_ALLOWABLES,
+  wireGrade,
+  type WireAllowables,
+} from "../model/spring-wire";
 import type { CheckContext } from "./index";
 import { finding } from "./finding";
 import { addFigures, noteSafety } from "./readout";
@@ -17,15 +20,34 @@ import { describePose, pastDeadline, show, showSafety, spanOf } from "./part-wor
 /** Lengths within this of a limit are at the limit (a sweep step lands on it to rounding). */
 const LENGTH_SLACK_M = 1e-6;
 
-/** Minimum tensile strength of a spring's wire: A / d^m for music wire (Shigley Table 10-4),
- * else the material's `strength` as given. */
-export function wireTensileStrength(ctx: CheckContext, spring: ExtensionSpring): number | undefined {
-  const coil = spring.coil;
-  if (!coil) return undefined;
+export interface SpringWireStrength {
+  /** Minimum tensile strength S_ut of the wire at its size, Pa. */
+  tensile: number;
+  /** Shares of S_ut each part of the spring may carry statically. */
+  allowables: WireAllowables;
+  /** Set when a built-in wire's size lies outside Shigley's table: its nearest row is extrapolated. */
+  outsideTable?: string;
+}
+
+/** The wire's minimum tensile strength and allowables: a built-in wire by its own size, S_ut =
+ * A / d^m with A and m of Shigley table 10-4, and its family's shares (tables 10-7, section
+ * 10-12); a declared wire material by its `strength`, as a carbon spring steel. */
+export function springWireStrength(ctx: CheckContext, coil: CoilGeometry): SpringWireStrength | undefined {
   const mat = ctx.model.materials[coil.material];
-  if (/music/i.test(coil.material))
-    return minimumTensileStrength(MUSIC_WIRE_STRENGTH.aMpaMm, MUSIC_WIRE_STRENGTH.m, coil.wireDiameter);
-  return mat?.strength;
+  if (!mat) return undefined;
+  const grade = mat.builtin ? wireGrade(mat.id) : undefined;
+  if (!grade) return { tensile: mat.strength, allowables: WIRE_ALLOWABLES[DECLARED_WIRE_FAMILY] };
+  const at = gradeTensileStrength(grade, coil.wireDiameter);
+  const rows = grade.ranges;
+  return {
+    tensile: at.strength,
+    allowables: WIRE_ALLOWABLES[grade.family],
+    ...(at.inTable
+      ? {}
+      : {
+          outsideTable: `${show(coil.wireDiameter, "length")} ${grade.id} is outside the ${rows[0]!.dMinMm}-${rows[rows.length - 1]!.dMaxMm} mm of Shigley table 10-4: its strength is extrapolated.`,
+        }),
+  };
 }
 
 interface Extreme {
@@ -92,22 +114,25 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
             { length: longest.value, limit: spring.maxLength },
           );
       }
-      const Sut = wireTensileStrength(ctx, spring);
-      if (spring.coil && force && Sut) {
+      const wire = spring.coil && springWireStrength(ctx, spring.coil);
+      if (spring.coil && force && wire) {
+        const Sut = wire.tensile;
+        const share = wire.allowables.extensionBodyTorsion;
         const tau = coilBodyShearStress(force.value, spring.coil.meanDiameter, spring.coil.wireDiameter);
-        const allow = EXTENSION_BODY_ALLOWABLE_RATIO * Sut;
+        const allow = share * Sut;
         const sf = tau > 0 ? allow / tau : Infinity;
         addFigures(ctx.readouts, spring.id, "spring", [
           { label: "body stress", value: tau, dimension: "pressure", where: where(force) },
           { label: "body safety factor", value: sf, dimension: "dimensionless" },
         ]);
+        if (wire.outsideTable) notes.push(wire.outsideTable);
         noteSafety(ctx.readouts, spring.id, "spring", sf, "coil body", where(force));
         if (sf < ctx.model.require.safety)
           ctx.findings.push(
             finding(
               "strength.overstress",
               spanOf(spring.origin, "wire", "rate"),
-              `spring ${spring.id}: body stress ${show(tau, "pressure")} at ${show(force.value, "force")} against 45 % of S_ut ${show(Sut, "pressure")}: safety ${showSafety(sf)} < ${showSafety(ctx.model.require.safety)} required (${where(force)})`,
+              `spring ${spring.id}: body stress ${show(tau, "pressure")} at ${show(force.value, "force")} against ${Math.round(share * 100)} % of S_ut ${show(Sut, "pressure")}: safety ${showSafety(sf)} < ${showSafety(ctx.model.require.safety)} required (${where(force)})`,
               { data: { part: spring.id, check: "coil", safety: sf, required: ctx.model.require.safety } },
             ),
           );

@@ -2,6 +2,8 @@
 // lists them all). SI: kg/m^3, Pa. Values marked "from memory" were not checked against the source
 // here. Strength ranges take the low end (a check should not be optimistic), modulus ranges the middle.
 import type { Material } from "./types";
+import { gradeTensileStrength, wireGrade } from "./spring-wire";
+import { HARDWARE_ENTRIES } from "./hardware-materials";
 
 /** Printed parts loaded across their layers keep about 40-80 % of the in-plane strength; 0.5 is a
  * conservative default (Ahn et al., Rapid Prototyping J. 8(4), 2002; reviews Gordelier et al. 2019,
@@ -18,7 +20,8 @@ const gPerCm3 = 1000;
 /** 1 psi in Pa, exact from lbf and in (NIST SP 811 B.8). */
 const PSI = (0.45359237 * 9.80665) / (0.0254 * 0.0254);
 
-interface Entry {
+/** One library material as written here; toMaterial fills in the derived values. */
+export interface Entry {
   id: string;
   density: number;
   modulus: number;
@@ -26,10 +29,33 @@ interface Entry {
   shearModulus?: number;
   strength: number;
   printed: boolean;
+  contactStrength?: number;
+  proofStrength?: number;
+  ultimateStrength?: number;
   source: string;
 }
 
-const ENTRIES: Entry[] = [
+/** A spring wire's library strength: S_ut = A / d^m at d = 1 mm (spring-wire.ts); the checks use
+ * the wire's own size. */
+function wireStrengthAt1mm(id: string): number {
+  return gradeTensileStrength(wireGrade(id)!, 0.001).strength;
+}
+
+/** A spring wire's entry from Shigley table 10-5 (E, G in Mpsi) and table 10-4 (strength). */
+function wireEntry(id: string, eMpsi: number, gMpsi: number, density: number, source: string): Entry {
+  return {
+    id,
+    density,
+    modulus: eMpsi * 1e6 * PSI,
+    poisson: eMpsi / (2 * gMpsi) - 1,
+    shearModulus: gMpsi * 1e6 * PSI,
+    strength: wireStrengthAt1mm(id),
+    printed: false,
+    source,
+  };
+}
+
+const BASIC_ENTRIES: Entry[] = [
   {
     id: "pla",
     density: 1.24 * gPerCm3,
@@ -115,22 +141,53 @@ const ENTRIES: Entry[] = [
     modulus: 200.0 * GPa,
     poisson: 200.0 / (2 * 81.7) - 1,
     shearModulus: 81.7 * GPa,
-    strength: 2211 * MPa,
+    strength: wireStrengthAt1mm("music_wire"),
     printed: false,
     source:
       "Music wire ASTM A228: E 200.0 GPa and G 81.7 GPa for 0.033-0.063 in wire, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm, A = 2211 MPa mm^m, m = 0.145, Shigley table 10-4 (the checks use the wire's own size); density from memory.",
   },
-  {
-    id: "hard_drawn_wire",
-    density: 7.85 * gPerCm3,
-    modulus: 28.7e6 * PSI,
-    poisson: 28.7 / (2 * 11.6) - 1,
-    shearModulus: 11.6e6 * PSI,
-    strength: 1783 * MPa,
-    printed: false,
-    source:
-      "Hard-drawn wire ASTM A227: E 28.7 Mpsi and G 11.6 Mpsi for 0.033-0.063 in wire, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm, A = 1783 MPa mm^m, m = 0.190, Shigley table 10-4 (from memory); density from memory.",
-  },
+  wireEntry(
+    "hard_drawn_wire",
+    28.7,
+    11.6,
+    7.85 * gPerCm3,
+    "Hard-drawn wire ASTM A227: E 28.7 Mpsi and G 11.6 Mpsi for 0.033-0.063 in wire, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm, A = 1783 MPa mm^m, m = 0.190, Shigley table 10-4 (from memory; the checks use the wire's own size); density from memory.",
+  ),
+  wireEntry(
+    "oil_tempered_wire",
+    28.5,
+    11.2,
+    7.85 * gPerCm3,
+    "Oil-tempered wire ASTM A229: E 28.5 Mpsi, G 11.2 Mpsi, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm, A = 1855 MPa mm^m, m = 0.187, Shigley table 10-4 (from memory; the checks use the wire's own size); density from memory.",
+  ),
+  wireEntry(
+    "chrome_vanadium_wire",
+    29.5,
+    11.2,
+    7.85 * gPerCm3,
+    "Chrome-vanadium wire ASTM A232: E 29.5 Mpsi, G 11.2 Mpsi, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm, A = 2005 MPa mm^m, m = 0.168, Shigley table 10-4 (from memory; the checks use the wire's own size); density from memory.",
+  ),
+  wireEntry(
+    "chrome_silicon_wire",
+    29.5,
+    11.2,
+    7.85 * gPerCm3,
+    "Chrome-silicon wire ASTM A401: E 29.5 Mpsi, G 11.2 Mpsi, Shigley table 10-5; strength is S_ut = A / d^m, A = 1974 MPa mm^m, m = 0.108, Shigley table 10-4 for 1.6-9.5 mm wire, shown at d = 1 mm (from memory; the checks use the wire's own size); density from memory.",
+  ),
+  wireEntry(
+    "stainless_302_wire",
+    28.0,
+    10.0,
+    7.92 * gPerCm3,
+    "Stainless 302 wire ASTM A313: E 28.0 Mpsi, G 10.0 Mpsi, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm with A and m by size (0.3-2.5 mm: 1867, 0.146; 2.5-5 mm: 2065, 0.263; 5-10 mm: 2911, 0.478), Shigley table 10-4 (from memory; the checks use the wire's own size); density from memory.",
+  ),
+  wireEntry(
+    "phosphor_bronze_wire",
+    15.0,
+    6.0,
+    8.86 * gPerCm3,
+    "Phosphor-bronze wire ASTM B159: E 15.0 Mpsi, G 6.0 Mpsi, Shigley table 10-5; strength is S_ut = A / d^m at d = 1 mm with A and m by size (0.1-0.6 mm: 1000, 0; 0.6-2 mm: 913, 0.028; 2-7.5 mm: 932, 0.064), Shigley table 10-4 (from memory; the checks use the wire's own size); density from memory.",
+  ),
   {
     id: "natural_latex",
     density: 0.93 * gPerCm3,
@@ -144,6 +201,8 @@ const ENTRIES: Entry[] = [
   },
 ];
 
+const ENTRIES: Entry[] = [...BASIC_ENTRIES, ...HARDWARE_ENTRIES];
+
 function toMaterial(e: Entry): Material {
   return {
     id: e.id,
@@ -154,6 +213,9 @@ function toMaterial(e: Entry): Material {
     strength: e.strength,
     ...(e.printed ? { layerStrength: LAYER_STRENGTH_FRACTION * e.strength } : {}),
     printed: e.printed,
+    ...(e.contactStrength !== undefined ? { contactStrength: e.contactStrength } : {}),
+    ...(e.proofStrength !== undefined ? { proofStrength: e.proofStrength } : {}),
+    ...(e.ultimateStrength !== undefined ? { ultimateStrength: e.ultimateStrength } : {}),
     builtin: true,
     source: e.source,
   };

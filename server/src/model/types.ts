@@ -34,6 +34,12 @@ export interface Material {
   /** Strength across printed layers, Pa; set for printed materials (default rule in docs). */
   layerStrength?: number;
   printed: boolean;
+  /** Allowable peak Hertz contact pressure, Pa, where the library gives one (balls and races;
+   * else the contact checks use the rule in docs/materials.md). */
+  contactStrength?: number;
+  /** Bolt property classes: proof strength and minimum tensile strength, Pa (ISO 898-1, ISO 3506-1). */
+  proofStrength?: number;
+  ultimateStrength?: number;
   builtin: boolean;
   /** Published source of the values (built-ins), for hovers and docs. */
   source?: string;
