@@ -7,7 +7,7 @@ import { join, relative } from "node:path";
 
 const root = join(__dirname, "..");
 const src = join(root, "server", "src");
-const CORE_DIRS = ["syntax", "units", "model", "mechanics", "checks", "view"];
+const CORE_DIRS = ["findings", "syntax", "units", "model", "mechanics", "checks", "view"];
 
 /** Packages the core must not import: editor and protocol libraries, and Node's IO, process,
  * network and worker modules (the core takes a string and returns values). */
@@ -100,6 +100,17 @@ describe("layer rules", () => {
         .filter((l) => /^\s*import\s/.test(l) && !/^\s*import\s+type\s/.test(l));
       expect(valueImports, relative(root, f)).toEqual([]);
     }
+  });
+
+  it("the findings layer is a leaf: its files import only each other", () => {
+    const files = filesUnder(join(src, "findings"));
+    expect(files.length).toBeGreaterThan(0);
+    const offenders = files.flatMap((f) =>
+      importsOf(readFileSync(f, "utf8"))
+        .filter((s) => !/^\.\/[a-z-]+$/.test(s))
+        .map((s) => `${relative(root, f)}: ${s}`),
+    );
+    expect(offenders).toEqual([]);
   });
 
   it("the core reaches no shell folder (lsp, cli) and no client code", () => {

@@ -7,8 +7,8 @@ import { runChecks } from "./checks/index";
 import type { SyntaxTree } from "./syntax/ast";
 import type { ArmModel } from "./model/types";
 import type { SweepResult } from "./mechanics/types";
-import type { Finding } from "./checks/finding";
-import { finding } from "./checks/finding";
+import type { Finding } from "./findings/finding";
+import { finding } from "./findings/finding";
 import type { Readouts } from "./checks/readout";
 import type { SymbolTable } from "./model/symbols";
 
@@ -44,7 +44,10 @@ export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
   const findings: Finding[] = [];
   let t = performance.now();
   const tree = parse(text);
-  for (const e of tree.errors) findings.push(finding("syntax.error", e.span, e.message));
+  for (const e of tree.errors) {
+    const subject = declarationNameAt(tree, e.span.start);
+    findings.push(finding("syntax.error", e.span, e.message, { data: subject ? { subject } : {} }));
+  }
   timings.parse = performance.now() - t;
 
   t = performance.now();
@@ -82,6 +85,24 @@ export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
     result.readouts = checked.readouts;
   }
   return result;
+}
+
+/** The name of the innermost declaration whose text holds `offset`: what a syntax error there is
+ * about (the parser knows declarations, not parts; a name that builds no part names none). */
+function declarationNameAt(tree: SyntaxTree, offset: number): string | undefined {
+  let best: { name: string; size: number } | undefined;
+  for (const arm of tree.arms)
+    for (const d of arm.declarations) {
+      const { start, end } = d.span;
+      if (
+        d.name &&
+        offset >= start &&
+        offset < Math.max(end, start + 1) &&
+        (!best || end - start < best.size)
+      )
+        best = { name: d.name.text, size: end - start };
+    }
+  return best?.name;
 }
 
 /** Runs a phase; an exception becomes an `analysis.internal` finding instead of a crash. */

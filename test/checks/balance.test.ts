@@ -42,8 +42,8 @@ describe("balance.unbalanced", () => {
     expect(f[0]!.related.length).toBe(2);
     const data = f[0]!.data!;
     // Herder 2001 (references.md): exact balance needs k a b = m g l and Fi = k L0
-    expect(data["bestRate"] as number).toBeCloseTo(k, 2);
-    expect(data["bestInitialTension"] as number).toBeCloseTo(k * L0, 3);
+    expect(data.best!["rate"]!).toBeCloseTo(k, 2);
+    expect(data.best!["initial_tension"]!).toBeCloseTo(k * L0, 3);
     expect(data["worstHandForceAfter"] as number).toBeLessThan(1e-4);
     // Worst before: the largest residual torque over the range divided by the lever l (mechanics.md section 3)
     const worstTau = Math.max(
@@ -69,7 +69,7 @@ describe("balance.unbalanced", () => {
     const ctx = check(model);
     const f = ctx.findings.filter((x) => x.code === "balance.unbalanced");
     expect(f.length).toBe(1);
-    expect(f[0]!.data!["bestRate"]).toBeUndefined();
+    expect(f[0]!.data.best).toBeUndefined();
     expect(f[0]!.message).toContain("move its anchor or hook");
     // Without the spring the worst hand force is the weight at the horizontal: m g (statics)
     expect(f[0]!.data!["worstHandForceAfter"] as number).toBeCloseTo(m * G0, 6);

@@ -53,6 +53,7 @@ describe("poise check", () => {
       expect(Object.keys(d).sort()).toEqual([
         "code",
         "column",
+        "data",
         "endColumn",
         "endLine",
         "file",
@@ -69,6 +70,19 @@ describe("poise check", () => {
     }
     expect(parsed.some((d) => d.file === file)).toBe(true);
     expect(r.status).toBe(1);
+  });
+
+  it("gives each JSON diagnostic its data: the part it is about and its figures in SI", () => {
+    const r = poise("check", "samples/engraver-arm.poise", "--json");
+    const parsed = JSON.parse(r.stdout) as { code: string; message: string; data: Record<string, unknown> }[];
+    const balance = parsed.find((d) => d.code === "balance.unbalanced")!;
+    expect(balance, r.stdout).toBeDefined();
+    expect(balance.data["subject"]).toBe("inner_lift");
+    expect(balance.data["payload"]).toBe("engraver");
+    // The message shows the worst hand force in N to 4 significant figures; the data has it in N, whole.
+    const shown = Number(/takes ([\d.]+) N/.exec(balance.message)![1]);
+    expect(balance.data["worstHandForce"]).toBeCloseTo(shown, 1);
+    expect(Object.keys(balance.data["best"] as object).sort()).toEqual(["initial_tension", "rate"]);
   });
 
   it("exits 2 when it cannot run", () => {

@@ -4,6 +4,7 @@
 import { describe, expect, it } from "vitest";
 import { analyse } from "../../server/src/analysis";
 import { parse } from "../../server/src/syntax/parser";
+import { isCode } from "../../server/src/findings/finding";
 import { STANDARD_PIN_DIAMETERS_M, widenPinFix } from "../../server/src/lsp/code-actions";
 import { PENDULUM_TEXT } from "../view/pendulum-fixture";
 
@@ -14,22 +15,16 @@ const WEAK_PIN = PENDULUM_TEXT.replace(
 
 const withPin = (mm: number) => WEAK_PIN.replace("pin 2 mm soft_pin", `pin ${mm} mm soft_pin`);
 const pinFails = (text: string) =>
-  analyse(text).findings.some((f) => f.code === "strength.overstress" && f.data?.["check"] === "pin");
+  analyse(text).findings.some((f) => f.code === "strength.overstress" && f.data.check === "pin");
 
 describe("widen a pin", () => {
   it("picks the smallest standard diameter that passes", () => {
     const analysis = analyse(WEAK_PIN);
-    const pinFinding = analysis.findings.find(
-      (f) => f.code === "strength.overstress" && f.data?.["check"] === "pin",
-    );
+    const pinFinding = analysis.findings
+      .filter(isCode("strength.overstress"))
+      .find((f) => f.data.check === "pin");
     expect(pinFinding, analysis.findings.map((f) => `${f.code}: ${f.message}`).join("\n")).toBeDefined();
-    const fix = widenPinFix(
-      WEAK_PIN,
-      parse(WEAK_PIN),
-      pinFinding!.span,
-      pinFinding!.message,
-      pinFinding!.data,
-    )!;
+    const fix = widenPinFix(WEAK_PIN, parse(WEAK_PIN), pinFinding!.data)!;
     expect(fix).toBeDefined();
     const mm = Number(/^([\d.]+) mm$/.exec(fix.edits[0]!.newText)![1]);
     const series = STANDARD_PIN_DIAMETERS_M.map((d) => Math.round(d * 1e4) / 10);

@@ -13,6 +13,7 @@ import {
   type TextFix,
 } from "../../server/src/lsp/code-actions";
 import { analyse } from "../../server/src/analysis";
+import { isCode } from "../../server/src/findings/finding";
 import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
 
 function apply(text: string, fix: TextFix): string {
@@ -26,9 +27,8 @@ describe("balance quick fix", () => {
   it("writes the best-fit rate in the unit the rate was written in, and names both hand forces", () => {
     const tree = parse(PENDULUM_TEXT);
     const fix = balanceFix(PENDULUM_TEXT, tree, {
-      springId: "lift",
-      bestRate: K_BALANCED,
-      bestInitialTension: 0,
+      spring: "lift",
+      best: { rate: K_BALANCED, initial_tension: 0 },
       worstHandForceBefore: 4.41,
       worstHandForceAfter: 0.02,
     })!;
@@ -48,9 +48,8 @@ describe("balance quick fix", () => {
       "rate 3.1 lbf/in\n    free_length 40 mm",
     );
     const fix = balanceFix(text, parse(text), {
-      springId: "lift",
-      bestRate: 600,
-      bestInitialTension: 22.2,
+      spring: "lift",
+      best: { rate: 600, initial_tension: 22.2 },
       worstHandForceBefore: 3,
       worstHandForceAfter: 0.5,
     })!;
@@ -64,9 +63,8 @@ describe("balance quick fix", () => {
   it("writes a torsion spring's rate and its preload as a torque, even where the preload was an angle", () => {
     const text = readFileSync("samples/magnifier-arm.poise", "utf8");
     const fix = balanceFix(text, parse(text), {
-      springId: "lens_return",
-      bestRate: 0.5,
-      bestPreloadTorque: 0.12,
+      spring: "lens_return",
+      best: { rate: 0.5, preload: 0.12 },
       worstHandForceBefore: 9,
       worstHandForceAfter: 0.5,
     })!;
@@ -92,11 +90,15 @@ describe("unit and name quick fixes", () => {
     expect(apply(mistakes, fix)).toContain("length 250 mm   ");
   });
 
-  it("takes the suggestion from the data, else from the message", () => {
-    expect(suggestionOf("unknown material", { suggestion: "pla" })).toBe("pla");
-    expect(suggestionOf("unknown material `plaa`; did you mean `pla`?", undefined)).toBe("pla");
+  it("takes the suggestion from the finding's data, never from its message", () => {
+    expect(suggestionOf({ suggestion: "pla" })).toBe("pla");
+    expect(suggestionOf(undefined)).toBeUndefined();
     const span = spanOf(mistakes, "plaa");
-    const fix = unknownNameFix(mistakes, span, "unknown material `plaa`; did you mean `pla`?", undefined)!;
+    const found = analyse(mistakes, { modelOnly: true })
+      .findings.filter(isCode("name.unknown"))
+      .find((f) => f.span.start === span.start)!;
+    expect(found.data.suggestion).toBe("pla");
+    const fix = unknownNameFix(mistakes, span, found.data)!;
     expect(apply(mistakes, fix)).toContain("material pla   ");
   });
 
@@ -108,7 +110,7 @@ describe("unit and name quick fixes", () => {
 
   it("replaces only the point of a dotted reference", () => {
     const span = spanOf(mistakes, "boom.tip");
-    const fix = unknownNameFix(mistakes, span, "boom has no point tip", { suggestion: "end" })!;
+    const fix = unknownNameFix(mistakes, span, { suggestion: "end" })!;
     expect(apply(mistakes, fix)).toContain("connects boom.end to forearm.start");
   });
 });
@@ -121,12 +123,7 @@ describe("spelling fixes of keywords and property names", () => {
     for (const code of ["property.unknown", "declaration.unknown"]) {
       const f = analyse(edited, { modelOnly: true }).findings.find((x) => x.code === code)!;
       expect(f, code).toBeDefined();
-      const [fix] = fixesFor(edited, parse(edited), {
-        code,
-        span: f.span,
-        message: f.message,
-        ...(f.data ? { detail: f.data } : {}),
-      });
+      const [fix] = fixesFor(edited, parse(edited), f);
       expect(fix, code).toBeDefined();
       edited = apply(edited, fix!);
     }

@@ -29,7 +29,7 @@ import { ProtocolSession, ROOT, ensureBuilt, positionOf } from "./protocol-clien
 import { INCH_M } from "../../server/src/units/unit-table";
 import { SPEC_SUMMARY_NOTIFICATION, type SpecSummary } from "../../server/src/lsp/custom-protocol";
 import { poise } from "../cli/run-cli";
-import { CODES } from "../../server/src/checks/codes";
+import { CODES } from "../../server/src/findings/codes";
 
 const CAMERA = readFileSync(join(ROOT, "samples", "camera-arm.poise"), "utf8");
 /** The stage's `length N mm` as the sample has it, and its number. */
@@ -277,6 +277,17 @@ describe("the sample full of mistakes", () => {
       position: positionOf(MISTAKES, "plaa", 2),
     });
     expect(hoverText(h)).toContain(`\`name.unknown\` — ${CODES["name.unknown"].explanation}`);
+  });
+
+  it("hovers a part's name with the findings about it, found by their subject", async () => {
+    const h = await session.connection.sendRequest(HoverRequest.type, {
+      textDocument: { uri: u },
+      position: positionOf(MISTAKES, "link boom", 6),
+    });
+    const text = hoverText(h);
+    expect(text).toMatch(/\*\*boom\*\* — link/);
+    expect(text).toContain("- error `name.unknown`: unknown material `plaa`");
+    expect(text).toContain("- error `value.impossible`: ");
   });
 
   it("carries related places and the finding's detail in its diagnostics", async () => {

@@ -99,9 +99,9 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
     const sweep = solveSweep(model.sweep(13).build());
     const found = sweep.findings.filter((f) => f.code === "geometry.cannot-reach");
     expect(found.length).toBe(1);
-    expect(found[0]!.data!["jointId"]).toBe("rocker");
+    expect(found[0]!.data.subject).toBe("rocker");
     // Law of cosines in the triangle of ground, rocker and folded crank + coupler (plane geometry)
-    expect(Math.abs((found[0]!.data!["lockAngle"] as number) - lock)).toBeLessThan(deg(0.05));
+    expect(Math.abs(found[0]!.data.lockAngle! - lock)).toBeLessThan(deg(0.05));
     expect(found[0]!.span).toEqual(model.model.joints[2]!.origin.properties["range"]);
     // Poses below the lock are still solved
     expect(sweep.poses.every((p) => p.angles["rocker"]! <= lock + 1e-9)).toBe(true);
@@ -127,7 +127,7 @@ describe("four-bar crank-rocker (Freudenstein 1955)", () => {
     const sweep = solveSweep(model);
     const open = sweep.findings.filter((f) => f.code === "geometry.loop-open");
     expect(open.length).toBe(1);
-    expect(open[0]!.data!["jointId"]).toBe("rocker_pin");
+    expect(open[0]!.data.subject).toBe("rocker_pin");
     // Distance between two circles: |centres| - r1 - r2
     expect(open[0]!.data!["gap"] as number).toBeCloseTo(a + d - b - short, 6);
     expect(open[0]!.message).toContain("40 mm");
@@ -205,7 +205,7 @@ describe("mobility", () => {
       .build();
     const sweep = solveSweep(model);
     const unheld = sweep.findings.filter((f) => f.code === "joint.unheld");
-    expect(unheld.map((f) => f.data!["jointId"])).toEqual(["elbow"]);
+    expect(unheld.map((f) => f.data.subject)).toEqual(["elbow"]);
     expect(sweep.poses.length).toBe(5);
     // Held at its angle: the relative angle stays -40 deg
     for (const p of sweep.poses) expect(p.jointAngles["elbow"]).toBeCloseTo(deg(-40), 12);
@@ -220,7 +220,7 @@ describe("mobility", () => {
     rocker.range = [g.th4 - 0.1, g.th4 + 0.1];
     const sweep = solveSweep(model);
     const locked = sweep.findings.filter((f) => f.code === "geometry.cannot-reach");
-    expect(locked.map((f) => f.data!["jointId"])).toEqual(["rocker"]);
+    expect(locked.map((f) => f.data.subject)).toEqual(["rocker"]);
     expect(sweep.dofs.map((d) => d.id)).toEqual(["crank"]);
   });
 });

@@ -5,7 +5,7 @@ import { readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { analyse } from "../../server/src/analysis";
 import { LineIndex } from "../../server/src/syntax/span";
-import type { Code } from "../../server/src/checks/codes";
+import type { Code } from "../../server/src/findings/codes";
 
 const sample = (name: string) => readFileSync(join(__dirname, "..", "..", "samples", name), "utf8");
 

@@ -6,8 +6,8 @@
 //   hand force     |tau| / l  (one dof: |F| = |tau| / |dp/dtheta|, mechanics.md section 3)
 import type { ArmModel, Body, Joint, Spring, Payload } from "../../server/src/model/types";
 import type { Pose, SweepResult } from "../../server/src/mechanics/types";
-import type { Finding } from "../../server/src/checks/finding";
-import { finding } from "../../server/src/checks/finding";
+import type { Finding } from "../../server/src/findings/finding";
+import { finding } from "../../server/src/findings/finding";
 import type { Readouts } from "../../server/src/checks/readout";
 import type { Span } from "../../server/src/syntax/span";
 import type { ViewInput } from "../../server/src/view/build-view-model";
@@ -213,11 +213,16 @@ export function pendulumAnalysis(rate = 550): ViewInput {
       `Holding lamp needs up to ${worst.toFixed(2)} N; the arm sinks.`,
       {
         data: {
-          springId: "lift",
-          bestRate: K_BALANCED,
-          bestInitialTension: 0,
+          subject: "lift",
+          payload: "lamp",
+          spring: "lift",
+          limit: 1,
+          worstHandForce: worst,
+          worstPose: {},
+          sinks: true,
           worstHandForceBefore: worst,
           worstHandForceAfter: 0,
+          best: { rate: K_BALANCED, initial_tension: 0 },
         },
       },
     ),
@@ -226,7 +231,7 @@ export function pendulumAnalysis(rate = 550): ViewInput {
       model.joints[0]!.origin.properties.pin!,
       "Pin of shoulder: safety factor 1.4 in shear, below 2.",
       {
-        data: { partId: "shoulder", safety: 1.4, required: 2 },
+        data: { subject: "shoulder", check: "pin", safety: 1.4, required: 2 },
       },
     ),
   ];

@@ -5,7 +5,7 @@
 import type { ArmModel, Spring } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import type { CheckContext } from "./index";
-import { finding, type RelatedInfo } from "./finding";
+import { finding, type RelatedInfo } from "../findings/finding";
 import { addFigures, type Figure } from "./readout";
 import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics/spring-fit";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
@@ -38,6 +38,12 @@ function spanOfSpring(s: Spring) {
   return s.origin.properties[key] ?? s.origin.name ?? s.origin.declaration;
 }
 
+/** The load case of the worst pose, when the sweep has one by that index. */
+function caseOf(sweep: SweepResult, caseIndex: number): { caseId?: string } {
+  const id = sweep.loadCases[caseIndex]?.id;
+  return id === undefined ? {} : { caseId: id };
+}
+
 interface Worst {
   value: number;
   pose: Pose;
@@ -55,22 +61,19 @@ function worstHandForce(sweep: SweepResult, payloadId: string): Worst | undefine
   return w;
 }
 
-/** Data of a balance quick fix, in SI. */
-function fitData(s: Spring, fit: SpringFit): Record<string, unknown> {
-  const data: Record<string, unknown> = {
-    springId: s.id,
-    worstHandForceBefore: fit.worstHandForceBefore,
-    worstHandForceAfter: fit.worstHandForceAfter,
-  };
-  if (s.kind === "extension" || s.kind === "zero_length") {
-    data["bestRate"] = fit.best[0];
-    data["bestInitialTension"] = fit.best[1];
-  } else if (s.kind === "torsion") {
-    data["bestRate"] = fit.best[0];
-    data["bestPreloadTorque"] = fit.best[1];
-  } else if (s.kind === "gas") data["bestForce"] = fit.best[0];
-  else data["bestArea"] = fit.best[0];
-  return data;
+/** The best-fit settings by the property each goes in, SI: what a balance quick fix writes. */
+function bestSettings(s: Spring, fit: SpringFit): Record<string, number> {
+  switch (s.kind) {
+    case "extension":
+    case "zero_length":
+      return { rate: fit.best[0], initial_tension: fit.best[1] };
+    case "torsion":
+      return { rate: fit.best[0], preload: fit.best[1] };
+    case "gas":
+      return { force: fit.best[0] };
+    case "elastic":
+      return { area: fit.best[0] };
+  }
 }
 
 function fitWords(s: Spring, fit: SpringFit): string {
@@ -150,25 +153,21 @@ export function balanceChecks(ctx: CheckContext): void {
         : vanishes
           ? ` Spring ${spring.id} works against the balance where it is placed (the best setting is almost no spring at all, leaving ${formatForce(fit.worstHandForceAfter)}): move its anchor or hook.`
           : ` With spring ${spring.id} at ${fitWords(spring, fit)} the worst hand force over the range would be ${formatForce(fit.worstHandForceAfter)}.`;
-      const fix =
-        better && !vanishes
-          ? fitData(spring, fit)
-          : {
-              springId: spring.id,
-              worstHandForceBefore: fit.worstHandForceBefore,
-              worstHandForceAfter: fit.worstHandForceAfter,
-            };
       ctx.findings.push(
         finding("balance.unbalanced", spanOfSpring(spring), head + advice, {
           related,
           data: {
-            ...fix,
-            payloadId: p.id,
+            subject: spring.id,
+            payload: p.id,
+            spring: spring.id,
             limit,
             worstHandForce: worst.value,
             worstPose: { ...worst.pose.angles },
-            caseId: sweep.loadCases[worst.caseIndex]?.id,
+            ...caseOf(sweep, worst.caseIndex),
             sinks,
+            worstHandForceBefore: fit.worstHandForceBefore,
+            worstHandForceAfter: fit.worstHandForceAfter,
+            ...(better && !vanishes ? { best: bestSettings(spring, fit) } : {}),
           },
         }),
       );
@@ -181,11 +180,12 @@ export function balanceChecks(ctx: CheckContext): void {
           {
             related,
             data: {
-              payloadId: p.id,
+              subject: p.id,
+              payload: p.id,
               limit,
               worstHandForce: worst.value,
               worstPose: { ...worst.pose.angles },
-              caseId: sweep.loadCases[worst.caseIndex]?.id,
+              ...caseOf(sweep, worst.caseIndex),
               sinks,
             },
           },
@@ -248,7 +248,7 @@ function driftChecks(ctx: CheckContext): void {
         "balance.drifts",
         joint.origin.properties["friction"] ?? joint.origin.name ?? joint.origin.declaration,
         `${isStage(model, joint.id) ? "parallelogram" : "joint"} ${joint.id} does not hold over ${words}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, so it turns ${turn} on its own.`,
-        { data: { jointId: joint.id, ranges: runs, worstHoldingTorque: worst, friction } },
+        { data: { subject: joint.id, ranges: runs, worstHoldingTorque: worst, friction } },
       ),
     );
   }

@@ -8,7 +8,7 @@ import { worldPoint } from "../mechanics/body-loads";
 import { wrapNear } from "../mechanics/joint-graph";
 import { sectionProperties } from "../model/section";
 import type { CheckContext } from "./index";
-import { finding } from "./finding";
+import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
 import { carrierHead, jointsBetween, parallelogramOfHead } from "./arm-paths";
 import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from "./part-words";
@@ -117,7 +117,7 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
           related: [
             { span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` },
           ],
-          data: { spring: s.id, joint: j.id, leverArm: 0 },
+          data: { subject: s.id, joint: j.id, leverArm: 0 },
         },
       ),
     );
@@ -143,7 +143,7 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
         related: [
           { span: j.origin.name ?? j.origin.declaration, message: `the pivot it works about: ${j.id}` },
         ],
-        data: { spring: s.id, joint: j.id, leverArm: worst.arm },
+        data: { subject: s.id, joint: j.id, leverArm: worst.arm },
       },
     ),
   );
@@ -172,7 +172,15 @@ function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" | 
       "geometry.spring-slack",
       spanOf(s.origin, "free_length"),
       `spring ${s.id}: slack over ${slack.length} of ${sweep.poses.length} poses (${span}): as short as ${show(shortest, "length")} against its free length ${show(s.freeLength, "length")}, so it pulls nothing there`,
-      { data: { spring: s.id, poses: slack.length } },
+      {
+        data: {
+          subject: s.id,
+          poses: slack.length,
+          posesSwept: sweep.poses.length,
+          shortest,
+          freeLength: s.freeLength,
+        },
+      },
     ),
   );
 }
@@ -241,7 +249,7 @@ function checkTilt(ctx: CheckContext): void {
                 },
               ]
             : [],
-          data: { parallelogram: par.id, change: r.change, limit },
+          data: { subject: par.id, change: r.change, limit, ...(payload ? { payload } : {}) },
         },
       ),
     );
@@ -437,7 +445,7 @@ function checkClearance(ctx: CheckContext): void {
   const pairWorst = new Map<string, { gap: number; pose: Pose; a: Body; b: Body }>();
   const belowWorst = new Map<
     string,
-    { depth: number; pose: Pose; what: string; span: { start: number; end: number } }
+    { id: string; depth: number; pose: Pose; what: string; span: { start: number; end: number } }
   >();
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
@@ -464,6 +472,7 @@ function checkClearance(ctx: CheckContext): void {
         const prev = belowWorst.get(sh.body.id);
         if (!prev || surface - lowest > prev.depth)
           belowWorst.set(sh.body.id, {
+            id: sh.body.id,
             depth: surface - lowest,
             pose,
             what: bodyWord(sh.body),
@@ -499,6 +508,7 @@ function checkClearance(ctx: CheckContext): void {
         const prev = belowWorst.get(`payload ${p.id}`);
         if (!prev || surface - at.y > prev.depth)
           belowWorst.set(`payload ${p.id}`, {
+            id: p.id,
             depth: surface - at.y,
             pose,
             what: `payload ${p.id}`,
@@ -516,7 +526,7 @@ function checkClearance(ctx: CheckContext): void {
     ctx.findings.push(
       finding("geometry.clearance", w.b.origin.name ?? w.b.origin.declaration, msg, {
         related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)],
-        data: { a: w.a.id, b: w.b.id, gap: w.gap },
+        data: { subject: w.b.id, other: w.a.id, gap: w.gap },
       }),
     );
   }
@@ -528,7 +538,7 @@ function checkClearance(ctx: CheckContext): void {
         w.depth > 0
           ? `${w.what} goes ${show(w.depth, "length")} below the bench surface ${describePose(sweep, w.pose)}`
           : `${w.what} comes within ${show(-w.depth, "length")} of the bench surface ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`,
-        { data: { below: w.depth } },
+        { data: { subject: w.id, below: w.depth } },
       ),
     );
   }

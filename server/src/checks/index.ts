@@ -2,7 +2,7 @@
 // here once.
 import type { ArmModel } from "../model/types";
 import type { SweepResult } from "../mechanics/types";
-import type { Finding } from "./finding";
+import type { Finding } from "../findings/finding";
 import type { Readouts } from "./readout";
 import { balanceChecks } from "./balance";
 import { checkStrength } from "./strength";

@@ -5,7 +5,7 @@ import type { Pose, SweepResult } from "../mechanics/types";
 import type { Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
 import { formatNumber, formatResult } from "../units/format";
-import type { RelatedInfo } from "./finding";
+import type { RelatedInfo } from "../findings/finding";
 
 /** A quantity as messages show it (SI display units; the editor shows hovers in either system). */
 export function show(valueSI: number, dimension: DimensionName): string {

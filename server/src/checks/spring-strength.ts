@@ -13,7 +13,7 @@ import {
   type WireAllowables,
 } from "../model/spring-wire";
 import type { CheckContext } from "./index";
-import { finding } from "./finding";
+import { finding, type FindingData } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
 import { describePose, pastDeadline, show, showSafety, spanOf } from "./part-words";
 
@@ -89,10 +89,14 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
     });
   }
   const where = (e: Extreme) => describePose(sweep, e.pose, e.caseIndex);
-  const over = (message: string, key: string, data: Record<string, unknown>) =>
+  const over = (
+    message: string,
+    key: string,
+    figures: Omit<FindingData<"strength.overstretch">, "subject" | "limitKey">,
+  ) =>
     ctx.findings.push(
       finding("strength.overstretch", spanOf(spring.origin, key), message, {
-        data: { spring: spring.id, ...data },
+        data: { subject: spring.id, limitKey: key, ...figures },
       }),
     );
   const notes: string[] = [];
@@ -133,7 +137,7 @@ function checkSpring(ctx: CheckContext, spring: Spring): void {
               "strength.overstress",
               spanOf(spring.origin, "wire", "rate"),
               `spring ${spring.id}: body stress ${show(tau, "pressure")} at ${show(force.value, "force")} against ${Math.round(share * 100)} % of S_ut ${show(Sut, "pressure")}: safety ${showSafety(sf)} < ${showSafety(ctx.model.require.safety)} required (${where(force)})`,
-              { data: { part: spring.id, check: "coil", safety: sf, required: ctx.model.require.safety } },
+              { data: { subject: spring.id, check: "coil", safety: sf, required: ctx.model.require.safety } },
             ),
           );
       } else if (!spring.coil)

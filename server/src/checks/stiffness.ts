@@ -6,7 +6,7 @@ import type { Pose, SweepResult } from "../mechanics/types";
 import { buildArmFrame } from "../mechanics/structure/arm-frame";
 import { elementStrainEnergy } from "../mechanics/structure/frame";
 import type { CheckContext } from "./index";
-import { finding } from "./finding";
+import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
 import { carrierHead, parallelogramOfHead } from "./arm-paths";
 import { orientationRange } from "./geometry";
@@ -188,7 +188,10 @@ function reportPayloads(
           "stiffness.deflection",
           partSpan,
           `payload ${p.id} deflects ${show(w.deflection, "length")} under load, more than the ${show(dLimit, "length")} allowed (${describePose(sweep, w.deflectionPose, w.deflectionCase)})${compliant ? `; ${bodyWord(compliant)} gives most of it` : ""}`,
-          { related, data: { payload: p.id, deflection: w.deflection, limit: dLimit } },
+          {
+            related,
+            data: { subject: compliant?.id ?? p.id, payload: p.id, deflection: w.deflection, limit: dLimit },
+          },
         ),
       );
     const tLimit = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
@@ -199,7 +202,17 @@ function reportPayloads(
           "stiffness.tilt",
           span,
           `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describePose(sweep, w.tiltPose, w.tiltCase)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}`,
-          { related, data: { payload: p.id, tilt: totalTilt, elastic: w.tilt, geometric, limit: tLimit } },
+          {
+            related,
+            data: {
+              subject: par?.id ?? compliant?.id ?? p.id,
+              payload: p.id,
+              tilt: totalTilt,
+              elastic: w.tilt,
+              geometric,
+              limit: tLimit,
+            },
+          },
         ),
       );
     }
@@ -231,7 +244,7 @@ function reportFrequency(
         related: model.require.origin?.properties["frequency"]
           ? [{ span: model.require.origin.properties["frequency"], message: "the required frequency" }]
           : [],
-        data: { frequency: lowest.f, required: need },
+        data: { ...(compliant ? { subject: compliant.id } : {}), frequency: lowest.f, required: need },
       },
     ),
   );

@@ -9,7 +9,7 @@ import { localBeamLoads } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
 import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
 import type { CheckContext } from "./index";
-import { finding } from "./finding";
+import { finding } from "../findings/finding";
 import { addFigures, noteSafety, type Figure } from "./readout";
 import {
   bodyWord,
@@ -329,7 +329,7 @@ function reportBodies(
                 span: p.origin.name ?? p.origin.declaration,
                 message: `payload ${p.id} loads it`,
               })),
-            data: { part: body.id, check: what, safety: w.safety, required: need },
+            data: { subject: body.id, check: what, safety: w.safety, required: need },
           }),
         );
       }
@@ -390,7 +390,7 @@ function reportPins(
           "strength.overstress",
           pinSpan(model, j),
           `pin of joint ${j.id}: ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (reaction ${show(w.figure, "force")} ${where})`,
-          { related, data: { part: j.id, check: "pin", safety: w.safety, required: need } },
+          { related, data: { subject: j.id, check: "pin", safety: w.safety, required: need } },
         ),
       );
     }

@@ -6,7 +6,7 @@ import type { ArmModel } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
 import type { CheckContext } from "./index";
-import { finding } from "./finding";
+import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
 import { describePose, pastDeadline, payloadMasses, show, showSafety, spanOf } from "./part-words";
 
@@ -147,7 +147,13 @@ export function checkTipping(ctx: CheckContext): void {
             span: p.origin.name ?? p.origin.declaration,
             message: `payload ${p.id} adds to the overturning moment`,
           })),
-          data: { safety: worst.safety, required: need },
+          data: {
+            subject: base.bodyId,
+            safety: worst.safety,
+            required: need,
+            overturning: worst.overturning,
+            restoring: worst.restoring,
+          },
         },
       ),
     );

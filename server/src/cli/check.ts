@@ -1,8 +1,8 @@
 // `poise check FILE... [--json]`: one line per diagnostic `path:line:column: severity code:
-// message` (1-based), then a one-line summary; or one JSON array. Exit 0 no errors, 1 errors, 2
-// the command could not run.
+// message` (1-based), then a one-line summary; or one JSON array, each diagnostic with its figures
+// (`data`: subject and SI numbers). Exit 0 no errors, 1 errors, 2 the command could not run.
 import { analyse } from "../analysis";
-import type { Finding } from "../checks/finding";
+import type { Finding } from "../findings/finding";
 import { LineIndex } from "../syntax/span";
 import { readSpec, type Output } from "./io";
 
@@ -15,6 +15,8 @@ export interface JsonDiagnostic {
   severity: Finding["severity"];
   code: string;
   message: string;
+  /** The finding's subject and figures, SI (findings/data.ts; docs/checks.md). */
+  data: Finding["data"];
 }
 
 export function diagnosticsOf(file: string, text: string): JsonDiagnostic[] {
@@ -35,6 +37,7 @@ export function diagnosticsOf(file: string, text: string): JsonDiagnostic[] {
         code: f.code,
         // One diagnostic, one line: a message never breaks the line format.
         message: f.message.replace(/\s*[\r\n]+\s*/g, " "),
+        data: f.data,
       };
     });
 }

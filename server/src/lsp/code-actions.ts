@@ -21,6 +21,9 @@ import type { DimensionName } from "../units/dimension";
 import { fromSI, parseUnit, sameDimension, USUAL_UNIT } from "../units/quantity";
 import { DIMENSIONS } from "../units/dimension";
 import { formatNumber } from "../units/format";
+import { CODES, type Code } from "../findings/codes";
+import type { FindingData } from "../findings/finding";
+import type { OverstressData, TextData, UnbalancedData } from "../findings/data";
 
 /** A fix as offsets into the text: the protocol layer below turns it into a workspace edit. */
 export interface TextFix {
@@ -49,8 +52,11 @@ function declarationNamed(tree: SyntaxTree, keyword: string, name: string): Decl
   return declarations(tree).find((d) => d.keyword.text === keyword && d.name?.text === name);
 }
 
-function declarationAt(tree: SyntaxTree, offset: number): DeclarationNode | undefined {
-  return declarations(tree).find((d) => offset >= d.span.start && offset < d.span.end);
+/** The declaration whose words make a part: its own, or for a part a parallelogram generates
+ * (`reach.lower`, `reach.upper_root`) the parallelogram's. */
+function declarationOf(tree: SyntaxTree, id: string): DeclarationNode | undefined {
+  const name = id.split(".")[0]!;
+  return declarations(tree).find((d) => d.name?.text === name);
 }
 
 function propertyOf(decl: DeclarationNode, key: string): PropertyNode | undefined {
@@ -117,6 +123,12 @@ function writeIn(valueSI: number, written: QuantityNode | undefined, dimension: 
 
 // ---- balance: best-fit rate and initial tension ---------------------------------------------
 
+/** What the balance fix reads of a `balance.unbalanced` finding. */
+export type BalanceFixData = Pick<
+  UnbalancedData,
+  "spring" | "best" | "worstHandForceBefore" | "worstHandForceAfter"
+>;
+
 function num(x: unknown): number | undefined {
   return typeof x === "number" && Number.isFinite(x) ? x : undefined;
 }
@@ -127,38 +139,26 @@ function handForceText(n: number): string {
   return Math.abs(n) < 1000 ? `${n.toFixed(2)} N` : `${formatNumber(n)} N`;
 }
 
-/** What the balance fit may write, by spring kind: property, key of the finding's data, dimension,
- * and whether the property must already be written (else the fix adds it). */
+/** What the balance fit may write, by spring kind: property (the key of the finding's `best`),
+ * dimension, and whether the property must already be written (else the fix adds it). */
 const FIT_SETTINGS: Record<
   string,
-  { key: string; data: string; dimension: DimensionName; words: string; mustExist: boolean }[]
+  { key: string; dimension: DimensionName; words: string; mustExist: boolean }[]
 > = {
   extension: [
-    { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
-    {
-      key: "initial_tension",
-      data: "bestInitialTension",
-      dimension: "force",
-      words: "initial tension",
-      mustExist: false,
-    },
+    { key: "rate", dimension: "stiffness", words: "rate", mustExist: true },
+    { key: "initial_tension", dimension: "force", words: "initial tension", mustExist: false },
   ],
   zero_length: [
-    { key: "rate", data: "bestRate", dimension: "stiffness", words: "rate", mustExist: true },
-    {
-      key: "initial_tension",
-      data: "bestInitialTension",
-      dimension: "force",
-      words: "initial tension",
-      mustExist: false,
-    },
+    { key: "rate", dimension: "stiffness", words: "rate", mustExist: true },
+    { key: "initial_tension", dimension: "force", words: "initial tension", mustExist: false },
   ],
   torsion: [
-    { key: "rate", data: "bestRate", dimension: "angular_stiffness", words: "rate", mustExist: true },
-    { key: "preload", data: "bestPreloadTorque", dimension: "torque", words: "preload", mustExist: false },
+    { key: "rate", dimension: "angular_stiffness", words: "rate", mustExist: true },
+    { key: "preload", dimension: "torque", words: "preload", mustExist: false },
   ],
-  gas: [{ key: "force", data: "bestForce", dimension: "force", words: "force", mustExist: true }],
-  elastic: [{ key: "area", data: "bestArea", dimension: "area", words: "cross-section", mustExist: true }],
+  gas: [{ key: "force", dimension: "force", words: "force", mustExist: true }],
+  elastic: [{ key: "area", dimension: "area", words: "cross-section", mustExist: true }],
 };
 /** An initial tension below this is not worth writing into a zero-length spring: hundredths of a
  * newton are below what a spring maker can set (common practice, no source). */
@@ -180,9 +180,9 @@ function writeInDimension(valueSI: number, written: ValueNode | undefined, dimen
 export function balanceFix(
   text: string,
   tree: SyntaxTree,
-  detail: Record<string, unknown> | undefined,
+  data: BalanceFixData | undefined,
 ): TextFix | undefined {
-  const springId = typeof detail?.["springId"] === "string" ? (detail["springId"] as string) : undefined;
+  const springId = data?.spring;
   const decl = springId ? declarationNamed(tree, "spring", springId) : undefined;
   const kind = decl && springKindOf(decl);
   const settings = kind ? FIT_SETTINGS[kind] : undefined;
@@ -191,7 +191,7 @@ export function balanceFix(
   const words: string[] = [];
   let anchor: PropertyNode | undefined;
   for (const setting of settings) {
-    const value = num(detail?.[setting.data]);
+    const value = num(data?.best?.[setting.key]);
     const prop = propertyOf(decl, setting.key);
     if (
       value === undefined ||
@@ -218,8 +218,8 @@ export function balanceFix(
     words.push(`${setting.words} to ${written}`);
   }
   if (edits.length === 0) return undefined;
-  const before = num(detail?.["worstHandForceBefore"]);
-  const after = num(detail?.["worstHandForceAfter"]);
+  const before = num(data?.worstHandForceBefore);
+  const after = num(data?.worstHandForceAfter);
   const forces =
     before !== undefined && after !== undefined
       ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)} over every payload)`
@@ -232,7 +232,7 @@ export function balanceFix(
 export function missingUnitFix(
   tree: SyntaxTree,
   span: Span,
-  detail: Record<string, unknown> | undefined,
+  data: TextData | undefined,
 ): TextFix | undefined {
   for (const arm of tree.arms) {
     const scopes: { keyword?: string; properties: readonly PropertyNode[] }[] = [
@@ -249,8 +249,7 @@ export function missingUnitFix(
         if (!q) continue;
         // A sibling that has a unit (the other end of a range, the other coordinate) says it best.
         let unit = quantities.find((n) => n.unit)?.unit?.text;
-        const suggestion =
-          typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+        const suggestion = data?.suggestion;
         if (!unit && suggestion?.startsWith(q.numberText + " "))
           unit = suggestion.slice(q.numberText.length + 1);
         if (!unit) {
@@ -275,26 +274,13 @@ export function missingUnitFix(
 
 // ---- an unknown name ---------------------------------------------------------------------------
 
-/** The suggestion of a name or unit finding: from its data, else the "did you mean" of its message. */
-export function suggestionOf(
-  message: string,
-  detail: Record<string, unknown> | undefined,
-): string | undefined {
-  for (const key of ["suggestion", "closest", "didYouMean"]) {
-    const v = detail?.[key];
-    if (typeof v === "string" && v) return v;
-  }
-  const m = /did you mean [`'"]?([A-Za-z_][A-Za-z0-9_.*/^]*)[`'"]?\??/i.exec(message);
-  return m?.[1];
+/** The suggestion of a name or unit finding, from its data (never from its message). */
+export function suggestionOf(data: TextData | undefined): string | undefined {
+  return data?.suggestion || undefined;
 }
 
-export function unknownNameFix(
-  text: string,
-  span: Span,
-  message: string,
-  detail: Record<string, unknown> | undefined,
-): TextFix | undefined {
-  const suggestion = suggestionOf(message, detail);
+export function unknownNameFix(text: string, span: Span, data: TextData | undefined): TextFix | undefined {
+  const suggestion = suggestionOf(data);
   if (!suggestion || span.end <= span.start) return undefined;
   const written = text.slice(span.start, span.end);
   if (written === suggestion) return undefined;
@@ -316,32 +302,23 @@ export function unknownNameFix(
 
 // ---- a pin too small ---------------------------------------------------------------------------
 
-/** The pin property of the declaration a strength finding sits in, when the finding is about the pin. */
+/** The joint's declaration and its pin property, when the strength finding is about a pin. */
 function pinOf(
   tree: SyntaxTree,
-  span: Span,
-  message: string,
-  detail: Record<string, unknown> | undefined,
+  data: OverstressData | undefined,
 ): { decl: DeclarationNode; prop: PropertyNode; diameter: QuantityNode } | undefined {
-  const decl = declarationAt(tree, span.start);
+  if (data?.check !== "pin") return undefined;
+  const decl = declarationOf(tree, data.subject);
   if (!decl) return undefined;
   const prop = propertyOf(decl, "pin") ?? propertyOf(decl, "pins");
   const diameter = prop?.values[0];
   if (!prop || diameter?.kind !== "quantity" || !diameter.unit) return undefined;
-  const onPin = span.start >= prop.span.start && span.start < prop.span.end;
-  if (!onPin && detail?.["check"] !== "pin" && !/\bpins?\b/i.test(message)) return undefined;
   return { decl, prop, diameter };
 }
 
-function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boolean {
+function pinStillFails(analysis: Analysis, jointId: string): boolean {
   return analysis.findings.some(
-    (f) =>
-      f.code === "strength.overstress" &&
-      f.span.start >= declSpan.start &&
-      f.span.start < declSpan.end &&
-      ((f.span.start >= pinSpan.start && f.span.start < pinSpan.end) ||
-        f.data?.["check"] === "pin" ||
-        /\bpins?\b/i.test(f.message)),
+    (f) => f.code === "strength.overstress" && f.data.check === "pin" && f.data.subject === jointId,
   );
 }
 
@@ -353,20 +330,18 @@ function pinStillFails(analysis: Analysis, declSpan: Span, pinSpan: Span): boole
 export function widenPinFix(
   text: string,
   tree: SyntaxTree,
-  span: Span,
-  message: string,
-  detail: Record<string, unknown> | undefined,
+  data: OverstressData | undefined,
   budgetMs = PIN_FIX_BUDGET_MS,
 ): TextFix | undefined {
   const deadline = performance.now() + budgetMs;
-  const pin = pinOf(tree, span, message, detail);
-  if (!pin) return undefined;
+  const pin = pinOf(tree, data);
+  if (!pin || !data) return undefined;
   const unit = pin.diameter.unit!.text;
   const d = fromSI(1, unit);
   if (d === undefined) return undefined;
   const current = pin.diameter.value / d; // SI
-  const safety = num(detail?.["safety"]) ?? num(detail?.["value"]);
-  const required = num(detail?.["required"]);
+  const safety = num(data.safety);
+  const required = num(data.required);
   const lowest = safety && required && safety > 0 ? current * Math.sqrt(required / safety) : current;
   const candidates = STANDARD_PIN_DIAMETERS_M.filter(
     (c) => c > current * (1 + 1e-9) && c >= lowest * (1 - 1e-9),
@@ -374,9 +349,6 @@ export function widenPinFix(
   for (const c of candidates) {
     const newText = `${formatNumber(fromSI(c, unit)!)} ${unit}`;
     const edited = text.slice(0, pin.diameter.span.start) + newText + text.slice(pin.diameter.span.end);
-    const shift = newText.length - (pin.diameter.span.end - pin.diameter.span.start);
-    const declSpan = { start: pin.decl.span.start, end: pin.decl.span.end + shift };
-    const pinSpan = { start: pin.prop.span.start, end: pin.prop.span.end + shift };
     const left = deadline - performance.now();
     if (left <= 0) return undefined;
     const analysis = analyse(edited, { budgetMs: left });
@@ -385,7 +357,7 @@ export function widenPinFix(
       analysis.findings.some((f) => f.code === "analysis.budget" || f.code === "analysis.internal")
     )
       return undefined;
-    if (!pinStillFails(analysis, declSpan, pinSpan)) {
+    if (!pinStillFails(analysis, data.subject)) {
       const name = pin.decl.name?.text ?? "the joint";
       return {
         title: `Widen ${name}'s pin to ${newText}, the smallest standard size that meets the required safety (checked)`,
@@ -401,13 +373,8 @@ export function widenPinFix(
 
 /** A finding whose data carries the corrected text of exactly the words it points at (a reversed
  * range written the right way round). */
-export function suggestedValueFix(
-  text: string,
-  span: Span,
-  detail: Record<string, unknown> | undefined,
-): TextFix | undefined {
-  const suggestion =
-    typeof detail?.["suggestion"] === "string" ? (detail["suggestion"] as string) : undefined;
+export function suggestedValueFix(text: string, span: Span, data: TextData | undefined): TextFix | undefined {
+  const suggestion = data?.suggestion;
   if (!suggestion || span.end <= span.start || text.slice(span.start, span.end) === suggestion)
     return undefined;
   return { title: `Write ${suggestion}`, edits: [{ span, newText: suggestion }], preferred: true };
@@ -415,34 +382,31 @@ export function suggestedValueFix(
 
 // ---- dispatch ------------------------------------------------------------------------------
 
-export interface FixRequest {
-  code: string;
-  span: Span;
-  message: string;
-  detail?: Record<string, unknown>;
-}
+/** What a fix reads of a finding: its code, the words it points at, and its typed data (a
+ * finding itself fits). */
+export type FixRequest = { [C in Code]: { code: C; span: Span; data: FindingData<C> } }[Code];
 
 export function fixesFor(text: string, tree: SyntaxTree, req: FixRequest): TextFix[] {
   let fix: TextFix | undefined;
   switch (req.code) {
     case "balance.unbalanced":
-      fix = balanceFix(text, tree, req.detail);
+      fix = balanceFix(text, tree, req.data);
       break;
     case "unit.missing":
-      fix = missingUnitFix(tree, req.span, req.detail);
+      fix = missingUnitFix(tree, req.span, req.data);
       break;
     case "name.unknown":
     case "name.unknown-point":
     case "unit.unknown":
     case "property.unknown":
     case "declaration.unknown":
-      fix = unknownNameFix(text, req.span, req.message, req.detail);
+      fix = unknownNameFix(text, req.span, req.data);
       break;
     case "strength.overstress":
-      fix = widenPinFix(text, tree, req.span, req.message, req.detail);
+      fix = widenPinFix(text, tree, req.data);
       break;
     case "value.impossible":
-      fix = suggestedValueFix(text, req.span, req.detail);
+      fix = suggestedValueFix(text, req.span, req.data);
       break;
   }
   return fix ? [fix] : [];
@@ -454,7 +418,7 @@ const pinCache = new Map<string, TextFix[]>();
 
 function cachedFixes(text: string, tree: SyntaxTree, req: FixRequest): TextFix[] {
   if (req.code !== "strength.overstress") return fixesFor(text, tree, req);
-  const key = `${text.length}:${hash(text)}:${req.span.start}:${req.message}`;
+  const key = `${text.length}:${hash(text)}:${req.span.start}:${JSON.stringify(req.data)}`;
   const hit = pinCache.get(key);
   if (hit) return hit;
   const fixes = fixesFor(text, tree, req);
@@ -498,17 +462,16 @@ export const codeActionsFeature: ServerFeature = {
         for (const diagnostic of params.context.diagnostics) {
           if (diagnostic.source !== DIAGNOSTIC_SOURCE) continue;
           const data = diagnostic.data as DiagnosticData | undefined;
+          // A diagnostic from this server carries its finding's code and typed data.
           const code = data?.code ?? (typeof diagnostic.code === "string" ? diagnostic.code : undefined);
-          if (!code) continue;
+          if (!code || !(code in CODES)) continue;
           // The editor keeps the diagnostic's range in step with edits; the data's span is of the
           // analysed text, which may be older.
           const span = {
             start: index.offset(diagnostic.range.start),
             end: index.offset(diagnostic.range.end),
           };
-          const message =
-            typeof diagnostic.message === "string" ? diagnostic.message : diagnostic.message.value;
-          const req: FixRequest = { code, span, message, ...(data?.detail ? { detail: data.detail } : {}) };
+          const req = { code, span, data: data?.detail ?? {} } as FixRequest;
           for (const fix of cachedFixes(text, tree, req))
             actions.push(toAction(doc.uri, index, fix, diagnostic));
         }

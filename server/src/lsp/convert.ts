@@ -2,14 +2,14 @@
 // offsets become line/character positions for the editor.
 import { DiagnosticSeverity, type Diagnostic, type Range } from "vscode-languageserver";
 import { LineIndex, type Span } from "../syntax/span";
-import type { Finding } from "../checks/finding";
-import type { Code, Severity } from "../checks/codes";
+import type { Finding } from "../findings/finding";
+import type { Code, Severity } from "../findings/codes";
 
 /** What rides in a diagnostic's `data`, so quick fixes can find the finding behind it. */
 export interface DiagnosticData {
   code: Code;
-  /** The finding's own machine-readable detail (e.g. a best-fit rate), as the check wrote it. */
-  detail?: Record<string, unknown>;
+  /** The finding's typed data (findings/data.ts: its subject and figures, SI), as the check wrote it. */
+  detail?: Finding["data"];
   /** The finding's span as offsets into the text the analysis saw. */
   span: Span;
 }
@@ -28,8 +28,11 @@ export function spanToRange(index: LineIndex, s: Span): Range {
 }
 
 export function findingToDiagnostic(f: Finding, index: LineIndex, uri: string): Diagnostic {
-  const data: DiagnosticData = { code: f.code, span: { start: f.span.start, end: f.span.end } };
-  if (f.data) data.detail = f.data;
+  const data: DiagnosticData = {
+    code: f.code,
+    span: { start: f.span.start, end: f.span.end },
+    detail: f.data,
+  };
   const diagnostic: Diagnostic = {
     range: spanToRange(index, f.span),
     severity: SEVERITY[f.severity] ?? DiagnosticSeverity.Error,

@@ -1,9 +1,11 @@
 // Hover: a quantity in both unit systems; a name with what it is, its key properties and the
 // analysis figures (readouts, worst safety); a property's meaning; the explanation of the finding
-// under the cursor. Figures come from the last good analysis while a new one runs.
+// under the cursor; on a part's name, the findings about it (by their subject). Figures come from
+// the last good analysis while a new one runs.
 import type { Hover } from "vscode-languageserver";
 import type { Analysis } from "../analysis";
-import { CODES } from "../checks/codes";
+import { CODES } from "../findings/codes";
+import type { Finding } from "../findings/finding";
 import type { PartReadout } from "../checks/readout";
 import type { ArmModel, Body, Spring } from "../model/types";
 import { ARM_PROPERTIES, declarationSpec } from "../model/schema";
@@ -174,7 +176,21 @@ const KIND_WORDS: Record<string, string> = {
   point: "point",
 };
 
-function nameHover(symbol: NameSymbol, analysis: Analysis | undefined, system: UnitSystem): string {
+/** The findings about a part, read from their subject: the part itself, or (for a parallelogram)
+ * the bodies and joints it generates. */
+function findingsAbout(id: string, findings: readonly Finding[]): Finding[] {
+  return findings.filter((f) => {
+    const subject = f.data.subject;
+    return subject !== undefined && (subject === id || subject.startsWith(`${id}.`));
+  });
+}
+
+function nameHover(
+  symbol: NameSymbol,
+  analysis: Analysis | undefined,
+  system: UnitSystem,
+  findings: readonly Finding[] = [],
+): string {
   const title = `**${symbol.id}** — ${KIND_WORDS[symbol.kind] ?? symbol.kind}${symbol.builtin ? " (built in)" : ""}`;
   const parts = [title];
   const model = analysis?.model;
@@ -188,6 +204,9 @@ function nameHover(symbol: NameSymbol, analysis: Analysis | undefined, system: U
     if (lines.length) parts.push(lines.join("\n"));
   }
   if (!model) parts.push("_Figures appear once the spec builds a model._");
+  const about = findingsAbout(symbol.id, findings);
+  if (about.length > 0)
+    parts.push(about.map((f) => `- ${f.severity} \`${f.code}\`: ${f.message}`).join("\n"));
   return parts.join("\n\n");
 }
 
@@ -203,8 +222,10 @@ export function hoverAt(
   const occ = occurrenceAt(view.names, offset);
   const symbol = occ && view.names.symbols.get(occ.symbolId);
   const spot = spotAt(view.tree, offset);
+  // Findings only of this very text: their spans and subjects are of what the editor shows.
+  const findings = current && current.text === view.text ? current.findings : [];
   if (occ && symbol) {
-    sections.push(nameHover(symbol, analysis, system));
+    sections.push(nameHover(symbol, analysis, system, findings));
     range = spanToRange(view.lines, occ.span);
   } else if (spot.quantity) {
     const text = quantityHover(spot.quantity, system);
@@ -224,11 +245,9 @@ export function hoverAt(
     range = spanToRange(view.lines, spot.declaration.keyword.span);
   }
   // The findings under the cursor, with what their code means (only if they are of this text).
-  if (current && current.text === view.text) {
-    for (const finding of current.findings) {
-      if (!spanContains(finding.span, offset)) continue;
-      sections.push(`\`${finding.code}\` — ${CODES[finding.code]?.explanation ?? ""}`);
-    }
+  for (const finding of findings) {
+    if (!spanContains(finding.span, offset)) continue;
+    sections.push(`\`${finding.code}\` — ${CODES[finding.code]?.explanation ?? ""}`);
   }
   if (sections.length === 0) return null;
   return { contents: { kind: "markdown", value: sections.join("\n\n---\n\n") }, ...(range ? { range } : {}) };

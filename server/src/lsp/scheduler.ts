@@ -2,7 +2,7 @@
 // arrive for a text already changed, stop a stale run that has gone on too long, and keep the last
 // good analysis to answer hover and completion while a new run is under way.
 import type { Analysis, AnalysisOptions } from "../analysis";
-import { finding } from "../checks/finding";
+import { finding } from "../findings/finding";
 import type { SyntaxTree } from "../syntax/ast";
 import type { AnalysisRunner, RunHandle } from "./runner";
 import type { Settings } from "./settings";

@@ -3,7 +3,7 @@
 // passive joints that no loop holds are held at their angle and reported).
 import type { ArmModel, Joint } from "../model/types";
 import type { Dof } from "./types";
-import { finding, type Finding } from "../checks/finding";
+import { finding, type Finding } from "../findings/finding";
 import {
   createConstraintSet,
   ROW_DRIVE,
@@ -82,7 +82,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
           "geometry.loop-open",
           jointSpan(j),
           `The loop closed by joint ${j.id} does not meet at the reference pose: its pivots are ${formatLength(g.gap)} apart.`,
-          { data: { jointId: j.id, gap: g.gap } },
+          { data: { subject: j.id, gap: g.gap } },
         ),
       );
     } else if (g.angleMismatch > LOOP_ANGLE_TOLERANCE) {
@@ -92,7 +92,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
           "geometry.loop-open",
           jointSpan(j),
           `The loop closed by joint ${j.id} meets only with the joint at ${formatAngle(ref.angles[g.joint]!)}, not at its angle ${formatAngle(j.angle)}.`,
-          { data: { jointId: j.id, gap: 0, angle: ref.angles[g.joint] } },
+          { data: { subject: j.id, gap: 0, angle: ref.angles[g.joint]! } },
         ),
       );
     }
@@ -211,7 +211,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
         "joint.unheld",
         jointSpan(j),
         `Joint ${j.id} is free but no closed loop holds it: give it a range or make it fixed (the analysis holds it at ${formatAngle(j.angle)}).`,
-        { data: { jointId: j.id } },
+        { data: { subject: j.id } },
       ),
     );
   }
@@ -228,7 +228,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
           ? (first.origin.properties["range"] ?? first.origin.name ?? first.origin.declaration)
           : model.span,
         `At its reference pose the linkage sits at a dead point${deadPointAtReference ? "" : " or cannot be solved"}: its pivots line up, so it could fold either way and cannot be moved from there; choose another reference angle.`,
-        { data: { jointId: first?.id, deadPoint: true } },
+        { data: { ...(first ? { subject: first.id } : {}), deadPoint: true } },
       ),
     );
   }
@@ -277,6 +277,6 @@ function lockedDofFinding(j: Joint): Finding {
     "geometry.cannot-reach",
     jointSpan(j),
     `Joint ${j.id} cannot move: the loop it is in is already held by other fixed joints or degrees of freedom, so its range is never reached.`,
-    { data: { jointId: j.id } },
+    { data: { subject: j.id } },
   );
 }

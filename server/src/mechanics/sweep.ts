@@ -2,7 +2,7 @@
 // with the others at reference), kinematics and statics at every pose, for every load case.
 import type { ArmModel } from "../model/types";
 import type { LoadCase, Pose, SweepResult } from "./types";
-import { finding, type Finding } from "../checks/finding";
+import { finding, type Finding } from "../findings/finding";
 import { SWEEP_DEFAULTS } from "../model/schema";
 import { buildLinkage } from "./linkage";
 import { PoseSolver, type SavedFactors } from "./pose-solver";
@@ -134,9 +134,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
         "geometry.cannot-reach",
         j ? (j.origin.name ?? j.origin.declaration) : model.span,
         "The linkage is locked at its reference pose (its constraint Jacobian is singular there): it cannot move from it.",
-        {
-          data: { jointId: j?.id },
-        },
+        { data: j ? { subject: j.id } : {} },
       ),
     );
     return { dofs, loadCases: cases, poses: [], steps: 0, grid, findings };
@@ -260,7 +258,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
         "geometry.cannot-reach",
         joint.origin.properties["range"] ?? joint.origin.name ?? joint.origin.declaration,
         `Joint ${joint.id} locks at ${formatAngle(lock)}${others ? ` (with ${others})` : ""}${solver.deadPoint ? ", a dead point where its pivots line up and it can fold either way" : ""}: the linkage cannot reach ${formatAngle(node.angles[moved]!)} and beyond, inside its range ${formatAngle(dof.range[0])} .. ${formatAngle(dof.range[1])}.`,
-        { data: { jointId: joint.id, lockAngle: lock, direction: dir, deadPoint: solver.deadPoint } },
+        { data: { subject: joint.id, lockAngle: lock, direction: dir, deadPoint: solver.deadPoint } },
       ),
     );
   }

@@ -1,7 +1,7 @@
 // Results of the kinematic and static sweep: plain data keyed by model ids, SI units.
 // Hover, inlay hints, checks, the preview, the report and `poise sweep` all read these.
 import type { Vec2 } from "../model/types";
-import type { Finding } from "../checks/finding";
+import type { Finding } from "../findings/finding";
 
 /** Origin of a body's frame in world coordinates and its x axis angle from horizontal, rad. */
 export interface BodyPose {

@@ -344,7 +344,7 @@ export class Props {
       this.nameSpan,
       `${this.what} needs ${listWords(keys)}${note}, e.g. \`${examples[0]}\``,
       {
-        data: { insert: examples.join("\n"), keys: this.missingKeys.map((m) => m.key) },
+        data: { keys: this.missingKeys.map((m) => m.key), lines: examples },
       },
     );
     this.missingKeys.length = 0;

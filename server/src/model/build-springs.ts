@@ -34,7 +34,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       "property.missing",
       p.nameSpan,
       `${p.what} needs its kind: one of ${listWords([...SPRING_KINDS], "or")}`,
-      { data: { insert: "extension" } },
+      { data: { keys: [], lines: ["extension"] } },
     );
     return undefined;
   }
@@ -140,7 +140,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
         "property.missing",
         p.nameSpan,
         `${p.what} needs \`rate\` (or its coil: \`wire\`, \`coil\`, \`coils\`, \`material\`), e.g. \`rate 0.8 N/mm\``,
-        { data: { insert: "rate 0.8 N/mm" } },
+        { data: { keys: ["rate"], lines: ["rate 0.8 N/mm"] } },
       );
     } else if (!p.has("rate")) {
       for (const k of coilKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
@@ -215,7 +215,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
         "property.missing",
         p.nameSpan,
         `${p.what} needs its cross-section: \`area\` or \`tube OD x wall\`, e.g. \`tube 6 mm x 1.5 mm\``,
-        { data: { insert: "tube 6 mm x 1.5 mm" } },
+        { data: { keys: [], lines: ["tube 6 mm x 1.5 mm"] } },
       );
     }
     const av = p.values("area");

@@ -3,7 +3,7 @@
 // is built, so the editor keeps its names even while the text has errors.
 import type { ArmNode, DeclarationNode, SyntaxTree } from "../syntax/ast";
 import { LineIndex, span } from "../syntax/span";
-import type { Finding } from "../checks/finding";
+import type { Finding } from "../findings/finding";
 import { closestWord } from "../units/did-you-mean";
 import { STANDARD_GRAVITY } from "../units/unit-table";
 import type {
@@ -92,11 +92,13 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
         decl.keyword.text,
         DECLARATIONS.map((d) => d.keyword),
       );
+      // Read as `best`, the declaration becomes the part its name names (unless that name is taken).
+      const builtAs = best && decl.name && !ctx.names.has(decl.name.text) ? decl.name.text : undefined;
       r.add(
         "declaration.unknown",
         decl.keyword.span,
         `unknown declaration \`${decl.keyword.text}\`${best ? `; did you mean \`${best}\`?` : ""}`,
-        best ? { data: { suggestion: best } } : {},
+        best ? { data: { suggestion: best, ...(builtAs ? { subject: builtAs } : {}) } } : {},
       );
       // A likely typo is read as the keyword it resembles, so its name and contents still count
       // (and references to it raise nothing more); the error above stands.
@@ -104,7 +106,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
       if (!spec) continue;
     }
     if (!spec.named) {
-      const props = new Props(decl, spec, r);
+      const props = r.about(undefined, () => new Props(decl, spec, r));
       ctx.symbols.declarations.push({
         id: spec.keyword,
         kind: spec.keyword as SymbolKind,
@@ -148,19 +150,25 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
       nameSpan: decl.name.span,
       span: decl.span,
     });
-    declared.push({ decl, props: new Props(decl, spec, r), id: name, keyword: spec.keyword });
+    declared.push({
+      decl,
+      props: r.about(name, () => new Props(decl, spec, r)),
+      id: name,
+      keyword: spec.keyword,
+    });
   }
   const of = (keyword: string) => declared.filter((d) => d.keyword === keyword);
 
   // 2. Materials: the library, then the arm's own (an own material may shadow a built-in name).
   ctx.materials = builtinMaterials();
-  for (const d of of("material")) ctx.materials[d.id] = buildMaterial(ctx, d.props, d.id);
+  for (const d of of("material"))
+    ctx.materials[d.id] = r.about(d.id, () => buildMaterial(ctx, d.props, d.id));
 
   // 3. Bodies: the base first.
   const bodies: Body[] = [];
   let base: Base | undefined;
   for (const d of of("base")) {
-    const built = buildBase(ctx, d.props, d.id);
+    const built = r.about(d.id, () => buildBase(ctx, d.props, d.id));
     if (base) {
       r.add("base.second", d.decl.name!.span, `an arm has one base: \`${d.id}\` is a second one`, {
         related: [{ span: ctx.names.get(base.bodyId)!.decl.name!.span, message: "the base that counts" }],
@@ -176,10 +184,10 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
       arm.keywordSpan,
       "the arm has no `base`: declare the fixed ground, e.g. `base bench { point top (0 mm, 300 mm) }`",
     );
-  for (const d of of("link")) bodies.push(buildLink(ctx, d.props, d.id));
+  for (const d of of("link")) bodies.push(r.about(d.id, () => buildLink(ctx, d.props, d.id)));
   const stages: { id: string; build: ParallelogramBuild }[] = [];
   for (const d of of("parallelogram")) {
-    const build = buildParallelogram(ctx, d.props, d.id);
+    const build = r.about(d.id, () => buildParallelogram(ctx, d.props, d.id));
     stages.push({ id: d.id, build });
     bodies.push(...build.bodies);
   }
@@ -188,13 +196,13 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   // 4. Joints, then the parallelograms' joints (their parents are bodies declared anywhere).
   const joints: Joint[] = [];
   for (const d of of("joint")) {
-    const j = buildJoint(ctx, d.props, d.id);
+    const j = r.about(d.id, () => buildJoint(ctx, d.props, d.id));
     if (j) joints.push(j);
     else ctx.jointGraphIncomplete = true;
   }
   const parallelograms: Parallelogram[] = [];
   for (const s of stages) {
-    const done = s.build.finish();
+    const done = r.about(s.id, () => s.build.finish());
     joints.push(...done.joints);
     if (done.parallelogram) parallelograms.push(done.parallelogram);
     else ctx.jointGraphIncomplete = true;
@@ -205,12 +213,12 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   // 5. Springs and payloads.
   const springs: Spring[] = [];
   for (const d of of("spring")) {
-    const s = buildSpring(ctx, d.props, d.id);
+    const s = r.about(d.id, () => buildSpring(ctx, d.props, d.id));
     if (s) springs.push(s);
   }
   const payloads: Payload[] = [];
   for (const d of of("payload")) {
-    const p = buildPayload(ctx, d.props, d.id);
+    const p = r.about(d.id, () => buildPayload(ctx, d.props, d.id));
     if (p) {
       payloads.push(p);
       ctx.payloads.set(p.id, p);
@@ -221,7 +229,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const require: Requirements = requireDecl ? buildRequirements(ctx, requireDecl) : defaultRequirements();
   const sweep: SweepSettings = sweepDecl ? buildSweep(ctx, sweepDecl) : defaultSweep();
 
-  for (const d of declared) d.props.flushMissing();
+  for (const d of declared) r.about(d.id, () => d.props.flushMissing());
   requireDecl?.flushMissing();
   sweepDecl?.flushMissing();
 
@@ -303,7 +311,7 @@ function reportMobility(
         ? `joint ${pick} of parallelogram ${joint.origin.generatedBy}`
         : `joint ${pick}`;
     ctx.r.add("joint.unheld", at, `${what} is free but nothing holds it: give it a range or make it fixed`, {
-      data: { joints: block.passiveJoints, mobility: block.mobility },
+      data: { subject: pick, joints: block.passiveJoints, mobility: block.mobility },
     });
   }
   const reportedStages = new Set<string>();
@@ -318,6 +326,7 @@ function reportMobility(
         "body.unconnected",
         body.origin.name ?? body.origin.declaration,
         `parallelogram ${stage} is not connected to the base`,
+        { data: { subject: stage } },
       );
       continue;
     }
@@ -326,6 +335,7 @@ function reportMobility(
       "body.unconnected",
       body.origin.name ?? body.origin.declaration,
       `link ${id} is not connected to the base: no joint chain reaches it`,
+      { data: { subject: id } },
     );
   }
 }

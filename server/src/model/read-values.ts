@@ -5,14 +5,27 @@ import { LineIndex, span as makeSpan, type Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
 import { checkQuantity, parseUnit } from "../units/quantity";
 import { closestWord } from "../units/did-you-mean";
-import type { Code } from "../checks/codes";
-import { finding, type Finding, type RelatedInfo } from "../checks/finding";
+import type { Code } from "../findings/codes";
+import { finding, type Finding, type FindingData, type RelatedInfo } from "../findings/finding";
 import type { Section, Vec2 } from "./types";
 
-/** Collects findings for one build. */
+/** Codes the model builder reports. */
+export type ModelCode = Exclude<
+  Code,
+  | `geometry.${string}`
+  | `balance.${string}`
+  | `strength.${string}`
+  | `stiffness.${string}`
+  | `analysis.${string}`
+  | "syntax.error"
+>;
+
+/** Collects findings for one build, each about the declaration being read when it was reported. */
 export class Reporter {
   readonly findings: Finding[] = [];
   private readonly index: LineIndex | undefined;
+  /** The model id of the declaration being read: every finding reported meanwhile is about it. */
+  private subject: string | undefined;
 
   constructor(
     readonly text: string,
@@ -22,14 +35,33 @@ export class Reporter {
     this.index = quietLines.size > 0 ? new LineIndex(text) : undefined;
   }
 
-  add(
-    code: Code,
+  /** Runs `read` with its findings about `subject` (undefined: about no one part). */
+  about<T>(subject: string | undefined, read: () => T): T {
+    const outer = this.subject;
+    this.subject = subject;
+    try {
+      return read();
+    } finally {
+      this.subject = outer;
+    }
+  }
+
+  add<C extends ModelCode>(
+    code: C,
     at: Span,
     message: string,
-    extra: { related?: RelatedInfo[]; data?: Record<string, unknown> } = {},
+    ...[extra = {}]: {} extends FindingData<C>
+      ? [extra?: { related?: RelatedInfo[]; data?: FindingData<C> }]
+      : [extra: { related?: RelatedInfo[]; data: FindingData<C> }]
   ): void {
     if (this.index && this.quietLines.has(this.index.position(at.start).line)) return;
-    this.findings.push(finding(code, at, message, extra));
+    // An explicit subject wins over the declaration being read.
+    const data = { ...(this.subject !== undefined ? { subject: this.subject } : {}), ...extra.data };
+    this.findings.push(
+      finding<Code>(code, at, message, { related: extra.related ?? [], data } as {
+        data: FindingData<Code>;
+      }) as Finding,
+    );
   }
 
   /** The text of a span, on one line, for quoting in a message. */

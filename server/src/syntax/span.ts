@@ -1,10 +1,8 @@
 // Source positions: every syntax node and model object carries the character span it came from.
+// The Span type itself is the findings layer's (the leaf below syntax); the helpers are here.
+import type { Span } from "../findings/span";
 
-/** Half-open range of UTF-16 code-unit offsets into the document text: [start, end). */
-export interface Span {
-  readonly start: number;
-  readonly end: number;
-}
+export type { Span };
 
 export function span(start: number, end: number): Span {
   return { start, end };

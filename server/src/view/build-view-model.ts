@@ -2,7 +2,7 @@
 // Pure: no IO; the preview request and `poise report` both call it.
 import type { ArmModel, Body, Vec2 } from "../model/types";
 import type { SweepResult } from "../mechanics/types";
-import type { Finding } from "../checks/finding";
+import type { Finding } from "../findings/finding";
 import type { Readouts } from "../checks/readout";
 import type { Span } from "../syntax/span";
 import { LineIndex } from "../syntax/span";
@@ -54,9 +54,9 @@ function toRange(index: LineIndex, s: Span): ViewRange {
   return { start: index.position(s.start), end: index.position(s.end) };
 }
 
-function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; spans: Map<string, Span> } {
+function collectParts(model: ArmModel, index: LineIndex): ViewPart[] {
   const parts: ViewPart[] = [];
-  const spans = new Map<string, Span>();
+  const seen = new Set<string>();
   const add = (
     id: string,
     kind: ViewPart["kind"],
@@ -64,8 +64,8 @@ function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; s
   ) => {
     // Bodies and joints a parallelogram generated belong to it (the parallelogram itself may carry
     // its own id as `generatedBy`).
-    if ((origin.generatedBy && origin.generatedBy !== id) || spans.has(id)) return;
-    spans.set(id, origin.declaration);
+    if ((origin.generatedBy && origin.generatedBy !== id) || seen.has(id)) return;
+    seen.add(id);
     parts.push({
       id,
       kind,
@@ -80,20 +80,7 @@ function collectParts(model: ArmModel, index: LineIndex): { parts: ViewPart[]; s
   for (const j of model.joints) add(j.id, "joint", j.origin);
   for (const s of model.springs) add(s.id, "spring", s.origin);
   for (const p of model.payloads) add(p.id, "payload", p.origin);
-  return { parts, spans };
-}
-
-/** The part a finding is about: the smallest declaration holding its start. */
-function partAt(spans: Map<string, Span>, offset: number): string | undefined {
-  let best: string | undefined;
-  let bestSize = Infinity;
-  for (const [id, s] of spans) {
-    if (offset >= s.start && offset < Math.max(s.end, s.start + 1) && s.end - s.start < bestSize) {
-      best = id;
-      bestSize = s.end - s.start;
-    }
-  }
-  return best;
+  return parts;
 }
 
 const RANK: Record<PartStatus, number> = { ok: 0, warning: 1, error: 2 };
@@ -262,16 +249,15 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     findings: [],
     torqueMethod: TORQUE_METHOD,
   };
-  const spans = new Map<string, Span>();
-  if (model) {
-    const collected = collectParts(model, index);
-    vm.parts = collected.parts;
-    for (const [k, v] of collected.spans) spans.set(k, v);
-  }
+  if (model) vm.parts = collectParts(model, index);
   const partIds = new Set(vm.parts.map((p) => p.id));
   const byId = new Map(vm.parts.map((p) => [p.id, p]));
+  const partOfSubject = model ? partOfFactory(model, partIds) : (id: string) => id;
   for (const f of input.findings) {
-    const partId = partAt(spans, f.span.start);
+    // The part a finding is about is its subject (a generated body or joint: its parallelogram).
+    const subject = f.data.subject;
+    const partId =
+      subject !== undefined && byId.has(partOfSubject(subject)) ? partOfSubject(subject) : undefined;
     vm.findings.push({
       code: f.code,
       severity: f.severity,
