@@ -1,5 +1,5 @@
-// The layer rules of docs/architecture.md, enforced: the core (syntax, units, model, mechanics,
-// checks, view, analysis.ts) imports no editor or protocol package and nothing that does IO; only
+// The layer rules of docs/architecture.md, enforced: the core (findings, syntax, units, model,
+// mechanics, checks, view, analysis.ts, fixes.ts) imports no editor or protocol package and nothing that does IO; only
 // server/src/lsp touches protocol types; the CLI reaches the core through analysis.ts.
 import { describe, expect, it } from "vitest";
 import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
@@ -41,7 +41,11 @@ export function importsOf(source: string): string[] {
   return out;
 }
 
-const coreFiles = [...CORE_DIRS.flatMap((d) => filesUnder(join(src, d))), join(src, "analysis.ts")];
+const coreFiles = [
+  ...CORE_DIRS.flatMap((d) => filesUnder(join(src, d))),
+  join(src, "analysis.ts"),
+  join(src, "fixes.ts"),
+];
 
 describe("layer rules", () => {
   it("the import scanner sees every form of import", () => {

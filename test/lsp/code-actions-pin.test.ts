@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { analyse } from "../../server/src/analysis";
 import { parse } from "../../server/src/syntax/parser";
 import { isCode } from "../../server/src/findings/finding";
-import { STANDARD_PIN_DIAMETERS_M, widenPinFix } from "../../server/src/lsp/code-actions";
+import { STANDARD_PIN_DIAMETERS_M, widenPinFix } from "../../server/src/checks/strength-fixes";
 import { PENDULUM_TEXT } from "../view/pendulum-fixture";
 
 const WEAK_PIN = PENDULUM_TEXT.replace(
@@ -24,7 +24,7 @@ describe("widen a pin", () => {
       .filter(isCode("strength.overstress"))
       .find((f) => f.data.check === "pin");
     expect(pinFinding, analysis.findings.map((f) => `${f.code}: ${f.message}`).join("\n")).toBeDefined();
-    const fix = widenPinFix(WEAK_PIN, parse(WEAK_PIN), pinFinding!.data)!;
+    const fix = widenPinFix(WEAK_PIN, parse(WEAK_PIN), pinFinding!.data, analyse)!;
     expect(fix).toBeDefined();
     const mm = Number(/^([\d.]+) mm$/.exec(fix.edits[0]!.newText)![1]);
     const series = STANDARD_PIN_DIAMETERS_M.map((d) => Math.round(d * 1e4) / 10);

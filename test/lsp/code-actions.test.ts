@@ -1,17 +1,17 @@
-// Quick fixes as text edits, on the real parser: the balance fix writes the best-fit values in the
-// user's own units, the unit fix the property's usual unit, the name fix the suggestion.
+// Quick fixes as text edits (the core's fix producers), on the real parser: the balance fix writes
+// the best-fit values in the user's own units, the unit fix the property's usual unit, the name fix
+// the suggestion.
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { parse } from "../../server/src/syntax/parser";
+import { balanceFix } from "../../server/src/checks/balance-fixes";
+import { fixesFor, type TextFix } from "../../server/src/fixes";
 import {
-  balanceFix,
-  fixesFor,
   missingUnitFix,
   unknownNameFix,
   suggestionOf,
   suggestedValueFix,
-  type TextFix,
-} from "../../server/src/lsp/code-actions";
+} from "../../server/src/model/fixes";
 import { analyse } from "../../server/src/analysis";
 import { isCode } from "../../server/src/findings/finding";
 import { PENDULUM_TEXT, K_BALANCED, spanOf } from "../view/pendulum-fixture";
