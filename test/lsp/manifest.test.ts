@@ -23,7 +23,9 @@ describe("extension manifest", () => {
     for (const path of [c.languages[0].configuration, c.grammars[0].path, c.snippets[0].path])
       expect(existsSync(join(root, path)), path).toBe(true);
     expect(manifest.main).toBe("./dist/client.js"); // built by scripts/build.mjs
-    expect(manifest.activationEvents).toContain("onLanguage:counterpoise");
+    // VS Code (1.74 and later) activates on the contributed language and commands by itself and
+    // flags these events as redundant; vsce still wants the property, so it stays, empty.
+    expect(manifest.activationEvents).toEqual([]);
   });
 
   it("declares exactly the server's settings, with the same defaults", () => {

@@ -10,6 +10,7 @@ import {
   type ServerCapabilities,
 } from "vscode-languageserver";
 import { TextDocument } from "vscode-languageserver-textdocument";
+import type { Analysis } from "../analysis";
 import { BUILTIN_MATERIAL_IDS } from "../model/materials";
 import { findingsToDiagnostics } from "./convert";
 import type { FeatureContext } from "./context";
@@ -26,6 +27,15 @@ import { parse } from "../syntax/parser";
 
 export const SERVER_NAME = "counterpoise";
 export const SERVER_VERSION = "0.1.0";
+
+/** The log line of one published analysis: which text, how many poses, how long, what it found. */
+export function analysisLogLine(uri: string, version: number, analysis: Analysis): string {
+  const t = analysis.timings;
+  const ms = t.parse + t.model + t.solve + t.checks;
+  const count = (severity: string) => analysis.findings.filter((f) => f.severity === severity).length;
+  const name = decodeURIComponent(uri.slice(uri.lastIndexOf("/") + 1));
+  return `analysed ${name} version ${version}: ${analysis.sweep?.poses.length ?? 0} poses in ${ms.toFixed(0)} ms, ${count("error")} errors, ${count("warning")} warnings`;
+}
 
 export function startServer(connection: Connection): void {
   const documents = new TextDocuments(TextDocument);
@@ -69,6 +79,7 @@ export function startServer(connection: Connection): void {
     if (!doc || doc.version !== version) return; // the text moved on: a newer run will publish
     const diagnostics = findingsToDiagnostics(analysis.findings, analysis.text, uri);
     void connection.sendDiagnostics({ uri, version, diagnostics });
+    attempt("logging an analysis", () => connection.console.info(analysisLogLine(uri, version, analysis)));
     void connection.sendNotification(
       SPEC_SUMMARY_NOTIFICATION,
       specSummary(uri, version, analysis, settings),
