@@ -57,10 +57,12 @@ describe("analysis log", () => {
     const found = JSON.parse(poise("check", "--json", "samples/mistakes.poise").stdout) as {
       severity: string;
     }[];
-    const errors = found.filter((f) => f.severity === "error").length;
-    const warnings = found.filter((f) => f.severity === "warning").length;
+    const count = (severity: string) => {
+      const n = found.filter((f) => f.severity === severity).length;
+      return `${n} ${severity}${n === 1 ? "" : "s"}`;
+    };
     expect(line.message).toBe(
-      `analysed mistakes.poise version 1: 0 poses in ${/in (\d+) ms/.exec(line.message)?.[1]} ms, ${errors} errors, ${warnings} warnings`,
+      `analysed mistakes.poise version 1: 0 poses in ${/in (\d+) ms/.exec(line.message)?.[1]} ms, ${count("error")}, ${count("warning")}`,
     );
   });
 });

@@ -32,9 +32,12 @@ export const SERVER_VERSION = "0.1.0";
 export function analysisLogLine(uri: string, version: number, analysis: Analysis): string {
   const t = analysis.timings;
   const ms = t.parse + t.model + t.solve + t.checks;
-  const count = (severity: string) => analysis.findings.filter((f) => f.severity === severity).length;
+  const count = (severity: string) => {
+    const n = analysis.findings.filter((f) => f.severity === severity).length;
+    return `${n} ${severity}${n === 1 ? "" : "s"}`;
+  };
   const name = decodeURIComponent(uri.slice(uri.lastIndexOf("/") + 1));
-  return `analysed ${name} version ${version}: ${analysis.sweep?.poses.length ?? 0} poses in ${ms.toFixed(0)} ms, ${count("error")} errors, ${count("warning")} warnings`;
+  return `analysed ${name} version ${version}: ${analysis.sweep?.poses.length ?? 0} poses in ${ms.toFixed(0)} ms, ${count("error")}, ${count("warning")}`;
 }
 
 export function startServer(connection: Connection): void {
