@@ -16,6 +16,7 @@ import {
   treeSweep,
 } from "../structure/arm-fixture";
 import { figure, runFamily } from "./check-context";
+import { tiltShares } from "../../server/src/mechanics/structure/tilt-share";
 
 const E = MATERIALS["aluminium_6061_t6"]!.modulus;
 const tube = { shape: "tube" as const, outerDiameter: 0.02, wall: 0.002 };
@@ -131,5 +132,62 @@ describe("parallelogram stage with its root held", () => {
     expect(got.span).toEqual(
       model.parallelograms[0]!.origin.properties["bars"] ?? model.parallelograms[0]!.origin.name,
     );
+  });
+});
+
+describe("which part gives most of the tilt (issue 10 item 8)", () => {
+  // Two links in line, both joints held: a cantilever of two segments with the payload's weight
+  // P at the tip. Unit-load method (e.g. Gere, Mechanics of Materials, energy methods; Roark 8th
+  // ed., table 8.1 case 1a by superposition): the root segment turns the tip by
+  // P L1 (L1 / 2 + L2) / (E I1), the outer one by P L2^2 / (2 E I2).
+  const L1 = 0.3;
+  const L2 = 0.25;
+  const stiff = { shape: "tube" as const, outerDiameter: 0.025, wall: 0.003 };
+  const slender = { shape: "tube" as const, outerDiameter: 0.012, wall: 0.001 };
+  function twoLinks(outer: typeof stiff) {
+    const base = baseBody("post", { top: { x: 0, y: 0.3 } });
+    const inner = linkBody("inner", L1, stiff, "aluminium_6061_t6");
+    const outerLink = linkBody("outer", L2, outer, "aluminium_6061_t6");
+    for (const b of [inner, outerLink]) Object.assign(b, { mass: 0, massGiven: true });
+    const model = armModel({
+      bodies: [base, inner, outerLink],
+      joints: [
+        joint("shoulder", "post", { x: 0, y: 0.3 }, "inner", 0, "range"),
+        joint("elbow", "inner", { x: L1, y: 0 }, "outer", 0, "range"),
+      ],
+      payloads: [payload("lamp", "outer", { x: L2, y: 0 }, 2)],
+    });
+    model.require.tilt.default = 1e-6;
+    return model;
+  }
+
+  it("shares of each link by virtual work add up to the tip's rotation and match the closed form", () => {
+    const model = twoLinks(slender);
+    const sweep = treeSweep(model, [{}]);
+    const pose = sweep.poses[0]!;
+    const shares = tiltShares(model, pose, pose.cases[0], { lamp: 2 }, "lamp")!;
+    const P = 2 * G;
+    const I1 = sectionProperties(stiff).secondMoment;
+    const I2 = sectionProperties(slender).secondMoment;
+    // Unit-load method, per segment (see above)
+    const inner = (P * L1 * (L1 / 2 + L2)) / (E * I1);
+    const outer = (P * L2 ** 2) / (2 * E * I2);
+    expect(Math.abs(shares.byBody.get("inner")!)).toBeCloseTo(inner, 9);
+    expect(Math.abs(shares.byBody.get("outer")!)).toBeCloseTo(outer, 9);
+    // Virtual work: the shares add up to the rotation (no springs here)
+    expect(shares.byBody.get("inner")! + shares.byBody.get("outer")!).toBeCloseTo(shares.rotation, 12);
+  });
+
+  it("the tilt finding names the slender link, then the stiff one when the outer is stiffened", () => {
+    for (const [outer, expected] of [
+      [slender, "outer"],
+      [stiff, "inner"],
+    ] as const) {
+      const model = twoLinks(outer);
+      const ctx = runFamily(checkStiffness, model, treeSweep(model, [{}]));
+      const f = ctx.findings.find((x) => x.code === "stiffness.tilt")!;
+      expect(f.data.subject).toBe(expected);
+      expect(f.message).toContain(`link ${expected} gives most of it`);
+    }
   });
 });

@@ -107,6 +107,20 @@ describe("poise report command", () => {
     expect(await runReport(["samples/camera-arm.poise", "-o", join(dir, "no-such-dir", "r.html")])).toBe(2);
   });
 
+  it("shows deflection, tilt and frequency even when they pass (issue 10 item 8)", () => {
+    // The lamp sample's stiffness passes: 1.15 mm against 2 mm, 15 Hz against 4 Hz.
+    const { html: page } = reportHtml(readFileSync("samples/lamp-arm.poise", "utf8"), "lamp-arm.poise");
+    const table = /<table class="figures">.*?<\/table>/s.exec(page)![0];
+    for (const figure of ["hand force", "deflection", "tilt", "frequency", "tipping safety"])
+      expect(table).toMatch(new RegExp(`<tr class="(ok|fail)"[^>]*><td>[^<]*</td><td>${figure}</td>`));
+    expect(table).toMatch(
+      /<tr class="ok"[^>]*><td>shade<\/td><td>deflection<\/td><td class="num">[\d.]+ mm<\/td><td>at most 2 mm/,
+    );
+    expect(table).toMatch(
+      /<tr class="ok"><td>the arm<\/td><td>frequency<\/td><td class="num">[\d.]+ Hz<\/td><td>at least 4 Hz/,
+    );
+  });
+
   it("writes the page for every sample, exit 1 exactly when the spec has errors", async () => {
     for (const sample of ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"]) {
       const out = join(dir, `${sample}.html`);

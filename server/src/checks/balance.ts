@@ -344,6 +344,7 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
         value: Math.min(...lengths),
         high: Math.max(...lengths),
         dimension: "length",
+        result: { key: "length" },
       });
     } else {
       // The solver keeps the torque on the parent; the designer reads the spring from the child's
@@ -354,6 +355,7 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
         value: Math.min(...turns),
         high: Math.max(...turns),
         dimension: "angle",
+        result: { key: "wind_up" },
       });
     }
     const sign = s.kind === "torsion" ? -1 : 1;
@@ -363,6 +365,7 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
       value: Math.min(...forces),
       high: Math.max(...forces),
       dimension: s.kind === "torsion" ? "torque" : "force",
+      result: { key: s.kind === "torsion" ? "torque" : "force" },
     });
     const ideal = idealZeroLengthRate(model, sweep, s.id);
     if (ideal)
@@ -436,6 +439,10 @@ function payloadReadouts(ctx: CheckContext): void {
         value: lo.v,
         high: hi.v,
         dimension: "force",
+        result: {
+          key: "hand_force",
+          limit: model.require.balance.byPayload[p.id] ?? model.require.balance.default,
+        },
         where: `most ${poseWhere(sweep, hi.pose, hi.ci)}`,
       });
     if (figures.length > 0) addFigures(ctx.readouts, p.id, "payload", figures);

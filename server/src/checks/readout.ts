@@ -10,6 +10,21 @@ export interface Figure {
   where?: string;
   /** A second value for a span, e.g. a min..max range. */
   high?: number;
+  /** The key this figure fills in the results record (`poise results`, the report's figures;
+   * checks/results.ts): in its part's section (payloads, springs, base, ...), or with `arm` at
+   * the top level. A check adds a figure to the results by tagging it here. */
+  result?: ResultTag;
+}
+
+/** Where a figure goes in the results record, and the requirement it is held to. */
+export interface ResultTag {
+  key: string;
+  /** A figure of the arm as a whole (the lowest natural frequency), not of its part. */
+  arm?: boolean;
+  /** The requirement, SI: a greatest value (a least one with `atLeast`); for a [least, greatest]
+   * range, the greatest magnitude. */
+  limit?: number;
+  atLeast?: boolean;
 }
 
 export type PartKind =
@@ -60,6 +75,12 @@ export function noteSafety(
   if (!Number.isFinite(value)) return;
   if (!r.worstSafety || value < r.worstSafety.value)
     r.worstSafety = { value, what, ...(where ? { where } : {}) };
+}
+
+/** The check a safety factor comes from, as `poise results` names it: the first word of what is
+ * checked ("pin of reach.lower_root" is a pin, "coil body" the coil). */
+export function checkOf(what: string): string {
+  return what.split(" ")[0] ?? what;
 }
 
 function sameFigure(a: Figure, b: Figure): boolean {

@@ -1,7 +1,9 @@
 // Stiffness and vibration of the loaded arm with its degrees of freedom held (mechanics.md
 // section 7): deflection and tilt at each payload, lowest natural frequency, at a few
 // representative poses (the reference and the ends of each range), not every pose.
-import type { ArmModel, Body } from "../model/types";
+import type { ArmModel, Body, Parallelogram } from "../model/types";
+import type { Span } from "../findings/span";
+import { tiltShares } from "../mechanics/structure/tilt-share";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { buildArmFrame } from "../mechanics/structure/arm-frame";
 import { elementStrainEnergy } from "../mechanics/structure/frame";
@@ -161,12 +163,15 @@ function reportPayloads(
     const par = head ? parallelogramOfHead(model, head.id) : undefined;
     const geometric = head ? (orientationRange(sweep, head.id)?.change ?? 0) : 0;
     const totalTilt = geometric + w.tilt;
+    const dLimit = model.require.deflection.byPayload[p.id] ?? model.require.deflection.default;
+    const tLimit = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
     addFigures(ctx.readouts, p.id, "payload", [
       {
         label: "deflection under load",
         value: w.deflection,
         dimension: "length",
         where: describePose(sweep, w.deflectionPose, w.deflectionCase),
+        result: { key: "deflection", limit: dLimit },
       },
       {
         label: "elastic tilt",
@@ -177,11 +182,16 @@ function reportPayloads(
       ...(head
         ? [{ label: "head orientation change over the range", value: geometric, dimension: "angle" as const }]
         : []),
+      {
+        label: "tilt, elastic plus head orientation change",
+        value: totalTilt,
+        dimension: "angle",
+        result: { key: "tilt", limit: tLimit },
+      },
     ]);
     const compliant = mostCompliantBody(model, energies.get(p.id) ?? new Map());
     const partSpan = compliant ? sectionSpan(model, compliant) : spanOf(p.origin, "at");
     const related = [{ span: p.origin.name ?? p.origin.declaration, message: `payload ${p.id}` }];
-    const dLimit = model.require.deflection.byPayload[p.id] ?? model.require.deflection.default;
     if (w.deflection > dLimit)
       ctx.findings.push(
         finding(
@@ -194,18 +204,17 @@ function reportPayloads(
           },
         ),
       );
-    const tLimit = model.require.tilt.byPayload[p.id] ?? model.require.tilt.default;
     if (totalTilt > tLimit) {
-      const span = par ? spanOf(par.origin, "bars") : partSpan;
+      const source = tiltSource(ctx, p.id, w, geometric, par);
       ctx.findings.push(
         finding(
           "stiffness.tilt",
-          span,
-          `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describePose(sweep, w.tiltPose, w.tiltCase)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}`,
+          source?.span ?? (par ? spanOf(par.origin, "bars") : partSpan),
+          `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describePose(sweep, w.tiltPose, w.tiltCase)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}${source ? `; ${source.words}` : ""}`,
           {
             related,
             data: {
-              subject: par?.id ?? compliant?.id ?? p.id,
+              subject: source?.subject ?? par?.id ?? compliant?.id ?? p.id,
               payload: p.id,
               tilt: totalTilt,
               elastic: w.tilt,
@@ -219,6 +228,46 @@ function reportPayloads(
   }
 }
 
+/** The part that gives most of a payload's tilt: the parallelogram whose head turns over the
+ * range, when that is more than any one body's share of the elastic tilt (by virtual work at the
+ * pose of the worst elastic tilt, tilt-share.ts); else that body. */
+function tiltSource(
+  ctx: CheckContext,
+  payloadId: string,
+  w: PayloadWorst,
+  geometric: number,
+  par: Parallelogram | undefined,
+): { subject: string; span: Span; words: string } | undefined {
+  const { model, sweep } = ctx;
+  let top: { body: Body; share: number } | undefined;
+  if (w.tiltPose) {
+    const shares = tiltShares(
+      model,
+      w.tiltPose,
+      w.tiltPose.cases[w.tiltCase],
+      payloadMasses(model, sweep, w.tiltCase),
+      payloadId,
+    );
+    const sign = Math.sign(shares?.rotation ?? 0) || 1;
+    for (const [id, share] of shares?.byBody ?? []) {
+      const body = model.bodies.find((b) => b.id === id);
+      if (body && (!top || sign * share > top.share)) top = { body, share: sign * share };
+    }
+  }
+  if (par && geometric >= (top?.share ?? 0))
+    return {
+      subject: par.id,
+      span: spanOf(par.origin, "bars"),
+      words: `the turn of parallelogram ${par.id}'s head over the range gives most of it (unequal bars or a turning root)`,
+    };
+  if (!top || !(top.share > 0)) return undefined;
+  return {
+    subject: top.body.id,
+    span: sectionSpan(model, top.body),
+    words: `${bodyWord(top.body)} gives most of it (${show(top.share, "angle")} of the elastic tilt by bending and stretching)`,
+  };
+}
+
 function reportFrequency(
   ctx: CheckContext,
   lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> },
@@ -228,7 +277,13 @@ function reportFrequency(
   const ids = [model.base?.bodyId, ...model.payloads.map((p) => p.id)].filter((x): x is string => !!x);
   for (const id of ids)
     addFigures(ctx.readouts, id, id === model.base?.bodyId ? "base" : "payload", [
-      { label: "lowest natural frequency of the arm", value: lowest.f, dimension: "frequency", where },
+      {
+        label: "lowest natural frequency of the arm",
+        value: lowest.f,
+        dimension: "frequency",
+        where,
+        result: { key: "frequency", arm: true, limit: model.require.frequency, atLeast: true },
+      },
     ]);
   const need = model.require.frequency;
   if (lowest.f >= need) return;

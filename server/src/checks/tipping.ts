@@ -132,7 +132,13 @@ export function checkTipping(ctx: CheckContext): void {
   if (!worst) return;
   const where = `${worst.heading}${describePose(sweep, worst.pose, worst.ci)}`;
   addFigures(ctx.readouts, base.bodyId, "base", [
-    { label: "tipping safety factor", value: worst.safety, dimension: "dimensionless", where },
+    {
+      label: "tipping safety factor",
+      value: worst.safety,
+      dimension: "dimensionless",
+      where,
+      result: { key: "tipping_safety", limit: model.require.tipping, atLeast: true },
+    },
   ]);
   noteSafety(ctx.readouts, base.bodyId, "base", worst.safety, "tipping", where);
   const need = model.require.tipping;

@@ -1,8 +1,9 @@
-// The `poise` command (bundled to dist/cli.js; bin/poise.js launches it): check, sweep, report,
+// The `poise` command (bundled to dist/cli.js; bin/poise.js launches it): check, sweep, results, report,
 // and the language server over stdio for editors other than VS Code.
 import { runCheck } from "./check";
 import { runSweep } from "./sweep";
 import { runReport } from "./report";
+import { runResults } from "./results";
 import { processOutput, type Output } from "./io";
 import packageJson from "../../../package.json";
 
@@ -11,6 +12,8 @@ const HELP = `poise — checks spring-balanced arm specs (*.poise)
 usage:
   poise check FILE... [--json]     diagnostics, one per line (path:line:column: severity code: message)
   poise sweep FILE [--json|--csv]  the pose table: angles deg, lengths mm, forces N, torques N*m
+  poise results FILE [--json] [--units si|us]
+                                   every figure behind the checks, pass or fail
   poise report FILE [-o OUT.html] [--units si|us]
                                    a self-contained HTML report
   poise lsp --stdio                the language server over stdin/stdout, for any editor
@@ -50,6 +53,8 @@ export async function main(argv: string[], out: Output = processOutput): Promise
     }
     case "sweep":
       return runSweep(rest, out);
+    case "results":
+      return runResults(rest, out);
     case "report":
       return runReport(rest);
     case "lsp":

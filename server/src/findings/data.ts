@@ -184,7 +184,8 @@ export interface DeflectionData extends AboutPart {
   limit: number;
 }
 
-/** `stiffness.tilt`. Subject: the parallelogram, else the most compliant body, else the payload. */
+/** `stiffness.tilt`. Subject: the part that gives most of the tilt: the parallelogram whose head
+ * turns over the range, else the body with the largest share of the elastic tilt, else the payload. */
 export interface ElasticTiltData extends AboutPart {
   payload: string;
   /** Total, elastic and geometric (head orientation change) tilt, and the limit, rad. */

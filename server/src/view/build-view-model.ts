@@ -20,6 +20,7 @@ import type {
 import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
 import { splitHoldingTorque, TORQUE_METHOD } from "./torque-split";
 import { payloadPaths, viewBounds } from "./envelope";
+import { buildResults } from "../checks/results";
 
 /** What the view needs of an analysis (an `Analysis` fits). */
 export interface ViewInput {
@@ -300,6 +301,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   for (const p of model.payloads)
     vm.balanceLimitN[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
   vm.safety = safetyRows(model, input.readouts, partOf);
+  if (input.sweep) vm.results = buildResults(input);
 
   const sweep = input.sweep;
   const solved =

@@ -7,6 +7,7 @@ import { torquePlot, handForcePlot } from "./plots";
 import { nearestPose } from "./pose-lines";
 import { findingsHtml, poseSummaryHtml, poseTableHtml, safetyTableHtml } from "./tables";
 import { MODEL_LIMITS, SAFETY_CAUTIONS } from "./limits";
+import { resultsTableHtml } from "./results-table";
 import { PALETTE } from "./palette";
 import { esc } from "./text";
 
@@ -83,6 +84,9 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<h2>Safety factors</h2>`,
     `<p class="note">Required: ${vm.requiredSafety}. Lowest first.</p>`,
     safetyTableHtml(vm),
+    `<h2>Figures over the range</h2>`,
+    `<p class="note">The worst of each figure over every pose and load case, against its requirement, whether it passes or not (<code>poise results</code> gives them as JSON).</p>`,
+    resultsTableHtml(vm.results, vm.units),
     `<h2>Diagnostics</h2>`,
     findingsHtml(vm),
     `<h2>Over the range</h2>`,

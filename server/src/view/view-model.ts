@@ -1,5 +1,6 @@
 // The arm view model: plain JSON the preview panel and the HTML report draw from. Built once per
 // analysis (build-view-model.ts); fixed display units (mm, N, N*m, deg) like `poise sweep`.
+import type { ResultsRecord } from "../checks/results";
 
 /** 0-based line/character range, as editors count them (so the client can reveal it as is). */
 export interface ViewRange {
@@ -137,6 +138,8 @@ export interface ViewModel {
   balanceLimitN: Record<string, number>;
   requiredSafety: number;
   safety: SafetyRow[];
+  /** Every figure behind the checks, pass or fail (SI, each with its dimension). */
+  results?: ResultsRecord;
   findings: ViewFinding[];
   /** How the torque split was computed, for the plots' caption. */
   torqueMethod: string;

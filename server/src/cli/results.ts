@@ -1,0 +1,126 @@
+// `poise results FILE [--json] [--units si|us]`: every figure behind the checks, pass or fail
+// (checks/results.ts builds the record), as JSON in cli.md's shape or as lines to read.
+// Exit 0 no errors, 1 the spec has errors, 2 the command could not run.
+import { analyse } from "../analysis";
+import { buildResults, resultsJson, type FigureMap, type ResultsRecord } from "../checks/results";
+import { formatNumber } from "../units/format";
+import { TABLE_UNITS, toTableUnit } from "../units/table-units";
+import type { UnitSystem } from "../units/unit-table";
+import { readSpec, type Output } from "./io";
+
+const USAGE = "poise results FILE [--json] [--units si|us]";
+
+interface ResultsArgs {
+  file: string;
+  json: boolean;
+  units: UnitSystem;
+}
+
+function parseArgs(args: readonly string[]): ResultsArgs | string {
+  let file: string | undefined;
+  let json = false;
+  let units: UnitSystem = "si";
+  for (let i = 0; i < args.length; i++) {
+    const a = args[i]!;
+    if (a === "--json") json = true;
+    else if (a === "--units" || a.startsWith("--units=")) {
+      const v = a === "--units" ? args[++i] : a.slice("--units=".length);
+      if (v !== "si" && v !== "us") return `poise results: --units takes si or us (${USAGE})`;
+      units = v;
+    } else if (a.startsWith("-")) return `poise results: unknown option ${a} (${USAGE})`;
+    else if (file === undefined) file = a;
+    else return `poise results: one file at a time (got ${file} and ${a})`;
+  }
+  if (file === undefined) return `poise results: name one .poise file (${USAGE})`;
+  return { file, json, units };
+}
+
+/** The record as the JSON that `--json` prints, for a spec's text (what the tests call). */
+export function resultsOf(
+  text: string,
+  units: UnitSystem,
+): { json: Record<string, unknown>; record: ResultsRecord; errors: string[]; solved: boolean } {
+  const analysis = analyse(text);
+  const record = buildResults(analysis);
+  return {
+    json: resultsJson(record, units),
+    record,
+    errors: analysis.findings.filter((f) => f.severity === "error").map((f) => f.message),
+    solved: analysis.sweep !== undefined,
+  };
+}
+
+// ---- lines to read -----------------------------------------------------------------------------
+
+function words(key: string): string {
+  return key.replace(/_/g, " ");
+}
+
+function figureText(map: FigureMap, system: UnitSystem): string {
+  return Object.entries(map)
+    .map(([key, f]) => {
+      if (!f) return `${words(key)} -`;
+      const unit = TABLE_UNITS[system][f.dimension];
+      const n = (v: number) => formatNumber(toTableUnit(v, f.dimension, system));
+      const value = f.high === undefined ? n(f.value) : `${n(f.value)} .. ${n(f.high)}`;
+      return `${words(key)} ${value}${unit ? ` ${unit}` : ""}`;
+    })
+    .join("; ");
+}
+
+/** The record as lines: one per part, `-` where a figure is not computed or unlimited. */
+export function resultsText(record: ResultsRecord, system: UnitSystem): string {
+  const lines: string[] = [];
+  const width = (ids: string[]) => Math.max(8, ...ids.map((id) => id.length));
+  const parts = Object.entries(record.parts).sort((a, b) => a[1].safety - b[1].safety);
+  lines.push(parts.length ? "parts (least safety factor first):" : "parts: no safety factors computed");
+  const pw = width(parts.map(([id]) => id));
+  for (const [id, p] of parts)
+    lines.push(
+      `  ${id.padEnd(pw)}  safety ${Number.isFinite(p.safety) ? p.safety.toFixed(2) : "-"} (${p.check}, ${p.required} required)${p.where ? ` ${p.where}` : ""}`,
+    );
+  const section = (name: string) => {
+    const entries = Object.entries(record.sections[name] ?? {});
+    if (entries.length === 0) {
+      lines.push(`${name}: none`);
+      return;
+    }
+    lines.push(`${name}:`);
+    const w = width(entries.map(([id]) => id));
+    for (const [id, map] of entries) lines.push(`  ${id.padEnd(w)}  ${figureText(map, system)}`);
+  };
+  section("payloads");
+  lines.push(figureText(record.arm, system));
+  lines.push(`base: ${figureText(record.base, system)}`);
+  for (const name of Object.keys(record.sections)) if (name !== "payloads") section(name);
+  const units = Object.entries(TABLE_UNITS[system])
+    .filter(([d]) => ["length", "force", "torque", "angle", "frequency"].includes(d))
+    .map(([d, u]) => `${d} ${u}`)
+    .join(", ");
+  lines.push(`units: ${units}; safety factors are plain numbers; - where not computed or unlimited`);
+  return `${lines.join("\n")}\n`;
+}
+
+export function runResults(args: string[], out: Output): number {
+  const parsed = parseArgs(args);
+  if (typeof parsed === "string") {
+    out.err(`${parsed}\n`);
+    return 2;
+  }
+  const text = readSpec(parsed.file, out, "results");
+  if (text === undefined) return 2;
+  const r = resultsOf(text, parsed.units);
+  out.out(parsed.json ? `${JSON.stringify(r.json, null, 2)}\n` : resultsText(r.record, parsed.units));
+  if (!r.solved)
+    out.err(
+      `poise results: ${parsed.file} could not be solved, so its figures are missing: ${
+        r.errors.slice(0, 3).join("; ") || "no model"
+      } (run poise check ${parsed.file})\n`,
+    );
+  else if (r.errors.length > 0)
+    out.err(
+      `poise results: ${parsed.file} has ${r.errors.length} error${r.errors.length === 1 ? "" : "s"} (run poise check ${parsed.file})\n`,
+    );
+  if (r.errors.length > 0) return 1;
+  return r.solved ? 0 : 2;
+}
