@@ -52,6 +52,8 @@ export class ArmBuilder {
           builtin: true,
         },
       },
+      bearings: {},
+      fastenings: {},
       require: {
         balance: { default: REQUIREMENT_DEFAULTS.balanceN, byPayload: {} },
         safety: REQUIREMENT_DEFAULTS.safety,

@@ -161,6 +161,8 @@ export function armModel(parts: {
     springs: parts.springs ?? [],
     payloads: parts.payloads ?? [],
     materials: MATERIALS,
+    bearings: {},
+    fastenings: {},
     require: {
       balance: { default: REQUIREMENT_DEFAULTS.balanceN, byPayload: {} },
       safety: REQUIREMENT_DEFAULTS.safety,

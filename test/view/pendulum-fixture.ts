@@ -142,6 +142,8 @@ export function pendulumModel(rate: number, text = PENDULUM_TEXT): ArmModel {
     springs: [lift],
     payloads: [lamp],
     materials: {},
+    bearings: {},
+    fastenings: {},
     require: {
       balance: { default: 1, byPayload: {} },
       safety: 2,

@@ -139,6 +139,43 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
       if (m.source) facts.push(`source: ${m.source}`);
       return facts;
     }
+    case "bearing": {
+      const b = model.bearings[id];
+      if (!b) return [];
+      switch (b.kind) {
+        case "balls":
+          return [
+            `${b.count} balls of ${f(b.ballDiameter, "length", system)} ${b.ballMaterial}`,
+            `pitch ${f(b.pitchDiameter, "length", system)}`,
+            `races ${b.raceMaterial}`,
+          ];
+        case "plain":
+          return [
+            `plain bearing: bore ${f(b.bore, "length", system)}`,
+            `length ${f(b.length, "length", system)}`,
+            b.material,
+          ];
+        case "rated":
+          return [`static rating C0 ${f(b.staticRating, "force", system)}`];
+      }
+      return [];
+    }
+    case "fastening": {
+      const x = model.fastenings[id];
+      if (!x) return [];
+      switch (x.kind) {
+        case "screws":
+          return [
+            `${x.count} screws of ${f(x.diameter, "length", system)} into ${x.into}`,
+            `engagement ${f(x.engagement, "length", system)} (${x.thread})`,
+          ];
+        case "bolts":
+          return [`${x.count} bolts of ${f(x.diameter, "length", system)} ${x.material}`];
+        case "glue":
+          return [`${x.adhesive} over ${f(x.area, "area", system)}`];
+      }
+      return [];
+    }
     case "point": {
       const body = model.bodies.find((b) => b.id === symbol.parent);
       const p = body?.points[symbol.name];
@@ -171,6 +208,8 @@ const KIND_WORDS: Record<string, string> = {
   parallelogram: "parallelogram stage",
   spring: "spring",
   payload: "payload",
+  bearing: "bearing",
+  fastening: "fastening",
   bar: "parallelogram bar",
   head: "parallelogram head (far upright)",
   point: "point",

@@ -3,13 +3,20 @@
 // analysis is of the current text; read from the syntax tree alone while the text is being typed
 // (resolved the way the model builder does: longest dotted prefix naming a body, then at most one
 // point). Serves definition, references, rename, completion, hover and highlighting.
-import type { DeclarationNode, PropertyNode, ReferenceNode, SyntaxTree, ValueNode } from "../syntax/ast";
+import type {
+  DeclarationKeyword,
+  DeclarationNode,
+  PropertyNode,
+  ReferenceNode,
+  SyntaxTree,
+  ValueNode,
+} from "../syntax/ast";
 import type { Span } from "../syntax/span";
 import type { SymbolTable } from "../model/symbols";
 import { HEAD_POINTS } from "../model/build-parts";
 
-export type NameKind =
-  "material" | "base" | "link" | "joint" | "parallelogram" | "spring" | "payload" | "bar" | "head" | "point";
+/** What a name names: a declaration (the named keywords), a parallelogram's bar or head, a point. */
+export type NameKind = Exclude<DeclarationKeyword, "require" | "sweep"> | "bar" | "head" | "point";
 
 export interface NameSymbol {
   /** Model id: a declaration's name, `reach.lower` for generated bodies, `body.point` for points. */
@@ -52,6 +59,8 @@ const DECLARED_KINDS: ReadonlySet<string> = new Set([
   "parallelogram",
   "spring",
   "payload",
+  "bearing",
+  "fastening",
 ]);
 export const PARALLELOGRAM_PARTS = ["lower", "upper", "head"] as const;
 export const SECTION_SHAPES: ReadonlySet<string> = new Set(["rect", "tube", "rod"]);
@@ -63,7 +72,7 @@ export function isBodyKind(kind: NameKind): boolean {
 }
 
 /** What a reference in a given property points to. */
-type Role = "place" | "material" | "joint" | "payload" | "point-declaration" | "none";
+type Role = "place" | "material" | "joint" | "payload" | "name" | "point-declaration" | "none";
 
 function referenceRole(keyword: string, key: string): (ref: ReferenceNode, position: number) => Role {
   switch (key) {
@@ -82,7 +91,18 @@ function referenceRole(keyword: string, key: string): (ref: ReferenceNode, posit
     case "material":
     case "pin":
     case "pins":
+    case "races":
+    case "into":
+    case "adhesive":
+    case "balls":
+    case "screws":
+    case "bolts":
       return () => "material";
+    case "bearing":
+    case "fastening":
+    case "anchor_fastening":
+    case "hook_fastening":
+      return () => "name";
     case "bars":
       return (r) => (r.parts.length === 1 && SECTION_SHAPES.has(r.parts[0]!.text) ? "none" : "material");
     case "point":
@@ -296,7 +316,7 @@ function resolveReference(index: NameIndex, ref: ReferenceNode, role: Role): Occ
     if (parts.length === k + 1) hit(`${bodyId}.${parts[k]}`, ref.parts[k]!.span);
     return out;
   }
-  // material, joint, payload: a single name.
+  // material, joint, payload, a bearing or fastening: a single name.
   hit(parts[0]!, ref.parts[0]!.span);
   return out;
 }

@@ -41,6 +41,8 @@ const TYPE_OF_NAME: Record<NameKind, TokenType> = {
   joint: "function",
   spring: "event",
   payload: "variable",
+  bearing: "struct",
+  fastening: "struct",
   material: "type",
   point: "enumMember",
 };

@@ -2,7 +2,7 @@
 // that kind takes, and the values derived from them (a coil's rate, a tube's area, a preload torque).
 import { SPRING_KINDS } from "./schema";
 import type { Attachment, CoilGeometry, Spring, SpringKind } from "./types";
-import { extensionSpringRate } from "./coil";
+import { extensionSpringRate, torsionSpringRatePerRad } from "./coil";
 import {
   readDims,
   readFlag,
@@ -88,8 +88,44 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
 
   if (kind === "torsion") {
     need("at");
-    need("rate");
+    // the rate as given, or from the coil's active coils; wire, coil and material alone (with a
+    // rate) let the wire's stress be checked
+    const wireKeys = ["wire", "coil", "material"];
+    if (p.has("rate") && p.has("coils")) {
+      ctx.r.add(
+        "property.conflict",
+        p.get("coils")!.key.span,
+        `${p.what} has both \`rate\` and \`coils\`: give the rate, or the coils (with \`wire\`, \`coil\`, \`material\`) to compute it`,
+        { related: [{ span: p.get("rate")!.span, message: "the rate" }] },
+      );
+    } else if (!p.has("rate") && !p.has("coils")) need("rate");
+    else if (!p.has("rate"))
+      for (const k of wireKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
+    if (p.has("rate") && wireKeys.some((k) => p.has(k)))
+      for (const k of wireKeys) if (!p.has(k)) p.missing(k, " to check the wire's stress");
     const rate = q("rate", "angular_stiffness", { positive: true });
+    const wire = q("wire", "length", { positive: true });
+    const mean = q("coil", "length", { positive: true });
+    const coils = q("coils", "dimensionless", { positive: true });
+    const material = materialOf(ctx, p, "material", "the wire's material");
+    let coil: CoilGeometry | undefined;
+    let coilRate: number | undefined;
+    if (wire && mean && mean.value <= wire.value)
+      ctx.r.add(
+        "value.impossible",
+        mean.span,
+        `the mean coil diameter ${ctx.r.quote(mean.span)} must be larger than the wire ${ctx.r.quote(wire.span)}`,
+      );
+    else if (wire && mean && material) {
+      coil = { wireDiameter: wire.value, meanDiameter: mean.value, bodyCoils: coils?.value ?? 0, material };
+      if (!rate && coils)
+        coilRate = torsionSpringRatePerRad(
+          wire.value,
+          mean.value,
+          coils.value,
+          ctx.materials[material]!.modulus,
+        );
+    }
     let joint: string | undefined;
     const av = p.values("at");
     if (av) {
@@ -104,7 +140,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       const r = readQuantity(pv, ["angle", "torque"]);
       pv.finish();
       // A preload given as a wind-up angle becomes the torque rate x angle.
-      if (r) preloadTorque = r.dimension === "angle" ? (rate?.value ?? 0) * r.value : r.value;
+      if (r) preloadTorque = r.dimension === "angle" ? (rate?.value ?? coilRate ?? 0) * r.value : r.value;
     }
     const maxAngle = q("max_angle", "angle", { positive: true });
     if (!joint) return undefined;
@@ -113,9 +149,10 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       id,
       origin,
       joint,
-      rate: rate?.value ?? 0,
+      rate: rate?.value ?? coilRate ?? 0,
       preloadTorque,
       ...(maxAngle ? { maxAngle: maxAngle.value } : {}),
+      ...(coil ? { coil } : {}),
     };
   }
 

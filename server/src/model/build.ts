@@ -38,6 +38,8 @@ import {
   defaultSweep,
 } from "./build-limits";
 import { analyseMobility } from "./mobility";
+import { buildBearing, buildFastening, readUses } from "./build-hardware";
+import type { Bearing, Fastening } from "./types";
 import { emptySymbols, type SymbolKind, type SymbolTable } from "./symbols";
 
 export interface BuildResult {
@@ -164,6 +166,18 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   for (const d of of("material"))
     ctx.materials[d.id] = r.about(d.id, () => buildMaterial(ctx, d.props, d.id));
 
+  // 2b. Bearings and fastenings: made of materials, used by the parts below.
+  const bearings: Record<string, Bearing> = {};
+  for (const d of of("bearing")) {
+    const b = r.about(d.id, () => buildBearing(ctx, d.props, d.id));
+    if (b) bearings[d.id] = b;
+  }
+  const fastenings: Record<string, Fastening> = {};
+  for (const d of of("fastening")) {
+    const f = r.about(d.id, () => buildFastening(ctx, d.props, d.id));
+    if (f) fastenings[d.id] = f;
+  }
+
   // 3. Bodies: the base first.
   const bodies: Body[] = [];
   let base: Base | undefined;
@@ -176,6 +190,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
       continue;
     }
     base = built.base;
+    r.about(d.id, () => readUses(ctx, d.props, { keyword: "base", base: built.base }));
     bodies.push(built.body);
   }
   if (!base)
@@ -197,6 +212,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const joints: Joint[] = [];
   for (const d of of("joint")) {
     const j = r.about(d.id, () => buildJoint(ctx, d.props, d.id));
+    if (j) r.about(d.id, () => readUses(ctx, d.props, { keyword: "joint", joint: j }));
     if (j) joints.push(j);
     else ctx.jointGraphIncomplete = true;
   }
@@ -214,11 +230,13 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const springs: Spring[] = [];
   for (const d of of("spring")) {
     const s = r.about(d.id, () => buildSpring(ctx, d.props, d.id));
+    if (s) r.about(d.id, () => readUses(ctx, d.props, { keyword: "spring", spring: s }));
     if (s) springs.push(s);
   }
   const payloads: Payload[] = [];
   for (const d of of("payload")) {
     const p = r.about(d.id, () => buildPayload(ctx, d.props, d.id));
+    if (p) r.about(d.id, () => readUses(ctx, d.props, { keyword: "payload", payload: p }));
     if (p) {
       payloads.push(p);
       ctx.payloads.set(p.id, p);
@@ -246,6 +264,8 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     springs,
     payloads,
     materials: ctx.materials,
+    bearings,
+    fastenings,
     require,
     sweep,
     span: arm.span,

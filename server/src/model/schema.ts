@@ -14,7 +14,11 @@ export type ValueShape =
   | { type: "named-point" } // NAME (x, y)
   | { type: "section" } // rect D x W | tube OD x WALL | rod D
   | { type: "dims"; dimension: DimensionName } // A x B
-  | { type: "reference"; to: "body" | "point" | "joint" | "joint-or-parallelogram" | "payload" } // body, body.point, body(x, y), body.point(x, y)
+  | { type: "count-of"; dimension: DimensionName } // N x SIZE: a count (no unit) of a size
+  | {
+      type: "reference";
+      to: "body" | "point" | "joint" | "joint-or-parallelogram" | "payload" | "bearing" | "fastening";
+    } // body, body.point, body(x, y), body.point(x, y); or a declaration's name
   | { type: "material" }
   | { type: "word"; words: string[] }
   | { type: "flag" } // the key alone, e.g. `fixed`, `yaw`, `extension`
@@ -121,6 +125,12 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         doc: "A named point in world coordinates.",
         example: "point top (0 mm, 300 mm)",
       },
+      {
+        key: "fastening",
+        shape: { type: "reference", to: "fastening" },
+        doc: "How the base is held to the bench.",
+        example: "fastening bench_screws",
+      },
     ],
   },
   {
@@ -207,6 +217,18 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         shape: q("torque"),
         doc: "Holding torque of the pivot's friction.",
         example: "friction 0.2 N*m",
+      },
+      {
+        key: "bearing",
+        shape: { type: "reference", to: "bearing" },
+        doc: "The bearing the joint turns on (instead of, or as well as, a pin).",
+        example: "bearing elbow_bushing",
+      },
+      {
+        key: "fastening",
+        shape: { type: "reference", to: "fastening" },
+        doc: "How a fixed joint is held: its locked moment and force pass through it.",
+        example: "fastening clamp_bolts",
       },
     ],
   },
@@ -356,28 +378,28 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
       {
         key: "wire",
         shape: q("length"),
-        springKinds: ["extension"],
-        doc: "Wire diameter (coil geometry instead of rate).",
+        springKinds: ["extension", "torsion"],
+        doc: "Wire diameter (coil geometry instead of rate; for torsion, also to check its stress).",
         example: "wire 1.2 mm",
       },
       {
         key: "coil",
         shape: q("length"),
-        springKinds: ["extension"],
+        springKinds: ["extension", "torsion"],
         doc: "Mean coil diameter.",
         example: "coil 9.6 mm",
       },
       {
         key: "coils",
         shape: q("dimensionless"),
-        springKinds: ["extension"],
-        doc: "Number of body coils.",
+        springKinds: ["extension", "torsion"],
+        doc: "Number of body coils (of a torsion spring: active coils, legs not counted).",
         example: "coils 20",
       },
       {
         key: "material",
         shape: { type: "material" },
-        springKinds: ["extension", "elastic"],
+        springKinds: ["extension", "elastic", "torsion"],
         doc: "Wire material, or the cord's rubber.",
         example: "material music_wire",
       },
@@ -438,6 +460,20 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         doc: "Largest safe wind-up angle.",
         example: "max_angle 270 deg",
       },
+      {
+        key: "anchor_fastening",
+        shape: { type: "reference", to: "fastening" },
+        springKinds: ["extension", "zero_length", "elastic", "gas"],
+        doc: "How the first end's lug or eyelet is held to its body.",
+        example: "anchor_fastening lug_screws",
+      },
+      {
+        key: "hook_fastening",
+        shape: { type: "reference", to: "fastening" },
+        springKinds: ["extension", "zero_length", "elastic", "gas"],
+        doc: "How the second end's lug or eyelet is held to its body.",
+        example: "hook_fastening lug_screws",
+      },
     ],
   },
   {
@@ -464,6 +500,152 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         shape: { type: "range", dimension: "mass" },
         doc: "Range of masses (a holder for several tools).",
         example: "range 300 g .. 700 g",
+      },
+      {
+        key: "fastening",
+        shape: { type: "reference", to: "fastening" },
+        doc: "How it is clamped to its body.",
+        example: "fastening tool_clamp",
+      },
+    ],
+  },
+  {
+    keyword: "bearing",
+    named: true,
+    doc: "What turns on what: a ball bearing (balls), a plain bearing (bore), or a bought one (static_rating).",
+    properties: [
+      {
+        key: "balls",
+        shape: { type: "sequence", items: [{ type: "count-of", dimension: "length" }, { type: "material" }] },
+        doc: "Ball count x diameter, and the balls' material.",
+        example: "balls 12 x 6 mm chrome_steel",
+      },
+      {
+        key: "pitch",
+        shape: q("length"),
+        doc: "Pitch circle diameter of the balls.",
+        example: "pitch 50 mm",
+      },
+      {
+        key: "races",
+        shape: { type: "material" },
+        doc: "Material of the races the balls roll on.",
+        example: "races pla",
+      },
+      {
+        key: "groove",
+        shape: q("length"),
+        doc: "Radius of the races' groove across the rolling direction (default: flat races).",
+        example: "groove 3.2 mm",
+      },
+      {
+        key: "bore",
+        shape: q("length"),
+        doc: "Bore of a plain bearing (a sleeve or a printed hole).",
+        example: "bore 8 mm",
+      },
+      {
+        key: "length",
+        shape: q("length"),
+        doc: "Length of a plain bearing along its axis.",
+        example: "length 12 mm",
+      },
+      {
+        key: "material",
+        shape: { type: "material" },
+        doc: "Material of a plain bearing's sleeve or hole.",
+        example: "material petg",
+      },
+      {
+        key: "static_rating",
+        shape: q("force"),
+        doc: "Basic static load rating C0 of a bought bearing (maker's data).",
+        example: "static_rating 1.37 kN",
+      },
+      {
+        key: "dynamic_rating",
+        shape: q("force"),
+        doc: "Basic dynamic load rating C (maker's data; shown, not checked).",
+        example: "dynamic_rating 3.3 kN",
+      },
+    ],
+  },
+  {
+    keyword: "fastening",
+    named: true,
+    doc: "How two parts are held together where a load passes: screws, bolts or glue.",
+    properties: [
+      {
+        key: "screws",
+        shape: { type: "sequence", items: [{ type: "count-of", dimension: "length" }, { type: "material" }] },
+        doc: "Screw count x nominal diameter, and optionally their property class (default steel_4_8).",
+        example: "screws 2 x 3 mm",
+      },
+      {
+        key: "into",
+        shape: { type: "material" },
+        doc: "The material the screws' thread is cut or formed in.",
+        example: "into pla",
+      },
+      {
+        key: "engagement",
+        shape: q("length"),
+        doc: "Length of thread engaged in that material.",
+        example: "engagement 6 mm",
+      },
+      {
+        key: "thread",
+        shape: { type: "word", words: ["formed", "tapped"] },
+        doc: "Thread formed by the screw in a pilot hole, or tapped (default: formed in prints, tapped otherwise).",
+        example: "thread tapped",
+      },
+      {
+        key: "bolts",
+        shape: { type: "sequence", items: [{ type: "count-of", dimension: "length" }, { type: "material" }] },
+        doc: "Bolt count x nominal diameter, and their material or property class (with nuts).",
+        example: "bolts 2 x 4 mm steel_8_8",
+      },
+      {
+        key: "shear",
+        shape: { type: "word", words: ["single", "double"] },
+        doc: "Shear planes of each bolt (default single).",
+        example: "shear double",
+      },
+      {
+        key: "pitch",
+        shape: q("length"),
+        doc: "Thread pitch (default: ISO coarse pitch of the diameter).",
+        example: "pitch 0.5 mm",
+      },
+      {
+        key: "spacing",
+        shape: q("length"),
+        doc: "Between neighbouring screws or bolts, in a row.",
+        example: "spacing 12 mm",
+      },
+      {
+        key: "adhesive",
+        shape: { type: "material" },
+        doc: "Adhesive: a material whose strength is its lap-shear strength.",
+        example: "adhesive epoxy",
+      },
+      {
+        key: "area",
+        shape: q("area"),
+        doc: "Bonded area.",
+        example: "area 300 mm^2",
+      },
+      {
+        key: "axis",
+        shape: { type: "word", words: ["across", "through"] },
+        doc: "Screws across the body in the arm's plane, or through the plane (default: through at a joint, else across).",
+        example: "axis across",
+      },
+      {
+        key: "lever",
+        shape: q("length"),
+        doc: "Height of the load's line above the fastened face: it pries the part off (default: the point's offset from the body's axis).",
+        example: "lever 10 mm",
       },
     ],
   },

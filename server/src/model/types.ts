@@ -85,6 +85,8 @@ export interface Base {
   yaw: boolean;
   /** Bench surface height y, m (default 0). */
   surface: number;
+  /** The fastening that holds the base to the bench. */
+  fastening?: string;
 }
 
 export type JointMode = "range" | "fixed" | "passive";
@@ -114,6 +116,10 @@ export interface Joint {
   pin?: Pin;
   /** Holding torque of the pivot's friction, N*m. */
   friction?: number;
+  /** The bearing the joint turns on (instead of, or as well as, a pin). */
+  bearing?: string;
+  /** The fastening that holds a fixed joint (its locked moment and force pass through it). */
+  fastening?: string;
   origin: Origin;
 }
 
@@ -154,6 +160,9 @@ export interface CoilGeometry {
 interface SpringCommon {
   id: string;
   origin: Origin;
+  /** How a two-point spring's ends are held: `a` the anchor (first point of `between`), `b` the
+   * hook (second point); fastening ids. */
+  fastenings?: { a?: string; b?: string };
 }
 
 export interface ExtensionSpring extends SpringCommon {
@@ -208,6 +217,9 @@ export interface TorsionSpring extends SpringCommon {
   /** Torque at the reference pose, N*m (a preload given as an angle is rate x angle). */
   preloadTorque: number;
   maxAngle?: number;
+  /** The wire, when given: its bending stress is checked (and the rate follows from it when no
+   * `rate` is given). `bodyCoils` are the active coils (legs not counted). */
+  coil?: CoilGeometry;
 }
 
 export type Spring = ExtensionSpring | ZeroLengthSpring | ElasticCord | GasStrut | TorsionSpring;
@@ -223,8 +235,75 @@ export interface Payload {
   massRange?: [number, number];
   /** Steady working load, world, N. */
   force?: Vec2;
+  /** The fastening that clamps it to its body. */
+  fastening?: string;
   origin: Origin;
 }
+
+/** `bearing NAME`: what turns on what. The kind follows from the properties given. */
+export type Bearing =
+  | {
+      id: string;
+      kind: "balls";
+      count: number;
+      ballDiameter: number;
+      ballMaterial: string;
+      pitchDiameter: number;
+      raceMaterial: string;
+      /** Radius of the races' groove across the rolling direction; absent: flat races. */
+      grooveRadius?: number;
+      origin: Origin;
+    }
+  | { id: string; kind: "plain"; bore: number; length: number; material: string; origin: Origin }
+  | {
+      id: string;
+      kind: "rated";
+      /** Basic static and dynamic load ratings C0 and C, N (maker's data). */
+      staticRating: number;
+      dynamicRating?: number;
+      pitchDiameter?: number;
+      origin: Origin;
+    };
+
+/** Which way a fastening's screws or bolts point in the part they hold: `across` the body's x
+ * axis in the arm's plane (into its top or bottom face), or `through` the arm's plane (through
+ * parts that overlap). A glued face lies across those axes. */
+export type FasteningAxis = "across" | "through";
+
+interface FasteningCommon {
+  id: string;
+  axis?: FasteningAxis;
+  /** Height of the load's line above the fastened face, m: it pries the part off its seat. */
+  lever?: number;
+  /** Between neighbouring screws or bolts, in a row, m. */
+  spacing?: number;
+  origin: Origin;
+}
+
+/** `fastening NAME`: how two parts are held where a load passes. */
+export type Fastening =
+  | (FasteningCommon & {
+      kind: "screws";
+      count: number;
+      diameter: number;
+      pitch: number;
+      /** The screws' own material (a property class). */
+      screwMaterial: string;
+      /** The material the thread is cut or formed in. */
+      into: string;
+      engagement: number;
+      /** Cut by a tap (a tapped hole) or formed by the screw itself (a pilot hole in a print or wood). */
+      thread: "tapped" | "formed";
+    })
+  | (FasteningCommon & {
+      kind: "bolts";
+      count: number;
+      diameter: number;
+      pitch: number;
+      material: string;
+      shearPlanes: 1 | 2;
+    })
+  | (FasteningCommon & { kind: "glue"; adhesive: string; area: number });
 
 export interface Requirements {
   /** Largest hand force to hold each payload, N (default for payloads not named). */
@@ -265,6 +344,9 @@ export interface ArmModel {
   payloads: Payload[];
   /** Built-ins plus the arm's own, by id. */
   materials: Record<string, Material>;
+  /** Declared bearings and fastenings, by id. */
+  bearings: Record<string, Bearing>;
+  fastenings: Record<string, Fastening>;
   require: Requirements;
   sweep: SweepSettings;
   /** Span of the `arm` block. */

@@ -75,7 +75,17 @@ export interface PropertyNode {
 }
 
 export type DeclarationKeyword =
-  "material" | "base" | "link" | "joint" | "parallelogram" | "spring" | "payload" | "require" | "sweep";
+  | "material"
+  | "base"
+  | "link"
+  | "joint"
+  | "parallelogram"
+  | "spring"
+  | "payload"
+  | "bearing"
+  | "fastening"
+  | "require"
+  | "sweep";
 
 /** `keyword name { properties }`; `require` and `sweep` have no name. */
 export interface DeclarationNode {

@@ -10,6 +10,8 @@ export const DECLARATION_KEYWORDS: readonly DeclarationKeyword[] = [
   "parallelogram",
   "spring",
   "payload",
+  "bearing",
+  "fastening",
   "require",
   "sweep",
 ];
