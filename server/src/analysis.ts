@@ -11,6 +11,8 @@ import type { Finding } from "./findings/finding";
 import { finding } from "./findings/finding";
 import type { Readouts } from "./checks/readout";
 import type { SymbolTable } from "./model/symbols";
+import { MAX_SPEC_CHARS } from "./limits";
+import { withStop } from "./stop";
 
 export interface AnalysisOptions {
   /** Overrides the spec's `sweep steps` (e.g. a quick pass while typing). */
@@ -19,6 +21,9 @@ export interface AnalysisOptions {
   budgetMs?: number;
   /** Stop after building the model (syntax and model findings only). */
   modelOnly?: boolean;
+  /** A flag another thread raises (non-zero at index 0, over a SharedArrayBuffer) to cancel the
+   * run: it then stops at the next place that looks at the budget (stop.ts). */
+  cancel?: Int32Array;
 }
 
 export interface Analysis {
@@ -40,6 +45,45 @@ function blocksSolving(findings: readonly Finding[]): boolean {
 }
 
 export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
+  if (text.length > MAX_SPEC_CHARS) return refusedAsTooLong(text);
+  // The budget counts from the start: reading a long text uses it too.
+  const deadline = options.budgetMs !== undefined ? performance.now() + options.budgetMs : Infinity;
+  const { value, stopped } = withStop(deadline, options.cancel, () => analyseWithin(text, options, deadline));
+  if (stopped && !value.findings.some((f) => f.code === "analysis.budget")) {
+    // A phase that cannot stop midway (reading, building, placing) used up the budget and the
+    // checks were cut short: say so, or the editor would show nothing amiss.
+    value.findings.push(
+      finding(
+        "analysis.budget",
+        value.model?.span ?? { start: 0, end: 0 },
+        `The analysis reached its time budget of ${Math.round(options.budgetMs ?? 0)} ms before every check had run; results are partial.`,
+        { data: { budgetMs: options.budgetMs } },
+      ),
+    );
+  }
+  return value;
+}
+
+/** A text past MAX_SPEC_CHARS is not read at all: one finding, at the character past the limit. */
+function refusedAsTooLong(text: string): Analysis {
+  const at = { start: MAX_SPEC_CHARS, end: MAX_SPEC_CHARS + 1 };
+  return {
+    text,
+    tree: { arms: [], comments: [], errors: [] },
+    findings: [
+      finding(
+        "analysis.limit",
+        at,
+        `The text is ${text.length.toLocaleString("en-US")} characters long, past the limit of ${MAX_SPEC_CHARS.toLocaleString("en-US")} (1 MiB) for one spec: it is not analysed. Split it, or remove what an arm does not need.`,
+        { data: { limit: MAX_SPEC_CHARS, length: text.length } },
+      ),
+    ],
+    readouts: {},
+    timings: { parse: 0, model: 0, solve: 0, checks: 0 },
+  };
+}
+
+function analyseWithin(text: string, options: AnalysisOptions, deadline: number): Analysis {
   const timings = { parse: 0, model: 0, solve: 0, checks: 0 };
   const findings: Finding[] = [];
   let t = performance.now();
@@ -61,7 +105,6 @@ export function analyse(text: string, options: AnalysisOptions = {}): Analysis {
   result.model = built.model;
   if (options.modelOnly || blocksSolving(findings)) return result;
 
-  const deadline = options.budgetMs !== undefined ? performance.now() + options.budgetMs : Infinity;
   t = performance.now();
   const sweep = guard(
     () =>

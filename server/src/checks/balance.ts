@@ -4,6 +4,7 @@
 // the figures hovers show for joints, springs and payloads.
 import type { ArmModel, Spring } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
+import { pastDeadline } from "./part-words";
 import type { CheckContext } from "./index";
 import { finding, type RelatedInfo } from "../findings/finding";
 import { addFigures, type Figure } from "./readout";
@@ -98,7 +99,7 @@ export function balanceChecks(ctx: CheckContext): void {
   const fits = new Map<string, SpringFit | undefined>();
   const fitOf = (id: string) => {
     if (!fits.has(id))
-      fits.set(id, performance.now() > ctx.options.deadline ? undefined : bestSpringFit(model, sweep, id));
+      fits.set(id, pastDeadline(ctx.options.deadline) ? undefined : bestSpringFit(model, sweep, id));
     return fits.get(id);
   };
 

@@ -347,9 +347,8 @@ function toSegment(
 
 /** Pairs of bodies that meet by design: joined directly, or both pinned to a third body at the
  * same point (a shared pivot). Their segments touch and say nothing about clearance. */
-function joinedPairs(model: ArmModel): Set<string> {
-  const pairs = new Set<string>();
-  const key = (a: string, b: string) => (a < b ? `${a}|${b}` : `${b}|${a}`);
+function joinedPairs<K>(model: ArmModel, key: (a: string, b: string) => K): Set<K> {
+  const pairs = new Set<K>();
   const sites = new Map<string, string[]>();
   const site = (body: string, p: { x: number; y: number }) => `${body}|${p.x.toFixed(5)}|${p.y.toFixed(5)}`;
   for (const j of model.joints) {
@@ -373,7 +372,7 @@ function joinedPairs(model: ArmModel): Set<string> {
 /** Two bodies pinned to one body closer together than their own half depths overlap there in
  * every pose, so the designer has put them in different layers (e.g. two stages on opposite
  * faces of a head plate): their segments say nothing about clearance. */
-function addLayeredPairs(model: ArmModel, pairs: Set<string>, key: (a: string, b: string) => string): void {
+function addLayeredPairs<K>(model: ArmModel, pairs: Set<K>, key: (a: string, b: string) => K): void {
   const halfDepth = (id: string) => {
     const b = model.bodies.find((x) => x.id === id);
     return b?.section ? sectionProperties(b.section).depth / 2 : 0;
@@ -424,36 +423,36 @@ function checkClearance(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   const need = model.require.clearance;
   const surface = model.base?.surface ?? 0;
-  const joined = joinedPairs(model);
   const shapes = model.bodies.filter((b) => b.kind !== "base").map(segmentShape);
   const m = shapes.length;
-  // Pair keys and whether they meet by design, once (not per pose).
-  const pairKey: string[] = [];
-  const pairSkip: boolean[] = [];
-  for (let i = 0; i < m; i++) {
-    for (let k = 0; k < m; k++) {
-      const a = shapes[i]!.body.id;
-      const b = shapes[k]!.body.id;
-      const key = a < b ? `${a}|${b}` : `${b}|${a}`;
-      pairKey.push(key);
-      pairSkip.push(joined.has(key));
-    }
-  }
+  // A pair of shapes i < k is the number i * m + k: no per-pair strings (a spec of thousands of
+  // bodies would need millions), and pairs are only looked at where their boxes come near.
+  const indexOf = new Map(shapes.map((sh, i) => [sh.body.id, i]));
+  const joined = joinedPairs(model, (a, b) => {
+    const i = indexOf.get(a);
+    const k = indexOf.get(b);
+    return i === undefined || k === undefined ? -1 : Math.min(i, k) * m + Math.max(i, k);
+  });
+  let thickest = 0;
+  for (const sh of shapes) thickest = Math.max(thickest, sh.halfThickness);
   // World end points of each segment at the current pose: ax ay bx by; `present` when the pose has the body.
   const ends = new Float64Array(4 * m);
   const present = new Uint8Array(m);
-  const pairWorst = new Map<string, { gap: number; pose: Pose; a: Body; b: Body }>();
+  const order: number[] = [];
+  const pairWorst = new Map<number, { gap: number; pose: Pose; a: Body; b: Body }>();
   const belowWorst = new Map<
     string,
     { id: string; depth: number; pose: Pose; what: string; span: { start: number; end: number } }
   >();
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
+    order.length = 0;
     for (let i = 0; i < m; i++) {
       const sh = shapes[i]!;
       const bp = pose.bodies[sh.body.id];
       present[i] = bp ? 1 : 0;
       if (!bp) continue;
+      order.push(i);
       // worldPoint's arithmetic, for the origin and the far point.
       const c = Math.cos(bp.phi);
       const s = Math.sin(bp.phi);
@@ -462,8 +461,7 @@ function checkClearance(ctx: CheckContext): void {
       ends[4 * i + 2] = bp.x + c * sh.farX - s * sh.farY;
       ends[4 * i + 3] = bp.y + s * sh.farX + c * sh.farY;
     }
-    for (let i = 0; i < m; i++) {
-      if (!present[i]) continue;
+    for (const i of order) {
       const sh = shapes[i]!;
       const o = 4 * i;
       const lowest = Math.min(ends[o + 1]!, ends[o + 3]!) - sh.halfThickness;
@@ -479,9 +477,34 @@ function checkClearance(ctx: CheckContext): void {
             span: sh.body.origin.name ?? sh.body.origin.declaration,
           });
       }
-      for (let k = i + 1; k < m; k++) {
-        if (!present[k] || pairSkip[i * m + k]) continue;
+    }
+    // Sweep along x: segments whose boxes lie `need` plus both half depths apart or more cannot
+    // come within `need` of each other, so they are never measured (the boxes bound the distance
+    // from below).
+    order.sort((a, b) => Math.min(ends[4 * a]!, ends[4 * a + 2]!) - Math.min(ends[4 * b]!, ends[4 * b + 2]!));
+    for (let u = 0; u < order.length; u++) {
+      const i0 = order[u]!;
+      const hi = shapes[i0]!.halfThickness;
+      const maxX = Math.max(ends[4 * i0]!, ends[4 * i0 + 2]!);
+      const minY = Math.min(ends[4 * i0 + 1]!, ends[4 * i0 + 3]!);
+      const maxY = Math.max(ends[4 * i0 + 1]!, ends[4 * i0 + 3]!);
+      for (let w = u + 1; w < order.length; w++) {
+        const k0 = order[w]!;
+        const hk = shapes[k0]!.halfThickness;
+        const minXk = Math.min(ends[4 * k0]!, ends[4 * k0 + 2]!);
+        if (minXk - maxX - hi - thickest >= need) break; // every later box starts farther right
+        if (minXk - maxX - hi - hk >= need) continue;
+        const minYk = Math.min(ends[4 * k0 + 1]!, ends[4 * k0 + 3]!);
+        const maxYk = Math.max(ends[4 * k0 + 1]!, ends[4 * k0 + 3]!);
+        if (Math.max(minYk - maxY, minY - maxYk) - hi - hk >= need) continue;
+        // measured with the lower index first, as every pair is named
+        const i = Math.min(i0, k0);
+        const k = Math.max(i0, k0);
+        const key = i * m + k;
+        if (joined.has(key)) continue;
+        const sh = shapes[i]!;
         const th = shapes[k]!;
+        const o = 4 * i;
         const q = 4 * k;
         const gap =
           segmentDistanceXY(
@@ -496,7 +519,7 @@ function checkClearance(ctx: CheckContext): void {
           ) -
           sh.halfThickness -
           th.halfThickness;
-        const key = pairKey[i * m + k]!;
+        if (!(gap < need)) continue;
         const prev = pairWorst.get(key);
         if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: sh.body, b: th.body });
       }
@@ -517,8 +540,9 @@ function checkClearance(ctx: CheckContext): void {
       }
     }
   }
-  for (const w of pairWorst.values()) {
-    if (w.gap >= need) continue;
+  // in the order of the bodies' declarations, first of the pair, then second
+  for (const key of [...pairWorst.keys()].sort((a, b) => a - b)) {
+    const w = pairWorst.get(key)!;
     const msg =
       w.gap <= 0
         ? `${bodyWord(w.b)} runs into ${bodyWord(w.a)} (they overlap by ${show(-w.gap, "length")}) ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`

@@ -75,10 +75,8 @@ export function relatedBody(body: Body, message: string): RelatedInfo {
   return { span: body.origin.name ?? body.origin.declaration, message };
 }
 
-/** True once the checks' time budget is spent. */
-export function pastDeadline(deadline: number): boolean {
-  return Number.isFinite(deadline) && performance.now() > deadline;
-}
+/** True once the checks' time budget is spent or the run is cancelled (stop.ts). */
+export { pastDeadline } from "../stop";
 
 /** Payload mass of each payload in a load case (the model's nominal mass where absent). */
 export function payloadMasses(

@@ -128,6 +128,11 @@ export const CODES = {
     severity: "warning",
     explanation: "The analysis stopped at its time budget; results are partial.",
   },
+  "analysis.limit": {
+    severity: "warning",
+    explanation:
+      "The spec is larger than a documented limit (docs/robustness.md); the part beyond it is left out.",
+  },
   "analysis.internal": {
     severity: "error",
     explanation: "The analysis hit an internal fault; this is a bug in Counterpoise.",

@@ -3,6 +3,7 @@ import type { TextEdit } from "vscode-languageserver";
 import type { ServerFeature } from "./context";
 import { formatSpec } from "./format-text";
 import { guarded } from "./safe";
+import { MAX_SPEC_CHARS } from "../limits";
 
 export const formattingFeature: ServerFeature = {
   name: "formatting",
@@ -13,6 +14,7 @@ export const formattingFeature: ServerFeature = {
         const doc = ctx.documents.get(params.textDocument.uri);
         if (!doc) return [];
         const text = doc.getText();
+        if (text.length > MAX_SPEC_CHARS) return []; // not read (its finding says so): left as it is
         const formatted = formatSpec(text);
         if (formatted === text) return [];
         return [

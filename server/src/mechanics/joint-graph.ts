@@ -2,6 +2,8 @@
 // base (each joint at its angle places the next body) and the joints that close loops.
 import type { ArmModel, Joint } from "../model/types";
 
+import { MAX_SOLVED_BODIES } from "../limits";
+
 export interface JointGraph {
   baseId: string;
   /** Moving bodies reached from the base, in coordinate order. */
@@ -16,9 +18,12 @@ export interface JointGraph {
   tree: { joint: number; forward: boolean }[];
   /** Joint positions that close a loop. */
   closing: number[];
+  /** Bodies the base reaches beyond MAX_SOLVED_BODIES: the first of them (in walk order) and
+   * how many, left out of the graph. */
+  leftOut?: { first: string; count: number };
 }
 
-export function jointGraph(model: ArmModel): JointGraph | undefined {
+export function jointGraph(model: ArmModel, maxBodies = MAX_SOLVED_BODIES): JointGraph | undefined {
   const base = model.bodies.find((b) => b.kind === "base");
   if (!base) return undefined;
   const known = new Set(model.bodies.map((b) => b.id));
@@ -38,9 +43,11 @@ export function jointGraph(model: ArmModel): JointGraph | undefined {
   const treeRaw: { joint: number; forward: boolean }[] = [];
   const closingRaw: number[] = [];
   const order: string[] = [];
+  const beyond = new Set<string>();
+  const beyondOrder: string[] = [];
   const queue = [base.id];
-  while (queue.length > 0) {
-    const u = queue.shift()!;
+  for (let head = 0; head < queue.length; head++) {
+    const u = queue[head]!;
     for (const ji of incident.get(u) ?? []) {
       if (used[ji]) continue;
       used[ji] = 1;
@@ -51,12 +58,22 @@ export function jointGraph(model: ArmModel): JointGraph | undefined {
         closingRaw.push(ji);
         continue;
       }
+      if (order.length >= maxBodies) {
+        // past the limit: counted, not taken (its joints stay out of the graph)
+        used[ji] = 0;
+        if (!beyond.has(v)) {
+          beyond.add(v);
+          beyondOrder.push(v);
+        }
+        continue;
+      }
       reached.add(v);
       order.push(v);
       queue.push(v);
       treeRaw.push({ joint: ji, forward });
     }
   }
+  if (beyondOrder.length > 0) countBeyond(incident, usable, reached, beyond, beyondOrder);
   // Keep only joints among reached bodies (all of them are, by construction of the walk).
   const keep = usable.map((_, i) => used[i] === 1);
   const remap = new Int32Array(usable.length).fill(-1);
@@ -79,7 +96,29 @@ export function jointGraph(model: ArmModel): JointGraph | undefined {
     child: Int32Array.from(joints, (j) => bodyIndex.get(j.child)!),
     tree: treeRaw.map((t) => ({ joint: remap[t.joint]!, forward: t.forward })),
     closing: closingRaw.map((c) => remap[c]!),
+    ...(beyondOrder.length > 0 ? { leftOut: { first: beyondOrder[0]!, count: beyond.size } } : {}),
   };
+}
+
+/** Every body reached through the ones left out, added to `beyond` (for the count). */
+function countBeyond(
+  incident: Map<string, number[]>,
+  joints: readonly Joint[],
+  reached: ReadonlySet<string>,
+  beyond: Set<string>,
+  start: readonly string[],
+): void {
+  const stack = [...start];
+  while (stack.length > 0) {
+    const u = stack.pop()!;
+    for (const ji of incident.get(u) ?? []) {
+      const j = joints[ji]!;
+      const v = j.parent === u ? j.child : j.parent;
+      if (reached.has(v) || beyond.has(v)) continue;
+      beyond.add(v);
+      stack.push(v);
+    }
+  }
 }
 
 /** Places every reached body by walking the tree with the given joint angles; q gets

@@ -12,6 +12,8 @@ import {
   type ConstraintSet,
 } from "./constraints";
 import { jointGraph, type JointGraph } from "./joint-graph";
+import { MAX_SOLVED_BODIES } from "../limits";
+import { jointBlocks } from "./joint-blocks";
 import { referencePose, LOOP_ANGLE_TOLERANCE, LOOP_GAP_TOLERANCE } from "./reference-pose";
 import { formatAngle, formatLength } from "./format";
 
@@ -66,6 +68,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   const graph = jointGraph(model);
   if (!graph) return undefined;
   const findings: Finding[] = [];
+  if (graph.leftOut) findings.push(leftOutFinding(model, graph.leftOut));
   const lengthScale = armLengthScale(model);
   const ref = referencePose(graph, lengthScale);
   const nb = graph.bodyIds.length;
@@ -111,30 +114,36 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   for (let ji = 0; ji < nj; ji++)
     if (graph.joints[ji]!.mode === "range") candidates.push({ kind: ROW_DRIVE, joint: ji, driveKind: "dof" });
 
+  // Rows are tested for independence block by block (joint-blocks.ts): each in the coordinates of
+  // its block's bodies only, so the work follows the size of the loops, not of the whole arm.
+  const blocks = jointBlocks(nb, graph.parent, graph.child);
+  const blockDim = blocks.bodies.map((b) => 3 * b.length);
   const rowVector = (kind: number, ji: number, q: Float64Array): Float64Array => {
-    // One row of Phi_q at the reference pose, phi columns divided by the length scale and drive
-    // rows multiplied by it, so that every entry is of order 1.
-    const v = new Float64Array(n);
+    // One row of Phi_q at the reference pose, in its block's coordinates, phi columns divided by
+    // the length scale and drive rows multiplied by it, so that every entry is of order 1.
+    const v = new Float64Array(blockDim[blocks.blockOf[ji]!]!);
     const p = graph.parent[ji]!;
     const c = graph.child[ji]!;
+    const lp = blocks.localParent[ji]!;
+    const lc = blocks.localChild[ji]!;
     if (kind === ROW_DRIVE) {
-      if (c >= 0) v[3 * c + 2]! += 1;
-      if (p >= 0) v[3 * p + 2]! -= 1;
+      if (lc >= 0) v[3 * lc + 2]! += 1;
+      if (lp >= 0) v[3 * lp + 2]! -= 1;
       return v;
     }
     const j = graph.joints[ji]!;
     const axis = kind === ROW_REVOLUTE_X ? 0 : 1;
-    const put = (body: number, s: { x: number; y: number }, sign: number) => {
-      if (body < 0) return;
+    const put = (body: number, local: number, s: { x: number; y: number }, sign: number) => {
+      if (local < 0) return;
       const phi = q[3 * body + 2]!;
       const cp = Math.cos(phi);
       const sp = Math.sin(phi);
-      v[3 * body + axis]! += sign;
+      v[3 * local + axis]! += sign;
       // d/dphi of the rotated point's x (or y) component
-      v[3 * body + 2]! += (sign * (axis === 0 ? -sp * s.x - cp * s.y : cp * s.x - sp * s.y)) / lengthScale;
+      v[3 * local + 2]! += (sign * (axis === 0 ? -sp * s.x - cp * s.y : cp * s.x - sp * s.y)) / lengthScale;
     };
-    put(p, j.parentPoint, 1);
-    put(c, j.childPoint, -1);
+    put(p, lp, j.parentPoint, 1);
+    put(c, lc, j.childPoint, -1);
     return v;
   };
   // The same rows at a slightly turned, generic configuration tell a dead point of the
@@ -142,25 +151,30 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   // any pose).
   const generic = Float64Array.from(ref.q);
   for (let b = 0; b < nb; b++) generic[3 * b + 2]! += GENERIC_TURN * Math.sin(12.9898 * (b + 1));
-  const basisRef: Float64Array[] = [];
-  const basisGeneric: Float64Array[] = [];
-  /** Whether v is independent of the basis; if so and `keep`, it joins the basis. */
-  const independent = (basis: Float64Array[], v0: Float64Array, keep: boolean): boolean => {
+  const basisRef: Float64Array[][] = blockDim.map(() => []);
+  const basisGeneric: Float64Array[][] = blockDim.map(() => []);
+  const full = (basis: Float64Array[][], ji: number) =>
+    basis[blocks.blockOf[ji]!]!.length >= blockDim[blocks.blockOf[ji]!]!;
+  /** Whether joint ji's row v0 is independent of its block's basis; if so and `keep`, it joins
+   * the basis. */
+  const independent = (basis: Float64Array[][], ji: number, v0: Float64Array, keep: boolean): boolean => {
+    const rows = basis[blocks.blockOf[ji]!]!;
+    const m = v0.length;
     const v = Float64Array.from(v0);
-    const norm0 = Math.hypot(...v);
+    const norm0 = euclidean(v);
     if (norm0 === 0) return false;
     for (let pass = 0; pass < 2; pass++) {
-      for (const b of basis) {
+      for (const b of rows) {
         let d = 0;
-        for (let i = 0; i < n; i++) d += v[i]! * b[i]!;
-        for (let i = 0; i < n; i++) v[i]! -= d * b[i]!;
+        for (let i = 0; i < m; i++) d += v[i]! * b[i]!;
+        for (let i = 0; i < m; i++) v[i]! -= d * b[i]!;
       }
     }
-    const norm = Math.hypot(...v);
+    const norm = euclidean(v);
     if (norm <= RANK_TOLERANCE * norm0) return false;
     if (keep) {
-      for (let i = 0; i < n; i++) v[i]! /= norm;
-      basis.push(v);
+      for (let i = 0; i < m; i++) v[i]! /= norm;
+      rows.push(v);
     }
     return true;
   };
@@ -181,8 +195,10 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   };
   for (const c of candidates) {
     const atGeneric =
-      basisGeneric.length < n && independent(basisGeneric, rowVector(c.kind, c.joint, generic), true);
-    const atReference = basisRef.length < n && independent(basisRef, rowVector(c.kind, c.joint, ref.q), true);
+      !full(basisGeneric, c.joint) &&
+      independent(basisGeneric, c.joint, rowVector(c.kind, c.joint, generic), true);
+    const atReference =
+      !full(basisRef, c.joint) && independent(basisRef, c.joint, rowVector(c.kind, c.joint, ref.q), true);
     if (!atReference) {
       if (atGeneric) deadPointAtReference = true;
       else if (c.driveKind === "dof") findings.push(lockedDofFinding(graph.joints[c.joint]!));
@@ -196,15 +212,15 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
   }
   // Mobility left over: passive joints whose angle nothing determines (at any pose) are held
   // where they are.
-  for (let ji = 0; ji < nj && basisRef.length < n; ji++) {
+  for (let ji = 0; ji < nj && rows.length < n; ji++) {
     const j = graph.joints[ji]!;
-    if (j.mode !== "passive") continue;
-    if (!independent(basisRef, rowVector(ROW_DRIVE, ji, ref.q), false)) continue;
-    if (!independent(basisGeneric, rowVector(ROW_DRIVE, ji, generic), true)) {
+    if (j.mode !== "passive" || full(basisRef, ji)) continue;
+    if (!independent(basisRef, ji, rowVector(ROW_DRIVE, ji, ref.q), false)) continue;
+    if (!independent(basisGeneric, ji, rowVector(ROW_DRIVE, ji, generic), true)) {
       deadPointAtReference = true;
       continue;
     }
-    independent(basisRef, rowVector(ROW_DRIVE, ji, ref.q), true);
+    independent(basisRef, ji, rowVector(ROW_DRIVE, ji, ref.q), true);
     addDrive(ji, "hold");
     findings.push(
       finding(
@@ -261,7 +277,7 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     driveOfJoint,
     driveKind,
     driveJoint,
-    driveRow: Int32Array.from(drives, (_, d) => rows.findIndex((r) => r.kind === ROW_DRIVE && r.ref === d)),
+    driveRow: driveRows(rows, drives.length),
     dofs,
     dofDrive: Int32Array.from(dofDrive),
     qReference: ref.q,
@@ -270,6 +286,39 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
     findings,
     ok,
   };
+}
+
+/** Row of each drive (-1: none). */
+function driveRows(rows: readonly { kind: number; ref: number }[], drives: number): Int32Array {
+  const out = new Int32Array(drives).fill(-1);
+  rows.forEach((r, i) => {
+    if (r.kind === ROW_DRIVE && out[r.ref] === -1) out[r.ref] = i;
+  });
+  return out;
+}
+
+function euclidean(v: Float64Array): number {
+  // scaled, like Math.hypot, so that no entry's square overflows or underflows
+  let scale = 0;
+  for (let i = 0; i < v.length; i++) scale = Math.max(scale, Math.abs(v[i]!));
+  if (scale === 0 || !Number.isFinite(scale)) return scale;
+  let sum = 0;
+  for (let i = 0; i < v.length; i++) {
+    const x = v[i]! / scale;
+    sum += x * x;
+  }
+  return scale * Math.sqrt(sum);
+}
+
+function leftOutFinding(model: ArmModel, leftOut: { first: string; count: number }): Finding {
+  const body = model.bodies.find((b) => b.id === leftOut.first);
+  const others = leftOut.count - 1;
+  return finding(
+    "analysis.limit",
+    body ? (body.origin.name ?? body.origin.declaration) : model.span,
+    `The arm has more moving bodies than the ${MAX_SOLVED_BODIES} the solver takes (nearest the base first): ${leftOut.first}${others > 0 ? ` and ${others} bod${others === 1 ? "y" : "ies"} beyond it are` : " is"} left out of the sweep and of every check that needs a pose.`,
+    { data: { limit: MAX_SOLVED_BODIES, leftOut: leftOut.count } },
+  );
 }
 
 function lockedDofFinding(j: Joint): Finding {

@@ -13,6 +13,7 @@ import { springTension, torsionSpringTorque } from "./forces";
 import { handForceVector } from "./hand-force";
 import { wrapNear } from "./joint-graph";
 import type { Linkage } from "./linkage";
+import { pastDeadline } from "../stop";
 
 /** Converged when every constraint is met within 1e-10 (m, or rad for drives): a tenth of a
  * nanometre, far below any displayed digit and about 1e4 x the round-off of arm-sized numbers. */
@@ -222,7 +223,7 @@ export class PoseSolver {
     let tries = 0;
     while (s < 1) {
       // A long move (a huge range) checks the clock now and then.
-      if ((++tries & 63) === 0 && performance.now() > deadline) {
+      if ((++tries & 63) === 0 && pastDeadline(deadline)) {
         this.timedOut = true;
         return false;
       }

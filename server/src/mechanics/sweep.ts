@@ -7,6 +7,8 @@ import { SWEEP_DEFAULTS } from "../model/schema";
 import { buildLinkage } from "./linkage";
 import { PoseSolver, type SavedFactors } from "./pose-solver";
 import { formatAngle } from "./format";
+import { pastDeadline } from "../stop";
+import { MAX_POSE_BODIES } from "../limits";
 
 export interface SolveOptions {
   stepsOverride?: number;
@@ -115,6 +117,34 @@ function planEachAlone(samples: number[][], reference: number[]): SweepNode[] {
   return nodes;
 }
 
+/** Fewer steps per degree of freedom when poses times moving bodies would pass MAX_POSE_BODIES,
+ * with a finding. */
+function capPoseBodies(
+  model: ArmModel,
+  dofCount: number,
+  bodies: number,
+  steps: number,
+  grid: boolean,
+  findings: Finding[],
+): number {
+  const poses = (s: number) => (grid ? s ** dofCount : s * dofCount);
+  if (poses(steps) * bodies <= MAX_POSE_BODIES) return steps;
+  const perDof = MAX_POSE_BODIES / bodies;
+  const capped = Math.max(
+    2,
+    grid ? Math.floor(perDof ** (1 / dofCount) + 1e-9) : Math.floor(perDof / dofCount),
+  );
+  findings.push(
+    finding(
+      "sweep.capped",
+      model.sweep?.origin?.properties["steps"] ?? model.sweep?.origin?.declaration ?? model.span,
+      `${steps} steps per degree of freedom would make ${(poses(steps) * bodies).toLocaleString("en-US")} poses times moving bodies (${bodies} bodies), past the limit of ${MAX_POSE_BODIES.toLocaleString("en-US")}; the sweep takes ${capped} steps each.`,
+      { data: { requested: steps, used: capped, limit: MAX_POSE_BODIES } },
+    ),
+  );
+  return capped;
+}
+
 export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepResult {
   const findings: Finding[] = [];
   const cases = loadCases(model);
@@ -155,6 +185,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   let steps = Math.round(options.stepsOverride ?? model.sweep?.steps ?? SWEEP_DEFAULTS.steps);
   steps = Math.min(Math.max(steps, 2), SWEEP_DEFAULTS.maxSteps);
   let useGrid = grid && dofs.length > 1;
+  const bodies = linkage.graph.bodyIds.length;
   if (useGrid && 2 ** dofs.length > MAX_GRID_POSES) {
     useGrid = false;
     findings.push(
@@ -163,6 +194,16 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
         model.sweep?.origin?.properties["grid"] ?? model.sweep?.origin?.declaration ?? model.span,
         `A grid of ${dofs.length} degrees of freedom would exceed ${MAX_GRID_POSES} poses even at 2 steps each; each one is swept alone instead, the others at their reference angle.`,
         { data: { requested: steps, used: steps, grid: false } },
+      ),
+    );
+  } else if (useGrid && 2 ** dofs.length * bodies > MAX_POSE_BODIES) {
+    useGrid = false;
+    findings.push(
+      finding(
+        "sweep.capped",
+        model.sweep?.origin?.properties["grid"] ?? model.sweep?.origin?.declaration ?? model.span,
+        `A grid of ${dofs.length} degrees of freedom over ${bodies} moving bodies would pass ${MAX_POSE_BODIES.toLocaleString("en-US")} poses times bodies even at 2 steps each; each one is swept alone instead, the others at their reference angle.`,
+        { data: { requested: steps, used: steps, grid: false, limit: MAX_POSE_BODIES } },
       ),
     );
   } else if (useGrid && steps ** dofs.length > MAX_GRID_POSES) {
@@ -177,6 +218,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
     );
     steps = capped;
   }
+  steps = capPoseBodies(model, dofs.length, bodies, steps, useGrid, findings);
   const samples = dofs.map((d) => rangeSamples(d.range, steps));
   const reference0 = dofs.map((d) => d.reference);
   const nodes = useGrid ? planGrid(samples, reference0) : planEachAlone(samples, reference0);
@@ -212,7 +254,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
     );
   };
   for (let i = 0; i < nodes.length; i++) {
-    if (performance.now() > deadline) {
+    if (pastDeadline(deadline)) {
       budgetStop();
       break;
     }

@@ -18,6 +18,8 @@ import {
   type Read,
 } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
+import type { Span } from "../syntax/span";
+import { MAX_JOINT_ANGLE_RAD } from "../limits";
 
 // ---- materials ----
 
@@ -200,13 +202,26 @@ function readPin(ctx: BuildContext, p: Props, key: string, shearKey: string): Pi
   return { diameter: d.value, material, shearPlanes: planes };
 }
 
+function withinOneTurn(ctx: BuildContext, value: number, at: Span): boolean {
+  if (Math.abs(value) <= MAX_JOINT_ANGLE_RAD * (1 + 1e-12)) return true;
+  ctx.r.add(
+    "value.impossible",
+    at,
+    `\`${ctx.r.quote(at)}\` is more than a full turn: a joint's angle and the ends of its range lie within -360 deg .. 360 deg`,
+  );
+  return false;
+}
+
 /** `range` or `fixed` or neither; with the reference angle. */
 function readMode(ctx: BuildContext, p: Props): { angle: number; mode: JointMode; range?: [number, number] } {
   let range: [number, number] | undefined;
   const rv = p.values("range");
   if (rv) {
-    range = readRange(rv, "angle")?.value;
+    const read = readRange(rv, "angle");
     rv.finish();
+    const lowOk = read ? withinOneTurn(ctx, read.value[0], read.ends[0]) : false;
+    const highOk = read ? withinOneTurn(ctx, read.value[1], read.ends[1]) : false;
+    if (read && lowOk && highOk) range = read.value;
   }
   const fv = p.values("fixed");
   if (fv) readFlag(fv);
@@ -223,8 +238,9 @@ function readMode(ctx: BuildContext, p: Props): { angle: number; mode: JointMode
   let angle: number | undefined;
   const av = p.values("angle");
   if (av) {
-    angle = readQuantity(av, ["angle"])?.value;
+    const read = readQuantity(av, ["angle"]);
     av.finish();
+    if (read && withinOneTurn(ctx, read.value, read.span)) angle = read.value;
   }
   // Without an angle the reference pose is 0, or the middle of a range that excludes 0.
   if (angle === undefined) angle = range && (range[0] > 0 || range[1] < 0) ? (range[0] + range[1]) / 2 : 0;

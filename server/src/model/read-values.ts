@@ -243,7 +243,10 @@ export function readQuantity(
   return c === undefined ? undefined : { value: c.value, dimension: c.dimension, span: node.span };
 }
 
-export function readRange(v: Values, dim: DimensionName): Read<[number, number]> | undefined {
+/** A range as read: both ends (SI, low first) and, for findings about one end, each end's span. */
+export type RangeRead = Read<[number, number]> & { ends: [Span, Span] };
+
+export function readRange(v: Values, dim: DimensionName): RangeRead | undefined {
   const node = v.next();
   if (!node) {
     v.missing(`a range \`low .. high\``);
@@ -270,9 +273,9 @@ export function readRange(v: Values, dim: DimensionName): Read<[number, number]>
       },
     );
     // Kept in order so that what is built from it stays consistent; the error stands.
-    return { value: [hi, lo], span: node.span };
+    return { value: [hi, lo], span: node.span, ends: [node.high.span, node.low.span] };
   }
-  return { value: [lo, hi], span: node.span };
+  return { value: [lo, hi], span: node.span, ends: [node.low.span, node.high.span] };
 }
 
 /** `(x, y)` with both parts of one dimension (lengths for points, forces for `force`). */
