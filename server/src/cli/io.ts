@@ -1,5 +1,12 @@
 // The command's only contact with the outside: reading spec files and writing to the streams.
-import { readFileSync, statSync } from "node:fs";
+import { closeSync, openSync, readSync, realpathSync, statSync } from "node:fs";
+import { resolve } from "node:path";
+import { MAX_SPEC_CHARS } from "../limits";
+
+/** Longest spec file read, bytes: the core's limit (1 MiB; a file of no more bytes holds no more
+ * characters). A longer file, or one without end (`/dev/zero`), is refused after reading one byte
+ * past it. */
+export const MAX_SPEC_BYTES = MAX_SPEC_CHARS;
 
 export interface Output {
   out(text: string): void;
@@ -28,7 +35,14 @@ export function readSpec(file: string, out: Output, command: string): string | u
       out.err(`poise ${command}: ${file} is a folder, not a .poise file\n`);
       return undefined;
     }
-    return readFileSync(file, "utf8");
+    const text = readAtMost(file, MAX_SPEC_BYTES);
+    if (text === undefined) {
+      out.err(
+        `poise ${command}: ${file} is larger than ${MAX_SPEC_BYTES.toLocaleString("en-US")} bytes (1 MiB), the limit for one spec: not read\n`,
+      );
+      return undefined;
+    }
+    return text;
   } catch (err) {
     const code = (err as NodeJS.ErrnoException).code;
     out.err(
@@ -36,4 +50,42 @@ export function readSpec(file: string, out: Output, command: string): string | u
     );
     return undefined;
   }
+}
+
+/** The file's text, or undefined when it holds more than `limit` bytes (reading stops there). */
+function readAtMost(file: string, limit: number): string | undefined {
+  const fd = openSync(file, "r");
+  try {
+    const buffer = Buffer.alloc(limit + 1);
+    let length = 0;
+    while (length < buffer.length) {
+      const n = readSync(fd, buffer, length, buffer.length - length, null);
+      if (n === 0) break;
+      length += n;
+    }
+    return length > limit ? undefined : buffer.toString("utf8", 0, length);
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** Why writing to `out` would destroy a spec, or undefined when it would not: `out` is the input
+ * itself (by any path to it), or another spec (a `.poise` file). Output never replaces a spec. */
+export function overwritesSpec(out: string, input: string): string | undefined {
+  if (/\.poise$/i.test(out)) return "it is a spec (.poise); name the page .html";
+  try {
+    const o = statSync(out);
+    const i = statSync(input);
+    if (o.dev === i.dev && o.ino === i.ino) return `it is the spec being read (${input})`;
+  } catch {
+    // out does not exist yet (or input cannot be read: that is reported when it is read)
+  }
+  const real = (p: string) => {
+    try {
+      return realpathSync(p);
+    } catch {
+      return resolve(p);
+    }
+  };
+  return real(out) === real(input) ? `it is the spec being read (${input})` : undefined;
 }

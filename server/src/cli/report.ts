@@ -1,7 +1,9 @@
 // `poise report FILE [-o OUT] [--units si|us]`: the arm's drawing, curves, safety factors, diagnostics, limits and
 // cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
-import { readFileSync, writeFileSync } from "node:fs";
+import { writeFileSync } from "node:fs";
+import { overwritesSpec, processOutput, readSpec } from "./io";
 import { analyse } from "../analysis";
+import { CLI_BUDGET_MS } from "../limits";
 import { buildViewModel } from "../view/build-view-model";
 import { renderReportHtml } from "../view/report-page";
 
@@ -43,9 +45,11 @@ export function reportHtml(
   file: string,
   units: "si" | "us" = "si",
 ): { html: string; errors: number } {
-  const analysis = analyse(text);
-  // Every pose: the page carries drawings and curves, not the pose list, so a dense sweep costs little.
-  const vm = buildViewModel(analysis, { units, maxPoses: Infinity });
+  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
+  // The poses the panel gets (at most MAX_VIEW_POSES, thinned evenly): every drawing of the page
+  // traces the payload's path along each run of them, so a grid of many degrees of freedom drawn
+  // whole made pages of hundreds of megabytes.
+  const vm = buildViewModel(analysis, { units });
   return {
     html: renderReportHtml(vm, { file }),
     errors: analysis.findings.filter((f) => f.severity === "error").length,
@@ -58,15 +62,13 @@ export async function runReport(args: string[]): Promise<number> {
     process.stderr.write(parsed === USAGE ? `${USAGE}\n` : `${parsed}\n${USAGE}\n`);
     return 2;
   }
-  let text: string;
-  try {
-    text = readFileSync(parsed.file, "utf8");
-  } catch (err) {
-    process.stderr.write(
-      `poise report: cannot read ${parsed.file}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`,
-    );
+  const clash = parsed.out !== undefined ? overwritesSpec(parsed.out, parsed.file) : undefined;
+  if (clash) {
+    process.stderr.write(`poise report: will not write the page over ${parsed.out}: ${clash}\n`);
     return 2;
   }
+  const text = readSpec(parsed.file, processOutput, "report");
+  if (text === undefined) return 2;
   const { html, errors } = reportHtml(text, parsed.file, parsed.units);
   if (parsed.out === undefined) process.stdout.write(html);
   else {

@@ -1,6 +1,7 @@
 // `poise sweep FILE [--json|--csv]`: the pose table behind the checks, in the fixed units of
 // cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa).
 import { analyse } from "../analysis";
+import { CLI_BUDGET_MS } from "../limits";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { readSpec, type Output } from "./io";
 
@@ -115,7 +116,7 @@ export function runSweep(args: string[], out: Output): number {
   const file = files[0]!;
   const text = readSpec(file, out, "sweep");
   if (text === undefined) return 2;
-  const analysis = analyse(text);
+  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
   const errors = analysis.findings.filter((f) => f.severity === "error");
   if (!analysis.sweep) {
     out.err(

@@ -311,6 +311,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
         solved.poses,
         solved.dofs.map((d) => d.id),
         options.maxPoses ?? MAX_VIEW_POSES,
+        solved.dofs.map((d) => d.reference),
       )
     : [];
   const poses = solved && kept.length < solved.poses.length ? { ...solved, poses: kept } : solved;

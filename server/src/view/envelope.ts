@@ -5,6 +5,13 @@ import { place, posePoints } from "./geometry";
 
 /** Share of the extent added round the drawing so pivots and labels are not cut at the edge. */
 const FRAME_MARGIN = 0.08;
+/** Paths traced per payload at most: a grid of many degrees of freedom at two values each has
+ * every run on its edge (11 dofs: 11,264 of them), and every drawing of the report and the panel
+ * repeats them. 200 dashed lines already fill a drawing; the ones kept are those that reach
+ * farthest in some direction, then every k-th of the rest. Common practice, no source. */
+export const MAX_ENVELOPE_PATHS = 200;
+/** Directions in which the path reaching farthest is always kept. */
+const EXTREME_DIRECTIONS = 32;
 
 /** A run lies on the edge of the range when every other dof sits at one end of its values. */
 function onEdge(vm: ViewModel, d: number, run: readonly number[]): boolean {
@@ -26,13 +33,40 @@ export function payloadPaths(vm: ViewModel): ViewModel["envelope"] {
     for (const perDof of vm.lines) for (const run of perDof) if (run.length >= 2) runs.push(run);
   const paths: ViewModel["envelope"] = {};
   for (const payload of vm.payloads) {
-    paths[payload.id] = runs.map((run) =>
-      run
-        .map((p) => place(vm.poses[p]!, payload.body, payload.local))
-        .filter((w): w is [number, number] => w !== undefined),
+    paths[payload.id] = outermost(
+      runs.map((run) =>
+        run
+          .map((p) => place(vm.poses[p]!, payload.body, payload.local))
+          .filter((w): w is [number, number] => w !== undefined),
+      ),
+      MAX_ENVELOPE_PATHS,
     );
   }
   return paths;
+}
+
+/** At most `max` of the paths, in their order: the one reaching farthest in each of
+ * EXTREME_DIRECTIONS directions, then evenly spaced others. */
+function outermost(paths: [number, number][][], max: number): [number, number][][] {
+  if (paths.length <= max) return paths;
+  const keep = new Set<number>();
+  for (let k = 0; k < EXTREME_DIRECTIONS && keep.size < max; k++) {
+    const cx = Math.cos((2 * Math.PI * k) / EXTREME_DIRECTIONS);
+    const cy = Math.sin((2 * Math.PI * k) / EXTREME_DIRECTIONS);
+    let best = -1;
+    let reach = -Infinity;
+    paths.forEach((path, i) => {
+      for (const [x, y] of path)
+        if (x * cx + y * cy > reach) {
+          reach = x * cx + y * cy;
+          best = i;
+        }
+    });
+    if (best >= 0) keep.add(best);
+  }
+  const step = paths.length / Math.max(1, max - keep.size);
+  for (let t = 0; keep.size < max && t < paths.length; t += step) keep.add(Math.floor(t));
+  return paths.filter((_, i) => keep.has(i));
 }
 
 export function viewBounds(vm: ViewModel): [number, number, number, number] {

@@ -75,23 +75,61 @@ export function runThrough(lines: readonly (readonly number[])[], p: number): re
   return lines.find((run) => run.includes(p)) ?? lines[0] ?? [];
 }
 
-/** The poses to draw when the sweep has more than `max`: every k-th visited value of each dof (both
- * ends kept), with k the smallest that brings the count under `max`. Returns the poses unchanged
- * when there are few enough. */
-export function thinPoses(poses: readonly Pose[], dofIds: readonly string[], max: number): Pose[] {
+/** The poses to draw when the sweep has more than `max`: every k-th visited value of each dof
+ * (both ends kept), with k as small as brings the count under `max`; when even the ends of every
+ * dof are too many (a grid of many degrees of freedom at two values each), the last degrees of
+ * freedom are held at the value nearest their `reference` angle, one after another, until the
+ * rest fit. Returns the poses unchanged when there are few enough. */
+export function thinPoses(
+  poses: readonly Pose[],
+  dofIds: readonly string[],
+  max: number,
+  reference: readonly number[] = [],
+): Pose[] {
   if (poses.length <= max || dofIds.length === 0) return [...poses];
-  const values = dofIds.map((id) => {
-    const sorted = [...new Set(poses.map((p) => Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD)))].sort(
-      (a, b) => a - b,
-    );
-    return sorted;
+  const dofs = dofIds.length;
+  // Each pose's value of each dof as its position among that dof's sorted distinct values.
+  const keyOf = (p: Pose, id: string) => Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD);
+  const values = dofIds.map((id) => [...new Set(poses.map((p) => keyOf(p, id)))].sort((a, b) => a - b));
+  const position = new Int32Array(poses.length * dofs);
+  dofIds.forEach((id, d) => {
+    const at = new Map(values[d]!.map((v, i) => [v, i]));
+    poses.forEach((p, i) => (position[i * dofs + d] = at.get(keyOf(p, id))!));
   });
-  for (let k = 2; k < 10000; k++) {
-    const kept = values.map((v) => new Set(v.filter((_, i) => i % k === 0 || i === v.length - 1)));
-    const subset = poses.filter((p) =>
-      dofIds.every((id, d) => kept[d]!.has(Math.round((p.angles[id] ?? 0) / SAME_ANGLE_RAD))),
-    );
-    if (subset.length <= max) return subset;
+  const nearestReference = values.map((v, d) => {
+    const target = (reference[d] ?? 0) / SAME_ANGLE_RAD;
+    let best = 0;
+    for (let i = 1; i < v.length; i++) if (Math.abs(v[i]! - target) < Math.abs(v[best]! - target)) best = i;
+    return best;
+  });
+  /** Whether pose i stays with every k-th value and the last `held` dofs at their reference. */
+  const keeps = (i: number, k: number, held: number): boolean => {
+    for (let d = 0; d < dofs; d++) {
+      const at = position[i * dofs + d]!;
+      if (d >= dofs - held) {
+        if (at !== nearestReference[d]) return false;
+      } else if (at % k !== 0 && at !== values[d]!.length - 1) return false;
+    }
+    return true;
+  };
+  const count = (k: number, held: number) => {
+    let n = 0;
+    for (let i = 0; i < poses.length; i++) if (keeps(i, k, held)) n++;
+    return n;
+  };
+  const longest = Math.max(2, ...values.map((v) => v.length));
+  for (let held = 0; held < dofs; held++) {
+    // Fewer poses as k grows (near enough: every k-th value of a run of n is about n / k of them),
+    // so the smallest k that fits is found by bisection; k = longest keeps the ends alone.
+    if (count(longest, held) > max) continue;
+    let lo = 2;
+    let hi = longest;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (count(mid, held) <= max) hi = mid;
+      else lo = mid + 1;
+    }
+    return poses.filter((_, i) => keeps(i, lo, held));
   }
-  return [...poses];
+  return poses.filter((_, i) => keeps(i, longest, dofs));
 }

@@ -76,6 +76,11 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<h2>The arm</h2>`,
     `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts flagged red fail a check; amber ones carry a warning.</p>`,
     `<div class="drawing">${renderArmSvg(vm, vm.referencePose, { widthPx: 760 })}</div>`,
+    ...(vm.thinned
+      ? [
+          `<p class="note">Drawn and plotted from ${vm.thinned.shown} of the ${vm.thinned.solved} poses solved (every few values of each degree of freedom, both ends kept); the checks used them all.</p>`,
+        ]
+      : []),
     rangeEnds(vm),
     `<h2>Torques and hand force</h2>`,
     vm.poses.length
