@@ -54,6 +54,8 @@ export interface CappedData extends About {
   used: number;
   /** False when a grid was given up for sweeping each degree of freedom alone. */
   grid?: boolean;
+  /** The limit of poses times moving bodies that capped it (docs/robustness.md, limits). */
+  limit?: number;
 }
 
 /** `geometry.loop-open`: the closing joint's pivots at the reference pose. */
@@ -207,6 +209,18 @@ export interface BudgetData extends About {
   /** Poses solved, of those planned. */
   solved?: number;
   planned?: number;
+  /** The budget, ms, when a phase that cannot stop midway used it up and checks were cut short. */
+  budgetMs?: number;
+}
+
+/** `analysis.limit`: the spec passes a documented limit (server/src/limits.ts). */
+export interface LimitData extends About {
+  /** The limit: characters of text, or moving bodies solved. */
+  limit: number;
+  /** The text's length, characters (a text too long). */
+  length?: number;
+  /** Bodies left out (too many moving bodies). */
+  leftOut?: number;
 }
 
 /** The data of each code. */
@@ -250,5 +264,6 @@ export interface FindingDataMap {
   "stiffness.tilt": ElasticTiltData;
   "stiffness.low-frequency": FrequencyData;
   "analysis.budget": BudgetData;
+  "analysis.limit": LimitData;
   "analysis.internal": About;
 }

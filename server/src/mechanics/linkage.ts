@@ -317,7 +317,7 @@ function leftOutFinding(model: ArmModel, leftOut: { first: string; count: number
     "analysis.limit",
     body ? (body.origin.name ?? body.origin.declaration) : model.span,
     `The arm has more moving bodies than the ${MAX_SOLVED_BODIES} the solver takes (nearest the base first): ${leftOut.first}${others > 0 ? ` and ${others} bod${others === 1 ? "y" : "ies"} beyond it are` : " is"} left out of the sweep and of every check that needs a pose.`,
-    { data: { limit: MAX_SOLVED_BODIES, leftOut: leftOut.count } },
+    { data: { subject: leftOut.first, limit: MAX_SOLVED_BODIES, leftOut: leftOut.count } },
   );
 }
 
