@@ -27,6 +27,7 @@ const ABOUT_A_PART: Code[] = [
   "balance.unbalanced",
   "balance.drifts",
   "geometry.spring-toggle",
+  "geometry.spring-leverage",
   "geometry.spring-slack",
   "geometry.tilt",
   "geometry.clearance",

@@ -53,7 +53,7 @@ export function leverArm(
 
 /** The degree of freedom the spring mainly works about: of the dof joints on the chain between
  * its two bodies, the one with the longest lever arm at the reference pose. */
-function workingJoint(model: ArmModel, sweep: SweepResult, s: Exclude<Spring, { kind: "torsion" }>) {
+export function workingJoint(model: ArmModel, sweep: SweepResult, s: Exclude<Spring, { kind: "torsion" }>) {
   const ref = sweep.reference ?? sweep.poses[0];
   if (!ref) return undefined;
   const candidates = jointsBetween(model, s.a.body, s.b.body).filter((j) => j.mode === "range");

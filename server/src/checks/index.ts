@@ -8,6 +8,7 @@ import { balanceChecks } from "./balance";
 import { checkStrength } from "./strength";
 import { checkSpringStrength } from "./spring-strength";
 import { checkGeometry } from "./geometry";
+import { checkSpringLeverage } from "./spring-leverage";
 import { checkTipping } from "./tipping";
 import { checkStiffness } from "./stiffness";
 
@@ -32,6 +33,7 @@ const FAMILIES: CheckFamily[] = [
   checkStrength,
   checkSpringStrength,
   checkGeometry,
+  checkSpringLeverage,
   checkTipping,
   checkStiffness,
 ];

@@ -85,6 +85,11 @@ export const CODES = {
     explanation:
       "A spring's line of action passes close to the pivot it works about: its lever arm collapses.",
   },
+  "geometry.spring-leverage": {
+    severity: "warning",
+    explanation:
+      "A spring works at a small lever arm against the weight's, so it pulls many times the weight it balances.",
+  },
   "geometry.spring-slack": {
     severity: "warning",
     explanation: "An extension spring or rubber cord is at or below its free length where it must pull.",

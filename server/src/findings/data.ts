@@ -117,6 +117,28 @@ export interface ToggleData extends AboutPart {
   leverArm: number;
 }
 
+/** `geometry.spring-leverage`: a spring pulls many times the weight it balances. Subject: the
+ * spring. */
+export interface LeverageData extends AboutPart {
+  /** The joint it works about. */
+  joint: string;
+  /** Its largest pull (magnitude) over the range and load cases, the weight the joint carries
+   * there, N, and their ratio. */
+  force: number;
+  weight: number;
+  ratio: number;
+  /** Largest lever arm of its line of action about the pivot, and of the weight (the horizontal
+   * distance of the carried weight's centre from the pivot), over the range, m. */
+  leverArm: number;
+  weightArm: number;
+  /** Largest force on the pin of `joint`, N. */
+  pinReaction: number;
+  /** The body its hook is on, and the largest compression the pull puts in it between the hook
+   * and the pivot, N. */
+  body?: string;
+  compression?: number;
+}
+
 /** `geometry.spring-slack`: a spring or cord at or below its free length. Subject: the spring. */
 export interface SlackData extends AboutPart {
   /** Poses where it is slack, of `posesSwept`. */
@@ -254,6 +276,7 @@ export interface FindingDataMap {
   "balance.unbalanced": UnbalancedData;
   "balance.drifts": DriftsData;
   "geometry.spring-toggle": ToggleData;
+  "geometry.spring-leverage": LeverageData;
   "geometry.spring-slack": SlackData;
   "geometry.tilt": HeadTiltData;
   "geometry.clearance": ClearanceData;

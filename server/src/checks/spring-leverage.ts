@@ -1,0 +1,183 @@
+// A spring that works at a small lever arm against the weight's (`geometry.spring-leverage`): to
+// balance the arm it must pull many times the weight it carries, and that force goes through its
+// hooks and anchor, the pin it works about and the bar it hooks on. The toggle check measures the
+// lever arm against the hook radius, so an anchor a few millimetres from the pivot with a long
+// hook radius passes it (issue 10 item 2); this check measures the force against the weight.
+import type { ArmModel, Joint, Spring } from "../model/types";
+import type { Pose } from "../mechanics/types";
+import { worldPoint } from "../mechanics/body-loads";
+import type { CheckContext } from "./index";
+import { finding } from "../findings/finding";
+import { chainToBase } from "./arm-paths";
+import { workingJoint } from "./geometry";
+import { bodyWord, describePose, pastDeadline, payloadMasses, show, spanOf } from "./part-words";
+
+/** A spring pulling more than this many times the weight it balances is flagged. A balancer of
+ * the usual proportions (anchor an eighth, hook a quarter of the payload's reach from the pivot;
+ * references.md's worked example: a = 50 mm, b = 100 mm, l = 400 mm) pulls about 12 times the
+ * weight at the end of its range; twice that leaves room for such designs and still catches
+ * springs whose pull is out of proportion (the issue's 3 mm anchor pulls 133 times). Common
+ * practice, no source. */
+export const SPRING_FORCE_RATIO_LIMIT = 25;
+/** A spring whose largest lever arm over the range is below this share of the weight's largest
+ * is flagged: balanced, it must then pull more than the force ratio above (F a_spring = W a_weight
+ * for a balanced pivot), so the two rules agree where the arm is balanced and this one also
+ * catches a spring too weak to balance yet placed where it could never do it without a huge
+ * force. Common practice, no source. */
+export const SPRING_LEVER_SHARE_LIMIT = 1 / SPRING_FORCE_RATIO_LIMIT;
+/** The lever rule counts for a spring that pulls at least this many times the weight somewhere:
+ * a weaker one loads nothing much, and whether it balances is balance.unbalanced's question. */
+const LEVER_RULE_LEAST_RATIO = 1;
+/** A lever arm below this (0.1 mm) is a hook on the pivot, which geometry.spring-toggle reports. */
+const ON_PIVOT_M = 1e-4;
+/** Below this weight (N) the arm carries nothing worth balancing. */
+const NEGLIGIBLE_WEIGHT_N = 1e-6;
+
+type TwoEnded = Exclude<Spring, { kind: "torsion" }>;
+
+/** Bodies the joint carries: its child and every body whose chain to the base passes through it. */
+function carried(model: ArmModel, joint: Joint): Set<string> {
+  const out = new Set<string>();
+  for (const b of model.bodies) {
+    if (b.kind === "base") continue;
+    if (b.id === joint.child || chainToBase(model, b.id).some((j) => j.id === joint.id)) out.add(b.id);
+  }
+  return out;
+}
+
+interface Weighed {
+  /** Total weight carried, N, and the horizontal distance of its centre from the pivot, m. */
+  weight: number;
+  arm: number;
+}
+
+function weighAt(
+  model: ArmModel,
+  pose: Pose,
+  bodies: Set<string>,
+  masses: Record<string, number>,
+  pivot: { x: number },
+): Weighed {
+  let w = 0;
+  let moment = 0;
+  const add = (m: number, x: number) => {
+    w += m * model.gravity;
+    moment += m * model.gravity * (x - pivot.x);
+  };
+  for (const b of model.bodies)
+    if (bodies.has(b.id) && pose.bodies[b.id] && b.mass > 0)
+      add(b.mass, worldPoint(pose, b.id, b.centreOfMass, model).x);
+  for (const p of model.payloads)
+    if (bodies.has(p.body) && pose.bodies[p.body])
+      add(masses[p.id] ?? p.mass, worldPoint(pose, p.body, p.point, model).x);
+  return { weight: w, arm: w > 0 ? Math.abs(moment / w) : 0 };
+}
+
+export function checkSpringLeverage(ctx: CheckContext): void {
+  for (const s of ctx.model.springs) if (s.kind !== "torsion") checkSpring(ctx, s);
+}
+
+function checkSpring(ctx: CheckContext, s: TwoEnded): void {
+  const { model, sweep } = ctx;
+  const joint = workingJoint(model, sweep, s);
+  if (!joint) return;
+  const bodies = carried(model, joint);
+  // The hook is the end on a carried body; the other end is the anchor.
+  const hookEnd = bodies.has(s.b.body) ? "b" : bodies.has(s.a.body) ? "a" : undefined;
+  if (!hookEnd) return;
+  const hookBody = model.bodies.find((b) => b.id === s[hookEnd].body);
+  let worst: { ratio: number; force: number; weight: number; pose: Pose; ci: number } | undefined;
+  let springArm = 0;
+  let weightArm = 0;
+  let reaction = 0;
+  let compression = 0;
+  for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    const st = pose.springs[s.id];
+    if (!st) continue;
+    const pivot = worldPoint(pose, joint.parent, joint.parentPoint, model);
+    const hook = hookEnd === "b" ? st.b : st.a;
+    const anchor = hookEnd === "b" ? st.a : st.b;
+    const along = { x: anchor.x - hook.x, y: anchor.y - hook.y };
+    const length = Math.hypot(along.x, along.y);
+    if (length > 0)
+      springArm = Math.max(
+        springArm,
+        Math.abs(along.x * (pivot.y - hook.y) - along.y * (pivot.x - hook.x)) / length,
+      );
+    // Unit vector from the hook toward the pivot: the part of the pull along it squeezes the bar.
+    const toPivot = { x: pivot.x - hook.x, y: pivot.y - hook.y };
+    const reach = Math.hypot(toPivot.x, toPivot.y);
+    pose.cases.forEach((c, ci) => {
+      const tension = c.springForce[s.id] ?? 0;
+      const weighed = weighAt(model, pose, bodies, payloadMasses(model, sweep, ci), pivot);
+      weightArm = Math.max(weightArm, weighed.arm);
+      const r = c.reactions[joint.id];
+      if (r) reaction = Math.max(reaction, Math.hypot(r.x, r.y));
+      if (length > 0 && reach > 0)
+        compression = Math.max(
+          compression,
+          (tension * (along.x * toPivot.x + along.y * toPivot.y)) / (length * reach),
+        );
+      if (!(weighed.weight > NEGLIGIBLE_WEIGHT_N)) return;
+      const ratio = Math.abs(tension) / weighed.weight;
+      if (!worst || ratio > worst.ratio)
+        worst = { ratio, force: Math.abs(tension), weight: weighed.weight, pose, ci };
+    });
+  }
+  if (!worst) return;
+  const leverShare = weightArm > 0 ? springArm / weightArm : Infinity;
+  const forceTooBig = worst.ratio > SPRING_FORCE_RATIO_LIMIT;
+  const leverTooSmall =
+    leverShare < SPRING_LEVER_SHARE_LIMIT && springArm >= ON_PIVOT_M && worst.ratio >= LEVER_RULE_LEAST_RATIO;
+  if (!forceTooBig && !leverTooSmall) return;
+  const where = describePose(sweep, worst.pose, worst.ci);
+  const why = `its lever arm about ${joint.id} is at most ${show(springArm, "length")} against the ${show(weightArm, "length")} of the weight's`;
+  const effects = [
+    `the pin of ${joint.id} carries up to ${show(reaction, "force")}`,
+    `its hooks and anchor take the full pull`,
+    ...(hookBody && compression > 0
+      ? [
+          `${bodyWord(hookBody)} is squeezed by up to ${show(compression, "force")} between its hook and the pivot`,
+        ]
+      : []),
+  ];
+  ctx.findings.push(
+    finding(
+      "geometry.spring-leverage",
+      spanOf(s.origin, "between"),
+      `spring ${s.id} pulls ${show(worst.force, "force")} to hold ${show(worst.weight, "force")} of weight (${formatRatio(worst.ratio)} times, ${where}) because ${why}: ${effects.join("; ")}. Move its anchor farther from the pivot (or its hook farther out) so a weaker spring does the same work`,
+      {
+        related: [
+          {
+            span: joint.origin.name ?? joint.origin.declaration,
+            message: `the pivot it works about: ${joint.id}`,
+          },
+          ...(hookBody
+            ? [
+                {
+                  span: hookBody.origin.name ?? hookBody.origin.declaration,
+                  message: `${bodyWord(hookBody)} carries its hook`,
+                },
+              ]
+            : []),
+        ],
+        data: {
+          subject: s.id,
+          joint: joint.id,
+          force: worst.force,
+          weight: worst.weight,
+          ratio: worst.ratio,
+          leverArm: springArm,
+          weightArm,
+          pinReaction: reaction,
+          ...(hookBody && compression > 0 ? { body: hookBody.id, compression } : {}),
+        },
+      },
+    ),
+  );
+}
+
+function formatRatio(r: number): string {
+  return r >= 10 ? String(Math.round(r)) : r.toFixed(1);
+}
