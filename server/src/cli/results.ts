@@ -2,6 +2,7 @@
 // (checks/results.ts builds the record), as JSON in cli.md's shape or as lines to read.
 // Exit 0 no errors, 1 the spec has errors, 2 the command could not run.
 import { analyse } from "../analysis";
+import { CLI_BUDGET_MS } from "../limits";
 import { buildResults, resultsJson, type FigureMap, type ResultsRecord } from "../checks/results";
 import { formatNumber } from "../units/format";
 import { TABLE_UNITS, toTableUnit } from "../units/table-units";
@@ -40,7 +41,7 @@ export function resultsOf(
   text: string,
   units: UnitSystem,
 ): { json: Record<string, unknown>; record: ResultsRecord; errors: string[]; solved: boolean } {
-  const analysis = analyse(text);
+  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
   const record = buildResults(analysis);
   return {
     json: resultsJson(record, units),
