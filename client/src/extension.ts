@@ -67,7 +67,11 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
       if (client && doc?.languageId === "counterpoise")
         await client.sendRequest(REANALYSE_REQUEST, { uri: doc.uri.toString() });
     }),
-    vscode.window.onDidChangeActiveTextEditor(() => status.follow(vscode.window.activeTextEditor?.document)),
+    // Focus in the drawing panel (a webview) leaves no active text editor: keep the spec's figures
+    // while its editor is still on screen, and hide them only when no editor is.
+    vscode.window.onDidChangeActiveTextEditor((editor) => {
+      if (editor || vscode.window.visibleTextEditors.length === 0) status.follow(editor?.document);
+    }),
     vscode.workspace.onDidCloseTextDocument((doc) => status.forget(doc.uri.toString())),
   );
 

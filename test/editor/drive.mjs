@@ -413,6 +413,12 @@ async function drawing() {
   );
   await sleep(400);
   await shot("06-drawing-slider-end");
+  const whileInPanel = await statusItem();
+  verdict(
+    /hand .* · safety/.test(whileInPanel),
+    "the status bar keeps the spec's figures while the drawing panel has the focus",
+    `status bar item "${whileInPanel}" with the slider focused`,
+  );
 
   // A click on the spring in the drawing reveals its declaration.
   const decl = locate(text, /spring (lift) \{/);
