@@ -187,6 +187,72 @@ describe("holding torque equals dV/dtheta (virtual work)", () => {
   }
 });
 
+/** Gravity potential of the bodies and the payloads (payload masses as given), J. */
+function gravityPotential(model: ArmModel, pose: Pose, payloadMass: Record<string, number>): number {
+  let v = 0;
+  for (const b of model.bodies)
+    if (b.kind !== "base") v += b.mass * G0 * world(pose, model, b.id, b.centreOfMass).y;
+  for (const p of model.payloads)
+    v += (payloadMass[p.id] ?? p.mass) * G0 * world(pose, model, p.body, p.point).y;
+  return v;
+}
+
+/** Potential of the payloads' steady forces, J: -F . p. */
+function loadPotential(model: ArmModel, pose: Pose): number {
+  let v = 0;
+  for (const p of model.payloads) {
+    const at = world(pose, model, p.body, p.point);
+    v -= (p.force?.x ?? 0) * at.x + (p.force?.y ?? 0) * at.y;
+  }
+  return v;
+}
+
+describe("the holding torque's parts equal dV/dtheta of their own potentials", () => {
+  for (const seed of [1, 2, 5, 6]) {
+    it(`random linkage ${seed}: gravity, each spring and the steady load, in every load case`, () => {
+      const model = randomArm(seed);
+      const tool = model.payloads[0]!;
+      tool.massRange = [0.5 * tool.mass, 1.5 * tool.mass];
+      const h = 1e-4;
+      for (const j of model.joints) if (j.mode === "range") j.range = [j.angle - h, j.angle + h];
+      model.sweep = { steps: 3, grid: false };
+      const sweep = solveSweep(model);
+      expect(sweep.findings).toEqual([]);
+      expect(sweep.loadCases).toHaveLength(3);
+      sweep.dofs.forEach((dof, d) => {
+        const lo = sweep.poses[3 * d]!;
+        const mid = sweep.poses[3 * d + 1]!;
+        const hi = sweep.poses[3 * d + 2]!;
+        const slope = (v: (p: Pose) => number) => (v(hi) - v(lo)) / (2 * h);
+        for (const s of model.springs) {
+          // Principle of virtual work (Haug 1989, ch. 6): each spring's part is dV_spring/dtheta
+          expect(mid.springTorque![s.id]![dof.id]).toBeCloseTo(
+            slope((p) => springEnergy(model, s, p)),
+            5,
+          );
+        }
+        // The same principle for the steady forces: their part is d(-F . p)/dtheta
+        const load = slope((p) => loadPotential(model, p));
+        sweep.loadCases.forEach((lc, c) => {
+          const statics = mid.cases[c]!;
+          // and for gravity at this case's masses: d(sum m g y)/dtheta
+          expect(statics.gravityTorque![dof.id]).toBeCloseTo(
+            slope((p) => gravityPotential(model, p, lc.payloadMass)),
+            5,
+          );
+          expect(statics.loadTorque![dof.id]).toBeCloseTo(load, 5);
+          const springs = Object.values(mid.springTorque!).reduce((sum, t) => sum + t[dof.id]!, 0);
+          // The parts of one linear system's right-hand side add up to its solution (superposition).
+          expect(statics.gravityTorque![dof.id]! + springs + statics.loadTorque![dof.id]!).toBeCloseTo(
+            statics.holdingTorque[dof.id]!,
+            9,
+          );
+        });
+      });
+    });
+  }
+});
+
 describe("free-body balance of every body", () => {
   for (const seed of [11, 12, 13, 14, 15, 16]) {
     it(`random linkage ${seed}: forces and moments of each body sum to zero`, () => {

@@ -1,41 +1,14 @@
-// The view model from a hand-built analysis: the torque split against the published closed form,
-// parts marked, slices and the envelope.
+// The view model from a hand-built analysis: parts marked, slices and the envelope (the torque
+// parts against the published closed form: torque-parts.test.ts).
 import { describe, expect, it } from "vitest";
 import { buildViewModel } from "../../server/src/view/build-view-model";
 import { nearestPose, thinPoses } from "../../server/src/view/pose-lines";
 import type { Pose } from "../../server/src/mechanics/types";
-import { A, B, G, L_ARM, M, PIVOT_Y, pendulumAnalysis } from "./pendulum-fixture";
+import { A, B, L_ARM, PIVOT_Y, pendulumAnalysis } from "./pendulum-fixture";
 
 const RATE = 550;
 const vm = buildViewModel(pendulumAnalysis(RATE));
 const rad = (deg: number) => (deg * Math.PI) / 180;
-
-describe("torque split by virtual work", () => {
-  it("gravity part is m g l cos(theta)", () => {
-    for (const pose of vm.poses) {
-      const theta = rad(pose.anglesDeg[0]!);
-      // Streit and Gilmore 1989 (references.md, gravity balancing): the payload's share of the
-      // holding torque of a pivoting link is m g l cos(theta). Central differences over a 5 deg
-      // grid carry an error of order (h^2/6), so 1 % of m g l.
-      expect(pose.gravityTorque[0]!).toBeCloseTo(M * G * L_ARM * Math.cos(theta), 1);
-    }
-  });
-
-  it("spring part is -k a b cos(theta) and the parts add up to the sweep's net torque", () => {
-    for (const pose of vm.poses) {
-      const theta = rad(pose.anglesDeg[0]!);
-      // Streit and Gilmore 1989: a zero-free-length spring from a point a above the pivot to b
-      // along the link contributes -k a b cos(theta) to the holding torque.
-      expect(pose.springTorque[0]!).toBeCloseTo(-RATE * A * B * Math.cos(theta), 1);
-      // Same source: tau = (m g l - k a b) cos(theta), the sum of both parts.
-      expect(pose.gravityTorque[0]! + pose.springTorque[0]! + pose.loadTorque[0]!).toBeCloseTo(
-        (M * G * L_ARM - RATE * A * B) * Math.cos(theta),
-        1,
-      );
-      expect(pose.netTorque[0]!).toBeCloseTo((M * G * L_ARM - RATE * A * B) * Math.cos(theta), 3);
-    }
-  });
-});
 
 describe("view model", () => {
   it("marks the part a failing finding points at", () => {

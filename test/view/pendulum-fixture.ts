@@ -180,8 +180,11 @@ export function pendulumPose(index: number, theta: number, rate: number): Pose {
         reactions: {},
         lockedTorque: {},
         springForce: { lift: rate * length },
+        gravityTorque: { shoulder: M * G * L_ARM * Math.cos(theta) },
+        loadTorque: { shoulder: 0 },
       },
     ],
+    springTorque: { lift: { shoulder: -rate * A * B * Math.cos(theta) } },
   };
 }
 

@@ -370,6 +370,7 @@ export class PoseSolver {
     const springs: Record<string, SpringState> = {};
     const springForce: Record<string, number> = {};
     const springTorquePerUnit: Record<string, Record<string, number>> = {};
+    const springTorque: Record<string, Record<string, number>> = {};
     this.qSprings.fill(0);
     for (const ps of this.pointSprings) {
       const wa = this.world(ps.a, ps.ax, ps.ay);
@@ -388,7 +389,8 @@ export class PoseSolver {
         this.addForce(this.unit, ps.b, ps.bx, ps.by, -ux, -uy);
       }
       for (let i = 0; i < n; i++) this.qSprings[i]! += tension * this.unit[i]!;
-      springTorquePerUnit[ps.spring.id] = this.holdingPerUnit();
+      springTorquePerUnit[ps.spring.id] = this.holdingFrom(this.unit);
+      springTorque[ps.spring.id] = scaled(springTorquePerUnit[ps.spring.id]!, tension);
     }
     for (const t of this.torsions) {
       const theta = this.jointAngle(t.joint);
@@ -408,7 +410,8 @@ export class PoseSolver {
       if (p >= 0) this.unit[3 * p + 2]! += 1;
       if (c >= 0) this.unit[3 * c + 2]! -= 1;
       for (let i = 0; i < n; i++) this.qSprings[i]! += torque * this.unit[i]!;
-      springTorquePerUnit[t.spring.id] = this.holdingPerUnit();
+      springTorquePerUnit[t.spring.id] = this.holdingFrom(this.unit);
+      springTorque[t.spring.id] = scaled(springTorquePerUnit[t.spring.id]!, torque);
     }
 
     // Gravity on every body's centre of mass.
@@ -418,6 +421,7 @@ export class PoseSolver {
       if (b === undefined || b < 0 || body.mass === 0) continue;
       this.addForce(this.qBodies, b, body.centreOfMass.x, body.centreOfMass.y, 0, -body.mass * gravity);
     }
+    const bodiesGravityTorque = this.holdingFrom(this.qBodies);
 
     // Payload Jacobians dp/dtheta from the tangents.
     const payloadJacobian: Record<string, Record<string, Vec2>> = {};
@@ -480,6 +484,24 @@ export class PoseSolver {
         const ry = L.revRow[2 * ji + 1]!;
         reactions[j.id] = { x: rx >= 0 ? this.lambda[rx]! : 0, y: ry >= 0 ? this.lambda[ry]! : 0 };
       });
+      // The parts of that torque. Holding torque is the generalized force's virtual work along
+      // each dof's tangent (lambda_d = t_d . Q), so a force F at a payload's centre adds
+      // -(dp/dtheta) . F: the payload Jacobian gives the payloads' weights and steady forces.
+      const gravityTorque: Record<string, number> = {};
+      const loadTorque: Record<string, number> = {};
+      L.dofs.forEach((d, i) => {
+        let weight = bodiesGravityTorque[d.id]!;
+        let load = 0;
+        model.payloads.forEach((p, k) => {
+          if (payloadBody[k]! < 0) return;
+          const jx = payloadJ[k]![2 * i]!;
+          const jy = payloadJ[k]![2 * i + 1]!;
+          weight += (lc.payloadMass[p.id] ?? p.mass) * gravity * jy;
+          if (p.force) load -= p.force.x * jx + p.force.y * jy;
+        });
+        gravityTorque[d.id] = weight;
+        loadTorque[d.id] = load;
+      });
       const handForce: Record<string, number> = {};
       const handForceVectorRec: Record<string, Vec2> = {};
       model.payloads.forEach((p, k) => {
@@ -495,17 +517,36 @@ export class PoseSolver {
         reactions,
         lockedTorque,
         springForce,
+        gravityTorque,
+        loadTorque,
       };
     });
-    return { index, angles, jointAngles, bodies, springs, cases, payloadJacobian, springTorquePerUnit };
+    return {
+      index,
+      angles,
+      jointAngles,
+      bodies,
+      springs,
+      cases,
+      payloadJacobian,
+      springTorquePerUnit,
+      springTorque,
+    };
   }
 
-  /** Holding torque per dof caused by the generalized force in `unit` (sign: what the hand adds). */
-  private holdingPerUnit(): Record<string, number> {
+  /** Holding torque per dof caused by the generalized force Q (sign: what the hand adds). */
+  private holdingFrom(Q: Float64Array): Record<string, number> {
     const L = this.linkage;
-    this.luCurrent.solveTransposed(this.unit, this.lambda);
+    this.luCurrent.solveTransposed(Q, this.lambda);
     const out: Record<string, number> = {};
     L.dofs.forEach((d, i) => (out[d.id] = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!));
     return out;
   }
+}
+
+/** Each value of a per-dof record times `factor`. */
+function scaled(perDof: Record<string, number>, factor: number): Record<string, number> {
+  const out: Record<string, number> = {};
+  for (const [id, v] of Object.entries(perDof)) out[id] = v * factor;
+  return out;
 }

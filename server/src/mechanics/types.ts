@@ -50,6 +50,13 @@ export interface PoseStatics {
   /** The hand force itself, world, N, by payload id: the least force at the payload's centre
    * that holds the pose (its magnitude is `handForce`). Added by the mechanics core. */
   handForceVector?: Record<string, Vec2>;
+  /** The part of `holdingTorque` that gravity causes (the bodies' weights and the payloads' at this
+   * case's masses), N*m, by dof id. With `loadTorque` and the springs' parts
+   * (`Pose.springTorque`) it adds up to `holdingTorque` (to round-off). Added by the mechanics core. */
+  gravityTorque?: Record<string, number>;
+  /** The part of `holdingTorque` that the payloads' steady working forces cause, N*m, by dof id.
+   * Added by the mechanics core. */
+  loadTorque?: Record<string, number>;
 }
 
 export interface Pose {
@@ -70,6 +77,10 @@ export interface Pose {
    * torsion: per N*m of its torque T), by spring then dof id: holding torque is affine in each
    * spring's force, which the best-fit readouts use. Added by the mechanics core. */
   springTorquePerUnit?: Record<string, Record<string, number>>;
+  /** Each spring's part of the holding torque (its force times `springTorquePerUnit`), N*m, by
+   * spring then dof id; the same in every load case, since a spring's force depends on the pose
+   * alone. Added by the mechanics core. */
+  springTorque?: Record<string, Record<string, number>>;
 }
 
 export interface SweepResult {

@@ -1,7 +1,7 @@
 // Builds the arm view model (view-model.ts) from an analysis: model + sweep + findings + readouts.
 // Pure: no IO; the preview request and `poise report` both call it.
 import type { ArmModel, Body, Vec2 } from "../model/types";
-import type { SweepResult } from "../mechanics/types";
+import type { Pose, SweepResult } from "../mechanics/types";
 import type { Finding } from "../findings/finding";
 import type { Readouts } from "../checks/readout";
 import type { Span } from "../syntax/span";
@@ -18,7 +18,6 @@ import type {
   SafetyRow,
 } from "./view-model";
 import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
-import { splitHoldingTorque, TORQUE_METHOD } from "./torque-split";
 import { payloadPaths, viewBounds } from "./envelope";
 import { buildResults } from "../checks/results";
 
@@ -30,6 +29,12 @@ export interface ViewInput {
   findings: readonly Finding[];
   readouts: Readouts;
 }
+
+/** How the torque plots' parts were found, for their caption. */
+export const TORQUE_METHOD =
+  "Gravity, spring and steady-load parts straight from the solver's statics at each pose: each is " +
+  "the torque that holds against those forces alone (their virtual work along the degree of " +
+  "freedom), and together they make the net torque.";
 
 const MM = 1000;
 const DEG = 180 / Math.PI;
@@ -172,9 +177,16 @@ function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): 
   };
 }
 
-function viewPoses(model: ArmModel, sweep: SweepResult, lines: number[][][]): ViewPose[] {
-  const split = splitHoldingTorque(model, sweep, lines);
-  return sweep.poses.map((pose, p) => {
+/** The springs' part of a pose's holding torque at a dof: the sum of each spring's part. */
+function springsPart(pose: Pose, dofId: string): number {
+  if (!pose.springTorque) return NaN;
+  let sum = 0;
+  for (const perDof of Object.values(pose.springTorque)) sum += perDof[dofId] ?? 0;
+  return sum;
+}
+
+function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
+  return sweep.poses.map((pose) => {
     const bodies: ViewPose["bodies"] = {};
     for (const [id, b] of Object.entries(pose.bodies))
       bodies[id] = [r2(b.x * MM), r2(b.y * MM), r4(b.phi * DEG)];
@@ -190,9 +202,9 @@ function viewPoses(model: ArmModel, sweep: SweepResult, lines: number[][][]): Vi
       bodies,
       springs,
       netTorque: sweep.dofs.map((d) => r4(nominal?.holdingTorque[d.id] ?? NaN)),
-      gravityTorque: sweep.dofs.map((_, d) => r4(split.gravity[d]![p]!)),
-      springTorque: sweep.dofs.map((_, d) => r4(split.spring[d]![p]!)),
-      loadTorque: sweep.dofs.map((_, d) => r4(split.load[d]![p]!)),
+      gravityTorque: sweep.dofs.map((d) => r4(nominal?.gravityTorque?.[d.id] ?? NaN)),
+      springTorque: sweep.dofs.map((d) => r4(springsPart(pose, d.id))),
+      loadTorque: sweep.dofs.map((d) => r4(nominal?.loadTorque?.[d.id] ?? NaN)),
       handForce,
       springForce: Object.fromEntries(Object.entries(nominal?.springForce ?? {}).map(([k, v]) => [k, r4(v)])),
     };
@@ -324,7 +336,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   const dofIds = poses.dofs.map((d) => d.id);
   vm.lines = linesPerDof(poses.poses, dofIds);
   vm.loadCases = poses.loadCases.map((c) => ({ id: c.id, label: c.label }));
-  vm.poses = viewPoses(model, poses, vm.lines);
+  vm.poses = viewPoses(model, poses);
   vm.dofs = poses.dofs.map((d, i) => ({
     id: d.id,
     rangeDeg: [r4(d.range[0] * DEG), r4(d.range[1] * DEG)],

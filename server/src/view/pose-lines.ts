@@ -1,5 +1,5 @@
 // Finds, in a sweep's pose list, the runs along which one degree of freedom moves and the others
-// stay put (for plots and finite differences), and the pose nearest a set of slider values.
+// stay put (for plots and the envelope), and the pose nearest a set of slider values.
 import type { Pose } from "../mechanics/types";
 
 /** Angles closer than this are the same grid value: the sweep writes each grid value once, so

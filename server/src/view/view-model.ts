@@ -79,7 +79,8 @@ export interface ViewPose {
   springs: Record<string, [number, number, number, number]>;
   /** Holding torque from the sweep, N*m, in `dofs` order. */
   netTorque: number[];
-  /** Its parts by virtual work (see torque-split.ts), N*m, in `dofs` order. */
+  /** Its parts from the solver's statics (gravity, the springs together, the steady loads), N*m,
+   * in `dofs` order. */
   gravityTorque: number[];
   springTorque: number[];
   loadTorque: number[];
