@@ -6,6 +6,7 @@
 import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 import type { BeamPointLoad } from "./structure/beam";
+import { toWorld, unturnedX, unturnedY, worldX, worldY } from "./plane";
 
 export type LoadKind =
   "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
@@ -76,9 +77,7 @@ export function worldPoint(pose: Pose, bodyId: string, localPoint: Vec2, model: 
   if (body?.kind === "base") return { x: localPoint.x, y: localPoint.y };
   const bp = pose.bodies[bodyId];
   if (!bp) return { x: NaN, y: NaN };
-  const c = Math.cos(bp.phi);
-  const s = Math.sin(bp.phi);
-  return { x: bp.x + c * localPoint.x - s * localPoint.y, y: bp.y + s * localPoint.x + c * localPoint.y };
+  return toWorld(bp, localPoint);
 }
 
 export function bodyLoads(
@@ -177,14 +176,14 @@ export function localBeamLoads(
   const g = model.gravity;
   const c = Math.cos(bp.phi);
   const s = Math.sin(bp.phi);
-  // World points of this body's local points use worldPoint's arithmetic (the base: as given).
+  // World points of this body's local points as worldPoint gives them (the base: as given).
   const base = ix.bodies.get(bodyId)?.kind === "base";
   let n = 0;
   for (const p of ix.payloads.get(bodyId) ?? []) {
     const lx = p.point.x;
     const ly = p.point.y;
-    const px = base ? lx : bp.x + c * lx - s * ly;
-    const py = base ? ly : bp.y + s * lx + c * ly;
+    const px = base ? lx : worldX(bp.x, c, s, lx, ly);
+    const py = base ? ly : worldY(bp.y, c, s, lx, ly);
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     n = putLocalLoad(out, n, bp, c, s, px, py, 0, -mass * g, 0);
     if (p.force && (p.force.x !== 0 || p.force.y !== 0))
@@ -208,8 +207,8 @@ export function localBeamLoads(
     if (!r) continue;
     // The pivot on this body: its child point when it is the child, else its parent point.
     const lp = side === 1 ? j.childPoint : j.parentPoint;
-    const px = base ? lp.x : bp.x + c * lp.x - s * lp.y;
-    const py = base ? lp.y : bp.y + s * lp.x + c * lp.y;
+    const px = base ? lp.x : worldX(bp.x, c, s, lp.x, lp.y);
+    const py = base ? lp.y : worldY(bp.y, c, s, lp.x, lp.y);
     n = putLocalLoad(out, n, bp, c, s, px, py, side * r.x, side * r.y, 0);
     const hold = statics.holdingTorque[j.id];
     if (hold !== undefined && dofJoints.has(j.id))
@@ -259,10 +258,10 @@ function putLocalLoad(
   const dy = py - bp.y;
   let l = out[n];
   if (!l) out[n] = l = { s: 0, offset: 0, fx: 0, fy: 0, couple: 0 };
-  l.s = c * dx + s * dy;
-  l.offset = -s * dx + c * dy;
-  l.fx = c * forceX + s * forceY;
-  l.fy = -s * forceX + c * forceY;
+  l.s = unturnedX(c, s, dx, dy);
+  l.offset = unturnedY(c, s, dx, dy);
+  l.fx = unturnedX(c, s, forceX, forceY);
+  l.fy = unturnedY(c, s, forceX, forceY);
   l.couple = couple;
   return n + 1;
 }

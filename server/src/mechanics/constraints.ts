@@ -1,6 +1,7 @@
 // Constraint equations of the planar linkage in absolute coordinates q = (x, y, phi) per moving
 // body, and their analytic Jacobian (Nikravesh 1988, ch. 3; Haug 1989, ch. 3). The base is
 // fixed (index -1: x = y = phi = 0, local frame = world).
+import { worldX, worldY } from "./plane";
 
 /** Row kinds: the x and y components of a revolute joint, or a driving constraint. */
 export const ROW_REVOLUTE_X = 0;
@@ -90,11 +91,11 @@ export function constraintResidual(cs: ConstraintSet, q: Float64Array, out: Floa
       let wp: number;
       let wc: number;
       if (k === ROW_REVOLUTE_X) {
-        wp = p >= 0 ? q[3 * p]! + cs.cos[p]! * spx - cs.sin[p]! * spy : spx;
-        wc = c >= 0 ? q[3 * c]! + cs.cos[c]! * scx - cs.sin[c]! * scy : scx;
+        wp = p >= 0 ? worldX(q[3 * p]!, cs.cos[p]!, cs.sin[p]!, spx, spy) : spx;
+        wc = c >= 0 ? worldX(q[3 * c]!, cs.cos[c]!, cs.sin[c]!, scx, scy) : scx;
       } else {
-        wp = p >= 0 ? q[3 * p + 1]! + cs.sin[p]! * spx + cs.cos[p]! * spy : spy;
-        wc = c >= 0 ? q[3 * c + 1]! + cs.sin[c]! * scx + cs.cos[c]! * scy : scy;
+        wp = p >= 0 ? worldY(q[3 * p + 1]!, cs.cos[p]!, cs.sin[p]!, spx, spy) : spy;
+        wc = c >= 0 ? worldY(q[3 * c + 1]!, cs.cos[c]!, cs.sin[c]!, scx, scy) : scy;
       }
       v = wp - wc;
     }

@@ -1,6 +1,7 @@
 // The joint graph of an arm: which bodies the base reaches, the spanning tree walked from the
 // base (each joint at its angle places the next body) and the joints that close loops.
 import type { ArmModel, Joint } from "../model/types";
+import { toWorld, turnedX, turnedY, worldX, worldY } from "./plane";
 
 import { MAX_SOLVED_BODIES } from "../limits";
 
@@ -136,12 +137,12 @@ export function placeTree(graph: JointGraph, angles: Float64Array, q: Float64Arr
     const pt = forward ? pf + angles[joint]! : pf - angles[joint]!;
     const cf = Math.cos(pf);
     const sf = Math.sin(pf);
-    const wx = xf + cf * sFrom.x - sf * sFrom.y;
-    const wy = yf + sf * sFrom.x + cf * sFrom.y;
+    const wx = worldX(xf, cf, sf, sFrom.x, sFrom.y);
+    const wy = worldY(yf, cf, sf, sFrom.x, sFrom.y);
     const ct = Math.cos(pt);
     const st = Math.sin(pt);
-    q[3 * to] = wx - (ct * sTo.x - st * sTo.y);
-    q[3 * to + 1] = wy - (st * sTo.x + ct * sTo.y);
+    q[3 * to] = wx - turnedX(ct, st, sTo.x, sTo.y);
+    q[3 * to + 1] = wy - turnedY(ct, st, sTo.x, sTo.y);
     q[3 * to + 2] = pt;
   }
 }
@@ -154,10 +155,7 @@ export function worldPointFromQ(
   y: number,
 ): { x: number; y: number } {
   if (body < 0) return { x, y };
-  const phi = q[3 * body + 2]!;
-  const c = Math.cos(phi);
-  const s = Math.sin(phi);
-  return { x: q[3 * body]! + c * x - s * y, y: q[3 * body + 1]! + s * x + c * y };
+  return toWorld({ x: q[3 * body]!, y: q[3 * body + 1]!, phi: q[3 * body + 2]! }, { x, y });
 }
 
 /** Relative angle child minus parent from q. */

@@ -16,6 +16,7 @@ import { MAX_SOLVED_BODIES } from "../limits";
 import { jointBlocks } from "./joint-blocks";
 import { referencePose, LOOP_ANGLE_TOLERANCE, LOOP_GAP_TOLERANCE } from "./reference-pose";
 import { formatAngle, formatLength } from "./format";
+import { turnedX, turnedY } from "./plane";
 
 /** A row counts as independent of the rows kept before it when more than this fraction of it
  * is left after projecting out theirs: rows are scaled to order 1, so 1e-8 separates true
@@ -140,7 +141,8 @@ export function buildLinkage(model: ArmModel): Linkage | undefined {
       const sp = Math.sin(phi);
       v[3 * local + axis]! += sign;
       // d/dphi of the rotated point's x (or y) component
-      v[3 * local + 2]! += (sign * (axis === 0 ? -sp * s.x - cp * s.y : cp * s.x - sp * s.y)) / lengthScale;
+      v[3 * local + 2]! +=
+        (sign * (axis === 0 ? -turnedY(cp, sp, s.x, s.y) : turnedX(cp, sp, s.x, s.y))) / lengthScale;
     };
     put(p, lp, j.parentPoint, 1);
     put(c, lc, j.childPoint, -1);

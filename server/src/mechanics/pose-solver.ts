@@ -14,6 +14,7 @@ import { handForceVector } from "./hand-force";
 import { wrapNear } from "./joint-graph";
 import type { Linkage } from "./linkage";
 import { pastDeadline } from "../stop";
+import { turnedX, turnedY, worldX, worldY } from "./plane";
 
 /** Converged when every constraint is met within 1e-10 (m, or rad for drives): a tenth of a
  * nanometre, far below any displayed digit and about 1e4 x the round-off of arm-sized numbers. */
@@ -315,7 +316,7 @@ export class PoseSolver {
     const cs = this.linkage.cs;
     const c = cs.cos[body]!;
     const s = cs.sin[body]!;
-    return { x: this.q[3 * body]! + c * x - s * y, y: this.q[3 * body + 1]! + s * x + c * y };
+    return { x: worldX(this.q[3 * body]!, c, s, x, y), y: worldY(this.q[3 * body + 1]!, c, s, x, y) };
   }
 
   private addForce(
@@ -331,8 +332,8 @@ export class PoseSolver {
     const cs = this.linkage.cs;
     const c = cs.cos[body]!;
     const s = cs.sin[body]!;
-    const rx = c * x - s * y;
-    const ry = s * x + c * y;
+    const rx = turnedX(c, s, x, y);
+    const ry = turnedY(c, s, x, y);
     Q[3 * body]! += scale * fx;
     Q[3 * body + 1]! += scale * fy;
     Q[3 * body + 2]! += scale * (rx * fy - ry * fx);
@@ -435,8 +436,8 @@ export class PoseSolver {
       if (b !== undefined && b >= 0) {
         const c = cs.cos[b]!;
         const s = cs.sin[b]!;
-        const rx = c * p.point.x - s * p.point.y;
-        const ry = s * p.point.x + c * p.point.y;
+        const rx = turnedX(c, s, p.point.x, p.point.y);
+        const ry = turnedY(c, s, p.point.x, p.point.y);
         for (let d = 0; d < ndof; d++) {
           const o = d * n + 3 * b;
           const w = this.tangents[o + 2]!;

@@ -4,6 +4,7 @@
 // closes the loop.
 import { DenseLu } from "./dense-lu";
 import { placeTree, relativeAngle, worldPointFromQ, wrapNear, type JointGraph } from "./joint-graph";
+import { distance } from "./plane";
 
 /** Loops whose pivots still miss by more than this at the reference pose are open: 1 um is far
  * below any workshop tolerance and far above the solver's round-off (about 1e-12 m). */
@@ -133,7 +134,7 @@ export function referencePose(graph: JointGraph, lengthScale: number): Reference
     angles[c] = wrapNear(rel, j.angle);
     return {
       joint: c,
-      gap: Math.hypot(wp.x - wc.x, wp.y - wc.y),
+      gap: distance(wc, wp),
       angleMismatch: isHeld(j.mode) ? Math.abs(wrapNear(rel, j.angle) - j.angle) : 0,
     };
   });

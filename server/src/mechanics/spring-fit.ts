@@ -9,6 +9,7 @@ import type { ArmModel, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 import { springForceBasis, springParameters } from "./forces";
 import { handForceVector } from "./hand-force";
+import { rotate } from "./plane";
 
 /** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 30 reach
  * 5e-7 of the bracket, past the four significant digits a quick fix writes. */
@@ -273,12 +274,6 @@ export interface IdealRate {
   a: number;
   b: number;
   dofId: string;
-}
-
-function rotate(v: Vec2, phi: number): Vec2 {
-  const c = Math.cos(phi);
-  const s = Math.sin(phi);
-  return { x: c * v.x - s * v.y, y: s * v.x + c * v.y };
 }
 
 /** The zero-free-length ideal rate k = m g l / (a b) (Streit and Gilmore 1989), where the simple

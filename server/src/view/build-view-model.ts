@@ -7,6 +7,7 @@ import type { Readouts } from "../checks/readout";
 import type { Span } from "../syntax/span";
 import { LineIndex } from "../syntax/span";
 import { sectionProperties } from "../model/section";
+import { distance, nearestOnSegment } from "../mechanics/plane";
 import type {
   PartStatus,
   ViewBody,
@@ -114,14 +115,6 @@ function attachmentsOf(model: ArmModel, bodyId: string): Vec2[] {
   return pts;
 }
 
-function nearestOnSegment(p: Vec2, a: Vec2, b: Vec2): Vec2 {
-  const dx = b.x - a.x;
-  const dy = b.y - a.y;
-  const len2 = dx * dx + dy * dy;
-  const t = len2 > 0 ? Math.max(0, Math.min(1, ((p.x - a.x) * dx + (p.y - a.y) * dy) / len2)) : 0;
-  return { x: a.x + t * dx, y: a.y + t * dy };
-}
-
 /** The centre line of a body in local m: a link's start to end, a head's two far pivots, the
  * base's post from the bench up to its highest attachment. */
 function centreLine(model: ArmModel, body: Body, attachments: Vec2[]): Vec2[] {
@@ -163,7 +156,7 @@ function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): 
   for (const p of attachments) {
     let near: Vec2 | undefined;
     for (let i = 0; i + 1 < line.length; i++) near = nearestOnSegment(p, line[i]!, line[i + 1]!);
-    if (near && Math.hypot(p.x - near.x, p.y - near.y) > BRACKET_MIN_M)
+    if (near && distance(near, p) > BRACKET_MIN_M)
       brackets.push([r4(near.x * MM), r4(near.y * MM), r4(p.x * MM), r4(p.y * MM)]);
   }
   const depth = depthOf(model, body);

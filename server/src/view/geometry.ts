@@ -1,6 +1,7 @@
-// Places local body points (mm) into the world frame of a view pose: the one transform the
-// drawing, the envelope and the bounds share.
+// Places local body points (mm) into the world frame of a view pose (through the plane's one
+// body-to-world transform) for the drawing, the envelope and the bounds.
 import type { ViewModel, ViewPose } from "./view-model";
+import { toWorld } from "../mechanics/plane";
 
 const RAD = Math.PI / 180;
 
@@ -12,9 +13,8 @@ export function place(
 ): [number, number] | undefined {
   const b = pose.bodies[bodyId];
   if (!b) return undefined;
-  const c = Math.cos(b[2] * RAD);
-  const s = Math.sin(b[2] * RAD);
-  return [b[0] + c * local[0] - s * local[1], b[1] + s * local[0] + c * local[1]];
+  const w = toWorld({ x: b[0], y: b[1], phi: b[2] * RAD }, { x: local[0], y: local[1] });
+  return [w.x, w.y];
 }
 
 /** Every world point the drawing of one pose touches, for the bounds. */
