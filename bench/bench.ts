@@ -3,24 +3,22 @@
 // in a benchmark, not in the test suite). Add a section by appending to SECTIONS.
 import { existsSync, readFileSync, readdirSync } from "node:fs";
 import { join } from "node:path";
-import { analyse } from "../server/src/analysis";
+import { analyse, type AnalysisOptions } from "../server/src/analysis";
 import { solveSweep } from "../server/src/mechanics/sweep";
 import { DenseLu } from "../server/src/mechanics/dense-lu";
 import { buildLinkage } from "../server/src/mechanics/linkage";
 import type { ArmModel } from "../server/src/model/types";
 import { TYPICAL_ARM } from "./typical-arm";
 import { runLatencyBench } from "./latency";
-import { parse } from "../server/src/syntax/parser";
-import { typingSteps } from "../server/src/lsp/typing-density";
 import { DEFAULT_SETTINGS } from "../server/src/lsp/settings";
 
 /** Targets of the mechanics issue: a typical arm (up to 12 bodies, 3 dof) analysed end to end in
  * 20 ms, and a pose costing at most 5 bare LU solves of the same size. */
 export const MECHANICS_TARGETS = { typicalArmMs: 20, poseOverLu: 5 } as const;
 /** The `stepsWhileTyping` setting's default. The server sweeps at most this many steps per dof
- * while the user types, and fewer when the grid times the bodies passes its typing budget
- * (server/src/lsp/typing-density.ts): for the typical arm that is 6 steps, not 13. Both are
- * timed below; each says on its own whether it meets the target. */
+ * while the user types (a quick pass), and fewer when the grid times the bodies passes the sweep
+ * planner's work budget (server/src/mechanics/sweep-plan.ts): for the typical arm that is 6
+ * steps, not 13. Both are timed below; each says on its own whether it meets the target. */
 const TYPING_STEPS_SETTING = DEFAULT_SETTINGS.stepsWhileTyping;
 /** Repetitions: the median of several runs after a warm-up (the JIT compiles on first runs). */
 const RUNS = 7;
@@ -97,14 +95,15 @@ function bareLuMs(n: number): number {
   );
 }
 
-/** Steps per dof the language server uses for a while-typing run of this text (undefined: the
- * spec's own density), exactly as the server computes it. */
-function serverTypingSteps(text: string): number | undefined {
-  return typingSteps(parse(text), TYPING_STEPS_SETTING);
+/** The options of the language server's while-typing run (a quick pass at the setting's steps). */
+const WHILE_TYPING: AnalysisOptions = { quickSteps: TYPING_STEPS_SETTING };
+
+/** The density a run used, in words. */
+function densityOf(a: { sweep?: { steps: number; quick?: true } }): string {
+  return a.sweep?.quick ? `${a.sweep.steps} steps` : "its own";
 }
 
-function typicalAt(log: Log, label: string, steps: number | undefined): boolean {
-  const options = steps === undefined ? {} : { stepsOverride: steps };
+function typicalAt(log: Log, label: string, options: AnalysisOptions): boolean {
   const t0 = performance.now();
   let last = analyse(TYPICAL_ARM, options);
   const once = performance.now() - t0;
@@ -124,20 +123,20 @@ const endToEnd: Section = {
     for (const s of specs()) {
       let last = analyse(s.text);
       const full = timeMs(() => (last = analyse(s.text)));
-      const steps = serverTypingSteps(s.text);
-      const quick = steps === undefined ? full : timeMs(() => analyse(s.text, { stepsOverride: steps }));
+      let typed = analyse(s.text, WHILE_TYPING);
+      const quick = timeMs(() => (typed = analyse(s.text, WHILE_TYPING)));
       const poses = last.sweep?.poses.length ?? 0;
       const t = last.timings;
       log(
-        `  ${s.name}: ${full.toFixed(1)} ms for ${poses} poses (parse ${t.parse.toFixed(1)}, model ${t.model.toFixed(1)}, solve ${t.solve.toFixed(1)}, checks ${t.checks.toFixed(1)}); while typing (server density: ${steps === undefined ? "its own" : `${steps} steps`}) ${quick.toFixed(1)} ms`,
+        `  ${s.name}: ${full.toFixed(1)} ms for ${poses} poses (parse ${t.parse.toFixed(1)}, model ${t.model.toFixed(1)}, solve ${t.solve.toFixed(1)}, checks ${t.checks.toFixed(1)}); while typing (server density: ${densityOf(typed)}) ${quick.toFixed(1)} ms`,
       );
     }
     // The target row: the typical arm as the server analyses it while the user types.
-    const steps = serverTypingSteps(TYPICAL_ARM);
+    const typed = analyse(TYPICAL_ARM, WHILE_TYPING);
     return typicalAt(
       log,
-      `while typing at the server's density (${steps === undefined ? "its own" : `${steps} steps per dof`}, setting ${TYPING_STEPS_SETTING} lowered by the typing budget)`,
-      steps,
+      `while typing at the server's density (${densityOf(typed)} per dof, setting ${TYPING_STEPS_SETTING} lowered by the work budget)`,
+      WHILE_TYPING,
     );
   },
 };
@@ -145,7 +144,9 @@ const endToEnd: Section = {
 const typicalDenser: Section = {
   name: `typical arm at ${TYPING_STEPS_SETTING} steps per dof and at its own density (not what the server runs while typing)`,
   run(log) {
-    const grid = typicalAt(log, `${TYPING_STEPS_SETTING} steps per dof in a grid`, TYPING_STEPS_SETTING);
+    const grid = typicalAt(log, `${TYPING_STEPS_SETTING} steps per dof in a grid`, {
+      stepsOverride: TYPING_STEPS_SETTING,
+    });
     // The same arm with each degree of freedom swept alone (3 x steps poses instead of steps^3).
     const alone = TYPICAL_ARM.replace(/\}\s*$/, "  sweep {\n    grid off\n  }\n}\n");
     let last2 = analyse(alone, { stepsOverride: TYPING_STEPS_SETTING });
@@ -153,7 +154,7 @@ const typicalDenser: Section = {
     log(
       `  typical arm with grid off at ${TYPING_STEPS_SETTING} steps: ${aloneMs.toFixed(1)} ms median for ${last2.sweep?.poses.length ?? 0} poses: ${aloneMs <= MECHANICS_TARGETS.typicalArmMs ? "within" : "over"} the target`,
     );
-    const own = typicalAt(log, "at its own density (after typing pauses)", undefined);
+    const own = typicalAt(log, "at its own density (after typing pauses)", {});
     return grid && own;
   },
 };

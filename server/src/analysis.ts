@@ -15,8 +15,11 @@ import { MAX_SPEC_CHARS } from "./limits";
 import { withStop } from "./stop";
 
 export interface AnalysisOptions {
-  /** Overrides the spec's `sweep steps` (e.g. a quick pass while typing). */
+  /** Overrides the spec's `sweep steps` (a fixed density for tests and tools). */
   stepsOverride?: number;
+  /** A quick pass (while typing): at most this many steps per degree of freedom, fewer where the
+   * sweep planner's work budget asks; 0 or absent: the spec's own density (mechanics/sweep-plan.ts). */
+  quickSteps?: number;
   /** Wall-clock budget for solving and checking, ms; past it the results are partial. */
   budgetMs?: number;
   /** Stop after building the model (syntax and model findings only). */
@@ -110,6 +113,7 @@ function analyseWithin(text: string, options: AnalysisOptions, deadline: number)
     () =>
       solveSweep(built.model!, {
         ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}),
+        ...(options.quickSteps !== undefined ? { quickSteps: options.quickSteps } : {}),
         deadline,
       }),
     findings,

@@ -1,7 +1,7 @@
 // The documented limits of one analysis (docs/robustness.md, "Limits"): with them every `poise`
 // command and every server request is bounded in time, memory and output. One place, so the docs
 // and the tests read the same numbers. (The sweep's own caps, `sweep steps` at most 2001 and a
-// grid of at most 20,000 poses, live with the sweep: model/schema.ts and mechanics/sweep.ts.)
+// grid of at most 20,000 poses, live with the sweep: model/schema.ts and mechanics/sweep-plan.ts.)
 
 /** Longest spec text read, in characters (a file: bytes): 1 MiB. A bench arm is a few kilobytes;
  * ten thousand link declarations are under 1 MiB; parsing 1 MiB takes about a second. Longer

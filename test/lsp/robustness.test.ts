@@ -315,7 +315,7 @@ describe("the server over stdio, on fuzzed texts", () => {
     expect(published, "no diagnostics for the last version").toBeDefined();
     const shown = (published?.diagnostics ?? []).map((d) => `${String(d.code)} ${d.message}`).sort();
     // The server may answer with its quick while-typing pass or, after a pause, the full one.
-    const core = [analyse(target, { stepsOverride: 3 }), analyse(target)].map((a) =>
+    const core = [analyse(target, { quickSteps: 3 }), analyse(target)].map((a) =>
       a.findings
         .filter((f) => f.code !== "analysis.budget")
         .map((f) => `${f.code} ${f.message}`)

@@ -8,6 +8,7 @@ import type { AnalysisRunner, RunHandle, RunOutcome } from "../../server/src/lsp
 import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/scheduler";
 import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/settings";
 import type { ArmModel } from "../../server/src/model/types";
+import type { SweepResult } from "../../server/src/mechanics/types";
 
 interface FakeRun {
   text: string;
@@ -63,7 +64,6 @@ function setUp(settings: Partial<Settings> = {}) {
     runner,
     () => s,
     (p) => published.push(p),
-    () => undefined,
   );
   return { runner, published, scheduler };
 }
@@ -136,27 +136,34 @@ describe("analysis scheduler", () => {
     scheduler.dispose();
   });
 
-  it("uses the while-typing density only while typing, and the spec's own on open", async () => {
+  it("asks for a quick pass only while typing, and the spec's own density after a quick pass", async () => {
     const runner = new FakeRunner();
     const s: Settings = { ...DEFAULT_SETTINGS, diagnosticsDelayMs: 1, stepsWhileTyping: 9 };
-    // As typing-density.ts answers: the setting, or nothing where the spec asks for fewer.
     const scheduler = new AnalysisScheduler(
       runner,
       () => s,
       () => undefined,
-      (_uri, text, setting) => (text.includes("steps 5") ? undefined : setting),
     );
-    scheduler.update("u", 1, "steps 37", "full", true);
-    await until(() => runner.runs.length === 1, "open run");
-    expect(runner.runs[0]!.options.stepsOverride).toBeUndefined();
-    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("steps 37") });
-    scheduler.update("u", 2, "steps 37 ", "typing");
-    await until(() => runner.runs.length === 2, "typing run");
-    expect(runner.runs[1]!.options.stepsOverride).toBe(9);
-    runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("steps 37 ") });
-    scheduler.update("u", 3, "steps 5", "typing");
-    await until(() => runner.runs.length === 3, "typing run of a coarse spec");
-    expect(runner.runs[2]!.options.stepsOverride).toBeUndefined();
+    const runsOf = (text: string) => runner.runs.filter((r) => r.text === text);
+    scheduler.update("plain", 1, "plain", "full", true);
+    scheduler.update("quick", 1, "quick", "full", true);
+    await until(() => runner.runs.length === 2, "open runs");
+    for (const r of runner.runs) expect(r.options.quickSteps).toBeUndefined();
+    for (const r of runner.runs) r.finish({ kind: "done", analysis: analysisOf(r.text) });
+    scheduler.update("plain", 2, "plain ", "typing");
+    scheduler.update("quick", 2, "quick ", "typing");
+    await until(() => runner.runs.length === 4, "typing runs");
+    for (const r of runner.runs.slice(2)) expect(r.options.quickSteps).toBe(9);
+    // The sweep planner ran the quick text at fewer steps than its own (sweep.quick), and the
+    // plain one at its own density (the spec asks for fewer, or the budget allows all).
+    runsOf("plain ")[0]!.finish({ kind: "done", analysis: analysisOf("plain ") });
+    const quick = { ...analysisOf("quick "), sweep: { quick: true } as SweepResult };
+    runsOf("quick ")[0]!.finish({ kind: "done", analysis: quick });
+    await until(() => runsOf("quick ").length === 2, "the full run after the quick pass");
+    expect(runsOf("quick ")[1]!.options.quickSteps).toBeUndefined();
+    // Both idle timers started together: the plain text's would have fired by now.
+    await tick(50);
+    expect(runsOf("plain ")).toHaveLength(1);
     scheduler.dispose();
   });
 

@@ -47,9 +47,6 @@ export class AnalysisScheduler {
     private readonly runner: AnalysisRunner,
     private readonly settings: () => Settings,
     private readonly onAnalysed: (result: PublishedAnalysis) => void,
-    /** Steps per degree of freedom for a while-typing run of this text (undefined: the spec's
-     * own), given the setting. */
-    private readonly typingSteps: (uri: string, text: string, settingSteps: number) => number | undefined,
   ) {}
 
   /** A new text for a document: analysed after the debounce delay (0 for `immediate`). */
@@ -136,10 +133,8 @@ export class AnalysisScheduler {
   private options(entry: DocEntry): AnalysisOptions {
     const s = this.settings();
     const options: AnalysisOptions = { budgetMs: s.analysisBudgetMs };
-    if (entry.density === "typing" && s.stepsWhileTyping > 0) {
-      const steps = this.typingSteps(entry.uri, entry.text, s.stepsWhileTyping);
-      if (steps !== undefined) options.stepsOverride = steps;
-    }
+    // The sweep planner decides from the model how dense a quick pass is, and whether it is one.
+    if (entry.density === "typing") options.quickSteps = s.stepsWhileTyping;
     return options;
   }
 
@@ -206,7 +201,8 @@ export class AnalysisScheduler {
     entry.waiters = entry.waiters.filter((w) => w.version > version);
     for (const w of ready) w.resolve(analysis);
     this.onAnalysed({ uri: entry.uri, version, analysis });
-    if (density === "typing" && this.settings().stepsWhileTyping > 0) {
+    // A quick pass ran: the spec's own density follows once typing pauses.
+    if (density === "typing" && analysis.sweep?.quick) {
       entry.idle = setTimeout(() => {
         entry.idle = undefined;
         if (entry.version === version && this.docs.get(entry.uri) === entry)

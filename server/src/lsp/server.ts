@@ -22,8 +22,6 @@ import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
 import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
 import { specSummary } from "./summary";
 import { SyntaxViews } from "./syntax-view";
-import { typingSteps } from "./typing-density";
-import { parse } from "../syntax/parser";
 
 export const SERVER_NAME = "counterpoise";
 export const SERVER_VERSION = "0.1.0";
@@ -56,11 +54,6 @@ export function startServer(connection: Connection): void {
     createRunner(log),
     () => settings,
     (result) => attempt("publishing diagnostics", () => publish(result)),
-    (uri, text, settingSteps) => {
-      const doc = documents.get(uri);
-      const tree = doc && doc.getText() === text ? ctx.syntax(uri)?.tree : undefined;
-      return typingSteps(tree ?? parse(text), settingSteps);
-    },
   );
 
   const ctx: FeatureContext = {

@@ -93,6 +93,9 @@ export interface SweepResult {
   /** Steps actually used per dof. */
   steps: number;
   grid: boolean;
+  /** Set when a quick pass (while typing) swept fewer steps than the spec's own: the sweep planner
+   * (sweep-plan.ts) says so, and the spec's own density is still to run. */
+  quick?: true;
   /** Kinematic findings: geometry.loop-open, geometry.cannot-reach, joint.unheld, ... */
   findings: Finding[];
 }
