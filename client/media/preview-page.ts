@@ -8,6 +8,7 @@ import { handForcePlot, torquePlot } from "../../server/src/view/plots";
 import { nearestPose } from "../../server/src/view/pose-lines";
 import { findingsHtml, safetyTableHtml } from "../../server/src/view/tables";
 import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
+import { formatFigure } from "../../server/src/units/format";
 
 /** What the extension posts to the page, and what the page posts back. */
 export type ToPage = { type: "view"; model: ViewModel | null; uri: string };
@@ -25,27 +26,27 @@ declare function acquireVsCodeApi(): HostApi;
 const host = acquireVsCodeApi();
 let vm: ViewModel | null = null;
 let uri = "";
-/** Slider value per dof id, deg: kept across updates so editing does not snap the pose back, and
+/** Slider value per dof id, rad: kept across updates so editing does not snap the pose back, and
  * in the webview's state so that hiding and showing the panel keeps the pose. */
-const sliderDeg = new Map<string, number>();
-const saved = host.getState() as { uri?: string; sliders?: Record<string, number> } | undefined;
+const sliderAngle = new Map<string, number>();
+const saved = host.getState() as { uri?: string; sliderAngles?: Record<string, number> } | undefined;
 if (saved?.uri) uri = saved.uri;
-for (const [id, deg] of Object.entries(saved?.sliders ?? {}))
-  if (typeof deg === "number") sliderDeg.set(id, deg);
+for (const [id, rad] of Object.entries(saved?.sliderAngles ?? {}))
+  if (typeof rad === "number") sliderAngle.set(id, rad);
 
 function saveState(): void {
-  host.setState({ uri, sliders: Object.fromEntries(sliderDeg) });
+  host.setState({ uri, sliderAngles: Object.fromEntries(sliderAngle) });
 }
 let pose = 0;
 
 const $ = (id: string) => document.getElementById(id)!;
 
 function currentPose(model: ViewModel): number {
-  const target = model.dofs.map((d) => sliderDeg.get(d.id) ?? d.referenceDeg);
+  const target = model.dofs.map((d) => sliderAngle.get(d.id) ?? d.reference);
   return nearestPose(
-    model.poses.map((p) => p.anglesDeg),
+    model.poses.map((p) => p.angles),
     target,
-    model.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]),
+    model.dofs.map((d) => d.range[1] - d.range[0]),
   );
 }
 
@@ -82,18 +83,19 @@ function renderSliders(model: ViewModel): void {
     input.id = `dof-${i}`;
     input.dataset["dof"] = d.id;
     input.min = "0";
-    input.max = String(Math.max(0, d.valuesDeg.length - 1));
+    input.max = String(Math.max(0, d.values.length - 1));
     input.step = "1";
-    const value = model.poses[pose]?.anglesDeg[i] ?? d.referenceDeg;
-    input.value = String(Math.max(0, d.valuesDeg.indexOf(value)));
+    const value = model.poses[pose]?.angles[i] ?? d.reference;
+    input.value = String(Math.max(0, d.values.indexOf(value)));
     const out = document.createElement("output");
     out.id = `dof-${i}-value`;
-    out.textContent = `${value.toFixed(1)}°`;
+    const shown = (rad: number) => `${formatFigure(rad, "angle", model.units)}°`;
+    out.textContent = shown(value);
     input.addEventListener("input", () => {
-      const deg = d.valuesDeg[Number(input.value)] ?? d.referenceDeg;
-      sliderDeg.set(d.id, deg);
+      const rad = d.values[Number(input.value)] ?? d.reference;
+      sliderAngle.set(d.id, rad);
       saveState();
-      out.textContent = `${deg.toFixed(1)}°`;
+      out.textContent = shown(rad);
       pose = currentPose(model);
       renderPose(model);
     });
@@ -145,7 +147,7 @@ function renderLimits(): void {
 window.addEventListener("message", (event: MessageEvent<ToPage>) => {
   const msg = event.data;
   if (msg?.type !== "view") return;
-  if (msg.uri !== uri) sliderDeg.clear();
+  if (msg.uri !== uri) sliderAngle.clear();
   uri = msg.uri;
   vm = msg.model;
   saveState();

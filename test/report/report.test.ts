@@ -91,20 +91,32 @@ describe("report of a sample through the whole pipeline", () => {
 
 describe("poise report command", () => {
   const dir = mkdtempSync(join(tmpdir(), "counterpoise-report-"));
+  /** What the command writes to its streams (the tests read stderr). */
+  const streams = () => {
+    const err: string[] = [];
+    return { out: () => undefined, err: (t: string) => void err.push(t), said: () => err.join("") };
+  };
+  const run = (args: string[]) => runReport(args, streams());
 
   it("writes US customary units on request", async () => {
     const out = join(dir, "camera-us.html");
-    expect(await runReport(["samples/camera-arm.poise", "--units", "us", "-o", out])).toBe(0);
+    expect(run(["samples/camera-arm.poise", "--units", "us", "-o", out])).toBe(0);
     expect(readFileSync(out, "utf8")).toContain("lbf·in");
   });
 
   it("exits 2 when it cannot run", async () => {
-    expect(await runReport([])).toBe(2);
-    expect(await runReport(["--frobnicate", "samples/camera-arm.poise"])).toBe(2);
-    expect(await runReport([join(dir, "no-such.poise")])).toBe(2);
-    expect(await runReport(["samples/camera-arm.poise", "-o"])).toBe(2);
-    expect(await runReport(["samples/camera-arm.poise", "--units", "furlongs"])).toBe(2);
-    expect(await runReport(["samples/camera-arm.poise", "-o", join(dir, "no-such-dir", "r.html")])).toBe(2);
+    expect(run([])).toBe(2);
+    expect(run(["--frobnicate", "samples/camera-arm.poise"])).toBe(2);
+    const missing = streams();
+    expect(runReport([join(dir, "no-such.poise")], missing)).toBe(2);
+    expect(missing.said()).toContain("poise report: cannot read");
+    expect(run(["samples/camera-arm.poise", "-o"])).toBe(2);
+    expect(run(["samples/camera-arm.poise", "--units", "furlongs"])).toBe(2);
+    const unwritable = streams();
+    expect(
+      runReport(["samples/camera-arm.poise", "-o", join(dir, "no-such-dir", "r.html")], unwritable),
+    ).toBe(2);
+    expect(unwritable.said()).toContain("poise report: cannot write");
   });
 
   it("shows deflection, tilt and frequency even when they pass (issue 10 item 8)", () => {
@@ -125,7 +137,7 @@ describe("poise report command", () => {
     for (const sample of ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"]) {
       const out = join(dir, `${sample}.html`);
       const file = `samples/${sample}.poise`;
-      const code = await runReport([file, "-o", out]);
+      const code = run([file, "-o", out]);
       const errors = analyse(readFileSync(file, "utf8")).findings.filter(
         (f) => f.severity === "error",
       ).length;

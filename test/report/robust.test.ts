@@ -24,7 +24,7 @@ describe("view and report on half-typed specs", () => {
         const html = renderReportHtml(vm, { file: `${name}.poise` });
         expect(html).toContain("</html>");
         // Whatever the text, the JSON the panel is sent survives a round trip.
-        expect(JSON.parse(JSON.stringify(vm)).version).toBe(1);
+        expect(JSON.parse(JSON.stringify(vm)).version).toBe(2);
       }
     });
   }

@@ -32,15 +32,15 @@ describe("view model", () => {
     const path = vm.envelope.lamp!.flat();
     expect(path.length).toBe(vm.poses.length);
     // Geometry of a rigid link: the end stays at distance l from the pivot.
-    for (const [x, y] of path) expect(Math.hypot(x, y - PIVOT_Y * 1000)).toBeCloseTo(L_ARM * 1000, 2);
+    for (const [x, y] of path) expect(Math.hypot(x, y - PIVOT_Y)).toBeCloseTo(L_ARM, 5);
   });
 
   it("finds the nearest pose for a slider value", () => {
-    const angles = vm.poses.map((p) => p.anglesDeg);
-    const p = nearestPose(angles, [31], [105]);
+    const angles = vm.poses.map((p) => p.angles);
+    const p = nearestPose(angles, [rad(31)], [rad(105)]);
     // 22 poses over -45..60 deg are 5 deg apart: 31 deg is nearest 30 deg.
-    expect(vm.poses[p]!.anglesDeg[0]).toBeCloseTo(30, 6);
-    expect(vm.poses[vm.referencePose]!.anglesDeg[0]).toBeCloseTo(0, 6);
+    expect(vm.poses[p]!.angles[0]).toBeCloseTo(rad(30), 6);
+    expect(vm.poses[vm.referencePose]!.angles[0]).toBeCloseTo(0, 6);
   });
 
   it("lists safety factors lowest first with the requirement", () => {
@@ -50,16 +50,16 @@ describe("view model", () => {
 
   it("draws the section depth and brackets to off-line hooks", () => {
     const boom = vm.bodies.find((b) => b.id === "boom")!;
-    expect(boom.depthMm).toBe(20);
+    expect(boom.depth).toBe(0.02);
     expect(boom.line).toEqual([
       [0, 0],
-      [400, 0],
+      [L_ARM, 0],
     ]);
     const post = vm.bodies.find((b) => b.id === "post")!;
     // The post stands from the bench to the anchor, 350 mm.
     expect(post.line).toEqual([
       [0, 0],
-      [0, (PIVOT_Y + A) * 1000],
+      [0, PIVOT_Y + A],
     ]);
     expect(B).toBeGreaterThan(0);
   });

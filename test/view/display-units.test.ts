@@ -1,5 +1,5 @@
-// Figures in the reader's unit system: the view model stays in mm, N and N*m; the plots, tables
-// and labels convert by the exact definitions.
+// Figures in the reader's unit system: the view model stays SI; the plots, tables and labels
+// convert through units/format by the exact definitions.
 import { describe, expect, it } from "vitest";
 import { buildViewModel } from "../../server/src/view/build-view-model";
 import { handForcePlot, torquePlot } from "../../server/src/view/plots";

@@ -40,7 +40,7 @@ describe("preview page", () => {
   it("poses the drawing from the slider: the boom's coordinates change", async () => {
     const before = await boomPoints();
     const slider = page.locator('input[data-dof="shoulder"]');
-    await slider.fill(String(vm.dofs[0]!.valuesDeg.length - 1));
+    await slider.fill(String(vm.dofs[0]!.values.length - 1));
     const after = await boomPoints();
     expect(after).not.toBe(before);
     expect(await page.textContent("#dof-0-value")).toBe("60.0°");

@@ -17,7 +17,7 @@ describe("torque parts on a solved sweep", () => {
 
   it("gravity part is m g l cos(theta), spring part -k a b cos(theta), and they make the net torque", () => {
     for (const pose of vm.poses) {
-      const theta = (pose.anglesDeg[0]! * Math.PI) / 180;
+      const theta = pose.angles[0]!;
       // Streit and Gilmore 1989, "Perfect spring equilibrators for rotatable bodies": the payload's share of the
       // holding torque of a pivoting link is m g l cos(theta) ...
       expect(pose.gravityTorque[0]!).toBeCloseTo(M * G * L_ARM * Math.cos(theta), 3);

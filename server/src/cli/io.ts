@@ -1,5 +1,5 @@
 // The command's only contact with the outside: reading spec files and writing to the streams.
-import { closeSync, openSync, readSync, realpathSync, statSync } from "node:fs";
+import { closeSync, openSync, readSync, realpathSync, statSync, writeFileSync } from "node:fs";
 import { resolve } from "node:path";
 import { MAX_SPEC_CHARS } from "../limits";
 
@@ -88,4 +88,16 @@ export function overwritesSpec(out: string, input: string): string | undefined {
     }
   };
   return real(out) === real(input) ? `it is the spec being read (${input})` : undefined;
+}
+
+/** Writes a text file; false after saying on stderr why it cannot be written. */
+export function writeTextFile(file: string, text: string, out: Output, command: string): boolean {
+  try {
+    writeFileSync(file, text, "utf8");
+    return true;
+  } catch (err) {
+    const code = (err as NodeJS.ErrnoException).code;
+    out.err(`poise ${command}: cannot write ${file}${code ? ` (${code})` : ""}\n`);
+    return false;
+  }
 }

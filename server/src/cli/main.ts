@@ -56,7 +56,7 @@ export async function main(argv: string[], out: Output = processOutput): Promise
     case "results":
       return runResults(rest, out);
     case "report":
-      return runReport(rest);
+      return runReport(rest, out);
     case "lsp":
       return runLsp(rest, out);
     case "--version":

@@ -1,11 +1,9 @@
 // `poise report FILE [-o OUT] [--units si|us]`: the arm's drawing, curves, safety factors, diagnostics, limits and
 // cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
-import { writeFileSync } from "node:fs";
-import { overwritesSpec, processOutput, readSpec } from "./io";
 import { analyse } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
-import { buildViewModel } from "../view/build-view-model";
-import { renderReportHtml } from "../view/report-page";
+import { reportPage } from "../view";
+import { overwritesSpec, readSpec, writeTextFile, type Output } from "./io";
 
 const USAGE = "usage: poise report FILE [-o OUT.html] [--units si|us]   (without -o the page goes to stdout)";
 
@@ -46,41 +44,30 @@ export function reportHtml(
   units: "si" | "us" = "si",
 ): { html: string; errors: number } {
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
-  // The poses the panel gets (at most MAX_VIEW_POSES, thinned evenly): every drawing of the page
-  // traces the payload's path along each run of them, so a grid of many degrees of freedom drawn
-  // whole made pages of hundreds of megabytes.
-  const vm = buildViewModel(analysis, { units });
   return {
-    html: renderReportHtml(vm, { file }),
+    html: reportPage(analysis, { file, units }),
     errors: analysis.findings.filter((f) => f.severity === "error").length,
   };
 }
 
-export async function runReport(args: string[]): Promise<number> {
+export function runReport(args: string[], out: Output): number {
   const parsed = parseArgs(args);
   if (typeof parsed === "string") {
-    process.stderr.write(parsed === USAGE ? `${USAGE}\n` : `${parsed}\n${USAGE}\n`);
+    out.err(parsed === USAGE ? `${USAGE}\n` : `${parsed}\n${USAGE}\n`);
     return 2;
   }
   const clash = parsed.out !== undefined ? overwritesSpec(parsed.out, parsed.file) : undefined;
   if (clash) {
-    process.stderr.write(`poise report: will not write the page over ${parsed.out}: ${clash}\n`);
+    out.err(`poise report: will not write the page over ${parsed.out}: ${clash}\n`);
     return 2;
   }
-  const text = readSpec(parsed.file, processOutput, "report");
+  const text = readSpec(parsed.file, out, "report");
   if (text === undefined) return 2;
   const { html, errors } = reportHtml(text, parsed.file, parsed.units);
-  if (parsed.out === undefined) process.stdout.write(html);
+  if (parsed.out === undefined) out.out(html);
   else {
-    try {
-      writeFileSync(parsed.out, html, "utf8");
-    } catch (err) {
-      process.stderr.write(
-        `poise report: cannot write ${parsed.out}: ${(err as NodeJS.ErrnoException).code ?? String(err)}\n`,
-      );
-      return 2;
-    }
-    process.stderr.write(
+    if (!writeTextFile(parsed.out, html, out, "report")) return 2;
+    out.err(
       `poise report: wrote ${parsed.out}${errors ? ` (${errors} error${errors > 1 ? "s" : ""} in the spec)` : ""}\n`,
     );
   }

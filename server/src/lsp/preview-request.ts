@@ -3,7 +3,7 @@
 import type { FeatureContext, ServerFeature } from "./context";
 import { guarded } from "./safe";
 import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "./preview-protocol";
-import { buildViewModel } from "../view/build-view-model";
+import { buildViewModel } from "../view";
 import type { Analysis } from "../analysis";
 
 /** How long the request waits for the current text's analysis before answering with an older

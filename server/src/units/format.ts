@@ -1,17 +1,19 @@
 // Formats an SI value for display in the user's unit system, and gives the same value in the
-// other system (hover: "the value in the other unit system").
+// other system (hover: "the value in the other unit system"). The one table of display units:
+// messages, hovers, inlay hints, the status bar, the preview and the report all show figures
+// through it.
 import type { DimensionName } from "./dimension";
 import { parseUnit } from "./quantity";
 import type { UnitSystem } from "./unit-table";
 
-interface DisplayUnit {
+export interface DisplayUnit {
   symbol: string;
   /** SI value / factor = displayed value */
   factor: number;
 }
 
 /** The unit shown for each dimension; mass and US pressure switch unit with size. */
-function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI: number): DisplayUnit {
+export function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI = 0): DisplayUnit {
   const unit = (symbol: string): DisplayUnit => {
     const parsed = parseUnit(symbol);
     return { symbol, factor: parsed.ok ? parsed.unit.factor : 1 };
@@ -133,4 +135,51 @@ export function formatInOtherSystem(
   if (dimension === "angle" || dimension === "frequency" || dimension === "dimensionless") return undefined;
   const written = unitSystemOf(writtenUnit) ?? "si";
   return formatQuantity(valueSI, dimension, otherSystem(written));
+}
+
+/** A value in the unit `displayUnit` shows it in (the number a plot or table places). */
+export function inDisplayUnit(valueSI: number, dimension: DimensionName, system: UnitSystem): number {
+  return valueSI / displayUnit(dimension, system, valueSI).factor;
+}
+
+/** A display unit's symbol set for reading rather than typing: N·m, mm², not N*m, mm^2. */
+export function unitLabel(dimension: DimensionName, system: UnitSystem, valueSI = 0): string {
+  return displayUnit(dimension, system, valueSI)
+    .symbol.replace(/\*/g, "·")
+    .replace(/\^2/g, "²")
+    .replace(/\^3/g, "³");
+}
+
+/** A plain number to about `digits` significant digits, for a table or a label ("–" when there is
+ * none); from 10^digits on, whole. */
+export function formatDigits(x: number, digits = 3): string {
+  if (!Number.isFinite(x)) return "–";
+  if (x === 0) return "0";
+  const mag = Math.floor(Math.log10(Math.abs(x)));
+  const decimals = Math.max(0, Math.min(6, digits - 1 - mag));
+  return x.toFixed(decimals);
+}
+
+/** A figure for a table, a plot or a drawing: the value in its display unit to about three
+ * significant digits, without the unit (tables put it in the heading). */
+export function formatFigure(
+  valueSI: number,
+  dimension: DimensionName,
+  system: UnitSystem,
+  digits = 3,
+): string {
+  return formatDigits(inDisplayUnit(valueSI, dimension, system), digits);
+}
+
+/** A figure with its unit set for reading, e.g. "12.4 N·m". */
+export function formatFigureWithUnit(valueSI: number, dimension: DimensionName, system: UnitSystem): string {
+  const label = unitLabel(dimension, system, valueSI);
+  const n = formatFigure(valueSI, dimension, system);
+  return label ? `${n} ${label}` : n;
+}
+
+/** A value in SI display units, as messages show it (mm, deg, N, N*m, N/mm...): the one "format
+ * in SI" helper of the mechanics and the checks. */
+export function formatSI(valueSI: number, dimension: DimensionName): string {
+  return formatResult(valueSI, dimension, "si");
 }

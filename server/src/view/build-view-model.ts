@@ -19,7 +19,7 @@ import type {
   SafetyRow,
 } from "./view-model";
 import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
-import { payloadPaths, viewBounds } from "./envelope";
+import { EMPTY_BOUNDS, payloadPaths, viewBounds } from "./envelope";
 import { buildResults } from "../checks/results";
 
 /** What the view needs of an analysis (an `Analysis` fits). */
@@ -37,7 +37,6 @@ export const TORQUE_METHOD =
   "the torque that holds against those forces alone (their virtual work along the degree of " +
   "freedom), and together they make the net torque.";
 
-const MM = 1000;
 const DEG = 180 / Math.PI;
 /** The panel is sent at most this many poses (about 1.5 MB of JSON); a denser sweep is thinned to
  * every k-th value of each dof, ends kept. A slider step that fine is finer than a hand can set. */
@@ -45,16 +44,27 @@ export const MAX_VIEW_POSES = 2500;
 /** Attachment points nearer the centre line than this need no bracket drawn, m. */
 const BRACKET_MIN_M = 0.0005;
 
-/** Rounds to 1e-4 of the display unit: far below what a drawing or a table shows, and it keeps
- * the JSON sent to the panel small. */
+// The view model is SI, rounded far below anything a drawing or a table shows, which keeps the
+// JSON sent to the panel small (a grid of a thousand poses stays a few hundred kilobytes).
+
+/** Forces and torques to 1e-4 N or N*m. */
 function r4(x: number): number {
   return Number.isFinite(x) ? Math.round(x * 1e4) / 1e4 : x;
 }
 
-/** Pose coordinates to 0.01 mm and 0.01 deg: below a pixel at any zoom of the panel, and a grid
- * of a thousand poses then stays a few hundred kilobytes. */
-function r2(x: number): number {
-  return Number.isFinite(x) ? Math.round(x * 100) / 100 : x;
+/** Lengths on a body to 1e-7 m (a ten-thousandth of a millimetre). */
+function localLength(m: number): number {
+  return Number.isFinite(m) ? Math.round(m * 1e7) / 1e7 : m;
+}
+
+/** Pose coordinates to 1e-5 m (0.01 mm): below a pixel at any zoom of the panel. */
+function position(m: number): number {
+  return Number.isFinite(m) ? Math.round(m * 1e5) / 1e5 : m;
+}
+
+/** Angles to a ten-thousandth of a degree, rad. */
+function angle(rad: number): number {
+  return Number.isFinite(rad) ? Math.round(rad * DEG * 1e4) / 1e4 / DEG : rad;
 }
 
 function toRange(index: LineIndex, s: Span): ViewRange {
@@ -157,16 +167,16 @@ function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): 
     let near: Vec2 | undefined;
     for (let i = 0; i + 1 < line.length; i++) near = nearestOnSegment(p, line[i]!, line[i + 1]!);
     if (near && distance(near, p) > BRACKET_MIN_M)
-      brackets.push([r4(near.x * MM), r4(near.y * MM), r4(p.x * MM), r4(p.y * MM)]);
+      brackets.push([localLength(near.x), localLength(near.y), localLength(p.x), localLength(p.y)]);
   }
   const depth = depthOf(model, body);
   return {
     id: body.id,
     partId: partOf(body.id),
     kind: body.kind,
-    line: line.map((p) => [r4(p.x * MM), r4(p.y * MM)]),
+    line: line.map((p) => [localLength(p.x), localLength(p.y)]),
     brackets,
-    ...(depth !== undefined ? { depthMm: r4(depth * MM) } : {}),
+    ...(depth !== undefined ? { depth: localLength(depth) } : {}),
   };
 }
 
@@ -182,16 +192,16 @@ function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
   return sweep.poses.map((pose) => {
     const bodies: ViewPose["bodies"] = {};
     for (const [id, b] of Object.entries(pose.bodies))
-      bodies[id] = [r2(b.x * MM), r2(b.y * MM), r4(b.phi * DEG)];
+      bodies[id] = [position(b.x), position(b.y), angle(b.phi)];
     const springs: ViewPose["springs"] = {};
     for (const [id, s] of Object.entries(pose.springs))
-      springs[id] = [r2(s.a.x * MM), r2(s.a.y * MM), r2(s.b.x * MM), r2(s.b.y * MM)];
+      springs[id] = [position(s.a.x), position(s.a.y), position(s.b.x), position(s.b.y)];
     const handForce: ViewPose["handForce"] = {};
     for (const payload of model.payloads)
       handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
     const nominal = pose.cases[0];
     return {
-      anglesDeg: sweep.dofs.map((d) => r4((pose.angles[d.id] ?? d.reference) * DEG)),
+      angles: sweep.dofs.map((d) => angle(pose.angles[d.id] ?? d.reference)),
       bodies,
       springs,
       netTorque: sweep.dofs.map((d) => r4(nominal?.holdingTorque[d.id] ?? NaN)),
@@ -233,11 +243,11 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   const index = new LineIndex(input.text);
   const model = input.model;
   const vm: ViewModel = {
-    version: 1,
+    version: 2,
     title: model?.title ?? "Untitled arm",
     units: options.units ?? "si",
-    surfaceMm: r4((model?.base?.surface ?? 0) * MM),
-    bounds: [-100, -20, 400, 400],
+    surface: localLength(model?.base?.surface ?? 0),
+    bounds: [...EMPTY_BOUNDS],
     parts: [],
     bodies: [],
     pivots: [],
@@ -249,7 +259,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     referencePose: 0,
     lines: [],
     envelope: {},
-    balanceLimitN: {},
+    balanceLimit: {},
     requiredSafety: model?.require.safety ?? 0,
     safety: [],
     findings: [],
@@ -281,30 +291,30 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     return vm;
   }
   const partOf = partOfFactory(model, partIds);
-  if (model.base?.footprint) vm.footprintMm = r4(model.base.footprint.width * MM);
+  if (model.base?.footprint) vm.footprint = localLength(model.base.footprint.width);
   vm.bodies = model.bodies.map((b) => viewBody(model, b, partOf));
   vm.pivots = model.joints.map((j) => ({
     jointId: j.id,
     partId: partOf(j.id),
     body: j.child,
-    local: [r4(j.childPoint.x * MM), r4(j.childPoint.y * MM)] as [number, number],
+    local: [localLength(j.childPoint.x), localLength(j.childPoint.y)] as [number, number],
     mode: j.mode,
-    ...(j.pin ? { pinMm: r4(j.pin.diameter * MM) } : {}),
+    ...(j.pin ? { pin: localLength(j.pin.diameter) } : {}),
   }));
   vm.springs = model.springs.map((s) => ({
     id: s.id,
     kind: s.kind,
     ...(s.kind === "torsion" ? { jointId: s.joint } : {}),
-    ...(s.kind === "gas" ? { cylinderMm: r4(Math.max(0, s.extendedLength - s.stroke) * MM) } : {}),
+    ...(s.kind === "gas" ? { cylinder: localLength(Math.max(0, s.extendedLength - s.stroke)) } : {}),
   }));
   vm.payloads = model.payloads.map((p) => ({
     id: p.id,
     body: p.body,
-    local: [r4(p.point.x * MM), r4(p.point.y * MM)] as [number, number],
-    massKg: p.mass,
+    local: [localLength(p.point.x), localLength(p.point.y)] as [number, number],
+    mass: p.mass,
   }));
   for (const p of model.payloads)
-    vm.balanceLimitN[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
+    vm.balanceLimit[p.id] = model.require.balance.byPayload[p.id] ?? model.require.balance.default;
   vm.safety = safetyRows(model, input.readouts, partOf);
   if (input.sweep) vm.results = buildResults(input);
 
@@ -332,14 +342,14 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   vm.poses = viewPoses(model, poses);
   vm.dofs = poses.dofs.map((d, i) => ({
     id: d.id,
-    rangeDeg: [r4(d.range[0] * DEG), r4(d.range[1] * DEG)],
-    referenceDeg: r4(d.reference * DEG),
-    valuesDeg: [...new Set(vm.poses.map((p) => p.anglesDeg[i]!))].sort((a, b) => a - b),
+    range: [angle(d.range[0]), angle(d.range[1])] as [number, number],
+    reference: angle(d.reference),
+    values: [...new Set(vm.poses.map((p) => p.angles[i]!))].sort((a, b) => a - b),
   }));
   vm.referencePose = nearestPose(
-    vm.poses.map((p) => p.anglesDeg),
-    vm.dofs.map((d) => d.referenceDeg),
-    vm.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]),
+    vm.poses.map((p) => p.angles),
+    vm.dofs.map((d) => d.reference),
+    vm.dofs.map((d) => d.range[1] - d.range[0]),
   );
   vm.envelope = payloadPaths(vm);
   vm.bounds = viewBounds(vm);

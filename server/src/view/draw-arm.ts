@@ -3,18 +3,33 @@
 import type { ViewModel, ViewPose, ViewSpring, PartStatus } from "./view-model";
 import { place } from "./geometry";
 import { PALETTE } from "./palette";
-import { c2, esc, fig } from "./text";
-import { shownForce, shownLength, shownTorque } from "./display-units";
-import { formatQuantity } from "../units/format";
+import { c2, esc } from "./text";
+import { displayUnit, formatFigure, formatFigureWithUnit, formatQuantity, unitLabel } from "../units/format";
 
+/** The drawing's user unit is the millimetre: the view model's metres are scaled by this, so that
+ * coordinates written to 0.01 (c2) stay far below a pixel at any zoom. */
+const MM_PER_M = 1000;
 /** Bodies without a section are drawn this thick, mm (a schematic bar). */
 const DEFAULT_DEPTH_MM = 6;
+/** Pins without a diameter are drawn this wide, mm. */
+const DEFAULT_PIN_MM = 4;
 /** Coil count drawn for an extension spring: enough to read as a coil, not a true count. */
 const ZIGZAGS = 12;
 
 interface Frame {
   /** About one screen pixel at the panel's usual width, in mm: sizes labels and marks. */
   u: number;
+  /** The view model's bounds, mm: [minX, minY, maxX, maxY]. */
+  bounds: [number, number, number, number];
+}
+
+/** A length of the view model in drawing units (mm). */
+const mm = (m: number): number => m * MM_PER_M;
+
+/** A local point of a body, placed in the pose, in drawing units (mm). */
+function at(pose: ViewPose, bodyId: string, local: readonly [number, number]): [number, number] | undefined {
+  const w = place(pose, bodyId, local);
+  return w ? [mm(w[0]), mm(w[1])] : undefined;
 }
 
 const statusColour = (s: PartStatus | undefined) =>
@@ -28,17 +43,18 @@ function pts(list: readonly [number, number][]): string {
 }
 
 function bench(vm: ViewModel, f: Frame): string {
-  const [minX, , maxX] = vm.bounds;
-  const y = vm.surfaceMm;
+  const [minX, , maxX] = f.bounds;
+  const y = mm(vm.surface);
   const hatch: string[] = [];
   const step = 12 * f.u;
   for (let x = minX; x < maxX; x += step)
     hatch.push(`M${c2(x)} ${c2(Y(y))}l${c2(-step * 0.7)} ${c2(step * 0.7)}`);
   let out = `<g class="bench"><path d="${hatch.join("")}" stroke="${PALETTE.benchHatch}" stroke-width="${c2(f.u)}" fill="none"/>`;
   out += `<line x1="${c2(minX)}" y1="${c2(Y(y))}" x2="${c2(maxX)}" y2="${c2(Y(y))}" stroke="${PALETTE.bench}" stroke-width="${c2(2.5 * f.u)}"/>`;
-  if (vm.footprintMm !== undefined) {
+  if (vm.footprint !== undefined) {
     const h = 8 * f.u;
-    out += `<rect class="footprint" x="${c2(-vm.footprintMm / 2)}" y="${c2(Y(y + h))}" width="${c2(vm.footprintMm)}" height="${c2(h)}" fill="${PALETTE.base}" opacity="0.55"/>`;
+    const width = mm(vm.footprint);
+    out += `<rect class="footprint" x="${c2(-width / 2)}" y="${c2(Y(y + h))}" width="${c2(width)}" height="${c2(h)}" fill="${PALETTE.base}" opacity="0.55"/>`;
   }
   return out + "</g>";
 }
@@ -47,7 +63,7 @@ function envelope(vm: ViewModel, f: Frame): string {
   let out = `<g class="envelope">`;
   for (const [id, paths] of Object.entries(vm.envelope)) {
     for (const path of paths) {
-      out += `<polyline data-payload="${esc(id)}" points="${pts(path)}" fill="none" stroke="${PALETTE.envelope}" stroke-width="${c2(1.5 * f.u)}" stroke-dasharray="${c2(5 * f.u)} ${c2(3 * f.u)}"/>`;
+      out += `<polyline data-payload="${esc(id)}" points="${pts(path.map(([x, y]) => [mm(x), mm(y)]))}" fill="none" stroke="${PALETTE.envelope}" stroke-width="${c2(1.5 * f.u)}" stroke-dasharray="${c2(5 * f.u)} ${c2(3 * f.u)}"/>`;
     }
   }
   return out + "</g>";
@@ -59,11 +75,11 @@ function bodies(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
   const order = { base: 0, bar: 1, link: 2, head: 3 } as const;
   for (const body of [...vm.bodies].sort((a, b) => order[a.kind] - order[b.kind])) {
     const line = body.line
-      .map((p) => place(pose, body.id, p))
+      .map((p) => at(pose, body.id, p))
       .filter((w): w is [number, number] => w !== undefined);
     if (line.length < 2) continue;
     const st = status.get(body.partId);
-    const depth = Math.max(body.depthMm ?? DEFAULT_DEPTH_MM, 2 * f.u);
+    const depth = Math.max(body.depth !== undefined ? mm(body.depth) : DEFAULT_DEPTH_MM, 2 * f.u);
     const colour =
       body.kind === "base"
         ? PALETTE.base
@@ -77,8 +93,8 @@ function bodies(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
     if (mark)
       out += `<polyline class="halo" points="${pts(line)}" fill="none" stroke="${mark}" stroke-opacity="0.35" stroke-width="${c2(depth + 8 * f.u)}" stroke-linecap="round" stroke-linejoin="round"/>`;
     for (const br of body.brackets) {
-      const a = place(pose, body.id, [br[0], br[1]]);
-      const b = place(pose, body.id, [br[2], br[3]]);
+      const a = at(pose, body.id, [br[0], br[1]]);
+      const b = at(pose, body.id, [br[2], br[3]]);
       if (a && b)
         out += `<line class="bracket" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${colour}" stroke-width="${c2(Math.max(depth * 0.35, 1.5 * f.u))}" stroke-linecap="round"/>`;
     }
@@ -134,11 +150,11 @@ function springMark(
   force: number | undefined,
   f: Frame,
 ): string {
-  const a: [number, number] = [hooks[0], hooks[1]];
-  const b: [number, number] = [hooks[2], hooks[3]];
+  const a: [number, number] = [mm(hooks[0]), mm(hooks[1])];
+  const b: [number, number] = [mm(hooks[2]), mm(hooks[3])];
   const mark = statusColour(st);
-  const unit = spring.kind === "torsion" ? shownTorque(vm.units) : shownForce(vm.units);
-  const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${fig(Math.abs(force) * unit.scale)} ${unit.symbol}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
+  const dimension = spring.kind === "torsion" ? "torque" : "force";
+  const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${formatFigureWithUnit(Math.abs(force), dimension, vm.units)}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
   let out = `<g class="part spring" data-part="${esc(spring.id)}" data-spring="${esc(spring.id)}" data-kind="${spring.kind}" data-status="${st ?? "ok"}"><title>${esc(tip)}</title>`;
   const w = 1.8 * f.u;
   if (spring.kind === "torsion") {
@@ -152,7 +168,7 @@ function springMark(
     out += `<path d="${d}" fill="none" stroke="${mark ?? PALETTE.coil}" stroke-width="${c2(w)}"/>`;
   } else if (spring.kind === "gas") {
     const len = Math.hypot(b[0] - a[0], b[1] - a[1]) || 1;
-    const cyl = Math.min(spring.cylinderMm ?? len * 0.55, len * 0.9) / len;
+    const cyl = Math.min(spring.cylinder !== undefined ? mm(spring.cylinder) : len * 0.55, len * 0.9) / len;
     const m: [number, number] = [a[0] + (b[0] - a[0]) * cyl, a[1] + (b[1] - a[1]) * cyl];
     out += `<line x1="${c2(m[0])}" y1="${c2(Y(m[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${PALETTE.gasRod}" stroke-width="${c2(3 * f.u)}" stroke-linecap="round"/>`;
     out += `<line class="cylinder" x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(m[0])}" y2="${c2(Y(m[1]))}" stroke="${mark ?? PALETTE.gasBody}" stroke-width="${c2(8 * f.u)}" stroke-linecap="butt"/>`;
@@ -169,11 +185,11 @@ function springMark(
 function pivots(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
   let out = "";
   for (const pv of vm.pivots) {
-    const w = place(pose, pv.body, pv.local);
+    const w = at(pose, pv.body, pv.local);
     if (!w) continue;
     const st = status.get(pv.partId);
     const ring = statusColour(st) ?? PALETTE.pivotRing;
-    const r = Math.max((pv.pinMm ?? 4) / 2 + 1, 3 * f.u);
+    const r = Math.max((pv.pin !== undefined ? mm(pv.pin) : DEFAULT_PIN_MM) / 2 + 1, 3 * f.u);
     out += `<g class="part pivot" data-part="${esc(pv.partId)}" data-joint="${esc(pv.jointId)}" data-status="${st ?? "ok"}"><title>${esc(pv.jointId)} (${pv.mode})${st && st !== "ok" ? ` (${st})` : ""}</title>`;
     if (pv.mode === "fixed")
       out += `<rect x="${c2(w[0] - r)}" y="${c2(Y(w[1]) - r)}" width="${c2(2 * r)}" height="${c2(2 * r)}" fill="${PALETTE.pivotFill}" stroke="${ring}" stroke-width="${c2(1.6 * f.u)}"/>`;
@@ -189,11 +205,11 @@ function pivots(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
 function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
   let out = "";
   for (const p of vm.payloads) {
-    const w = place(pose, p.body, p.local);
+    const w = at(pose, p.body, p.local);
     if (!w) continue;
     const st = status.get(p.id);
-    const r = Math.min(Math.max(7 * f.u * Math.cbrt(Math.max(p.massKg, 0.01) / 0.5), 4 * f.u), 16 * f.u);
-    const grams = formatQuantity(p.massKg, "mass", vm.units);
+    const r = Math.min(Math.max(7 * f.u * Math.cbrt(Math.max(p.mass, 0.01) / 0.5), 4 * f.u), 16 * f.u);
+    const grams = formatQuantity(p.mass, "mass", vm.units);
     out += `<g class="part payload" data-part="${esc(p.id)}" data-payload="${esc(p.id)}" data-status="${st ?? "ok"}"><title>${esc(p.id)}, ${grams}</title>`;
     out += `<line x1="${c2(w[0])}" y1="${c2(Y(w[1]))}" x2="${c2(w[0])}" y2="${c2(Y(w[1]) + r * 2.2)}" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<path d="M${c2(w[0] - r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}L${c2(w[0])} ${c2(Y(w[1]) + r * 2.4)}L${c2(w[0] + r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}" fill="none" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
@@ -215,46 +231,46 @@ function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
   let k = 0;
   for (const part of vm.parts) {
     if (part.status === "ok") continue;
-    let at: [number, number] | undefined;
+    let flagAt: [number, number] | undefined;
     const body = vm.bodies.find((b) => b.partId === part.id && b.line.length >= 2);
     if (body) {
-      const a = place(pose, body.id, body.line[0]!);
-      const b = place(pose, body.id, body.line[body.line.length - 1]!);
-      if (a && b) at = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+      const a = at(pose, body.id, body.line[0]!);
+      const b = at(pose, body.id, body.line[body.line.length - 1]!);
+      if (a && b) flagAt = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
     }
     const pivot = vm.pivots.find((p) => p.partId === part.id);
-    if (!at && pivot) at = place(pose, pivot.body, pivot.local);
+    if (!flagAt && pivot) flagAt = at(pose, pivot.body, pivot.local);
     const hooks = pose.springs[part.id];
-    if (!at && hooks) at = [(hooks[0] + hooks[2]) / 2, (hooks[1] + hooks[3]) / 2];
+    if (!flagAt && hooks) flagAt = [(mm(hooks[0]) + mm(hooks[2])) / 2, (mm(hooks[1]) + mm(hooks[3])) / 2];
     const payload = vm.payloads.find((p) => p.id === part.id);
-    if (!at && payload) at = place(pose, payload.body, payload.local);
-    if (!at) continue;
+    if (!flagAt && payload) flagAt = at(pose, payload.body, payload.local);
+    if (!flagAt) continue;
     const colour = part.status === "error" ? PALETTE.error : PALETTE.warning;
-    const x = at[0] + 6 * f.u;
+    const x = flagAt[0] + 6 * f.u;
     // Stack the flags so that two failing parts close together do not print over each other.
-    const y = Y(at[1]) - 10 * f.u - 15 * f.u * k++;
+    const y = Y(flagAt[1]) - 10 * f.u - 15 * f.u * k++;
     out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
     out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
     // Near the right edge the words go to the left of the mark, so they stay in the frame.
-    const leftward = x > vm.bounds[0] + 0.6 * (vm.bounds[2] - vm.bounds[0]);
+    const leftward = x > f.bounds[0] + 0.6 * (f.bounds[2] - f.bounds[0]);
     out += `<text x="${c2(leftward ? x - 9 * f.u : x + 9 * f.u)}" y="${c2(y + 4 * f.u)}"${leftward ? ` text-anchor="end"` : ""} font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(shortCodes(part.codes))}</text></g>`;
   }
   return out + "</g>";
 }
 
 function scaleBar(vm: ViewModel, f: Frame): string {
-  const [minX, minY, maxX] = vm.bounds;
+  const [minX, minY, maxX] = f.bounds;
   const span = maxX - minX;
-  const length = shownLength(vm.units);
+  // Drawing units (mm) per unit of length the reader works in.
+  const perUnit = mm(displayUnit("length", vm.units).factor);
   // A round length in the reader's unit, about a sixth of the frame.
-  const shown =
-    [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].find((s) => s / length.scale >= span / 6) ?? 1000;
-  const nice = shown / length.scale;
+  const shown = [0.5, 1, 2, 5, 10, 20, 50, 100, 200, 500, 1000].find((s) => s * perUnit >= span / 6) ?? 1000;
+  const nice = shown * perUnit;
   const x = minX + 8 * f.u;
   const y = Y(minY) - 8 * f.u;
   return (
     `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
-    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${length.symbol}</text></g>`
+    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${unitLabel("length", vm.units)}</text></g>`
   );
 }
 
@@ -265,11 +281,12 @@ export interface DrawOptions {
 
 /** The arm in pose `poseIndex` as an SVG string. */
 export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOptions = {}): string {
-  const [minX, minY, maxX, maxY] = vm.bounds;
+  const bounds = vm.bounds.map(mm) as Frame["bounds"];
+  const [minX, minY, maxX, maxY] = bounds;
   const w = maxX - minX;
   const h = maxY - minY;
   const widthPx = options.widthPx ?? 640;
-  const f: Frame = { u: w / widthPx };
+  const f: Frame = { u: w / widthPx, bounds };
   const heightPx = Math.round((widthPx * h) / w);
   const head = `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing" viewBox="${c2(minX)} ${c2(-maxY)} ${c2(w)} ${c2(h)}" width="${widthPx}" height="${heightPx}" role="img" aria-label="${esc(vm.title)}">`;
   const ground = `<rect x="${c2(minX)}" y="${c2(-maxY)}" width="${c2(w)}" height="${c2(h)}" fill="${PALETTE.paper}"/>`;
@@ -287,7 +304,9 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
     const hooks = pose.springs[s.id];
     if (hooks) springs += springMark(vm, s, hooks, status.get(s.id), pose.springForce[s.id], f);
   }
-  const angles = vm.dofs.map((d, i) => `${d.id} ${fig(pose.anglesDeg[i]!)}°`).join(", ");
+  const angles = vm.dofs
+    .map((d, i) => `${d.id} ${formatFigure(pose.angles[i]!, "angle", vm.units)}°`)
+    .join(", ");
   const caption = `<text class="pose-caption" x="${c2(minX + 8 * f.u)}" y="${c2(-maxY + 16 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(angles)}</text>`;
   return (
     head +

@@ -102,7 +102,8 @@ export function renderPlotSvg(spec: PlotSpec): string {
     out += `<text x="${W - PAD.right - 4}" y="${c2(top - 4)}" text-anchor="end" font-size="10" font-family="sans-serif" fill="${PALETTE.payload}">${esc(spec.band.label)}</text>`;
   }
   const xs = tickStep(x1 - x0, 6);
-  for (let t = Math.ceil(x0 / xs) * xs; t <= x1 + 1e-9; t += xs) {
+  // The ends of a range sit on ticks; round-off in the angle must not drop the first one.
+  for (let t = Math.ceil(x0 / xs - 1e-9) * xs; t <= x1 + 1e-9; t += xs) {
     out += `<line x1="${c2(sx(t))}" y1="${top}" x2="${c2(sx(t))}" y2="${H - PAD.bottom}" stroke="${PALETTE.grid}"/>`;
     out += `<text x="${c2(sx(t))}" y="${H - PAD.bottom + 14}" text-anchor="middle" font-size="10" font-family="sans-serif" fill="${PALETTE.muted}">${tickLabel(t, xs)}</text>`;
   }

@@ -12,14 +12,18 @@ const FRAME_MARGIN = 0.08;
 export const MAX_ENVELOPE_PATHS = 200;
 /** Directions in which the path reaching farthest is always kept. */
 const EXTREME_DIRECTIONS = 32;
+/** The margin is taken of at least this extent, m (a tiny arm is not drawn edge to edge). */
+const MIN_FRAME_EXTENT = 0.05;
+/** The frame when nothing is drawn, m: [minX, minY, maxX, maxY]. */
+export const EMPTY_BOUNDS: readonly [number, number, number, number] = [-0.1, -0.02, 0.4, 0.4];
 
 /** A run lies on the edge of the range when every other dof sits at one end of its values. */
 function onEdge(vm: ViewModel, d: number, run: readonly number[]): boolean {
   const pose = vm.poses[run[0]!]!;
   return vm.dofs.every((dof, i) => {
     if (i === d) return true;
-    const v = pose.anglesDeg[i]!;
-    return v === dof.valuesDeg[0] || v === dof.valuesDeg[dof.valuesDeg.length - 1];
+    const v = pose.angles[i]!;
+    return v === dof.values[0] || v === dof.values[dof.values.length - 1];
   });
 }
 
@@ -82,12 +86,12 @@ export function viewBounds(vm: ViewModel): [number, number, number, number] {
     maxY = Math.max(maxY, y);
   };
   for (const pose of vm.poses) for (const [x, y] of posePoints(vm, pose)) take(x, y);
-  take(0, vm.surfaceMm);
-  if (vm.footprintMm !== undefined) {
-    take(-vm.footprintMm / 2, vm.surfaceMm);
-    take(vm.footprintMm / 2, vm.surfaceMm);
+  take(0, vm.surface);
+  if (vm.footprint !== undefined) {
+    take(-vm.footprint / 2, vm.surface);
+    take(vm.footprint / 2, vm.surface);
   }
-  if (!Number.isFinite(minX)) return [-100, -20, 400, 400];
-  const margin = FRAME_MARGIN * Math.max(maxX - minX, maxY - minY, 50);
+  if (!Number.isFinite(minX)) return [...EMPTY_BOUNDS];
+  const margin = FRAME_MARGIN * Math.max(maxX - minX, maxY - minY, MIN_FRAME_EXTENT);
   return [minX - margin, minY - margin, maxX + margin, maxY + margin];
 }

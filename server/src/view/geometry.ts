@@ -1,11 +1,9 @@
-// Places local body points (mm) into the world frame of a view pose (through the plane's one
+// Places local body points (m) into the world frame of a view pose (through the plane's one
 // body-to-world transform) for the drawing, the envelope and the bounds.
 import type { ViewModel, ViewPose } from "./view-model";
 import { toWorld } from "../mechanics/plane";
 
-const RAD = Math.PI / 180;
-
-/** World mm of a local point (mm) on a body in a pose; undefined when the pose lacks the body. */
+/** World m of a local point (m) on a body in a pose; undefined when the pose lacks the body. */
 export function place(
   pose: ViewPose,
   bodyId: string,
@@ -13,7 +11,7 @@ export function place(
 ): [number, number] | undefined {
   const b = pose.bodies[bodyId];
   if (!b) return undefined;
-  const w = toWorld({ x: b[0], y: b[1], phi: b[2] * RAD }, { x: local[0], y: local[1] });
+  const w = toWorld({ x: b[0], y: b[1], phi: b[2] }, { x: local[0], y: local[1] });
   return [w.x, w.y];
 }
 

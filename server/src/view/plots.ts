@@ -4,20 +4,29 @@ import type { ViewModel } from "./view-model";
 import type { PlotSpec } from "./draw-plot";
 import { runThrough } from "./pose-lines";
 import { PALETTE, SERIES_CYCLE } from "./palette";
-import { fig } from "./text";
-import { shownForce, shownTorque } from "./display-units";
+import { formatFigureWithUnit, inDisplayUnit, unitLabel } from "../units/format";
 
 function along(vm: ViewModel, d: number, poseIndex: number): readonly number[] {
   return runThrough(vm.lines[d] ?? [], poseIndex);
 }
 
+/** An angle of the view model as the plots' x axis shows it. */
+function angleShown(vm: ViewModel, rad: number): number {
+  return inDisplayUnit(rad, "angle", vm.units);
+}
+
+/** Where the marker of the current pose sits on dof d's axis. */
+function markerAt(vm: ViewModel, d: number, poseIndex: number): number | undefined {
+  const a = vm.poses[poseIndex]?.angles[d];
+  return a === undefined ? undefined : angleShown(vm, a);
+}
+
 /** Holding torque against dof d, over the run through the current pose. */
 export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
-  const torque = shownTorque(vm.units);
-  const x = (p: number) => vm.poses[p]!.anglesDeg[d]!;
+  const x = (p: number) => angleShown(vm, vm.poses[p]!.angles[d]!);
   const pick = (key: "gravityTorque" | "springTorque" | "loadTorque" | "netTorque") =>
-    run.map((p) => [x(p), vm.poses[p]![key][d]! * torque.scale] as [number, number]);
+    run.map((p) => [x(p), inDisplayUnit(vm.poses[p]![key][d]!, "torque", vm.units)] as [number, number]);
   const series: PlotSpec["series"] = [
     { name: "gravity", colour: PALETTE.gravity, dashed: true, points: pick("gravityTorque") },
     { name: "springs", colour: PALETTE.spring, dashed: true, points: pick("springTorque") },
@@ -29,17 +38,16 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
   return {
     id: `torque-${vm.dofs[d]!.id}`,
     title: `Holding torque at ${vm.dofs[d]!.id}`,
-    xLabel: `${vm.dofs[d]!.id} angle, deg`,
-    yLabel: `torque to hold, ${torque.symbol} (CCW +)`,
+    xLabel: `${vm.dofs[d]!.id} angle, ${unitLabel("angle", vm.units)}`,
+    yLabel: `torque to hold, ${unitLabel("torque", vm.units)} (CCW +)`,
     series,
-    markerX: vm.poses[poseIndex]?.anglesDeg[d],
+    markerX: markerAt(vm, d, poseIndex),
   };
 }
 
 /** Hand force at every payload against dof d, with the `require balance` band. */
 export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
-  const force = shownForce(vm.units);
   const series: PlotSpec["series"] = [];
   let k = 0;
   for (const payload of vm.payloads) {
@@ -51,25 +59,31 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
         ...(c > 0 ? { dashed: true } : {}),
         points: run.map(
           (p) =>
-            [vm.poses[p]!.anglesDeg[d]!, (vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN) * force.scale] as [
-              number,
-              number,
-            ],
+            [
+              angleShown(vm, vm.poses[p]!.angles[d]!),
+              inDisplayUnit(vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN, "force", vm.units),
+            ] as [number, number],
         ),
       });
     });
   }
-  const limits = Object.values(vm.balanceLimitN);
-  const limit = limits.length ? Math.min(...limits) * force.scale : undefined;
+  const limits = Object.values(vm.balanceLimit);
+  const limit = limits.length ? Math.min(...limits) : undefined;
   return {
     id: `hand-${vm.dofs[d]!.id}`,
     title: `Hand force against ${vm.dofs[d]!.id}`,
-    xLabel: `${vm.dofs[d]!.id} angle, deg`,
-    yLabel: `hand force, ${force.symbol}`,
+    xLabel: `${vm.dofs[d]!.id} angle, ${unitLabel("angle", vm.units)}`,
+    yLabel: `hand force, ${unitLabel("force", vm.units)}`,
     series,
     ...(limit !== undefined
-      ? { band: { from: 0, to: limit, label: `require balance ${fig(limit)} ${force.symbol}` } }
+      ? {
+          band: {
+            from: 0,
+            to: inDisplayUnit(limit, "force", vm.units),
+            label: `require balance ${formatFigureWithUnit(limit, "force", vm.units)}`,
+          },
+        }
       : {}),
-    markerX: vm.poses[poseIndex]?.anglesDeg[d],
+    markerX: markerAt(vm, d, poseIndex),
   };
 }

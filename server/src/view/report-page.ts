@@ -10,6 +10,7 @@ import { MODEL_LIMITS, SAFETY_CAUTIONS } from "./limits";
 import { resultsTableHtml } from "./results-table";
 import { PALETTE } from "./palette";
 import { esc } from "./text";
+import { formatNumber, inDisplayUnit } from "../units/format";
 
 const REPORT_CSS = `
 body { font: 14px/1.45 system-ui, -apple-system, "Segoe UI", sans-serif; color: ${PALETTE.ink}; background: #fbf9f4; margin: 0; }
@@ -44,14 +45,14 @@ function verdict(vm: ViewModel): string {
 /** Small drawings at each end of every dof's range, the others as near their reference as the sweep has. */
 function rangeEnds(vm: ViewModel): string {
   if (vm.poses.length < 2) return "";
-  const spans = vm.dofs.map((d) => d.rangeDeg[1] - d.rangeDeg[0]);
-  const angles = vm.poses.map((p) => p.anglesDeg);
+  const spans = vm.dofs.map((d) => d.range[1] - d.range[0]);
+  const angles = vm.poses.map((p) => p.angles);
   let out = `<div class="ends">`;
   vm.dofs.forEach((d, i) => {
-    for (const end of [d.valuesDeg[0]!, d.valuesDeg[d.valuesDeg.length - 1]!]) {
-      const target = vm.dofs.map((o, k) => (k === i ? end : o.referenceDeg));
+    for (const end of [d.values[0]!, d.values[d.values.length - 1]!]) {
+      const target = vm.dofs.map((o, k) => (k === i ? end : o.reference));
       const p = nearestPose(angles, target, spans);
-      out += `<figure>${renderArmSvg(vm, p, { widthPx: 260 })}<figcaption>${esc(d.id)} at ${end}°</figcaption></figure>`;
+      out += `<figure>${renderArmSvg(vm, p, { widthPx: 260 })}<figcaption>${esc(d.id)} at ${formatNumber(inDisplayUnit(end, "angle", vm.units))}°</figcaption></figure>`;
     }
   });
   return out + "</div>";

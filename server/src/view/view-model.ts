@@ -1,5 +1,6 @@
 // The arm view model: plain JSON the preview panel and the HTML report draw from. Built once per
-// analysis (build-view-model.ts); fixed display units (mm, N, N*m, deg) like `poise sweep`.
+// analysis (build-view-model.ts). SI like the rest of the core (m, rad, kg, N, N*m); the drawing,
+// plots and tables show figures through units/format in the reader's unit system.
 import type { ResultsRecord } from "../checks/results";
 
 /** 0-based line/character range, as editors count them (so the client can reveal it as is). */
@@ -20,29 +21,29 @@ export interface ViewPart {
   codes: string[];
 }
 
-/** A drawable body: its centre line in local mm and its drawn thickness (section depth). */
+/** A drawable body: its centre line in local m and its drawn thickness (section depth). */
 export interface ViewBody {
   id: string;
   /** The part it belongs to (a parallelogram's bars and head belong to the parallelogram). */
   partId: string;
   kind: "base" | "link" | "bar" | "head";
-  /** Centre line, local mm: a polyline of [x, y] points. */
+  /** Centre line, local m: a polyline of [x, y] points. */
   line: [number, number][];
-  /** Thin brackets from the centre line out to points off it (hooks, payload seats), local mm. */
+  /** Thin brackets from the centre line out to points off it (hooks, payload seats), local m. */
   brackets: [number, number, number, number][];
-  /** Section depth in the arm's plane, mm (drawn to scale); undefined when the section is not given. */
-  depthMm?: number;
+  /** Section depth in the arm's plane, m (drawn to scale); undefined when the section is not given. */
+  depth?: number;
 }
 
 export interface ViewPivot {
   jointId: string;
   partId: string;
-  /** The child body and the pivot's point on it, local mm. */
+  /** The child body and the pivot's point on it, local m. */
   body: string;
   local: [number, number];
   mode: "range" | "fixed" | "passive";
-  /** Pin diameter, mm, when given. */
-  pinMm?: number;
+  /** Pin diameter, m, when given. */
+  pin?: number;
 }
 
 export interface ViewSpring {
@@ -50,32 +51,35 @@ export interface ViewSpring {
   kind: "extension" | "zero_length" | "elastic" | "gas" | "torsion";
   /** Torsion springs: the joint they act at. */
   jointId?: string;
-  /** Gas struts: length of the cylinder, mm (the rest of the eye-to-eye length is rod). */
-  cylinderMm?: number;
+  /** Gas struts: length of the cylinder, m (the rest of the eye-to-eye length is rod). */
+  cylinder?: number;
 }
 
 export interface ViewPayload {
   id: string;
   body: string;
+  /** Its centre on the body, local m. */
   local: [number, number];
-  massKg: number;
+  /** Nominal mass, kg. */
+  mass: number;
 }
 
 export interface ViewDof {
   id: string;
-  rangeDeg: [number, number];
-  referenceDeg: number;
-  /** The distinct values the sweep visited, deg, ascending. */
-  valuesDeg: number[];
+  /** Range and reference angle, rad. */
+  range: [number, number];
+  reference: number;
+  /** The distinct values the sweep visited, rad, ascending. */
+  values: number[];
 }
 
-/** One solved pose, in display units, nominal load case for the torques. */
+/** One solved pose, nominal load case for the torques. */
 export interface ViewPose {
-  /** Value of each dof, deg, in `dofs` order. */
-  anglesDeg: number[];
-  /** Body frame origin (mm) and x-axis angle (deg), by body id. */
+  /** Value of each dof, rad, in `dofs` order. */
+  angles: number[];
+  /** Body frame origin (m) and x-axis angle (rad), by body id. */
   bodies: Record<string, [number, number, number]>;
-  /** World hook points [ax, ay, bx, by] mm, by spring id (torsion: the pivot twice). */
+  /** World hook points [ax, ay, bx, by] m, by spring id (torsion: the pivot twice). */
   springs: Record<string, [number, number, number, number]>;
   /** Holding torque from the sweep, N*m, in `dofs` order. */
   netTorque: number[];
@@ -110,15 +114,16 @@ export interface ViewFinding {
 }
 
 export interface ViewModel {
-  version: 1;
+  /** 2: SI figures (1 held mm and deg). */
+  version: 2;
   title: string;
-  /** The reader's unit system for figures and labels (the numbers here stay mm, N, N*m). */
+  /** The reader's unit system for figures and labels (the numbers here stay SI). */
   units: "si" | "us";
-  /** Bench surface height, mm. */
-  surfaceMm: number;
-  /** Base footprint width along x, mm, centred on x = 0, when given. */
-  footprintMm?: number;
-  /** World extent over every pose, mm: [minX, minY, maxX, maxY]. */
+  /** Bench surface height, m. */
+  surface: number;
+  /** Base footprint width along x, m, centred on x = 0, when given. */
+  footprint?: number;
+  /** World extent over every pose, m: [minX, minY, maxX, maxY]. */
   bounds: [number, number, number, number];
   parts: ViewPart[];
   bodies: ViewBody[];
@@ -133,10 +138,10 @@ export interface ViewModel {
   /** For each dof (same order), runs of pose indices along which only that dof changes, sorted by
    * its angle: a plot against that dof uses the run through the current pose. */
   lines: number[][][];
-  /** Payload paths: polylines (world mm) along the outer edges of the swept range, by payload. */
+  /** Payload paths: polylines (world m) along the outer edges of the swept range, by payload. */
   envelope: Record<string, [number, number][][]>;
   /** `require balance` per payload, N. */
-  balanceLimitN: Record<string, number>;
+  balanceLimit: Record<string, number>;
   requiredSafety: number;
   safety: SafetyRow[];
   /** Every figure behind the checks, pass or fail (SI, each with its dimension). */
