@@ -3,7 +3,18 @@
 import { describe, expect, test } from "vitest";
 import * as math from "mathjs";
 import { checkQuantity, parseUnit, fromSI } from "../../server/src/units/quantity";
-import { formatQuantity, formatInOtherSystem, formatNumber } from "../../server/src/units/format";
+import {
+  displayUnit,
+  formatFigure,
+  formatFigureWithUnit,
+  formatInOtherSystem,
+  formatNumber,
+  formatQuantity,
+  inDisplayUnit,
+  tableUnit,
+  toTableUnit,
+  unitLabel,
+} from "../../server/src/units/format";
 import { UNIT_SYMBOLS } from "../../server/src/units/unit-table";
 import { DIMENSIONS } from "../../server/src/units/dimension";
 import { closestWord, editDistance } from "../../server/src/units/did-you-mean";
@@ -205,6 +216,31 @@ describe("display", () => {
     );
     expect(formatQuantity(Math.PI / 6, "angle", "si")).toBe("30 deg");
     expect(formatQuantity(2.5, "dimensionless", "si")).toBe("2.5");
+  });
+  test("tables keep one unit per dimension whatever the size; reading switches", () => {
+    // 0.25 kg: 250 g to read, 0.25 kg in a table column headed kg.
+    expect(displayUnit("mass", "si", 0.25).symbol).toBe("g");
+    expect(tableUnit("mass", "si")).toBe("kg");
+    expect(toTableUnit(0.25, "mass", "si")).toBe(0.25);
+    // 0.25 kg = 0.25 / 0.45359237 lb = 8.818 oz to read; lb in a table (NIST SP 811 appendix B).
+    expect(displayUnit("mass", "us", 0.25).symbol).toBe("oz");
+    expect(toTableUnit(0.25, "mass", "us")).toBeCloseTo(0.25 / 0.45359237, 12);
+    // 200 GPa reads in GPa; a table of stresses stays in MPa.
+    expect(displayUnit("pressure", "si", 200e9).symbol).toBe("GPa");
+    expect(toTableUnit(200e9, "pressure", "si")).toBeCloseTo(200e3, 6);
+    // Every other dimension reads in its table unit.
+    for (const system of ["si", "us"] as const)
+      for (const d of Object.keys(DIMENSIONS) as (keyof typeof DIMENSIONS)[])
+        if (d !== "mass" && d !== "pressure")
+          expect(displayUnit(d, system, 1).symbol).toBe(tableUnit(d, system));
+  });
+  test("figures for tables and drawings, units set for reading", () => {
+    // 12.4 N*m to three digits; in lbf*in, 12.4 / (0.45359237 x 9.80665 x 0.0254) = 109.75.
+    expect(formatFigureWithUnit(12.4, "torque", "si")).toBe("12.4 N·m");
+    expect(formatFigure(12.4, "torque", "us")).toBe("110");
+    expect(inDisplayUnit(Math.PI / 6, "angle", "si")).toBeCloseTo(30, 12);
+    expect(unitLabel("area", "si")).toBe("mm²");
+    expect(formatFigure(NaN, "force", "si")).toBe("–");
   });
   test("the other system for hovers", () => {
     expect(formatInOtherSystem(0.0254, "length", "mm")).toBe("1 in");

@@ -6,7 +6,7 @@
 import type { ArmModel } from "../model/types";
 import type { DimensionName } from "../units/dimension";
 import type { UnitSystem } from "../units/unit-table";
-import { TABLE_UNITS, toTableUnit } from "../units/table-units";
+import { tableUnit, toTableUnit } from "../units/format";
 import { checkOf, type Figure, type PartKind, type Readouts } from "./readout";
 
 /** A figure of the record, SI: a value, or a [least, greatest] pair. */
@@ -179,7 +179,7 @@ function unitsOf(record: ResultsRecord, system: UnitSystem): Record<string, stri
   visit(record.base);
   visit(record.arm);
   for (const section of Object.values(record.sections)) for (const m of Object.values(section)) visit(m);
-  return Object.fromEntries([...used].map((d) => [d, TABLE_UNITS[system][d]]));
+  return Object.fromEntries([...used].map((d) => [d, tableUnit(d, system)]));
 }
 
 /** The record as `poise results --json` prints it (cli.md): figures in the table units of

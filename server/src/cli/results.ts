@@ -5,7 +5,7 @@ import { analyse } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
 import { buildResults, resultsJson, type FigureMap, type ResultsRecord } from "../checks/results";
 import { formatNumber } from "../units/format";
-import { TABLE_UNITS, toTableUnit } from "../units/table-units";
+import { tableUnit, toTableUnit } from "../units/format";
 import type { UnitSystem } from "../units/unit-table";
 import { readSpec, type Output } from "./io";
 
@@ -61,7 +61,7 @@ function figureText(map: FigureMap, system: UnitSystem): string {
   return Object.entries(map)
     .map(([key, f]) => {
       if (!f) return `${words(key)} -`;
-      const unit = TABLE_UNITS[system][f.dimension];
+      const unit = tableUnit(f.dimension, system);
       const n = (v: number) => formatNumber(toTableUnit(v, f.dimension, system));
       const value = f.high === undefined ? n(f.value) : `${n(f.value)} .. ${n(f.high)}`;
       return `${words(key)} ${value}${unit ? ` ${unit}` : ""}`;
@@ -94,9 +94,8 @@ export function resultsText(record: ResultsRecord, system: UnitSystem): string {
   lines.push(figureText(record.arm, system));
   lines.push(`base: ${figureText(record.base, system)}`);
   for (const name of Object.keys(record.sections)) if (name !== "payloads") section(name);
-  const units = Object.entries(TABLE_UNITS[system])
-    .filter(([d]) => ["length", "force", "torque", "angle", "frequency"].includes(d))
-    .map(([d, u]) => `${d} ${u}`)
+  const units = (["length", "force", "torque", "angle", "frequency"] as const)
+    .map((d) => `${d} ${tableUnit(d, system)}`)
     .join(", ");
   lines.push(`units: ${units}; safety factors are plain numbers; - where not computed or unlimited`);
   return `${lines.join("\n")}\n`;

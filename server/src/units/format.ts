@@ -12,71 +12,87 @@ export interface DisplayUnit {
   factor: number;
 }
 
-/** The unit shown for each dimension; mass and US pressure switch unit with size. */
-export function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI = 0): DisplayUnit {
-  const unit = (symbol: string): DisplayUnit => {
+/** The units of one dimension: `unit` in tables and machine-readable output (one unit for a
+ * whole column, whatever the size); for reading, a smaller unit below a size or a larger one from
+ * a size (sizes in SI). */
+interface UnitChoice {
+  unit: string;
+  small?: { unit: string; belowSI: number };
+  large?: { unit: string; fromSI: number };
+}
+
+const factors = new Map<string, number>();
+/** SI value of one of `symbol` (1 for a unit that cannot be read, and for no unit). */
+function factorOf(symbol: string): number {
+  let f = factors.get(symbol);
+  if (f === undefined) {
     const parsed = parseUnit(symbol);
-    return { symbol, factor: parsed.ok ? parsed.unit.factor : 1 };
-  };
+    f = parsed.ok ? parsed.unit.factor : 1;
+    factors.set(symbol, f);
+  }
+  return f;
+}
+
+/** The one table of the units figures are shown in, per system and dimension. SI as `poise
+ * sweep` fixes them (mm, N, N*m, deg), US customary in the units a US drawing uses; masses
+ * under a kilogram (a pound) read in g (oz), moduli from 10 GPa (1 ksi) in GPa (ksi). */
+const UNITS: Readonly<Record<UnitSystem, Readonly<Record<DimensionName, UnitChoice>>>> = {
+  si: {
+    length: { unit: "mm" },
+    area: { unit: "mm^2" },
+    mass: { unit: "kg", small: { unit: "g", belowSI: 1 } },
+    force: { unit: "N" },
+    torque: { unit: "N*m" },
+    stiffness: { unit: "N/mm" },
+    angular_stiffness: { unit: "N*mm/deg" },
+    angle: { unit: "deg" },
+    // moduli read in GPa, stresses in MPa
+    pressure: { unit: "MPa", large: { unit: "GPa", fromSI: 1e10 } },
+    density: { unit: "g/cm^3" },
+    acceleration: { unit: "m/s^2" },
+    frequency: { unit: "Hz" },
+    dimensionless: { unit: "" },
+  },
+  us: {
+    length: { unit: "in" },
+    area: { unit: "in^2" },
+    mass: { unit: "lb", small: { unit: "oz", belowSI: factorOf("lb") } },
+    force: { unit: "lbf" },
+    torque: { unit: "lbf*in" },
+    stiffness: { unit: "lbf/in" },
+    angular_stiffness: { unit: "lbf*in/deg" },
+    angle: { unit: "deg" },
+    pressure: { unit: "psi", large: { unit: "ksi", fromSI: factorOf("ksi") } },
+    density: { unit: "lb/in^3" },
+    acceleration: { unit: "ft/s^2" },
+    frequency: { unit: "Hz" },
+    dimensionless: { unit: "" },
+  },
+};
+
+/** The unit a value is shown in for reading; mass and pressure switch unit with size. */
+export function displayUnit(dimension: DimensionName, system: UnitSystem, valueSI = 0): DisplayUnit {
+  const choice = UNITS[system][dimension];
   const big = Math.abs(valueSI);
-  if (system === "si") {
-    switch (dimension) {
-      case "length":
-        return unit("mm");
-      case "area":
-        return unit("mm^2");
-      case "mass":
-        return unit(big >= 1 ? "kg" : "g");
-      case "force":
-        return unit("N");
-      case "torque":
-        return unit("N*m");
-      case "stiffness":
-        return unit("N/mm");
-      case "angular_stiffness":
-        return unit("N*mm/deg");
-      case "angle":
-        return unit("deg");
-      case "pressure":
-        return unit(big >= 1e10 ? "GPa" : "MPa"); // moduli read in GPa, stresses in MPa
-      case "density":
-        return unit("g/cm^3");
-      case "acceleration":
-        return unit("m/s^2");
-      case "frequency":
-        return unit("Hz");
-      case "dimensionless":
-        return { symbol: "", factor: 1 };
-    }
-  }
-  switch (dimension) {
-    case "length":
-      return unit("in");
-    case "area":
-      return unit("in^2");
-    case "mass":
-      return unit(big >= unit("lb").factor ? "lb" : "oz");
-    case "force":
-      return unit("lbf");
-    case "torque":
-      return unit("lbf*in");
-    case "stiffness":
-      return unit("lbf/in");
-    case "angular_stiffness":
-      return unit("lbf*in/deg");
-    case "angle":
-      return unit("deg");
-    case "pressure":
-      return unit(big >= unit("ksi").factor ? "ksi" : "psi");
-    case "density":
-      return unit("lb/in^3");
-    case "acceleration":
-      return unit("ft/s^2");
-    case "frequency":
-      return unit("Hz");
-    case "dimensionless":
-      return { symbol: "", factor: 1 };
-  }
+  const symbol =
+    choice.small && !(big >= choice.small.belowSI)
+      ? choice.small.unit
+      : choice.large && big >= choice.large.fromSI
+        ? choice.large.unit
+        : choice.unit;
+  return { symbol, factor: symbol ? factorOf(symbol) : 1 };
+}
+
+/** The unit of a dimension in tables and machine-readable output (`poise results`): the same
+ * whatever the size, so a column of figures reads with one header. */
+export function tableUnit(dimension: DimensionName, system: UnitSystem): string {
+  return UNITS[system][dimension].unit;
+}
+
+/** An SI value in the table unit of its dimension. */
+export function toTableUnit(valueSI: number, dimension: DimensionName, system: UnitSystem): number {
+  const unit = tableUnit(dimension, system);
+  return unit ? valueSI / factorOf(unit) : valueSI;
 }
 
 /** Significant figures shown: enough to compare designs, few enough to read at a glance
