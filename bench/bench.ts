@@ -10,7 +10,7 @@ import { buildLinkage } from "../server/src/mechanics/linkage";
 import type { ArmModel } from "../server/src/model/types";
 import { TYPICAL_ARM } from "./typical-arm";
 import { runLatencyBench } from "./latency";
-import { DEFAULT_SETTINGS } from "../server/src/lsp/settings";
+import { DEFAULT_SETTINGS } from "../server/src/lsp/session/settings";
 
 /** Targets of the mechanics issue: a typical arm (up to 12 bodies, 3 dof) analysed end to end in
  * 20 ms, and a pose costing at most 5 bare LU solves of the same size. */

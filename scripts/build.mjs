@@ -5,8 +5,8 @@ import { existsSync } from "node:fs";
 const entries = [
   { in: "client/src/extension.ts", out: "client", external: ["vscode"] },
   { in: "server/src/lsp/main.ts", out: "server" },
-  // The analysis runs off the server's request path in this worker (server/src/lsp/runner.ts).
-  { in: "server/src/lsp/analysis-worker.ts", out: "analysis-worker" },
+  // The analysis runs off the server's request path in this worker (server/src/lsp/session/runner.ts).
+  { in: "server/src/lsp/session/analysis-worker.ts", out: "analysis-worker" },
   { in: "server/src/cli/main.ts", out: "cli" },
   { in: "bench/bench.ts", out: "bench" },
 ];

@@ -10,7 +10,7 @@ import { CODES } from "../../server/src/findings/codes";
 import type { Finding } from "../../server/src/findings/finding";
 import type { Span } from "../../server/src/syntax/span";
 import type { Pose } from "../../server/src/mechanics/types";
-import { formatSpec } from "../../server/src/lsp/format-text";
+import { formatSpec } from "../../server/src/services/format-text";
 
 /** Poses per degree of freedom during fuzzing: enough to walk a range (ends and middle), few
  * enough that thousands of cases fit in the CI budget. */
@@ -105,7 +105,7 @@ export function checkText(text: string, options: { alwaysDeterminism?: boolean }
   return violations;
 }
 
-/** The formatter (server/src/lsp/format-text.ts) on any text: returns, is idempotent, and keeps
+/** The formatter (server/src/services/format-text.ts) on any text: returns, is idempotent, and keeps
  * every word (only spaces, line ends and `;` separators may change). */
 function checkFormatting(text: string): Violation[] {
   let once: string;

@@ -4,10 +4,10 @@ import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { TextDocument } from "vscode-languageserver-textdocument";
-import { completionsAt } from "../../server/src/lsp/completion";
-import { SyntaxViews } from "../../server/src/lsp/syntax-view";
+import { completionsAt } from "../../server/src/lsp/features/completion";
+import { SyntaxViews } from "../../server/src/lsp/session/syntax-view";
 import { BUILTIN_MATERIAL_IDS } from "../../server/src/model/materials";
-import { UNITS_BY_DIMENSION } from "../../server/src/lsp/unit-words";
+import { UNITS_BY_DIMENSION } from "../../server/src/services/unit-words";
 
 const root = join(__dirname, "..", "..");
 const MAGNIFIER = readFileSync(join(root, "samples", "magnifier-arm.poise"), "utf8");

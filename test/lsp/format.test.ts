@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { formatSpec } from "../../server/src/lsp/format-text";
+import { formatSpec } from "../../server/src/services/format-text";
 import { parse } from "../../server/src/syntax/parser";
 import { armLexer } from "../../server/src/syntax/tokens";
 

@@ -3,7 +3,7 @@
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
-import { UNITS_BY_DIMENSION } from "../../server/src/lsp/unit-words";
+import { UNITS_BY_DIMENSION } from "../../server/src/services/unit-words";
 import { DECLARATIONS } from "../../server/src/model/schema";
 
 const grammar = JSON.parse(

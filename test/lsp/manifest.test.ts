@@ -5,7 +5,7 @@ import { describe, expect, it } from "vitest";
 import { spawnSync } from "node:child_process";
 import { existsSync, readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
-import { DEFAULT_SETTINGS } from "../../server/src/lsp/settings";
+import { DEFAULT_SETTINGS } from "../../server/src/lsp/session/settings";
 import { ensureBuilt } from "./protocol-client";
 
 const root = join(__dirname, "..", "..");

@@ -14,7 +14,7 @@ import {
   occurrenceAt,
   occurrencesOf,
   type NameIndex,
-} from "../../server/src/lsp/names";
+} from "../../server/src/services/names";
 
 const root = join(__dirname, "..", "..");
 const samples = ["camera-arm", "engraver-arm", "magnifier-arm", "mistakes"].map((n) =>

@@ -5,7 +5,7 @@ import { beforeAll, describe, expect, it } from "vitest";
 import { mkdtempSync, readFileSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
-import { FallbackRunner, WorkerRunner } from "../../server/src/lsp/runner";
+import { FallbackRunner, WorkerRunner } from "../../server/src/lsp/session/runner";
 import { analyse } from "../../server/src/analysis";
 import { ROOT, ensureBuilt } from "./protocol-client";
 

@@ -4,9 +4,9 @@
 // from the last good analysis while the text is broken.
 import { describe, expect, it } from "vitest";
 import type { Analysis, AnalysisOptions } from "../../server/src/analysis";
-import type { AnalysisRunner, RunHandle, RunOutcome } from "../../server/src/lsp/runner";
-import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/scheduler";
-import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/settings";
+import type { AnalysisRunner, RunHandle, RunOutcome } from "../../server/src/lsp/session/runner";
+import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/session/scheduler";
+import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/session/settings";
 import type { ArmModel } from "../../server/src/model/types";
 import type { SweepResult } from "../../server/src/mechanics/types";
 

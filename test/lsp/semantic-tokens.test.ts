@@ -3,8 +3,8 @@ import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
 import { TextDocument } from "vscode-languageserver-textdocument";
-import { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from "../../server/src/lsp/semantic-tokens";
-import { SyntaxViews } from "../../server/src/lsp/syntax-view";
+import { semanticTokens, TOKEN_MODIFIERS, TOKEN_TYPES } from "../../server/src/lsp/features/semantic-tokens";
+import { SyntaxViews } from "../../server/src/lsp/session/syntax-view";
 import { BUILTIN_MATERIAL_IDS } from "../../server/src/model/materials";
 import { LineIndex } from "../../server/src/syntax/span";
 

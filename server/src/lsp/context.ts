@@ -8,9 +8,9 @@ import type {
 } from "vscode-languageserver";
 import type { TextDocument } from "vscode-languageserver-textdocument";
 import type { Analysis } from "../analysis";
-import type { AnalysisScheduler } from "./scheduler";
-import type { Settings } from "./settings";
-import type { SyntaxView } from "./syntax-view";
+import type { AnalysisScheduler } from "./session/scheduler";
+import type { Settings } from "./session/settings";
+import type { SyntaxView } from "./session/syntax-view";
 
 export interface FeatureContext {
   connection: Connection;

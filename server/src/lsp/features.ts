@@ -1,16 +1,16 @@
 // The list of editor features the server installs. A new feature is one file exporting a
 // ServerFeature and one line in FEATURES below.
 import type { ServerFeature } from "./context";
-import { documentSymbolsFeature } from "./document-symbols";
-import { navigationFeature } from "./navigation";
-import { completionFeature } from "./completion";
-import { hoverFeature } from "./hover";
-import { foldingFeature } from "./folding";
-import { semanticTokensFeature } from "./semantic-tokens";
-import { formattingFeature } from "./formatting";
-import { inlayHintsFeature } from "./inlay-hints";
-import { codeActionsFeature } from "./code-actions";
-import { previewFeature } from "./preview-request";
+import { documentSymbolsFeature } from "./features/document-symbols";
+import { navigationFeature } from "./features/navigation";
+import { completionFeature } from "./features/completion";
+import { hoverFeature } from "./features/hover";
+import { foldingFeature } from "./features/folding";
+import { semanticTokensFeature } from "./features/semantic-tokens";
+import { formattingFeature } from "./features/formatting";
+import { inlayHintsFeature } from "./features/inlay-hints";
+import { codeActionsFeature } from "./features/code-actions";
+import { previewFeature } from "./features/preview-request";
 
 export const FEATURES: ServerFeature[] = [
   documentSymbolsFeature,

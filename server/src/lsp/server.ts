@@ -16,12 +16,12 @@ import { findingsToDiagnostics } from "./convert";
 import type { FeatureContext } from "./context";
 import { SPEC_SUMMARY_NOTIFICATION, REANALYSE_REQUEST, type ReanalyseParams } from "./custom-protocol";
 import { FEATURES } from "./features";
-import { createRunner } from "./runner";
+import { createRunner } from "./session/runner";
 import { attempt, guarded, reportFault, setFaultLogger } from "./safe";
-import { AnalysisScheduler, type PublishedAnalysis } from "./scheduler";
-import { DEFAULT_SETTINGS, readSettings, type Settings } from "./settings";
-import { specSummary } from "./summary";
-import { SyntaxViews } from "./syntax-view";
+import { AnalysisScheduler, type PublishedAnalysis } from "./session/scheduler";
+import { DEFAULT_SETTINGS, readSettings, type Settings } from "./session/settings";
+import { specSummary } from "./features/summary";
+import { SyntaxViews } from "./session/syntax-view";
 
 export const SERVER_NAME = "counterpoise";
 export const SERVER_VERSION = "0.1.0";

@@ -3,23 +3,23 @@
 // under the cursor; on a part's name, the findings about it (by their subject). Figures come from
 // the last good analysis while a new one runs.
 import type { Hover } from "vscode-languageserver";
-import type { Analysis } from "../analysis";
-import { CODES } from "../findings/codes";
-import type { Finding } from "../findings/finding";
-import type { PartReadout } from "../checks/readout";
-import type { ArmModel, Body, Spring } from "../model/types";
-import { ARM_PROPERTIES, declarationSpec } from "../model/schema";
-import { spanContains } from "../syntax/span";
-import type { QuantityNode } from "../syntax/ast";
-import { formatNumber, formatQuantity, formatResult, otherSystem } from "../units/format";
-import { parseUnit, dimensionNameOf } from "../units/quantity";
-import type { UnitSystem } from "../units/unit-table";
-import type { ServerFeature } from "./context";
-import { spanToRange } from "./convert";
-import { occurrenceAt, type NameSymbol } from "./names";
-import { guarded } from "./safe";
-import type { SyntaxView } from "./syntax-view";
-import { spotAt } from "./tree-walk";
+import type { Analysis } from "../../analysis";
+import { CODES } from "../../findings/codes";
+import type { Finding } from "../../findings/finding";
+import type { PartReadout } from "../../checks/readout";
+import type { ArmModel, Body, Spring } from "../../model/types";
+import { ARM_PROPERTIES, declarationSpec } from "../../model/schema";
+import { spanContains } from "../../syntax/span";
+import type { QuantityNode } from "../../syntax/ast";
+import { formatNumber, formatQuantity, formatResult, otherSystem } from "../../units/format";
+import { parseUnit, dimensionNameOf } from "../../units/quantity";
+import type { UnitSystem } from "../../units/unit-table";
+import type { ServerFeature } from "../context";
+import { spanToRange } from "../convert";
+import { occurrenceAt, type NameSymbol } from "../../services/names";
+import { guarded } from "../safe";
+import type { SyntaxView } from "../session/syntax-view";
+import { spotAt } from "../../services/tree-walk";
 
 const f = formatQuantity;
 

@@ -3,11 +3,11 @@
 // text as typed while the heavy analysis runs elsewhere (a fast parse until the analysis of this
 // very text arrives; then its tree and the model builder's symbol table).
 import type { TextDocument } from "vscode-languageserver-textdocument";
-import { parse } from "../syntax/parser";
-import type { SyntaxTree } from "../syntax/ast";
-import { LineIndex } from "../syntax/span";
-import { buildNameIndex, mergeNameIndexes, nameIndexFromSymbols, type NameIndex } from "./names";
-import type { Analysis } from "../analysis";
+import { parse } from "../../syntax/parser";
+import type { SyntaxTree } from "../../syntax/ast";
+import { LineIndex } from "../../syntax/span";
+import { buildNameIndex, mergeNameIndexes, nameIndexFromSymbols, type NameIndex } from "../../services/names";
+import type { Analysis } from "../../analysis";
 
 export interface SyntaxView {
   uri: string;

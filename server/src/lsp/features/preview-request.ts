@@ -1,10 +1,10 @@
 // Answers the preview panel's request for a document's arm view model: the analysis of the
 // document's current version (waiting briefly for it), else the latest one there is.
-import type { FeatureContext, ServerFeature } from "./context";
-import { guarded } from "./safe";
-import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "./preview-protocol";
-import { buildViewModel } from "../view";
-import type { Analysis } from "../analysis";
+import type { FeatureContext, ServerFeature } from "../context";
+import { guarded } from "../safe";
+import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "../preview-protocol";
+import { buildViewModel } from "../../view";
+import type { Analysis } from "../../analysis";
 
 /** How long the request waits for the current text's analysis before answering with an older
  * one: a little over the usual typing debounce plus a sweep (common practice, no source). */

@@ -1,8 +1,8 @@
 // Folding: the arm block, each declaration, and runs of two or more comment lines.
 import { FoldingRangeKind, type FoldingRange } from "vscode-languageserver";
-import type { ServerFeature } from "./context";
-import type { SyntaxView } from "./syntax-view";
-import { guarded } from "./safe";
+import type { ServerFeature } from "../context";
+import type { SyntaxView } from "../session/syntax-view";
+import { guarded } from "../safe";
 
 export function foldingRanges(view: SyntaxView): FoldingRange[] {
   const out: FoldingRange[] = [];

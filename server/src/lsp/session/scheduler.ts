@@ -1,12 +1,12 @@
 // Bounded analysis per document: debounce keystrokes, run only the latest text, drop results that
 // arrive for a text already changed, stop a stale run that has gone on too long, and keep the last
 // good analysis to answer hover and completion while a new run is under way.
-import type { Analysis, AnalysisOptions } from "../analysis";
-import { finding } from "../findings/finding";
-import type { SyntaxTree } from "../syntax/ast";
+import type { Analysis, AnalysisOptions } from "../../analysis";
+import { finding } from "../../findings/finding";
+import type { SyntaxTree } from "../../syntax/ast";
 import type { AnalysisRunner, RunHandle } from "./runner";
 import type { Settings } from "./settings";
-import { reportFault } from "./safe";
+import { reportFault } from "../safe";
 
 /** A stale run younger than this is left to finish (its result is dropped): restarting the
  * worker costs about as much as a small analysis. Common practice, no source. */

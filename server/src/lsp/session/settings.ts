@@ -1,7 +1,7 @@
 // The user's settings for the server, under the `counterpoise.` prefix, with their defaults.
 // VS Code sends them through workspace/configuration; other editors through initializationOptions.
 
-import type { UnitSystem } from "../units/unit-table";
+import type { UnitSystem } from "../../units/unit-table";
 
 export interface Settings {
   displayUnits: UnitSystem;

@@ -1,10 +1,10 @@
 // The one-line summary of a spec for the client's status bar: the worst hand force needed to hold
 // a payload anywhere in range, and the least safety factor of any part.
-import type { Analysis } from "../analysis";
-import type { SpecSummary } from "./custom-protocol";
-import { formatNumber, formatQuantity } from "../units/format";
-import type { Settings } from "./settings";
-import { REQUIREMENT_DEFAULTS } from "../model/schema";
+import type { Analysis } from "../../analysis";
+import type { SpecSummary } from "../custom-protocol";
+import { formatNumber, formatQuantity } from "../../units/format";
+import type { Settings } from "../session/settings";
+import { REQUIREMENT_DEFAULTS } from "../../model/schema";
 
 export function worstHandForce(analysis: Analysis): { valueN: number; payload: string } | undefined {
   let worst: { valueN: number; payload: string } | undefined;

@@ -4,7 +4,7 @@
 import { existsSync } from "node:fs";
 import { join } from "node:path";
 import { Worker } from "node:worker_threads";
-import { analyse, type Analysis, type AnalysisOptions } from "../analysis";
+import { analyse, type Analysis, type AnalysisOptions } from "../../analysis";
 import type { WorkerReply, WorkerRequest } from "./worker-protocol";
 
 export type RunOutcome =

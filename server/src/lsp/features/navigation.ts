@@ -10,12 +10,12 @@ import {
   type DocumentHighlight,
   DocumentHighlightKind,
 } from "vscode-languageserver";
-import type { ServerFeature } from "./context";
-import { spanToRange } from "./convert";
-import { IDENTIFIER, occurrenceAt, occurrencesOf, type NameSymbol } from "./names";
-import { guarded } from "./safe";
-import type { SyntaxView } from "./syntax-view";
-import { DECLARATIONS } from "../model/schema";
+import type { ServerFeature } from "../context";
+import { spanToRange } from "../convert";
+import { IDENTIFIER, occurrenceAt, occurrencesOf, type NameSymbol } from "../../services/names";
+import { guarded } from "../safe";
+import type { SyntaxView } from "../session/syntax-view";
+import { DECLARATIONS } from "../../model/schema";
 
 function symbolAt(view: SyntaxView, offset: number): { symbol: NameSymbol; range: Range } | undefined {
   const occ = occurrenceAt(view.names, offset);

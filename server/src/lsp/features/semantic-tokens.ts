@@ -2,13 +2,13 @@
 // strings and names coloured by what they name (body, stage, joint, spring, payload, material,
 // point). Standard token types where one fits; `unit` is our own (package.json gives its super type).
 import { SemanticTokensBuilder, type SemanticTokens, type SemanticTokensLegend } from "vscode-languageserver";
-import type { ValueNode } from "../syntax/ast";
-import type { Span } from "../syntax/span";
-import type { ServerFeature } from "./context";
-import { CONNECTIVES, SECTION_SHAPES, type NameKind } from "./names";
-import { guarded } from "./safe";
-import type { SyntaxView } from "./syntax-view";
-import { allQuantities } from "./tree-walk";
+import type { ValueNode } from "../../syntax/ast";
+import type { Span } from "../../syntax/span";
+import type { ServerFeature } from "../context";
+import { CONNECTIVES, SECTION_SHAPES, type NameKind } from "../../services/names";
+import { guarded } from "../safe";
+import type { SyntaxView } from "../session/syntax-view";
+import { allQuantities } from "../../services/tree-walk";
 
 export const TOKEN_TYPES = [
   "keyword",

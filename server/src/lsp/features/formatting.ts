@@ -1,9 +1,9 @@
 // Document formatting: replaces the text with its canonical layout (format-text.ts).
 import type { TextEdit } from "vscode-languageserver";
-import type { ServerFeature } from "./context";
-import { formatSpec } from "./format-text";
-import { guarded } from "./safe";
-import { MAX_SPEC_CHARS } from "../limits";
+import type { ServerFeature } from "../context";
+import { formatSpec } from "../../services/format-text";
+import { guarded } from "../safe";
+import { MAX_SPEC_CHARS } from "../../limits";
 
 export const formattingFeature: ServerFeature = {
   name: "formatting",

@@ -7,15 +7,15 @@ import {
   type Diagnostic,
   type TextEdit,
 } from "vscode-languageserver";
-import type { FeatureContext, ServerFeature } from "./context";
-import type { DiagnosticData } from "./convert";
-import { DIAGNOSTIC_SOURCE } from "./convert";
-import { guarded } from "./safe";
-import { cachedFixes } from "../fixes";
-import { parse } from "../syntax/parser";
-import { LineIndex } from "../syntax/span";
-import { CODES } from "../findings/codes";
-import type { FixRequest, TextFix } from "../findings/fix";
+import type { FeatureContext, ServerFeature } from "../context";
+import type { DiagnosticData } from "../convert";
+import { DIAGNOSTIC_SOURCE } from "../convert";
+import { guarded } from "../safe";
+import { cachedFixes } from "../../fixes";
+import { parse } from "../../syntax/parser";
+import { LineIndex } from "../../syntax/span";
+import { CODES } from "../../findings/codes";
+import type { FixRequest, TextFix } from "../../findings/fix";
 
 function toAction(uri: string, index: LineIndex, fix: TextFix, diagnostic: Diagnostic): CodeAction {
   const edits: TextEdit[] = fix.edits.map((e) => ({

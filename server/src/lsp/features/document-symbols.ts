@@ -1,10 +1,10 @@
 // The outline: the arm, its declarations, and inside them named points and properties.
 import { SymbolKind, type DocumentSymbol } from "vscode-languageserver";
-import type { DeclarationNode, PropertyNode } from "../syntax/ast";
-import type { LineIndex } from "../syntax/span";
-import type { ServerFeature } from "./context";
-import { spanToRange } from "./convert";
-import { guarded } from "./safe";
+import type { DeclarationNode, PropertyNode } from "../../syntax/ast";
+import type { LineIndex } from "../../syntax/span";
+import type { ServerFeature } from "../context";
+import { spanToRange } from "../convert";
+import { guarded } from "../safe";
 
 const KIND_OF_DECLARATION: Record<string, SymbolKind> = {
   material: SymbolKind.Constant,

@@ -1,10 +1,10 @@
 // Inlay hints: at the end of each declaration's first line, its least safety factor or, without
 // one, its first figure from the analysis (setting counterpoise.inlayHints turns them off).
 import { InlayHintKind, type InlayHint } from "vscode-languageserver";
-import { formatNumber, formatResult } from "../units/format";
-import type { ServerFeature } from "./context";
-import { guarded } from "./safe";
-import type { Figure, PartReadout } from "../checks/readout";
+import { formatNumber, formatResult } from "../../units/format";
+import type { ServerFeature } from "../context";
+import { guarded } from "../safe";
+import type { Figure, PartReadout } from "../../checks/readout";
 
 /** The figure most worth a glance for a part without a safety factor: a payload's hand force, a
  * spring's force, else the first the checks give. */

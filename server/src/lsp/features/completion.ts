@@ -14,10 +14,10 @@ import {
   declarationSpec,
   type PropertySpec,
   type ValueShape,
-} from "../model/schema";
-import type { DimensionName } from "../units/dimension";
-import type { ServerFeature } from "./context";
-import { blockText, cursorContext, type CursorContext } from "./cursor-context";
+} from "../../model/schema";
+import type { DimensionName } from "../../units/dimension";
+import type { ServerFeature } from "../context";
+import { blockText, cursorContext, type CursorContext } from "../../services/cursor-context";
 import {
   bodyPrefixLength,
   isBodyKind,
@@ -27,10 +27,10 @@ import {
   SECTION_SHAPES,
   type NameKind,
   type NameSymbol,
-} from "./names";
-import { guarded } from "./safe";
-import type { SyntaxView } from "./syntax-view";
-import { UNITS_BY_DIMENSION } from "./unit-words";
+} from "../../services/names";
+import { guarded } from "../safe";
+import type { SyntaxView } from "../session/syntax-view";
+import { UNITS_BY_DIMENSION } from "../../services/unit-words";
 
 const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)([A-Za-z].*)$/;

@@ -1,5 +1,5 @@
 // Messages between the language server and its analysis worker.
-import type { Analysis, AnalysisOptions } from "../analysis";
+import type { Analysis, AnalysisOptions } from "../../analysis";
 
 export interface WorkerRequest {
   id: number;

@@ -1,7 +1,7 @@
 // The analysis worker: runs the core's analyse() off the server's request path, so hover and
 // completion stay responsive while a heavy sweep runs. Bundled to dist/analysis-worker.js.
 import { parentPort } from "node:worker_threads";
-import { analyse } from "../analysis";
+import { analyse } from "../../analysis";
 import type { WorkerRequest, WorkerReply } from "./worker-protocol";
 
 parentPort?.on("message", (request: WorkerRequest) => {
