@@ -1,13 +1,16 @@
 // The layer rules of docs/architecture.md, enforced: the core (findings, syntax, units, model,
-// mechanics, checks, view, analysis.ts, fixes.ts) imports no editor or protocol package and nothing that does IO; only
-// server/src/lsp touches protocol types; the CLI reaches the core through analysis.ts.
+// mechanics, checks, view, services, analysis.ts, fixes.ts, limits.ts, stop.ts) imports no editor or
+// protocol package and nothing that does IO; only server/src/lsp touches protocol types; and every
+// import follows the page's per-folder "may import" table (read from the page itself), so an
+// upward import fails here.
 import { describe, expect, it } from "vitest";
 import { existsSync, readdirSync, readFileSync, statSync } from "node:fs";
-import { join, relative } from "node:path";
+import { join, relative, sep } from "node:path";
+import { layerViolations, readLayerTable, resolveImport, rowOf, type ImportEdge } from "./layer-table";
 
 const root = join(__dirname, "..");
 const src = join(root, "server", "src");
-const CORE_DIRS = ["findings", "syntax", "units", "model", "mechanics", "checks", "view"];
+const CORE_DIRS = ["findings", "syntax", "units", "model", "mechanics", "checks", "view", "services"];
 
 /** Packages the core must not import: editor and protocol libraries, and Node's IO, process,
  * network and worker modules (the core takes a string and returns values). */
@@ -134,3 +137,80 @@ describe("layer rules", () => {
 function isCliServerLaunch(file: string, spec: string): boolean {
   return relative(src, file) === join("cli", "main.ts") && spec === "vscode-languageserver/node";
 }
+
+/** Path from the repository root with forward slashes. */
+const repoPath = (file: string) => relative(root, file).split(sep).join("/");
+const SRC = "server/src/";
+
+/** Every import of every file under server/src: relative ones resolved (to a path under
+ * server/src, or from the repository root when outside it), packages as written. */
+function importGraph(): ImportEdge[] {
+  const exists = (p: string) => existsSync(join(root, p)) && statSync(join(root, p)).isFile();
+  return filesUnder(src).flatMap((file) => {
+    const from = repoPath(file);
+    return importsOf(readFileSync(file, "utf8")).map((spec) => {
+      const to = spec.startsWith(".") ? resolveImport(from, spec, exists) : spec;
+      return { from: from.slice(SRC.length), to: to.startsWith(SRC) ? to.slice(SRC.length) : to };
+    });
+  });
+}
+
+describe("the may-import table of docs/architecture.md", () => {
+  const rows = readLayerTable(readFileSync(join(root, "docs", "architecture.md"), "utf8"));
+  const isSource = (p: string) => existsSync(join(src, p)) && !p.startsWith("..");
+
+  it("is read from the page, one row per folder", () => {
+    expect(rows.length).toBeGreaterThan(10);
+    for (const row of rows)
+      for (const cover of row.covers) expect(existsSync(join(src, cover)), cover).toBe(true);
+  });
+
+  it("covers every source file", () => {
+    const uncovered = filesUnder(src)
+      .map((f) => repoPath(f).slice(SRC.length))
+      .filter((p) => !rowOf(rows, p));
+    expect(uncovered).toEqual([]);
+  });
+
+  it("allows every import of the sources, and nothing upward", () => {
+    const edges = importGraph();
+    expect(edges.length).toBeGreaterThan(500);
+    expect(layerViolations(rows, edges, isSource)).toEqual([]);
+  });
+
+  it("fails on an upward import (a made-up graph)", () => {
+    const known = new Set([
+      "model/build.ts",
+      "checks/balance.ts",
+      "lsp/server.ts",
+      "lsp/session/scheduler.ts",
+      "lsp/features/hover.ts",
+      "syntax/parser.ts",
+      "units/format.ts",
+      "units/unit-table.ts",
+      "view/draw-arm.ts",
+      "cli/report.ts",
+      "services/names.ts",
+    ]);
+    const made = (p: string) => known.has(p);
+    const upward: ImportEdge[] = [
+      { from: "model/build.ts", to: "checks/balance.ts" },
+      { from: "lsp/features/hover.ts", to: "lsp/server.ts" },
+      { from: "lsp/session/scheduler.ts", to: "lsp/features/hover.ts" },
+      { from: "syntax/parser.ts", to: "units/format.ts" },
+      { from: "cli/report.ts", to: "view/draw-arm.ts" },
+      { from: "services/names.ts", to: "lsp/session/scheduler.ts" },
+      { from: "checks/balance.ts", to: "vscode-languageserver" },
+    ];
+    expect(layerViolations(rows, upward, made)).toEqual(upward.map((e) => `${e.from} -> ${e.to}`));
+    // The same graph the right way down passes.
+    const downward: ImportEdge[] = [
+      { from: "checks/balance.ts", to: "model/build.ts" },
+      { from: "lsp/features/hover.ts", to: "lsp/session/scheduler.ts" },
+      { from: "lsp/server.ts", to: "lsp/features/hover.ts" },
+      { from: "syntax/parser.ts", to: "units/unit-table.ts" },
+      { from: "lsp/features/hover.ts", to: "services/names.ts" },
+    ];
+    expect(layerViolations(rows, downward, made)).toEqual([]);
+  });
+});

@@ -14,6 +14,9 @@ import type { SymbolTable } from "./model/symbols";
 import { MAX_SPEC_CHARS } from "./limits";
 import { withStop } from "./stop";
 
+/** The result types the shells read (so they need not reach into the layers for them). */
+export type { Pose, SweepResult } from "./mechanics/types";
+
 export interface AnalysisOptions {
   /** Overrides the spec's `sweep steps` (a fixed density for tests and tools). */
   stepsOverride?: number;

@@ -1,8 +1,7 @@
 // `poise sweep FILE [--json|--csv]`: the pose table behind the checks, in the fixed units of
 // cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa).
-import { analyse } from "../analysis";
+import { analyse, type Pose, type SweepResult } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
-import type { Pose, SweepResult } from "../mechanics/types";
 import { readSpec, type Output } from "./io";
 
 const RAD_TO_DEG = 180 / Math.PI;
