@@ -7,6 +7,9 @@ import type { Readouts } from "./readout";
 import { balanceChecks } from "./balance";
 import { checkStrength } from "./strength";
 import { checkSpringStrength } from "./spring-strength";
+import { checkSpringEnds } from "./spring-ends";
+import { checkBearings } from "./bearings";
+import { checkFastenings } from "./fastenings";
 import { checkGeometry } from "./geometry";
 import { checkSpringLeverage } from "./spring-leverage";
 import { checkTipping } from "./tipping";
@@ -32,6 +35,9 @@ const FAMILIES: CheckFamily[] = [
   balanceChecks,
   checkStrength,
   checkSpringStrength,
+  checkSpringEnds,
+  checkBearings,
+  checkFastenings,
   checkGeometry,
   checkSpringLeverage,
   checkTipping,

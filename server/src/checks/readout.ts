@@ -28,7 +28,17 @@ export interface ResultTag {
 }
 
 export type PartKind =
-  "base" | "link" | "bar" | "head" | "joint" | "parallelogram" | "spring" | "payload" | "material";
+  | "base"
+  | "link"
+  | "bar"
+  | "head"
+  | "joint"
+  | "parallelogram"
+  | "spring"
+  | "payload"
+  | "material"
+  | "bearing"
+  | "fastening";
 
 export interface PartReadout {
   id: string;

@@ -115,6 +115,20 @@ export const CODES = {
     severity: "error",
     explanation: "A spring goes past its max_length, max_stretch or max_angle.",
   },
+  "strength.bearing": {
+    severity: "error",
+    explanation: "A bearing's safety under the load it carries is below `require safety`.",
+  },
+  "strength.fastening": {
+    severity: "error",
+    explanation:
+      "A fastening's safety (screws stripping or breaking, bolts, glue) is below `require safety`.",
+  },
+  "strength.spring-end": {
+    severity: "error",
+    explanation:
+      "A spring's hook or torsion wire is overstressed, its body does not fit between its hooks, or its initial tension cannot be wound.",
+  },
   // stiffness and vibration
   "stiffness.deflection": {
     severity: "warning",

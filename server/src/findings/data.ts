@@ -187,6 +187,60 @@ export interface OverstressData extends SafetyData {
   check: "stress" | "buckling" | "pin" | "coil";
 }
 
+/** `strength.bearing`: a bearing under the load of the part that turns on it. Subject: that part
+ * (the joint); the words are its `bearing`. */
+export interface BearingData extends SafetyData {
+  bearing: string;
+  /** What limits it: the most loaded ball's contact, a thrust ring tipping, the rating, the bore. */
+  check: "ball contact" | "tipping" | "static rating" | "bore pressure";
+  /** Loads through it at the worst pose, N and N*m. */
+  radial: number;
+  axial: number;
+  moment: number;
+  /** Most loaded ball, N; peak contact pressure and its allowable, Pa; static equivalent load, N;
+   * bore pressure, Pa: the figures of its kind. */
+  ballLoad?: number;
+  contactPressure?: number;
+  allowablePressure?: number;
+  equivalentLoad?: number;
+  borePressure?: number;
+}
+
+/** `strength.fastening`: a fastening under the load through it. Subject: the part that uses it;
+ * the words are its `fastening`, `anchor_fastening` or `hook_fastening`. */
+export interface FasteningData extends SafetyData {
+  fastening: string;
+  /** The key that names it in the using part. */
+  use: string;
+  /** What fails first. */
+  check:
+    | "thread stripping"
+    | "screw"
+    | "bolt"
+    | "hole bearing"
+    | "glue shear"
+    | "glue peel"
+    | "cannot hold a moment";
+  /** Largest shear and tension on one screw or bolt, N (glue: over the whole bond). */
+  shear: number;
+  tension: number;
+}
+
+/** `strength.spring-end`. Subject: the spring. */
+export interface SpringEndData extends AboutPart {
+  check: "hook bending" | "hook torsion" | "body room" | "initial tension" | "torsion wire";
+  /** For stress checks: the safety and the requirement. */
+  safety?: number;
+  required?: number;
+  /** Stress and its allowable, Pa (stress checks; initial tension: its stress and the nearer end
+   * of the range a spring maker can wind). */
+  stress?: number;
+  allowable?: number;
+  /** Body room: the shortest length the coil can have and the length it is given or pulled to, m. */
+  shortest?: number;
+  length?: number;
+}
+
 /** `strength.overstretch`: a spring past its limit. Subject: the spring. */
 export interface OverstretchData extends AboutPart {
   /** The property whose limit is passed (`max_length`, `max_stretch`, `max_angle`, `stroke`,
@@ -283,6 +337,9 @@ export interface FindingDataMap {
   "geometry.tipping": TippingData;
   "strength.overstress": OverstressData;
   "strength.overstretch": OverstretchData;
+  "strength.bearing": BearingData;
+  "strength.fastening": FasteningData;
+  "strength.spring-end": SpringEndData;
   "stiffness.deflection": DeflectionData;
   "stiffness.tilt": ElasticTiltData;
   "stiffness.low-frequency": FrequencyData;

@@ -3,6 +3,7 @@
 // bearingSafety with the loads they find at each pose; the safety is on load throughout (ISO 76's
 // C0 / P0 is), so a Hertz stress ratio enters cubed. SI.
 import type { Material } from "../../model/types";
+import type { BearingData } from "../../findings/data";
 import { LAYER_STRENGTH_FRACTION } from "../../model/materials";
 import {
   radialBallLoad,
@@ -49,7 +50,8 @@ export type BearingRole = "radial" | "thrust";
 export interface BearingSafety {
   /** Safety on load: how many times the load could grow before the limit. */
   safety: number;
-  governing: "ball contact" | "tipping" | "static rating" | "bore pressure";
+  /** What limits it (the `check` of strength.bearing). */
+  governing: BearingData["check"];
   /** Most loaded ball, N (ball bearings). */
   ballLoad?: number;
   /** Peak Hertz pressure and its allowable in the softer part, Pa, and which material that is. */
@@ -140,6 +142,10 @@ export function bearingSafety(model: BearingModel, load: BearingLoad, role: Bear
       const softer = raceAllow <= ballAllow ? model.race : model.ball;
       const allow = Math.min(ballAllow, raceAllow);
       const p0 = contact.peakPressure;
+      if (softer.printed)
+        notes.push(
+          `A printed ${softer.id} part yields beneath the most loaded ball long before it tears: this safety is to the onset of yield (Johnson, section 6.2). A groove that fits the balls spreads the contact and lowers the pressure several times.`,
+        );
       return {
         safety: p0 > 0 ? (allow / p0) ** 3 : Infinity,
         governing: "ball contact",
