@@ -14,6 +14,7 @@ import {
   QUICK_WORK_BUDGET,
 } from "../../server/src/mechanics/sweep-plan";
 import { chainSpec } from "../fuzz/big-spec";
+import { MAX_POSE_BODIES } from "../../server/src/limits";
 import { ArmBuilder, deg } from "./arm-builder";
 
 const text = (name: string) => readFileSync(join(__dirname, "..", "..", "samples", `${name}.poise`), "utf8");
@@ -85,6 +86,29 @@ describe("the sweep planner", () => {
     const quick = planSweep(linkageOf(chain), { quickSteps: 13 });
     expect(dofs * quick.steps * work(chain)).toBeLessThanOrEqual(QUICK_WORK_BUDGET);
     expect(dofs * (quick.steps + 1) * work(chain)).toBeGreaterThan(QUICK_WORK_BUDGET);
+  });
+
+  it("keeps poses times moving bodies within MAX_POSE_BODIES", () => {
+    // A chain of stages (a parallelogram of three bodies and a link each, one degree of freedom)
+    // swept each alone at 2001 steps: lowered until dofs x steps x bodies fits the limit.
+    const long = linkageOf(modelOf(chainSpec({ bodies: 60, steps: 2001 })));
+    const dofs = long.dofs.length;
+    const bodies = long.graph.bodyIds.length;
+    const plan = planSweep(long);
+    expect(plan.caps).toEqual([
+      { kind: "fewer-steps", limit: "pose-bodies", requested: 2001, used: plan.steps },
+    ]);
+    expect(dofs * plan.steps * bodies).toBeLessThanOrEqual(MAX_POSE_BODIES);
+    expect(dofs * (plan.steps + 1) * bodies).toBeGreaterThan(MAX_POSE_BODIES);
+    // 14 stages in a grid: 2^14 poses are within the grid limit, but times 56 bodies past the
+    // pose-bodies one even at 2 steps each: each degree of freedom alone.
+    const grid = linkageOf(modelOf(chainSpec({ bodies: 56 }).replace("grid off", "grid on")));
+    expect(2 ** grid.dofs.length).toBeLessThanOrEqual(MAX_GRID_POSES);
+    expect(2 ** grid.dofs.length * grid.graph.bodyIds.length).toBeGreaterThan(MAX_POSE_BODIES);
+    expect(planSweep(grid)).toMatchObject({
+      grid: false,
+      caps: [{ kind: "each-alone", limit: "pose-bodies" }],
+    });
   });
 
   it("never asks for more than the spec, nor anything when the quick pass is off (0)", () => {
