@@ -4,7 +4,6 @@
 import type { DeclarationNode, PropertyNode, SyntaxTree } from "../syntax/ast";
 import type { UnbalancedData } from "../findings/data";
 import type { FixRequest, TextFix } from "../findings/fix";
-import type { DimensionName } from "../units/dimension";
 import { formatNumber } from "../units/format";
 import {
   declarationNamed,
@@ -13,6 +12,8 @@ import {
   propertyOf,
   writeInDimension,
 } from "../model/fix-words";
+import { SPRING_KIND_TABLE, SPRING_KIND_WORDS } from "../model/spring-kinds";
+import type { SpringKind } from "../model/types";
 
 /** What the balance fix reads of a `balance.unbalanced` finding. */
 export type BalanceFixData = Pick<
@@ -26,33 +27,9 @@ function handForceText(n: number): string {
   return Math.abs(n) < 1000 ? `${n.toFixed(2)} N` : `${formatNumber(n)} N`;
 }
 
-/** What the balance fit may write, by spring kind: property (the key of the finding's `best`),
- * dimension, and whether the property must already be written (else the fix adds it). */
-const FIT_SETTINGS: Record<
-  string,
-  { key: string; dimension: DimensionName; words: string; mustExist: boolean }[]
-> = {
-  extension: [
-    { key: "rate", dimension: "stiffness", words: "rate", mustExist: true },
-    { key: "initial_tension", dimension: "force", words: "initial tension", mustExist: false },
-  ],
-  zero_length: [
-    { key: "rate", dimension: "stiffness", words: "rate", mustExist: true },
-    { key: "initial_tension", dimension: "force", words: "initial tension", mustExist: false },
-  ],
-  torsion: [
-    { key: "rate", dimension: "angular_stiffness", words: "rate", mustExist: true },
-    { key: "preload", dimension: "torque", words: "preload", mustExist: false },
-  ],
-  gas: [{ key: "force", dimension: "force", words: "force", mustExist: true }],
-  elastic: [{ key: "area", dimension: "area", words: "cross-section", mustExist: true }],
-};
-/** An initial tension below this is not worth writing into a zero-length spring: hundredths of a
- * newton are below what a spring maker can set (common practice, no source). */
-const NEGLIGIBLE_TENSION_N = 0.01;
-
-function springKindOf(decl: DeclarationNode): string | undefined {
-  return ["extension", "zero_length", "elastic", "gas", "torsion"].find((k) => propertyOf(decl, k));
+/** The kind word a spring declaration carries (the first, as the model builder reads it). */
+function springKindOf(decl: DeclarationNode): SpringKind | undefined {
+  return SPRING_KIND_WORDS.find((k) => propertyOf(decl, k));
 }
 
 export function balanceFix(
@@ -63,7 +40,8 @@ export function balanceFix(
   const springId = data?.spring;
   const decl = springId ? declarationNamed(tree, "spring", springId) : undefined;
   const kind = decl && springKindOf(decl);
-  const settings = kind ? FIT_SETTINGS[kind] : undefined;
+  // What the best fit may write: the kind's fit settings (model/spring-kinds.ts).
+  const settings = kind ? SPRING_KIND_TABLE[kind].fit : undefined;
   if (!decl || !settings) return undefined;
   const edits: TextFix["edits"] = [];
   const words: string[] = [];
@@ -71,21 +49,13 @@ export function balanceFix(
   for (const setting of settings) {
     const value = num(data?.best?.[setting.key]);
     const prop = propertyOf(decl, setting.key);
-    if (
-      value === undefined ||
-      (setting.dimension !== "torque" && setting.dimension !== "force" && value <= 0)
-    ) {
+    if (value === undefined || (setting.positive && value <= 0)) {
       if (setting.mustExist) return undefined;
       continue;
     }
     if (setting.mustExist && !prop) return undefined;
-    if (
-      kind === "zero_length" &&
-      setting.key === "initial_tension" &&
-      !prop &&
-      Math.abs(value) < NEGLIGIBLE_TENSION_N
-    )
-      continue;
+    // A negligible value the kind says to leave out gets no new line.
+    if (setting.omitNegligible && !prop && Math.abs(value) < (setting.negligible ?? 0)) continue;
     const written = writeInDimension(value, prop?.values[0], setting.dimension);
     if (!written) return undefined;
     const v = prop?.values[0];

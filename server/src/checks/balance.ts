@@ -9,6 +9,7 @@ import type { CheckContext } from "./index";
 import { finding, type RelatedInfo } from "../findings/finding";
 import { addFigures, type Figure } from "./readout";
 import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics/spring-fit";
+import { atJoint, springKind } from "../model/spring-kinds";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
 import { formatResult } from "../units/format";
 import type { DimensionName } from "../units/dimension";
@@ -27,16 +28,13 @@ export function poseWhere(sweep: SweepResult, pose: Pose, caseIndex = 0): string
   return `at ${angles || "the reference pose"}${caseIndex > 0 && lc ? ` (${lc.label})` : ""}`;
 }
 
+/** Where a balance finding about a spring points: the first of its kind's balance keys written. */
 function spanOfSpring(s: Spring) {
-  const key =
-    s.kind === "gas"
-      ? "force"
-      : s.kind === "elastic"
-        ? s.origin.properties["area"]
-          ? "area"
-          : "tube"
-        : "rate";
-  return s.origin.properties[key] ?? s.origin.name ?? s.origin.declaration;
+  for (const key of springKind(s).balanceKeys) {
+    const at = s.origin.properties[key];
+    if (at) return at;
+  }
+  return s.origin.name ?? s.origin.declaration;
 }
 
 /** The load case of the worst pose, when the sweep has one by that index. */
@@ -64,33 +62,20 @@ function worstHandForce(sweep: SweepResult, payloadId: string): Worst | undefine
 
 /** The best-fit settings by the property each goes in, SI: what a balance quick fix writes. */
 function bestSettings(s: Spring, fit: SpringFit): Record<string, number> {
-  switch (s.kind) {
-    case "extension":
-    case "zero_length":
-      return { rate: fit.best[0], initial_tension: fit.best[1] };
-    case "torsion":
-      return { rate: fit.best[0], preload: fit.best[1] };
-    case "gas":
-      return { force: fit.best[0] };
-    case "elastic":
-      return { area: fit.best[0] };
-  }
+  const settings: Record<string, number> = {};
+  springKind(s).fit.forEach((setting, i) => (settings[setting.key] = fit.best[i]!));
+  return settings;
 }
 
+/** The best fit in words: "rate 0.39 N/mm and no initial tension", "extended force 120 N". */
 function fitWords(s: Spring, fit: SpringFit): string {
+  const [first, second] = springKind(s).fit;
   const [p0, p1] = fit.best;
-  switch (s.kind) {
-    case "extension":
-    case "zero_length":
-      // Hundredths of a newton are below what a spring maker can set.
-      return `rate ${formatQuantityFor(p0, "stiffness")} ${Math.abs(p1) < 0.01 ? "and no initial tension" : `with initial tension ${formatForce(p1)}`}`;
-    case "torsion":
-      return `rate ${formatQuantityFor(p0, "angular_stiffness")} with preload ${formatTorque(p1)}`;
-    case "gas":
-      return `extended force ${formatForce(p0)}`;
-    case "elastic":
-      return `cross-section ${formatQuantityFor(p0, "area")}`;
-  }
+  const head = `${first.messageWords} ${formatQuantityFor(p0, first.dimension)}`;
+  if (!second) return head;
+  return second.negligible !== undefined && Math.abs(p1) < second.negligible
+    ? `${head} and no ${second.messageWords}`
+    : `${head} with ${second.messageWords} ${formatQuantityFor(p1, second.dimension)}`;
 }
 
 export function balanceChecks(ctx: CheckContext): void {
@@ -338,7 +323,8 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
     if (!sweep.poses.some((p) => p.springs[s.id])) continue;
     const figures: Figure[] = [];
     const notes: string[] = [];
-    if (s.kind !== "torsion") {
+    const kind = springKind(s);
+    if (!atJoint(s)) {
       const lengths = sweep.poses.map((p) => p.springs[s.id]!.length);
       figures.push({
         label: "length range",
@@ -359,14 +345,15 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
         result: { key: "wind_up" },
       });
     }
-    const sign = s.kind === "torsion" ? -1 : 1;
+    // A spring at a joint reads as the torque on the child (see above); one between hooks as its pull.
+    const sign = atJoint(s) ? -1 : 1;
     const forces = sweep.poses.map((p) => sign * (p.cases[0]!.springForce[s.id] ?? 0));
     figures.push({
-      label: s.kind === "torsion" ? "torque on the child range (counter-clockwise positive)" : "force range",
+      label: atJoint(s) ? "torque on the child range (counter-clockwise positive)" : "force range",
       value: Math.min(...forces),
       high: Math.max(...forces),
-      dimension: s.kind === "torsion" ? "torque" : "force",
-      result: { key: s.kind === "torsion" ? "torque" : "force" },
+      dimension: atJoint(s) ? "torque" : "force",
+      result: { key: atJoint(s) ? "torque" : "force" },
     });
     const ideal = idealZeroLengthRate(model, sweep, s.id);
     if (ideal)
@@ -378,15 +365,9 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
       });
     const fit = fitOf(s.id);
     if (fit) {
-      if (s.kind === "extension" || s.kind === "zero_length") {
-        figures.push({ label: "best-fit rate", value: fit.best[0], dimension: "stiffness" });
-        figures.push({ label: "best-fit initial tension", value: fit.best[1], dimension: "force" });
-      } else if (s.kind === "torsion") {
-        figures.push({ label: "best-fit rate", value: fit.best[0], dimension: "angular_stiffness" });
-        figures.push({ label: "best-fit preload", value: fit.best[1], dimension: "torque" });
-      } else if (s.kind === "gas")
-        figures.push({ label: "best-fit extended force", value: fit.best[0], dimension: "force" });
-      else figures.push({ label: "best-fit cross-section", value: fit.best[0], dimension: "area" });
+      kind.fit.forEach((setting, i) =>
+        figures.push({ label: setting.label, value: fit.best[i]!, dimension: setting.dimension }),
+      );
       figures.push({ label: "worst hand force now", value: fit.worstHandForceBefore, dimension: "force" });
       figures.push({
         label: "worst hand force with best fit",
@@ -397,10 +378,7 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
         "Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is (nested golden-section search; the hand force is affine in them where the spring is taut).",
       );
     }
-    if (s.kind === "elastic")
-      notes.push(
-        "Rubber creeps and relaxes under a steady stretch: its force falls over days; check the balance again after the cord has settled.",
-      );
+    notes.push(...kind.cautions);
     addFigures(ctx.readouts, s.id, "spring", figures, notes);
   }
 }

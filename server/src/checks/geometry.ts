@@ -12,6 +12,7 @@ import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
 import { carrierHead, jointsBetween, parallelogramOfHead } from "./arm-paths";
 import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from "./part-words";
+import { atJoint, goesSlack, type HookSpring } from "../model/spring-kinds";
 
 /** A spring toggles where its lever arm about the pivot falls below this share of its shorter
  * hook radius: the line of action is then within about 6 degrees of the dead-centre line
@@ -31,9 +32,9 @@ const SLACK_MARGIN_M = 1e-9;
 
 export function checkGeometry(ctx: CheckContext): void {
   for (const s of ctx.model.springs) {
-    if (s.kind === "torsion") continue;
+    if (atJoint(s)) continue;
     checkToggle(ctx, s);
-    if (s.kind === "extension" || s.kind === "elastic") checkSlack(ctx, s);
+    if (goesSlack(s)) checkSlack(ctx, s);
   }
   checkTilt(ctx);
   checkClearance(ctx);
@@ -53,7 +54,7 @@ export function leverArm(
 
 /** The degree of freedom the spring mainly works about: of the dof joints on the chain between
  * its two bodies, the one with the longest lever arm at the reference pose. */
-export function workingJoint(model: ArmModel, sweep: SweepResult, s: Exclude<Spring, { kind: "torsion" }>) {
+export function workingJoint(model: ArmModel, sweep: SweepResult, s: HookSpring) {
   const ref = sweep.reference ?? sweep.poses[0];
   if (!ref) return undefined;
   const candidates = jointsBetween(model, s.a.body, s.b.body).filter((j) => j.mode === "range");
@@ -81,7 +82,7 @@ function torqueWithoutSpring(pose: Pose, springId: string, dofId: string): numbe
   return most;
 }
 
-function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>): void {
+function checkToggle(ctx: CheckContext, s: HookSpring): void {
   const { model, sweep } = ctx;
   const j = workingJoint(model, sweep, s);
   if (!j) return;
@@ -150,7 +151,7 @@ function checkToggle(ctx: CheckContext, s: Exclude<Spring, { kind: "torsion" }>)
 }
 
 /** Extension springs and rubber cords pull only above their free length. */
-function checkSlack(ctx: CheckContext, s: Extract<Spring, { kind: "extension" | "elastic" }>): void {
+function checkSlack(ctx: CheckContext, s: Extract<Spring, { freeLength: number }>): void {
   const { sweep } = ctx;
   const slack: Pose[] = [];
   let shortest = Infinity;

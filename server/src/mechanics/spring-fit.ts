@@ -8,6 +8,7 @@
 import type { ArmModel, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 import { springForceBasis, springParameters } from "./forces";
+import { atJoint, springKind } from "../model/spring-kinds";
 import { handForceVector } from "./hand-force";
 import { rotate } from "./plane";
 
@@ -44,7 +45,7 @@ interface FitSamples {
 
 /** The spring's wind-up from free (torsion: its joint, looked up once) or its length at a pose. */
 function springTurnOrLength(model: ArmModel, s: Spring): (pose: Pose) => number {
-  if (s.kind === "torsion") {
+  if (atJoint(s)) {
     const j = model.joints.find((x) => x.id === s.joint);
     return j ? (pose) => (pose.jointAngles[j.id] ?? j.angle) - j.angle : () => 0;
   }
@@ -232,7 +233,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const hi0 = 3 * Math.max(Math.abs(e0), Math.abs(c0), 1e-9);
   const span1 = 3 * Math.max(Math.abs(e1), Math.abs(c1), 1e-9);
   // Initial tension cannot be negative; a torsion preload can wind either way.
-  const lo1 = s.kind === "torsion" ? -span1 : 0;
+  const lo1 = springKind(s).fit[1]?.signed ? -span1 : 0;
   const hi1 = span1;
 
   // Active set: the worst poses now, plus an even spread.
@@ -286,7 +287,7 @@ export function idealZeroLengthRate(
   springId: string,
 ): IdealRate | undefined {
   const s = model.springs.find((x) => x.id === springId);
-  if (!s || (s.kind !== "extension" && s.kind !== "zero_length")) return undefined;
+  if (!s || atJoint(s) || !springKind(s).lineRate) return undefined;
   const ref = sweep.reference;
   if (!ref) return undefined;
   for (const dof of sweep.dofs) {

@@ -1,6 +1,7 @@
 // Builds springs: one kind word (extension, zero_length, elastic, gas, torsion), the properties
 // that kind takes, and the values derived from them (a coil's rate, a tube's area, a preload torque).
 import { SPRING_KINDS } from "./schema";
+import { SPRING_KIND_TABLE } from "./spring-kinds";
 import type { Attachment, CoilGeometry, Spring, SpringKind } from "./types";
 import { extensionSpringRate, torsionSpringRatePerRad } from "./coil";
 import {
@@ -15,13 +16,8 @@ import {
 import { listWords, type BuildContext, type Props } from "./build-context";
 import { materialOf } from "./build-parts";
 
-const KIND_WORDS: Record<SpringKind, string> = {
-  extension: "an extension spring",
-  zero_length: "a zero-length spring",
-  elastic: "an elastic cord",
-  gas: "a gas strut",
-  torsion: "a torsion spring",
-};
+/** "an extension spring", "a gas strut": the kind as messages name it. */
+const withArticle = (kind: SpringKind): string => SPRING_KIND_TABLE[kind].words.withArticle;
 
 /** Best effort: a spring whose hooks (or joint) resolve is kept even when a value has an error (the
  * finding stands and the solver does not run), with 0 for what could not be read, so the editor
@@ -57,7 +53,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     ctx.r.add(
       "property.unknown",
       p.get(key)!.key.span,
-      `\`${key}\` does not apply to ${KIND_WORDS[kind]} (it is for ${listWords(spec.springKinds.map((k) => KIND_WORDS[k as SpringKind]))})`,
+      `\`${key}\` does not apply to ${withArticle(kind)} (it is for ${listWords(spec.springKinds.map((k) => withArticle(k as SpringKind)))})`,
     );
   }
   const origin = p.origin();
@@ -82,12 +78,11 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     }
     return r;
   };
-  const need = (key: string): void => {
-    if (!p.has(key)) p.missing(key);
-  };
+  // What every spring of the kind needs (its descriptor's `required`); a choice between two ways
+  // of giving a value (a rate or its coil, an area or a tube) is read below.
+  for (const key of SPRING_KIND_TABLE[kind].properties.required) if (!p.has(key)) p.missing(key);
 
   if (kind === "torsion") {
-    need("at");
     // the rate as given, or from the coil's active coils; wire, coil and material alone (with a
     // rate) let the wire's stress be checked
     const wireKeys = ["wire", "coil", "material"];
@@ -98,7 +93,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
         `${p.what} has both \`rate\` and \`coils\`: give the rate, or the coils (with \`wire\`, \`coil\`, \`material\`) to compute it`,
         { related: [{ span: p.get("rate")!.span, message: "the rate" }] },
       );
-    } else if (!p.has("rate") && !p.has("coils")) need("rate");
+    } else if (!p.has("rate") && !p.has("coils")) p.missing("rate");
     else if (!p.has("rate"))
       for (const k of wireKeys) if (!p.has(k)) p.missing(k, " to compute the rate from the coil");
     if (p.has("rate") && wireKeys.some((k) => p.has(k)))
@@ -156,11 +151,9 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
     };
   }
 
-  need("between");
   const ends = readBetween(ctx, p);
 
   if (kind === "extension") {
-    need("free_length");
     const coilKeys = ["wire", "coil", "coils", "material"];
     const coilGiven = coilKeys.filter((k) => p.has(k));
     if (p.has("rate") && coilGiven.length > 0) {
@@ -228,7 +221,6 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   }
 
   if (kind === "zero_length") {
-    need("rate");
     const rate = q("rate", "stiffness", { positive: true });
     const fi = q("initial_tension", "force");
     if (!ends) return undefined;
@@ -236,8 +228,6 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   }
 
   if (kind === "elastic") {
-    need("free_length");
-    need("material");
     const free = q("free_length", "length", { positive: true });
     let area: number | undefined;
     if (p.has("area") && p.has("tube")) {
@@ -306,7 +296,6 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
   }
 
   // gas
-  for (const key of ["force", "progression", "stroke", "extended_length"]) need(key);
   const force = q("force", "force", { positive: true });
   const progression = q("progression", "dimensionless", { positive: true });
   if (progression && progression.value < 1) {

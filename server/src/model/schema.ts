@@ -3,6 +3,8 @@
 // and the language reference, so they cannot disagree.
 import type { DimensionName } from "../units/dimension";
 import type { DeclarationKeyword } from "../syntax/ast";
+import { kindsTaking, SPRING_KIND_TABLE, SPRING_KIND_WORDS } from "./spring-kinds";
+import type { SpringKind } from "./types";
 
 /** How a property's values read, position by position. */
 export type ValueShape =
@@ -46,7 +48,17 @@ export interface DeclarationSpec {
 const q = (dimension: DimensionName): ValueShape => ({ type: "quantity", dimension });
 const kw = (word: string) => ({ type: "keyword" as const, word });
 
-export const SPRING_KINDS = ["extension", "zero_length", "elastic", "gas", "torsion"] as const;
+/** The spring kind words, in order (their facts: model/spring-kinds.ts). */
+export const SPRING_KINDS: readonly SpringKind[] = SPRING_KIND_WORDS;
+
+/** The kind word properties of a spring, each a flag with its kind's meaning. */
+const springKindFlags = (): PropertySpec[] =>
+  SPRING_KIND_WORDS.map((kind) => ({
+    key: kind,
+    shape: { type: "flag" },
+    doc: SPRING_KIND_TABLE[kind].doc,
+    example: kind,
+  }));
 
 export const DECLARATIONS: readonly DeclarationSpec[] = [
   {
@@ -315,162 +327,154 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
     named: true,
     doc: "A force element between two points (or, for torsion, at a joint).",
     properties: [
-      { key: "extension", shape: { type: "flag" }, doc: "Helical extension spring.", example: "extension" },
-      {
-        key: "zero_length",
-        shape: { type: "flag" },
-        doc: "Ideal zero-free-length spring (e.g. led over a pulley).",
-        example: "zero_length",
-      },
-      {
-        key: "elastic",
-        shape: { type: "flag" },
-        doc: "Rubber cord or tubing (neo-Hookean).",
-        example: "elastic",
-      },
-      { key: "gas", shape: { type: "flag" }, doc: "Gas strut.", example: "gas" },
-      { key: "torsion", shape: { type: "flag" }, doc: "Torsion spring at a pivot.", example: "torsion" },
+      ...springKindFlags(),
       {
         key: "between",
         shape: {
           type: "sequence",
           items: [{ type: "reference", to: "point" }, kw("and"), { type: "reference", to: "point" }],
         },
-        springKinds: ["extension", "zero_length", "elastic", "gas"],
+        springKinds: kindsTaking("between"),
         doc: "The two hook points.",
         example: "between base.anchor and arm(80 mm, 0 mm)",
       },
       {
         key: "at",
         shape: { type: "reference", to: "joint-or-parallelogram" },
-        springKinds: ["torsion"],
+        springKinds: kindsTaking("at"),
         doc: "The joint (or parallelogram) it acts at.",
         example: "at shoulder",
       },
       {
         key: "rate",
         shape: { type: "quantity-or", dimensions: ["stiffness", "angular_stiffness"] },
-        springKinds: ["extension", "zero_length", "torsion"],
+        springKinds: kindsTaking("rate"),
         doc: "Spring rate (angular for torsion).",
         example: "rate 0.8 N/mm",
       },
       {
         key: "free_length",
         shape: q("length"),
-        springKinds: ["extension", "elastic"],
+        springKinds: kindsTaking("free_length"),
         doc: "Unloaded length.",
         example: "free_length 60 mm",
       },
       {
         key: "initial_tension",
         shape: q("force"),
-        springKinds: ["extension", "zero_length"],
+        springKinds: kindsTaking("initial_tension"),
         doc: "Force the coils hold closed before stretching.",
         example: "initial_tension 4 N",
       },
       {
         key: "max_length",
         shape: q("length"),
-        springKinds: ["extension"],
+        springKinds: kindsTaking("max_length"),
         doc: "Longest safe length.",
         example: "max_length 140 mm",
       },
       {
         key: "wire",
         shape: q("length"),
-        springKinds: ["extension", "torsion"],
+        springKinds: kindsTaking("wire"),
         doc: "Wire diameter (coil geometry instead of rate; for torsion, also to check its stress).",
         example: "wire 1.2 mm",
       },
       {
         key: "coil",
         shape: q("length"),
-        springKinds: ["extension", "torsion"],
+        springKinds: kindsTaking("coil"),
         doc: "Mean coil diameter.",
         example: "coil 9.6 mm",
       },
       {
         key: "coils",
         shape: q("dimensionless"),
-        springKinds: ["extension", "torsion"],
+        springKinds: kindsTaking("coils"),
         doc: "Number of body coils (of a torsion spring: active coils, legs not counted).",
         example: "coils 20",
       },
       {
         key: "material",
         shape: { type: "material" },
-        springKinds: ["extension", "elastic", "torsion"],
+        springKinds: kindsTaking("material"),
         doc: "Wire material, or the cord's rubber.",
         example: "material music_wire",
       },
       {
         key: "area",
         shape: q("area"),
-        springKinds: ["elastic"],
+        springKinds: kindsTaking("area"),
         doc: "Unstretched cross-section of the cord.",
         example: "area 12 mm^2",
       },
       {
         key: "tube",
         shape: { type: "dims", dimension: "length" },
-        springKinds: ["elastic"],
+        springKinds: kindsTaking("tube"),
         doc: "Rubber tube outer diameter x wall.",
         example: "tube 6 mm x 1.5 mm",
       },
       {
         key: "max_stretch",
         shape: q("dimensionless"),
-        springKinds: ["elastic"],
+        springKinds: kindsTaking("max_stretch"),
         doc: "Largest safe stretch ratio L / L0.",
         example: "max_stretch 2.5",
       },
       {
         key: "force",
         shape: q("force"),
-        springKinds: ["gas"],
+        springKinds: kindsTaking("force"),
         doc: "Force at full extension.",
         example: "force 100 N",
       },
       {
         key: "progression",
         shape: q("dimensionless"),
-        springKinds: ["gas"],
+        springKinds: kindsTaking("progression"),
         doc: "Compressed force / extended force.",
         example: "progression 1.3",
       },
-      { key: "stroke", shape: q("length"), springKinds: ["gas"], doc: "Stroke.", example: "stroke 60 mm" },
+      {
+        key: "stroke",
+        shape: q("length"),
+        springKinds: kindsTaking("stroke"),
+        doc: "Stroke.",
+        example: "stroke 60 mm",
+      },
       {
         key: "extended_length",
         shape: q("length"),
-        springKinds: ["gas"],
+        springKinds: kindsTaking("extended_length"),
         doc: "Eye-to-eye length fully extended.",
         example: "extended_length 180 mm",
       },
       {
         key: "preload",
         shape: { type: "quantity-or", dimensions: ["angle", "torque"] },
-        springKinds: ["torsion"],
+        springKinds: kindsTaking("preload"),
         doc: "Wind-up angle or torque at the reference pose; positive turns the child counter-clockwise.",
         example: "preload 90 deg",
       },
       {
         key: "max_angle",
         shape: q("angle"),
-        springKinds: ["torsion"],
+        springKinds: kindsTaking("max_angle"),
         doc: "Largest safe wind-up angle.",
         example: "max_angle 270 deg",
       },
       {
         key: "anchor_fastening",
         shape: { type: "reference", to: "fastening" },
-        springKinds: ["extension", "zero_length", "elastic", "gas"],
+        springKinds: kindsTaking("anchor_fastening"),
         doc: "How the first end's lug or eyelet is held to its body.",
         example: "anchor_fastening lug_screws",
       },
       {
         key: "hook_fastening",
         shape: { type: "reference", to: "fastening" },
-        springKinds: ["extension", "zero_length", "elastic", "gas"],
+        springKinds: kindsTaking("hook_fastening"),
         doc: "How the second end's lug or eyelet is held to its body.",
         example: "hook_fastening lug_screws",
       },

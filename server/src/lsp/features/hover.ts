@@ -9,6 +9,7 @@ import type { Finding } from "../../findings/finding";
 import type { PartReadout } from "../../checks/readout";
 import type { ArmModel, Body, Spring } from "../../model/types";
 import { ARM_PROPERTIES, declarationSpec } from "../../model/schema";
+import { springKind } from "../../model/spring-kinds";
 import { spanContains } from "../../syntax/span";
 import type { QuantityNode } from "../../syntax/ast";
 import { formatNumber, formatQuantity, formatResult, otherSystem } from "../../units/format";
@@ -48,37 +49,7 @@ function bodyFacts(b: Body, system: UnitSystem): string[] {
 }
 
 function springFacts(s: Spring, system: UnitSystem): string[] {
-  switch (s.kind) {
-    case "extension":
-      return [
-        `extension spring`,
-        `rate ${f(s.rate, "stiffness", system)}`,
-        `free length ${f(s.freeLength, "length", system)}`,
-        `initial tension ${f(s.initialTension, "force", system)}`,
-      ];
-    case "zero_length":
-      return [`zero-free-length spring`, `rate ${f(s.rate, "stiffness", system)}`];
-    case "elastic":
-      return [
-        `elastic cord`,
-        `free length ${f(s.freeLength, "length", system)}`,
-        `area ${f(s.area, "area", system)}`,
-        `material ${s.material}`,
-      ];
-    case "gas":
-      return [
-        `gas strut`,
-        `force ${f(s.force, "force", system)} extended`,
-        `progression ${formatNumber(s.progression)}`,
-        `stroke ${f(s.stroke, "length", system)}`,
-      ];
-    case "torsion":
-      return [
-        `torsion spring at ${s.joint}`,
-        `rate ${f(s.rate, "angular_stiffness", system)}`,
-        `preload ${f(s.preloadTorque, "torque", system)}`,
-      ];
-  }
+  return springKind(s).facts(s, (value, dimension) => f(value, dimension, system));
 }
 
 function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): string[] {

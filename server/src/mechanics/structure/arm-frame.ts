@@ -7,7 +7,7 @@ import type { Pose, PoseStatics } from "../types";
 import { sectionProperties } from "../../model/section";
 import { PlaneFrame } from "./frame";
 import { worldPoint } from "../body-loads";
-import { gasStrutStrokePosition, cordShearModulus } from "../forces";
+import { atJoint, springKind } from "../../model/spring-kinds";
 
 /** Elements per link at least, so its mass spreads along it and its bending shape shows in the
  * lowest mode (4 lumped elements put a cantilever's first frequency within about 1 %). */
@@ -27,28 +27,10 @@ export interface ArmFrame {
   elementBody: (string | undefined)[];
 }
 
-/** Tangent rate dT/dL of a two-point spring at `length`, N/m. */
+/** Tangent rate dT/dL of a two-point spring at `length`, N/m (its kind's law; 0 for a spring
+ * that acts at a joint, which the frame takes as a rotational spring instead). */
 export function springTangentRate(model: ArmModel, spring: Spring, length: number): number {
-  switch (spring.kind) {
-    case "extension":
-      return length > spring.freeLength ? spring.rate : 0;
-    case "zero_length":
-      return spring.rate;
-    case "elastic": {
-      const G = cordShearModulus(model, spring);
-      const s = length / spring.freeLength;
-      // d/dL of G A0 (s - s^-2) (Treloar neo-Hookean) is G A0 (1 + 2 s^-3) / L0
-      return s > 1 ? (G * spring.area * (1 + 2 / s ** 3)) / spring.freeLength : 0;
-    }
-    case "gas": {
-      // force rises linearly from `force` to progression x force over the stroke, and stays
-      // at the end value when the strut is topped or bottomed out
-      const x = gasStrutStrokePosition(spring, length);
-      return x > 0 && x < spring.stroke ? ((spring.progression - 1) * spring.force) / spring.stroke : 0;
-    }
-    case "torsion":
-      return 0;
-  }
+  return atJoint(spring) ? 0 : springKind(spring).tangentRate(spring, length, model);
 }
 
 function interestPoints(model: ArmModel, body: Body): Vec2[] {
@@ -58,7 +40,7 @@ function interestPoints(model: ArmModel, body: Body): Vec2[] {
     if (j.child === body.id) pts.push(j.childPoint);
   }
   for (const s of model.springs) {
-    if (s.kind === "torsion") continue;
+    if (atJoint(s)) continue;
     if (s.a.body === body.id) pts.push(s.a.point);
     if (s.b.body === body.id) pts.push(s.b.point);
   }
@@ -180,7 +162,7 @@ export function buildArmFrame(
     if (j.mode !== "passive") frame.tieRotations(a, b);
   }
   for (const sp of model.springs) {
-    if (sp.kind === "torsion") {
+    if (atJoint(sp)) {
       const j = model.joints.find((jj) => jj.id === sp.joint);
       const parent = j && bodyById.get(j.parent);
       const child = j && bodyById.get(j.child);
