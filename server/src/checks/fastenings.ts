@@ -22,6 +22,7 @@ import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety, type PartKind } from "./readout";
 import { describePose, pastDeadline, payloadMasses, show, showSafety, spanOf } from "./part-words";
+import { atJoint } from "../model/spring-kinds";
 
 /** One place a fastening is used, and how to find the load through it at a pose. */
 interface Use {
@@ -103,7 +104,7 @@ function usesOf(model: ArmModel, sweep: SweepResult): Use[] {
   const body = (id: string) => model.bodies.find((b) => b.id === id);
   const fastening = (id: string | undefined) => (id ? model.fastenings[id] : undefined);
   for (const s of model.springs) {
-    if (s.kind === "torsion" || !s.fastenings) continue;
+    if (atJoint(s) || !s.fastenings) continue;
     for (const end of ["a", "b"] as const) {
       const f = fastening(s.fastenings[end]);
       const att = s[end];

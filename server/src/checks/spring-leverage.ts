@@ -11,6 +11,7 @@ import { finding } from "../findings/finding";
 import { chainToBase } from "./arm-paths";
 import { workingJoint } from "./geometry";
 import { bodyWord, describePose, pastDeadline, payloadMasses, show, spanOf } from "./part-words";
+import { atJoint } from "../model/spring-kinds";
 
 /** A spring pulling more than this many times the weight it balances is flagged. A balancer of
  * the usual proportions (anchor an eighth, hook a quarter of the payload's reach from the pivot;
@@ -74,7 +75,7 @@ function weighAt(
 }
 
 export function checkSpringLeverage(ctx: CheckContext): void {
-  for (const s of ctx.model.springs) if (s.kind !== "torsion") checkSpring(ctx, s);
+  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s);
 }
 
 function checkSpring(ctx: CheckContext, s: TwoEnded): void {

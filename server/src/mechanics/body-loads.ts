@@ -7,6 +7,7 @@ import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/type
 import type { Pose, SweepResult } from "./types";
 import type { BeamPointLoad } from "./structure/beam";
 import { toWorld, unturnedX, unturnedY, worldX, worldY } from "./plane";
+import { atJoint } from "../model/spring-kinds";
 
 export type LoadKind =
   "gravity" | "payload" | "payload-force" | "spring" | "torsion" | "reaction" | "holding" | "locked";
@@ -53,7 +54,7 @@ function bodyIndex(model: ArmModel): BodyIndex {
   for (const p of model.payloads) push(ix.payloads, p.body, p);
   const jointsById = new Map(model.joints.map((j) => [j.id, j]));
   for (const s of model.springs) {
-    if (s.kind === "torsion") {
+    if (atJoint(s)) {
       const j = jointsById.get(s.joint);
       if (!j) continue;
       push(ix.torsions, j.parent, { spring: s, joint: j, side: 1 });

@@ -15,6 +15,7 @@ import { wrapNear } from "./joint-graph";
 import type { Linkage } from "./linkage";
 import { pastDeadline } from "../stop";
 import { turnedX, turnedY, worldX, worldY } from "./plane";
+import { atJoint } from "../model/spring-kinds";
 
 /** Converged when every constraint is met within 1e-10 (m, or rad for drives): a tenth of a
  * nanometre, far below any displayed digit and about 1e4 x the round-off of arm-sized numbers. */
@@ -127,7 +128,7 @@ export class PoseSolver {
     this.payloadBody = Int32Array.from(this.model.payloads, (p) => idx.get(p.body) ?? -2);
     this.tau = new Float64Array(Math.max(this.ndof, 1));
     for (const s of this.model.springs) {
-      if (s.kind === "torsion") {
+      if (atJoint(s)) {
         const joint = linkage.graph.joints.findIndex((j) => j.id === s.joint);
         if (joint >= 0) this.torsions.push({ spring: s, joint });
         continue;

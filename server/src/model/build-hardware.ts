@@ -8,6 +8,7 @@ import { coarsePitch, COARSE_SIZES_MM } from "./metric-threads";
 import { quantityValue, readChoice, readQuantity, readWord, type Read, type Values } from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
 import { materialOf } from "./build-parts";
+import { atJoint } from "./spring-kinds";
 
 /** The screws' class when `screws` names none: plain machine screws are commonly class 4.8 (the
  * weakest common class, so the check is not optimistic; common practice, no source). */
@@ -371,7 +372,7 @@ export function readUses(
       return;
     }
     case "spring": {
-      if (part.spring.kind === "torsion") return; // its ends are not two points (reported as unknown)
+      if (atJoint(part.spring)) return; // its ends are not two points (reported as unknown)
       const a = readHardwareUse(ctx, p, "anchor_fastening", "fastening");
       const b = readHardwareUse(ctx, p, "hook_fastening", "fastening");
       if (a || b) part.spring.fastenings = { ...(a ? { a } : {}), ...(b ? { b } : {}) };

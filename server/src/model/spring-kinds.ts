@@ -423,3 +423,8 @@ export function kindsTaking(key: string): SpringKind[] {
     return p.required.includes(key) || p.optional.includes(key) || !!p.oneOf?.some((g) => g.includes(key));
   });
 }
+
+/** True for a word that names a spring kind. */
+export function isSpringKind(word: string): word is SpringKind {
+  return Object.prototype.hasOwnProperty.call(SPRING_KIND_TABLE, word);
+}

@@ -21,6 +21,7 @@ import type {
 import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
 import { EMPTY_BOUNDS, payloadPaths, viewBounds } from "./envelope";
 import { buildResults } from "../checks/results";
+import { atJoint } from "../model/spring-kinds";
 
 /** What the view needs of an analysis (an `Analysis` fits). */
 export interface ViewInput {
@@ -117,7 +118,7 @@ function attachmentsOf(model: ArmModel, bodyId: string): Vec2[] {
     if (j.child === bodyId) pts.push(j.childPoint);
   }
   for (const s of model.springs) {
-    if (s.kind === "torsion") continue;
+    if (atJoint(s)) continue;
     if (s.a.body === bodyId) pts.push(s.a.point);
     if (s.b.body === bodyId) pts.push(s.b.point);
   }
@@ -304,7 +305,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
   vm.springs = model.springs.map((s) => ({
     id: s.id,
     kind: s.kind,
-    ...(s.kind === "torsion" ? { jointId: s.joint } : {}),
+    ...(atJoint(s) ? { jointId: s.joint } : {}),
     ...(s.kind === "gas" ? { cylinder: localLength(Math.max(0, s.extendedLength - s.stroke)) } : {}),
   }));
   vm.payloads = model.payloads.map((p) => ({

@@ -153,11 +153,12 @@ function springMark(
   const a: [number, number] = [mm(hooks[0]), mm(hooks[1])];
   const b: [number, number] = [mm(hooks[2]), mm(hooks[3])];
   const mark = statusColour(st);
-  const dimension = spring.kind === "torsion" ? "torque" : "force";
+  const atJoint = spring.jointId !== undefined;
+  const dimension = atJoint ? "torque" : "force";
   const tip = `${spring.id}: ${spring.kind}${force !== undefined ? `, ${formatFigureWithUnit(Math.abs(force), dimension, vm.units)}` : ""}${st && st !== "ok" ? ` (${st})` : ""}`;
   let out = `<g class="part spring" data-part="${esc(spring.id)}" data-spring="${esc(spring.id)}" data-kind="${spring.kind}" data-status="${st ?? "ok"}"><title>${esc(tip)}</title>`;
   const w = 1.8 * f.u;
-  if (spring.kind === "torsion") {
+  if (atJoint) {
     const r = 9 * f.u;
     let d = `M${c2(a[0] + r)} ${c2(Y(a[1]))}`;
     for (let i = 1; i <= 40; i++) {
@@ -177,7 +178,7 @@ function springMark(
   } else {
     out += `<polyline points="${coilPath(a, b, f)}" fill="none" stroke="${mark ?? PALETTE.coil}" stroke-width="${c2(w)}" stroke-linejoin="round"/>`;
   }
-  for (const h of spring.kind === "torsion" ? [] : [a, b])
+  for (const h of atJoint ? [] : [a, b])
     out += `<circle cx="${c2(h[0])}" cy="${c2(Y(h[1]))}" r="${c2(2 * f.u)}" fill="${PALETTE.coil}"/>`;
   return out + "</g>";
 }

@@ -76,7 +76,7 @@ export function poseSummaryHtml(vm: ViewModel): string {
     );
   }
   for (const s of vm.springs) {
-    if (s.kind !== "torsion") {
+    if (s.jointId === undefined) {
       row(
         `length of ${s.id}`,
         (p) => {
@@ -87,9 +87,9 @@ export function poseSummaryHtml(vm: ViewModel): string {
       );
     }
     row(
-      `${s.kind === "torsion" ? "torque" : "tension"} of ${s.id}`,
+      `${s.jointId !== undefined ? "torque" : "tension"} of ${s.id}`,
       (p) => vm.poses[p]!.springForce[s.id] ?? NaN,
-      s.kind === "torsion" ? "torque" : "force",
+      s.jointId !== undefined ? "torque" : "force",
     );
   }
   return out + "</tbody></table>";

@@ -49,7 +49,7 @@ export interface ViewPivot {
 export interface ViewSpring {
   id: string;
   kind: "extension" | "zero_length" | "elastic" | "gas" | "torsion";
-  /** Torsion springs: the joint they act at. */
+  /** Springs that act at a joint (torsion): the joint; the view tells them by it. */
   jointId?: string;
   /** Gas struts: length of the cylinder, m (the rest of the eye-to-eye length is rod). */
   cylinder?: number;

@@ -31,6 +31,7 @@ import {
 import { guarded } from "../safe";
 import type { SyntaxView } from "../session/syntax-view";
 import { UNITS_BY_DIMENSION } from "../../services/unit-words";
+import { isSpringKind, SPRING_KIND_TABLE } from "../../model/spring-kinds";
 
 const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)([A-Za-z].*)$/;
@@ -65,10 +66,14 @@ function dimensionsOf(shape: ValueShape): DimensionName[] {
   }
 }
 
-/** A spring's `rate` is angular only for a torsion spring. */
+/** A spring's `rate` is angular only for a kind that acts at a joint (a torsion spring). */
 function dimensionsFor(spec: PropertySpec, springKind: string | undefined): DimensionName[] {
   if (spec.key === "rate" && springKind)
-    return [springKind === "torsion" ? "angular_stiffness" : "stiffness"];
+    return [
+      isSpringKind(springKind) && SPRING_KIND_TABLE[springKind].actsAt === "joint"
+        ? "angular_stiffness"
+        : "stiffness",
+    ];
   return dimensionsOf(spec.shape);
 }
 

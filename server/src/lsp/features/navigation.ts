@@ -16,6 +16,7 @@ import { IDENTIFIER, occurrenceAt, occurrencesOf, type NameSymbol } from "../../
 import { guarded } from "../safe";
 import type { SyntaxView } from "../session/syntax-view";
 import { DECLARATIONS } from "../../model/schema";
+import { SPRING_KIND_WORDS } from "../../model/spring-kinds";
 
 function symbolAt(view: SyntaxView, offset: number): { symbol: NameSymbol; range: Range } | undefined {
   const occ = occurrenceAt(view.names, offset);
@@ -47,11 +48,7 @@ const RESERVED = new Set([
   "double",
   "fixed",
   "yaw",
-  "extension",
-  "zero_length",
-  "elastic",
-  "gas",
-  "torsion",
+  ...SPRING_KIND_WORDS,
 ]);
 
 function renameEdits(view: SyntaxView, symbol: NameSymbol, newName: string): TextEdit[] {
