@@ -94,6 +94,10 @@ function analyseWithin(text: string, options: AnalysisOptions, deadline: number)
   const findings: Finding[] = [];
   let t = performance.now();
   const tree = parse(text);
+  // Stopped while reading (cancelled, or out of time): nothing more to say about an unread text
+  // than the budget finding analyse() adds.
+  if (tree.stopped)
+    return { text, tree, findings, readouts: {}, timings: { ...timings, parse: performance.now() - t } };
   for (const e of tree.errors) {
     const subject = declarationNameAt(tree, e.span.start);
     findings.push(finding("syntax.error", e.span, e.message, { data: subject ? { subject } : {} }));

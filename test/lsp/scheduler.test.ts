@@ -1,10 +1,15 @@
 // Bounded analysis per document, with a runner under the test's control: keystrokes debounce to
-// one run of the latest text, results for a text already changed are dropped, a long stale run is
-// stopped, a run past its hard limit still yields the text's findings, and figures stay available
-// from the last good analysis while the text is broken.
+// one run of the latest text, a run of a text already changed is cancelled at once (cancelling is
+// cooperative and keeps the worker), a run past its hard limit still yields the text's findings,
+// and figures stay available from the last good analysis while the text is broken.
 import { describe, expect, it } from "vitest";
 import type { Analysis, AnalysisOptions } from "../../server/src/analysis";
-import type { AnalysisRunner, RunHandle, RunOutcome } from "../../server/src/lsp/session/runner";
+import type {
+  AnalysisRunner,
+  RunHandle,
+  RunOutcome,
+  ViewOutcome,
+} from "../../server/src/lsp/session/runner";
 import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/session/scheduler";
 import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/session/settings";
 import type { ArmModel } from "../../server/src/model/types";
@@ -41,6 +46,11 @@ class FakeRunner implements AnalysisRunner {
         finish({ kind: "cancelled" });
       },
     };
+  }
+  readonly views: { text: string; options: AnalysisOptions }[] = [];
+  view(text: string, options: AnalysisOptions): Promise<ViewOutcome> {
+    this.views.push({ text, options });
+    return Promise.resolve({ kind: "failed", message: "no views here" });
   }
   dispose(): void {}
 }
@@ -92,31 +102,30 @@ describe("analysis scheduler", () => {
     scheduler.dispose();
   });
 
-  it("drops the result of a text that changed while it ran, and runs the new text", async () => {
+  it("cancels the run of a text that changed, however young, and runs the new text", async () => {
     const { runner, published, scheduler } = setUp();
     scheduler.update("u", 1, "old", "full", true);
     await until(() => runner.runs.length === 1, "first run");
     scheduler.update("u", 2, "new", "full", true);
-    await tick(20);
-    // The first run is young (within the grace): it is left to finish, and its result dropped.
-    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("old") });
+    // Cancelling costs the worker nothing: the stale run is not left to finish.
+    expect(runner.runs[0]!.cancelled).toBe(true);
     await until(() => runner.runs.length === 2, "second run");
     expect(runner.runs[1]!.text).toBe("new");
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("old") }); // too late: ignored
     runner.runs[1]!.finish({ kind: "done", analysis: analysisOf("new") });
     await until(() => published.length > 0, "publication");
     expect(published.map((p) => [p.version, p.analysis.text])).toEqual([[2, "new"]]);
     scheduler.dispose();
   });
 
-  it("stops a stale run that has gone on past the grace", async () => {
-    const { runner, scheduler } = setUp();
-    scheduler.update("u", 1, "slow", "full", true);
-    await until(() => runner.runs.length === 1, "first run");
-    runner.runs[0]!.startedAt -= 10_000; // as if it had run for ten seconds
-    scheduler.update("u", 2, "edited", "full", true);
-    expect(runner.runs[0]!.cancelled).toBe(true);
-    await until(() => runner.runs.length === 2, "second run");
-    expect(runner.runs[1]!.text).toBe("edited");
+  it("asks for the drawing of a published analysis with the options it was run with", async () => {
+    const { runner, published, scheduler } = setUp({ analysisBudgetMs: 700 });
+    scheduler.update("u", 1, "arm", "full", true);
+    await until(() => runner.runs.length === 1, "run");
+    runner.runs[0]!.finish({ kind: "done", analysis: analysisOf("arm") });
+    await until(() => published.length === 1, "publication");
+    await scheduler.viewModel(published[0]!.analysis, { units: "si" });
+    expect(runner.views).toEqual([{ text: "arm", options: runner.runs[0]!.options }]);
     scheduler.dispose();
   });
 

@@ -27,11 +27,11 @@ async function runLsp(args: string[], out: Output): Promise<number> {
     out.err("poise lsp: only --stdio is supported (poise lsp --stdio)\n");
     return 2;
   }
-  const { createConnection, ProposedFeatures } = await import("vscode-languageserver/node");
+  const { createServerConnection } = await import("../lsp/transport");
   const { startServer } = await import("../lsp/server");
-  // Found on the command line, `--stdio` makes the library use stdin/stdout and send console
-  // output to the client's log, so that nothing stray can corrupt the message stream.
-  startServer(createConnection(ProposedFeatures.all));
+  // `--stdio` on the command line: the connection reads stdin (behind the frame guard), writes
+  // stdout and sends console output to the client's log, so nothing stray corrupts the stream.
+  startServer(createServerConnection());
   return new Promise<number>(() => {}); // runs until the client ends it (exit notification)
 }
 

@@ -51,7 +51,7 @@ export function startServer(connection: Connection): void {
   process.on("unhandledRejection", (err) => reportFault("a pending task", err));
 
   const scheduler = new AnalysisScheduler(
-    createRunner(log),
+    createRunner(log, (message) => attempt("logging", () => connection.console.warn(message))),
     () => settings,
     (result) => attempt("publishing diagnostics", () => publish(result)),
   );

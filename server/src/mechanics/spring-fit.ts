@@ -11,6 +11,7 @@ import { springForceBasis, springParameters } from "./forces";
 import { atJoint, springKind } from "../model/spring-kinds";
 import { handForceVector } from "./hand-force";
 import { rotate } from "./plane";
+import { pastDeadline } from "../stop";
 
 /** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 30 reach
  * 5e-7 of the bracket, past the four significant digits a quick fix writes. */
@@ -242,6 +243,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   for (let i = 0; i < count; i += stride) active.add(i);
   let best: [number, number] = [c0, c1];
   for (let round = 0; round < ACTIVE_ROUNDS; round++) {
+    if (pastDeadline()) return undefined; // out of budget or cancelled: no fit offered
     const act = gather(d, Int32Array.from(active));
     const n = active.size;
     const inner = (p0: number): number => (two ? golden((p1) => worstOf(act, n, p0, p1), lo1, hi1) : 0);

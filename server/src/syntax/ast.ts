@@ -125,4 +125,7 @@ export interface SyntaxTree {
   readonly arms: readonly ArmNode[];
   readonly comments: readonly CommentNode[];
   readonly errors: readonly SyntaxError[];
+  /** Set when reading stopped midway (the analysis was cancelled or out of time): the tree is
+   * empty, not the text. */
+  readonly stopped?: true;
 }

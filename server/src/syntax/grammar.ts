@@ -25,6 +25,7 @@ import {
 } from "./tokens";
 import { DECLARATION_KEYWORDS } from "./keywords";
 import { isUnitSymbol } from "../units/unit-table";
+import { pastDeadline } from "../stop";
 
 /** Blocks nest: the file (0) holds the arm, the arm's body (1) holds declarations, a declaration's
  * body (2) holds properties. */
@@ -35,9 +36,19 @@ const MAX_NESTING = 64;
 
 const DECLARATION_STARTERS: ReadonlySet<string> = new Set([...DECLARATION_KEYWORDS, "arm"]);
 
+/** Thrown out of the grammar when the analysis it reads for is cancelled or out of time (stop.ts):
+ * parse() ends with an empty tree marked as stopped. */
+export class ParseStopped extends Error {}
+
+/** Rules entered between two looks at the clock: a look costs a clock read, a rule a few dozen
+ * token tests. */
+const RULES_PER_CLOCK_LOOK = 256;
+
 export class ArmGrammar extends CstParser {
   /** Open blocks at the current position (reset with each input). */
   private depth = 0;
+  /** Rules entered since the last look at the clock. */
+  private sinceLook = 0;
 
   constructor() {
     // Node locations let the tree builder take spans without walking every node's tokens.
@@ -47,6 +58,16 @@ export class ArmGrammar extends CstParser {
 
   resetDepth(): void {
     this.depth = 0;
+    this.sinceLook = 0;
+  }
+
+  /** A long text is read cooperatively: now and then, the running analysis's stop is asked. */
+  private lookAtClock(): void {
+    this.ACTION(() => {
+      if (++this.sinceLook < RULES_PER_CLOCK_LOOK) return;
+      this.sinceLook = 0;
+      if (pastDeadline()) throw new ParseStopped("stopped");
+    });
   }
 
   /** A line inside a declaration's body that starts a new declaration (`link arm2 {`, `require {`)
@@ -105,6 +126,7 @@ export class ArmGrammar extends CstParser {
 
   /** A property (`key values`) or, with a block, a declaration (`keyword name { }`). */
   public item = this.RULE("item", () => {
+    this.lookAtClock();
     this.CONSUME(Identifier);
     this.MANY(() => this.SUBRULE(this.value));
     this.OPTION(() => this.SUBRULE(this.junk));
@@ -124,6 +146,7 @@ export class ArmGrammar extends CstParser {
   });
 
   public value = this.RULE("value", () => {
+    this.lookAtClock();
     this.OR([
       { ALT: () => this.SUBRULE(this.quantityForm) },
       { ALT: () => this.SUBRULE(this.point) },

@@ -3,7 +3,7 @@
 import type { ILexingError } from "chevrotain";
 import type { CommentNode, SyntaxError, SyntaxTree } from "./ast";
 import { armLexer } from "./tokens";
-import { armGrammar } from "./grammar";
+import { armGrammar, ParseStopped } from "./grammar";
 import { TreeBuilder, tokenSpan } from "./build-tree";
 import { span } from "./span";
 import { MAX_SPEC_CHARS } from "../limits";
@@ -14,6 +14,7 @@ export function parse(text: string): SyntaxTree {
   try {
     return parseUnguarded(text);
   } catch (err) {
+    if (err instanceof ParseStopped) return { arms: [], comments: [], errors: [], stopped: true };
     // A fault in the parser itself must not take the editor down: say so and return nothing.
     const detail = err instanceof Error ? err.message : String(err);
     return {

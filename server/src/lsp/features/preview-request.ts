@@ -1,9 +1,10 @@
 // Answers the preview panel's request for a document's arm view model: the analysis of the
-// document's current version (waiting briefly for it), else the latest one there is.
+// document's current version (waiting briefly for it), else the latest one there is. The view
+// model is built in the analysis worker from that very analysis (scheduler.viewModel), within
+// the analysis's hard limit, so the server's own thread stays free for every other request.
 import type { FeatureContext, ServerFeature } from "../context";
 import { guarded } from "../safe";
 import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "../preview-protocol";
-import { buildViewModel } from "../../view";
 import type { Analysis } from "../../analysis";
 
 /** How long the request waits for the current text's analysis before answering with an older
@@ -35,7 +36,13 @@ export const previewFeature: ServerFeature = {
         );
         const analysis = current?.model ? current : (ctx.scheduler.latest(doc.uri) ?? current);
         if (!analysis) return null;
-        const vm = buildViewModel(analysis, { units: ctx.settings().displayUnits });
+        const built = await ctx.scheduler.viewModel(analysis, { units: ctx.settings().displayUnits });
+        if (!built) return null;
+        if ("failed" in built) {
+          ctx.log(`Counterpoise: the arm drawing could not be built: ${built.failed}`);
+          return null;
+        }
+        const vm = built.view;
         if (analysis.text !== doc.getText())
           vm.staleNote =
             "Showing the last text that described an arm; the current text does not build one yet.";

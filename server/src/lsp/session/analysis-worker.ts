@@ -1,13 +1,33 @@
 // The analysis worker: runs the core's analyse() off the server's request path, so hover and
-// completion stay responsive while a heavy sweep runs. Bundled to dist/analysis-worker.js.
+// completion stay responsive while a heavy sweep runs; and builds the drawing panel's view model
+// from the analysis it just made. Bundled to dist/analysis-worker.js. Each request brings a cancel
+// flag in shared memory that the server raises when the run is no longer wanted (stop.ts).
 import { parentPort } from "node:worker_threads";
 import { analyse } from "../../analysis";
+import { buildViewModel } from "../../view";
+import { AnalysisCache } from "./analysis-cache";
 import type { WorkerRequest, WorkerReply } from "./worker-protocol";
+
+const cache = new AnalysisCache();
+
+function answer(request: WorkerRequest): WorkerReply {
+  const options = { ...request.options, cancel: request.cancel };
+  let analysis = cache.get(request.text, request.options);
+  if (!analysis) {
+    analysis = analyse(request.text, options);
+    // A cancelled run's results are partial and nobody reads them: not kept.
+    if (Atomics.load(request.cancel, 0) === 0) cache.put(request.text, request.options, analysis);
+  }
+  if (request.kind === "view") return { id: request.id, view: buildViewModel(analysis, request.view) };
+  return { id: request.id, analysis };
+}
+
+parentPort?.postMessage({ ready: true } satisfies WorkerReply);
 
 parentPort?.on("message", (request: WorkerRequest) => {
   let reply: WorkerReply;
   try {
-    reply = { id: request.id, analysis: analyse(request.text, request.options) };
+    reply = answer(request);
   } catch (err) {
     reply = { id: request.id, error: err instanceof Error ? (err.stack ?? err.message) : String(err) };
   }

@@ -1,16 +1,14 @@
-// Bounded analysis per document: debounce keystrokes, run only the latest text, drop results that
-// arrive for a text already changed, stop a stale run that has gone on too long, and keep the last
-// good analysis to answer hover and completion while a new run is under way.
+// Bounded analysis per document: debounce keystrokes, run only the latest text, cancel a run of a
+// text already changed (cooperatively: the worker stays warm), and keep the last good analysis to
+// answer hover and completion while a new run is under way.
 import type { Analysis, AnalysisOptions } from "../../analysis";
 import { finding } from "../../findings/finding";
 import type { SyntaxTree } from "../../syntax/ast";
 import type { AnalysisRunner, RunHandle } from "./runner";
+import type { ViewModel, ViewOptions } from "../../view";
 import type { Settings } from "./settings";
 import { reportFault } from "../safe";
 
-/** A stale run younger than this is left to finish (its result is dropped): restarting the
- * worker costs about as much as a small analysis. Common practice, no source. */
-const STALE_RUN_GRACE_MS = 150;
 /** After a quick while-typing run, the spec's own sweep density is run once typing pauses this
  * long. Common practice, no source: about the pause between typed phrases. */
 const IDLE_FULL_RUN_MS = 1200;
@@ -40,8 +38,13 @@ interface DocEntry {
   waiters: { version: number; resolve: (a: Analysis | undefined) => void }[];
 }
 
+/** What the drawing panel is sent: the view model, or why there is none. */
+export type ViewResult = { view: ViewModel } | { failed: string } | undefined;
+
 export class AnalysisScheduler {
   private readonly docs = new Map<string, DocEntry>();
+  /** The options each published analysis was run with (to find it again in the worker). */
+  private readonly optionsOf = new WeakMap<Analysis, AnalysisOptions>();
 
   constructor(
     private readonly runner: AnalysisRunner,
@@ -62,7 +65,7 @@ export class AnalysisScheduler {
     entry.density = density;
     if (changed) entry.current = undefined;
     this.clearTimers(entry);
-    this.stopIfStale(entry, false);
+    this.stopIfStale(entry);
     const delay = immediate ? 0 : this.settings().diagnosticsDelayMs;
     entry.debounce = setTimeout(() => this.safeStart(entry!), delay);
   }
@@ -108,9 +111,25 @@ export class AnalysisScheduler {
     return new Promise((resolve) => entry.waiters.push({ version, resolve }));
   }
 
+  /** The view model of a published analysis, built off the request thread (in the worker, from
+   * the analysis it made) within the analysis's hard limit. */
+  async viewModel(analysis: Analysis, view: ViewOptions): Promise<ViewResult> {
+    const options = this.optionsOf.get(analysis) ?? {};
+    const outcome = await this.runner.view(analysis.text, options, view, this.hardLimit());
+    if (outcome.kind === "done") return { view: outcome.view };
+    if (outcome.kind === "timeout")
+      return { failed: `the drawing was not ready within ${this.hardLimit()} ms` };
+    if (outcome.kind === "failed") return { failed: outcome.message };
+    return undefined;
+  }
+
   dispose(): void {
     for (const uri of [...this.docs.keys()]) this.close(uri);
     this.runner.dispose();
+  }
+
+  private hardLimit(): number {
+    return this.settings().analysisBudgetMs + HARD_LIMIT_MARGIN_MS;
   }
 
   private clearTimers(entry: DocEntry): void {
@@ -119,15 +138,13 @@ export class AnalysisScheduler {
     entry.debounce = entry.idle = undefined;
   }
 
-  /** Cancels a run of an older text once it has run past the grace (or always, if `force`). */
-  private stopIfStale(entry: DocEntry, force: boolean): void {
+  /** Cancels a run of an older text: its result would be dropped, and cancelling costs the worker
+   * nothing (it notices its flag within milliseconds and stays warm). */
+  private stopIfStale(entry: DocEntry): void {
     const run = entry.running;
     if (!run || run.version === entry.version) return;
-    const startedAt = run.handle.started();
-    if (startedAt === undefined || force || performance.now() - startedAt > STALE_RUN_GRACE_MS) {
-      run.handle.cancel();
-      entry.running = undefined;
-    }
+    run.handle.cancel();
+    entry.running = undefined;
   }
 
   private options(entry: DocEntry): AnalysisOptions {
@@ -152,18 +169,9 @@ export class AnalysisScheduler {
     if (this.docs.get(entry.uri) !== entry) return;
     if (entry.running) {
       if (entry.running.version === entry.version && entry.running.density === entry.density) return;
-      // A run of an older text is still going: stop it now if it is long; else look again when
-      // its grace is up (if it ends first, its end starts the new run).
-      this.stopIfStale(entry, false);
-      if (entry.running) {
-        const startedAt = entry.running.handle.started();
-        const wait =
-          startedAt === undefined
-            ? STALE_RUN_GRACE_MS
-            : STALE_RUN_GRACE_MS - (performance.now() - startedAt) + 1;
-        entry.debounce = setTimeout(() => this.safeStart(entry), Math.max(1, wait));
-        return;
-      }
+      // A run of the same text at another density, or of an older text: replaced.
+      entry.running.handle.cancel();
+      entry.running = undefined;
     }
     const version = entry.version;
     const density = entry.density;
@@ -176,13 +184,16 @@ export class AnalysisScheduler {
       if (this.docs.get(entry.uri) !== entry) return;
       if (outcome.kind === "cancelled") return this.startIfBehind(entry);
       let analysis: Analysis;
-      if (outcome.kind === "done") analysis = outcome.analysis;
-      else
+      if (outcome.kind === "done") {
+        analysis = outcome.analysis;
+        this.optionsOf.set(analysis, options);
+      } else
         analysis = await this.fallbackAnalysis(
           entry.text,
           outcome.kind === "timeout" ? hardLimit : undefined,
           outcome.kind === "failed" ? outcome.message : undefined,
         );
+      if (outcome.kind !== "done") this.optionsOf.set(analysis, { modelOnly: true });
       if (this.docs.get(entry.uri) !== entry) return;
       if (entry.version !== version) return this.startIfBehind(entry); // stale: drop it
       this.accept(entry, version, density, analysis);

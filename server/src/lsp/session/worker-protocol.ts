@@ -1,10 +1,24 @@
 // Messages between the language server and its analysis worker.
 import type { Analysis, AnalysisOptions } from "../../analysis";
+import type { ViewModel, ViewOptions } from "../../view";
 
-export interface WorkerRequest {
+interface Request {
   id: number;
   text: string;
   options: AnalysisOptions;
+  /** Raised (non-zero) by the server to cancel the run: a SharedArrayBuffer of 4 bytes. */
+  cancel: Int32Array;
 }
 
-export type WorkerReply = { id: number; analysis: Analysis } | { id: number; error: string };
+export type WorkerRequest =
+  | (Request & { kind: "analyse" })
+  /** The view model of the analysis of `text` with `options` (the worker's own, if it has it). */
+  | (Request & { kind: "view"; view: ViewOptions });
+
+export type WorkerReply =
+  /** Sent once the worker has loaded (and built its parser): before that it cannot look at a
+   * cancel flag, and its slowness is not a hang. */
+  | { ready: true }
+  | { id: number; analysis: Analysis }
+  | { id: number; view: ViewModel }
+  | { id: number; error: string };
