@@ -11,6 +11,7 @@ import type { ArmModel } from "../server/src/model/types";
 import { TYPICAL_ARM } from "./typical-arm";
 import { runLatencyBench } from "./latency";
 import { DEFAULT_SETTINGS } from "../server/src/lsp/session/settings";
+import { runTypingUnderLoadBench } from "./typing-under-load";
 
 /** Targets of the mechanics issue: a typical arm (up to 12 bodies, 3 dof) analysed end to end in
  * 20 ms, and a pose costing at most 5 bare LU solves of the same size. */
@@ -201,7 +202,12 @@ const latency: Section = {
       : (log("  dist/server.js missing: run npm run build"), false),
 };
 
-export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency];
+const typingUnderLoad: Section = {
+  name: "typing with the other core busy: last keystroke to diagnostics, worker restarts",
+  run: (log) => runTypingUnderLoadBench(log, findRoot()),
+};
+
+export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency, typingUnderLoad];
 
 async function main(): Promise<void> {
   const only = process.argv.slice(2);

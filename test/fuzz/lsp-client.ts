@@ -37,6 +37,8 @@ export class ServerSession {
   capabilities: ServerCapabilities = {};
   /** Messages the server logged at error level (its guards report handler faults this way). */
   readonly errorLogs: string[] = [];
+  /** Messages it logged as warnings (e.g. a worker restarted as a last resort). */
+  readonly warningLogs: string[] = [];
   readonly stderr: string[] = [];
   exited: { code: number | null; signal: string | null } | undefined;
   private readonly published = new Map<string, Published[]>();
@@ -58,6 +60,7 @@ export class ServerSession {
     );
     this.conn.onNotification("window/logMessage", (p: { type: number; message: string }) => {
       if (p.type === 1) this.errorLogs.push(p.message);
+      if (p.type === 2) this.warningLogs.push(p.message);
     });
     this.conn.onNotification(() => undefined);
     // The server's own requests: settings, registrations, progress, refreshes.
