@@ -4,12 +4,7 @@
 // and figures stay available from the last good analysis while the text is broken.
 import { describe, expect, it } from "vitest";
 import type { Analysis, AnalysisOptions } from "../../server/src/analysis";
-import type {
-  AnalysisRunner,
-  RunHandle,
-  RunOutcome,
-  ViewOutcome,
-} from "../../server/src/lsp/session/runner";
+import type { AnalysisRunner, RunHandle, RunOutcome, ViewOutcome } from "../../server/src/lsp/session/runner";
 import { AnalysisScheduler, type PublishedAnalysis } from "../../server/src/lsp/session/scheduler";
 import { DEFAULT_SETTINGS, type Settings } from "../../server/src/lsp/session/settings";
 import type { ArmModel } from "../../server/src/model/types";
