@@ -1,0 +1,456 @@
+// Space frame by the direct stiffness method (McGuire, Gallagher and Ziemian, Matrix Structural
+// Analysis, 2nd ed., ch. 4-5): six dofs a node (three translations, three rotations, global axes),
+// Bernoulli members with torsion and bending about two axes, axial and rotational springs, and
+// exact constraints for supports, welds, pins (a revolute pin releases only the rotation about its
+// own axis) and rigid offsets. Loads: node forces and moments and the work-equivalent loads of a
+// member's own weight; masses: consistent member masses plus point masses. SI units.
+import { DofConstraints, type Term } from "./dof-constraints";
+import { choleskyFactor, choleskySolve } from "./dense";
+import { lowestModes } from "./subspace";
+import {
+  localConsistentMass,
+  localStiffness,
+  localUniformLoad,
+  memberAxes,
+  toGlobalMatrix,
+  toGlobalVector,
+  toLocal3,
+  toLocalVector,
+  type MemberProperties,
+  type Vec3,
+} from "./space-element";
+
+export type { MemberProperties, Vec3 } from "./space-element";
+
+const NODE_DOFS = 6;
+
+export interface SpaceMember {
+  i: number;
+  j: number;
+  props: MemberProperties;
+  /** Rows: local x, y, z in global axes. */
+  axes: Float64Array;
+  length: number;
+  /** Uniform load per length in global axes (own weight), N/m. */
+  load: Vec3;
+  /** A massless carrier of mass only (a rigid part: its stiffness is in the constraints). */
+  massOnly: boolean;
+}
+
+export interface SpaceDisplacement {
+  /** m, global axes */
+  translation: Vec3;
+  /** rad, global axes (a small rotation vector) */
+  rotation: Vec3;
+}
+
+/** Member end forces in local axes, as the nodes exert them on the member (the work-equivalent
+ * loads taken off): axial N (fx2 > 0 in tension), shears, torque and bending moments. */
+export interface SpaceEndForces {
+  i: { fx: number; fy: number; fz: number; mx: number; my: number; mz: number };
+  j: { fx: number; fy: number; fz: number; mx: number; my: number; mz: number };
+}
+
+interface Spring {
+  i: number;
+  j: number;
+  rate: number;
+  /** Unit direction: the line of an axial spring, the axis of a rotational one. */
+  axis: Vec3;
+}
+
+export class SpaceFrame {
+  readonly nodes: Vec3[] = [];
+  readonly members: SpaceMember[] = [];
+  private readonly axialSprings: Spring[] = [];
+  private readonly rotationalSprings: Spring[] = [];
+  private readonly constraints = new DofConstraints();
+  private readonly loadRaw: number[] = [];
+  private readonly massRaw: number[] = [];
+  private factorCache?: { factor: Float64Array; diagonal: Float64Array } | null;
+
+  addNode(p: Vec3): number {
+    this.factorCache = undefined;
+    this.nodes.push({ ...p });
+    for (let k = 0; k < NODE_DOFS; k++) {
+      this.loadRaw.push(0);
+      this.massRaw.push(0);
+    }
+    this.constraints.grow(this.nodes.length * NODE_DOFS);
+    return this.nodes.length - 1;
+  }
+
+  get nodeCount(): number {
+    return this.nodes.length;
+  }
+
+  private changed(): void {
+    this.factorCache = undefined;
+  }
+
+  /** Ground: no movement at all. */
+  fix(node: number): void {
+    this.changed();
+    for (let k = 0; k < NODE_DOFS; k++) this.constraints.hold(node * NODE_DOFS + k);
+  }
+
+  /** Holds one raw dof (0-2 translations x, y, z; 3-5 rotations) at zero. */
+  hold(node: number, dof: number): void {
+    this.changed();
+    this.constraints.hold(node * NODE_DOFS + dof);
+  }
+
+  /** Both nodes move together (b follows a). */
+  tieTranslations(a: number, b: number): void {
+    this.changed();
+    for (let k = 0; k < 3; k++) this.equal(a * NODE_DOFS + k, b * NODE_DOFS + k);
+  }
+
+  /** Two nodes joined rigidly: translations and rotations equal. */
+  weld(a: number, b: number): void {
+    this.tieTranslations(a, b);
+    for (let k = 3; k < 6; k++) this.equal(a * NODE_DOFS + k, b * NODE_DOFS + k);
+  }
+
+  /** A revolute pin between a and b about `axis`: translations equal, and the rotations equal
+   * except about the axis (the one released rotation). */
+  pin(a: number, b: number, axis: Vec3): void {
+    this.tieTranslations(a, b);
+    const n = unit(axis);
+    for (const e of normalsTo(n)) {
+      const terms: Term[] = [];
+      const prefer: number[] = [];
+      const comps = [e.x, e.y, e.z];
+      for (let k = 0; k < 3; k++) {
+        if (comps[k] === 0) continue;
+        terms.push([b * NODE_DOFS + 3 + k, comps[k]!], [a * NODE_DOFS + 3 + k, -comps[k]!]);
+        prefer.push(b * NODE_DOFS + 3 + k);
+      }
+      this.constraints.add(terms, prefer);
+    }
+  }
+
+  /** `slave` follows `master` as if joined by a rigid arm: u_s = u_m + theta_m x r, theta_s =
+   * theta_m, r from master to slave. */
+  rigidOffset(master: number, slave: number): void {
+    this.changed();
+    const m = master * NODE_DOFS;
+    const s = slave * NODE_DOFS;
+    const r = sub(this.nodes[slave]!, this.nodes[master]!);
+    const rc = [r.x, r.y, r.z];
+    // (theta x r)_k = theta_(k+1) r_(k+2) - theta_(k+2) r_(k+1)
+    for (let k = 0; k < 3; k++) {
+      const k1 = (k + 1) % 3;
+      const k2 = (k + 2) % 3;
+      const terms: Term[] = [
+        [s + k, 1],
+        [m + k, -1],
+      ];
+      if (rc[k2] !== 0) terms.push([m + 3 + k1, -rc[k2]!]);
+      if (rc[k1] !== 0) terms.push([m + 3 + k2, rc[k1]!]);
+      this.constraints.add(terms, [s + k]);
+    }
+    for (let k = 3; k < 6; k++) this.equal(m + k, s + k);
+  }
+
+  private equal(a: number, b: number): void {
+    this.changed();
+    this.constraints.add(
+      [
+        [b, 1],
+        [a, -1],
+      ],
+      [b],
+    );
+  }
+
+  /** A member from i to j; `across` is the section's local z (the axis of in-plane bending, along
+   * the pin axes of the arm's plane): bending about z uses bendingRigidityZ. */
+  addMember(i: number, j: number, props: MemberProperties, across: Vec3): number {
+    this.changed();
+    const { axes, length } = memberAxes(this.nodes[i]!, this.nodes[j]!, across);
+    this.members.push({ i, j, props, axes, length, load: { x: 0, y: 0, z: 0 }, massOnly: false });
+    return this.members.length - 1;
+  }
+
+  /** A part modelled as rigid (its nodes tied by rigidOffset): only its mass and weight, spread
+   * along i-j by the consistent mass and the work-equivalent loads. */
+  addMassOnlyMember(i: number, j: number, massPerLength: number): number {
+    const props: MemberProperties = {
+      axialRigidity: 0,
+      torsionalRigidity: 0,
+      bendingRigidityY: 0,
+      bendingRigidityZ: 0,
+      massPerLength,
+      rotaryInertiaPerLength: 0,
+    };
+    const { axes, length } = memberAxes(this.nodes[i]!, this.nodes[j]!, { x: 0, y: 0, z: 1 });
+    this.members.push({ i, j, props, axes, length, load: { x: 0, y: 0, z: 0 }, massOnly: true });
+    return this.members.length - 1;
+  }
+
+  /** A uniform load along a member (own weight: mass per length x gravity vector), N/m. */
+  addMemberLoad(index: number, perLength: Vec3): void {
+    const m = this.members[index]!;
+    m.load = add(m.load, perLength);
+  }
+
+  addAxialSpring(i: number, j: number, rate: number): void {
+    this.changed();
+    const d = sub(this.nodes[j]!, this.nodes[i]!);
+    const L = norm(d);
+    if (!(L > 0) || !(rate > 0)) return;
+    this.axialSprings.push({ i, j, rate, axis: scale(d, 1 / L) });
+  }
+
+  /** A torsion spring between the rotations of i and j about `axis`. */
+  addRotationalSpring(i: number, j: number, rate: number, axis: Vec3): void {
+    this.changed();
+    if (!(rate > 0)) return;
+    this.rotationalSprings.push({ i, j, rate, axis: unit(axis) });
+  }
+
+  /** Translational point mass, kg (its own rotary inertia is not modelled). */
+  addMass(node: number, mass: number): void {
+    for (let k = 0; k < 3; k++)
+      this.massRaw[node * NODE_DOFS + k] = this.massRaw[node * NODE_DOFS + k]! + mass;
+  }
+
+  addLoad(node: number, force: Vec3, moment: Vec3 = { x: 0, y: 0, z: 0 }): void {
+    const v = [force.x, force.y, force.z, moment.x, moment.y, moment.z];
+    for (let k = 0; k < 6; k++)
+      this.loadRaw[node * NODE_DOFS + k] = this.loadRaw[node * NODE_DOFS + k]! + v[k]!;
+  }
+
+  /** Global 12 x 12 stiffness of member `index`. */
+  memberStiffness(index: number): Float64Array {
+    const m = this.members[index]!;
+    return toGlobalMatrix(localStiffness(m.props, m.length), m.axes);
+  }
+
+  private rawDofs(m: { i: number; j: number }): number[] {
+    const out: number[] = [];
+    for (const node of [m.i, m.j]) for (let k = 0; k < NODE_DOFS; k++) out.push(node * NODE_DOFS + k);
+    return out;
+  }
+
+  /** Adds a global block over raw dofs into the reduced n x n matrix through the transform. */
+  private scatter(
+    target: Float64Array,
+    n: number,
+    terms: Term[][],
+    raw: readonly number[],
+    block: ArrayLike<number>,
+  ): void {
+    const size = raw.length;
+    for (let p = 0; p < size; p++) {
+      const tp = terms[raw[p]!]!;
+      if (tp.length === 0) continue;
+      for (let q = 0; q < size; q++) {
+        const v = block[p * size + q]!;
+        if (v === 0) continue;
+        const tq = terms[raw[q]!]!;
+        for (const [ea, ca] of tp)
+          for (const [eb, cb] of tq) target[ea * n + eb] = target[ea * n + eb]! + ca * v * cb;
+      }
+    }
+  }
+
+  private assembleStiffness(terms: Term[][], n: number): Float64Array {
+    const K = new Float64Array(n * n);
+    this.members.forEach((m, index) => {
+      if (!m.massOnly) this.scatter(K, n, terms, this.rawDofs(m), this.memberStiffness(index));
+    });
+    const pair = (sp: Spring, offset: number) => {
+      const a = [sp.axis.x, sp.axis.y, sp.axis.z];
+      const raw: number[] = [];
+      for (const node of [sp.i, sp.j]) for (let k = 0; k < 3; k++) raw.push(node * NODE_DOFS + offset + k);
+      const block = new Float64Array(36);
+      for (let p = 0; p < 6; p++)
+        for (let q = 0; q < 6; q++)
+          block[p * 6 + q] = (p < 3 === q < 3 ? 1 : -1) * sp.rate * a[p % 3]! * a[q % 3]!;
+      this.scatter(K, n, terms, raw, block);
+    };
+    for (const sp of this.axialSprings) pair(sp, 0);
+    for (const sp of this.rotationalSprings) pair(sp, 3);
+    return K;
+  }
+
+  private assembleMass(terms: Term[][], n: number): Float64Array {
+    const M = new Float64Array(n * n);
+    for (const m of this.members) {
+      if (!(m.props.massPerLength > 0) && !(m.props.rotaryInertiaPerLength > 0)) continue;
+      this.scatter(
+        M,
+        n,
+        terms,
+        this.rawDofs(m),
+        toGlobalMatrix(localConsistentMass(m.props, m.length), m.axes),
+      );
+    }
+    for (let d = 0; d < this.massRaw.length; d++) {
+      const v = this.massRaw[d]!;
+      if (v > 0) this.scatter(M, n, terms, [d], [v]);
+    }
+    return M;
+  }
+
+  /** Node loads plus the members' work-equivalent loads, in raw dofs. */
+  private rawLoads(): Float64Array {
+    const f = Float64Array.from(this.loadRaw);
+    for (const m of this.members) {
+      if (m.load.x === 0 && m.load.y === 0 && m.load.z === 0) continue;
+      const g = toGlobalVector(localUniformLoad(toLocal3(m.load, m.axes), m.length), m.axes);
+      this.rawDofs(m).forEach((d, p) => (f[d] = f[d]! + g[p]!));
+    }
+    return f;
+  }
+
+  private factor(): { factor: Float64Array; diagonal: Float64Array; terms: Term[][]; n: number } | undefined {
+    const { count: n, terms } = this.constraints.transform();
+    if (this.factorCache === undefined) {
+      const K = this.assembleStiffness(terms, n);
+      const diagonal = new Float64Array(n);
+      for (let i = 0; i < n; i++) diagonal[i] = K[i * n + i]!;
+      this.factorCache = n === 0 || choleskyFactor(K, n) ? { factor: K, diagonal } : null;
+    }
+    return this.factorCache ? { ...this.factorCache, terms, n } : undefined;
+  }
+
+  /** Static solution under the loads; undefined when the frame is a mechanism. */
+  solveStatic(): SpaceFrameSolution | undefined {
+    const f = this.factor();
+    if (!f) return undefined;
+    const { factor, terms, n } = f;
+    const raw = this.rawLoads();
+    const q = new Float64Array(n);
+    raw.forEach((v, d) => {
+      if (v !== 0) for (const [e, c] of terms[d]!) q[e] = q[e]! + c * v;
+    });
+    if (n > 0) choleskySolve(factor, n, q);
+    const u = new Float64Array(raw.length);
+    for (let d = 0; d < u.length; d++) {
+      let s = 0;
+      for (const [e, c] of terms[d]!) s += c * q[e]!;
+      u[d] = s;
+    }
+    return new SpaceFrameSolution(this, u);
+  }
+
+  /** The `count` lowest natural modes of K phi = omega^2 M phi: omega^2 (ascending) and each
+   * mode's raw dof shape. Undefined for a mechanism or a frame without mass. */
+  naturalModes(count = 1): { omega2: number[]; shapes: SpaceFrameSolution[] } | undefined {
+    const f = this.factor();
+    if (!f || f.n === 0) return undefined;
+    const M = this.assembleMass(f.terms, f.n);
+    const modes = lowestModes(f.factor, f.diagonal, M, f.n, count);
+    if (!modes || !(modes.values[0]! > 0)) return undefined;
+    const shapes = modes.vectors.map((q) => {
+      const u = new Float64Array(this.nodes.length * NODE_DOFS);
+      for (let d = 0; d < u.length; d++) {
+        let s = 0;
+        for (const [e, c] of f.terms[d]!) s += c * q[e]!;
+        u[d] = s;
+      }
+      return new SpaceFrameSolution(this, u);
+    });
+    return { omega2: modes.values, shapes };
+  }
+
+  /** omega^2 of the `count` lowest modes (ascending); undefined for a mechanism or no mass. */
+  naturalFrequencies(count = 1): number[] | undefined {
+    return this.naturalModes(count)?.omega2;
+  }
+}
+
+export class SpaceFrameSolution {
+  constructor(
+    private readonly frame: SpaceFrame,
+    /** Raw dof values, node * 6 + k. */
+    readonly raw: Float64Array,
+  ) {}
+
+  displacement(node: number): SpaceDisplacement {
+    const o = node * NODE_DOFS;
+    const u = this.raw;
+    return {
+      translation: { x: u[o]!, y: u[o + 1]!, z: u[o + 2]! },
+      rotation: { x: u[o + 3]!, y: u[o + 4]!, z: u[o + 5]! },
+    };
+  }
+
+  private memberRaw(index: number): Float64Array {
+    const m = this.frame.members[index]!;
+    const out = new Float64Array(12);
+    for (let k = 0; k < 6; k++) {
+      out[k] = this.raw[m.i * NODE_DOFS + k]!;
+      out[6 + k] = this.raw[m.j * NODE_DOFS + k]!;
+    }
+    return out;
+  }
+
+  /** End forces of member `index` in its local axes: k u minus the work-equivalent loads. */
+  endForces(index: number): SpaceEndForces {
+    const m = this.frame.members[index]!;
+    const ul = toLocalVector(this.memberRaw(index), m.axes);
+    const k = localStiffness(m.props, m.length);
+    const fe = localUniformLoad(toLocal3(m.load, m.axes), m.length);
+    const f = new Array<number>(12).fill(0);
+    for (let p = 0; p < 12; p++) {
+      let s = -fe[p]!;
+      for (let q = 0; q < 12; q++) s += k[p * 12 + q]! * ul[q]!;
+      f[p] = s;
+    }
+    const end = (o: number) => ({
+      fx: f[o]!,
+      fy: f[o + 1]!,
+      fz: f[o + 2]!,
+      mx: f[o + 3]!,
+      my: f[o + 4]!,
+      mz: f[o + 5]!,
+    });
+    return { i: end(0), j: end(6) };
+  }
+
+  /** Strain energy of member `index`, J: 1/2 u^T K u over its twelve end dofs. */
+  strainEnergy(index: number): number {
+    if (this.frame.members[index]!.massOnly) return 0;
+    const k = this.frame.memberStiffness(index);
+    const u = this.memberRaw(index);
+    let e = 0;
+    for (let p = 0; p < 12; p++) for (let q = 0; q < 12; q++) e += u[p]! * k[p * 12 + q]! * u[q]!;
+    return e / 2;
+  }
+}
+
+function sub(a: Vec3, b: Vec3): Vec3 {
+  return { x: a.x - b.x, y: a.y - b.y, z: a.z - b.z };
+}
+function add(a: Vec3, b: Vec3): Vec3 {
+  return { x: a.x + b.x, y: a.y + b.y, z: a.z + b.z };
+}
+function scale(a: Vec3, s: number): Vec3 {
+  return { x: a.x * s, y: a.y * s, z: a.z * s };
+}
+function norm(a: Vec3): number {
+  return Math.hypot(a.x, a.y, a.z);
+}
+function unit(a: Vec3): Vec3 {
+  return scale(a, 1 / norm(a));
+}
+
+/** Two unit vectors normal to n and to each other. */
+function normalsTo(n: Vec3): [Vec3, Vec3] {
+  // start from the global axis least aligned with n
+  const c = [Math.abs(n.x), Math.abs(n.y), Math.abs(n.z)];
+  const k = c[0]! <= c[1]! && c[0]! <= c[2]! ? 0 : c[1]! <= c[2]! ? 1 : 2;
+  const t = { x: k === 0 ? 1 : 0, y: k === 1 ? 1 : 0, z: k === 2 ? 1 : 0 };
+  const along = t.x * n.x + t.y * n.y + t.z * n.z;
+  const e1 = unit(sub(t, scale(n, along)));
+  const e2 = {
+    x: n.y * e1.z - n.z * e1.y,
+    y: n.z * e1.x - n.x * e1.z,
+    z: n.x * e1.y - n.y * e1.x,
+  };
+  return [e1, e2];
+}
