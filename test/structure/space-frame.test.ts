@@ -63,6 +63,51 @@ describe("space frame statics", () => {
     expect(rel(-u.rotation.y, (P * L ** 2) / (2 * E * s.secondMomentAcross))).toBeLessThan(1e-9);
   });
 
+  it("a cantilever at 30 deg in the plane: the results follow the member", () => {
+    const frame = new SpaceFrame();
+    const a = Math.PI / 6;
+    const n0 = frame.addNode({ x: 0, y: 0, z: 0 });
+    const n1 = frame.addNode({ x: L * Math.cos(a), y: L * Math.sin(a), z: 0 });
+    frame.fix(n0);
+    frame.addMember(n0, n1, props(tube, 0), Z);
+    // a load normal to the member in the plane, and one across the plane
+    frame.addLoad(n1, { x: P * Math.sin(a), y: -P * Math.cos(a), z: P });
+    const u = frame.solveStatic()!.displacement(n1).translation;
+    const I = sectionProperties(tube).secondMoment;
+    // Roark 8th ed., table 8.1 case 1a, in the member's own axes: W l^3 / (3 E I) each way
+    expect(rel(Math.hypot(u.x, u.y), (P * L ** 3) / (3 * E * I))).toBeLessThan(1e-9);
+    expect(rel(u.z, (P * L ** 3) / (3 * E * I))).toBeLessThan(1e-9);
+  });
+
+  it("portal corner: a column fixed at its foot, a beam welded at the top, an end load", () => {
+    // Unit-load method (Castigliano): column of height H (E I_c, E A_c), beam of length b (E I_b),
+    // load P down at the beam's end. Beam moment P x, column moment P b (constant), column axial
+    // force P: vertical tip deflection P b^3 / (3 E I_b) + P b^2 H / (E I_c) + P H / (E A_c);
+    // a unit horizontal load at the tip gives m = (H - y) on the column only, so the tip sways
+    // by P b H^2 / (2 E I_c) toward the load's side.
+    const H = 0.3;
+    const b = 0.25;
+    const rod: Section = { shape: "rod", diameter: 0.01 };
+    const frame = new SpaceFrame();
+    const foot = frame.addNode({ x: 0, y: 0, z: 0 });
+    const top = frame.addNode({ x: 0, y: H, z: 0 });
+    const tip = frame.addNode({ x: b, y: H, z: 0 });
+    frame.fix(foot);
+    frame.addMember(foot, top, props(rod, 0), Z);
+    frame.addMember(top, tip, props(tube, 0), Z);
+    frame.addLoad(tip, { x: 0, y: -P, z: 0 });
+    const u = frame.solveStatic()!.displacement(tip).translation;
+    const r = sectionProperties(rod);
+    const t = sectionProperties(tube);
+    const vertical =
+      (P * b ** 3) / (3 * E * t.secondMoment) +
+      (P * b * b * H) / (E * r.secondMoment) +
+      (P * H) / (E * r.area);
+    // unit-load method (derived above)
+    expect(rel(-u.y, vertical)).toBeLessThan(1e-9);
+    expect(rel(u.x, (P * b * H * H) / (2 * E * r.secondMoment))).toBeLessThan(1e-9);
+  });
+
   it("twist of a bar under an end torque, theta = T L / (K G) (Roark)", () => {
     for (const section of [
       tube,
@@ -290,9 +335,10 @@ describe("space frame vibration", () => {
     // references.md (mass on a spring, in rotation): the twisting mode is among the lowest three
     const twisting = f.findIndex((x) => rel(x, expected) < 1e-6);
     expect(twisting).toBeGreaterThanOrEqual(0);
-    // ... and its shape turns the tip about the bar's axis only
+    // ... and its shape turns the tip about the bar's axis only (to the accuracy of a mode shape
+    // whose frequency has settled to 1e-10: the shape's error is about the square root of that)
     const rot = modes.shapes[twisting]!.displacement(nodes[2]!).rotation;
-    expect(Math.abs(rot.y) + Math.abs(rot.z)).toBeLessThan(1e-9 * Math.abs(rot.x));
+    expect(Math.abs(rot.y) + Math.abs(rot.z)).toBeLessThan(1e-4 * Math.abs(rot.x));
   });
 
   it("cantilever tube with a tip mass (Rayleigh; references.md worked 26.78 Hz)", () => {

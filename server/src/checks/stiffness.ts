@@ -1,12 +1,14 @@
 // Stiffness and vibration of the loaded arm with its degrees of freedom held (mechanics.md
-// section 7): deflection and tilt at each payload, lowest natural frequency, at a few
-// representative poses (the reference and the ends of each range), not every pose.
+// sections 7 and 10): deflection and tilt at each payload and the lowest natural frequency
+// (sideways and twisting modes included) from the space frame, at a few representative poses (the
+// reference and the ends of each range), not every pose. A pose where the frame cannot be solved
+// is said on the parts it leaves unchecked, never skipped in silence.
 import type { ArmModel, Body, Parallelogram } from "../model/types";
 import type { Span } from "../findings/span";
 import { tiltShares } from "../mechanics/structure/tilt-share";
 import type { Pose, SweepResult } from "../mechanics/types";
-import { buildArmFrame } from "../mechanics/structure/arm-frame";
-import { elementStrainEnergy } from "../mechanics/structure/frame";
+import { buildArmFrame, type ArmFrame } from "../mechanics/structure/arm-frame";
+import type { SpaceFrameSolution } from "../mechanics/structure/space-frame";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
@@ -75,21 +77,51 @@ interface PayloadWorst {
   tiltCase: number;
 }
 
-/** The body whose bending and stretching stores most of the strain energy: the part whose
- * stiffening helps most (for the lowest mode too, by Rayleigh's static-deflection shape). */
+/** The body whose bending, twisting and stretching stores most of the strain energy (under the
+ * load, or in the lowest mode's shape): the part whose stiffening helps most. */
 function mostCompliantBody(model: ArmModel, energy: Map<string, number>): Body | undefined {
   let best: { id: string; e: number } | undefined;
   for (const [id, e] of energy) if (!best || e > best.e) best = { id, e };
   return best ? model.bodies.find((b) => b.id === best.id) : undefined;
 }
 
+/** Strain energy of each body's members in a solution or mode shape, J (or J per unit mode). */
+function energyByBody(af: ArmFrame, sol: SpaceFrameSolution): Map<string, number> {
+  const energy = new Map<string, number>();
+  af.memberBody.forEach((id, k) => id && energy.set(id, (energy.get(id) ?? 0) + sol.strainEnergy(k)));
+  return energy;
+}
+
+/** Which way a mode moves the arm: in its plane (x-y) or out of it (sideways sway and twist; the
+ * two are decoupled while the arm does not turn). */
+function modeDirection(af: ArmFrame, shape: SpaceFrameSolution): "in-plane" | "sideways" {
+  let inPlane = 0;
+  let across = 0;
+  for (let n = 0; n < af.frame.nodeCount; n++) {
+    const u = shape.displacement(n).translation;
+    inPlane += u.x * u.x + u.y * u.y;
+    across += u.z * u.z;
+  }
+  return across > inPlane ? "sideways" : "in-plane";
+}
+
+interface LowestMode {
+  f: number;
+  pose: Pose;
+  ci: number;
+  energy: Map<string, number>;
+  direction: "in-plane" | "sideways";
+}
+
 export function checkStiffness(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   const poses = representativePoses(sweep);
   const worst = new Map<string, PayloadWorst>();
-  let lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> } | undefined;
+  let lowest: LowestMode | undefined;
   const energyForDeflection = new Map<string, Map<string, number>>();
-  let mechanism: Pose | undefined;
+  const unsolved: Pose[] = [];
+  let solvedAny = false;
+  let flexible = false;
   // the lowest frequency comes with the heaviest payloads: solve the eigenproblem for that case only
   const heaviest = heaviestCase(model, sweep);
   for (const pose of poses) {
@@ -98,21 +130,20 @@ export function checkStiffness(ctx: CheckContext): void {
       const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci));
       const sol = af.frame.solveStatic();
       if (!sol) {
-        mechanism ??= pose;
+        if (!unsolved.includes(pose)) unsolved.push(pose);
         continue;
       }
-      const energy = new Map<string, number>();
-      af.elementBody.forEach(
-        (id, k) => id && energy.set(id, (energy.get(id) ?? 0) + elementStrainEnergy(af.frame, sol, k)),
-      );
+      solvedAny = true;
+      if (af.memberBody.some((id) => id !== undefined)) flexible = true;
+      const energy = energyByBody(af, sol);
       if (pose === poses[0] && ci === 0)
         for (const [id, n] of Object.entries(af.endNode)) {
-          const u = sol.displacement(n);
+          const u = sol.displacement(n).translation;
           const b = model.bodies.find((bb) => bb.id === id)!;
           addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [
             {
               label: "tip deflection under load",
-              value: Math.hypot(u.ux, u.uy),
+              value: Math.hypot(u.x, u.y, u.z),
               dimension: "length",
               where: describePose(sweep, pose),
             },
@@ -120,34 +151,80 @@ export function checkStiffness(ctx: CheckContext): void {
         }
       for (const [pid, n] of Object.entries(af.payloadNode)) {
         const u = sol.displacement(n);
-        const d = Math.hypot(u.ux, u.uy);
+        const d = Math.hypot(u.translation.x, u.translation.y, u.translation.z);
+        // elastic tilt in the arm's plane (about the pins' axis)
+        const tilt = Math.abs(u.rotation.z);
         const w = worst.get(pid) ?? { deflection: -1, deflectionCase: 0, tilt: -1, tiltCase: 0 };
         if (d > w.deflection)
           (Object.assign(w, { deflection: d, deflectionPose: pose, deflectionCase: ci }),
             energyForDeflection.set(pid, energy));
-        if (Math.abs(u.rotation) > w.tilt)
-          Object.assign(w, { tilt: Math.abs(u.rotation), tiltPose: pose, tiltCase: ci });
+        if (tilt > w.tilt) Object.assign(w, { tilt, tiltPose: pose, tiltCase: ci });
         worst.set(pid, w);
       }
-      const w2 = ci === heaviest ? af.frame.naturalFrequencies(1)?.[0] : undefined;
-      if (w2 !== undefined) {
-        const f = Math.sqrt(w2) / (2 * Math.PI);
-        if (!lowest || f < lowest.f) lowest = { f, pose, ci, energy };
+      const modes = ci === heaviest ? af.frame.naturalModes(1) : undefined;
+      if (modes) {
+        const f = Math.sqrt(modes.omega2[0]!) / (2 * Math.PI);
+        const shape = modes.shapes[0]!;
+        if (!lowest || f < lowest.f)
+          lowest = { f, pose, ci, energy: energyByBody(af, shape), direction: modeDirection(af, shape) };
       }
     }
   }
-  if (mechanism)
+  if (unsolved.length > 0) reportUnsolved(ctx, unsolved, solvedAny);
+  if (solvedAny && !flexible)
     addFigures(
       ctx.readouts,
       model.base?.bodyId ?? "arm",
       "base",
       [],
       [
-        `With its degrees of freedom held the arm is still a mechanism ${describePose(sweep, mechanism)}: stiffness not computed there.`,
+        "No moving part has a section and a material, so the arm is rigid in the stiffness model: no deflection to speak of and no natural frequency.",
       ],
     );
   reportPayloads(ctx, worst, energyForDeflection);
   if (lowest) reportFrequency(ctx, lowest);
+}
+
+function baseNameSpan(model: ArmModel): Span | undefined {
+  const base = model.bodies.find((b) => b.id === model.base?.bodyId);
+  return base ? (base.origin.name ?? base.origin.declaration) : undefined;
+}
+
+/** Poses where the held arm is still a mechanism (a joint that nothing holds): an information
+ * finding on each payload and on the frequency requirement, so that no check goes missing in
+ * silence, and a note on the base. */
+function reportUnsolved(ctx: CheckContext, unsolved: Pose[], solvedAny: boolean): void {
+  const { model, sweep } = ctx;
+  const where = describePose(sweep, unsolved[0]!);
+  const more = unsolved.length > 1 ? ` and ${unsolved.length - 1} more of the poses checked` : "";
+  const why = `with its degrees of freedom held the arm is still a mechanism ${where}${more} (some joint that nothing holds there)`;
+  const scope = solvedAny ? "there; the figures shown cover the other poses" : "at any pose checked";
+  addFigures(
+    ctx.readouts,
+    model.base?.bodyId ?? "arm",
+    "base",
+    [],
+    [`${why[0]!.toUpperCase()}${why.slice(1)}: stiffness not computed ${scope}.`],
+  );
+  for (const p of model.payloads)
+    ctx.findings.push(
+      finding(
+        "stiffness.not-computed",
+        p.origin.name ?? p.origin.declaration,
+        `deflection and tilt of payload ${p.id} not computed ${scope}: ${why}`,
+        { data: { subject: p.id, payload: p.id, poses: unsolved.length } },
+      ),
+    );
+  const frequencyOrigin = model.require.origin?.properties["frequency"];
+  if (frequencyOrigin || model.payloads.length === 0)
+    ctx.findings.push(
+      finding(
+        "stiffness.not-computed",
+        frequencyOrigin ?? baseNameSpan(model) ?? model.span,
+        `the lowest natural frequency not computed ${scope}: ${why}`,
+        { data: { poses: unsolved.length } },
+      ),
+    );
 }
 
 function reportPayloads(
@@ -268,10 +345,7 @@ function tiltSource(
   };
 }
 
-function reportFrequency(
-  ctx: CheckContext,
-  lowest: { f: number; pose: Pose; ci: number; energy: Map<string, number> },
-): void {
+function reportFrequency(ctx: CheckContext, lowest: LowestMode): void {
   const { model, sweep } = ctx;
   const where = describePose(sweep, lowest.pose, lowest.ci);
   const ids = [model.base?.bodyId, ...model.payloads.map((p) => p.id)].filter((x): x is string => !!x);
@@ -294,12 +368,17 @@ function reportFrequency(
       compliant
         ? sectionSpan(model, compliant)
         : (model.require.origin?.properties["frequency"] ?? model.span),
-      `the loaded arm's lowest natural frequency is ${show(lowest.f, "frequency")}, below the ${show(need, "frequency")} required (${where}): it will bounce when the tool moves${compliant ? `; ${bodyWord(compliant)} is the most flexible part` : ""}`,
+      `the loaded arm's lowest natural frequency is ${show(lowest.f, "frequency")}, below the ${show(need, "frequency")} required (${where}): ${lowest.direction === "sideways" ? "it will sway sideways, out of the arm's plane," : "it will bounce"} when the tool moves${compliant ? `; ${bodyWord(compliant)} is the most flexible part in that mode` : ""}`,
       {
         related: model.require.origin?.properties["frequency"]
           ? [{ span: model.require.origin.properties["frequency"], message: "the required frequency" }]
           : [],
-        data: { ...(compliant ? { subject: compliant.id } : {}), frequency: lowest.f, required: need },
+        data: {
+          ...(compliant ? { subject: compliant.id } : {}),
+          frequency: lowest.f,
+          required: need,
+          direction: lowest.direction,
+        },
       },
     ),
   );

@@ -142,6 +142,11 @@ export const CODES = {
     severity: "warning",
     explanation: "The lowest natural frequency of the loaded arm is below `require frequency`.",
   },
+  "stiffness.not-computed": {
+    severity: "information",
+    explanation:
+      "A stiffness figure could not be computed at some pose (the held arm is still a mechanism there).",
+  },
   // robustness
   "analysis.budget": {
     severity: "warning",

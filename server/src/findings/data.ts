@@ -278,6 +278,17 @@ export interface FrequencyData extends About {
   /** Lowest natural frequency, and the one required, Hz. */
   frequency: number;
   required: number;
+  /** Which way the lowest mode moves the arm: in its plane, or sideways out of it (sway and
+   * twist). */
+  direction?: "in-plane" | "sideways";
+}
+
+/** `stiffness.not-computed`: the held arm is still a mechanism at some poses checked. Subject:
+ * the payload whose deflection and tilt are missing there (absent for the frequency). */
+export interface NotComputedData extends About {
+  payload?: string;
+  /** How many of the poses checked could not be solved. */
+  poses: number;
 }
 
 /** `analysis.budget`. */
@@ -343,6 +354,7 @@ export interface FindingDataMap {
   "stiffness.deflection": DeflectionData;
   "stiffness.tilt": ElasticTiltData;
   "stiffness.low-frequency": FrequencyData;
+  "stiffness.not-computed": NotComputedData;
   "analysis.budget": BudgetData;
   "analysis.limit": LimitData;
   "analysis.internal": About;

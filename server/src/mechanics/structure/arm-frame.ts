@@ -1,30 +1,40 @@
-// The loaded arm at one pose as a plane frame (mechanics.md section 7): links and bars as frame
-// elements, pins as tied translations with released rotations, degrees of freedom and fixed
-// joints as locked rotations, springs as axial members with their tangent rate, the base fixed.
-// Masses are lumped at nodes (translation only; rotary inertia of bodies and payloads ignored).
+// The loaded arm at one pose as a space frame (mechanics.md sections 7 and 10): links and bars as
+// members (at least four each) with torsion and bending both ways, their own weight as
+// work-equivalent loads and their mass as consistent mass; pins as joints free to turn about their
+// axis only; degrees of freedom and fixed joints welded (held by hand or brake); springs as axial
+// members with their tangent rate and their tension as a pair of loads; the base fixed. Parts
+// without a section (heads, links given only a mass) and every point off a bar's axis (a spring
+// hook a few mm to the side) are rigid, as exact constraints: no stiff stand-in member to spoil
+// the conditioning. The arm's plane is the global x-y plane (y up), its pins along z.
 import type { ArmModel, Body, Spring, Vec2 } from "../../model/types";
 import type { Pose, PoseStatics } from "../types";
 import { sectionProperties } from "../../model/section";
-import { PlaneFrame } from "./frame";
+import { SpaceFrame, type MemberProperties, type Vec3 } from "./space-frame";
 import { worldPoint } from "../body-loads";
 import { atJoint, springKind } from "../../model/spring-kinds";
 
-/** Elements per link at least, so its mass spreads along it and its bending shape shows in the
- * lowest mode (4 lumped elements put a cantilever's first frequency within about 1 %). */
-const MIN_ELEMENTS_PER_LINK = 4;
-/** Parts without a section (heads, links given only a mass) are modelled this much stiffer than
- * the stiffest real member: rigid for all practical purposes, yet well conditioned. */
-const RIGID_FACTOR = 1e4;
+/** Members per link at least: cubic members with work-equivalent loads give a bar's deflection
+ * under its own weight exact at the nodes with any number, and with consistent mass two put a
+ * cantilever's first frequency within 0.05 % (one would be 0.5 % high). */
+const MIN_ELEMENTS_PER_LINK = 2;
 /** Stations closer than this along a link are one node (0.001 mm). */
 const STATION_MERGE_M = 1e-6;
+/** The pin axis of the arm's plane (global z). */
+const PLANE_NORMAL: Vec3 = { x: 0, y: 0, z: 1 };
 
 export interface ArmFrame {
-  frame: PlaneFrame;
+  frame: SpaceFrame;
   payloadNode: Record<string, number>;
   /** The node at each link's `end` point. */
   endNode: Record<string, number>;
-  /** Body id of each element; undefined for rigid offsets and parts without a section. */
-  elementBody: (string | undefined)[];
+  /** Body id of each member; undefined for the mass carriers of rigid parts. */
+  memberBody: (string | undefined)[];
+}
+
+export interface ArmFrameOptions {
+  /** Hold every node's out-of-plane translation and rotations: the plane frame, the special case
+   * of an arm that does not turn (for tests that compare the two). */
+  planar?: boolean;
 }
 
 /** Tangent rate dT/dL of a two-point spring at `length`, N/m (its kind's law; 0 for a spring
@@ -48,6 +58,24 @@ function interestPoints(model: ArmModel, body: Body): Vec2[] {
   return pts;
 }
 
+/** Member properties of a link or bar with a section and a material; its mass per length is the
+ * model's (a given `mass` counts), the rotary inertia scaled with it. */
+function memberProperties(model: ArmModel, body: Body): MemberProperties | undefined {
+  if ((body.kind !== "link" && body.kind !== "bar") || !body.section || !body.material) return undefined;
+  const mat = model.materials[body.material];
+  if (!mat || !(body.length > 0)) return undefined;
+  const sp = sectionProperties(body.section);
+  const massPerLength = body.mass / body.length;
+  return {
+    axialRigidity: mat.modulus * sp.area,
+    torsionalRigidity: mat.shearModulus * sp.torsionConstant,
+    bendingRigidityY: mat.modulus * sp.secondMomentAcross,
+    bendingRigidityZ: mat.modulus * sp.secondMoment,
+    massPerLength,
+    rotaryInertiaPerLength: sp.area > 0 ? (massPerLength * sp.polarMoment) / sp.area : 0,
+  };
+}
+
 /** Builds the frame of the arm at `pose` with the loads of `statics` (spring tensions) and the
  * given payload masses. */
 export function buildArmFrame(
@@ -55,8 +83,9 @@ export function buildArmFrame(
   pose: Pose,
   statics: PoseStatics | undefined,
   payloadMass: Record<string, number>,
+  options: ArmFrameOptions = {},
 ): ArmFrame {
-  const frame = new PlaneFrame();
+  const frame = new SpaceFrame();
   const g = model.gravity;
   const nodes = new Map<string, number>();
   const key = (body: string, p: Vec2) => `${body}|${p.x.toFixed(7)}|${p.y.toFixed(7)}`;
@@ -74,43 +103,25 @@ export function buildArmFrame(
     let n = nodes.get(k);
     if (n === undefined) {
       const w = worldPoint(pose, body.id, p, model);
-      n = frame.addNode(w.x, w.y);
+      n = frame.addNode({ x: w.x, y: w.y, z: 0 });
       nodes.set(k, n);
       if (body.kind === "base") frame.fix(n);
+      else if (options.planar) for (const dof of [2, 3, 4]) frame.hold(n, dof);
     }
     return n;
   };
-  let maxEA = 0;
-  let maxEI = 0;
-  const real = new Map<string, { EA: number; EI: number }>();
-  for (const b of model.bodies) {
-    if ((b.kind !== "link" && b.kind !== "bar") || !b.section || !b.material) continue;
-    const mat = model.materials[b.material];
-    if (!mat) continue;
-    const sp = sectionProperties(b.section);
-    const r = { EA: mat.modulus * sp.area, EI: mat.modulus * sp.secondMoment };
-    real.set(b.id, r);
-    maxEA = Math.max(maxEA, r.EA);
-    maxEI = Math.max(maxEI, r.EI);
-  }
-  // a metre of 1 GPa, 10 mm square stock, for arms with no real section at all
-  const rigid = { EA: RIGID_FACTOR * (maxEA || 1e5), EI: RIGID_FACTOR * (maxEI || 1) };
-  const elementBody: (string | undefined)[] = [];
-  const element = (i: number, j: number, props: { EA: number; EI: number }, body: string | undefined) => {
-    if (i === j) return;
-    if (Math.hypot(frame.x[j]! - frame.x[i]!, frame.y[j]! - frame.y[i]!) <= STATION_MERGE_M) {
-      // two points of one body at the same place: one node in effect
-      frame.tieTranslations(i, j);
-      frame.tieRotations(i, j);
-      return;
-    }
-    frame.addElement(i, j, props.EA, props.EI);
-    elementBody.push(body);
+  /** `slave` rigidly carried by `master` (two points of one rigid part, or a hook off an axis);
+   * two points of one body at the same place are one node in effect. */
+  const rigid = (master: number, slave: number) => {
+    if (master !== slave) frame.rigidOffset(master, slave);
   };
+  const memberBody: (string | undefined)[] = [];
+  const weight = (index: number, massPerLength: number) =>
+    frame.addMemberLoad(index, { x: 0, y: -massPerLength * g, z: 0 });
   const lump = (node: number, mass: number) => {
     if (!(mass > 0)) return;
     frame.addMass(node, mass);
-    frame.addLoad(node, 0, -mass * g);
+    frame.addLoad(node, { x: 0, y: -mass * g, z: 0 });
   };
   const endNode: Record<string, number> = {};
 
@@ -122,7 +133,8 @@ export function buildArmFrame(
       for (const p of pts) nodeAt(body, p);
       continue;
     }
-    if (body.length > 0) {
+    const props = memberProperties(model, body);
+    if (body.length > 0 && props) {
       const L = body.length;
       const raw = [0, L, ...pts.map((p) => Math.max(0, Math.min(L, p.x)))];
       for (let k = 1; k < MIN_ELEMENTS_PER_LINK; k++) raw.push((k * L) / MIN_ELEMENTS_PER_LINK);
@@ -132,22 +144,31 @@ export function buildArmFrame(
         if (stations.length === 0 || s - stations[stations.length - 1]! > STATION_MERGE_M) stations.push(s);
       stationsOf.set(body.id, stations);
       const axis = stations.map((s) => nodeAt(body, { x: s, y: 0 }));
-      const props = real.get(body.id);
       for (let k = 0; k + 1 < axis.length; k++) {
-        element(axis[k]!, axis[k + 1]!, props ?? rigid, props ? body.id : undefined);
-        const share = (body.mass * (stations[k + 1]! - stations[k]!)) / L / 2;
-        lump(axis[k]!, share);
-        lump(axis[k + 1]!, share);
+        const index = frame.addMember(axis[k]!, axis[k + 1]!, props, PLANE_NORMAL);
+        memberBody.push(body.id);
+        weight(index, props.massPerLength);
       }
       for (const p of pts) {
         const s = Math.max(0, Math.min(L, p.x));
-        if (Math.hypot(p.x - s, p.y) <= STATION_MERGE_M) continue;
-        element(nodeAt(body, { x: s, y: 0 }), nodeAt(body, p), rigid, undefined);
+        rigid(nodeAt(body, { x: s, y: 0 }), nodeAt(body, p));
       }
       endNode[body.id] = nodeAt(body, { x: L, y: 0 });
+    } else if (body.length > 0) {
+      // a link given only a mass: rigid, its mass spread evenly from start to end
+      const o = nodeAt(body, { x: 0, y: 0 });
+      const end = nodeAt(body, { x: body.length, y: 0 });
+      rigid(o, end);
+      for (const p of pts) rigid(o, nodeAt(body, p));
+      if (body.mass > 0) {
+        const index = frame.addMassOnlyMember(o, end, body.mass / body.length);
+        memberBody.push(undefined);
+        weight(index, body.mass / body.length);
+      }
+      endNode[body.id] = end;
     } else {
       const o = nodeAt(body, { x: 0, y: 0 });
-      for (const p of [...pts, body.centreOfMass]) element(o, nodeAt(body, p), rigid, undefined);
+      for (const p of [...pts, body.centreOfMass]) rigid(o, nodeAt(body, p));
       lump(nodeAt(body, body.centreOfMass), body.mass);
     }
   }
@@ -158,8 +179,8 @@ export function buildArmFrame(
     if (!parent || !child || !placed(parent.id) || !placed(child.id)) continue;
     const a = nodeAt(parent, j.parentPoint);
     const b = nodeAt(child, j.childPoint);
-    frame.tieTranslations(a, b);
-    if (j.mode !== "passive") frame.tieRotations(a, b);
+    if (j.mode === "passive") frame.pin(a, b, PLANE_NORMAL);
+    else frame.weld(a, b);
   }
   for (const sp of model.springs) {
     if (atJoint(sp)) {
@@ -167,7 +188,12 @@ export function buildArmFrame(
       const parent = j && bodyById.get(j.parent);
       const child = j && bodyById.get(j.child);
       if (j && parent && child && j.mode === "passive")
-        frame.addRotationalSpring(nodeAt(parent, j.parentPoint), nodeAt(child, j.childPoint), sp.rate);
+        frame.addRotationalSpring(
+          nodeAt(parent, j.parentPoint),
+          nodeAt(child, j.childPoint),
+          sp.rate,
+          PLANE_NORMAL,
+        );
       continue;
     }
     const A = bodyById.get(sp.a.body);
@@ -175,14 +201,15 @@ export function buildArmFrame(
     if (!A || !B || !placed(A.id) || !placed(B.id)) continue;
     const na = nodeAt(A, sp.a.point);
     const nb = nodeAt(B, sp.b.point);
-    const dx = frame.x[nb]! - frame.x[na]!;
-    const dy = frame.y[nb]! - frame.y[na]!;
-    const L = Math.hypot(dx, dy);
+    const pa = frame.nodes[na]!;
+    const pb = frame.nodes[nb]!;
+    const d = { x: pb.x - pa.x, y: pb.y - pa.y, z: pb.z - pa.z };
+    const L = Math.hypot(d.x, d.y, d.z);
     if (!(L > 0)) continue;
     frame.addAxialSpring(na, nb, springTangentRate(model, sp, L));
     const T = statics?.springForce[sp.id] ?? 0;
-    frame.addLoad(na, (T * dx) / L, (T * dy) / L);
-    frame.addLoad(nb, (-T * dx) / L, (-T * dy) / L);
+    frame.addLoad(na, { x: (T * d.x) / L, y: (T * d.y) / L, z: (T * d.z) / L });
+    frame.addLoad(nb, { x: (-T * d.x) / L, y: (-T * d.y) / L, z: (-T * d.z) / L });
   }
   const payloadNode: Record<string, number> = {};
   for (const p of model.payloads) {
@@ -190,9 +217,8 @@ export function buildArmFrame(
     if (!body || !placed(body.id)) continue;
     const n = nodeAt(body, p.point);
     payloadNode[p.id] = n;
-    const m = payloadMass[p.id] ?? p.mass;
-    lump(n, m);
-    if (p.force) frame.addLoad(n, p.force.x, p.force.y);
+    lump(n, payloadMass[p.id] ?? p.mass);
+    if (p.force) frame.addLoad(n, { x: p.force.x, y: p.force.y, z: 0 });
   }
-  return { frame, payloadNode, endNode, elementBody };
+  return { frame, payloadNode, endNode, memberBody };
 }

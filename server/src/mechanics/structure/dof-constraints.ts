@@ -15,12 +15,16 @@ const PREFERRED_PIVOT_RATIO = 1e-2;
 
 export type Term = readonly [dof: number, coefficient: number];
 
-/** How each raw dof follows the independent ones: `terms[d]` is a list of (equation, coefficient)
- * pairs (empty for a held dof). */
+/** How each raw dof follows the independent ones, row by row (compressed rows): raw dof d is
+ * sum over k in start[d] .. start[d+1]-1 of coef[k] times equation eq[k] (no terms: held). */
 export interface DofTransform {
   /** Independent dofs (equations) in raw order. */
   count: number;
-  terms: Term[][];
+  /** The raw dof of each equation. */
+  raw: Int32Array;
+  start: Int32Array;
+  eq: Int32Array;
+  coef: Float64Array;
 }
 
 export class DofConstraints {
@@ -115,21 +119,28 @@ export class DofConstraints {
   transform(): DofTransform {
     if (this.cached) return this.cached;
     const n = this.expression.length;
-    const eq = new Int32Array(n).fill(-1);
+    const number = new Int32Array(n).fill(-1);
     let count = 0;
-    for (let d = 0; d < n; d++) if (this.expression[d] === undefined) eq[d] = count++;
-    const terms: Term[][] = [];
+    let total = 0;
     for (let d = 0; d < n; d++) {
       const e = this.expression[d];
-      if (e === undefined) terms.push([[eq[d]!, 1]]);
-      else {
-        const list: Term[] = [];
-        for (const [k, v] of e) list.push([eq[k]!, v]);
-        list.sort((a, b) => a[0] - b[0]);
-        terms.push(list);
-      }
+      if (e === undefined) ((number[d] = count++), total++);
+      else total += e.size;
     }
-    this.cached = { count, terms };
+    const raw = new Int32Array(count);
+    for (let d = 0; d < n; d++) if (number[d]! >= 0) raw[number[d]!] = d;
+    const start = new Int32Array(n + 1);
+    const eq = new Int32Array(total);
+    const coef = new Float64Array(total);
+    let k = 0;
+    for (let d = 0; d < n; d++) {
+      start[d] = k;
+      const e = this.expression[d];
+      if (e === undefined) ((eq[k] = number[d]!), (coef[k] = 1), k++);
+      else for (const [dof, v] of e) ((eq[k] = number[dof]!), (coef[k] = v), k++);
+    }
+    start[n] = k;
+    this.cached = { count, raw, start, eq, coef };
     return this.cached;
   }
 }

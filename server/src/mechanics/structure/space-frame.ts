@@ -4,8 +4,8 @@
 // exact constraints for supports, welds, pins (a revolute pin releases only the rotation about its
 // own axis) and rigid offsets. Loads: node forces and moments and the work-equivalent loads of a
 // member's own weight; masses: consistent member masses plus point masses. SI units.
-import { DofConstraints, type Term } from "./dof-constraints";
-import { choleskyFactor, choleskySolve } from "./dense";
+import { DofConstraints, type DofTransform, type Term } from "./dof-constraints";
+import { SkylineMatrix } from "./skyline";
 import { lowestModes } from "./subspace";
 import {
   localConsistentMass,
@@ -67,7 +67,7 @@ export class SpaceFrame {
   private readonly constraints = new DofConstraints();
   private readonly loadRaw: number[] = [];
   private readonly massRaw: number[] = [];
-  private factorCache?: { factor: Float64Array; diagonal: Float64Array } | null;
+  private factorCache?: { factor: SkylineMatrix; diagonal: Float64Array } | null;
 
   addNode(p: Vec3): number {
     this.factorCache = undefined;
@@ -234,32 +234,75 @@ export class SpaceFrame {
     return out;
   }
 
-  /** Adds a global block over raw dofs into the reduced n x n matrix through the transform. */
+  /** Raw dofs of every connection that couples dofs (members, springs, point masses). */
+  private connections(): number[][] {
+    const out: number[][] = this.members.map((m) => this.rawDofs(m));
+    const pair = (sp: Spring, offset: number) => {
+      const raw: number[] = [];
+      for (const node of [sp.i, sp.j]) for (let k = 0; k < 3; k++) raw.push(node * NODE_DOFS + offset + k);
+      out.push(raw);
+    };
+    for (const sp of this.axialSprings) pair(sp, 0);
+    for (const sp of this.rotationalSprings) pair(sp, 3);
+    for (let d = 0; d < this.massRaw.length; d++) if (this.massRaw[d]! > 0) out.push([d]);
+    return out;
+  }
+
+  /** The skyline of the reduced matrices: each equation's row reaches back to the lowest
+   * equation any connection couples it with. */
+  private profile(t: DofTransform): Int32Array {
+    const first = new Int32Array(t.count);
+    for (let e = 0; e < t.count; e++) first[e] = e;
+    const eqs: number[] = [];
+    for (const raw of this.connections()) {
+      eqs.length = 0;
+      let low = Infinity;
+      for (const d of raw)
+        for (let k = t.start[d]!; k < t.start[d + 1]!; k++) {
+          eqs.push(t.eq[k]!);
+          low = Math.min(low, t.eq[k]!);
+        }
+      for (const e of eqs) if (low < first[e]!) first[e] = low;
+    }
+    return first;
+  }
+
+  /** Adds a global block over raw dofs into the reduced matrix through the transform. */
   private scatter(
-    target: Float64Array,
-    n: number,
-    terms: Term[][],
+    target: SkylineMatrix,
+    t: DofTransform,
     raw: readonly number[],
     block: ArrayLike<number>,
   ): void {
     const size = raw.length;
+    const { start, eq, coef } = t;
     for (let p = 0; p < size; p++) {
-      const tp = terms[raw[p]!]!;
-      if (tp.length === 0) continue;
-      for (let q = 0; q < size; q++) {
+      const dp = raw[p]!;
+      if (start[dp] === start[dp + 1]) continue;
+      for (let q = 0; q <= p; q++) {
         const v = block[p * size + q]!;
         if (v === 0) continue;
-        const tq = terms[raw[q]!]!;
-        for (const [ea, ca] of tp)
-          for (const [eb, cb] of tq) target[ea * n + eb] = target[ea * n + eb]! + ca * v * cb;
+        const dq = raw[q]!;
+        for (let a = start[dp]!; a < start[dp + 1]!; a++)
+          for (let b = start[dq]!; b < start[dq + 1]!; b++) {
+            const ea = eq[a]!;
+            const eb = eq[b]!;
+            // Only the lower triangle (row >= column) is stored. Off the block's diagonal, the
+            // pair (p, q) stands for (q, p) too: it puts w at (ea, eb) and at (eb, ea), one
+            // of which is stored (both when ea = eb). On it, (a, b) and (b, a) are both
+            // visited, so only the one with ea >= eb is kept.
+            if (p === q && ea < eb) continue;
+            const w = coef[a]! * v * coef[b]!;
+            target.add(ea, eb, p !== q && ea === eb ? 2 * w : w);
+          }
       }
     }
   }
 
-  private assembleStiffness(terms: Term[][], n: number): Float64Array {
-    const K = new Float64Array(n * n);
+  private assembleStiffness(t: DofTransform, first: Int32Array): SkylineMatrix {
+    const K = new SkylineMatrix(t.count, first);
     this.members.forEach((m, index) => {
-      if (!m.massOnly) this.scatter(K, n, terms, this.rawDofs(m), this.memberStiffness(index));
+      if (!m.massOnly) this.scatter(K, t, this.rawDofs(m), this.memberStiffness(index));
     });
     const pair = (sp: Spring, offset: number) => {
       const a = [sp.axis.x, sp.axis.y, sp.axis.z];
@@ -269,28 +312,22 @@ export class SpaceFrame {
       for (let p = 0; p < 6; p++)
         for (let q = 0; q < 6; q++)
           block[p * 6 + q] = (p < 3 === q < 3 ? 1 : -1) * sp.rate * a[p % 3]! * a[q % 3]!;
-      this.scatter(K, n, terms, raw, block);
+      this.scatter(K, t, raw, block);
     };
     for (const sp of this.axialSprings) pair(sp, 0);
     for (const sp of this.rotationalSprings) pair(sp, 3);
     return K;
   }
 
-  private assembleMass(terms: Term[][], n: number): Float64Array {
-    const M = new Float64Array(n * n);
+  private assembleMass(t: DofTransform, like: SkylineMatrix): SkylineMatrix {
+    const M = SkylineMatrix.like(like);
     for (const m of this.members) {
       if (!(m.props.massPerLength > 0) && !(m.props.rotaryInertiaPerLength > 0)) continue;
-      this.scatter(
-        M,
-        n,
-        terms,
-        this.rawDofs(m),
-        toGlobalMatrix(localConsistentMass(m.props, m.length), m.axes),
-      );
+      this.scatter(M, t, this.rawDofs(m), toGlobalMatrix(localConsistentMass(m.props, m.length), m.axes));
     }
     for (let d = 0; d < this.massRaw.length; d++) {
       const v = this.massRaw[d]!;
-      if (v > 0) this.scatter(M, n, terms, [d], [v]);
+      if (v > 0) this.scatter(M, t, [d], [v]);
     }
     return M;
   }
@@ -306,55 +343,70 @@ export class SpaceFrame {
     return f;
   }
 
-  private factor(): { factor: Float64Array; diagonal: Float64Array; terms: Term[][]; n: number } | undefined {
-    const { count: n, terms } = this.constraints.transform();
+  private factor(): { factor: SkylineMatrix; diagonal: Float64Array; t: DofTransform } | undefined {
+    const t = this.constraints.transform();
     if (this.factorCache === undefined) {
-      const K = this.assembleStiffness(terms, n);
-      const diagonal = new Float64Array(n);
-      for (let i = 0; i < n; i++) diagonal[i] = K[i * n + i]!;
-      this.factorCache = n === 0 || choleskyFactor(K, n) ? { factor: K, diagonal } : null;
+      const K = this.assembleStiffness(t, this.profile(t));
+      const diagonal = K.diagonal();
+      this.factorCache = K.factor() ? { factor: K, diagonal } : null;
     }
-    return this.factorCache ? { ...this.factorCache, terms, n } : undefined;
+    return this.factorCache ? { ...this.factorCache, t } : undefined;
+  }
+
+  /** Raw dof values from equation values. */
+  private expand(t: DofTransform, q: Float64Array): Float64Array {
+    const u = new Float64Array(this.nodes.length * NODE_DOFS);
+    for (let d = 0; d < u.length; d++) {
+      let s = 0;
+      for (let k = t.start[d]!; k < t.start[d + 1]!; k++) s += t.coef[k]! * q[t.eq[k]!]!;
+      u[d] = s;
+    }
+    return u;
   }
 
   /** Static solution under the loads; undefined when the frame is a mechanism. */
   solveStatic(): SpaceFrameSolution | undefined {
     const f = this.factor();
     if (!f) return undefined;
-    const { factor, terms, n } = f;
+    const { factor, t } = f;
     const raw = this.rawLoads();
-    const q = new Float64Array(n);
+    const q = new Float64Array(t.count);
     raw.forEach((v, d) => {
-      if (v !== 0) for (const [e, c] of terms[d]!) q[e] = q[e]! + c * v;
+      if (v !== 0)
+        for (let k = t.start[d]!; k < t.start[d + 1]!; k++) q[t.eq[k]!] = q[t.eq[k]!]! + t.coef[k]! * v;
     });
-    if (n > 0) choleskySolve(factor, n, q);
-    const u = new Float64Array(raw.length);
-    for (let d = 0; d < u.length; d++) {
-      let s = 0;
-      for (const [e, c] of terms[d]!) s += c * q[e]!;
-      u[d] = s;
-    }
-    return new SpaceFrameSolution(this, u);
+    if (t.count > 0) factor.solve(q);
+    return new SpaceFrameSolution(this, this.expand(t, q));
   }
 
   /** The `count` lowest natural modes of K phi = omega^2 M phi: omega^2 (ascending) and each
    * mode's raw dof shape. Undefined for a mechanism or a frame without mass. */
   naturalModes(count = 1): { omega2: number[]; shapes: SpaceFrameSolution[] } | undefined {
     const f = this.factor();
-    if (!f || f.n === 0) return undefined;
-    const M = this.assembleMass(f.terms, f.n);
-    const modes = lowestModes(f.factor, f.diagonal, M, f.n, count);
+    if (!f || f.t.count === 0) return undefined;
+    const M = this.assembleMass(f.t, f.factor);
+    const modes = lowestModes(
+      {
+        n: f.t.count,
+        solve: (b) => f.factor.solve(b),
+        multiplyMass: (x, y) => M.multiply(x, y),
+        stiffnessDiagonal: f.diagonal,
+        massDiagonal: M.diagonal(),
+        // the free translations along y (down), z (sideways) and x: their first step gives the
+        // static shapes under steady acceleration each way, close to the lowest modes
+        start: [1, 2, 0].map((axis) => {
+          const x = new Float64Array(f.t.count);
+          for (let e = 0; e < f.t.count; e++) if (f.t.raw[e]! % NODE_DOFS === axis) x[e] = 1;
+          return x;
+        }),
+      },
+      count,
+    );
     if (!modes || !(modes.values[0]! > 0)) return undefined;
-    const shapes = modes.vectors.map((q) => {
-      const u = new Float64Array(this.nodes.length * NODE_DOFS);
-      for (let d = 0; d < u.length; d++) {
-        let s = 0;
-        for (const [e, c] of f.terms[d]!) s += c * q[e]!;
-        u[d] = s;
-      }
-      return new SpaceFrameSolution(this, u);
-    });
-    return { omega2: modes.values, shapes };
+    return {
+      omega2: modes.values,
+      shapes: modes.vectors.map((q) => new SpaceFrameSolution(this, this.expand(f.t, q))),
+    };
   }
 
   /** omega^2 of the `count` lowest modes (ascending); undefined for a mechanism or no mass. */

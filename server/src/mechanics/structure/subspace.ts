@@ -3,13 +3,15 @@
 // Procedures, 2nd ed., 11.6). A block of vectors converges at the rate lambda_p / lambda_(q+1), so
 // two nearly equal lowest modes (a round bar bends alike up and sideways) still settle quickly,
 // where single-vector inverse iteration would crawl.
-import { choleskySolve, symmetricEigen } from "./dense";
+import { symmetricEigen } from "./dense";
 
 /** Relative change of the wanted eigenvalues between steps that ends the iteration: Ritz values
  * converge from above at twice the rate of the vectors, so this leaves them exact to print. */
 const SUBSPACE_TOLERANCE = 1e-10;
-/** With a block of p + 7 vectors the ratio lambda_p / lambda_(p+8) is small for any frame here;
- * past this many steps the current Ritz values (upper bounds) are returned. */
+/** Vectors carried beyond the wanted ones: the convergence rate is lambda_p / lambda_(p+4), so a
+ * pair or three of nearly equal low modes (bending up and sideways, a twist) do not stall it. */
+const EXTRA_VECTORS = 3;
+/** Past this many steps the current Ritz values (upper bounds) are returned. */
 const SUBSPACE_MAX_STEPS = 200;
 /** A Ritz vector whose M-norm is below this share of the largest is dropped (massless
  * directions cannot carry a mode). */
@@ -22,26 +24,37 @@ export interface Modes {
   vectors: Float64Array[];
 }
 
-/** `factor` is K's Cholesky factor (from choleskyFactor), `mass` the dense n x n M, `kDiagonal`
- * K's diagonal (to pick starting vectors). Undefined when M carries no mass at all. */
-export function lowestModes(
-  factor: Float64Array,
-  kDiagonal: Float64Array,
-  mass: Float64Array,
-  n: number,
-  wanted: number,
-): Modes | undefined {
+/** The generalized problem through its operations: `solve` turns b into K^-1 b in place,
+ * `multiplyMass` writes M x into y; the diagonals pick the starting vectors. */
+export interface EigenProblem {
+  n: number;
+  solve(b: Float64Array): void;
+  multiplyMass(x: Float64Array, y: Float64Array): void;
+  stiffnessDiagonal: Float64Array;
+  massDiagonal: Float64Array;
+  /** Starting vectors that resemble the low modes (e.g. rigid movements along each axis, whose
+   * first step gives the static shapes under a steady acceleration: Rayleigh's shapes), used
+   * before the mass-diagonal and unit ones. */
+  start?: Float64Array[];
+}
+
+/** The `wanted` lowest modes; undefined when M carries no mass at all. */
+export function lowestModes(problem: EigenProblem, wanted: number): Modes | undefined {
+  const { n, massDiagonal, stiffnessDiagonal } = problem;
   const massive: number[] = [];
-  for (let i = 0; i < n; i++) if (mass[i * n + i]! > 0) massive.push(i);
+  for (let i = 0; i < n; i++) if (massDiagonal[i]! > 0) massive.push(i);
   if (massive.length === 0) return undefined;
-  const q = Math.min(massive.length, Math.max(2 * wanted, wanted + 7));
+  const q = Math.min(massive.length, wanted + EXTRA_VECTORS);
   const p = Math.min(wanted, q);
-  // Starting vectors (Bathe 11.6.3): the mass diagonal, then unit vectors where m_ii / k_ii is
-  // largest (the dofs most likely to move in the low modes).
-  let X: Float64Array[] = [];
-  X.push(Float64Array.from({ length: n }, (_, i) => mass[i * n + i]!));
+  // Starting vectors: the caller's, then (Bathe 11.6.3) the mass diagonal and unit vectors where
+  // m_ii / k_ii is largest (the dofs most likely to move in the low modes).
+  let X: Float64Array[] = (problem.start ?? []).slice(0, q - 1);
+  // one vector with a share of every mode, so that no mode is missed by symmetry (Bathe 11.6.3
+  // uses a random one; uneven deterministic weights serve and keep the results repeatable)
+  X.push(Float64Array.from({ length: n }, (_, i) => 1 + 0.37 * Math.sin(1.3 * i + 0.2)));
+  if (X.length < q) X.push(Float64Array.from(massDiagonal) as Float64Array);
   const ranked = massive
-    .map((i) => ({ i, r: mass[i * n + i]! / Math.max(kDiagonal[i]!, Number.MIN_VALUE) }))
+    .map((i) => ({ i, r: massDiagonal[i]! / Math.max(stiffnessDiagonal[i]!, Number.MIN_VALUE) }))
     .sort((a, b) => b.r - a.r);
   for (let c = 0; X.length < q && c < ranked.length; c++) {
     const v = new Float64Array(n);
@@ -50,18 +63,26 @@ export function lowestModes(
   }
   let previous: number[] = [];
   let result: Modes | undefined;
-  const MX = (x: Float64Array) => multiply(mass, x, n);
+  // M X for the current X: computed once, then carried (M Xbar Q is M of the next X)
+  let Y: Float64Array[] = X.map((x) => {
+    const y = new Float64Array(n);
+    problem.multiplyMass(x, y);
+    return y;
+  });
   for (let step = 0; step < SUBSPACE_MAX_STEPS; step++) {
-    const Y = X.map(MX); // M X
+    const m = Y.length;
     const Xbar = Y.map((y) => {
       const z = Float64Array.from(y);
-      choleskySolve(factor, n, z); // K Xbar = M X
+      problem.solve(z); // K Xbar = M X
       return z;
     });
-    const m = Xbar.length;
+    const MXbar = Xbar.map((x) => {
+      const y = new Float64Array(n);
+      problem.multiplyMass(x, y);
+      return y;
+    });
     const Kr = new Float64Array(m * m);
     const Mr = new Float64Array(m * m);
-    const MXbar = Xbar.map(MX);
     for (let a = 0; a < m; a++)
       for (let b = a; b < m; b++) {
         Kr[a * m + b] = Kr[b * m + a] = dot(Xbar[a]!, Y[b]!, n);
@@ -69,14 +90,8 @@ export function lowestModes(
       }
     const ritz = reducedProblem(Kr, Mr, m);
     if (!ritz) return result;
-    X = ritz.vectors.map((coef) => {
-      const v = new Float64Array(n);
-      for (let a = 0; a < m; a++) {
-        const c = coef[a]!;
-        if (c !== 0) for (let i = 0; i < n; i++) v[i] = v[i]! + c * Xbar[a]![i]!;
-      }
-      return v;
-    });
+    X = ritz.vectors.map((coef) => combine(Xbar, coef, n));
+    Y = ritz.vectors.map((coef) => combine(MXbar, coef, n));
     const values = ritz.values;
     result = { values: values.slice(0, p), vectors: X.slice(0, p) };
     const settled =
@@ -152,18 +167,15 @@ function reducedProblem(
   return { values, vectors };
 }
 
-function multiply(a: Float64Array, x: Float64Array, n: number): Float64Array {
-  const y = new Float64Array(n);
-  for (let i = 0; i < n; i++) {
-    let s = 0;
-    const row = i * n;
-    for (let j = 0; j < n; j++) {
-      const v = a[row + j]!;
-      if (v !== 0) s += v * x[j]!;
-    }
-    y[i] = s;
+/** sum_a coef[a] vectors[a] */
+function combine(vectors: Float64Array[], coef: number[], n: number): Float64Array {
+  const v = new Float64Array(n);
+  for (let a = 0; a < vectors.length; a++) {
+    const c = coef[a]!;
+    const x = vectors[a]!;
+    if (c !== 0) for (let i = 0; i < n; i++) v[i] = v[i]! + c * x[i]!;
   }
-  return y;
+  return v;
 }
 
 function dot(a: Float64Array, b: Float64Array, n: number): number {

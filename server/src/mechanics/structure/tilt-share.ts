@@ -1,34 +1,42 @@
 // Which body gives how much of a payload's elastic tilt, by virtual work: with u the displacements
 // under the arm's loads and v those under a unit moment at the payload, the payload's rotation is
-// theta = v^T K u = sum over elements of v_k^T K_k u_k (unit-load method; e.g. McGuire, Gallagher
-// and Ziemian, Matrix Structural Analysis, 2nd ed., ch. 2), so each element's term is its share.
+// theta = v^T K u = sum over members of v_k^T K_k u_k (unit-load method; e.g. McGuire, Gallagher
+// and Ziemian, Matrix Structural Analysis, 2nd ed., ch. 2), so each member's term is its share.
+// The tilt is the turn about the pins' axis (z, in the arm's plane).
 import type { ArmModel } from "../../model/types";
 import type { Pose, PoseStatics } from "../types";
 import { buildArmFrame } from "./arm-frame";
-import type { FrameSolution, PlaneFrame } from "./frame";
+import type { SpaceFrame } from "./space-frame";
 
-/** Node displacements of one load case (a frame solution, or a difference of two). */
-export type Displacements = Pick<FrameSolution, "displacement">;
+/** Raw node displacements of one load case (a frame solution's, or a difference of two). */
+export interface Displacements {
+  /** node * 6 + k: three translations then three rotations, global axes. */
+  raw: ArrayLike<number>;
+}
 
-/** v_k^T K_k u_k of element `index`: its share of the work of one load case on the other's
+/** v_k^T K_k u_k of member `index`: its share of the work of one load case on the other's
  * displacements. */
 export function elementMutualWork(
-  frame: PlaneFrame,
+  frame: SpaceFrame,
   u: Displacements,
   v: Displacements,
   index: number,
 ): number {
-  const e = frame.elements[index]!;
-  const k = frame.elementStiffness(e);
+  const m = frame.members[index]!;
+  if (m.massOnly) return 0;
+  const k = frame.memberStiffness(index);
   const ends = (s: Displacements) => {
-    const a = s.displacement(e.i);
-    const b = s.displacement(e.j);
-    return [a.ux, a.uy, a.rotation, b.ux, b.uy, b.rotation];
+    const out = new Float64Array(12);
+    for (let d = 0; d < 6; d++) {
+      out[d] = s.raw[m.i * 6 + d]!;
+      out[6 + d] = s.raw[m.j * 6 + d]!;
+    }
+    return out;
   };
   const uu = ends(u);
   const vv = ends(v);
   let w = 0;
-  for (let p = 0; p < 6; p++) for (let q = 0; q < 6; q++) w += vv[p]! * k[p * 6 + q]! * uu[q]!;
+  for (let p = 0; p < 12; p++) for (let q = 0; q < 12; q++) w += vv[p]! * k[p * 12 + q]! * uu[q]!;
   return w;
 }
 
@@ -48,21 +56,15 @@ export function tiltShares(
   if (node === undefined) return undefined;
   const u = loaded.frame.solveStatic();
   const base = probe.frame.solveStatic();
-  probe.frame.addLoad(node, 0, 0, 1);
+  probe.frame.addLoad(node, { x: 0, y: 0, z: 0 }, { x: 0, y: 0, z: 1 });
   const withMoment = probe.frame.solveStatic();
   if (!u || !base || !withMoment) return undefined;
   // The frame is linear: the unit moment's own displacements are the difference of the two solves.
-  const v: Displacements = {
-    displacement: (n) => {
-      const a = withMoment.displacement(n);
-      const b = base.displacement(n);
-      return { ux: a.ux - b.ux, uy: a.uy - b.uy, rotation: a.rotation - b.rotation };
-    },
-  };
+  const v: Displacements = { raw: withMoment.raw.map((x, d) => x - base.raw[d]!) };
   const byBody = new Map<string, number>();
-  loaded.elementBody.forEach((id, k) => {
+  loaded.memberBody.forEach((id, k) => {
     if (!id) return;
     byBody.set(id, (byBody.get(id) ?? 0) + elementMutualWork(loaded.frame, u, v, k));
   });
-  return { rotation: u.displacement(loaded.payloadNode[payloadId]!).rotation, byBody };
+  return { rotation: u.displacement(loaded.payloadNode[payloadId]!).rotation.z, byBody };
 }
