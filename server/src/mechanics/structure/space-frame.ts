@@ -35,6 +35,8 @@ export interface SpaceMember {
   load: Vec3;
   /** A massless carrier of mass only (a rigid part: its stiffness is in the constraints). */
   massOnly: boolean;
+  /** Global stiffness, computed on first use (assembly and every strain energy read it). */
+  stiffness?: Float64Array;
 }
 
 export interface SpaceDisplacement {
@@ -225,7 +227,7 @@ export class SpaceFrame {
   /** Global 12 x 12 stiffness of member `index`. */
   memberStiffness(index: number): Float64Array {
     const m = this.members[index]!;
-    return toGlobalMatrix(localStiffness(m.props, m.length), m.axes);
+    return (m.stiffness ??= toGlobalMatrix(localStiffness(m.props, m.length), m.axes));
   }
 
   private rawDofs(m: { i: number; j: number }): number[] {
