@@ -14,6 +14,7 @@ import { checkGeometry } from "./geometry";
 import { checkSpringLeverage } from "./spring-leverage";
 import { checkTipping } from "./tipping";
 import { checkStiffness } from "./stiffness";
+import { checkSwivels } from "./swivels";
 
 export interface CheckOptions {
   /** performance.now() value past which checks should stop early. */
@@ -42,6 +43,7 @@ const FAMILIES: CheckFamily[] = [
   checkSpringLeverage,
   checkTipping,
   checkStiffness,
+  checkSwivels,
 ];
 
 export function runChecks(

@@ -33,6 +33,7 @@ export type PartKind =
   | "bar"
   | "head"
   | "joint"
+  | "swivel"
   | "parallelogram"
   | "spring"
   | "payload"

@@ -102,6 +102,11 @@ export const CODES = {
     severity: "warning",
     explanation: "Bodies come closer than `require clearance`, or go below the bench surface.",
   },
+  "geometry.swivel-leans": {
+    severity: "warning",
+    explanation:
+      "A swivel's axis (its parent's y axis) leans away from vertical over the range: its heading would then change the gravity torque.",
+  },
   "geometry.tipping": {
     severity: "error",
     explanation: "The base's restoring moment is short of `require tipping` times the overturning moment.",

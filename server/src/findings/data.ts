@@ -310,6 +310,12 @@ export interface LimitData extends About {
   leftOut?: number;
 }
 
+/** `geometry.swivel-leans`. Subject: the swivel. */
+export interface SwivelLeansData extends AboutPart {
+  /** Largest angle of the axis from vertical over the range, rad. */
+  lean: number;
+}
+
 /** The data of each code. */
 export interface FindingDataMap {
   "syntax.error": TextData;
@@ -345,6 +351,7 @@ export interface FindingDataMap {
   "geometry.spring-slack": SlackData;
   "geometry.tilt": HeadTiltData;
   "geometry.clearance": ClearanceData;
+  "geometry.swivel-leans": SwivelLeansData;
   "geometry.tipping": TippingData;
   "strength.overstress": OverstressData;
   "strength.overstretch": OverstretchData;

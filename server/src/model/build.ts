@@ -16,6 +16,7 @@ import type {
   Requirements,
   Spring,
   SweepSettings,
+  Swivel,
 } from "./types";
 import { ARM_PROPERTIES, DECLARATIONS, declarationSpec } from "./schema";
 import { builtinMaterials } from "./materials";
@@ -30,6 +31,7 @@ import {
   type ParallelogramBuild,
 } from "./build-parts";
 import { buildSpring } from "./build-springs";
+import { baseSwivel, buildSwivel, checkSwivelCuts } from "./build-swivels";
 import {
   buildPayload,
   buildRequirements,
@@ -181,6 +183,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   // 3. Bodies: the base first.
   const bodies: Body[] = [];
   let base: Base | undefined;
+  let baseDecl: (typeof declared)[number] | undefined;
   for (const d of of("base")) {
     const built = r.about(d.id, () => buildBase(ctx, d.props, d.id));
     if (base) {
@@ -191,6 +194,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     }
     base = built.base;
     r.about(d.id, () => readUses(ctx, d.props, { keyword: "base", base: built.base }));
+    baseDecl = d;
     bodies.push(built.body);
   }
   if (!base)
@@ -215,6 +219,18 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     if (j) r.about(d.id, () => readUses(ctx, d.props, { keyword: "joint", joint: j }));
     if (j) joints.push(j);
     else ctx.jointGraphIncomplete = true;
+  }
+  const swivels: Swivel[] = [];
+  if (base && baseDecl) {
+    const yaw = r.about(baseDecl.id, () => baseSwivel(ctx, base!, baseDecl!.props));
+    if (yaw) swivels.push(yaw);
+  }
+  for (const d of of("swivel")) {
+    const built = r.about(d.id, () => buildSwivel(ctx, d.props, d.id));
+    if (built) {
+      joints.push(built.joint);
+      swivels.push(built.swivel);
+    } else ctx.jointGraphIncomplete = true;
   }
   const parallelograms: Parallelogram[] = [];
   for (const s of stages) {
@@ -243,6 +259,8 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     }
   }
 
+  checkSwivelCuts(ctx, joints, swivels, springs);
+
   // 6. Limits and sweep settings.
   const require: Requirements = requireDecl ? buildRequirements(ctx, requireDecl) : defaultRequirements();
   const sweep: SweepSettings = sweepDecl ? buildSweep(ctx, sweepDecl) : defaultSweep();
@@ -260,6 +278,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     ...(base ? { base } : {}),
     bodies,
     joints,
+    swivels,
     parallelograms,
     springs,
     payloads,

@@ -126,6 +126,18 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         example: "yaw",
       },
       {
+        key: "bearings",
+        shape: { type: "sequence", items: [q("length"), { type: "reference", to: "bearing" }] },
+        doc: "With `yaw`: two radial bearings this far apart along the vertical axis (the bearing's name is optional).",
+        example: "bearings 60 mm base_ring",
+      },
+      {
+        key: "thrust",
+        shape: { type: "reference", to: "bearing" },
+        doc: "With `yaw`: the bearing that carries the arm's weight.",
+        example: "thrust base_ring",
+      },
+      {
         key: "surface",
         shape: q("length"),
         doc: "Height of the bench surface (default 0).",
@@ -241,6 +253,53 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         shape: { type: "reference", to: "fastening" },
         doc: "How a fixed joint is held: its locked moment and force pass through it.",
         example: "fastening clamp_bolts",
+      },
+    ],
+  },
+  {
+    keyword: "swivel",
+    named: true,
+    doc: "A pivot about a vertical axis (a turning knuckle, the barrel between two stages): the axis runs along the parent's y axis through its point; everything the child carries turns with it.",
+    properties: [
+      {
+        key: "connects",
+        shape: {
+          type: "sequence",
+          items: [{ type: "reference", to: "point" }, kw("to"), { type: "reference", to: "point" }],
+        },
+        required: true,
+        doc: "Parent point (on the axis) to child point.",
+        example: "connects boom.end to upright.start",
+      },
+      {
+        key: "angle",
+        shape: q("angle"),
+        doc: "Child x axis from parent x axis in the drawing plane (default 0: the child keeps the parent's orientation).",
+        example: "angle 0 deg",
+      },
+      {
+        key: "heading",
+        shape: { type: "range", dimension: "angle" },
+        doc: "The range it turns through, 0 being the drawing plane (default: all the way round).",
+        example: "heading -120 deg .. 120 deg",
+      },
+      {
+        key: "bearings",
+        shape: { type: "sequence", items: [q("length"), { type: "reference", to: "bearing" }] },
+        doc: "Two radial bearings this far apart along the axis, which carry the moment as a couple (the bearing's name is optional).",
+        example: "bearings 50 mm ring_bearing",
+      },
+      {
+        key: "thrust",
+        shape: { type: "reference", to: "bearing" },
+        doc: "The bearing that carries the weight along the axis.",
+        example: "thrust ring_bearing",
+      },
+      {
+        key: "friction",
+        shape: q("torque"),
+        doc: "Holding torque of the swivel's friction about its axis.",
+        example: "friction 0.3 N*m",
       },
     ],
   },

@@ -120,6 +120,31 @@ export interface Joint {
   bearing?: string;
   /** The fastening that holds a fixed joint (its locked moment and force pass through it). */
   fastening?: string;
+  /** Set on the locked joint a swivel stands as in the plane: the swivel's id. */
+  swivel?: string;
+  origin: Origin;
+}
+
+/** A pivot about a vertical axis (mechanics.md section 10). In the drawing plane it stands as a
+ * locked joint (`joint`: the child keeps the parent's orientation, or `angle`); its heading turns
+ * everything the child carries about the parent's y axis through `point`. The base's `yaw` is a
+ * swivel at the base's origin (`parent` the base, no joint, no child). */
+export interface Swivel {
+  id: string;
+  /** The locked joint that stands for it in the plane; absent for the base's yaw. */
+  joint?: string;
+  parent: string;
+  child?: string;
+  /** The axis point on the parent, local. */
+  point: Vec2;
+  /** The range it turns through, rad, 0 being the drawing plane; absent: all the way round. */
+  heading?: [number, number];
+  /** Two radial bearings `spacing` apart along the axis; `bearing` names their declaration. */
+  bearings?: { spacing: number; bearing?: string };
+  /** The bearing that carries the load along the axis. */
+  thrust?: { bearing?: string };
+  /** Holding torque of its friction about the axis, N*m. */
+  friction?: number;
   origin: Origin;
 }
 
@@ -339,6 +364,8 @@ export interface ArmModel {
   /** All bodies, the base first. */
   bodies: Body[];
   joints: Joint[];
+  /** Swivels, the base's yaw first when it has one (absent in hand-built models: none). */
+  swivels?: Swivel[];
   parallelograms: Parallelogram[];
   springs: Spring[];
   payloads: Payload[];

@@ -56,6 +56,7 @@ const DECLARED_KINDS: ReadonlySet<string> = new Set([
   "base",
   "link",
   "joint",
+  "swivel",
   "parallelogram",
   "spring",
   "payload",

@@ -79,6 +79,7 @@ export type DeclarationKeyword =
   | "base"
   | "link"
   | "joint"
+  | "swivel"
   | "parallelogram"
   | "spring"
   | "payload"

@@ -7,6 +7,7 @@ export const DECLARATION_KEYWORDS: readonly DeclarationKeyword[] = [
   "base",
   "link",
   "joint",
+  "swivel",
   "parallelogram",
   "spring",
   "payload",

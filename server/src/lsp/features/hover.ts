@@ -72,6 +72,18 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
       if (j.pin) facts.push(`pin ${f(j.pin.diameter, "length", system)} ${j.pin.material}`);
       return facts;
     }
+    case "swivel": {
+      const s = (model.swivels ?? []).find((x) => x.id === id);
+      if (!s) return [];
+      const facts = [`${s.parent} → ${s.child ?? "everything on it"}`];
+      facts.push(
+        s.heading
+          ? `heading ${f(s.heading[0], "angle", system)} .. ${f(s.heading[1], "angle", system)}`
+          : "heading all the way round",
+      );
+      if (s.bearings) facts.push(`bearings ${f(s.bearings.spacing, "length", system)} apart`);
+      return facts;
+    }
     case "parallelogram": {
       const p = model.parallelograms.find((x) => x.id === id);
       if (!p) return [];

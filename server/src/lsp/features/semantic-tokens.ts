@@ -39,6 +39,7 @@ const TYPE_OF_NAME: Record<NameKind, TokenType> = {
   head: "class",
   parallelogram: "struct",
   joint: "function",
+  swivel: "function",
   spring: "event",
   payload: "variable",
   bearing: "struct",
