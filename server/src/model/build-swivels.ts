@@ -200,19 +200,23 @@ export function checkSwivelCuts(
     const { bodies, loops } = carriedBodies(joints, s);
     const at = s.origin.properties["connects"] ?? s.origin.name ?? s.origin.declaration;
     if (loops)
-      ctx.r.add(
-        "value.invalid",
-        at,
-        `swivel ${s.id} sits in a closed loop: what it carries must hang on it alone, or it could not turn`,
+      ctx.r.about(s.id, () =>
+        ctx.r.add(
+          "value.invalid",
+          at,
+          `swivel ${s.id} sits in a closed loop: what it carries must hang on it alone, or it could not turn`,
+        ),
       );
     for (const sp of springs) {
       if (sp.kind === "torsion") continue;
       if (bodies.has(sp.a.body) !== bodies.has(sp.b.body))
-        ctx.r.add(
-          "value.invalid",
-          sp.origin.properties["between"] ?? sp.origin.declaration,
-          `spring ${sp.id} reaches across swivel ${s.id}: its length would change as the swivel turns; hook both ends on the same side`,
-          { related: [{ span: at, message: `swivel ${s.id}` }] },
+        ctx.r.about(sp.id, () =>
+          ctx.r.add(
+            "value.invalid",
+            sp.origin.properties["between"] ?? sp.origin.declaration,
+            `spring ${sp.id} reaches across swivel ${s.id}: its length would change as the swivel turns; hook both ends on the same side`,
+            { related: [{ span: at, message: `swivel ${s.id}` }] },
+          ),
         );
     }
   }
