@@ -106,20 +106,90 @@ export function constraintResidual(cs: ConstraintSet, q: Float64Array, out: Floa
   return worst;
 }
 
-/** Phi_q (row-major n x n) at the angles cached by the last updateAngles/constraintResidual. */
-export function constraintJacobian(cs: ConstraintSet, jac: Float64Array): void {
+/** The constraint Jacobian in compressed columns (sparse-lu.ts): its pattern is fixed by the
+ * joints, so it is worked out once per linkage and only the values change from pose to pose.
+ * Each row holds at most four entries (two per body). */
+export interface SparseJacobian {
+  n: number;
+  colStart: Int32Array;
+  rowIndex: Int32Array;
+  values: Float64Array;
+  /** Where each row's entries go in `values`: four slots per row (-1: none). */
+  slot: Int32Array;
+}
+
+/** Columns of a row's entries, four per row (-1: none), in the order constraintJacobianInto
+ * writes them: the parent's translation, the parent's turn, the child's translation, the child's
+ * turn. */
+function rowColumns(cs: ConstraintSet, r: number, out: Int32Array): void {
+  const k = cs.rowKind[r]!;
+  const j = cs.rowRef[r]!;
+  out.fill(-1);
+  if (k === ROW_DRIVE) {
+    const p = cs.driveParent[j]!;
+    const c = cs.driveChild[j]!;
+    if (p >= 0) out[1] = 3 * p + 2;
+    if (c >= 0) out[3] = 3 * c + 2;
+    return;
+  }
+  const p = cs.revParent[j]!;
+  const c = cs.revChild[j]!;
+  const axis = k === ROW_REVOLUTE_X ? 0 : 1;
+  if (p >= 0) {
+    out[0] = 3 * p + axis;
+    out[1] = 3 * p + 2;
+  }
+  if (c >= 0) {
+    out[2] = 3 * c + axis;
+    out[3] = 3 * c + 2;
+  }
+}
+
+export function sparseJacobian(cs: ConstraintSet): SparseJacobian {
   const n = cs.n;
-  jac.fill(0);
   const rows = cs.rowKind.length;
+  const cols = new Int32Array(4);
+  // Entries per column, then the rows of each column in ascending order.
+  const byColumn: number[][] = Array.from({ length: n }, () => []);
+  for (let r = 0; r < rows; r++) {
+    rowColumns(cs, r, cols);
+    for (const c of cols) if (c >= 0 && !byColumn[c]!.includes(r)) byColumn[c]!.push(r);
+  }
+  const colStart = new Int32Array(n + 1);
+  for (let c = 0; c < n; c++) colStart[c + 1] = colStart[c]! + byColumn[c]!.length;
+  const rowIndex = new Int32Array(colStart[n]!);
+  for (let c = 0; c < n; c++) rowIndex.set(byColumn[c]!.sort((a, b) => a - b), colStart[c]!);
+  const slot = new Int32Array(4 * rows).fill(-1);
+  for (let r = 0; r < rows; r++) {
+    rowColumns(cs, r, cols);
+    for (let m = 0; m < 4; m++) {
+      const c = cols[m]!;
+      if (c < 0) continue;
+      let p = colStart[c]!;
+      while (rowIndex[p] !== r) p++;
+      slot[4 * r + m] = p;
+    }
+  }
+  return { n, colStart, rowIndex, values: new Float64Array(rowIndex.length), slot };
+}
+
+/** Phi_q into `jac.values` at the angles cached by the last
+ * updateAngles/constraintResidual. */
+export function constraintJacobianInto(cs: ConstraintSet, jac: SparseJacobian): void {
+  const v = jac.values;
+  const slot = jac.slot;
+  v.fill(0);
+  const rows = cs.rowKind.length;
+  const add = (s: number, value: number) => {
+    if (s >= 0) v[s]! += value;
+  };
   for (let r = 0; r < rows; r++) {
     const k = cs.rowKind[r]!;
     const j = cs.rowRef[r]!;
-    const o = r * n;
+    const o = 4 * r;
     if (k === ROW_DRIVE) {
-      const p = cs.driveParent[j]!;
-      const c = cs.driveChild[j]!;
-      if (c >= 0) jac[o + 3 * c + 2]! += 1;
-      if (p >= 0) jac[o + 3 * p + 2]! -= 1;
+      add(slot[o + 3]!, 1);
+      add(slot[o + 1]!, -1);
       continue;
     }
     const p = cs.revParent[j]!;
@@ -130,21 +200,21 @@ export function constraintJacobian(cs: ConstraintSet, jac: Float64Array): void {
     const scy = cs.revChildPoint[2 * j + 1]!;
     if (k === ROW_REVOLUTE_X) {
       if (p >= 0) {
-        jac[o + 3 * p]! += 1;
-        jac[o + 3 * p + 2]! += -cs.sin[p]! * spx - cs.cos[p]! * spy;
+        add(slot[o]!, 1);
+        add(slot[o + 1]!, -cs.sin[p]! * spx - cs.cos[p]! * spy);
       }
       if (c >= 0) {
-        jac[o + 3 * c]! -= 1;
-        jac[o + 3 * c + 2]! -= -cs.sin[c]! * scx - cs.cos[c]! * scy;
+        add(slot[o + 2]!, -1);
+        add(slot[o + 3]!, -(-cs.sin[c]! * scx - cs.cos[c]! * scy));
       }
     } else {
       if (p >= 0) {
-        jac[o + 3 * p + 1]! += 1;
-        jac[o + 3 * p + 2]! += cs.cos[p]! * spx - cs.sin[p]! * spy;
+        add(slot[o]!, 1);
+        add(slot[o + 1]!, cs.cos[p]! * spx - cs.sin[p]! * spy);
       }
       if (c >= 0) {
-        jac[o + 3 * c + 1]! -= 1;
-        jac[o + 3 * c + 2]! -= cs.cos[c]! * scx - cs.sin[c]! * scy;
+        add(slot[o + 2]!, -1);
+        add(slot[o + 3]!, -(cs.cos[c]! * scx - cs.sin[c]! * scy));
       }
     }
   }

@@ -2,13 +2,20 @@
 // a tangent predictor dq/dtheta, then corrector iterations with the last factored Jacobian
 // (chord method), falling back to full Newton-Raphson; the step halves on failure and the
 // angle where it can go no further is where the linkage locks (Nikravesh 1988, ch. 4; Haug 1989,
-// ch. 4). Statics: Phi_q^T lambda = Q with the same factorization (Lagrange multipliers).
+// ch. 4). Statics: Phi_q^T lambda = Q with the same factorization (Lagrange multipliers), a
+// sparse one (sparse-lu.ts); the holding torque of a single force comes from the tangents.
 // One class (past the usual file length) because continuation and statics share the buffers and
 // the factorization of the current pose.
 import type { ArmModel, Spring, Vec2 } from "../model/types";
 import type { LoadCase, Pose, PoseStatics, SpringState } from "./types";
-import { DenseLu } from "./dense-lu";
-import { constraintJacobian, constraintResidual, updateAngles } from "./constraints";
+import { SparseLu } from "./sparse-lu";
+import {
+  constraintJacobianInto,
+  constraintResidual,
+  sparseJacobian,
+  updateAngles,
+  type SparseJacobian,
+} from "./constraints";
 import { springTension, torsionSpringTorque } from "./forces";
 import { handForceVector } from "./hand-force";
 import { wrapNear } from "./joint-graph";
@@ -55,7 +62,7 @@ interface TorsionAt {
 
 /** A pose's factored Jacobian and tangents (see PoseSolver.saveCurrent). */
 export interface SavedFactors {
-  lu: DenseLu;
+  lu: SparseLu;
   tangents: Float64Array;
 }
 
@@ -67,12 +74,14 @@ export class PoseSolver {
   private readonly qPredicted: Float64Array;
   private readonly residual: Float64Array;
   private readonly step: Float64Array;
-  private readonly jac: Float64Array;
-  private luCurrent: DenseLu;
-  private luTrial: DenseLu;
+  private readonly jac: SparseJacobian;
+  private luCurrent: SparseLu;
+  private luTrial: SparseLu;
   /** Tangent dq/dtheta_d per dof at the current pose, dof-major. */
   private readonly tangents: Float64Array;
   private readonly unit: Float64Array;
+  /** Scratch: where a generalized force is non-zero. */
+  private readonly nonZeroAt: Int32Array;
   readonly angles: Float64Array;
   private readonly moveStart: Float64Array;
   private readonly trialAngles: Float64Array;
@@ -110,11 +119,12 @@ export class PoseSolver {
     this.qPredicted = new Float64Array(n);
     this.residual = new Float64Array(n);
     this.step = new Float64Array(n);
-    this.jac = new Float64Array(n * n);
-    this.luCurrent = new DenseLu(n);
-    this.luTrial = new DenseLu(n);
+    this.jac = sparseJacobian(linkage.cs);
+    this.luCurrent = new SparseLu(n, 4 * this.jac.rowIndex.length);
+    this.luTrial = new SparseLu(n, 4 * this.jac.rowIndex.length);
     this.tangents = new Float64Array(Math.max(1, this.ndof) * n);
     this.unit = new Float64Array(n);
+    this.nonZeroAt = new Int32Array(n);
     this.angles = Float64Array.from(linkage.dofs, (d) => d.reference);
     this.moveStart = new Float64Array(this.ndof);
     this.trialAngles = new Float64Array(this.ndof);
@@ -170,9 +180,7 @@ export class PoseSolver {
   /** The current pose's factorization and tangents, to come back to it later without factoring
    * its Jacobian again (the sweep continues several neighbours from one pose). */
   saveCurrent(): SavedFactors {
-    const lu = new DenseLu(this.n);
-    lu.copyFrom(this.luCurrent);
-    return { lu, tangents: Float64Array.from(this.tangents) };
+    return { lu: this.luCurrent.clone(), tangents: Float64Array.from(this.tangents) };
   }
 
   /** setCurrent for a pose saved by saveCurrent at exactly this q: the factors setCurrent would
@@ -188,14 +196,14 @@ export class PoseSolver {
 
   private factorCurrent(): boolean {
     updateAngles(this.linkage.cs, this.q);
-    constraintJacobian(this.linkage.cs, this.jac);
+    constraintJacobianInto(this.linkage.cs, this.jac);
     this.factorizations++;
     const ok = this.luCurrent.factor(this.jac);
     if (ok) this.computeTangents(this.luCurrent);
     return ok;
   }
 
-  private computeTangents(lu: DenseLu): void {
+  private computeTangents(lu: SparseLu): void {
     const n = this.n;
     for (let d = 0; d < this.ndof; d++) {
       this.unit.fill(0);
@@ -292,7 +300,7 @@ export class PoseSolver {
           break;
         }
         if (!Number.isFinite(r)) return false;
-        constraintJacobian(cs, this.jac);
+        constraintJacobianInto(cs, this.jac);
         this.factorizations++;
         if (!this.luTrial.factor(this.jac)) return false;
         this.luTrial.solve(this.residual, this.step);
@@ -303,7 +311,7 @@ export class PoseSolver {
     for (let b = 0; b < cs.bodyCount; b++)
       if (Math.abs(q[3 * b + 2]! - this.qPredicted[3 * b + 2]!) > BRANCH_JUMP) return false;
     updateAngles(cs, q);
-    constraintJacobian(cs, this.jac);
+    constraintJacobianInto(cs, this.jac);
     this.factorizations++;
     const ok = this.luTrial.factor(this.jac);
     // Converged onto a pose whose Jacobian is singular: the linkage sits on a dead point.
@@ -536,12 +544,23 @@ export class PoseSolver {
     };
   }
 
-  /** Holding torque per dof caused by the generalized force Q (sign: what the hand adds). */
+  /** Holding torque per dof caused by the generalized force Q (sign: what the hand adds). The
+   * multiplier of dof d's drive row is t_d . Q (J t_d = e_row, so e_row^T J^-T Q = t_d^T Q): the
+   * tangents give it over Q's few non-zeros, without a transposed solve. */
   private holdingFrom(Q: Float64Array): Record<string, number> {
     const L = this.linkage;
-    this.luCurrent.solveTransposed(Q, this.lambda);
+    const n = this.n;
+    const at = this.nonZeroAt;
+    let count = 0;
+    for (let i = 0; i < n; i++) if (Q[i] !== 0) at[count++] = i;
     const out: Record<string, number> = {};
-    L.dofs.forEach((d, i) => (out[d.id] = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!));
+    const t = this.tangents;
+    for (let d = 0; d < this.ndof; d++) {
+      const o = d * n;
+      let sum = 0;
+      for (let m = 0; m < count; m++) sum += t[o + at[m]!]! * Q[at[m]!]!;
+      out[L.dofs[d]!.id] = -sum;
+    }
     return out;
   }
 }
