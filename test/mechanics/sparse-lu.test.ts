@@ -113,7 +113,8 @@ describe("sparse LU", () => {
     expect(lu.nonZeros).toBeLessThan(0.1 * n * n);
     const dense = new Float64Array(n * n);
     for (let j = 0; j < n; j++)
-      for (let p = jac.colStart[j]!; p < jac.colStart[j + 1]!; p++) dense[jac.rowIndex[p]! * n + j] = jac.values[p]!;
+      for (let p = jac.colStart[j]!; p < jac.colStart[j + 1]!; p++)
+        dense[jac.rowIndex[p]! * n + j] = jac.values[p]!;
     const b = Float64Array.from({ length: n }, (_, i) => (i % 7) - 3);
     const x = new Float64Array(n);
     lu.solve(b, x);

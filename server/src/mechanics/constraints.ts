@@ -158,7 +158,11 @@ export function sparseJacobian(cs: ConstraintSet): SparseJacobian {
   const colStart = new Int32Array(n + 1);
   for (let c = 0; c < n; c++) colStart[c + 1] = colStart[c]! + byColumn[c]!.length;
   const rowIndex = new Int32Array(colStart[n]!);
-  for (let c = 0; c < n; c++) rowIndex.set(byColumn[c]!.sort((a, b) => a - b), colStart[c]!);
+  for (let c = 0; c < n; c++)
+    rowIndex.set(
+      byColumn[c]!.sort((a, b) => a - b),
+      colStart[c]!,
+    );
   const slot = new Int32Array(4 * rows).fill(-1);
   for (let r = 0; r < rows; r++) {
     rowColumns(cs, r, cols);

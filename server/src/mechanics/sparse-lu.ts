@@ -222,7 +222,8 @@ export class SparseLu {
       // L's diagonal is 1: no division.
       const xj = x[this.pivotRowOf[col]!]!;
       if (xj === 0) continue;
-      for (let p = this.lStart[col]! + 1; p < this.lStart[col + 1]!; p++) x[this.lRow[p]!]! -= this.lVal[p]! * xj;
+      for (let p = this.lStart[col]! + 1; p < this.lStart[col + 1]!; p++)
+        x[this.lRow[p]!]! -= this.lVal[p]! * xj;
     }
     return top;
   }
