@@ -10,6 +10,7 @@ import { buildLinkage } from "../server/src/mechanics/linkage";
 import type { ArmModel } from "../server/src/model/types";
 import { TYPICAL_ARM } from "./typical-arm";
 import { runLatencyBench } from "./latency";
+import { runSwivelCost } from "./swivel-cost";
 import { DEFAULT_SETTINGS } from "../server/src/lsp/session/settings";
 import { runTypingUnderLoadBench } from "./typing-under-load";
 
@@ -207,7 +208,12 @@ const typingUnderLoad: Section = {
   run: (log) => runTypingUnderLoadBench(log, findRoot()),
 };
 
-export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency, typingUnderLoad];
+const swivelCost: Section = {
+  name: "cost of the heading search by number of swivels (two-stage sample, 0 to 3 swivels)",
+  run: (log) => runSwivelCost(log, findRoot(), (f) => timeMs(f, 3), WHILE_TYPING),
+};
+
+export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency, typingUnderLoad, swivelCost];
 
 async function main(): Promise<void> {
   const only = process.argv.slice(2);

@@ -67,4 +67,20 @@ describe("samples", () => {
   it("the camera arm's clamp does not tip (tipping is for the magnifier's light clamp)", () => {
     expect(codesOf("camera-arm.poise")).not.toContain("geometry.tipping");
   });
+
+  it("the two-stage arm's thin first-stage flats let the tool lean with the barrel turned; tubes fix it", () => {
+    const text = readFileSync(new URL("../../samples/two-stage-arm.poise", import.meta.url), "utf8");
+    const a = analyse(text);
+    const lean = a.findings.find((f) => f.code === "stiffness.lean");
+    // the lean appears only with the outer stage turned, and the first stage's bars give it
+    expect(lean?.message).toMatch(/barrel turned -?\d+ deg/);
+    expect(lean?.data.subject).toMatch(/^first\./);
+    const fixed = readFileSync(new URL("../../samples/two-stage-arm-fixed.poise", import.meta.url), "utf8");
+    const b = analyse(fixed);
+    expect(b.findings.filter((f) => f.severity !== "information")).toEqual([]);
+    // the fix leans far less: the tubes hold in twist and sideways
+    const leanOf = (x: typeof a) =>
+      x.readouts["tool"]!.figures.find((f) => f.label.startsWith("elastic lean"))!.value;
+    expect(leanOf(b)).toBeLessThan(leanOf(a) / 10);
+  });
 });

@@ -33,6 +33,25 @@ export function describePose(sweep: SweepResult, pose: Pose, caseIndex = 0): str
   return sweep.loadCases.length > 1 && lc ? `${where}, ${lc.label}` : where;
 }
 
+/** "at reach 10 deg (tool at 400 g), barrel turned 90 deg" */
+export function describeStation(
+  sweep: SweepResult,
+  pose: Pose,
+  ci: number,
+  headings: Readonly<Record<string, number>>,
+): string {
+  const turned = headingWords(headings);
+  return `${describePose(sweep, pose, ci)}${turned ? `, ${turned}` : ""}`;
+}
+
+/** "barrel turned 90 deg, base turned -90 deg"; empty when every swivel is at 0. */
+export function headingWords(headings: Readonly<Record<string, number>>): string {
+  return Object.entries(headings)
+    .filter(([, h]) => h !== 0)
+    .map(([id, h]) => `${id} turned ${show(h, "angle")}`)
+    .join(", ");
+}
+
 /** The span of the first of `keys` present in the origin, else its name, else the declaration. */
 export function spanOf(origin: Origin, ...keys: string[]): Span {
   for (const k of keys) {

@@ -50,7 +50,12 @@ export const RESULT_SECTIONS: readonly Section[] = [
     keys: ["hand_force", "deflection", "tilt", "lean"],
     listed: (m) => m.payloads.map((p) => p.id),
   },
-  { name: "swivels", kinds: ["swivel"], keys: ["bearing_loads", "safety"] },
+  {
+    name: "swivels",
+    kinds: ["swivel"],
+    keys: ["bearing_loads", "safety", "thrust", "tilting_moment"],
+    listed: (m) => (m.swivels ?? []).filter((s) => s.joint).map((s) => s.id),
+  },
   { name: "fastenings", kinds: ["fastening"], keys: ["safety"] },
   {
     name: "springs",

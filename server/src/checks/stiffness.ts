@@ -8,13 +8,30 @@ import type { Span } from "../findings/span";
 import { tiltShares } from "../mechanics/structure/tilt-share";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { buildArmFrame, type ArmFrame } from "../mechanics/structure/arm-frame";
+import {
+  headingSets,
+  isQuarterTurn,
+  isRangeEnd,
+  Placement,
+  type Headings,
+  type Vec3,
+} from "../mechanics/headings";
 import type { SpaceFrameSolution } from "../mechanics/structure/space-frame";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
 import { carrierHead, parallelogramOfHead } from "./arm-paths";
 import { orientationRange } from "./geometry";
-import { bodyWord, describePose, pastDeadline, payloadMasses, sectionSpan, show, spanOf } from "./part-words";
+import {
+  bodyWord,
+  describePose,
+  describeStation,
+  pastDeadline,
+  payloadMasses,
+  sectionSpan,
+  show,
+  spanOf,
+} from "./part-words";
 
 /** The reference pose, then for each degree of freedom the poses at the two ends of its range
  * (of those, the one whose other dofs sit nearest their reference); at most MAX_STIFFNESS_POSES. */
@@ -57,6 +74,13 @@ function mostExtended(poses: Pose[], count: number): Pose[] {
     .map((r) => r.pose);
 }
 
+/** Of the representative poses, the ones the swivels are turned at: the reference and the pose
+ * that reaches farthest (a turned stage twists the stages below it most when it reaches out). */
+export function turnedPoses(poses: Pose[]): Pose[] {
+  const farthest = mostExtended(poses, 1)[0];
+  return farthest && farthest !== poses[0] ? [poses[0]!, farthest] : poses.slice(0, 1);
+}
+
 /** The load case with the largest total payload mass. */
 function heaviestCase(model: ArmModel, sweep: SweepResult): number {
   let best = 0;
@@ -72,9 +96,17 @@ interface PayloadWorst {
   deflection: number;
   deflectionPose?: Pose;
   deflectionCase: number;
+  deflectionHeadings: Headings;
   tilt: number;
   tiltPose?: Pose;
   tiltCase: number;
+  tiltHeadings: Headings;
+  /** Elastic turn out of the payload's stage plane (about its horizontal in-plane axis), rad. */
+  lean: number;
+  leanPose?: Pose;
+  leanCase: number;
+  leanHeadings: Headings;
+  leanEnergy?: Map<string, number>;
 }
 
 /** The body whose bending, twisting and stretching stores most of the strain energy (under the
@@ -83,6 +115,10 @@ function mostCompliantBody(model: ArmModel, energy: Map<string, number>): Body |
   let best: { id: string; e: number } | undefined;
   for (const [id, e] of energy) if (!best || e > best.e) best = { id, e };
   return best ? model.bodies.find((b) => b.id === best.id) : undefined;
+}
+
+function dot3(a: Vec3, b: Vec3): number {
+  return a.x * b.x + a.y * b.y + a.z * b.z;
 }
 
 /** Strain energy of each body's members in a solution or mode shape, J (or J per unit mode). */
@@ -105,10 +141,21 @@ function modeDirection(af: ArmFrame, shape: SpaceFrameSolution): "in-plane" | "s
   return across > inPlane ? "sideways" : "in-plane";
 }
 
+/** Whether the lowest mode is sought with these headings: an eigenproblem costs several static
+ * solves, so only at the quarter turns and the range ends (where a turned stage sits wholly in or
+ * across its parent's plane, or as far as it goes), not at every heading searched. */
+function modeWorthy(model: ArmModel, headings: Headings): boolean {
+  return Object.entries(headings).every(([id, h]) => {
+    const s = model.swivels?.find((x) => x.id === id);
+    return isQuarterTurn(h) || (s !== undefined && isRangeEnd(s, h));
+  });
+}
+
 interface LowestMode {
   f: number;
   pose: Pose;
   ci: number;
+  headings: Headings;
   energy: Map<string, number>;
   direction: "in-plane" | "sideways";
 }
@@ -124,51 +171,93 @@ export function checkStiffness(ctx: CheckContext): void {
   let flexible = false;
   // the lowest frequency comes with the heaviest payloads: solve the eigenproblem for that case only
   const heaviest = heaviestCase(model, sweep);
+  // Turned swivels are visited at the reference pose and at the pose reaching farthest: the other
+  // representative poses stay at heading 0 (docs/checks.md, "Which poses each check visits").
+  const turnedSets = headingSets(model, sweep.quick === true);
+  const farthest = turnedPoses(poses)[1];
   for (const pose of poses) {
-    if (pastDeadline(ctx.options.deadline)) break;
-    for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
-      const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci));
-      const sol = af.frame.solveStatic();
-      if (!sol) {
-        if (!unsolved.includes(pose)) unsolved.push(pose);
-        continue;
-      }
-      solvedAny = true;
-      if (af.memberBody.some((id) => id !== undefined)) flexible = true;
-      const energy = energyByBody(af, sol);
-      if (pose === poses[0] && ci === 0)
-        for (const [id, n] of Object.entries(af.endNode)) {
-          const u = sol.displacement(n).translation;
-          const b = model.bodies.find((bb) => bb.id === id)!;
-          addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [
-            {
-              label: "tip deflection under load",
-              value: Math.hypot(u.x, u.y, u.z),
-              dimension: "length",
-              where: describePose(sweep, pose),
-            },
-          ]);
+    const sets = pose === poses[0] || pose === farthest ? turnedSets : turnedSets.slice(0, 1);
+    for (const headings of sets)
+      for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
+        if (pastDeadline(ctx.options.deadline)) break;
+        const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci), { headings });
+        const sol = af.frame.solveStatic();
+        if (!sol) {
+          if (!unsolved.includes(pose)) unsolved.push(pose);
+          continue;
         }
-      for (const [pid, n] of Object.entries(af.payloadNode)) {
-        const u = sol.displacement(n);
-        const d = Math.hypot(u.translation.x, u.translation.y, u.translation.z);
-        // elastic tilt in the arm's plane (about the pins' axis)
-        const tilt = Math.abs(u.rotation.z);
-        const w = worst.get(pid) ?? { deflection: -1, deflectionCase: 0, tilt: -1, tiltCase: 0 };
-        if (d > w.deflection)
-          (Object.assign(w, { deflection: d, deflectionPose: pose, deflectionCase: ci }),
-            energyForDeflection.set(pid, energy));
-        if (tilt > w.tilt) Object.assign(w, { tilt, tiltPose: pose, tiltCase: ci });
-        worst.set(pid, w);
+        solvedAny = true;
+        if (af.memberBody.some((id) => id !== undefined)) flexible = true;
+        const energy = energyByBody(af, sol);
+        if (pose === poses[0] && ci === 0 && headings === turnedSets[0])
+          for (const [id, n] of Object.entries(af.endNode)) {
+            const u = sol.displacement(n).translation;
+            const b = model.bodies.find((bb) => bb.id === id)!;
+            addFigures(ctx.readouts, id, b.kind === "bar" ? "bar" : "link", [
+              {
+                label: "tip deflection under load",
+                value: Math.hypot(u.x, u.y, u.z),
+                dimension: "length",
+                where: describePose(sweep, pose),
+              },
+            ]);
+          }
+        const placement = new Placement(model, pose, headings);
+        for (const [pid, n] of Object.entries(af.payloadNode)) {
+          const u = sol.displacement(n);
+          const body = model.payloads.find((p) => p.id === pid)!.body;
+          const d = Math.hypot(u.translation.x, u.translation.y, u.translation.z);
+          // elastic tilt in the payload's stage plane (about its pins' axis), and lean out of it
+          // (about the stage's horizontal in-plane axis)
+          const normal = placement.direction(body, { x: 0, y: 0, z: 1 });
+          const along = placement.direction(body, { x: 1, y: 0, z: 0 });
+          const tilt = Math.abs(dot3(u.rotation, normal));
+          const lean = Math.abs(dot3(u.rotation, along));
+          const w = worst.get(pid) ?? {
+            deflection: -1,
+            deflectionCase: 0,
+            deflectionHeadings: {},
+            tilt: -1,
+            tiltCase: 0,
+            tiltHeadings: {},
+            lean: -1,
+            leanCase: 0,
+            leanHeadings: {},
+          };
+          if (d > w.deflection)
+            (Object.assign(w, {
+              deflection: d,
+              deflectionPose: pose,
+              deflectionCase: ci,
+              deflectionHeadings: headings,
+            }),
+              energyForDeflection.set(pid, energy));
+          if (tilt > w.tilt) Object.assign(w, { tilt, tiltPose: pose, tiltCase: ci, tiltHeadings: headings });
+          if (lean > w.lean)
+            Object.assign(w, {
+              lean,
+              leanPose: pose,
+              leanCase: ci,
+              leanHeadings: headings,
+              leanEnergy: energy,
+            });
+          worst.set(pid, w);
+        }
+        const modes = ci === heaviest && modeWorthy(model, headings) ? af.frame.naturalModes(1) : undefined;
+        if (modes) {
+          const f = Math.sqrt(modes.omega2[0]!) / (2 * Math.PI);
+          const shape = modes.shapes[0]!;
+          if (!lowest || f < lowest.f)
+            lowest = {
+              f,
+              pose,
+              ci,
+              headings,
+              energy: energyByBody(af, shape),
+              direction: modeDirection(af, shape),
+            };
+        }
       }
-      const modes = ci === heaviest ? af.frame.naturalModes(1) : undefined;
-      if (modes) {
-        const f = Math.sqrt(modes.omega2[0]!) / (2 * Math.PI);
-        const shape = modes.shapes[0]!;
-        if (!lowest || f < lowest.f)
-          lowest = { f, pose, ci, energy: energyByBody(af, shape), direction: modeDirection(af, shape) };
-      }
-    }
   }
   if (unsolved.length > 0) reportUnsolved(ctx, unsolved, solvedAny);
   if (solvedAny && !flexible)
@@ -181,7 +270,8 @@ export function checkStiffness(ctx: CheckContext): void {
         "No moving part has a section and a material, so the arm is rigid in the stiffness model: no deflection to speak of and no natural frequency.",
       ],
     );
-  reportPayloads(ctx, worst, energyForDeflection);
+  // the lean is a figure of arms that turn: in the drawing plane alone it is nought by symmetry
+  reportPayloads(ctx, worst, energyForDeflection, turnedSets.length > 1);
   if (lowest) reportFrequency(ctx, lowest);
 }
 
@@ -231,6 +321,7 @@ function reportPayloads(
   ctx: CheckContext,
   worst: Map<string, PayloadWorst>,
   energies: Map<string, Map<string, number>>,
+  turns: boolean,
 ): void {
   const { model, sweep } = ctx;
   for (const p of model.payloads) {
@@ -247,15 +338,26 @@ function reportPayloads(
         label: "deflection under load",
         value: w.deflection,
         dimension: "length",
-        where: describePose(sweep, w.deflectionPose, w.deflectionCase),
+        where: describeStation(sweep, w.deflectionPose, w.deflectionCase, w.deflectionHeadings),
         result: { key: "deflection", limit: dLimit },
       },
       {
         label: "elastic tilt",
         value: w.tilt,
         dimension: "angle",
-        where: describePose(sweep, w.tiltPose, w.tiltCase),
+        where: describeStation(sweep, w.tiltPose, w.tiltCase, w.tiltHeadings),
       },
+      ...(turns && w.leanPose
+        ? [
+            {
+              label: "elastic lean (sideways, out of its stage's plane)",
+              value: w.lean,
+              dimension: "angle" as const,
+              where: describeStation(sweep, w.leanPose, w.leanCase, w.leanHeadings),
+              result: { key: "lean", limit: tLimit },
+            },
+          ]
+        : []),
       ...(head
         ? [{ label: "head orientation change over the range", value: geometric, dimension: "angle" as const }]
         : []),
@@ -274,7 +376,7 @@ function reportPayloads(
         finding(
           "stiffness.deflection",
           partSpan,
-          `payload ${p.id} deflects ${show(w.deflection, "length")} under load, more than the ${show(dLimit, "length")} allowed (${describePose(sweep, w.deflectionPose, w.deflectionCase)})${compliant ? `; ${bodyWord(compliant)} gives most of it` : ""}`,
+          `payload ${p.id} deflects ${show(w.deflection, "length")} under load, more than the ${show(dLimit, "length")} allowed (${describeStation(sweep, w.deflectionPose, w.deflectionCase, w.deflectionHeadings)})${compliant ? `; ${bodyWord(compliant)} gives most of it` : ""}`,
           {
             related,
             data: { subject: compliant?.id ?? p.id, payload: p.id, deflection: w.deflection, limit: dLimit },
@@ -287,7 +389,7 @@ function reportPayloads(
         finding(
           "stiffness.tilt",
           source?.span ?? (par ? spanOf(par.origin, "bars") : partSpan),
-          `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describePose(sweep, w.tiltPose, w.tiltCase)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}${source ? `; ${source.words}` : ""}`,
+          `payload ${p.id} tilts ${show(totalTilt, "angle")}, more than the ${show(tLimit, "angle")} allowed: ${show(w.tilt, "angle")} elastic (${describeStation(sweep, w.tiltPose, w.tiltCase, w.tiltHeadings)})${head ? ` plus ${show(geometric, "angle")} of head orientation change over the range` : ""}${source ? `; ${source.words}` : ""}`,
           {
             related,
             data: {
@@ -298,6 +400,20 @@ function reportPayloads(
               geometric,
               limit: tLimit,
             },
+          },
+        ),
+      );
+    }
+    if (turns && w.leanPose && w.lean > tLimit) {
+      const leaner = mostCompliantBody(model, w.leanEnergy ?? new Map());
+      ctx.findings.push(
+        finding(
+          "stiffness.lean",
+          leaner ? sectionSpan(model, leaner) : partSpan,
+          `payload ${p.id} leans ${show(w.lean, "angle")} sideways, out of its stage's plane, more than the ${show(tLimit, "angle")} require tilt allows (${describeStation(sweep, w.leanPose, w.leanCase, w.leanHeadings)})${leaner ? `; ${bodyWord(leaner)} gives most of it by twisting and bending sideways` : ""}`,
+          {
+            related,
+            data: { subject: leaner?.id ?? p.id, payload: p.id, lean: w.lean, limit: tLimit },
           },
         ),
       );
@@ -324,6 +440,7 @@ function tiltSource(
       w.tiltPose.cases[w.tiltCase],
       payloadMasses(model, sweep, w.tiltCase),
       payloadId,
+      w.tiltHeadings,
     );
     const sign = Math.sign(shares?.rotation ?? 0) || 1;
     for (const [id, share] of shares?.byBody ?? []) {
@@ -347,7 +464,7 @@ function tiltSource(
 
 function reportFrequency(ctx: CheckContext, lowest: LowestMode): void {
   const { model, sweep } = ctx;
-  const where = describePose(sweep, lowest.pose, lowest.ci);
+  const where = describeStation(sweep, lowest.pose, lowest.ci, lowest.headings);
   const ids = [model.base?.bodyId, ...model.payloads.map((p) => p.id)].filter((x): x is string => !!x);
   for (const id of ids)
     addFigures(ctx.readouts, id, id === model.base?.bodyId ? "base" : "payload", [

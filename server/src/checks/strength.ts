@@ -1,6 +1,8 @@
 // Strength of links, bars and pins over the swept range: largest normal stress along each body
 // (free body from the sweep's statics), column buckling of bodies in compression, pin shear and
-// hole bearing. Rules in docs/checks.md; formulas in mechanics/structure/.
+// hole bearing; with swivels, the stress with torsion and sideways bending from stages turned
+// across (the space frame at the stiffness check's poses and the headings searched). Rules in
+// docs/checks.md; formulas in mechanics/structure/.
 import type { ArmModel, Body, Joint, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
@@ -8,13 +10,19 @@ import { beamStress, type BeamPointLoad } from "../mechanics/structure/beam";
 import { localBeamLoads } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
 import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
+import { buildArmFrame } from "../mechanics/structure/arm-frame";
+import { combinedStress } from "../mechanics/structure/combined-stress";
+import { headingSets, type Headings } from "../mechanics/headings";
+import { representativePoses, turnedPoses } from "./stiffness";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety, type Figure } from "./readout";
 import {
   bodyWord,
   describePose,
+  describeStation,
   owningOrigin,
+  payloadMasses,
   pastDeadline,
   pinSpan,
   relatedBody,
@@ -55,6 +63,8 @@ interface Worst {
   safety: number;
   pose: Pose;
   caseIndex: number;
+  /** The swivels' headings, when a turned stage makes it the worst. */
+  headings?: Headings;
   /** Words for the message, built only when a finding needs them (formatting is slow). */
   detail: () => string;
   figure: number;
@@ -202,8 +212,88 @@ export function checkStrength(ctx: CheckContext): void {
       }
     }
   }
+  turnedStrength(ctx, tables, stressWorst, largestStress);
   reportBodies(ctx, beams, stressWorst, columnWorst, largestStress);
   reportPins(ctx, pinned, pinWorst, reactionMax);
+}
+
+/** Stress with stages turned across (mechanics.md section 10): at the stiffness check's poses, for
+ * each load case and each heading searched one swivel at a time, the space frame's member end
+ * forces give axial force, torsion and bending both ways at each station (combined-stress.ts:
+ * von Mises for metals, the largest principal stress against the layer strength for prints). A
+ * heading counts where it makes a body's stress worse than the frame gives with every heading at
+ * 0 at that pose, so that the frame's own small departures from the statics do not pass for an
+ * effect of turning; it then replaces the planar worst when its safety is lower. */
+function turnedStrength(
+  ctx: CheckContext,
+  tables: BeamTable[],
+  stressWorst: Map<string, Worst>,
+  largest: Map<string, Worst>,
+): void {
+  const { model, sweep } = ctx;
+  const sets = headingSets(model, sweep.quick === true);
+  if (sets.length <= 1 || tables.length === 0) return;
+  const byBody = new Map(tables.map((t) => [t.body.id, t]));
+  // while typing, only the poses the stiffness check turns the swivels at
+  const poses = representativePoses(sweep);
+  for (const pose of sweep.quick ? turnedPoses(poses) : poses) {
+    for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
+      if (pastDeadline(ctx.options.deadline)) return;
+      const masses = payloadMasses(model, sweep, ci);
+      let level: Map<string, number> | undefined;
+      for (const headings of sets) {
+        const af = buildArmFrame(model, pose, pose.cases[ci], masses, { headings });
+        const sol = af.frame.solveStatic();
+        if (!sol) break;
+        const worstHere = new Map<
+          string,
+          { stress: number; at: ReturnType<typeof combinedStress>; t: BeamTable }
+        >();
+        af.memberBody.forEach((id, m) => {
+          const t = id ? byBody.get(id) : undefined;
+          if (!t) return;
+          const round = t.body.section!.shape !== "rect";
+          const f = sol.endForces(m);
+          for (const e of [f.i, f.j]) {
+            const c = combinedStress(t.sec, round, {
+              axial: e.fx,
+              torque: e.mx,
+              momentInPlane: e.mz,
+              momentAcross: e.my,
+            });
+            const stress = t.mat.printed ? c.principal : c.vonMises;
+            const prev = worstHere.get(t.body.id);
+            if (!prev || stress > prev.stress) worstHere.set(t.body.id, { stress, at: c, t });
+          }
+        });
+        if (!level) {
+          level = new Map([...worstHere].map(([id, w]) => [id, w.stress]));
+          continue;
+        }
+        for (const [id, w] of worstHere) {
+          if (!(w.stress > (level.get(id) ?? 0) * (1 + 1e-9))) continue;
+          const allow = w.t.allowBending;
+          const safety = w.stress > 0 ? allow.value / w.stress : Infinity;
+          const c = w.at;
+          const mat = w.t.mat;
+          const prev = stressWorst.get(id);
+          if (!prev || safety < prev.safety)
+            stressWorst.set(id, {
+              safety,
+              pose,
+              caseIndex: ci,
+              headings,
+              detail: () =>
+                `(${mat.printed ? "largest principal stress" : "von Mises"} of ${show(c.normal, "pressure")} from bending both ways and axial force, with ${show(c.shear, "pressure")} of torsion) against the ${strengthWords(mat, allow)}`,
+              figure: w.stress,
+            });
+          const big = largest.get(id);
+          if (!big || w.stress > big.figure)
+            largest.set(id, { safety, pose, caseIndex: ci, headings, detail: NO_DETAIL, figure: w.stress });
+        }
+      }
+    }
+  }
 }
 
 /** A pin's constants for the pose loop: what pinSafety looks up, looked up once. */
@@ -293,7 +383,7 @@ function reportBodies(
         label: "largest stress",
         value: big.figure,
         dimension: "pressure",
-        where: describePose(sweep, big.pose, big.caseIndex),
+        where: describeStation(sweep, big.pose, big.caseIndex, big.headings ?? {}),
       });
     addFigures(ctx.readouts, body.id, kind, figures);
     const own = owningOrigin(model, body.origin);
@@ -302,7 +392,7 @@ function reportBodies(
       [columnWorst.get(body.id), "buckling"],
     ] as const) {
       if (!w) continue;
-      const where = describePose(sweep, w.pose, w.caseIndex);
+      const where = describeStation(sweep, w.pose, w.caseIndex, w.headings ?? {});
       noteSafety(ctx.readouts, body.id, kind, w.safety, what, where);
       if (own.parallelogram)
         noteSafety(

@@ -1,11 +1,15 @@
-// Swivels (mechanics.md section 10): whether each one's axis stays vertical over the range
-// (`geometry.swivel-leans`), and each one's heading range in its readout. The loads and stiffness
-// over headings are in the strength, tipping and stiffness checks.
+// Swivels (mechanics.md sections 10 and 11): whether each one's axis stays vertical over the range
+// (`geometry.swivel-leans`), each one's heading range, and the loads it carries over the range,
+// the load cases and the headings (mechanics/swivel-loads.ts). The stiffness and tipping over
+// headings are in their own checks.
 import type { Swivel } from "../model/types";
+import type { Pose } from "../mechanics/types";
+import { swivelLoadsOverHeadings, type SwivelLoad } from "../mechanics/swivel-loads";
+import { headingCombinations } from "../mechanics/headings";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
-import { addFigures } from "./readout";
-import { describePose, show } from "./part-words";
+import { addFigures, type Figure } from "./readout";
+import { describePose, pastDeadline, payloadMasses, show } from "./part-words";
 
 /** An axis within this of vertical counts as vertical: a degree moves a stage's weight by under
  * 2 % of its lever sideways (sin 1 deg = 0.017), far inside the other figures' accuracy (common
@@ -21,12 +25,15 @@ function leanAt(phi: number): number {
 function checkOne(ctx: CheckContext, s: Swivel): void {
   const { sweep } = ctx;
   const heading = s.heading;
-  addFigures(ctx.readouts, s.id, s.joint ? "swivel" : "base", [
+  const readout = addFigures(ctx.readouts, s.id, s.joint ? "swivel" : "base", [
     heading
       ? { label: "heading range", value: heading[0], high: heading[1], dimension: "angle" }
       : { label: "heading range", value: -Math.PI, high: Math.PI, dimension: "angle" },
   ]);
   if (!s.joint) return; // the base's yaw: vertical by definition (the base is the ground)
+  // the locked joint that stands for it in the plane has the same id and reported first: the part
+  // is a swivel (the results record files it under `swivels`)
+  readout.kind = "swivel";
   let worst: { lean: number; pose: (typeof sweep.poses)[number] } | undefined;
   for (const pose of sweep.poses) {
     const b = pose.bodies[s.parent];
@@ -47,4 +54,56 @@ function checkOne(ctx: CheckContext, s: Swivel): void {
 
 export function checkSwivels(ctx: CheckContext): void {
   for (const s of ctx.model.swivels ?? []) checkOne(ctx, s);
+  reportLoads(ctx);
+}
+
+type Peak = { value: number; pose: Pose; ci: number };
+
+/** The largest of each load on each swivel between the base and the payloads, with where it
+ * falls; the base's yaw is left to the base's own figures (tipping check). */
+function reportLoads(ctx: CheckContext): void {
+  const { model, sweep } = ctx;
+  const swivels = (model.swivels ?? []).filter((s) => s.joint);
+  if (swivels.length === 0) return;
+  const sets = headingCombinations(model, sweep.quick === true);
+  const peaks = new Map<string, Partial<Record<keyof SwivelLoad, Peak>>>();
+  for (const pose of sweep.poses) {
+    if (pastDeadline(ctx.options.deadline)) break;
+    for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
+      const loads = swivelLoadsOverHeadings(model, pose, payloadMasses(model, sweep, ci), sets);
+      for (const s of swivels) {
+        const l = loads[s.id];
+        if (!l) continue;
+        const p = peaks.get(s.id) ?? {};
+        for (const k of Object.keys(l) as (keyof SwivelLoad)[]) {
+          const v = l[k] ?? 0;
+          if (!p[k] || v > p[k]!.value) p[k] = { value: v, pose, ci };
+        }
+        peaks.set(s.id, p);
+      }
+    }
+  }
+  for (const s of swivels) {
+    const p = peaks.get(s.id);
+    if (!p) continue;
+    const at = (k: keyof SwivelLoad) => (p[k] ? describePose(sweep, p[k]!.pose, p[k]!.ci) : undefined);
+    const fig = (
+      k: keyof SwivelLoad,
+      label: string,
+      dimension: Figure["dimension"],
+      key?: string,
+    ): Figure[] =>
+      p[k]
+        ? [{ label, value: p[k]!.value, dimension, where: at(k), ...(key ? { result: { key } } : {}) }]
+        : [];
+    addFigures(ctx.readouts, s.id, "swivel", [
+      ...fig("axial", "load along its axis (thrust)", "force", "thrust"),
+      ...fig("radial", "load across its axis", "force"),
+      ...fig("moment", "tilting moment (carried as a couple by its bearings)", "torque", "tilting_moment"),
+      ...((p.twist?.value ?? 0) > 0
+        ? fig("twist", "moment about its axis (its friction or a brake holds it)", "torque")
+        : []),
+      ...fig("bearingRadial", "radial load on the more loaded of its two bearings", "force", "bearing_loads"),
+    ]);
+  }
 }

@@ -1,14 +1,25 @@
 // Tipping of the base and the loads on its bearing (mechanics.md section 5): the overturning
 // moment of the arm about the footprint's edge against the base's restoring moment W e
 // (statics, e.g. Meriam and Kraige, Engineering Mechanics: Statics, ch. 3). With `yaw` the arm
-// can face any heading, so the worst edge is the nearest one in every direction.
+// can face any heading, so the worst edge is the nearest one in every direction. Swivels above the
+// base turn stages out of the drawing plane: every combination of their headings is visited
+// together (mechanics/headings.ts), the loads then in three dimensions.
 import type { ArmModel } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
+import { headingCombinations, Placement, type Headings } from "../mechanics/headings";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
-import { describePose, pastDeadline, payloadMasses, show, showSafety, spanOf } from "./part-words";
+import {
+  describePose,
+  headingWords,
+  pastDeadline,
+  payloadMasses,
+  show,
+  showSafety,
+  spanOf,
+} from "./part-words";
 
 /** A load of the arm on the base in the arm's plane: a force at a point (x along the reach). */
 export interface PlaneLoad {
@@ -63,6 +74,62 @@ export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, num
   return out;
 }
 
+/** A load of the arm on the base in three dimensions (z out of the drawing plane). */
+export interface SpaceLoad extends PlaneLoad {
+  z: number;
+  fz: number;
+}
+
+/** The arm's loads on the base with its swivels turned to `headings`. */
+export function armLoadsTurned(
+  model: ArmModel,
+  pose: Pose,
+  masses: Record<string, number>,
+  headings: Headings,
+): SpaceLoad[] {
+  const placement = new Placement(model, pose, headings);
+  const out: SpaceLoad[] = [];
+  for (const b of model.bodies) {
+    if (b.kind === "base" || !pose.bodies[b.id] || !(b.mass > 0)) continue;
+    const c = placement.point(b.id, b.centreOfMass);
+    out.push({ x: c.x, y: c.y, z: c.z, fx: 0, fy: -b.mass * model.gravity, fz: 0 });
+  }
+  for (const p of model.payloads) {
+    if (!pose.bodies[p.body]) continue;
+    const c = placement.point(p.body, p.point);
+    const f = placement.direction(p.body, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: 0 });
+    out.push({
+      x: c.x,
+      y: c.y,
+      z: c.z,
+      fx: f.x,
+      fy: -(masses[p.id] ?? p.mass) * model.gravity + f.y,
+      fz: f.z,
+    });
+  }
+  return out;
+}
+
+/** The overturning moment's lever part along the horizontal direction (ux, uz): the moment about
+ * a line through the base's origin across that direction at bench height, positive tipping
+ * towards it. The moment about an edge e out is this plus e times the (negative) vertical force. */
+export function overturningToward(
+  loads: readonly SpaceLoad[],
+  ux: number,
+  uz: number,
+  surface: number,
+): number {
+  let m = 0;
+  for (const l of loads) m += -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
+  return m;
+}
+
+/** The largest of `overturningToward` over every horizontal direction: the length of the
+ * horizontal moment vector (a base that turns faces its worst direction). */
+export function overturningAnyWay(loads: readonly SpaceLoad[], surface: number): number {
+  return Math.hypot(overturningToward(loads, 1, 0, surface), overturningToward(loads, 0, 1, surface));
+}
+
 export function checkTipping(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   const base = model.base;
@@ -72,7 +139,8 @@ export function checkTipping(ctx: CheckContext): void {
   let worst:
     | { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string }
     | undefined;
-  type Peak = { value: number; pose?: Pose; ci: number };
+  type Peak = { value: number; pose?: Pose; ci: number; words?: string };
+  const turnedSets = headingCombinations(model, sweep.quick === true).slice(1);
   let thrust: Peak = { value: 0, ci: 0 };
   let moment: Peak = { value: 0, ci: 0 };
   let radial: Peak = { value: 0, ci: 0 };
@@ -111,9 +179,59 @@ export function checkTipping(ctx: CheckContext): void {
             };
         }
       }
+      // the swivels above the base turned, all together (the drawing plane's set was just done)
+      for (const headings of turnedSets) {
+        const turned = armLoadsTurned(model, pose, payloadMasses(model, sweep, ci), headings);
+        const words = headingWords(headings);
+        const mAny = overturningAnyWay(turned, 0);
+        if (mAny > moment.value) moment = { value: mAny, pose, ci, words };
+        const fh = Math.hypot(
+          turned.reduce((a, l) => a + l.fx, 0),
+          turned.reduce((a, l) => a + l.fz, 0),
+        );
+        if (fh > radial.value) radial = { value: fh, pose, ci, words };
+        if (!base.footprint) continue;
+        const fyTurned = turned.reduce((a, l) => a + l.fy, 0);
+        const W = base.footprint.width / 2;
+        const Dp = base.footprint.depth / 2;
+        const tries = base.yaw
+          ? [
+              { edge: W, lever: overturningAnyWay(turned, base.surface), heading: edges[0]!.heading },
+              { edge: Dp, lever: overturningAnyWay(turned, base.surface), heading: edges[1]!.heading },
+            ]
+          : [
+              { edge: W, lever: overturningToward(turned, 1, 0, base.surface), heading: "" },
+              { edge: W, lever: overturningToward(turned, -1, 0, base.surface), heading: "" },
+              {
+                edge: Dp,
+                lever: overturningToward(turned, 0, 1, base.surface),
+                heading: "over the footprint's depth",
+              },
+              {
+                edge: Dp,
+                lever: overturningToward(turned, 0, -1, base.surface),
+                heading: "over the footprint's depth",
+              },
+            ];
+        for (const t of tries) {
+          const over = t.lever + t.edge * fyTurned;
+          const restoring = restoringMoment(base.mass, model.gravity, t.edge);
+          const safety = over > 0 ? restoring / over : Infinity;
+          if (!worst || safety < worst.safety)
+            worst = {
+              safety,
+              pose,
+              ci,
+              overturning: over,
+              restoring,
+              heading: `${[t.heading, words].filter((x) => x).join(", ")}, `,
+            };
+        }
+      }
     }
   }
-  const at = (p: Peak) => (p.pose ? describePose(sweep, p.pose, p.ci) : "");
+  const at = (p: Peak) =>
+    p.pose ? `${describePose(sweep, p.pose, p.ci)}${p.words ? `, ${p.words}` : ""}` : "";
   addFigures(ctx.readouts, base.bodyId, "base", [
     { label: "vertical thrust on the base", value: thrust.value, dimension: "force", where: at(thrust) },
     { label: "overturning moment at the base", value: moment.value, dimension: "torque", where: at(moment) },

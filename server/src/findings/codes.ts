@@ -143,6 +143,11 @@ export const CODES = {
     severity: "warning",
     explanation: "Elastic tilt plus head orientation change exceed `require tilt`.",
   },
+  "stiffness.lean": {
+    severity: "warning",
+    explanation:
+      "The payload's elastic lean out of its stage's plane (twist and sideways bending below it) exceeds `require tilt`.",
+  },
   "stiffness.low-frequency": {
     severity: "warning",
     explanation: "The lowest natural frequency of the loaded arm is below `require frequency`.",

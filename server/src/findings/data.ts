@@ -273,6 +273,14 @@ export interface ElasticTiltData extends AboutPart {
   limit: number;
 }
 
+/** `stiffness.lean`. Subject: the body that gives most of it, else the payload. */
+export interface LeanData extends AboutPart {
+  payload: string;
+  /** Elastic lean out of the stage's plane, and the limit (require tilt), rad. */
+  lean: number;
+  limit: number;
+}
+
 /** `stiffness.low-frequency`. Subject: the most flexible body, when one stands out. */
 export interface FrequencyData extends About {
   /** Lowest natural frequency, and the one required, Hz. */
@@ -360,6 +368,7 @@ export interface FindingDataMap {
   "strength.spring-end": SpringEndData;
   "stiffness.deflection": DeflectionData;
   "stiffness.tilt": ElasticTiltData;
+  "stiffness.lean": LeanData;
   "stiffness.low-frequency": FrequencyData;
   "stiffness.not-computed": NotComputedData;
   "analysis.budget": BudgetData;

@@ -5,12 +5,13 @@
 // members with their tangent rate and their tension as a pair of loads; the base fixed. Parts
 // without a section (heads, links given only a mass) and every point off a bar's axis (a spring
 // hook a few mm to the side) are rigid, as exact constraints: no stiff stand-in member to spoil
-// the conditioning. The arm's plane is the global x-y plane (y up), its pins along z.
+// the conditioning. The arm's plane is the global x-y plane (y up), its pins along z; each swivel's
+// heading turns what it carries about its axis (headings.ts), pins and sections with it.
 import type { ArmModel, Body, Spring, Vec2 } from "../../model/types";
 import type { Pose, PoseStatics } from "../types";
 import { sectionProperties } from "../../model/section";
 import { SpaceFrame, type MemberProperties, type Vec3 } from "./space-frame";
-import { worldPoint } from "../body-loads";
+import { Placement, type Headings } from "../headings";
 import { atJoint, springKind } from "../../model/spring-kinds";
 
 /** Members per link at least: cubic members with work-equivalent loads give a bar's deflection
@@ -35,6 +36,8 @@ export interface ArmFrameOptions {
   /** Hold every node's out-of-plane translation and rotations: the plane frame, the special case
    * of an arm that does not turn (for tests that compare the two). */
   planar?: boolean;
+  /** Each swivel's heading (absent: 0, the drawing plane). */
+  headings?: Headings;
 }
 
 /** Tangent rate dT/dL of a two-point spring at `length`, N/m (its kind's law; 0 for a spring
@@ -87,6 +90,9 @@ export function buildArmFrame(
 ): ArmFrame {
   const frame = new SpaceFrame();
   const g = model.gravity;
+  const placement = new Placement(model, pose, options.headings);
+  /** The pins' axis for a body: the drawing plane's normal, turned with its swivels. */
+  const normalOf = (bodyId: string) => placement.direction(bodyId, PLANE_NORMAL);
   const nodes = new Map<string, number>();
   const key = (body: string, p: Vec2) => `${body}|${p.x.toFixed(7)}|${p.y.toFixed(7)}`;
   // a point on a link's axis within the merge distance of a station is that station's node
@@ -102,8 +108,7 @@ export function buildArmFrame(
     const k = key(body.id, p);
     let n = nodes.get(k);
     if (n === undefined) {
-      const w = worldPoint(pose, body.id, p, model);
-      n = frame.addNode({ x: w.x, y: w.y, z: 0 });
+      n = frame.addNode(placement.point(body.id, p));
       nodes.set(k, n);
       if (body.kind === "base") frame.fix(n);
       else if (options.planar) for (const dof of [2, 3, 4]) frame.hold(n, dof);
@@ -145,7 +150,7 @@ export function buildArmFrame(
       stationsOf.set(body.id, stations);
       const axis = stations.map((s) => nodeAt(body, { x: s, y: 0 }));
       for (let k = 0; k + 1 < axis.length; k++) {
-        const index = frame.addMember(axis[k]!, axis[k + 1]!, props, PLANE_NORMAL);
+        const index = frame.addMember(axis[k]!, axis[k + 1]!, props, normalOf(body.id));
         memberBody.push(body.id);
         weight(index, props.massPerLength);
       }
@@ -179,7 +184,8 @@ export function buildArmFrame(
     if (!parent || !child || !placed(parent.id) || !placed(child.id)) continue;
     const a = nodeAt(parent, j.parentPoint);
     const b = nodeAt(child, j.childPoint);
-    if (j.mode === "passive") frame.pin(a, b, PLANE_NORMAL);
+    // a swivel is held at its heading like any degree of freedom (by hand, brake or friction)
+    if (j.mode === "passive") frame.pin(a, b, normalOf(parent.id));
     else frame.weld(a, b);
   }
   for (const sp of model.springs) {
@@ -192,7 +198,7 @@ export function buildArmFrame(
           nodeAt(parent, j.parentPoint),
           nodeAt(child, j.childPoint),
           sp.rate,
-          PLANE_NORMAL,
+          normalOf(parent.id),
         );
       continue;
     }
@@ -218,7 +224,8 @@ export function buildArmFrame(
     const n = nodeAt(body, p.point);
     payloadNode[p.id] = n;
     lump(n, payloadMass[p.id] ?? p.mass);
-    if (p.force) frame.addLoad(n, { x: p.force.x, y: p.force.y, z: 0 });
+    // a working force is written in the drawing's axes and turns with the payload's stage
+    if (p.force) frame.addLoad(n, placement.direction(body.id, { x: p.force.x, y: p.force.y, z: 0 }));
   }
   return { frame, payloadNode, endNode, memberBody };
 }

@@ -7,6 +7,7 @@ import type { ArmModel } from "../../model/types";
 import type { Pose, PoseStatics } from "../types";
 import { buildArmFrame } from "./arm-frame";
 import type { SpaceFrame } from "./space-frame";
+import { Placement, type Headings } from "../headings";
 
 /** Raw node displacements of one load case (a frame solution's, or a difference of two). */
 export interface Displacements {
@@ -49,14 +50,18 @@ export function tiltShares(
   statics: PoseStatics | undefined,
   payloadMass: Record<string, number>,
   payloadId: string,
+  headings: Headings = {},
 ): { rotation: number; byBody: Map<string, number> } | undefined {
-  const loaded = buildArmFrame(model, pose, statics, payloadMass);
-  const probe = buildArmFrame(model, pose, statics, payloadMass);
+  const loaded = buildArmFrame(model, pose, statics, payloadMass, { headings });
+  const probe = buildArmFrame(model, pose, statics, payloadMass, { headings });
   const node = probe.payloadNode[payloadId];
-  if (node === undefined) return undefined;
+  const body = model.payloads.find((p) => p.id === payloadId)?.body;
+  if (node === undefined || body === undefined) return undefined;
+  // the tilt is the turn about the payload's pins' axis: the drawing's z turned with its swivels
+  const axis = new Placement(model, pose, headings).direction(body, { x: 0, y: 0, z: 1 });
   const u = loaded.frame.solveStatic();
   const base = probe.frame.solveStatic();
-  probe.frame.addLoad(node, { x: 0, y: 0, z: 0 }, { x: 0, y: 0, z: 1 });
+  probe.frame.addLoad(node, { x: 0, y: 0, z: 0 }, axis);
   const withMoment = probe.frame.solveStatic();
   if (!u || !base || !withMoment) return undefined;
   // The frame is linear: the unit moment's own displacements are the difference of the two solves.
@@ -66,5 +71,6 @@ export function tiltShares(
     if (!id) return;
     byBody.set(id, (byBody.get(id) ?? 0) + elementMutualWork(loaded.frame, u, v, k));
   });
-  return { rotation: u.displacement(loaded.payloadNode[payloadId]!).rotation.z, byBody };
+  const r = u.displacement(loaded.payloadNode[payloadId]!).rotation;
+  return { rotation: r.x * axis.x + r.y * axis.y + r.z * axis.z, byBody };
 }
