@@ -1,7 +1,7 @@
 // What the `poise` command (dist/cli.js, the same build as the .vsix) says about a file: the
 // expectations the editor test holds the editor's diagnostics, hover, status bar and drawing to.
 import { spawnSync } from "node:child_process";
-import { mkdtempSync, writeFileSync } from "node:fs";
+import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { ROOT } from "./workspace.mjs";
@@ -28,8 +28,12 @@ export function sweep(file) {
 export function checkText(name, text) {
   const dir = mkdtempSync(join(tmpdir(), "counterpoise-editor-check-"));
   const file = join(dir, name);
-  writeFileSync(file, text);
-  return check(file);
+  try {
+    writeFileSync(file, text);
+    return check(file);
+  } finally {
+    rmSync(dir, { recursive: true, force: true });
+  }
 }
 
 /** Least and greatest of a list of numbers. */

@@ -4,6 +4,9 @@ import { describe, expect, it } from "vitest";
 import { buildViewModel } from "../../server/src/view/build-view-model";
 import { nearestPose, thinPoses } from "../../server/src/view/pose-lines";
 import type { Pose } from "../../server/src/mechanics/types";
+import { readFileSync } from "node:fs";
+import { analyse } from "../../server/src/analysis";
+import { renderArmSvg } from "../../server/src/view/draw-arm";
 import { A, B, L_ARM, PIVOT_Y, pendulumAnalysis } from "./pendulum-fixture";
 
 const RATE = 550;
@@ -41,6 +44,18 @@ describe("view model", () => {
     // 22 poses over -45..60 deg are 5 deg apart: 31 deg is nearest 30 deg.
     expect(vm.poses[p]!.angles[0]).toBeCloseTo(rad(30), 6);
     expect(vm.poses[vm.referencePose]!.angles[0]).toBeCloseTo(0, 6);
+  });
+
+  it("draws the reference pose at the written angles even when the sweep's steps miss them", () => {
+    // The camera arm's shoulder is written at 10 deg; its sweep steps fall on 9.58 and 11.1 deg.
+    const text = readFileSync("samples/camera-arm.poise", "utf8");
+    const camera = buildViewModel(analyse(text));
+    const written = Number(/angle\s+(-?[\d.]+)\s*deg/.exec(text)![1]);
+    expect(camera.dofs[0]!.reference).toBeCloseTo(rad(written), 12);
+    expect(camera.poses.some((p) => Math.abs(p.angles[0]! - rad(written)) < 1e-9)).toBe(false);
+    expect(camera.reference!.angles[0]).toBeCloseTo(rad(written), 9);
+    const caption = /class="pose-caption"[^>]*>([^<]*)</.exec(renderArmSvg(camera, "reference"))![1];
+    expect(caption).toBe(`${camera.dofs[0]!.id} ${written.toFixed(1)}°`);
   });
 
   it("lists safety factors lowest first with the requirement", () => {

@@ -8,6 +8,7 @@ import { buildViewModel } from "../../server/src/view/build-view-model";
 import type { ViewModel } from "../../server/src/view/view-model";
 import { ARTIFACTS } from "./browser";
 import { openPreview, type Preview } from "./preview-harness";
+import { labelClashes } from "./label-clashes";
 
 const viewOf = (name: string): ViewModel =>
   buildViewModel(analyse(readFileSync(`samples/${name}.poise`, "utf8")));
@@ -37,6 +38,8 @@ describe("preview of the samples", () => {
           part.id,
         ).toBe(1);
       }
+      // The drawing's and the plots' labels, as Chromium lays them out: none on another, none cut.
+      expect(await labelClashes(page)).toEqual([]);
       await page.screenshot({ path: `${ARTIFACTS}/preview-${name}.png`, fullPage: true });
     });
   }

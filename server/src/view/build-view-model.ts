@@ -189,6 +189,23 @@ function springsPart(pose: Pose, dofId: string): number {
   return sum;
 }
 
+/** The reference pose itself, drawn when the sweep's steps miss the written angles (a grid), so
+ * that "drawn at the reference pose" is exact; undefined when a swept pose is at it. */
+function exactReference(model: ArmModel, sweep: SweepResult): ViewPose | undefined {
+  const ref = sweep.reference;
+  if (!ref) return undefined;
+  const atReference = (pose: SweepResult["poses"][number]) =>
+    sweep.dofs.every(
+      (d) =>
+        Math.abs((pose.angles[d.id] ?? d.reference) - (ref.angles[d.id] ?? d.reference)) < AT_REFERENCE_RAD,
+    );
+  if (sweep.poses.some(atReference)) return undefined;
+  return viewPoses(model, { ...sweep, poses: [ref] })[0];
+}
+
+/** Angles closer than this are the reference angle itself (round-off of the sweep's steps). */
+const AT_REFERENCE_RAD = 1e-9;
+
 function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
   return sweep.poses.map((pose) => {
     const bodies: ViewPose["bodies"] = {};
@@ -330,9 +347,10 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
         solved.dofs.map((d) => d.reference),
       )
     : [];
-  const poses = solved && kept.length < solved.poses.length ? { ...solved, poses: kept } : solved;
-  if (solved && poses && poses.poses.length < solved.poses.length)
-    vm.thinned = { shown: poses.poses.length, solved: solved.poses.length };
+  const thinned = solved && kept.length < solved.poses.length ? { ...solved, poses: kept } : solved;
+  if (solved && thinned && thinned.poses.length < solved.poses.length)
+    vm.thinned = { shown: thinned.poses.length, solved: solved.poses.length };
+  const poses = thinned;
   if (!poses || poses.poses.length === 0) {
     vm.emptyReason = "The arm has no solved pose yet: fix the errors listed below.";
     return vm;
@@ -347,6 +365,7 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     reference: angle(d.reference),
     values: [...new Set(vm.poses.map((p) => p.angles[i]!))].sort((a, b) => a - b),
   }));
+  vm.reference = exactReference(model, poses);
   vm.referencePose = nearestPose(
     vm.poses.map((p) => p.angles),
     vm.dofs.map((d) => d.reference),

@@ -5,6 +5,8 @@ import { place } from "./geometry";
 import { PALETTE } from "./palette";
 import { c2, esc } from "./text";
 import { displayUnit, formatFigure, formatFigureWithUnit, formatQuantity, unitLabel } from "../units/format";
+import { CODES, type Code } from "../findings/codes";
+import { fixedTextBox, placeLabels, type Box, type LabelRequest, type PlacedLabel } from "./label-place";
 
 /** The drawing's user unit is the millimetre: the view model's metres are scaled by this, so that
  * coordinates written to 0.01 (c2) stay far below a pixel at any zoom. */
@@ -203,7 +205,32 @@ function pivots(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, 
   return out;
 }
 
-function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>, f: Frame): string {
+/** Text drawn with a halo of paper colour so that it reads over lines. */
+function haloText(
+  x: number,
+  baseline: number,
+  text: string,
+  size: number,
+  fill: string,
+  bold = false,
+): string {
+  return `<text x="${c2(x)}" y="${c2(baseline)}" font-size="${c2(size)}"${bold ? ` font-weight="bold"` : ""} font-family="sans-serif" fill="${fill}" stroke="${PALETTE.paper}" stroke-width="${c2(size * 0.27)}" paint-order="stroke" stroke-linejoin="round">${esc(text)}</text>`;
+}
+
+/** A label waiting for its place, with what it is drawn with once placed. */
+interface PendingLabel extends LabelRequest {
+  fill: string;
+  className: string;
+  part: string;
+}
+
+function payloads(
+  vm: ViewModel,
+  pose: ViewPose,
+  status: Map<string, PartStatus>,
+  f: Frame,
+  labels: PendingLabel[],
+): string {
   let out = "";
   for (const p of vm.payloads) {
     const w = at(pose, p.body, p.local);
@@ -215,51 +242,82 @@ function payloads(vm: ViewModel, pose: ViewPose, status: Map<string, PartStatus>
     out += `<line x1="${c2(w[0])}" y1="${c2(Y(w[1]))}" x2="${c2(w[0])}" y2="${c2(Y(w[1]) + r * 2.2)}" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<path d="M${c2(w[0] - r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}L${c2(w[0])} ${c2(Y(w[1]) + r * 2.4)}L${c2(w[0] + r * 0.4)} ${c2(Y(w[1]) + r * 1.7)}" fill="none" stroke="${PALETTE.payload}" stroke-width="${c2(1.2 * f.u)}"/>`;
     out += `<circle cx="${c2(w[0])}" cy="${c2(Y(w[1]))}" r="${c2(r)}" fill="${PALETTE.payload}" fill-opacity="0.85" stroke="${statusColour(st) ?? PALETTE.ink}" stroke-width="${c2((st && st !== "ok" ? 2.6 : 1) * f.u)}"/>`;
-    out += `<text x="${c2(w[0] + r + 3 * f.u)}" y="${c2(Y(w[1]) + 4 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.ink}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(p.id)} ${esc(grams)}</text>`;
     out += "</g>";
+    labels.push({
+      text: `${p.id} ${grams}`,
+      at: [w[0], Y(w[1])],
+      gap: r + 3 * f.u,
+      fontSize: 11 * f.u,
+      fill: PALETTE.ink,
+      className: "payload-label",
+      part: p.id,
+    });
   }
   return out;
 }
 
-/** At most two codes on a flag, so it stays a label; the panel's list has them all. */
-function shortCodes(codes: readonly string[]): string {
-  return codes.length <= 2 ? codes.join(", ") : `${codes.slice(0, 2).join(", ")} +${codes.length - 2}`;
+/** At most two problems on a flag, in words, so it stays a label; the panel's list has them all. */
+export function troubleWords(codes: readonly string[]): string {
+  const words = [...new Set(codes.map((c) => CODES[c as Code]?.words ?? c))];
+  return words.length <= 2 ? words.join(", ") : `${words.slice(0, 2).join(", ")} +${words.length - 2}`;
 }
 
-/** Small flags naming each failing part next to it, so the trouble reads without hovering. */
-function trouble(vm: ViewModel, pose: ViewPose, f: Frame): string {
+/** Where a failing part is drawn: the middle of its bar, its pivot, its spring or its payload. */
+function partPoint(vm: ViewModel, pose: ViewPose, partId: string): [number, number] | undefined {
+  const body = vm.bodies.find((b) => b.partId === partId && b.line.length >= 2);
+  if (body) {
+    const a = at(pose, body.id, body.line[0]!);
+    const b = at(pose, body.id, body.line[body.line.length - 1]!);
+    if (a && b) return [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
+  }
+  const pivot = vm.pivots.find((p) => p.partId === partId);
+  const atPivot = pivot && at(pose, pivot.body, pivot.local);
+  if (atPivot) return atPivot;
+  const hooks = pose.springs[partId];
+  if (hooks) return [(mm(hooks[0]) + mm(hooks[2])) / 2, (mm(hooks[1]) + mm(hooks[3])) / 2];
+  const payload = vm.payloads.find((p) => p.id === partId);
+  return payload && at(pose, payload.body, payload.local);
+}
+
+/** Small flags marking each failing part next to it, with its trouble in words, so the trouble
+ * reads without hovering. Errors first, so their words get the best places. */
+function trouble(vm: ViewModel, pose: ViewPose, f: Frame, labels: PendingLabel[]): string {
   let out = `<g class="trouble">`;
-  let k = 0;
-  for (const part of vm.parts) {
-    if (part.status === "ok") continue;
-    let flagAt: [number, number] | undefined;
-    const body = vm.bodies.find((b) => b.partId === part.id && b.line.length >= 2);
-    if (body) {
-      const a = at(pose, body.id, body.line[0]!);
-      const b = at(pose, body.id, body.line[body.line.length - 1]!);
-      if (a && b) flagAt = [(a[0] + b[0]) / 2, (a[1] + b[1]) / 2];
-    }
-    const pivot = vm.pivots.find((p) => p.partId === part.id);
-    if (!flagAt && pivot) flagAt = at(pose, pivot.body, pivot.local);
-    const hooks = pose.springs[part.id];
-    if (!flagAt && hooks) flagAt = [(mm(hooks[0]) + mm(hooks[2])) / 2, (mm(hooks[1]) + mm(hooks[3])) / 2];
-    const payload = vm.payloads.find((p) => p.id === part.id);
-    if (!flagAt && payload) flagAt = at(pose, payload.body, payload.local);
-    if (!flagAt) continue;
+  const marks: [number, number][] = [];
+  const failing = vm.parts
+    .filter((p) => p.status !== "ok")
+    .sort((a, b) => (a.status === b.status ? 0 : a.status === "error" ? -1 : 1));
+  for (const part of failing) {
+    const point = partPoint(vm, pose, part.id);
+    if (!point) continue;
     const colour = part.status === "error" ? PALETTE.error : PALETTE.warning;
-    const x = flagAt[0] + 6 * f.u;
-    // Stack the flags so that two failing parts close together do not print over each other.
-    const y = Y(flagAt[1]) - 10 * f.u - 15 * f.u * k++;
-    out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
-    out += `<text x="${c2(x)}" y="${c2(y + 4 * f.u)}" text-anchor="middle" font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="#ffffff">!</text>`;
-    // Near the right edge the words go to the left of the mark, so they stay in the frame.
-    const leftward = x > f.bounds[0] + 0.6 * (f.bounds[2] - f.bounds[0]);
-    out += `<text x="${c2(leftward ? x - 9 * f.u : x + 9 * f.u)}" y="${c2(y + 4 * f.u)}"${leftward ? ` text-anchor="end"` : ""} font-size="${c2(11 * f.u)}" font-weight="bold" font-family="sans-serif" fill="${colour}" stroke="${PALETTE.paper}" stroke-width="${c2(3 * f.u)}" paint-order="stroke" stroke-linejoin="round">${esc(part.id)}: ${esc(shortCodes(part.codes))}</text></g>`;
+    const x = point[0] + 6 * f.u;
+    let y = Y(point[1]) - 10 * f.u;
+    // Two failing parts close together: the second mark goes above the first, not on it.
+    while (marks.some(([mx, my]) => Math.hypot(mx - x, my - y) < 13 * f.u)) y -= 14 * f.u;
+    marks.push([x, y]);
+    const words = troubleWords(part.codes);
+    out += `<g class="flag" data-part="${esc(part.id)}" data-status="${part.status}"><title>${esc(part.id)}: ${esc(words)}</title>`;
+    out += `<circle cx="${c2(x)}" cy="${c2(y)}" r="${c2(6 * f.u)}" fill="${colour}"/>`;
+    // The "!" drawn as a stroke and a dot, not text, so it never counts as a label.
+    out += `<path d="M${c2(x)} ${c2(y - 3.6 * f.u)}V${c2(y + 0.8 * f.u)}" stroke="#ffffff" stroke-width="${c2(1.8 * f.u)}" stroke-linecap="round"/>`;
+    out += `<circle cx="${c2(x)}" cy="${c2(y + 3.2 * f.u)}" r="${c2(1 * f.u)}" fill="#ffffff"/></g>`;
+    labels.push({
+      text: `${part.id}: ${words}`,
+      at: [x, y],
+      gap: 9 * f.u,
+      fontSize: 11 * f.u,
+      bold: true,
+      fill: colour,
+      className: "flag-label",
+      part: part.id,
+    });
   }
   return out + "</g>";
 }
 
-function scaleBar(vm: ViewModel, f: Frame): string {
+/** The scale bar, and the box its figure takes (kept clear of labels). */
+function scaleBar(vm: ViewModel, f: Frame): { svg: string; box: Box } {
   const [minX, minY, maxX] = f.bounds;
   const span = maxX - minX;
   // Drawing units (mm) per unit of length the reader works in.
@@ -269,10 +327,57 @@ function scaleBar(vm: ViewModel, f: Frame): string {
   const nice = shown * perUnit;
   const x = minX + 8 * f.u;
   const y = Y(minY) - 8 * f.u;
-  return (
-    `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
-    `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(10 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${shown} ${unitLabel("length", vm.units)}</text></g>`
-  );
+  const text = `${shown} ${unitLabel("length", vm.units)}`;
+  const size = 10 * f.u;
+  const textBox = fixedTextBox(text, x, y - 4 * f.u, size);
+  return {
+    svg:
+      `<g class="scale"><line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + nice)}" y2="${c2(y)}" stroke="${PALETTE.ink}" stroke-width="${c2(1.5 * f.u)}"/>` +
+      `<text x="${c2(x)}" y="${c2(y - 4 * f.u)}" font-size="${c2(size)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(text)}</text></g>`,
+    box: { x: textBox.x, y: textBox.y, w: Math.max(textBox.w, nice), h: textBox.h + 6 * f.u },
+  };
+}
+
+/** The pose's angles at the top left, broken into lines that fit the frame. */
+function caption(vm: ViewModel, pose: ViewPose, f: Frame): { svg: string; boxes: Box[] } {
+  const [minX, , maxX, maxY] = f.bounds;
+  const parts = vm.dofs.map((d, i) => `${d.id} ${formatFigure(pose.angles[i]!, "angle", vm.units)}°`);
+  const size = 11 * f.u;
+  const room = maxX - minX - 16 * f.u;
+  const lines: string[] = [];
+  for (const part of parts) {
+    const last = lines[lines.length - 1];
+    const joined = last === undefined ? part : `${last}, ${part}`;
+    if (last !== undefined && fixedTextBox(joined, 0, 0, size).w > room) lines.push(part);
+    else if (last === undefined) lines.push(part);
+    else lines[lines.length - 1] = joined;
+  }
+  let svg = "";
+  const boxes: Box[] = [];
+  lines.forEach((line, i) => {
+    const x = minX + 8 * f.u;
+    const baseline = -maxY + 16 * f.u + i * 14 * f.u;
+    svg += `<text class="pose-caption" x="${c2(x)}" y="${c2(baseline)}" font-size="${c2(size)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(line)}</text>`;
+    boxes.push(fixedTextBox(line, x, baseline, size));
+  });
+  return { svg, boxes };
+}
+
+/** The labels, each at the first free spot around its part; a label with no free spot is left
+ * out (the mark's tooltip and the panel's list still name the part). */
+function drawLabels(labels: readonly PendingLabel[], f: Frame, reserved: readonly Box[]): string {
+  const [minX, minY, maxX, maxY] = f.bounds;
+  const frame: Box = {
+    x: minX + 2 * f.u,
+    y: -maxY + 2 * f.u,
+    w: maxX - minX - 4 * f.u,
+    h: maxY - minY - 4 * f.u,
+  };
+  const placed = placeLabels(labels, frame, reserved) as (PlacedLabel & PendingLabel)[];
+  let out = `<g class="labels">`;
+  for (const l of placed)
+    out += `<g class="${l.className}" data-part="${esc(l.part)}">${haloText(l.x, l.baseline, l.text, l.fontSize, l.fill, l.bold)}</g>`;
+  return out + "</g>";
 }
 
 export interface DrawOptions {
@@ -280,8 +385,12 @@ export interface DrawOptions {
   widthPx?: number;
 }
 
-/** The arm in pose `poseIndex` as an SVG string. */
-export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOptions = {}): string {
+/** The arm in pose `poseIndex` (or at its exact reference pose) as an SVG string. */
+export function renderArmSvg(
+  vm: ViewModel,
+  poseIndex: number | "reference",
+  options: DrawOptions = {},
+): string {
   const bounds = vm.bounds.map(mm) as Frame["bounds"];
   const [minX, minY, maxX, maxY] = bounds;
   const w = maxX - minX;
@@ -291,7 +400,7 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
   const heightPx = Math.round((widthPx * h) / w);
   const head = `<svg xmlns="http://www.w3.org/2000/svg" class="arm-drawing" viewBox="${c2(minX)} ${c2(-maxY)} ${c2(w)} ${c2(h)}" width="${widthPx}" height="${heightPx}" role="img" aria-label="${esc(vm.title)}">`;
   const ground = `<rect x="${c2(minX)}" y="${c2(-maxY)}" width="${c2(w)}" height="${c2(h)}" fill="${PALETTE.paper}"/>`;
-  const pose = vm.poses[poseIndex];
+  const pose = poseIndex === "reference" ? (vm.reference ?? vm.poses[vm.referencePose]) : vm.poses[poseIndex];
   if (!pose) {
     // Nothing solved: a short strip with the reason, not an empty frame the size of an arm.
     return (
@@ -305,10 +414,11 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
     const hooks = pose.springs[s.id];
     if (hooks) springs += springMark(vm, s, hooks, status.get(s.id), pose.springForce[s.id], f);
   }
-  const angles = vm.dofs
-    .map((d, i) => `${d.id} ${formatFigure(pose.angles[i]!, "angle", vm.units)}°`)
-    .join(", ");
-  const caption = `<text class="pose-caption" x="${c2(minX + 8 * f.u)}" y="${c2(-maxY + 16 * f.u)}" font-size="${c2(11 * f.u)}" font-family="sans-serif" fill="${PALETTE.muted}">${esc(angles)}</text>`;
+  const labels: PendingLabel[] = [];
+  const flags = trouble(vm, pose, f, labels);
+  const weights = payloads(vm, pose, status, f, labels);
+  const scale = scaleBar(vm, f);
+  const top = caption(vm, pose, f);
   return (
     head +
     ground +
@@ -317,10 +427,11 @@ export function renderArmSvg(vm: ViewModel, poseIndex: number, options: DrawOpti
     bodies(vm, pose, status, f) +
     springs +
     pivots(vm, pose, status, f) +
-    payloads(vm, pose, status, f) +
-    trouble(vm, pose, f) +
-    scaleBar(vm, f) +
-    caption +
+    weights +
+    flags +
+    scale.svg +
+    top.svg +
+    drawLabels(labels, f, [scale.box, ...top.boxes]) +
     "</svg>"
   );
 }

@@ -18,8 +18,10 @@ export interface PlotSpec {
   series: PlotSeries[];
   /** A shaded horizontal band, e.g. the allowed hand force. */
   band?: { from: number; to: number; label: string };
-  /** x of the current pose. */
+  /** x of the pose drawn beside the plot (an upright line, named in the legend). */
   markerX?: number;
+  /** The marker's legend words; "pose drawn" if not given. */
+  markerLabel?: string;
   widthPx?: number;
   heightPx?: number;
 }
@@ -87,7 +89,16 @@ export function renderPlotSvg(spec: PlotSpec): string {
   const pad = (y1 - y0) * 0.06;
   y0 -= pad;
   y1 += pad;
-  const legend = legendLayout(spec.series, W);
+  const hasMarker = spec.markerX !== undefined && Number.isFinite(spec.markerX);
+  // The marker gets a legend entry like a series, so the reader knows what the upright line is.
+  const markerEntry: PlotSeries = {
+    name: spec.markerLabel ?? "pose drawn",
+    colour: PALETTE.muted,
+    dashed: true,
+    points: [],
+  };
+  const entries = hasMarker ? [...spec.series, markerEntry] : spec.series;
+  const legend = legendLayout(entries, W);
   const top = PAD.top + LEGEND_ROW * (legend.length ? Math.max(...legend.map((l) => l.row)) + 1 : 0);
   const sx = (x: number) => PAD.left + ((x - x0) / (x1 - x0)) * (W - PAD.left - PAD.right);
   const sy = (y: number) => H - PAD.bottom - ((y - y0) / (y1 - y0)) * (H - top - PAD.bottom);
@@ -127,10 +138,11 @@ export function renderPlotSvg(spec: PlotSpec): string {
       out += `<polyline class="series" data-series="${esc(s.name)}" points="${seg.map(([x, y]) => `${c2(sx(x))},${c2(sy(y))}`).join(" ")}" fill="none" stroke="${s.colour}" stroke-width="2"${s.dashed ? ` stroke-dasharray="6 3"` : ""}/>`;
     }
   }
-  if (spec.markerX !== undefined && Number.isFinite(spec.markerX)) {
-    out += `<line class="marker" x1="${c2(sx(spec.markerX))}" y1="${top}" x2="${c2(sx(spec.markerX))}" y2="${H - PAD.bottom}" stroke="${PALETTE.error}" stroke-width="1.2"/>`;
+  if (hasMarker) {
+    // Neutral, not the trouble colour: it marks where the drawing is, not a fault.
+    out += `<line class="marker" x1="${c2(sx(spec.markerX!))}" y1="${top}" x2="${c2(sx(spec.markerX!))}" y2="${H - PAD.bottom}" stroke="${PALETTE.muted}" stroke-width="1.2" stroke-dasharray="3 2"/>`;
   }
-  spec.series.forEach((s, i) => {
+  entries.forEach((s, i) => {
     const { x, row } = legend[i]!;
     const y = 30 + row * LEGEND_ROW;
     out += `<line x1="${c2(x)}" y1="${y - 3}" x2="${c2(x + 16)}" y2="${y - 3}" stroke="${s.colour}" stroke-width="2"${s.dashed ? ` stroke-dasharray="4 2"` : ""}/>`;

@@ -2,7 +2,7 @@
 // and cautions, with inline SVG and CSS, no script and nothing fetched.
 import type { ViewModel } from "./view-model";
 import { renderArmSvg } from "./draw-arm";
-import { renderPlotSvg } from "./draw-plot";
+import { renderPlotSvg, type PlotSpec } from "./draw-plot";
 import { torquePlot, handForcePlot } from "./plots";
 import { nearestPose } from "./pose-lines";
 import { findingsHtml, poseSummaryHtml, poseTableHtml, safetyTableHtml } from "./tables";
@@ -28,6 +28,7 @@ th { background: #efe9dc; } td.num { text-align: right; font-variant-numeric: ta
 tr.fail td { color: ${PALETTE.error}; font-weight: 600; }
 ul.findings { list-style: none; padding: 0; } ul.findings li { padding: 3px 0 3px 10px; border-left: 4px solid ${PALETTE.grid}; margin: 4px 0; }
 ul.findings li.error { border-color: ${PALETTE.error}; } ul.findings li.warning { border-color: ${PALETTE.warning}; }
+ul.findings code.code { color: ${PALETTE.muted}; font-size: 0.85em; }
 .where { color: ${PALETTE.muted}; font-variant-numeric: tabular-nums; } .severity { font-weight: 600; }
 .note, .none { color: ${PALETTE.muted}; font-size: 13px; }
 .cautions { background: #fff4e0; border: 1px solid ${PALETTE.warning}; padding: 8px 16px; }
@@ -58,6 +59,15 @@ function rangeEnds(vm: ViewModel): string {
   return out + "</div>";
 }
 
+/** A plot's upright line at the reference angle itself, named as such in the legend. */
+function atReference(vm: ViewModel, d: number, spec: PlotSpec): PlotSpec {
+  return {
+    ...spec,
+    markerX: inDisplayUnit(vm.dofs[d]!.reference, "angle", vm.units),
+    markerLabel: "reference pose",
+  };
+}
+
 export interface ReportOptions {
   /** The spec's path as the user gave it. */
   file: string;
@@ -67,8 +77,8 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
   const plots = vm.dofs
     .map(
       (_, d) =>
-        renderPlotSvg(torquePlot(vm, d, vm.referencePose)) +
-        (vm.payloads.length ? renderPlotSvg(handForcePlot(vm, d, vm.referencePose)) : ""),
+        renderPlotSvg(atReference(vm, d, torquePlot(vm, d, vm.referencePose))) +
+        (vm.payloads.length ? renderPlotSvg(atReference(vm, d, handForcePlot(vm, d, vm.referencePose))) : ""),
     )
     .join("");
   const body = [
@@ -76,7 +86,7 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<p class="sub">Counterpoise report for <code>${esc(options.file)}</code> — ${verdict(vm)}</p>`,
     `<h2>The arm</h2>`,
     `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts flagged red fail a check; amber ones carry a warning.</p>`,
-    `<div class="drawing">${renderArmSvg(vm, vm.referencePose, { widthPx: 760 })}</div>`,
+    `<div class="drawing">${renderArmSvg(vm, "reference", { widthPx: 760 })}</div>`,
     ...(vm.thinned
       ? [
           `<p class="note">Drawn and plotted from ${vm.thinned.shown} of the ${vm.thinned.solved} poses solved (every few values of each degree of freedom, both ends kept); the checks used them all.</p>`,
@@ -85,7 +95,7 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     rangeEnds(vm),
     `<h2>Torques and hand force</h2>`,
     vm.poses.length
-      ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the shaded band is the hand force <code>require balance</code> allows.</p>`
+      ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the grey dashed upright line marks the reference pose itself (the drawing above), the shaded band the hand force <code>require balance</code> allows.</p>`
       : `<p class="none">No poses were solved.</p>`,
     `<h2>Safety factors</h2>`,
     `<p class="note">Required: ${vm.requiredSafety}. Lowest first.</p>`,

@@ -2,6 +2,7 @@
 // summary (extremes per degree of freedom, payload and spring, and a sampled pose list).
 import type { ViewModel } from "./view-model";
 import { esc } from "./text";
+import { CODES, type Code } from "../findings/codes";
 import { formatFigure, unitLabel } from "../units/format";
 import type { DimensionName } from "../units/dimension";
 
@@ -24,7 +25,7 @@ export function findingsHtml(vm: ViewModel): string {
   for (const [i, f] of vm.findings.entries()) {
     out +=
       `<li class="${f.severity}" data-finding="${i}"${f.partId ? ` data-part="${esc(f.partId)}"` : ""}><span class="where">line ${f.range.start.line + 1}:${f.range.start.character + 1}</span> ` +
-      `<span class="severity">${f.severity}</span> <code>${esc(f.code)}</code> ${esc(f.message)}</li>`;
+      `<span class="severity">${f.severity}</span> <strong class="what">${esc(CODES[f.code as Code]?.words ?? f.code)}</strong> ${esc(f.message)} <code class="code" title="the rule's code, as \`poise check\` prints it">${esc(f.code)}</code></li>`;
   }
   return out + "</ul>";
 }

@@ -135,6 +135,9 @@ export interface ViewModel {
   poses: ViewPose[];
   /** Index into `poses` of the pose nearest the reference. */
   referencePose: number;
+  /** The reference pose itself when no swept pose is exactly at it (a grid whose steps miss the
+   * written angles): the report draws this one. */
+  reference?: ViewPose;
   /** For each dof (same order), runs of pose indices along which only that dof changes, sorted by
    * its angle: a plot against that dof uses the run through the current pose. */
   lines: number[][][];
