@@ -110,6 +110,12 @@ describe("a sample over the protocol", () => {
       position: positionOf(CAMERA, "spring lift", 8),
     });
     expect(hoverText(h)).toMatch(/\*\*lift\*\* — spring/);
+    // The figures that matter lead, in the first few lines; the spring's settings and the rest
+    // follow under "More", so the hover answers without scrolling.
+    const [lead, more] = hoverText(h).split("**More**");
+    expect(lead).toMatch(/force range: /);
+    expect(lead!.trim().split("\n").length).toBeLessThanOrEqual(10);
+    expect(more).toMatch(/extension spring · rate /);
     const p = await session.connection.sendRequest(HoverRequest.type, {
       ...doc,
       position: positionOf(CAMERA, "reach.head(30", 7),
@@ -286,8 +292,9 @@ describe("the sample full of mistakes", () => {
     });
     const text = hoverText(h);
     expect(text).toMatch(/\*\*boom\*\* — link/);
-    expect(text).toContain("- error `name.unknown`: unknown material `plaa`");
-    expect(text).toContain("- error `value.impossible`: ");
+    expect(text).toMatch(/\*\*boom\*\* — link \(rigid bar\) — \d+ errors?/);
+    expect(text).toContain(`- **${CODES["name.unknown"].words}** (error): unknown material \`plaa\``);
+    expect(text).toContain(`- **${CODES["value.impossible"].words}** (error): `);
   });
 
   it("carries related places and the finding's detail in its diagnostics", async () => {

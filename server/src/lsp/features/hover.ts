@@ -6,7 +6,7 @@ import type { Hover } from "vscode-languageserver";
 import type { Analysis } from "../../analysis";
 import { CODES } from "../../findings/codes";
 import type { Finding } from "../../findings/finding";
-import type { PartReadout } from "../../checks/readout";
+import type { Figure, PartReadout } from "../../checks/readout";
 import type { ArmModel, Body, Spring } from "../../model/types";
 import { ARM_PROPERTIES, declarationSpec } from "../../model/schema";
 import { springKind } from "../../model/spring-kinds";
@@ -167,20 +167,41 @@ function modelFacts(model: ArmModel, symbol: NameSymbol, system: UnitSystem): st
   }
 }
 
-function readoutLines(r: PartReadout, system: UnitSystem): string[] {
-  const lines = r.figures.map((fig) => {
-    const value =
-      fig.high !== undefined
-        ? `${formatResult(fig.value, fig.dimension, system)} .. ${formatResult(fig.high, fig.dimension, system)}`
-        : formatResult(fig.value, fig.dimension, system);
-    return `- ${fig.label}: ${value}${fig.where ? ` (${fig.where})` : ""}`;
-  });
+function figureLine(fig: Figure, system: UnitSystem): string {
+  const value =
+    fig.high !== undefined
+      ? `${formatResult(fig.value, fig.dimension, system)} .. ${formatResult(fig.high, fig.dimension, system)}`
+      : formatResult(fig.value, fig.dimension, system);
+  return `- ${fig.label}: ${value}${fig.where ? ` (${fig.where})` : ""}`;
+}
+
+/** The figures that matter most lead: the least safety factor and the figures the results record
+ * holds (each check tags those); the rest, and the notes, follow under "More". */
+function readoutLines(r: PartReadout, system: UnitSystem): { lead: string[]; more: string[] } {
+  const lead: string[] = [];
   if (r.worstSafety)
-    lines.push(
-      `- least safety factor: ${formatNumber(r.worstSafety.value)} (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`,
+    lead.push(
+      `- least safety factor: **${formatNumber(r.worstSafety.value)}** (${r.worstSafety.what}${r.worstSafety.where ? `, ${r.worstSafety.where}` : ""})`,
     );
-  for (const note of r.notes) lines.push(`- ${note}`);
-  return lines;
+  const tagged = r.figures.filter((fig) => fig.result);
+  // A part no check tags still leads with something: its first two figures.
+  const leading = tagged.length ? tagged : r.figures.slice(0, 2);
+  lead.push(...leading.map((fig) => figureLine(fig, system)));
+  const more = r.figures.filter((fig) => !leading.includes(fig)).map((fig) => figureLine(fig, system));
+  more.push(...r.notes.map((note) => `- ${note}`));
+  return { lead, more };
+}
+
+/** "1 error, 2 warnings" for the findings about a part, or nothing when it has none. */
+function troubleCount(findings: readonly Finding[]): string {
+  const count = (severity: string) => findings.filter((f) => f.severity === severity).length;
+  const errors = count("error");
+  const warnings = count("warning");
+  const words = [
+    errors ? `${errors} error${errors > 1 ? "s" : ""}` : "",
+    warnings ? `${warnings} warning${warnings > 1 ? "s" : ""}` : "",
+  ].filter(Boolean);
+  return words.join(", ");
 }
 
 const KIND_WORDS: Record<string, string> = {
@@ -213,22 +234,26 @@ function nameHover(
   system: UnitSystem,
   findings: readonly Finding[] = [],
 ): string {
-  const title = `**${symbol.id}** — ${KIND_WORDS[symbol.kind] ?? symbol.kind}${symbol.builtin ? " (built in)" : ""}`;
+  const about = findingsAbout(symbol.id, findings);
+  const trouble = troubleCount(about);
+  const title = `**${symbol.id}** — ${KIND_WORDS[symbol.kind] ?? symbol.kind}${symbol.builtin ? " (built in)" : ""}${trouble ? ` — ${trouble}` : ""}`;
   const parts = [title];
   const model = analysis?.model;
-  if (model) {
-    const facts = modelFacts(model, symbol, system);
-    if (facts.length) parts.push(facts.join(" · "));
-  }
   const readout = analysis?.readouts[symbol.id];
-  if (readout) {
-    const lines = readoutLines(readout, system);
-    if (lines.length) parts.push(lines.join("\n"));
+  const lines = readout ? readoutLines(readout, system) : { lead: [], more: [] };
+  // What matters first: the key figures, then what is wrong; the rest below, so the hover
+  // answers without scrolling.
+  if (lines.lead.length) parts.push(lines.lead.join("\n"));
+  if (about.length > 0)
+    parts.push(
+      about.map((f) => `- **${CODES[f.code]?.words ?? f.code}** (${f.severity}): ${f.message}`).join("\n"),
+    );
+  const facts = model ? modelFacts(model, symbol, system) : [];
+  if (facts.length || lines.more.length) {
+    const more = [facts.length ? facts.join(" · ") : "", lines.more.join("\n")].filter(Boolean);
+    parts.push(lines.lead.length || about.length ? `**More**\n\n${more.join("\n\n")}` : more.join("\n\n"));
   }
   if (!model) parts.push("_Figures appear once the spec builds a model._");
-  const about = findingsAbout(symbol.id, findings);
-  if (about.length > 0)
-    parts.push(about.map((f) => `- ${f.severity} \`${f.code}\`: ${f.message}`).join("\n"));
   return parts.join("\n\n");
 }
 
