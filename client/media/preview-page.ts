@@ -7,6 +7,7 @@ import { renderPlotSvg } from "../../server/src/view/draw-plot";
 import { handForcePlot, torquePlot } from "../../server/src/view/plots";
 import { nearestPose } from "../../server/src/view/pose-lines";
 import { findingsHtml, safetyTableHtml } from "../../server/src/view/tables";
+import { resultsTableHtml } from "../../server/src/view/results-table";
 import { MODEL_LIMITS, SAFETY_CAUTIONS } from "../../server/src/view/limits";
 import { formatFigure } from "../../server/src/units/format";
 
@@ -117,7 +118,7 @@ function render(): void {
   if (!vm) {
     $("title").textContent = "No arm to show";
     $("status").textContent = "Open a .poise file to see its arm.";
-    for (const id of ["drawing", "sliders", "plots", "safety", "findings"]) $(id).textContent = "";
+    for (const id of ["drawing", "sliders", "plots", "safety", "figures", "findings"]) $(id).textContent = "";
     return;
   }
   $("title").textContent = vm.title;
@@ -126,6 +127,8 @@ function render(): void {
   renderSliders(vm);
   renderPose(vm);
   $("safety").innerHTML = safetyTableHtml(vm);
+  // Deflection, tilt, frequency and the rest, whether they pass or not: what the designer tunes.
+  $("figures").innerHTML = resultsTableHtml(vm.results, vm.units);
   $("findings").innerHTML = findingsHtml(vm);
   $("method").textContent = vm.poses.length ? vm.torqueMethod : (vm.emptyReason ?? "");
 }

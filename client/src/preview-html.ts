@@ -34,6 +34,8 @@ export function previewHtml(p: PreviewPageParts): string {
 <p class="note" id="method"></p>
 <h2>Safety factors</h2>
 <div id="safety"></div>
+<h2>Figures over the range</h2>
+<div id="figures"></div>
 <h2>Diagnostics</h2>
 <div id="findings"></div>
 <details id="limits"><summary>Limits of the model</summary></details>

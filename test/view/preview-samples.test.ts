@@ -31,6 +31,8 @@ describe("preview of the samples", () => {
       expect(await page.locator("svg.arm-drawing").count()).toBe(1);
       expect(await page.locator("#sliders input[type=range]").count()).toBe(vm.dofs.length);
       expect(await page.locator("ul.findings li").count()).toBe(vm.findings.length);
+      // The figures over the range (deflection, tilt, frequency...) show whether they pass or not.
+      if (vm.results) expect(await page.locator("table.figures tbody tr").count()).toBeGreaterThan(0);
       // Every part the findings mark as failing is marked in the drawing, if it is drawn at all.
       for (const part of vm.parts.filter((p) => p.status === "error" && vm.poses.length)) {
         expect(
