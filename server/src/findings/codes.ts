@@ -181,6 +181,7 @@ export const CODES = {
   },
   "geometry.swivel-leans": {
     severity: "warning",
+    words: "swivel axis leans",
     explanation:
       "A swivel's axis (its parent's y axis) leans away from vertical over the range: its heading would then change the gravity torque.",
   },
@@ -240,6 +241,7 @@ export const CODES = {
   },
   "stiffness.not-computed": {
     severity: "information",
+    words: "stiffness not computed",
     explanation:
       "A stiffness figure could not be computed at some pose (the held arm is still a mechanism there).",
   },
