@@ -231,6 +231,7 @@ export const CODES = {
   },
   "stiffness.lean": {
     severity: "warning",
+    words: "leans sideways",
     explanation:
       "The payload's elastic lean out of its stage's plane (twist and sideways bending below it) exceeds `require tilt`.",
   },
