@@ -13,6 +13,7 @@ import { runLatencyBench } from "./latency";
 import { runSwivelCost } from "./swivel-cost";
 import { DEFAULT_SETTINGS } from "../server/src/lsp/session/settings";
 import { runTypingUnderLoadBench } from "./typing-under-load";
+import { runCostBench } from "./cost";
 
 /** Targets of the mechanics issue: a typical arm (up to 12 bodies, 3 dof) analysed end to end in
  * 20 ms, and a pose costing at most 5 bare LU solves of the same size. */
@@ -213,7 +214,20 @@ const swivelCost: Section = {
   run: (log) => runSwivelCost(log, findRoot(), (f) => timeMs(f, 3), WHILE_TYPING),
 };
 
-export const SECTIONS: Section[] = [endToEnd, typicalDenser, perPose, latency, typingUnderLoad, swivelCost];
+const cost: Section = {
+  name: "near-linear cost (issue 15): stress chains, growth, a pose, poise check, the worker's result",
+  run: (log) => runCostBench(log, findRoot()),
+};
+
+export const SECTIONS: Section[] = [
+  endToEnd,
+  typicalDenser,
+  perPose,
+  cost,
+  latency,
+  typingUnderLoad,
+  swivelCost,
+];
 
 async function main(): Promise<void> {
   const only = process.argv.slice(2);

@@ -1,6 +1,6 @@
 // `npm run fuzz`: bundles the fuzzer (test/fuzz/long-run.ts) and runs it. Arguments pass through:
 //   --runs N (default FUZZ_RUNS or 100000)  --seed S (default FUZZ_SEED or random)
-//   --time-limit-ms T  --families valid,nearly-valid,byte-mutant,junk  --no-write  --json
+//   --time-limit-ms T  --families valid,nearly-valid,byte-mutant,junk,large  --no-write  --json
 // Every new failure is shrunk and written to test/fuzz/failures/ with its seed and path.
 import { build } from "esbuild";
 import { spawnSync } from "node:child_process";

@@ -10,6 +10,8 @@ const root = join(__dirname, "..", "..");
 const CI_RUNS = Number(process.env.FUZZ_CI_RUNS ?? 3000);
 const CI_TIME_LIMIT_MS = 45_000;
 const CI_SEED = Number(process.env.FUZZ_SEED ?? 20261202);
+/** Cases of the large shapes in the CI run (about two seconds each). */
+const LARGE_CI_RUNS = 5;
 /** Share of generated valid specs that must reach the solver. Common practice, no source: about
  * half do today (the rest hit a deliberate model error, e.g. an unheld joint, or a check error). */
 const MIN_SOLVED_SHARE = 0.25;
@@ -20,6 +22,8 @@ describe("fuzzing the core", () => {
       process.execPath,
       [
         join(root, "scripts", "fuzz.mjs"),
+        "--families",
+        "valid,nearly-valid,byte-mutant,junk",
         "--runs",
         String(CI_RUNS),
         "--seed",
@@ -53,5 +57,30 @@ describe("fuzzing the core", () => {
       (summary.solvedByFamily["valid"] ?? 0) / Math.max(1, valid),
       `valid specs solved: ${summary.solvedByFamily["valid"] ?? 0} of ${valid}`,
     ).toBeGreaterThan(MIN_SOLVED_SHARE);
+  }, 150_000);
+
+  it(`holds them on ${LARGE_CI_RUNS} of the large shapes of issue 16, each under a budget`, () => {
+    // Huge angles and ranges, thousands of declarations, long fixed chains, many degrees of
+    // freedom: each case takes a second or two, so the CI run has a few of its own.
+    const run = spawnSync(
+      process.execPath,
+      [
+        join(root, "scripts", "fuzz.mjs"),
+        "--families",
+        "large",
+        "--runs",
+        String(LARGE_CI_RUNS),
+        "--seed",
+        String(CI_SEED),
+        "--no-write",
+        "--json",
+      ],
+      { cwd: root, encoding: "utf8", timeout: 120_000 },
+    );
+    const line = run.stdout.trim().split("\n").pop() ?? "";
+    expect(line, `fuzzer output:\n${run.stderr}`).toMatch(/^\{/);
+    const summary = JSON.parse(line) as { cases: number; failures: number; details: unknown[] };
+    expect(summary.failures, JSON.stringify(summary.details).slice(0, 4000)).toBe(0);
+    expect(summary.cases).toBeGreaterThanOrEqual(LARGE_CI_RUNS);
   }, 150_000);
 });

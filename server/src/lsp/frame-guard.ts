@@ -4,8 +4,9 @@
 // more header, so one malformed frame left the server alive but deaf. It also takes any
 // integer `parseInt` finds (`-5`) as a length. This guard checks each frame's header (every
 // line `Name: value`, a Content-Length of digits within MAX_FRAME_BYTES) and passes well-formed
-// frames through unchanged; a malformed one is reported and skipped up to the next line that
-// starts a header, so the next message is read. Decoding, dispatch and replies stay the
+// frames through with their header written plainly (only Content-Length, which is all the
+// library reads: a stray control character before a name it would not trim); a malformed one is
+// reported and skipped up to the next line that starts a header, so the next message is read. Decoding, dispatch and replies stay the
 // library's.
 import { Transform, type TransformCallback } from "node:stream";
 
@@ -68,7 +69,10 @@ export class FrameGuard extends Transform {
         continue;
       }
       this.skipping = false;
-      this.push(this.pending.subarray(0, end + HEADER_END.length));
+      // The library reads the header again, by its own rules (a name with a stray control
+      // character before it is not Content-Length there, and it stops for good): it is given
+      // the one header it needs, written plainly.
+      this.push(Buffer.from(`Content-Length: ${problem}\r\n\r\n`, "ascii"));
       this.pending = this.pending.subarray(end + HEADER_END.length);
       this.bodyLeft = problem;
       if (this.bodyLeft === 0) continue;
