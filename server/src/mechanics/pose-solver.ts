@@ -80,8 +80,10 @@ export class PoseSolver {
   /** Tangent dq/dtheta_d per dof at the current pose, dof-major. */
   private readonly tangents: Float64Array;
   private readonly unit: Float64Array;
-  /** Scratch: where a generalized force is non-zero. */
+  /** Scratch: where a generalized force is non-zero, and its holding torque per dof. */
   private readonly nonZeroAt: Int32Array;
+  private readonly holdingScratch: Float64Array;
+  private readonly dofIds: string[];
   readonly angles: Float64Array;
   private readonly moveStart: Float64Array;
   private readonly trialAngles: Float64Array;
@@ -125,6 +127,8 @@ export class PoseSolver {
     this.tangents = new Float64Array(Math.max(1, this.ndof) * n);
     this.unit = new Float64Array(n);
     this.nonZeroAt = new Int32Array(n);
+    this.holdingScratch = new Float64Array(Math.max(1, this.ndof));
+    this.dofIds = linkage.dofs.map((d) => d.id);
     this.angles = Float64Array.from(linkage.dofs, (d) => d.reference);
     this.moveStart = new Float64Array(this.ndof);
     this.trialAngles = new Float64Array(this.ndof);
@@ -398,9 +402,7 @@ export class PoseSolver {
         this.addForce(this.unit, ps.a, ps.ax, ps.ay, ux, uy);
         this.addForce(this.unit, ps.b, ps.bx, ps.by, -ux, -uy);
       }
-      for (let i = 0; i < n; i++) this.qSprings[i]! += tension * this.unit[i]!;
-      springTorquePerUnit[ps.spring.id] = this.holdingFrom(this.unit);
-      springTorque[ps.spring.id] = scaled(springTorquePerUnit[ps.spring.id]!, tension);
+      this.addSpring(ps.spring.id, tension, springTorquePerUnit, springTorque);
     }
     for (const t of this.torsions) {
       const theta = this.jointAngle(t.joint);
@@ -419,9 +421,7 @@ export class PoseSolver {
       const c = g.child[t.joint]!;
       if (p >= 0) this.unit[3 * p + 2]! += 1;
       if (c >= 0) this.unit[3 * c + 2]! -= 1;
-      for (let i = 0; i < n; i++) this.qSprings[i]! += torque * this.unit[i]!;
-      springTorquePerUnit[t.spring.id] = this.holdingFrom(this.unit);
-      springTorque[t.spring.id] = scaled(springTorquePerUnit[t.spring.id]!, torque);
+      this.addSpring(t.spring.id, torque, springTorquePerUnit, springTorque);
     }
 
     // Gravity on every body's centre of mass.
@@ -544,30 +544,61 @@ export class PoseSolver {
     };
   }
 
-  /** Holding torque per dof caused by the generalized force Q (sign: what the hand adds). The
-   * multiplier of dof d's drive row is t_d . Q (J t_d = e_row, so e_row^T J^-T Q = t_d^T Q): the
-   * tangents give it over Q's few non-zeros, without a transposed solve. */
-  private holdingFrom(Q: Float64Array): Record<string, number> {
-    const L = this.linkage;
-    const n = this.n;
+  /** Adds a spring of force `force` whose unit generalized force is in `this.unit`: to the
+   * springs' generalized force, and its holding torque per unit of force and its share of the
+   * holding torque to the pose's records. */
+  private addSpring(
+    id: string,
+    force: number,
+    perUnit: Record<string, Record<string, number>>,
+    share: Record<string, Record<string, number>>,
+  ): void {
+    const count = this.nonZerosOf(this.unit);
+    const at = this.nonZeroAt;
+    for (let m = 0; m < count; m++) this.qSprings[at[m]!]! += force * this.unit[at[m]!]!;
+    const torque = this.holdingAt(this.unit, count);
+    const unitRecord: Record<string, number> = {};
+    const shareRecord: Record<string, number> = {};
+    const ids = this.dofIds;
+    for (let d = 0; d < this.ndof; d++) {
+      unitRecord[ids[d]!] = torque[d]!;
+      shareRecord[ids[d]!] = torque[d]! * force;
+    }
+    perUnit[id] = unitRecord;
+    share[id] = shareRecord;
+  }
+
+  /** Where Q is non-zero, into this.nonZeroAt; returns how many. */
+  private nonZerosOf(Q: Float64Array): number {
     const at = this.nonZeroAt;
     let count = 0;
-    for (let i = 0; i < n; i++) if (Q[i] !== 0) at[count++] = i;
-    const out: Record<string, number> = {};
+    for (let i = 0; i < this.n; i++) if (Q[i] !== 0) at[count++] = i;
+    return count;
+  }
+
+  /** Holding torque per dof caused by the generalized force Q, whose non-zeros nonZerosOf has
+   * listed (sign: what the hand adds), into a scratch array. The multiplier of dof d's drive row
+   * is t_d . Q (J t_d = e_row, so e_row^T J^-T Q = t_d^T Q): the tangents give it over Q's few
+   * non-zeros, without a transposed solve. */
+  private holdingAt(Q: Float64Array, count: number): Float64Array {
+    const n = this.n;
+    const at = this.nonZeroAt;
     const t = this.tangents;
+    const out = this.holdingScratch;
     for (let d = 0; d < this.ndof; d++) {
       const o = d * n;
       let sum = 0;
       for (let m = 0; m < count; m++) sum += t[o + at[m]!]! * Q[at[m]!]!;
-      out[L.dofs[d]!.id] = -sum;
+      out[d] = -sum;
     }
     return out;
   }
-}
 
-/** Each value of a per-dof record times `factor`. */
-function scaled(perDof: Record<string, number>, factor: number): Record<string, number> {
-  const out: Record<string, number> = {};
-  for (const [id, v] of Object.entries(perDof)) out[id] = v * factor;
-  return out;
+  /** holdingAt as a record by dof id. */
+  private holdingFrom(Q: Float64Array): Record<string, number> {
+    const torque = this.holdingAt(Q, this.nonZerosOf(Q));
+    const out: Record<string, number> = {};
+    for (let d = 0; d < this.ndof; d++) out[this.dofIds[d]!] = torque[d]!;
+    return out;
+  }
 }

@@ -6,6 +6,7 @@ import { parentPort } from "node:worker_threads";
 import { analyse } from "../../analysis";
 import { buildViewModel } from "../../view";
 import { AnalysisCache } from "./analysis-cache";
+import { serverCopy } from "./server-copy";
 import type { WorkerRequest, WorkerReply } from "./worker-protocol";
 
 const cache = new AnalysisCache();
@@ -19,7 +20,7 @@ function answer(request: WorkerRequest): WorkerReply {
     if (Atomics.load(request.cancel, 0) === 0) cache.put(request.text, request.options, analysis);
   }
   if (request.kind === "view") return { id: request.id, view: buildViewModel(analysis, request.view) };
-  return { id: request.id, analysis };
+  return { id: request.id, analysis: serverCopy(analysis) };
 }
 
 parentPort?.postMessage({ ready: true } satisfies WorkerReply);

@@ -19,6 +19,7 @@ export type WorkerReply =
   /** Sent once the worker has loaded (and built its parser): before that it cannot look at a
    * cancel flag, and its slowness is not a hang. */
   | { ready: true }
+  /** The server's copy (server-copy.ts): each pose of the sweep keeps its angles and hand forces. */
   | { id: number; analysis: Analysis }
   | { id: number; view: ViewModel }
   | { id: number; error: string };
