@@ -71,7 +71,10 @@ export function runCostBench(log: Log, root: string): boolean {
   const t60 = leastCpuMs(() => analyse(chain(60)), 3);
   const t120 = leastCpuMs(() => analyse(chain(120)), 2);
   const exponent = Math.log(t120 / t60) / Math.log(2);
-  say(t60 <= COST_TARGETS.chain60Ms, `60-body chain, warm: ${t60.toFixed(0)} ms (target <= ${COST_TARGETS.chain60Ms})`);
+  say(
+    t60 <= COST_TARGETS.chain60Ms,
+    `60-body chain, warm: ${t60.toFixed(0)} ms (target <= ${COST_TARGETS.chain60Ms})`,
+  );
   say(
     t120 <= COST_TARGETS.chain120Ms,
     `120-body chain, warm: ${t120.toFixed(0)} ms (target <= ${COST_TARGETS.chain120Ms})`,
@@ -96,9 +99,10 @@ export function runCostBench(log: Log, root: string): boolean {
   constraintJacobianInto(cs, jac);
   const lu = new SparseLu(cs.n);
   const reps = 2000;
-  const factorMs = leastCpuMs(() => {
-    for (let r = 0; r < reps; r++) lu.factor(jac);
-  }, 3) / reps;
+  const factorMs =
+    leastCpuMs(() => {
+      for (let r = 0; r < reps; r++) lu.factor(jac);
+    }, 3) / reps;
   const ratio = sweepMs / poses / factorMs;
   say(
     ratio <= COST_TARGETS.poseOverSparseFactor,

@@ -42,14 +42,22 @@ const badFrame: fc.Arbitrary<Buffer> = fc.oneof(
   // Header lines without a colon, or of any text.
   noiseText.map((t) => Buffer.from(`${t}\r\nContent-Length: ${goodBody.length}\r\n\r\n${goodBody}`)),
   // A length that runs short or long of the body.
-  fc.integer({ min: -goodBody.length, max: OVERRUN_MAX }).map((d) =>
-    Buffer.from(`Content-Length: ${Math.max(0, goodBody.length + d)}\r\n\r\n${goodBody}`),
-  ),
+  fc
+    .integer({ min: -goodBody.length, max: OVERRUN_MAX })
+    .map((d) => Buffer.from(`Content-Length: ${Math.max(0, goodBody.length + d)}\r\n\r\n${goodBody}`)),
   // Bodies that are not JSON, or JSON that is no message, at their right length.
   fc
     .oneof(
       fc.string({ maxLength: 120 }),
-      fc.constantFrom("[]", "1", '"x"', "null", '{"jsonrpc":"2.0"}', '{"id":5}', '{"jsonrpc":"2.0","id":{},"method":7}'),
+      fc.constantFrom(
+        "[]",
+        "1",
+        '"x"',
+        "null",
+        '{"jsonrpc":"2.0"}',
+        '{"id":5}',
+        '{"jsonrpc":"2.0","id":{},"method":7}',
+      ),
       fc.json({ maxDepth: 3 }),
     )
     .map((body) => {
@@ -87,10 +95,15 @@ describe("fuzzing the message stream", () => {
         const ids = Array.from({ length: REQUESTS_AFTER }, () => nextId++);
         server.send(Buffer.concat([frame, ...ids.map((id) => Buffer.from(server.hover(id)))]));
         let timer: ReturnType<typeof setTimeout> | undefined;
-        const deaf = new Promise<undefined>((resolve) => (timer = setTimeout(() => resolve(undefined), DEAF_AFTER_MS)));
+        const deaf = new Promise<undefined>(
+          (resolve) => (timer = setTimeout(() => resolve(undefined), DEAF_AFTER_MS)),
+        );
         const answer = await Promise.race([server.replyToAny(ids), deaf]);
         clearTimeout(timer);
-        expect(answer, `no answer to the ${REQUESTS_AFTER} requests after ${JSON.stringify(frame.toString("latin1"))}`).toHaveProperty("result");
+        expect(
+          answer,
+          `no answer to the ${REQUESTS_AFTER} requests after ${JSON.stringify(frame.toString("latin1"))}`,
+        ).toHaveProperty("result");
         expect(server.exited).toBeUndefined();
       }),
       { numRuns: FRAMES, seed: SEED, endOnFailure: true },

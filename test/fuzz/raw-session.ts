@@ -48,7 +48,9 @@ export class RawSession {
   /** The first reply to any of these ids. */
   replyToAny(ids: number[]) {
     const wanted = new Set(ids);
-    return this.next((m) => typeof m["id"] === "number" && wanted.has(m["id"]) && ("result" in m || "error" in m));
+    return this.next(
+      (m) => typeof m["id"] === "number" && wanted.has(m["id"]) && ("result" in m || "error" in m),
+    );
   }
 
   logged(pattern: RegExp) {
