@@ -431,6 +431,33 @@ async function drawing() {
   );
 }
 
+/** In a page or frame: the flag labels of the drawing, and every pair of text boxes of one svg
+ * that intersect or a box that leaves its svg (half a pixel of slack for anti-aliasing). */
+async function labelReport(frame) {
+  return frame.evaluate(() => {
+    const clashes = [];
+    const e = 0.5;
+    document.querySelectorAll("svg").forEach((svg, i) => {
+      const f = svg.getBoundingClientRect();
+      const texts = [...svg.querySelectorAll("text")].map((t) => ({
+        t: t.textContent,
+        b: t.getBoundingClientRect(),
+      }));
+      for (const { t, b } of texts)
+        if (b.left < f.left - e || b.top < f.top - e || b.right > f.right + e || b.bottom > f.bottom + e)
+          clashes.push(`svg ${i}: "${t}" leaves it`);
+      for (let m = 0; m < texts.length; m++)
+        for (let n = m + 1; n < texts.length; n++) {
+          const [a, b] = [texts[m].b, texts[n].b];
+          if (a.left < b.right - e && b.left < a.right - e && a.top < b.bottom - e && b.top < a.bottom - e)
+            clashes.push(`svg ${i}: "${texts[m].t}" on "${texts[n].t}"`);
+        }
+    });
+    const flags = [...document.querySelectorAll("svg.arm-drawing .flag-label")].map((x) => x.textContent);
+    return { clashes, flags };
+  });
+}
+
 async function typing() {
   // Typing a stiffer rate unbalances the arm, live: the editor shows what `poise check` says of
   // the edited text; undo brings the clean state back.
@@ -461,6 +488,17 @@ async function typing() {
     status.startsWith(`${errors} error(s)`),
     "typing: the drawing panel follows the edit",
     `panel status "${status}"; poise check of the edited text: ${errors} error(s)`,
+  );
+  // Its labels as VS Code's webview lays them out: the failing spring's flag names the trouble in
+  // words, and no label overlaps another or leaves its figure.
+  const panel = await webviewFrame("#status");
+  const labels = panel ? await labelReport(panel) : { clashes: ["no panel"], flags: [] };
+  verdict(
+    labels.clashes.length === 0 &&
+      labels.flags.length > 0 &&
+      labels.flags.every((t) => !/\b[a-z]+\.[a-z-]+\b/.test(t)),
+    "typing: the drawing's flags name the trouble in words, and no label overlaps another or leaves its figure",
+    `flags ${JSON.stringify(labels.flags)}; clashes ${JSON.stringify(labels.clashes.slice(0, 4))}`,
   );
   await shot("07-typing-unbalanced");
   await focusEditor();
