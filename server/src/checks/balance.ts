@@ -10,6 +10,7 @@ import { finding, type RelatedInfo } from "../findings/finding";
 import { addFigures, type Figure } from "./readout";
 import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics/spring-fit";
 import { atJoint, springKind } from "../model/spring-kinds";
+import { signedHandForce } from "../mechanics/hand-force";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
 import { formatResult } from "../units/format";
 import type { DimensionName } from "../units/dimension";
@@ -211,12 +212,16 @@ function driftChecks(ctx: CheckContext): void {
     const joint = model.joints.find((j) => j.id === dof.jointId);
     if (!joint || joint.friction === undefined) continue;
     const friction = joint.friction;
-    const drifting = new Set<number>();
+    // The largest holding torque past friction at each angle of the dof (over the other dofs and
+    // the load cases), signed: each run says its own way of turning.
+    const drifting = new Map<number, number>();
     let worst = 0;
     for (const pose of sweep.poses) {
       for (const c of pose.cases) {
         const t = c.holdingTorque[dof.id] ?? 0;
-        if (Math.abs(t) > friction) drifting.add(pose.angles[dof.id]!);
+        const angle = pose.angles[dof.id]!;
+        if (Math.abs(t) > friction && !(Math.abs(drifting.get(angle) ?? 0) >= Math.abs(t)))
+          drifting.set(angle, t);
         if (Math.abs(t) > Math.abs(worst)) worst = t;
       }
     }
@@ -225,16 +230,35 @@ function driftChecks(ctx: CheckContext): void {
       sweep.poses.map((p) => p.angles[dof.id]!),
       (v) => drifting.has(v),
     );
-    const words = runs
-      .map(([a, b]) => (a === b ? formatAngle(a) : `${formatAngle(a)} .. ${formatAngle(b)}`))
-      .join(", ");
-    const turn = worst > 0 ? "clockwise" : "counter-clockwise";
+    const runTorque = runs.map(([a, b]) => {
+      let most = 0;
+      for (const [angle, t] of drifting)
+        if (angle >= a && angle <= b && Math.abs(t) > Math.abs(most)) most = t;
+      return most;
+    });
+    // A positive holding torque is what the hand must add counter-clockwise: without it the arm
+    // turns clockwise.
+    const turn = (t: number) => (t > 0 ? "clockwise" : "counter-clockwise");
+    const span = ([a, b]: [number, number]) =>
+      a === b ? formatAngle(a) : `${formatAngle(a)} .. ${formatAngle(b)}`;
+    const oneWay = runTorque.every((t) => Math.sign(t) === Math.sign(runTorque[0]!));
+    const how = oneWay
+      ? `so it turns ${turn(worst)} on its own`
+      : `so it turns on its own: ${runs.map((r, i) => `${turn(runTorque[i]!)} over ${span(r)}`).join(", ")}`;
     ctx.findings.push(
       finding(
         "balance.drifts",
         joint.origin.properties["friction"] ?? joint.origin.name ?? joint.origin.declaration,
-        `${isStage(model, joint.id) ? "parallelogram" : "joint"} ${joint.id} does not hold over ${words}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, so it turns ${turn} on its own.`,
-        { data: { subject: joint.id, ranges: runs, worstHoldingTorque: worst, friction } },
+        `${isStage(model, joint.id) ? "parallelogram" : "joint"} ${joint.id} does not hold over ${runs.map(span).join(", ")}${sweep.dofs.length > 1 && sweep.grid ? " (for some position of the other joints)" : ""}: the holding torque reaches ${formatTorque(Math.abs(worst))} against friction of ${formatTorque(friction)}, ${how}.`,
+        {
+          data: {
+            subject: joint.id,
+            ranges: runs,
+            turns: runTorque.map(turn),
+            worstHoldingTorque: worst,
+            friction,
+          },
+        },
       ),
     );
   }
@@ -375,7 +399,7 @@ function springReadouts(ctx: CheckContext, fitOf: (id: string) => SpringFit | un
         dimension: "force",
       });
       notes.push(
-        "Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is (nested golden-section search; the hand force is affine in them where the spring is taut).",
+        "Best fit: the settings that minimise the worst hand force over the whole range and every load case, with the spring where it is and the pivots' friction holding what it can (nested golden-section search; the holding torques are affine in them where the spring is taut).",
       );
     }
     notes.push(...kind.cautions);
@@ -402,19 +426,22 @@ function payloadReadouts(ctx: CheckContext): void {
           });
       }
     }
+    // Signed: positive where the arm sinks (the hand lifts), negative where it rises; the hand
+    // supplies only what the pivots' friction does not hold.
     let lo: { v: number; pose: Pose; ci: number } | undefined;
     let hi: { v: number; pose: Pose; ci: number } | undefined;
     for (const pose of sweep.poses) {
       pose.cases.forEach((c, ci) => {
-        const v = c.handForce[p.id];
-        if (v === undefined) return;
+        const vec = c.handForceVector?.[p.id];
+        if (!vec) return;
+        const v = signedHandForce(vec);
         if (!lo || v < lo.v) lo = { v, pose, ci };
         if (!hi || v > hi.v) hi = { v, pose, ci };
       });
     }
     if (lo && hi)
       figures.push({
-        label: "hand force range",
+        label: "hand force range, beyond friction (+ the arm sinks, - it rises)",
         value: lo.v,
         high: hi.v,
         dimension: "force",
@@ -422,7 +449,7 @@ function payloadReadouts(ctx: CheckContext): void {
           key: "hand_force",
           limit: model.require.balance.byPayload[p.id] ?? model.require.balance.default,
         },
-        where: `most ${poseWhere(sweep, hi.pose, hi.ci)}`,
+        where: `least ${poseWhere(sweep, lo.pose, lo.ci)}; greatest ${poseWhere(sweep, hi.pose, hi.ci)}`,
       });
     if (figures.length > 0) addFigures(ctx.readouts, p.id, "payload", figures);
   }

@@ -104,6 +104,8 @@ export interface UnbalancedData extends AboutPart {
 export interface DriftsData extends AboutPart {
   /** Runs of the dof's angle, rad, where the arm turns on its own. */
   ranges: [number, number][];
+  /** Which way it turns over each run (seen with the arm's plane as drawn: x right, y up). */
+  turns?: ("clockwise" | "counter-clockwise")[];
   /** Largest holding torque (signed, counter-clockwise positive) and the friction, N*m. */
   worstHoldingTorque: number;
   friction: number;

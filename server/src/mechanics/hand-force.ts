@@ -8,6 +8,9 @@
 // without bound (a push at the tip cannot stop an elbow folding); there the weak direction is
 // damped (its eigenvalue of J J^T floored), so the figure stays a measure of effort. Several
 // payloads: each one's hand force is computed alone, as if the hand held the arm only there.
+// Friction: a pivot's friction holds up to its torque either way, so the hand supplies only the
+// holding torque beyond it (torqueBeyondFriction), and the hand force is signed by whether the
+// arm sinks (the hand lifts: positive) or rises (the hand pushes down: negative).
 import type { Vec2 } from "../model/types";
 
 /** Eigenvalues of J J^T below this fraction of the largest count as zero: directions in which
@@ -71,4 +74,27 @@ export function handForceVector(
     fy += p2 * e2y;
   }
   return { x: fx, y: fy };
+}
+
+/** The part of each dof's holding torque that its pivot's friction does not hold:
+ * sign(tau) max(0, |tau| - friction) (friction holds up to its torque in either direction). */
+export function torqueBeyondFriction(
+  holdingTorque: ArrayLike<number>,
+  friction: ArrayLike<number>,
+  out: Float64Array,
+  dofCount: number,
+): Float64Array {
+  for (let d = 0; d < dofCount; d++) {
+    const t = holdingTorque[d]!;
+    const f = friction[d]!;
+    out[d] = t > f ? t - f : t < -f ? t + f : 0;
+  }
+  return out;
+}
+
+/** The hand force signed by what the arm does without it: positive where it sinks (the hand
+ * lifts, the force points up), negative where it rises; its size is |F|. */
+export function signedHandForce(vector: Vec2): number {
+  const size = Math.hypot(vector.x, vector.y);
+  return vector.y < 0 ? -size : size;
 }

@@ -17,7 +17,7 @@ import {
   type SparseJacobian,
 } from "./constraints";
 import { springTension, torsionSpringTorque } from "./forces";
-import { handForceVector } from "./hand-force";
+import { handForceVector, torqueBeyondFriction } from "./hand-force";
 import { wrapNear } from "./joint-graph";
 import type { Linkage } from "./linkage";
 import { pastDeadline } from "../stop";
@@ -99,6 +99,9 @@ export class PoseSolver {
   /** Body index of each payload (-1 base, -2 a body the base does not reach). */
   private readonly payloadBody: Int32Array;
   private readonly tau: Float64Array;
+  /** Each dof's pivot friction, N*m, and its holding torque beyond it (what the hand supplies). */
+  private readonly friction: Float64Array;
+  private readonly tauBeyond: Float64Array;
   /** Number of LU factorizations so far (for the benchmark). */
   factorizations = 0;
   /** Set when the last moveTo stopped at the deadline rather than at a lock. */
@@ -141,6 +144,11 @@ export class PoseSolver {
     this.payloadJ = this.model.payloads.map(() => new Float64Array(2 * Math.max(this.ndof, 1)));
     this.payloadBody = Int32Array.from(this.model.payloads, (p) => idx.get(p.body) ?? -2);
     this.tau = new Float64Array(Math.max(this.ndof, 1));
+    this.tauBeyond = new Float64Array(Math.max(this.ndof, 1));
+    this.friction = Float64Array.from(
+      linkage.dofs,
+      (d) => this.model.joints.find((j) => j.id === d.jointId)?.friction ?? 0,
+    );
     for (const s of this.model.springs) {
       if (atJoint(s)) {
         const joint = linkage.graph.joints.findIndex((j) => j.id === s.joint);
@@ -514,9 +522,10 @@ export class PoseSolver {
       });
       const handForce: Record<string, number> = {};
       const handForceVectorRec: Record<string, Vec2> = {};
+      const beyond = torqueBeyondFriction(tau, this.friction, this.tauBeyond, ndof);
       model.payloads.forEach((p, k) => {
         if (payloadBody[k]! < -1) return;
-        const f = handForceVector(payloadJ[k]!, tau, ndof);
+        const f = handForceVector(payloadJ[k]!, beyond, ndof);
         handForce[p.id] = Math.hypot(f.x, f.y);
         handForceVectorRec[p.id] = f;
       });

@@ -5,11 +5,15 @@
 // force over the range is convex. The minimax is found by nested golden-section search (outer:
 // the first parameter, inner: the second), on an active set of poses grown until it holds the
 // worst pose of the whole sweep (cutting planes), which keeps it cheap on big grids.
+// Friction: a pivot's friction holds up to its torque for free, so where a dof has friction the
+// hand force is that of the holding torque beyond it (hand-force.ts), no longer affine in the
+// settings: each sample then keeps its holding torques and their change per unit of spring force,
+// and the search evaluates the torque beyond friction (still the convex |tau| - f per dof).
 import type { ArmModel, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 import { springForceBasis, springParameters } from "./forces";
 import { atJoint, springKind } from "../model/spring-kinds";
-import { handForceVector } from "./hand-force";
+import { handForceVector, torqueBeyondFriction } from "./hand-force";
 import { rotate } from "./plane";
 import { pastDeadline } from "../stop";
 
@@ -38,11 +42,17 @@ export interface SpringFit {
 }
 
 /** Samples: per pose, case and payload, the hand force now (a), its change per unit of spring
- * force (b), the spring force now and the basis of the force in the parameters. */
+ * force (b), the spring force now and the basis of the force in the parameters (without
+ * friction: the hand force is a + b (c0 p0 + c1 p1 - force)). With friction on some dof, also per
+ * sample (`torques`, FRICTION_WIDTH(ndof) numbers): the hand force per unit holding torque of each
+ * dof (P, 2 x ndof), the holding torques now and their change per unit of spring force. */
 interface FitSamples {
   count: number;
   data: Float64Array; // ax ay bx by force c0 c1 per sample
+  friction?: { ndof: number; perDof: Float64Array; torques: Float64Array };
 }
+
+const frictionWidth = (ndof: number) => 4 * ndof;
 
 /** The spring's wind-up from free (torsion: its joint, looked up once) or its length at a pose. */
 function springTurnOrLength(model: ArmModel, s: Spring): (pose: Pose) => number {
@@ -56,6 +66,14 @@ function springTurnOrLength(model: ArmModel, s: Spring): (pose: Pose) => number 
 function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamples {
   const ndof = sweep.dofs.length;
   const dofIds = sweep.dofs.map((d) => d.id);
+  const perDof = Float64Array.from(
+    sweep.dofs,
+    (d) => model.joints.find((j) => j.id === d.jointId)?.friction ?? 0,
+  );
+  const withFriction = perDof.some((f) => f > 0);
+  const fw = frictionWidth(ndof);
+  let torques = new Float64Array(withFriction ? fw * 64 : 0);
+  const unitTorque = new Float64Array(Math.max(ndof, 1));
   let rows = new Float64Array(7 * 64);
   let count = 0;
   const jac = new Float64Array(2 * Math.max(ndof, 1));
@@ -76,14 +94,38 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
         jac[2 * i + 1] = v?.y ?? 0;
       }
       const b = handForceVector(jac, g, ndof);
+      // Hand force per unit holding torque of each dof (hand-force.ts is linear in the torques).
+      const P: Vec2[] = [];
+      if (withFriction)
+        for (let i = 0; i < ndof; i++) {
+          unitTorque.fill(0);
+          unitTorque[i] = 1;
+          P.push(handForceVector(jac, unitTorque, ndof));
+        }
       for (const c of pose.cases) {
-        const a = c.handForceVector?.[p.id];
         const force = c.springForce[s.id];
-        if (!a || force === undefined) continue;
+        if (!c.handForceVector?.[p.id] || force === undefined) continue;
+        // Without friction the sweep's hand force is the affine part; with friction it is not,
+        // and the affine part (for the least-squares bracket) is taken from the raw torques.
+        const a = withFriction ? affinePart(P, dofIds, c.holdingTorque) : c.handForceVector[p.id]!;
         if (rows.length < 7 * (count + 1)) {
           const grown = new Float64Array(2 * rows.length);
           grown.set(rows);
           rows = grown;
+          if (withFriction) {
+            const t = new Float64Array(2 * torques.length);
+            t.set(torques);
+            torques = t;
+          }
+        }
+        if (withFriction) {
+          const t = fw * count;
+          for (let i = 0; i < ndof; i++) {
+            torques[t + i] = P[i]!.x;
+            torques[t + ndof + i] = P[i]!.y;
+            torques[t + 2 * ndof + i] = c.holdingTorque[dofIds[i]!] ?? 0;
+            torques[t + 3 * ndof + i] = g[i]!;
+          }
         }
         const o = 7 * count++;
         rows[o] = a.x;
@@ -96,10 +138,57 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
       }
     }
   }
-  return { count, data: rows.subarray(0, 7 * count) };
+  return {
+    count,
+    data: rows.subarray(0, 7 * count),
+    ...(withFriction ? { friction: { ndof, perDof, torques: torques.subarray(0, fw * count) } } : {}),
+  };
 }
 
-function handAt(d: Float64Array, i: number, p0: number, p1: number): number {
+/** The hand force of the raw holding torques (no friction), from the per-torque columns. */
+function affinePart(P: Vec2[], dofIds: string[], holdingTorque: Record<string, number>): Vec2 {
+  let x = 0;
+  let y = 0;
+  P.forEach((col, i) => {
+    const t = holdingTorque[dofIds[i]!] ?? 0;
+    x += col.x * t;
+    y += col.y * t;
+  });
+  return { x, y };
+}
+
+/** Scratch for the torques beyond friction of one sample (the search is single-threaded). */
+let beyondScratch = new Float64Array(8);
+let torqueScratch = new Float64Array(8);
+
+/** The hand force of sample `i` with friction: torques tau0 + g df, each beyond its pivot's
+ * friction, through P. */
+function handAtWithFriction(s: NonNullable<FitSamples["friction"]>, i: number, df: number): number {
+  const n = s.ndof;
+  if (torqueScratch.length < n)
+    ((torqueScratch = new Float64Array(n)), (beyondScratch = new Float64Array(n)));
+  const t = frictionWidth(n) * i;
+  const T = s.torques;
+  for (let d = 0; d < n; d++) torqueScratch[d] = T[t + 2 * n + d]! + T[t + 3 * n + d]! * df;
+  torqueBeyondFriction(torqueScratch, s.perDof, beyondScratch, n);
+  let x = 0;
+  let y = 0;
+  for (let d = 0; d < n; d++) {
+    x += T[t + d]! * beyondScratch[d]!;
+    y += T[t + n + d]! * beyondScratch[d]!;
+  }
+  return Math.hypot(x, y);
+}
+
+function handAt(s: FitSamples, i: number, p0: number, p1: number): number {
+  if (!s.friction) return affineHandAt(s.data, i, p0, p1);
+  const d = s.data;
+  const o = 7 * i;
+  return handAtWithFriction(s.friction, i, d[o + 5]! * p0 + d[o + 6]! * p1 - d[o + 4]!);
+}
+
+/** The hand force a + b df of sample i, without friction. */
+function affineHandAt(d: Float64Array, i: number, p0: number, p1: number): number {
   const o = 7 * i;
   const df = d[o + 5]! * p0 + d[o + 6]! * p1 - d[o + 4]!;
   return Math.hypot(d[o]! + d[o + 2]! * df, d[o + 1]! + d[o + 3]! * df);
@@ -117,7 +206,33 @@ const SQUARE_MARGIN = 1e-12;
 
 /** The worst hand force over the first `count` samples of `d`: exactly the largest handAt (its
  * Math.hypot), found by ranking squares first and calling hypot only near the top. */
-function worstOf(d: Float64Array, count: number, p0: number, p1: number): number {
+function worstOf(s: FitSamples, p0: number, p1: number): number {
+  const { data: d, count } = s;
+  if (s.friction) {
+    let w = 0;
+    for (let i = 0; i < count; i++) w = Math.max(w, handAt(s, i, p0, p1));
+    return w;
+  }
+  return worstWithoutFriction(s, p0, p1);
+}
+
+/** What the search minimises: the worst hand force, and with friction a small share of the worst
+ * hand force friction did not help with, so that among the settings friction holds everywhere
+ * (often a whole band of them) the search takes the one nearest a balance without friction:
+ * friction wears and varies, and that setting leaves it the most margin. */
+function objective(s: FitSamples, p0: number, p1: number): number {
+  const w = worstOf(s, p0, p1);
+  return s.friction ? w + FRICTION_TIE_BREAK * worstWithoutFriction(s, p0, p1) : w;
+}
+
+/** The share of the frictionless worst added to the objective with friction: small enough to
+ * move the worst hand force with friction by a thousandth at most, large enough to pick a point
+ * inside a band where friction holds everything (common practice, no source). */
+const FRICTION_TIE_BREAK = 1e-3;
+
+/** The worst hand force of the affine parts a + b df (no friction). */
+function worstWithoutFriction(s: FitSamples, p0: number, p1: number): number {
+  const { data: d, count } = s;
   if (squares.length < count) squares = new Float64Array(2 * count);
   const sq = squares;
   let top = 0;
@@ -133,7 +248,7 @@ function worstOf(d: Float64Array, count: number, p0: number, p1: number): number
   let w = 0;
   if (!(top > SQUARE_FLOOR && top < Infinity)) {
     for (let i = 0; i < count; i++) {
-      const v = handAt(d, i, p0, p1);
+      const v = affineHandAt(d, i, p0, p1);
       if (v > w) w = v;
     }
     return w;
@@ -141,23 +256,30 @@ function worstOf(d: Float64Array, count: number, p0: number, p1: number): number
   const threshold = top * (1 - SQUARE_MARGIN);
   for (let i = 0; i < count; i++) {
     if (!(sq[i]! >= threshold)) continue;
-    const v = handAt(d, i, p0, p1);
+    const v = affineHandAt(d, i, p0, p1);
     if (v > w) w = v;
   }
   return w;
 }
 
-/** The samples `idx` of `d`, copied next to each other (the active set, scanned many times). */
-function gather(d: Float64Array, idx: ArrayLike<number>): Float64Array {
+/** The samples `idx`, copied next to each other (the active set, scanned many times). */
+function gather(s: FitSamples, idx: ArrayLike<number>): FitSamples {
+  const d = s.data;
   const out = new Float64Array(7 * idx.length);
   for (let k = 0; k < idx.length; k++) out.set(d.subarray(7 * idx[k]!, 7 * idx[k]! + 7), 7 * k);
-  return out;
+  if (!s.friction) return { count: idx.length, data: out };
+  const fw = frictionWidth(s.friction.ndof);
+  const torques = new Float64Array(fw * idx.length);
+  for (let k = 0; k < idx.length; k++)
+    torques.set(s.friction.torques.subarray(fw * idx[k]!, fw * idx[k]! + fw), fw * k);
+  return { count: idx.length, data: out, friction: { ...s.friction, torques } };
 }
 
 /** Sample indices, worst hand force first. */
-function worstFirst(d: Float64Array, count: number, p0: number, p1: number): number[] {
+function worstFirst(s: FitSamples, p0: number, p1: number): number[] {
+  const count = s.count;
   const v = new Float64Array(count);
-  for (let i = 0; i < count; i++) v[i] = handAt(d, i, p0, p1);
+  for (let i = 0; i < count; i++) v[i] = handAt(s, i, p0, p1);
   return Array.from({ length: count }, (_, i) => i).sort((i, j) => v[j]! - v[i]!);
 }
 
@@ -229,7 +351,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const count = samples.count;
   const two = params.names[1] !== undefined;
   const [c0, c1] = params.values;
-  const before = worstOf(d, count, c0, c1);
+  const before = worstOf(samples, c0, c1);
   const [e0, e1] = leastSquares(d, count, two);
   const hi0 = 3 * Math.max(Math.abs(e0), Math.abs(c0), 1e-9);
   const span1 = 3 * Math.max(Math.abs(e1), Math.abs(c1), 1e-9);
@@ -238,24 +360,24 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const hi1 = span1;
 
   // Active set: the worst poses now, plus an even spread.
-  const active = new Set<number>(worstFirst(d, count, c0, c1).slice(0, ACTIVE_SEED));
+  const active = new Set<number>(worstFirst(samples, c0, c1).slice(0, ACTIVE_SEED));
   const stride = Math.max(1, Math.floor(count / ACTIVE_SEED));
   for (let i = 0; i < count; i += stride) active.add(i);
   let best: [number, number] = [c0, c1];
   for (let round = 0; round < ACTIVE_ROUNDS; round++) {
     if (pastDeadline()) return undefined; // out of budget or cancelled: no fit offered
-    const act = gather(d, Int32Array.from(active));
-    const n = active.size;
-    const inner = (p0: number): number => (two ? golden((p1) => worstOf(act, n, p0, p1), lo1, hi1) : 0);
-    const p0 = golden((x) => worstOf(act, n, x, inner(x)), 0, hi0);
+    const act = gather(samples, Int32Array.from(active));
+    const inner = (p0: number): number => (two ? golden((p1) => objective(act, p0, p1), lo1, hi1) : 0);
+    const p0 = golden((x) => objective(act, x, inner(x)), 0, hi0);
     best = [p0, inner(p0)];
-    const activeWorst = worstOf(act, n, best[0], best[1]);
-    const fullWorst = worstOf(d, count, best[0], best[1]);
+    const activeWorst = worstOf(act, best[0], best[1]);
+    const fullWorst = worstOf(samples, best[0], best[1]);
     if (fullWorst <= activeWorst * (1 + 1e-9) + 1e-12) break;
-    for (const i of worstFirst(d, count, best[0], best[1]).slice(0, ACTIVE_ADD)) active.add(i);
+    for (const i of worstFirst(samples, best[0], best[1]).slice(0, ACTIVE_ADD)) active.add(i);
   }
-  let after = worstOf(d, count, best[0], best[1]);
-  if (after > before) {
+  let after = worstOf(samples, best[0], best[1]);
+  // No better than the settings as written (friction may already hold everything): keep them.
+  if (after > before || (samples.friction && after >= before)) {
     best = [c0, c1];
     after = before;
   }

@@ -39,7 +39,8 @@ export interface PoseStatics {
   /** Torque a hand or brake must apply at each degree of freedom to hold the pose, N*m, CCW
    * positive (applied to the child relative to the parent), by dof id. */
   holdingTorque: Record<string, number>;
-  /** Least force at each payload's centre that holds the pose, N, by payload id. */
+  /** Least force at each payload's centre that holds the pose, with each pivot's friction holding
+   * what it can (the holding torque beyond friction), N, by payload id. */
   handForce: Record<string, number>;
   /** Force the parent exerts on the child at each joint, world, N, by joint id. */
   reactions: Record<string, Vec2>;

@@ -1,0 +1,148 @@
+// Hand force beyond friction, signed (issue 10 item 4): the hand supplies only the holding torque
+// a pivot's friction does not hold, and the force says whether the arm sinks (+) or rises (-).
+// Checked on a pivoting link with a real extension spring against references.md's closed form
+// (gravity balancing: tau(theta) = m g l cos(theta) - (Fi + k (L - L0)) a b cos(theta) / L,
+// L = sqrt(a^2 + b^2 - 2 a b sin(theta)); Herder 2001), with Coulomb friction holding up to f
+// either way (common statics). The drift finding names each run's own direction.
+import { describe, expect, it } from "vitest";
+import { analyse } from "../../server/src/analysis";
+import { buildResults } from "../../server/src/checks/results";
+import { isCode } from "../../server/src/findings/finding";
+import { bestSpringFit } from "../../server/src/mechanics/spring-fit";
+
+const G = 9.80665; // standard gravity (SI Brochure, 9th ed.)
+const [m, l, a, b] = [1, 0.4, 0.05, 0.1];
+// Under-balanced low in the range and over-balanced high: with C = Fi - k L0 > 0 the spring's
+// F / L = k + C / L grows as it shortens; k a b is set so the two cancel at the horizontal.
+const C = 20;
+const L0 = 0.03;
+const k = (m * G * l - (C * a * b) / Math.hypot(a, b)) / (a * b);
+const Fi = C + k * L0;
+const friction = 0.05;
+
+const spec = `# Invented: a lamp boom whose spring holds it level but lets it sink low and rise high (issue 10 item 4).
+arm "Boom with a stiff pivot" {
+  base post {
+    mass 20 kg
+    footprint 400 mm x 400 mm
+    point pivot (0 mm, 300 mm)
+    point anchor (0 mm, ${300 + a * 1000} mm)
+  }
+  link boom {
+    length ${l * 1000} mm
+    mass 0 g
+  }
+  joint shoulder {
+    connects post.pivot to boom.start
+    angle 0 deg
+    range -60 deg .. 60 deg
+    friction ${friction} N*m
+  }
+  spring lift {
+    extension
+    between post.anchor and boom(${b * 1000} mm, 0 mm)
+    rate ${k / 1000} N/mm
+    free_length ${L0 * 1000} mm
+    initial_tension ${Fi} N
+  }
+  payload lamp {
+    mass ${m} kg
+    at boom.end
+  }
+  require {
+    balance 5 N
+  }
+}
+`;
+
+/** Holding torque of the pivoting link at theta (references.md, gravity balancing). */
+function holdingTorque(theta: number): number {
+  const L = Math.sqrt(a * a + b * b - 2 * a * b * Math.sin(theta));
+  return m * G * l * Math.cos(theta) - ((Fi + k * (L - L0)) * a * b * Math.cos(theta)) / L;
+}
+
+/** Coulomb friction holds up to f either way; the rest goes to the hand, at the payload's lever
+ * l: |F| = max(0, |tau| - f) / l, and F_y has the sign of tau cos(theta) (the link points right,
+ * so tau > 0 means the arm sinks and the hand lifts). */
+function signedHandForce(theta: number): number {
+  const tau = holdingTorque(theta);
+  return (Math.sign(tau) * Math.max(0, Math.abs(tau) - friction)) / l;
+}
+
+describe("a pivoting link with friction that sinks low and rises high", () => {
+  const analysis = analyse(spec);
+  const angles = analysis.sweep!.poses.map((p) => p.angles["shoulder"]!);
+
+  it("holds torques as the closed form gives them", () => {
+    for (const pose of analysis.sweep!.poses)
+      // references.md, gravity balancing (Herder 2001)
+      expect(pose.cases[0]!.holdingTorque["shoulder"]).toBeCloseTo(
+        holdingTorque(pose.angles["shoulder"]!),
+        9,
+      );
+  });
+
+  it("gives the hand force beyond friction, signed, and both ends of its range", () => {
+    for (const pose of analysis.sweep!.poses) {
+      const theta = pose.angles["shoulder"]!;
+      // Coulomb friction on the pivot, then statics at the payload (above)
+      expect(pose.cases[0]!.handForce["lamp"]).toBeCloseTo(Math.abs(signedHandForce(theta)), 9);
+    }
+    const expected = angles.map(signedHandForce);
+    const least = Math.min(...expected);
+    const greatest = Math.max(...expected);
+    expect(least).toBeLessThan(0); // it rises somewhere...
+    expect(greatest).toBeGreaterThan(0); // ...and sinks elsewhere
+    const fig = analysis.readouts["lamp"]!.figures.find((f) => f.result?.key === "hand_force")!;
+    expect(fig.value).toBeCloseTo(least, 9);
+    expect(fig.high).toBeCloseTo(greatest, 9);
+    const record = buildResults(analysis);
+    expect(record.sections["payloads"]!["lamp"]!["hand_force"]).toMatchObject({
+      value: fig.value,
+      high: fig.high,
+    });
+  });
+
+  it("says each run of the drift turns its own way", () => {
+    const f = analysis.findings.find(isCode("balance.drifts"))!;
+    // Low in the range tau > f: the hand must add counter-clockwise torque, so the arm turns
+    // clockwise (sinks); high in the range tau < -f: it turns counter-clockwise (rises).
+    expect(f.data.turns).toEqual(["clockwise", "counter-clockwise"]);
+    expect(f.message).toMatch(
+      /clockwise over -60 deg \.\. -?[\d.]+ deg, counter-clockwise over -?[\d.]+ deg \.\. 60 deg/,
+    );
+    const [low, high] = f.data.ranges;
+    // Each run is where |tau| > f, on the swept angles
+    expect(angles.filter((t) => holdingTorque(t) > friction).every((t) => t >= low![0] && t <= low![1])).toBe(
+      true,
+    );
+    expect(
+      angles.filter((t) => holdingTorque(t) < -friction).every((t) => t >= high![0] && t <= high![1]),
+    ).toBe(true);
+  });
+});
+
+describe("the best fit counts friction as free", () => {
+  // Zero-length spring at half the ideal rate, friction f at the pivot: tau = (m g l - k a b)
+  // cos(theta) (Streit and Gilmore 1989). Any rate with |m g l - k a b| <= f holds the arm
+  // everywhere, so the best worst hand force is zero, where without friction it is not.
+  const f = 0.3;
+  const ideal = (m * G * l) / (a * b);
+  const text = spec
+    .replace(/extension\n/, "zero_length\n")
+    .replace(/rate [\d.e-]+ N\/mm/, `rate ${ideal / 2 / 1000} N/mm`)
+    .replace(/ *free_length .*\n/, "")
+    .replace(/ *initial_tension .*\n/, "")
+    .replace(/friction [\d.]+ N\*m/, `friction ${f} N*m`);
+  it("fits to zero hand force, from the closed form's before", () => {
+    const analysis = analyse(text);
+    const fit = bestSpringFit(analysis.model!, analysis.sweep!, "lift")!;
+    const angles = analysis.sweep!.poses.map((p) => p.angles["shoulder"]!);
+    // Before: max over the swept angles of (|m g l - k a b| cos(theta) - f) / l
+    const before = Math.max(
+      ...angles.map((t) => Math.max(0, (m * G * l - (ideal / 2) * a * b) * Math.cos(t) - f) / l),
+    );
+    expect(fit.worstHandForceBefore).toBeCloseTo(before, 9);
+    expect(fit.worstHandForceAfter).toBeLessThan(1e-6);
+  });
+});
