@@ -1,4 +1,4 @@
-// Balance checks and readouts against the published balancing conditions (references.md).
+// Balance checks and readouts against the published balancing conditions (docs/formulas.md).
 import { describe, expect, it } from "vitest";
 import type { ArmModel } from "../../server/src/model/types";
 import { solveSweep } from "../../server/src/mechanics/sweep";
@@ -41,11 +41,11 @@ describe("balance.unbalanced", () => {
     expect(f[0]!.message).toContain("sinks");
     expect(f[0]!.related.length).toBe(2);
     const data = f[0]!.data!;
-    // Herder 2001 (references.md): exact balance needs k a b = m g l and Fi = k L0
+    // Herder 2001 (docs/formulas.md): exact balance needs k a b = m g l and Fi = k L0
     expect(data.best!["rate"]!).toBeCloseTo(k, 2);
     expect(data.best!["initial_tension"]!).toBeCloseTo(k * L0, 3);
     expect(data["worstHandForceAfter"] as number).toBeLessThan(1e-4);
-    // Worst before: the largest residual torque over the range divided by the lever l (mechanics.md section 3)
+    // Worst before: the largest residual torque over the range divided by the lever l (docs/formulas.md, statics of the arm)
     const worstTau = Math.max(
       ...solveSweep(model).poses.map((p) => {
         const th = p.angles["shoulder"]!;
@@ -186,7 +186,7 @@ describe("readouts", () => {
       .build();
     const ctx = check(model);
     const ideal = ctx.readouts["lift"]!.figures.find((x) => x.label.startsWith("ideal rate"))!;
-    // Agrawal and Fattah 2004 (references.md worked value): k = 501.1 N/m with a = 0.05 m, b = 0.10 m
+    // Agrawal and Fattah 2004 (docs/formulas.md worked value): k = 501.1 N/m with a = 0.05 m, b = 0.10 m
     expect(ideal.value).toBeCloseTo(501.1, 1);
     expect(ctx.readouts["reach"]!.kind).toBe("parallelogram");
   });

@@ -1,4 +1,4 @@
-// Geometry checks: spring toggle (lever arm a b cos(theta) / L, references.md), slack extension
+// Geometry checks: spring toggle (lever arm a b cos(theta) / L, docs/formulas.md), slack extension
 // springs, parallelogram head tilt from unequal bars (loop closure solved here by bisection),
 // clearance between bodies and to the bench.
 import { describe, expect, it } from "vitest";
@@ -36,7 +36,7 @@ function springBoom(a: number, b: number, freeLength: number) {
 
 describe("spring toggle", () => {
   it("lever arm of a spring about the pivot", () => {
-    // references.md (gravity balancing): the lever arm is a b cos(theta) / L with
+    // docs/formulas.md (gravity balancing): the lever arm is a b cos(theta) / L with
     // L = sqrt(a^2 + b^2 - 2 a b sin(theta))
     const a = 0.05;
     const b = 0.1;
@@ -59,7 +59,7 @@ describe("spring toggle", () => {
     expect(f.span).toEqual(model.springs[0]!.origin.properties["between"]);
     const t = 1.55;
     const L = Math.sqrt(0.05 ** 2 + 0.1 ** 2 - 2 * 0.05 * 0.1 * Math.sin(t));
-    // references.md: lever arm a b cos(theta) / L at the worst pose
+    // docs/formulas.md: lever arm a b cos(theta) / L at the worst pose
     expect(f.data!["leverArm"]).toBeCloseTo((0.05 * 0.1 * Math.cos(t)) / L, 12);
     expect(f.message).toContain("shoulder 88.81 deg");
   });

@@ -1,6 +1,6 @@
 // Hand force beyond friction, signed (issue 10 item 4): the hand supplies only the holding torque
 // a pivot's friction does not hold, and the force says whether the arm sinks (+) or rises (-).
-// Checked on a pivoting link with a real extension spring against references.md's closed form
+// Checked on a pivoting link with a real extension spring against docs/formulas.md's closed form
 // (gravity balancing: tau(theta) = m g l cos(theta) - (Fi + k (L - L0)) a b cos(theta) / L,
 // L = sqrt(a^2 + b^2 - 2 a b sin(theta)); Herder 2001), with Coulomb friction holding up to f
 // either way (common statics). The drift finding names each run's own direction.
@@ -55,7 +55,7 @@ arm "Boom with a stiff pivot" {
 }
 `;
 
-/** Holding torque of the pivoting link at theta (references.md, gravity balancing). */
+/** Holding torque of the pivoting link at theta (docs/formulas.md, gravity balancing). */
 function holdingTorque(theta: number): number {
   const L = Math.sqrt(a * a + b * b - 2 * a * b * Math.sin(theta));
   return m * G * l * Math.cos(theta) - ((Fi + k * (L - L0)) * a * b * Math.cos(theta)) / L;
@@ -75,7 +75,7 @@ describe("a pivoting link with friction that sinks low and rises high", () => {
 
   it("holds torques as the closed form gives them", () => {
     for (const pose of analysis.sweep!.poses)
-      // references.md, gravity balancing (Herder 2001)
+      // docs/formulas.md, gravity balancing (Herder 2001)
       expect(pose.cases[0]!.holdingTorque["shoulder"]).toBeCloseTo(
         holdingTorque(pose.angles["shoulder"]!),
         9,

@@ -1,6 +1,6 @@
 // geometry.spring-leverage (issue 10 item 2): a spring nearly in line with its pivot pulls many
 // times the weight it balances. The force, the pin's load and the bar's compression are checked
-// against the pivoting-link geometry of references.md (Streit and Gilmore 1989; Herder 2001) and
+// against the pivoting-link geometry of docs/formulas.md (Streit and Gilmore 1989; Herder 2001) and
 // plain statics; the textbook balancer of the same references is not flagged.
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
@@ -19,7 +19,7 @@ describe("a zero-length spring anchored 3 mm above the pivot", () => {
 
   it("is flagged with its pull against the weight", () => {
     expect(f).toBeDefined();
-    // references.md, gravity balancing: spring length L = sqrt(a^2 + b^2 - 2 a b sin(theta)) with
+    // docs/formulas.md, gravity balancing: spring length L = sqrt(a^2 + b^2 - 2 a b sin(theta)) with
     // theta from the horizontal; a zero-length spring pulls F = k L, largest at the low end
     const L = (t: number) => Math.sqrt(a * a + b * b - 2 * a * b * Math.sin(t));
     const force = Math.max(...ends.map((t) => k * L(t)));
@@ -42,7 +42,7 @@ describe("a zero-length spring anchored 3 mm above the pivot", () => {
   });
 });
 
-it("leaves the textbook balancer alone (references.md worked example)", () => {
+it("leaves the textbook balancer alone (docs/formulas.md worked example)", () => {
   // m = 1 kg at l = 0.4 m, anchor a = 0.05 m above the pivot, hook b = 0.1 m along the link,
   // k a b = m g l (Streit and Gilmore 1989): it pulls at most k (a + b), about 12 times the weight
   const k = (1 * G * 0.4) / (0.05 * 0.1);

@@ -1,5 +1,5 @@
-// The stiffness check over a swivel's headings (mechanics.md section 10): the knuckle arm's payload
-// deflects most with the outer link turned across the boom (the L-frame of references.md), and
+// The stiffness check over a swivel's headings (docs/checks.md, Swivels): the knuckle arm's payload
+// deflects most with the outer link turned across the boom (the L-frame of docs/formulas.md), and
 // leans sideways by the boom's own bending slope, which at heading 0 is the in-plane tilt.
 import { describe, expect, it } from "vitest";
 import { checkStiffness } from "../../server/src/checks/stiffness";
@@ -19,7 +19,7 @@ describe("stiffness over a swivel's headings", () => {
     const model = knuckleArm([-90 * deg, 90 * deg]);
     model.require.deflection.default = 1e-5;
     const ctx = runFamily(checkStiffness, model, treeSweep(model, [{}]));
-    // references.md, L-frame: P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
+    // docs/formulas.md, L-frame: P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
     const lFrame = (P * L1 ** 3) / (3 * EI1) + (P * L2 ** 2 * L1) / GJ1 + (P * L2 ** 3) / (3 * EI2);
     // Roark 8th ed., table 8.1 cases 1a and 3a: the straight arm's tip drop
     const straight =

@@ -186,7 +186,7 @@ describe("parallelogram stage with its root held", () => {
       [a * s, b * s, a * s * s + 2 * t],
     ]);
     const sideways = Math.sqrt(1 / (2 * C[0]![0]!)) / (2 * Math.PI);
-    // in the plane (derived above): k = 3 E I / L^3 for the lower bar (references.md: mass on a
+    // in the plane (derived above): k = 3 E I / L^3 for the lower bar (docs/formulas.md: mass on a
     // spring) is far stiffer with the bars' depth in the plane
     const inPlane = Math.sqrt((3 * E * sp.secondMoment) / Lb ** 3 / 2) / (2 * Math.PI);
     expect(sideways).toBeLessThan(inPlane);

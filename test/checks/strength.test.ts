@@ -239,7 +239,7 @@ describe("hole bearing", () => {
     model.bodies[1]!.holeThickness = 0.003;
     const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
     const F = (50 + model.bodies[1]!.mass) * G;
-    // bearing stress F / (d t) (references.md: 500 N on 4 mm in a 3 mm plate gives 41.67 MPa)
+    // bearing stress F / (d t) (docs/formulas.md: 500 N on 4 mm in a 3 mm plate gives 41.67 MPa)
     expect(figure(ctx, "shoulder", "largest hole bearing stress")).toBeCloseTo(F / (0.004 * 0.003), 0);
     expect(500 / (0.004 * 0.003) / 1e6).toBeCloseTo(41.67, 2);
   });
@@ -344,7 +344,7 @@ describe("spring limits of the other kinds", () => {
 });
 
 describe("printed material without a layer strength", () => {
-  it("uses half the in-plane strength (references.md: 0.5, Ahn et al. 2002)", () => {
+  it("uses half the in-plane strength (docs/materials.md: 0.5, Ahn et al. 2002)", () => {
     const model = cantileverArm(1);
     model.materials = {
       ...model.materials,

@@ -1,4 +1,4 @@
-// Tipping by the moment balance about the footprint's edge (references.md worked example:
+// Tipping by the moment balance about the footprint's edge (docs/formulas.md worked example:
 // Meriam and Kraige, Statics, ch. 3), and the base's bearing loads.
 import { describe, expect, it } from "vitest";
 import { checkTipping } from "../../server/src/checks/tipping";

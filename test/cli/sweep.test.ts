@@ -47,7 +47,7 @@ describe("poise sweep", () => {
     expect(first.bodies["reach.lower"]!.x).toBeCloseTo(pivot.x, 3);
     expect(first.bodies["reach.lower"]!.y).toBeCloseTo(pivot.y, 3);
     expect(first.bodies["reach.lower"]!.angle).toBeCloseTo(low!, 3);
-    // The head of a parallelogram keeps the root's orientation (language.md).
+    // The head of a parallelogram keeps the root's orientation (docs/language.md).
     for (const p of table.poses) expect(p.bodies["reach.head"]!.angle).toBeCloseTo(0, 3);
     expect(Object.keys(first.holding_torque)).toEqual(["reach"]);
     expect(Object.keys(first.hand_force)).toEqual(["camera"]);

@@ -89,7 +89,7 @@ describe("completion", () => {
       expect.arrayContaining(["clamp", "lens_arm", "stage.lower", "stage.upper", "stage.head"]),
     );
     expect(at(inside("joint lens_tilt", "connects stage.head |"))).toEqual(["to"]);
-    // the child of a joint is never the base (language.md: the base is the fixed ground)
+    // the child of a joint is never the base (docs/language.md: the base is the fixed ground)
     const children = at(inside("joint lens_tilt", "connects stage.head to |"));
     expect(children).toContain("lens_arm");
     expect(children).not.toContain("clamp");

@@ -134,7 +134,7 @@ describe("formatting", () => {
   });
 
   it("caps the indent on deep nesting, so the output stays a small multiple of the input", () => {
-    // language.md: declarations sit in the arm and properties in a declaration, two levels; a
+    // docs/language.md: declarations sit in the arm and properties in a declaration, two levels; a
     // missing `}` shows as one level more, written at the deepest indent.
     expect(formatSpec("arm {\nlink a {\nlength 1 mm\nlink b {\nlength 2 mm\n}\n}\n")).toBe(
       ["arm {", "  link a {", "    length 1 mm", "    link b {", "    length 2 mm", "    }", "  }", ""].join(

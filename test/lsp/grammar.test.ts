@@ -12,7 +12,7 @@ const grammar = JSON.parse(
 const pattern = (name: string) => new RegExp(grammar.repository[name].match, "m");
 
 describe("TextMate grammar", () => {
-  it("reads every unit language.md lists after a number", () => {
+  it("reads every unit docs/language.md lists after a number", () => {
     const quantity = pattern("quantity");
     for (const unit of Object.values(UNITS_BY_DIMENSION).flat()) {
       const m = quantity.exec(`rate 0.35 ${unit}`);

@@ -1,5 +1,5 @@
 // Holding torque of spring-balanced pivoting links and parallelogram stages against published
-// closed forms (references.md, "Gravity balancing").
+// closed forms (docs/formulas.md, "Gravity balancing").
 import { describe, expect, it } from "vitest";
 import { solveSweep } from "../../server/src/mechanics/sweep";
 import { ArmBuilder, deg, G0 } from "./arm-builder";
@@ -43,7 +43,7 @@ describe("zero-free-length balance of a pivoting link", () => {
       const th = pose.angles["shoulder"]!;
       // Statics of a pivoting link (any mechanics text, e.g. Meriam and Kraige, Statics, ch. 3): tau = m g l cos(theta)
       expect(pose.cases[0]!.holdingTorque["shoulder"]).toBeCloseTo(m * G0 * l * Math.cos(th), 10);
-      // Hand force at the payload: |tau| / |dp/dtheta| = |tau| / l (mechanics.md section 3)
+      // Hand force at the payload: |tau| / |dp/dtheta| = |tau| / l (docs/formulas.md, statics of the arm)
       expect(pose.cases[0]!.handForce["p"]).toBeCloseTo(Math.abs(m * G0 * l * Math.cos(th)) / l, 9);
     }
   });
@@ -99,7 +99,7 @@ describe("finite free length spring on a pivoting link (Herder 2001)", () => {
       // Herder 2001 / Deepak and Ananthasuresh, J. Mech. Des. 134 (2012): residual (k L0 - Fi) a b cos(theta) / L
       const residual = ((k * L0 - Fi) * a * b * Math.sin(deg(psi))) / L;
       expect(pose.cases[0]!.holdingTorque["shoulder"]).toBeCloseTo(residual, 9);
-      // references.md worked values (Herder 2001 geometry, k = 784.5 N/m): 0.7478, 0.8290, 0.3186 N m
+      // docs/formulas.md worked values (Herder 2001 geometry, k = 784.5 N/m): 0.7478, 0.8290, 0.3186 N m
       expect(pose.cases[0]!.holdingTorque["shoulder"]).toBeCloseTo(worked[i]!, 3);
     });
   });
@@ -153,7 +153,7 @@ describe("parallelogram stage (Agrawal and Fattah 2004)", () => {
       // Same source: the head translates without rotating
       expect(Math.abs(pose.bodies["reach.head"]!.phi)).toBeLessThan(1e-10);
     }
-    // references.md worked value: M = 2.506 cos(theta) N m for these masses
+    // docs/formulas.md worked value: M = 2.506 cos(theta) N m for these masses
     const ref = sweep.reference!;
     expect(ref.cases[0]!.holdingTorque["reach"]! / Math.cos(deg(10))).toBeCloseTo(2.506, 3);
   });
@@ -173,7 +173,7 @@ describe("parallelogram stage (Agrawal and Fattah 2004)", () => {
   it("is balanced by a zero-free-length spring of k = M / (a b) = 501.1 N/m", () => {
     const model = stage(true);
     const k = (model.springs[0] as { rate: number }).rate;
-    // references.md worked value (Agrawal and Fattah 2004 geometry, a = 0.05 m, b = 0.10 m): k = 501.1 N/m
+    // docs/formulas.md worked value (Agrawal and Fattah 2004 geometry, a = 0.05 m, b = 0.10 m): k = 501.1 N/m
     expect(k).toBeCloseTo(501.1, 1);
     const sweep = solveSweep(model);
     // Streit and Gilmore 1989 applied to the stage's gravity moment: zero holding torque everywhere

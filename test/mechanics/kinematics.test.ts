@@ -240,7 +240,7 @@ describe("sweep layout", () => {
       .build();
     const sweep = solveSweep(model);
     expect(sweep.poses.length).toBe(25);
-    // language.md: `steps 5` over -60 deg .. 60 deg visits -60, -30, 0, 30, 60
+    // docs/language.md: `steps 5` over -60 deg .. 60 deg visits -60, -30, 0, 30, 60
     expect(
       sweep.poses
         .filter((p) => p.angles["elbow"] === deg(-90))

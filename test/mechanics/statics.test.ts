@@ -180,7 +180,7 @@ describe("holding torque equals dV/dtheta (virtual work)", () => {
         const mid = sweep.poses[3 * d + 1]!;
         const hi = sweep.poses[3 * d + 2]!;
         const dVdTheta = (potential(model, hi) - potential(model, lo)) / (2 * h);
-        // Principle of virtual work (e.g. Haug 1989, ch. 6; mechanics.md section 3): tau = dV/dtheta
+        // Principle of virtual work (e.g. Haug 1989, ch. 6; docs/formulas.md, statics of the arm): tau = dV/dtheta
         expect(mid.cases[0]!.holdingTorque[dof.id]).toBeCloseTo(dVdTheta, 5);
       });
     });
@@ -298,7 +298,7 @@ describe("force laws", () => {
     const A0 = (Math.PI / 4) * (0.006 ** 2 - 0.003 ** 2);
     const G = 0.4e6;
     const L0 = 0.1;
-    // references.md: tube 6 x 3 mm bore, A0 = 21.21 mm^2
+    // docs/formulas.md: tube 6 x 3 mm bore, A0 = 21.21 mm^2
     expect(A0 * 1e6).toBeCloseTo(21.21, 2);
     const worked: [number, number][] = [
       [1.5, 8.954],
@@ -309,7 +309,7 @@ describe("force laws", () => {
       const F = elasticCordTension({ freeLength: L0, area: A0 }, G, lambda * L0);
       // Treloar, The Physics of Rubber Elasticity, 3rd ed. (1975): F = G A0 (lambda - lambda^-2)
       expect(F).toBeCloseTo(G * A0 * (lambda - lambda ** -2), 9);
-      // references.md worked values 8.954, 14.84, 24.50 N (three or four figures)
+      // docs/formulas.md worked values 8.954, 14.84, 24.50 N (three or four figures)
       expect(Math.abs(F - force) / force).toBeLessThan(6e-4);
     }
     // Slack below its free length

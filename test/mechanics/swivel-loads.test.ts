@@ -1,6 +1,6 @@
 // The loads through a swivel: the wrench of what it carries about its point (statics, the moment
 // of a force r x F: Meriam and Kraige, Engineering Mechanics: Statics, 7th ed., section 2/5),
-// split along and across its axis, and the two radial bearings' couple M / D (mechanics.md 11).
+// split along and across its axis, and the two radial bearings' couple M / D (docs/checks.md, Bearings).
 import { describe, expect, it } from "vitest";
 import { swivelLoads, swivelLoadsOverHeadings } from "../../server/src/mechanics/swivel-loads";
 import { treeSweep, origin } from "../structure/arm-fixture";

@@ -1,5 +1,5 @@
 // Helical spring formulas against the worked examples of Shigley's Mechanical Engineering Design
-// (Budynas and Nisbett, 9th-11th ed., chapter 10), as quoted in references.md.
+// (Budynas and Nisbett, 9th-11th ed., chapter 10), as quoted in docs/formulas.md.
 import { describe, expect, test } from "vitest";
 import {
   bergstraesserFactor,
@@ -17,7 +17,7 @@ const LBF = 0.45359237 * 9.80665;
 const PSI = LBF / (INCH * INCH);
 
 describe("extension spring from its coil", () => {
-  test("SI worked example: music wire d = 1.2 mm, D = 9.6 mm, Nb = 20 (references.md)", () => {
+  test("SI worked example: music wire d = 1.2 mm, D = 9.6 mm, Nb = 20 (docs/formulas.md)", () => {
     const d = 1.2e-3,
       D = 9.6e-3,
       G = 81.7e9,

@@ -1,4 +1,4 @@
-// The built-in materials against the values references.md quotes from their sources.
+// The built-in materials against the values docs/materials.md quotes from their sources.
 import { describe, expect, test } from "vitest";
 import { builtinMaterials, LAYER_STRENGTH_FRACTION } from "../../server/src/model/materials";
 
@@ -8,7 +8,7 @@ const GPa = 1e9,
   gcc = 1000;
 
 describe("built-in materials", () => {
-  test("every material of language.md is there, with a source", () => {
+  test("every material of docs/language.md is there, with a source", () => {
     for (const id of [
       "pla",
       "petg",

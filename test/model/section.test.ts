@@ -31,7 +31,7 @@ describe("torsion of sections", () => {
       const a = ratio * b;
       const t = rectangleTorsion(a, b);
       const r = b / a;
-      // Roark's Formulas for Stress and Strain, 7th ed., table 10.7, case 4 (references.md):
+      // Roark's Formulas for Stress and Strain, 7th ed., table 10.7, case 4 (docs/formulas.md):
       // K = a b^3 [1/3 - 0.21 (b/a)(1 - b^4 / (12 a^4))]
       expect(t.constant).toBeCloseTo(a * b ** 3 * (1 / 3 - 0.21 * r * (1 - b ** 4 / (12 * a ** 4))), 20);
       const exact = exactRectangle(a, b);
@@ -57,7 +57,7 @@ describe("torsion of sections", () => {
   it("tube and rod: J = pi (D^4 - d^4) / 32 and tau = T (D/2) / J, exact", () => {
     const tube = sectionProperties({ shape: "tube", outerDiameter: 0.02, wall: 0.002 });
     const J = (Math.PI * (0.02 ** 4 - 0.016 ** 4)) / 32;
-    // Roark 7th ed., table 10.7, case 10 (hollow concentric circle; references.md): K = J
+    // Roark 7th ed., table 10.7, case 10 (hollow concentric circle; docs/formulas.md): K = J
     expect(tube.torsionConstant).toBeCloseTo(J, 20);
     // same case: tau_max = 16 T D / (pi (D^4 - d^4)) at the outer surface (per unit torque)
     expect(tube.torsionModulus * ((16 * 0.02) / (Math.PI * (0.02 ** 4 - 0.016 ** 4)))).toBeCloseTo(1, 12);

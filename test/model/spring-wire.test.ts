@@ -38,7 +38,7 @@ describe("Shigley table 10-4: S_ut = A / d^m", () => {
   it("hard-drawn wire, Shigley 9th ed. Example 10-6: d = 0.035 in gives S_ut = 140 / 0.035^0.190 kpsi", () => {
     const d = 0.035 * 0.0254;
     const expectedKpsi = 140 / 0.035 ** 0.19;
-    // references.md: 264.7 kpsi
+    // docs/formulas.md: 264.7 kpsi
     expect(expectedKpsi).toBeCloseTo(264.7, 1);
     expect(gradeTensileStrength(wireGrade("hard_drawn_wire")!, d).strength / 1e6 / KPSI_MPA).toBeCloseTo(
       expectedKpsi,
@@ -46,7 +46,7 @@ describe("Shigley table 10-4: S_ut = A / d^m", () => {
     );
   });
 
-  it("music wire of 1.2 mm: 2211 / 1.2^0.145 MPa (references.md worked value 2153 MPa)", () => {
+  it("music wire of 1.2 mm: 2211 / 1.2^0.145 MPa (docs/formulas.md worked value 2153 MPa)", () => {
     const s = gradeTensileStrength(wireGrade("music_wire")!, 0.0012);
     // Shigley eq. 10-14, table 10-4
     expect(s.strength).toBeCloseTo((2211 / 1.2 ** 0.145) * 1e6, 0);

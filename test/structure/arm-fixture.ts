@@ -29,7 +29,7 @@ export function origin(...keys: string[]): Origin {
   return { declaration: { start, end: start + 99 }, name: { start: start + 1, end: start + 5 }, properties };
 }
 
-/** Typical values, references.md materials table (sources there; several "from memory"). */
+/** Typical values, docs/materials.md (sources there; several "from memory"). */
 export const MATERIALS: Record<string, Material> = {
   aluminium_6061_t6: {
     id: "aluminium_6061_t6",

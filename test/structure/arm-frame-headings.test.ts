@@ -1,5 +1,5 @@
 // The arm's space frame with its swivels turned: a boom with a swivel at its end carrying a second
-// link is, at heading 90 deg, the L-frame of references.md (bending of both legs plus twist of the
+// link is, at heading 90 deg, the L-frame of docs/formulas.md (bending of both legs plus twist of the
 // first); at heading 0 it is a straight cantilever (Roark). The turned placement moves only what
 // the swivel carries.
 import { describe, expect, it } from "vitest";
@@ -16,7 +16,7 @@ describe("the space frame with a swivel turned", () => {
   const s1 = sectionProperties(rectBar);
   const s2 = sectionProperties(tube);
 
-  it("at 90 deg: the L-frame of references.md", () => {
+  it("at 90 deg: the L-frame of docs/formulas.md", () => {
     const af = buildArmFrame(
       model,
       pose,
@@ -25,7 +25,7 @@ describe("the space frame with a swivel turned", () => {
       { headings: { knuckle: Math.PI / 2 } },
     );
     const u = af.frame.solveStatic()!.displacement(af.payloadNode["tool"]!).translation;
-    // references.md, L-frame: P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
+    // docs/formulas.md, L-frame: P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
     const expected =
       (P * L1 ** 3) / (3 * al.modulus * s1.secondMoment) +
       (P * L2 ** 2 * L1) / (al.shearModulus * s1.torsionConstant) +

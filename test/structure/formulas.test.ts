@@ -1,5 +1,5 @@
 // Closed-form strength formulas checked against the published formulas and worked values
-// (references.md): sections, pins, columns, extension-spring bodies.
+// (docs/formulas.md): sections, pins, columns, extension-spring bodies.
 import { describe, expect, it } from "vitest";
 import { sectionProperties } from "../../server/src/model/section";
 import { bearingStress, pinShearStress, shearYieldStrength } from "../../server/src/mechanics/structure/pin";
@@ -24,7 +24,7 @@ describe("section properties", () => {
     const p = sectionProperties({ shape: "tube", outerDiameter: 0.02, wall: 0.002 });
     // Roark 8th ed., table of section properties: hollow circle I = pi (D^4 - d^4) / 64
     expect(p.secondMoment).toBeCloseTo((Math.PI * (0.02 ** 4 - 0.016 ** 4)) / 64, 15);
-    // references.md worked value (same formula): I = 4.637e-9 m^4
+    // docs/formulas.md worked value (same formula): I = 4.637e-9 m^4
     expect(p.secondMoment).toBeCloseTo(4.637e-9, 11);
     // Roark 8th ed.: area of a hollow circle pi (D^2 - d^2) / 4
     expect(p.area).toBeCloseTo((Math.PI * (0.02 ** 2 - 0.016 ** 2)) / 4, 12);
@@ -43,13 +43,13 @@ describe("pins and holes", () => {
   const F = 500;
   const d = 0.004;
   it("shear in single and double shear", () => {
-    // Shigley ch. 5 / references.md: tau = F / (n pi d^2 / 4); worked 39.79 and 19.89 MPa
+    // Shigley ch. 5 / docs/formulas.md: tau = F / (n pi d^2 / 4); worked 39.79 and 19.89 MPa
     expect(pinShearStress(F, d, 1) / 1e6).toBeCloseTo(F / ((Math.PI * 0.004 ** 2) / 4) / 1e6, 9);
     expect(pinShearStress(F, d, 1) / 1e6).toBeCloseTo(39.79, 2);
     expect(pinShearStress(F, d, 2) / 1e6).toBeCloseTo(19.89, 2);
   });
   it("bearing in a 3 mm plate", () => {
-    // bearing stress F / (d t); references.md worked 41.67 MPa
+    // bearing stress F / (d t); docs/formulas.md worked 41.67 MPa
     expect(bearingStress(F, d, 0.003) / 1e6).toBeCloseTo(41.67, 2);
   });
   it("distortion-energy shear strength", () => {
@@ -89,7 +89,7 @@ describe("columns", () => {
 });
 
 describe("extension spring body", () => {
-  // references.md worked (SI): music wire d = 1.2 mm, D = 9.6 mm, 30 N
+  // docs/formulas.md worked (SI): music wire d = 1.2 mm, D = 9.6 mm, 30 N
   const d = 0.0012;
   const D = 0.0096;
   it("curvature factors and body stress", () => {

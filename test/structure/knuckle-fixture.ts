@@ -1,6 +1,6 @@
 // An invented two-link arm with a swivel between its links (a knuckle): the boom, a flat
 // aluminium bar held level on a post, and a round tube that turns on the knuckle; weightless links
-// and a 10 N tip load, so that the closed forms of references.md and Roark apply as they stand.
+// and a 10 N tip load, so that the closed forms of docs/formulas.md and Roark apply as they stand.
 import type { Swivel } from "../../server/src/model/types";
 import { armModel, baseBody, G, joint, linkBody, MATERIALS, origin, payload } from "./arm-fixture";
 

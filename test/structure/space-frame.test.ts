@@ -11,7 +11,7 @@ import {
 import { sectionProperties } from "../../server/src/model/section";
 import type { Section } from "../../server/src/model/types";
 
-// 6061-T6 (references.md: ASM Handbook vol. 2, from memory); G = E / (2 (1 + nu)) with nu = 0.33
+// 6061-T6 (docs/materials.md: ASM Handbook vol. 2, from memory); G = E / (2 (1 + nu)) with nu = 0.33
 const E = 68.9e9;
 const NU = 0.33;
 const G_SHEAR = E / (2 * (1 + NU));
@@ -128,7 +128,7 @@ describe("space frame statics", () => {
   });
 
   it("L-frame in a horizontal plane: bending of both legs plus twist of the first", () => {
-    // references.md (superposition, e.g. Gere): P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
+    // docs/formulas.md (superposition, e.g. Gere): P L1^3 / (3 E I1) + P L2^2 L1 / (G J1) + P L2^3 / (3 E I2)
     const leg1: Section = { shape: "rect", depth: 0.025, width: 0.01 };
     const leg2: Section = tube;
     const L1 = 0.3;
@@ -149,7 +149,7 @@ describe("space frame statics", () => {
       (P * L1 ** 3) / (3 * E * s1.secondMoment) +
       (P * L2 ** 2 * L1) / (G_SHEAR * s1.torsionConstant) +
       (P * L2 ** 3) / (3 * E * s2.secondMoment);
-    // references.md, L-frame (formula above)
+    // docs/formulas.md, L-frame (formula above)
     expect(rel(-u.translation.y, expected)).toBeLessThan(1e-9);
   });
 
@@ -310,7 +310,7 @@ describe("space frame vibration", () => {
 
   it("twisting mode of a bar carrying a disc: f = sqrt(K G / (L J_disc)) / (2 pi)", () => {
     // A light shaft (torsional rate K G / L) with a heavy rigid disc at its end: one degree of
-    // freedom, f = (1 / 2 pi) sqrt(k / J) (references.md, mass on a spring, in rotation). The
+    // freedom, f = (1 / 2 pi) sqrt(k / J) (docs/formulas.md, mass on a spring, in rotation). The
     // disc is four point masses on rigid arms of radius r across the shaft: J = 4 m r^2.
     const rod: Section = { shape: "rod", diameter: 0.006 };
     const s = sectionProperties(rod);
@@ -332,7 +332,7 @@ describe("space frame vibration", () => {
     const k = (s.torsionConstant * G_SHEAR) / L;
     const expected = Math.sqrt(k / (4 * m * r * r)) / (2 * Math.PI);
     const f = modes.omega2.map((w2) => Math.sqrt(w2) / (2 * Math.PI));
-    // references.md (mass on a spring, in rotation): the twisting mode is among the lowest three
+    // docs/formulas.md (mass on a spring, in rotation): the twisting mode is among the lowest three
     const twisting = f.findIndex((x) => rel(x, expected) < 1e-6);
     expect(twisting).toBeGreaterThanOrEqual(0);
     // ... and its shape turns the tip about the bar's axis only (to the accuracy of a mode shape
@@ -341,7 +341,7 @@ describe("space frame vibration", () => {
     expect(Math.abs(rot.y) + Math.abs(rot.z)).toBeLessThan(1e-4 * Math.abs(rot.x));
   });
 
-  it("cantilever tube with a tip mass (Rayleigh; references.md worked 26.78 Hz)", () => {
+  it("cantilever tube with a tip mass (Rayleigh; docs/formulas.md worked 26.78 Hz)", () => {
     const p = props(tube);
     const frame = new SpaceFrame();
     const nodes = cantilever(frame, 4, p);
@@ -351,7 +351,7 @@ describe("space frame vibration", () => {
     const beamMass = p.massPerLength * L;
     const k = (3 * E * sectionProperties(tube).secondMoment) / L ** 3;
     const rayleigh = Math.sqrt(k / (M + (33 / 140) * beamMass)) / (2 * Math.PI);
-    // references.md worked values: m_beam = 0.1221 kg, k = 14 976 N/m, f = 26.78 Hz
+    // docs/formulas.md worked values: m_beam = 0.1221 kg, k = 14 976 N/m, f = 26.78 Hz
     expect(beamMass).toBeCloseTo(0.1221, 4);
     expect(rayleigh).toBeCloseTo(26.78, 2);
     // Rayleigh's method (Thomson and Dahleh, 5th ed., ch. 2): the static-deflection shape is
@@ -359,7 +359,7 @@ describe("space frame vibration", () => {
     expect(rel(f, rayleigh)).toBeLessThan(0.003);
   });
 
-  it("mass on a spring (references.md: f = sqrt(k / m) / (2 pi), worked 7.118 Hz)", () => {
+  it("mass on a spring (docs/formulas.md: f = sqrt(k / m) / (2 pi), worked 7.118 Hz)", () => {
     const frame = new SpaceFrame();
     const ground = frame.addNode({ x: 0, y: 0, z: 0 });
     const mass = frame.addNode({ x: 0, y: -0.1, z: 0 });
@@ -369,7 +369,7 @@ describe("space frame vibration", () => {
     for (const k of [0, 2, 3, 4, 5]) frame.hold(mass, k);
     frame.addMass(mass, 0.5);
     const f = Math.sqrt(frame.naturalFrequencies(1)![0]!) / (2 * Math.PI);
-    // references.md, vibration: mass on a spring
+    // docs/formulas.md, vibration: mass on a spring
     expect(rel(f, Math.sqrt(1000 / 0.5) / (2 * Math.PI))).toBeLessThan(1e-9);
     expect(f).toBeCloseTo(7.118, 3);
   });

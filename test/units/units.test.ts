@@ -64,7 +64,7 @@ describe("factors against the exact definitions (NIST SP 811 appendix B; SI Broc
     expect(factor("deg")).toBe(Math.PI / 180);
     expect(factor("rad")).toBe(1);
   });
-  test("derived values quoted in references.md (NIST SP 811)", () => {
+  test("derived values quoted in docs/formulas.md (NIST SP 811)", () => {
     // 1 lbf/in = 175.1268 N/m; 1 lbf in = 0.1129848 N m; 1 kpsi = 6.894757 MPa
     expect(factor("lbf/in")).toBeCloseTo(175.1268, 3);
     expect(factor("lbf*in")).toBeCloseTo(0.1129848, 7);
@@ -72,7 +72,7 @@ describe("factors against the exact definitions (NIST SP 811 appendix B; SI Broc
   });
 });
 
-describe("every unit of language.md against mathjs", () => {
+describe("every unit of docs/language.md against mathjs", () => {
   // mathjs has no ksi or Mpsi: those are compared through psi.
   const units = [
     "mm",

@@ -1,9 +1,9 @@
 // A hand-built analysis of one pivoting link held by a zero-free-length spring (the geometry of
 // Streit and Gilmore 1989), built from the published closed-form statics so that the view layer
 // can be tested before (and independently of) the solver:
-//   holding torque tau(theta) = (m g l - k a b) cos(theta)                (references.md)
+//   holding torque tau(theta) = (m g l - k a b) cos(theta)                (docs/formulas.md)
 //   spring length  L = sqrt(a^2 + b^2 - 2 a b sin(theta)),  tension F = k L
-//   hand force     |tau| / l  (one dof: |F| = |tau| / |dp/dtheta|, mechanics.md section 3)
+//   hand force     |tau| / l  (one dof: |F| = |tau| / |dp/dtheta|, docs/formulas.md, statics of the arm)
 import type { ArmModel, Body, Joint, Spring, Payload } from "../../server/src/model/types";
 import type { Pose, SweepResult } from "../../server/src/mechanics/types";
 import type { Finding } from "../../server/src/findings/finding";

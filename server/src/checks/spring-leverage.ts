@@ -15,7 +15,7 @@ import { atJoint } from "../model/spring-kinds";
 
 /** A spring pulling more than this many times the weight it balances is flagged. A balancer of
  * the usual proportions (anchor an eighth, hook a quarter of the payload's reach from the pivot;
- * references.md's worked example: a = 50 mm, b = 100 mm, l = 400 mm) pulls about 12 times the
+ * docs/formulas.md's worked example: a = 50 mm, b = 100 mm, l = 400 mm) pulls about 12 times the
  * weight at the end of its range; twice that leaves room for such designs and still catches
  * springs whose pull is out of proportion (the issue's 3 mm anchor pulls 133 times). Common
  * practice, no source. */

@@ -1,5 +1,5 @@
-// Stiffness and vibration of the loaded arm with its degrees of freedom held (mechanics.md
-// sections 7 and 10): deflection and tilt at each payload and the lowest natural frequency
+// Stiffness and vibration of the loaded arm with its degrees of freedom held (docs/checks.md,
+// Stiffness and vibration, Swivels): deflection and tilt at each payload and the lowest natural frequency
 // (sideways and twisting modes included) from the space frame, at a few representative poses (the
 // reference and the ends of each range), not every pose. A pose where the frame cannot be solved
 // is said on the parts it leaves unchecked, never skipped in silence.

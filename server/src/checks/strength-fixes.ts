@@ -47,7 +47,7 @@ function pinStillFails(analysis: { findings: readonly Finding[] }, jointId: stri
 
 /**
  * The smallest standard pin that meets `require safety`, confirmed by analysing the edited text.
- * Shear stress goes as 1/d^2 and bearing as 1/d (mechanics.md section 4), so the shear-governed
+ * Shear stress goes as 1/d^2 and bearing as 1/d (docs/checks.md, Pins and holes), so the shear-governed
  * size d sqrt(S_req / S) is a lower bound and the search starts at the first standard size above it.
  */
 export function widenPinFix(

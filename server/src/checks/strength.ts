@@ -32,7 +32,7 @@ import {
 } from "./part-words";
 
 /** Share of in-plane strength a print keeps across its layers when the material gives no
- * `layer_strength`: 0.5 is the conservative default of references.md (Ahn et al., Rapid
+ * `layer_strength`: 0.5 is the conservative default of docs/materials.md (Ahn et al., Rapid
  * Prototyping J. 8(4), 2002: 40-80 %, from memory). */
 export const PRINTED_LAYER_SHARE = 0.5;
 
@@ -217,7 +217,7 @@ export function checkStrength(ctx: CheckContext): void {
   reportPins(ctx, pinned, pinWorst, reactionMax);
 }
 
-/** Stress with stages turned across (mechanics.md section 10): at the stiffness check's poses, for
+/** Stress with stages turned across (docs/checks.md, Swivels): at the stiffness check's poses, for
  * each load case and each heading searched one swivel at a time, the space frame's member end
  * forces give axial force, torsion and bending both ways at each station (combined-stress.ts:
  * von Mises for metals, the largest principal stress against the layer strength for prints). A

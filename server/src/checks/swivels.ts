@@ -1,4 +1,4 @@
-// Swivels (mechanics.md sections 10 and 11): whether each one's axis stays vertical over the range
+// Swivels (docs/checks.md, Swivels and Bearings): whether each one's axis stays vertical over the range
 // (`geometry.swivel-leans`), each one's heading range, and the loads it carries over the range,
 // the load cases and the headings (mechanics/swivel-loads.ts). The stiffness and tipping over
 // headings are in their own checks.

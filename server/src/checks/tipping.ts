@@ -1,4 +1,4 @@
-// Tipping of the base and the loads on its bearing (mechanics.md section 5): the overturning
+// Tipping of the base and the loads on its bearing (docs/checks.md, Tipping): the overturning
 // moment of the arm about the footprint's edge against the base's restoring moment W e
 // (statics, e.g. Meriam and Kraige, Engineering Mechanics: Statics, ch. 3). With `yaw` the arm
 // can face any heading, so the worst edge is the nearest one in every direction. Swivels above the

@@ -1,4 +1,4 @@
-// Where the arm is in three dimensions when its swivels are turned (mechanics.md section 10): each
+// Where the arm is in three dimensions when its swivels are turned (docs/checks.md, Swivels): each
 // swivel turns the bodies it carries about its parent's y axis through its point, by its heading.
 // The drawing plane is x-y (y up), z towards the reader; a positive heading turns counter-clockwise
 // seen from above (right-handed about the axis). The base's yaw turns everything rigidly and

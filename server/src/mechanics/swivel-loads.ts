@@ -1,4 +1,4 @@
-// The loads each swivel carries at a pose (mechanics.md sections 10 and 11): the wrench of
+// The loads each swivel carries at a pose (docs/checks.md, Swivels and Bearings): the wrench of
 // everything it carries (weights, payload masses, working forces) at the swivel's point, split
 // along and across its axis. A swivel is the only path from what it carries to the rest (no loop
 // or spring passes it, model/build-swivels.ts), so the wrench is the carried parts' own loads,

@@ -1,4 +1,4 @@
-// Builds swivels (mechanics.md section 10, language.md "Added forms"): a pivot about the parent's
+// Builds swivels (docs/checks.md, Swivels; docs/language.md, `swivel NAME`): a pivot about the parent's
 // y axis. In the drawing plane a swivel stands as a locked joint (the child keeps the parent's
 // orientation, or its `angle`); its heading range, bearings and friction are kept for the checks
 // that turn the arm. The base's `yaw` is a swivel at the base's origin.

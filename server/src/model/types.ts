@@ -125,7 +125,7 @@ export interface Joint {
   origin: Origin;
 }
 
-/** A pivot about a vertical axis (mechanics.md section 10). In the drawing plane it stands as a
+/** A pivot about a vertical axis (docs/checks.md, Swivels). In the drawing plane it stands as a
  * locked joint (`joint`: the child keeps the parent's orientation, or `angle`); its heading turns
  * everything the child carries about the parent's y axis through `point`. The base's `yaw` is a
  * swivel at the base's origin (`parent` the base, no joint, no child). */

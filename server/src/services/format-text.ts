@@ -113,7 +113,7 @@ function tokenize(text: string): Tok[] {
 
 const INDENT = "  ";
 /** The deepest indent the formatter writes. The language nests two levels (a property inside a
- * declaration inside the arm: language.md); deeper nesting is only ever malformed text, e.g.
+ * declaration inside the arm: docs/language.md); deeper nesting is only ever malformed text, e.g.
  * thousands of `{`, where an indent per level would make the output grow with the square of the
  * depth (10,000 `{` gave 100 MB). Lines deeper than this keep this indent. Two levels is also what
  * keeps the output within 8 x the input: a lone `{` or `}` becomes at most 4 spaces, itself and a

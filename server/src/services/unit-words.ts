@@ -1,4 +1,4 @@
-// The units a user may type for each dimension, as language.md lists them (what completion
+// The units a user may type for each dimension, as docs/language.md lists them (what completion
 // offers after a number).
 import type { DimensionName } from "../units/dimension";
 

@@ -1,4 +1,4 @@
-// What the analysis leaves out (mechanics.md, section 9) and the cautions shown wherever a part
+// What the analysis leaves out (docs/checks.md, Limits) and the cautions shown wherever a part
 // of a spring-loaded arm can fall or fly off. Shared by the panel and the report.
 
 export const MODEL_LIMITS: readonly string[] = [

@@ -1,6 +1,6 @@
 // Spring ends against Shigley's Mechanical Engineering Design (Budynas and Nisbett): the hook
 // stresses, free length and initial-tension range of Example 10-6 (9th ed.; the same example in
-// the 10th), and the torsion-spring wire stress of references.md's worked case (section 10-12).
+// the 10th), and the torsion-spring wire stress of docs/formulas.md's worked case (section 10-12).
 import { describe, expect, it } from "vitest";
 import {
   bodySolidLength,
@@ -85,7 +85,7 @@ describe("initial tension", () => {
     expect(range.high / ((mid + half) / 1000) / KPSI).toBeCloseTo(1, 9);
     expect(range.low / KPSI).toBeCloseTo(14.2, 1);
     expect(range.high / KPSI).toBeCloseTo(21.2, 1);
-    // tau_i = K_B 8 Fi D / (pi d^3), K_B = (4C + 2) / (4C - 3) (eq. 10-5): references.md 18.58 kpsi
+    // tau_i = K_B 8 Fi D / (pi d^3), K_B = (4C + 2) / (4C - 3) (eq. 10-5): docs/formulas.md 18.58 kpsi
     const KB = (4 * C + 2) / (4 * C - 3);
     const tauI = initialTensionStress(1.19 * LBF, D * IN, d * IN);
     expect(tauI / ((KB * 8 * 1.19 * D) / (Math.PI * d ** 3) / 1000) / KPSI).toBeCloseTo(1, 9);
@@ -98,7 +98,7 @@ describe("initial tension", () => {
 });
 
 describe("torsion springs (Shigley section 10-12)", () => {
-  it("sigma = K_i 32 M / (pi d^3), K_i = (4C^2 - C - 1) / (4C (C - 1)): references.md's worked case", () => {
+  it("sigma = K_i 32 M / (pi d^3), K_i = (4C^2 - C - 1) / (4C (C - 1)): docs/formulas.md's worked case", () => {
     // d = 2 mm, D = 20 mm, M = 0.5 N m: C = 10, K_i = 1.081, sigma = 687.9 MPa
     const C = 10;
     const Ki = (4 * C * C - C - 1) / (4 * C * (C - 1));

@@ -1,4 +1,4 @@
-// The loaded arm at one pose as a space frame (mechanics.md sections 7 and 10): links and bars as
+// The loaded arm at one pose as a space frame (docs/checks.md, Stiffness and vibration, Swivels): links and bars as
 // members (at least four each) with torsion and bending both ways, their own weight as
 // work-equivalent loads and their mass as consistent mass; pins as joints free to turn about their
 // axis only; degrees of freedom and fixed joints welded (held by hand or brake); springs as axial

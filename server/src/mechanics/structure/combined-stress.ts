@@ -1,4 +1,4 @@
-// Stress in a bar loaded in three dimensions (mechanics.md section 10): axial force, bending about
+// Stress in a bar loaded in three dimensions (docs/checks.md, Swivels): axial force, bending about
 // both axes and torsion at one section. The largest normal stress adds the axial stress and the
 // bending stresses at the extreme fibres (for a rectangle the two bending maxima meet at a corner;
 // for a round section the moments add as a vector); the largest shear stress is T / Q (Roark's
