@@ -8,6 +8,8 @@ import type {
 } from "vscode-languageserver";
 import type { TextDocument } from "vscode-languageserver-textdocument";
 import type { Analysis } from "../analysis";
+import type { TextFix } from "../findings/fix";
+import type { FixJob } from "./session/worker-protocol";
 import type { AnalysisScheduler } from "./session/scheduler";
 import type { Settings } from "./session/settings";
 import type { SyntaxView } from "./session/syntax-view";
@@ -22,6 +24,9 @@ export interface FeatureContext {
   syntax(uri: string): SyntaxView | undefined;
   /** The best analysis to read figures from now (may be of an earlier text). */
   figures(uri: string): Analysis | undefined;
+  /** The fixes of each request that survive their re-check on a copy of the text, found in the
+   * analysis worker; undefined when that could not be done in time (offer none then). */
+  checkFixes(text: string, job: FixJob): Promise<TextFix[][] | undefined>;
   log(message: string): void;
 }
 

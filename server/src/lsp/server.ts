@@ -38,6 +38,10 @@ export function analysisLogLine(uri: string, version: number, analysis: Analysis
   return `analysed ${name} version ${version}: ${analysis.sweep?.poses.length ?? 0} poses in ${ms.toFixed(0)} ms, ${count("error")}, ${count("warning")}`;
 }
 
+/** A fix job stopped this long past its budget (a hung phase) offers no fix: common practice, no
+ * source (the margin a run of the analysis gets). */
+const FIX_CHECK_HARD_MARGIN_MS = 2000;
+
 export function startServer(connection: Connection): void {
   const documents = new TextDocuments(TextDocument);
   const views = new SyntaxViews();
@@ -50,8 +54,9 @@ export function startServer(connection: Connection): void {
   process.on("uncaughtException", (err) => reportFault("an event handler", err));
   process.on("unhandledRejection", (err) => reportFault("a pending task", err));
 
+  const runner = createRunner(log, (message) => attempt("logging", () => connection.console.warn(message)));
   const scheduler = new AnalysisScheduler(
-    createRunner(log, (message) => attempt("logging", () => connection.console.warn(message))),
+    runner,
     () => settings,
     (result) => attempt("publishing diagnostics", () => publish(result)),
   );
@@ -67,6 +72,14 @@ export function startServer(connection: Connection): void {
       return doc ? views.view(doc, BUILTIN_MATERIAL_IDS, scheduler.current(uri)) : undefined;
     },
     figures: (uri) => scheduler.latest(uri),
+    // The options of the spec's full run, so the worker can reuse that analysis as the "before".
+    checkFixes: (text, job) =>
+      runner.checkFixes(
+        text,
+        { budgetMs: settings.analysisBudgetMs },
+        job,
+        job.budgetMs + FIX_CHECK_HARD_MARGIN_MS,
+      ),
     log,
   };
 

@@ -1,18 +1,29 @@
 // The analysis worker: runs the core's analyse() off the server's request path, so hover and
-// completion stay responsive while a heavy sweep runs; and builds the drawing panel's view model
-// from the analysis it just made. Bundled to dist/analysis-worker.js. Each request brings a cancel
-// flag in shared memory that the server raises when the run is no longer wanted (stop.ts).
+// completion stay responsive while a heavy sweep runs; builds the drawing panel's view model
+// from the analysis it just made; and re-checks quick fixes on copies of the text (recheck.ts).
+// Bundled to dist/analysis-worker.js. Each request brings a cancel flag in shared memory that the
+// server raises when the run is no longer wanted (stop.ts).
 import { parentPort } from "node:worker_threads";
 import { analyse } from "../../analysis";
 import { buildViewModel } from "../../view";
 import { AnalysisCache } from "./analysis-cache";
 import { serverCopy } from "./server-copy";
+import { checkedFixes } from "../../recheck";
 import type { WorkerRequest, WorkerReply } from "./worker-protocol";
 
 const cache = new AnalysisCache();
 
 function answer(request: WorkerRequest): WorkerReply {
   const options = { ...request.options, cancel: request.cancel };
+  if (request.kind === "fixes") {
+    const current = cache.get(request.text, request.options);
+    const fixes = checkedFixes(request.text, request.fixes.requests, {
+      budgetMs: request.fixes.budgetMs,
+      cancel: request.cancel,
+      ...(current ? { current } : {}),
+    });
+    return { id: request.id, fixes };
+  }
   let analysis = cache.get(request.text, request.options);
   if (!analysis) {
     analysis = analyse(request.text, options);

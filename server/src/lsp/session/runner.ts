@@ -8,7 +8,9 @@ import { join } from "node:path";
 import { Worker } from "node:worker_threads";
 import { analyse, type Analysis, type AnalysisOptions } from "../../analysis";
 import { buildViewModel, type ViewModel, type ViewOptions } from "../../view";
-import type { WorkerReply, WorkerRequest } from "./worker-protocol";
+import type { FixJob, WorkerReply, WorkerRequest } from "./worker-protocol";
+import type { TextFix } from "../../findings/fix";
+import { checkedFixes } from "../../recheck";
 import { AnalysisCache } from "./analysis-cache";
 
 export type RunOutcome =
@@ -28,6 +30,19 @@ export interface RunHandle {
   /** performance.now() when the run reached the worker, until it settles. */
   readonly started: () => number | undefined;
   cancel(): void;
+}
+
+/** Re-checks quick fixes in the same queue as the analyses. */
+export interface FixChecker {
+  /** The fixes of each request that survive their re-check on copies of `text` (recheck.ts),
+   * found off the request thread; undefined when the job failed, was cancelled or ran past the
+   * hard limit (then none is offered). */
+  checkFixes(
+    text: string,
+    options: AnalysisOptions,
+    job: FixJob,
+    hardLimitMs: number,
+  ): Promise<TextFix[][] | undefined>;
 }
 
 export interface AnalysisRunner {
@@ -56,7 +71,8 @@ type Outcome =
 /** A request as queued: without its id and cancel flag, given when it is sent. */
 type QueuedRequest =
   | { kind: "analyse"; text: string; options: AnalysisOptions }
-  | { kind: "view"; text: string; options: AnalysisOptions; view: ViewOptions };
+  | { kind: "view"; text: string; options: AnalysisOptions; view: ViewOptions }
+  | { kind: "fixes"; text: string; options: AnalysisOptions; fixes: FixJob };
 
 interface Job {
   id: number;
@@ -75,7 +91,7 @@ export function bundledWorkerPath(): string | undefined {
   return existsSync(path) ? path : undefined;
 }
 
-export class WorkerRunner implements AnalysisRunner {
+export class WorkerRunner implements AnalysisRunner, FixChecker {
   private worker: Worker | undefined;
   private readonly queue: Job[] = [];
   /** The job the worker is computing, until its reply arrives (even after the job was settled
@@ -131,6 +147,16 @@ export class WorkerRunner implements AnalysisRunner {
   view(text: string, options: AnalysisOptions, view: ViewOptions, hardLimitMs: number): Promise<ViewOutcome> {
     const { outcome } = this.enqueue({ kind: "view", text, options, view }, hardLimitMs);
     return outcome.then((o) => (o.kind === "done" ? { kind: "done", view: o.value as ViewModel } : o));
+  }
+
+  checkFixes(
+    text: string,
+    options: AnalysisOptions,
+    fixes: FixJob,
+    hardLimitMs: number,
+  ): Promise<TextFix[][] | undefined> {
+    const { outcome } = this.enqueue({ kind: "fixes", text, options, fixes }, hardLimitMs);
+    return outcome.then((o) => (o.kind === "done" ? (o.value as TextFix[][]) : undefined));
   }
 
   /** Starts the worker now, so that it has loaded by the time the first document arrives. */
@@ -271,7 +297,11 @@ export class WorkerRunner implements AnalysisRunner {
     this.clearBusy();
     const job = busy.job;
     if ("error" in reply) this.settle(job, { kind: "failed", message: reply.error });
-    else this.settle(job, { kind: "done", value: "analysis" in reply ? reply.analysis : reply.view });
+    else
+      this.settle(job, {
+        kind: "done",
+        value: "analysis" in reply ? reply.analysis : "view" in reply ? reply.view : reply.fixes,
+      });
     this.pump();
   }
 
@@ -295,7 +325,7 @@ export class WorkerRunner implements AnalysisRunner {
 export const IN_THREAD_LIMIT_MS = 1000;
 
 /** Runs in this thread, one at a time (the fallback, and the tests of the sources). */
-export class InThreadRunner implements AnalysisRunner {
+export class InThreadRunner implements AnalysisRunner, FixChecker {
   private readonly cache = new AnalysisCache();
 
   run(text: string, options: AnalysisOptions, hardLimitMs: number): RunHandle {
@@ -330,6 +360,30 @@ export class InThreadRunner implements AnalysisRunner {
     );
   }
 
+  /** Without a worker the re-checks run here, each analysis within the in-thread limit. */
+  checkFixes(
+    text: string,
+    options: AnalysisOptions,
+    fixes: FixJob,
+    hardLimitMs: number,
+  ): Promise<TextFix[][] | undefined> {
+    return new Promise((resolve) =>
+      setImmediate(() => {
+        try {
+          const current = this.cache.get(text, options);
+          resolve(
+            checkedFixes(text, fixes.requests, {
+              budgetMs: Math.min(fixes.budgetMs, hardLimitMs, IN_THREAD_LIMIT_MS),
+              ...(current ? { current } : {}),
+            }),
+          );
+        } catch {
+          resolve(undefined);
+        }
+      }),
+    );
+  }
+
   /** The run's budget within the in-thread limit and its own hard limit. */
   private bounded(options: AnalysisOptions, hardLimitMs: number): AnalysisOptions {
     return { ...options, budgetMs: Math.min(options.budgetMs ?? Infinity, hardLimitMs, IN_THREAD_LIMIT_MS) };
@@ -346,7 +400,7 @@ const WORKER_FAULTS_BEFORE_GIVING_UP = 3;
 const WORKER_RETRY_MS = 60_000;
 
 /** The worker while it works; the server's own thread while the worker keeps failing. */
-export class FallbackRunner implements AnalysisRunner {
+export class FallbackRunner implements AnalysisRunner, FixChecker {
   private readonly inThread = new InThreadRunner();
   private said = false;
   constructor(
@@ -382,6 +436,17 @@ export class FallbackRunner implements AnalysisRunner {
     return this.inThread.view(text, options, view, hardLimitMs);
   }
 
+  checkFixes(
+    text: string,
+    options: AnalysisOptions,
+    fixes: FixJob,
+    hardLimitMs: number,
+  ): Promise<TextFix[][] | undefined> {
+    return this.useThread()
+      ? this.inThread.checkFixes(text, options, fixes, hardLimitMs)
+      : this.worker.checkFixes(text, options, fixes, hardLimitMs);
+  }
+
   private useThread(): boolean {
     if (!this.worker.broken) {
       this.said = false;
@@ -403,7 +468,7 @@ export class FallbackRunner implements AnalysisRunner {
 export function createRunner(
   onFault: (message: string) => void,
   onNotice: (message: string) => void = onFault,
-): AnalysisRunner {
+): AnalysisRunner & FixChecker {
   const path = bundledWorkerPath();
   if (!path) return new InThreadRunner();
   const worker = new WorkerRunner(path, onFault, onNotice);

@@ -1,5 +1,7 @@
-// Messages between the language server and its analysis worker.
+// Messages between the language server and its analysis worker: analyses, view models, and the
+// quick fixes of some findings re-checked on copies of the text (server/src/recheck.ts).
 import type { Analysis, AnalysisOptions } from "../../analysis";
+import type { FixRequest, TextFix } from "../../findings/fix";
 import type { ViewModel, ViewOptions } from "../../view";
 
 interface Request {
@@ -13,7 +15,16 @@ interface Request {
 export type WorkerRequest =
   | (Request & { kind: "analyse" })
   /** The view model of the analysis of `text` with `options` (the worker's own, if it has it). */
-  | (Request & { kind: "view"; view: ViewOptions });
+  | (Request & { kind: "view"; view: ViewOptions })
+  /** The fixes of each request that survive their re-check on copies of `text`, analysed with
+   * `options` (the text's own analysis reused when the worker has it). */
+  | (Request & { kind: "fixes"; fixes: FixJob });
+
+/** What a fixes request asks: the findings' requests and the time for every re-check together. */
+export interface FixJob {
+  requests: FixRequest[];
+  budgetMs: number;
+}
 
 export type WorkerReply =
   /** Sent once the worker has loaded (and built its parser): before that it cannot look at a
@@ -22,4 +33,5 @@ export type WorkerReply =
   /** The server's copy (server-copy.ts): each pose of the sweep keeps its angles and hand forces. */
   | { id: number; analysis: Analysis }
   | { id: number; view: ViewModel }
+  | { id: number; fixes: TextFix[][] }
   | { id: number; error: string };
