@@ -13,6 +13,9 @@ import type { Readouts } from "./checks/readout";
 import type { SymbolTable } from "./model/symbols";
 import { MAX_SPEC_CHARS } from "./limits";
 import { withStop } from "./stop";
+import { inMessageUnits } from "./units/format";
+import type { UnitSystem } from "./units/unit-table";
+import { writtenUnitSystem } from "./model/written-units";
 
 /** The result types the shells read (so they need not reach into the layers for them). */
 export type { Pose, SweepResult } from "./mechanics/types";
@@ -25,6 +28,9 @@ export interface AnalysisOptions {
   quickSteps?: number;
   /** Wall-clock budget for solving and checking, ms; past it the results are partial. */
   budgetMs?: number;
+  /** The system messages are written in; by default the one the spec is written in
+   * (model/written-units.ts). */
+  units?: UnitSystem;
   /** Stop after building the model (syntax and model findings only). */
   modelOnly?: boolean;
   /** A flag another thread raises (non-zero at index 0, over a SharedArrayBuffer) to cancel the
@@ -41,6 +47,8 @@ export interface Analysis {
   sweep?: SweepResult;
   findings: Finding[];
   readouts: Readouts;
+  /** The system its messages are written in (the reader's choice, else the spec's own). */
+  units?: UnitSystem;
   /** Milliseconds spent in each phase. */
   timings: { parse: number; model: number; solve: number; checks: number };
 }
@@ -103,8 +111,23 @@ function analyseWithin(text: string, options: AnalysisOptions, deadline: number)
     findings.push(finding("syntax.error", e.span, e.message, { data: subject ? { subject } : {} }));
   }
   timings.parse = performance.now() - t;
+  // Messages in the system the reader asked for, else the one the spec is written in.
+  const units = options.units ?? writtenUnitSystem(tree);
+  const result = inMessageUnits(units, () => analyseTree(text, tree, findings, timings, options, deadline));
+  result.units = units;
+  return result;
+}
 
-  t = performance.now();
+/** Builds, solves and checks a parsed text (its syntax findings already in `findings`). */
+function analyseTree(
+  text: string,
+  tree: SyntaxTree,
+  findings: Finding[],
+  timings: Analysis["timings"],
+  options: AnalysisOptions,
+  deadline: number,
+): Analysis {
+  let t = performance.now();
   const built = guard(() => buildModel(tree, text), findings, "building the model");
   timings.model = performance.now() - t;
   const result: Analysis = { text, tree, findings, readouts: {}, timings };

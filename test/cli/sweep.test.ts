@@ -28,6 +28,13 @@ describe("poise sweep", () => {
     const r = poise("sweep", "samples/camera-arm.poise");
     const table = JSON.parse(r.stdout) as SweepJson;
     expect(table.dofs).toEqual(["reach"]);
+    // The fixed units cli.md gives, named in the output.
+    expect((table as unknown as { units: unknown }).units).toEqual({
+      angle: "deg",
+      length: "mm",
+      force: "N",
+      torque: "N*m",
+    });
     // The sample's `steps N` over its one degree of freedom, both ends of its `range` included,
     // in degrees.
     const text = readFileSync("samples/camera-arm.poise", "utf8");
@@ -75,27 +82,27 @@ describe("poise sweep", () => {
     }
   });
 
-  it("gives the same table as CSV, one column per JSON path", () => {
+  it("gives the same table as CSV, one column per JSON path with its unit", () => {
     const json = JSON.parse(poise("sweep", "samples/camera-arm.poise").stdout) as SweepJson;
     const csv = poise("sweep", "samples/camera-arm.poise", "--csv").stdout.trimEnd().split("\n");
     const header = csv[0]!.split(",");
     expect(header).toEqual(
       expect.arrayContaining([
-        "angles/reach",
-        "bodies/reach.lower/x",
-        "bodies/reach.head/angle",
-        "holding_torque/reach",
-        "hand_force/camera",
-        "reactions/reach/x",
-        "reactions/reach/y",
-        "springs/lift/length",
-        "springs/lift/force",
+        "angles/reach [deg]",
+        "bodies/reach.lower/x [mm]",
+        "bodies/reach.head/angle [deg]",
+        "holding_torque/reach [N*m]",
+        "hand_force/camera [N]",
+        "reactions/reach/x [N]",
+        "reactions/reach/y [N]",
+        "springs/lift/length [mm]",
+        "springs/lift/force [N]",
       ]),
     );
     expect(csv).toHaveLength(json.poses.length + 1);
     const row = csv[1]!.split(",");
-    expect(Number(row[header.indexOf("angles/reach")])).toBe(json.poses[0]!.angles.reach);
-    expect(Number(row[header.indexOf("springs/lift/length")])).toBe(json.poses[0]!.springs.lift!.length);
+    expect(Number(row[header.indexOf("angles/reach [deg]")])).toBe(json.poses[0]!.angles.reach);
+    expect(Number(row[header.indexOf("springs/lift/length [mm]")])).toBe(json.poses[0]!.springs.lift!.length);
   });
 
   it("names a two-stage arm's dofs after its parallelograms", () => {

@@ -4,7 +4,9 @@
 import type { DeclarationNode, PropertyNode, SyntaxTree } from "../syntax/ast";
 import type { UnbalancedData } from "../findings/data";
 import type { FixRequest, TextFix } from "../findings/fix";
-import { formatNumber } from "../units/format";
+import { formatNumber, tableUnit, toTableUnit } from "../units/format";
+import type { UnitSystem } from "../units/unit-table";
+import { writtenUnitSystem } from "../model/written-units";
 import {
   declarationNamed,
   finiteNumber as num,
@@ -23,8 +25,10 @@ export type BalanceFixData = Pick<
 
 /** Hand forces in a title to the hundredth of a newton: finer than anyone feels at the hand, and
  * a near-perfect fit then reads 0.00 N rather than 4.56e-10 N. */
-function handForceText(n: number): string {
-  return Math.abs(n) < 1000 ? `${n.toFixed(2)} N` : `${formatNumber(n)} N`;
+function handForceText(n: number, system: UnitSystem): string {
+  const v = toTableUnit(n, "force", system);
+  const unit = tableUnit("force", system);
+  return Math.abs(v) < 1000 ? `${v.toFixed(2)} ${unit}` : `${formatNumber(v)} ${unit}`;
 }
 
 /** The kind word a spring declaration carries (the first, as the model builder reads it). */
@@ -66,11 +70,13 @@ export function balanceFix(
     words.push(`${setting.words} to ${written}`);
   }
   if (edits.length === 0) return undefined;
+  // Hand forces in the system the spec is written in, as its messages are.
+  const system = writtenUnitSystem(tree);
   const before = num(data?.worstHandForceBefore);
   const after = num(data?.worstHandForceAfter);
   const forces =
     before !== undefined && after !== undefined
-      ? ` (worst hand force ${handForceText(before)} → ${handForceText(after)} over every payload)`
+      ? ` (worst hand force ${handForceText(before, system)} → ${handForceText(after, system)} over every payload)`
       : "";
   return { title: `Set ${springId}'s ${words.join(" and ")}${forces}`, edits, preferred: true };
 }

@@ -12,11 +12,11 @@ import { bestSpringFit, idealZeroLengthRate, type SpringFit } from "../mechanics
 import { atJoint, springKind } from "../model/spring-kinds";
 import { signedHandForce } from "../mechanics/hand-force";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
-import { formatResult } from "../units/format";
+import { formatResult, messageUnits } from "../units/format";
 import type { DimensionName } from "../units/dimension";
 
 const formatQuantityFor = (valueSI: number, dimension: DimensionName): string =>
-  formatResult(valueSI, dimension, "si");
+  formatResult(valueSI, dimension, messageUnits());
 
 /** A best-fit first parameter (rate, force, area) below this fraction of the present one means
  * the spring is better left out: common practice, no source. */

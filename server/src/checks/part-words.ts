@@ -1,15 +1,16 @@
 // Words shared by the strength, geometry, stiffness and tipping checks: where a pose lies in the
-// range, which words of the text a part's finding points at, figures in SI display units.
+// range, which words of the text a part's finding points at, figures in the units of this analysis's messages.
 import type { ArmModel, Body, Joint, Origin } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import type { Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
-import { formatNumber, formatResult } from "../units/format";
+import { formatNumber, formatResult, messageUnits } from "../units/format";
 import type { RelatedInfo } from "../findings/finding";
 
-/** A quantity as messages show it (SI display units; the editor shows hovers in either system). */
+/** A quantity as messages show it (in the system of this analysis's messages: units/format.ts
+ * messageUnits; the editor shows hovers in either system). */
 export function show(valueSI: number, dimension: DimensionName): string {
-  return formatResult(valueSI, dimension, "si");
+  return formatResult(valueSI, dimension, messageUnits());
 }
 
 /** A safety factor: two decimals, so 1.96 is not shown as 2.0 next to a limit of 2.0. */

@@ -10,13 +10,14 @@ const USAGE = "usage: poise report FILE [-o OUT.html] [--units si|us]   (without
 interface ReportArgs {
   file: string;
   out?: string;
-  units: "si" | "us";
+  /** Absent: the system the spec is written in. */
+  units?: "si" | "us";
 }
 
 function parseArgs(args: readonly string[]): ReportArgs | string {
   let file: string | undefined;
   let out: string | undefined;
-  let units: "si" | "us" = "si";
+  let units: "si" | "us" | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     if (a === "--units" || a.startsWith("--units=")) {
@@ -34,18 +35,19 @@ function parseArgs(args: readonly string[]): ReportArgs | string {
     else return `poise report: one file at a time (got ${file} and ${a})`;
   }
   if (file === undefined) return `poise report: no file given`;
-  return out !== undefined ? { file, out, units } : { file, units };
+  return { file, ...(out !== undefined ? { out } : {}), ...(units ? { units } : {}) };
 }
 
 /** Builds the report page for a spec's text: the part the tests call without touching files. */
 export function reportHtml(
   text: string,
   file: string,
-  units: "si" | "us" = "si",
+  units?: "si" | "us",
 ): { html: string; errors: number } {
-  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
+  // Figures and messages in the system asked for, else the one the spec is written in.
+  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS, ...(units ? { units } : {}) });
   return {
-    html: reportPage(analysis, { file, units }),
+    html: reportPage(analysis, { file, units: units ?? analysis.units ?? "si" }),
     errors: analysis.findings.filter((f) => f.severity === "error").length,
   };
 }

@@ -14,13 +14,14 @@ const USAGE = "poise results FILE [--json] [--units si|us]";
 interface ResultsArgs {
   file: string;
   json: boolean;
-  units: UnitSystem;
+  /** Absent: the system the spec is written in. */
+  units?: UnitSystem;
 }
 
 function parseArgs(args: readonly string[]): ResultsArgs | string {
   let file: string | undefined;
   let json = false;
-  let units: UnitSystem = "si";
+  let units: UnitSystem | undefined;
   for (let i = 0; i < args.length; i++) {
     const a = args[i]!;
     if (a === "--json") json = true;
@@ -33,18 +34,27 @@ function parseArgs(args: readonly string[]): ResultsArgs | string {
     else return `poise results: one file at a time (got ${file} and ${a})`;
   }
   if (file === undefined) return `poise results: name one .poise file (${USAGE})`;
-  return { file, json, units };
+  return { file, json, ...(units ? { units } : {}) };
 }
 
 /** The record as the JSON that `--json` prints, for a spec's text (what the tests call). */
 export function resultsOf(
   text: string,
-  units: UnitSystem,
-): { json: Record<string, unknown>; record: ResultsRecord; errors: string[]; solved: boolean } {
-  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
+  units?: UnitSystem,
+): {
+  json: Record<string, unknown>;
+  record: ResultsRecord;
+  errors: string[];
+  solved: boolean;
+  units: UnitSystem;
+} {
+  // Figures and messages in the system asked for, else the one the spec is written in.
+  const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS, ...(units ? { units } : {}) });
   const record = buildResults(analysis);
+  const system = units ?? analysis.units ?? "si";
   return {
-    json: resultsJson(record, units),
+    units: system,
+    json: resultsJson(record, system),
     record,
     errors: analysis.findings.filter((f) => f.severity === "error").map((f) => f.message),
     solved: analysis.sweep !== undefined,
@@ -110,7 +120,7 @@ export function runResults(args: string[], out: Output): number {
   const text = readSpec(parsed.file, out, "results");
   if (text === undefined) return 2;
   const r = resultsOf(text, parsed.units);
-  out.out(parsed.json ? `${JSON.stringify(r.json, null, 2)}\n` : resultsText(r.record, parsed.units));
+  out.out(parsed.json ? `${JSON.stringify(r.json, null, 2)}\n` : resultsText(r.record, r.units));
   if (!r.solved)
     out.err(
       `poise results: ${parsed.file} could not be solved, so its figures are missing: ${

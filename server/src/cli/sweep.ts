@@ -1,5 +1,6 @@
 // `poise sweep FILE [--json|--csv]`: the pose table behind the checks, in the fixed units of
-// cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa).
+// cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa), which the
+// JSON names under `units` and each CSV column in brackets after its path.
 import { analyse, type Pose, type SweepResult } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
 import { readSpec, type Output } from "./io";
@@ -32,9 +33,14 @@ export interface SweepTablePose {
 }
 
 export interface SweepTable {
+  /** The fixed units of cli.md, named (a key added to its shape): a torsion spring's `force` is
+   * its torque, in the torque unit. */
+  units: { angle: "deg"; length: "mm"; force: "N"; torque: "N*m" };
   dofs: string[];
   poses: SweepTablePose[];
 }
+
+const UNITS: SweepTable["units"] = { angle: "deg", length: "mm", force: "N", torque: "N*m" };
 
 /** One pose in cli.md's shape, for the nominal load case (the first). Torsion springs have no
  * length (null) and give their torque, N*m, as `force`. */
@@ -61,7 +67,7 @@ function tablePose(pose: Pose): SweepTablePose {
 }
 
 export function sweepTable(sweep: SweepResult): SweepTable {
-  return { dofs: sweep.dofs.map((d) => d.id), poses: sweep.poses.map(tablePose) };
+  return { units: UNITS, dofs: sweep.dofs.map((d) => d.id), poses: sweep.poses.map(tablePose) };
 }
 
 function csvCell(v: number | null | undefined): string {
@@ -72,26 +78,38 @@ function csvName(s: string): string {
   return /[",\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
 }
 
-/** Columns named after the JSON paths, with `/` between the parts: `angles/reach`,
- * `bodies/reach.lower/x`, `reactions/reach/x`, `springs/lift/force`. */
+/** Columns named after the JSON paths, with `/` between the parts, and their unit in brackets:
+ * `angles/reach [deg]`, `bodies/reach.lower/x [mm]`, `reactions/reach/x [N]`,
+ * `springs/lift/force [N]`. */
 export function sweepCsv(table: SweepTable): string {
+  const u = table.units;
   const first = table.poses[0];
-  if (!first) return `${table.dofs.map((d) => csvName(`angles/${d}`)).join(",")}\n`;
+  if (!first) return `${table.dofs.map((d) => csvName(`angles/${d} [${u.angle}]`)).join(",")}\n`;
   const columns: { name: string; get: (p: SweepTablePose) => number | null | undefined }[] = [];
-  for (const d of Object.keys(first.angles)) columns.push({ name: `angles/${d}`, get: (p) => p.angles[d] });
+  for (const d of Object.keys(first.angles))
+    columns.push({ name: `angles/${d} [${u.angle}]`, get: (p) => p.angles[d] });
   for (const b of Object.keys(first.bodies))
     for (const c of ["x", "y", "angle"] as const)
-      columns.push({ name: `bodies/${b}/${c}`, get: (p) => p.bodies[b]?.[c] });
+      columns.push({
+        name: `bodies/${b}/${c} [${c === "angle" ? u.angle : u.length}]`,
+        get: (p) => p.bodies[b]?.[c],
+      });
   for (const d of Object.keys(first.holding_torque))
-    columns.push({ name: `holding_torque/${d}`, get: (p) => p.holding_torque[d] });
+    columns.push({ name: `holding_torque/${d} [${u.torque}]`, get: (p) => p.holding_torque[d] });
   for (const h of Object.keys(first.hand_force))
-    columns.push({ name: `hand_force/${h}`, get: (p) => p.hand_force[h] });
+    columns.push({ name: `hand_force/${h} [${u.force}]`, get: (p) => p.hand_force[h] });
   for (const j of Object.keys(first.reactions))
     for (const [i, c] of ["x", "y"].entries())
-      columns.push({ name: `reactions/${j}/${c}`, get: (p) => p.reactions[j]?.[i] });
-  for (const s of Object.keys(first.springs))
-    for (const c of ["length", "force"] as const)
-      columns.push({ name: `springs/${s}/${c}`, get: (p) => p.springs[s]?.[c] });
+      columns.push({ name: `reactions/${j}/${c} [${u.force}]`, get: (p) => p.reactions[j]?.[i] });
+  for (const s of Object.keys(first.springs)) {
+    // A torsion spring has no length (null) and gives its torque as its force.
+    const atJoint = first.springs[s]?.length === null;
+    columns.push({ name: `springs/${s}/length [${u.length}]`, get: (p) => p.springs[s]?.length });
+    columns.push({
+      name: `springs/${s}/force [${atJoint ? u.torque : u.force}]`,
+      get: (p) => p.springs[s]?.force,
+    });
+  }
   const rows = [columns.map((c) => csvName(c.name)).join(",")];
   for (const p of table.poses) rows.push(columns.map((c) => csvCell(c.get(p))).join(","));
   return `${rows.join("\n")}\n`;

@@ -7,6 +7,7 @@ import type { LoadCase } from "./types";
 import type { Linkage } from "./linkage";
 import { SWEEP_DEFAULTS } from "../model/schema";
 import { MAX_POSE_BODIES } from "../limits";
+import { formatResult, messageUnits } from "../units/format";
 
 /** The grid of several degrees of freedom is capped at this many poses (conventions). */
 export const MAX_GRID_POSES = 20000;
@@ -48,6 +49,13 @@ export interface SweepPlan {
   quick: boolean;
 }
 
+/** A payload mass in a load case's label: grams in SI (as the spec's masses usually are), else in
+ * the system of this analysis's messages (units/format.ts messageUnits). */
+function massWords(kg: number): string {
+  const system = messageUnits();
+  return system === "si" ? `${(kg * 1000).toFixed(0)} g` : formatResult(kg, "mass", system);
+}
+
 /** Load cases: nominal masses first, then the low and high end of each payload's mass range. */
 export function loadCases(model: ArmModel): LoadCase[] {
   const nominal: Record<string, number> = {};
@@ -58,12 +66,12 @@ export function loadCases(model: ArmModel): LoadCase[] {
     const [lo, hi] = p.massRange;
     cases.push({
       id: `${p.id}.low`,
-      label: `${p.id} at ${(lo * 1000).toFixed(0)} g`,
+      label: `${p.id} at ${massWords(lo)}`,
       payloadMass: { ...nominal, [p.id]: lo },
     });
     cases.push({
       id: `${p.id}.high`,
-      label: `${p.id} at ${(hi * 1000).toFixed(0)} g`,
+      label: `${p.id} at ${massWords(hi)}`,
       payloadMass: { ...nominal, [p.id]: hi },
     });
   }

@@ -43,6 +43,7 @@ import { analyseMobility } from "./mobility";
 import { buildBearing, buildFastening, readUses } from "./build-hardware";
 import type { Bearing, Fastening } from "./types";
 import { emptySymbols, type SymbolKind, type SymbolTable } from "./symbols";
+import { writtenUnitSystem } from "./written-units";
 
 export interface BuildResult {
   model?: ArmModel;
@@ -52,6 +53,7 @@ export interface BuildResult {
 
 export function buildModel(tree: SyntaxTree, text: string): BuildResult {
   const r = new Reporter(text, linesWithSyntaxErrors(tree, text));
+  r.units = writtenUnitSystem(tree);
   if (tree.arms.length === 0) {
     const first = /\S/.exec(text);
     const at = first ? span(first.index, lineEnd(text, first.index)) : span(0, 0);

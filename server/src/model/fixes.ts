@@ -105,6 +105,7 @@ export function modelFixes(text: string, tree: SyntaxTree, req: FixRequest): Tex
     case "name.unknown":
     case "name.unknown-point":
     case "unit.unknown":
+    case "unit.wrong-dimension":
     case "property.unknown":
     case "declaration.unknown":
       fix = unknownNameFix(text, req.span, req.data);

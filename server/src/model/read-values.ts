@@ -4,6 +4,7 @@ import type { DimsNode, PropertyNode, QuantityNode, ReferenceNode, ValueNode } f
 import { LineIndex, span as makeSpan, type Span } from "../syntax/span";
 import type { DimensionName } from "../units/dimension";
 import { checkQuantity, parseUnit } from "../units/quantity";
+import type { UnitSystem } from "../units/unit-table";
 import { closestWord } from "../units/did-you-mean";
 import type { Code } from "../findings/codes";
 import { finding, type Finding, type FindingData, type RelatedInfo } from "../findings/finding";
@@ -26,6 +27,8 @@ export class Reporter {
   private readonly index: LineIndex | undefined;
   /** The model id of the declaration being read: every finding reported meanwhile is about it. */
   private subject: string | undefined;
+  /** The unit system the spec is written in (model/written-units.ts): a missing unit is offered in it. */
+  units: UnitSystem = "si";
 
   constructor(
     readonly text: string,
@@ -183,7 +186,7 @@ function checkedQuantity(
     );
     return undefined;
   }
-  const c = checkQuantity(key, q.value, q.numberText, q.unit?.text, dims);
+  const c = checkQuantity(key, q.value, q.numberText, q.unit?.text, dims, r.units);
   if (
     c.ok &&
     c.valueSI !== 0 &&

@@ -199,3 +199,24 @@ export function formatFigureWithUnit(valueSI: number, dimension: DimensionName, 
 export function formatSI(valueSI: number, dimension: DimensionName): string {
   return formatResult(valueSI, dimension, "si");
 }
+
+/** The system the messages of one analysis are written in (analysis.ts sets it, by default to the
+ * one the spec is written in: model/written-units.ts); SI outside an analysis. One analysis runs
+ * at a time in a thread and sets it around its own work only. */
+let messageSystem: UnitSystem = "si";
+
+/** Runs `work` with messages written in `system`. */
+export function inMessageUnits<T>(system: UnitSystem, work: () => T): T {
+  const outer = messageSystem;
+  messageSystem = system;
+  try {
+    return work();
+  } finally {
+    messageSystem = outer;
+  }
+}
+
+/** The system messages are being written in now. */
+export function messageUnits(): UnitSystem {
+  return messageSystem;
+}

@@ -87,6 +87,41 @@ export const USUAL_UNIT: Readonly<Record<DimensionName, string>> = {
   dimensionless: "",
 };
 
+/** The unit offered for a number written without one in a spec written in US customary units. */
+export const USUAL_UNIT_US: Readonly<Record<DimensionName, string>> = {
+  length: "in",
+  area: "in^2",
+  mass: "lb",
+  force: "lbf",
+  torque: "lbf*in",
+  stiffness: "lbf/in",
+  angular_stiffness: "lbf*in/deg",
+  angle: "deg",
+  pressure: "psi",
+  density: "lb/in^3",
+  acceleration: "ft/s^2",
+  frequency: "Hz",
+  dimensionless: "",
+};
+
+/** The usual unit of a dimension in a system. */
+export function usualUnit(dimension: DimensionName, system: UnitSystem = "si"): string {
+  return (system === "us" ? USUAL_UNIT_US : USUAL_UNIT)[dimension];
+}
+
+/** A pound written for a pound-force, or the other way round (`2 lb` as a force): the unit with
+ * the other one, when that has a dimension the property takes. */
+function poundSwap(unitText: string, expected: readonly DimensionName[]): string | undefined {
+  const swapped = /\blbf\b/.test(unitText)
+    ? unitText.replace(/\blbf\b/g, "lb")
+    : unitText.replace(/\blb\b/g, "lbf");
+  if (swapped === unitText) return undefined;
+  const parsed = parseUnit(swapped);
+  return parsed.ok && expected.some((d) => sameDimension(DIMENSIONS[d], parsed.unit.dimension))
+    ? swapped
+    : undefined;
+}
+
 export type QuantityCheck =
   | { ok: true; valueSI: number; dimension: DimensionName; system: UnitSystem | undefined }
   | {
@@ -104,6 +139,7 @@ function expectation(key: string, expected: readonly DimensionName[]): string {
 /**
  * Checks a number and its unit as written against the dimensions a property accepts and converts
  * to SI. `key` names the property for the message ("mass expects a mass, got a length: 30 mm").
+ * `system` is the one the spec is written in: a missing unit is offered in it.
  */
 export function checkQuantity(
   key: string,
@@ -111,11 +147,12 @@ export function checkQuantity(
   numberText: string,
   unitText: string | undefined,
   expected: readonly DimensionName[],
+  system: UnitSystem = "si",
 ): QuantityCheck {
   if (unitText === undefined) {
     if (expected.includes("dimensionless"))
       return { ok: true, valueSI: value, dimension: "dimensionless", system: undefined };
-    const usual = USUAL_UNIT[expected[0]!];
+    const usual = usualUnit(expected[0]!, system);
     return {
       ok: false,
       problem: "unit.missing",
@@ -137,11 +174,13 @@ export function checkQuantity(
   const match = expected.find((d) => sameDimension(DIMENSIONS[d], parsed.unit.dimension));
   if (!match) {
     const gotText = got ? DIMENSION_WITH_ARTICLE[got] : `a quantity in ${unitText}`;
+    const swap = poundSwap(unitText, expected);
     return {
       ok: false,
       problem: "unit.wrong-dimension",
-      message: `${expectation(key, expected)}, got ${gotText}: ${numberText} ${unitText}`,
+      message: `${expectation(key, expected)}, got ${gotText}: ${numberText} ${unitText}${swap ? ` (${swap.includes("lbf") ? "a pound-force is written lbf" : "a pound of mass is written lb"}: ${numberText} ${swap})` : ""}`,
       onUnit: true,
+      ...(swap ? { suggestion: swap } : {}),
     };
   }
   return { ok: true, valueSI: value * parsed.unit.factor, dimension: match, system: parsed.unit.system };
