@@ -58,10 +58,8 @@ export class SparseLu {
   private readonly mark: Int32Array;
   private readonly order: Int32Array;
   private stamp = 0;
-  /** Scratch for sorting the columns (a transpose and back). */
-  private tStart: Int32Array;
-  private tIdx: Int32Array;
-  private tVal: Float64Array;
+  /** How many columns of L the last solveColumn applied (their indices sorted in `order`). */
+  private pivotalCount = 0;
   /** Smallest |pivot| over the largest |entry| of the last factorization (0 when singular). */
   pivotRatio = 0;
   /** Sign of the determinant of the last factored matrix (+1 or -1; 0 when singular): a change
@@ -80,9 +78,6 @@ export class SparseLu {
     this.urStart = new Int32Array(n + 1);
     this.urCol = new Int32Array(cap);
     this.urVal = new Float64Array(cap);
-    this.tStart = new Int32Array(n + 1);
-    this.tIdx = new Int32Array(cap);
-    this.tVal = new Float64Array(cap);
     this.pinv = new Int32Array(n);
     this.rowAt = new Int32Array(n);
     this.positionOf = new Int32Array(n);
@@ -150,12 +145,11 @@ export class SparseLu {
         for (let p = top; p < n; p++) x[reach[p]!] = 0;
         return this.singular();
       }
-      // U's column k: the rows already pivoted, in pivot order (sorted after the factor).
-      for (let p = top; p < n; p++) {
-        const i = reach[p]!;
-        if (pinv[i]! < 0) continue;
-        this.uRow[unz] = pinv[i]!;
-        this.uVal[unz++] = x[i]!;
+      // U's column k: the rows already pivoted, in pivot order (solveColumn sorted them).
+      for (let m = 0; m < this.pivotalCount; m++) {
+        const col = this.order[m]!;
+        this.uRow[unz] = col;
+        this.uVal[unz++] = x[this.pivotRowOf[col]!]!;
       }
       const pivot = x[pivotRow]!;
       if (pivot < 0) sign = -sign;
@@ -187,8 +181,7 @@ export class SparseLu {
     this.lStart[n] = lnz;
     this.uStart[n] = unz;
     for (let p = 0; p < lnz; p++) this.lRow[p] = pinv[this.lRow[p]!]!;
-    this.sortColumns(this.lStart, this.lRow, this.lVal);
-    this.sortColumns(this.uStart, this.uRow, this.uVal);
+    this.sortColumnsOfL();
     this.buildRowsOfU();
     this.pivotRatio = minPivot / scale;
     this.determinantSign = sign;
@@ -217,6 +210,7 @@ export class SparseLu {
       if (col >= 0) this.order[count++] = col;
     }
     const order = this.order.subarray(0, count).sort();
+    this.pivotalCount = count;
     for (let m = 0; m < count; m++) {
       const col = order[m]!;
       // L's diagonal is 1: no division.
@@ -269,17 +263,26 @@ export class SparseLu {
     return top;
   }
 
-  /** Sorts the entries of each column by row (a transpose and back: linear in the entries);
-   * L's unit diagonal, its smallest row, stays first and U's diagonal, its largest, last. */
-  private sortColumns(start: Int32Array, idx: Int32Array, val: Float64Array): void {
-    const n = this.n;
-    const nnz = start[n]!;
-    if (this.tIdx.length < nnz) {
-      this.tIdx = new Int32Array(nnz);
-      this.tVal = new Float64Array(nnz);
+  /** Sorts the rows below the unit diagonal of each column of L into ascending (pivot) order,
+   * as the transposed solve's dense loop takes them. Columns are short (a few entries), so an
+   * insertion sort. */
+  private sortColumnsOfL(): void {
+    const { lStart, lRow, lVal } = this;
+    for (let j = 0; j < this.n; j++) {
+      const end = lStart[j + 1]!;
+      for (let p = lStart[j]! + 2; p < end; p++) {
+        const row = lRow[p]!;
+        const value = lVal[p]!;
+        let q = p - 1;
+        while (q > lStart[j]! && lRow[q]! > row) {
+          lRow[q + 1] = lRow[q]!;
+          lVal[q + 1] = lVal[q]!;
+          q--;
+        }
+        lRow[q + 1] = row;
+        lVal[q + 1] = value;
+      }
     }
-    transpose(n, start, idx, val, this.tStart, this.tIdx, this.tVal);
-    transpose(n, this.tStart, this.tIdx, this.tVal, start, idx, val);
   }
 
   private buildRowsOfU(): void {
