@@ -3,6 +3,7 @@
 // reveal a part's declaration when it is clicked. Rendering is the shared pure view layer.
 import type { ViewModel } from "../../server/src/view/view-model";
 import { renderArmSvg } from "../../server/src/view/draw-arm";
+import { renderTopViewSvg } from "../../server/src/view/draw-top";
 import { renderPlotSvg } from "../../server/src/view/draw-plot";
 import { handForcePlot, torquePlot } from "../../server/src/view/plots";
 import { nearestPose } from "../../server/src/view/pose-lines";
@@ -39,6 +40,10 @@ function saveState(): void {
   host.setState({ uri, sliderAngles: Object.fromEntries(sliderAngle) });
 }
 let pose = 0;
+/** Heading per swivel id, rad, for the top view (not kept across panels: 0 is the drawing plane). */
+const heading = new Map<string, number>();
+/** The heading sliders' step, deg. */
+const HEADING_STEP_DEG = 5;
 
 const $ = (id: string) => document.getElementById(id)!;
 
@@ -102,10 +107,38 @@ function renderSliders(model: ViewModel): void {
     });
     box.append(label, input, out);
   });
+  // A slider per swivel turns it in the top view; the side view stays the drawing plane.
+  for (const s of model.swivels ?? []) {
+    const label = document.createElement("label");
+    label.htmlFor = `heading-${s.id}`;
+    label.textContent = `${s.id} heading`;
+    const input = document.createElement("input");
+    input.type = "range";
+    input.id = `heading-${s.id}`;
+    const toDeg = (rad: number) => Math.round((rad * 180) / Math.PI);
+    input.min = String(toDeg(s.heading[0]));
+    input.max = String(toDeg(s.heading[1]));
+    input.step = String(HEADING_STEP_DEG);
+    const h = Math.min(s.heading[1], Math.max(s.heading[0], heading.get(s.id) ?? 0));
+    input.value = String(toDeg(h));
+    const out = document.createElement("output");
+    const shown = (rad: number) => `${formatFigure(rad, "angle", model.units)}°`;
+    out.textContent = shown(h);
+    input.addEventListener("input", () => {
+      const rad = (Number(input.value) * Math.PI) / 180;
+      heading.set(s.id, rad);
+      out.textContent = shown(rad);
+      renderPose(model);
+    });
+    box.append(label, input, out);
+  }
 }
 
 function renderPose(model: ViewModel): void {
   $("drawing").innerHTML = renderArmSvg(model, pose, { widthPx: 720 });
+  $("top").innerHTML = model.swivels
+    ? renderTopViewSvg(model, pose, Object.fromEntries(heading), { widthPx: 420 })
+    : "";
   const plots: string[] = [];
   model.dofs.forEach((_, d) => {
     plots.push(renderPlotSvg(torquePlot(model, d, pose)));
@@ -118,7 +151,7 @@ function render(): void {
   if (!vm) {
     $("title").textContent = "No arm to show";
     $("status").textContent = "Open a .poise file to see its arm.";
-    for (const id of ["drawing", "sliders", "plots", "safety", "figures", "findings"]) $(id).textContent = "";
+    for (const id of ["drawing", "sliders", "top", "plots", "safety", "figures", "findings"]) $(id).textContent = "";
     return;
   }
   $("title").textContent = vm.title;
@@ -150,7 +183,7 @@ function renderLimits(): void {
 window.addEventListener("message", (event: MessageEvent<ToPage>) => {
   const msg = event.data;
   if (msg?.type !== "view") return;
-  if (msg.uri !== uri) sliderAngle.clear();
+  if (msg.uri !== uri) (sliderAngle.clear(), heading.clear());
   uri = msg.uri;
   vm = msg.model;
   saveState();

@@ -29,6 +29,7 @@ export function previewHtml(p: PreviewPageParts): string {
 <p id="status"></p>
 <div id="drawing"></div>
 <div id="sliders"></div>
+<div id="top"></div>
 <h2>Torques and hand force</h2>
 <div id="plots"></div>
 <p class="note" id="method"></p>

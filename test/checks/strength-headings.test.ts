@@ -64,3 +64,48 @@ describe("strength over a swivel's headings", () => {
     expect(Math.abs(figure(ctx, "boom", "largest stress")! - sigma) / sigma).toBeLessThan(1e-9);
   });
 });
+
+describe("a working force across the drawing plane", () => {
+  // the knuckle arm without its swivel: a straight cantilever of the flat boom and the tube,
+  // loaded at the tip by the payload's weight P down and F towards the reader
+  const F = 4;
+  function pushedSideways() {
+    const model = knuckleArm();
+    model.swivels = [];
+    model.payloads[0]!.forceAcross = F;
+    return model;
+  }
+
+  it("bends the boom sideways as well: the stresses of both bending axes add at a corner", () => {
+    const model = pushedSideways();
+    const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
+    // Shigley 10th ed., eq. 3-24: 6 M / (w d^2) in the plane and 6 M / (d w^2) across, both
+    // moments the tip load times the reach L1 + L2 at the root
+    const reach = L1 + L2;
+    const sigma = (6 * P * reach) / (w * d * d) + (6 * F * reach) / (d * w * w);
+    expect(Math.abs(figure(ctx, "boom", "largest stress")! - sigma) / sigma).toBeLessThan(1e-6);
+  });
+
+  it("moves the payload sideways: Roark's cantilever with the sideways second moments", async () => {
+    const { checkStiffness } = await import("../../server/src/checks/stiffness");
+    const model = pushedSideways();
+    const ctx = runFamily(checkStiffness, model, treeSweep(model, [{}]));
+    const E = al.modulus;
+    const straight = (load: number, I1: number, I2: number) =>
+      // Roark 8th ed., table 8.1 cases 1a and 3a superposed (as for the in-plane drop)
+      (load * L1 ** 3) / (3 * E * I1) +
+      (load * L2 * L1 ** 2) / (2 * E * I1) +
+      ((load * L1 ** 2) / (2 * E * I1) + (load * L2 * L1) / (E * I1)) * L2 +
+      (load * L2 ** 3) / (3 * E * I2);
+    const s1 = sectionProperties(rectBar);
+    const s2 = sectionProperties(tube);
+    // rectangle: w d^3 / 12 in the plane, d w^3 / 12 across (Roark, table of section properties)
+    const I1 = (w * d ** 3) / 12;
+    const I1across = (d * w ** 3) / 12;
+    expect(s1.secondMomentAcross).toBeCloseTo(I1across, 15);
+    const down = straight(P, I1, s2.secondMoment);
+    const sideways = straight(F, I1across, s2.secondMomentAcross);
+    const total = Math.hypot(down, sideways);
+    expect(Math.abs(figure(ctx, "tool", "deflection under load")! - total) / total).toBeLessThan(1e-9);
+  });
+});

@@ -63,4 +63,16 @@ describe("loads through a swivel", () => {
     expect(knuckle["tilting_moment"]!.value).toBeCloseTo(P * L2, 10);
     expect(knuckle["thrust"]!.value).toBeCloseTo(P, 10);
   });
+
+  it("a working force across the plane loads the knuckle across its axis and twists it", () => {
+    const pushed = turningKnuckleArm();
+    const F = 3;
+    pushed.payloads[0]!.forceAcross = F;
+    const l = swivelLoads(pushed, pose, mass, {})["knuckle"]!;
+    // F towards the reader at the tip, L2 out along x from the axis: a radial load F and, r x F,
+    // a moment F L2 about the vertical axis (what the swivel's friction must hold)
+    expect(l.radial).toBeCloseTo(F, 10);
+    expect(l.twist).toBeCloseTo(F * L2, 10);
+    expect(l.moment).toBeCloseTo(P * L2, 10);
+  });
 });

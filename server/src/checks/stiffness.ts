@@ -12,6 +12,7 @@ import {
   headingSets,
   isQuarterTurn,
   isRangeEnd,
+  loadsAcross,
   Placement,
   type Headings,
   type Vec3,
@@ -271,7 +272,7 @@ export function checkStiffness(ctx: CheckContext): void {
       ],
     );
   // the lean is a figure of arms that turn: in the drawing plane alone it is nought by symmetry
-  reportPayloads(ctx, worst, energyForDeflection, turnedSets.length > 1);
+  reportPayloads(ctx, worst, energyForDeflection, turnedSets.length > 1 || loadsAcross(model));
   if (lowest) reportFrequency(ctx, lowest);
 }
 

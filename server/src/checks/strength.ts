@@ -12,7 +12,7 @@ import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/co
 import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
 import { buildArmFrame } from "../mechanics/structure/arm-frame";
 import { combinedStress } from "../mechanics/structure/combined-stress";
-import { headingSets, type Headings } from "../mechanics/headings";
+import { headingSets, loadsAcross, type Headings } from "../mechanics/headings";
 import { representativePoses, turnedPoses } from "./stiffness";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
@@ -232,7 +232,8 @@ function turnedStrength(
 ): void {
   const { model, sweep } = ctx;
   const sets = headingSets(model, sweep.quick === true);
-  if (sets.length <= 1 || tables.length === 0) return;
+  const across = loadsAcross(model);
+  if ((sets.length <= 1 && !across) || tables.length === 0) return;
   const byBody = new Map(tables.map((t) => [t.body.id, t]));
   // while typing, only the poses the stiffness check turns the swivels at
   const poses = representativePoses(sweep);
@@ -241,8 +242,13 @@ function turnedStrength(
       if (pastDeadline(ctx.options.deadline)) return;
       const masses = payloadMasses(model, sweep, ci);
       let level: Map<string, number> | undefined;
-      for (const headings of sets) {
-        const af = buildArmFrame(model, pose, pose.cases[ci], masses, { headings });
+      // the level: every heading at 0 and, with working forces across the plane, those left out
+      const runs = across ? [{}, ...sets] : sets;
+      for (const [k, headings] of runs.entries()) {
+        const af = buildArmFrame(model, pose, pose.cases[ci], masses, {
+          headings,
+          inPlaneLoadsOnly: across && k === 0,
+        });
         const sol = af.frame.solveStatic();
         if (!sol) break;
         const worstHere = new Map<

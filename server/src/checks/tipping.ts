@@ -7,7 +7,7 @@
 import type { ArmModel } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
-import { headingCombinations, Placement, type Headings } from "../mechanics/headings";
+import { headingCombinations, loadsAcross, Placement, type Headings } from "../mechanics/headings";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
@@ -97,7 +97,7 @@ export function armLoadsTurned(
   for (const p of model.payloads) {
     if (!pose.bodies[p.body]) continue;
     const c = placement.point(p.body, p.point);
-    const f = placement.direction(p.body, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: 0 });
+    const f = placement.direction(p.body, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: p.forceAcross ?? 0 });
     out.push({
       x: c.x,
       y: c.y,
@@ -140,7 +140,8 @@ export function checkTipping(ctx: CheckContext): void {
     | { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string }
     | undefined;
   type Peak = { value: number; pose?: Pose; ci: number; words?: string };
-  const turnedSets = headingCombinations(model, sweep.quick === true).slice(1);
+  // with a working force across the plane the drawing plane's own set needs the 3D sums too
+  const turnedSets = headingCombinations(model, sweep.quick === true).slice(loadsAcross(model) ? 0 : 1);
   let thrust: Peak = { value: 0, ci: 0 };
   let moment: Peak = { value: 0, ci: 0 };
   let radial: Peak = { value: 0, ci: 0 };
@@ -224,7 +225,9 @@ export function checkTipping(ctx: CheckContext): void {
               ci,
               overturning: over,
               restoring,
-              heading: `${[t.heading, words].filter((x) => x).join(", ")}, `,
+              heading:
+                [t.heading, words].filter((x) => x).join(", ") +
+                ([t.heading, words].some((x) => x) ? ", " : ""),
             };
         }
       }

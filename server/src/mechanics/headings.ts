@@ -175,6 +175,12 @@ export function headingSets(model: ArmModel, coarse = false): Headings[] {
   return sets;
 }
 
+/** Whether a payload's working force has a component across the drawing plane: the checks then
+ * read the space frame and the 3D sums even with every heading at 0. */
+export function loadsAcross(model: ArmModel): boolean {
+  return model.payloads.some((p) => (p.forceAcross ?? 0) !== 0);
+}
+
 /** Heading combinations at most: past this (three swivels all the way round would be 13^3 = 2197),
  * the combinations fall back to one swivel turned at a time. */
 export const MAX_HEADING_COMBINATIONS = 400;

@@ -58,7 +58,10 @@ export function carriedWrench(
   for (const p of model.payloads) {
     if (!carried.has(p.body)) continue;
     const weight = { x: 0, y: -(payloadMass[p.id] ?? p.mass) * g, z: 0 };
-    const f = p.force ? placement.direction(p.body, { x: p.force.x, y: p.force.y, z: 0 }) : undefined;
+    const f =
+      p.force || p.forceAcross
+        ? placement.direction(p.body, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: p.forceAcross ?? 0 })
+        : undefined;
     addLoad(
       placement.point(p.body, p.point),
       f ? { x: weight.x + f.x, y: weight.y + f.y, z: weight.z + f.z } : weight,

@@ -5,6 +5,7 @@ import { REQUIREMENT_DEFAULTS, SWEEP_DEFAULTS } from "./schema";
 import {
   isWord,
   pointValue,
+  vectorValue,
   readChoice,
   readQuantity,
   readRange,
@@ -44,14 +45,25 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
     }
   }
   let force: Vec2 | undefined;
+  let forceAcross: number | undefined;
   const fv = p.values("force");
   if (fv) {
     const node = fv.next();
     if (!node || node.kind !== "point") {
       if (node)
-        ctx.r.add("value.invalid", node.span, `\`force\` expects \`(Fx, Fy)\`, e.g. \`force (0 N, -5 N)\``);
+        ctx.r.add(
+          "value.invalid",
+          node.span,
+          `\`force\` expects \`(Fx, Fy)\` or \`(Fx, Fy, Fz)\`, e.g. \`force (0 N, -5 N)\``,
+        );
       else fv.missing("a force `(Fx, Fy)`");
-    } else force = pointValue(node, "force", "force", ctx.r);
+    } else {
+      const f = vectorValue(node, "force", "force", ctx.r);
+      if (f) {
+        force = { x: f.x, y: f.y };
+        if (f.z !== 0) forceAcross = f.z;
+      }
+    }
     fv.finish();
   }
   let at: Payload["point"] | undefined;
@@ -88,6 +100,7 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
     mass: mass?.value ?? (massRange ? massRange[0] : 0),
     ...(massRange ? { massRange } : {}),
     ...(force ? { force } : {}),
+    ...(forceAcross !== undefined ? { forceAcross } : {}),
     origin: p.origin(),
   };
 }

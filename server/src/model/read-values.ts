@@ -289,9 +289,30 @@ export function pointValue(
   r: Reporter,
 ): Vec2 | undefined {
   if (!node || node.kind !== "point") return undefined;
+  if (node.z)
+    r.add(
+      "value.invalid",
+      node.z.span,
+      `\`${key}\` takes a point in the drawing plane, \`(x, y)\`: a third component is only for a payload's working \`force\``,
+    );
   const x = quantityValue(node.x, key, [dim], r);
   const y = quantityValue(node.y, key, [dim], r);
   return x === undefined || y === undefined ? undefined : { x, y };
+}
+
+/** `(x, y)` or `(x, y, z)`: a working load in three dimensions, z out of the drawing plane towards
+ * the reader (absent: 0). */
+export function vectorValue(
+  node: ValueNode | undefined,
+  key: string,
+  dim: DimensionName,
+  r: Reporter,
+): { x: number; y: number; z: number } | undefined {
+  if (!node || node.kind !== "point") return undefined;
+  const x = quantityValue(node.x, key, [dim], r);
+  const y = quantityValue(node.y, key, [dim], r);
+  const z = node.z ? quantityValue(node.z, key, [dim], r) : 0;
+  return x === undefined || y === undefined || z === undefined ? undefined : { x, y, z };
 }
 
 export function readPoint(v: Values, dim: DimensionName): Read<Vec2> | undefined {

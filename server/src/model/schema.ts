@@ -555,7 +555,7 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
       {
         key: "force",
         shape: { type: "vector", dimension: "force" },
-        doc: "Steady working force (Fx, Fy), world.",
+        doc: "Steady working force (Fx, Fy), world, or (Fx, Fy, Fz) with z out of the drawing plane towards the reader.",
         example: "force (0 N, -5 N)",
       },
       {

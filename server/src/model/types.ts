@@ -258,8 +258,12 @@ export interface Payload {
   mass: number;
   /** kg, low <= high; the balance checks hold for every mass in it. */
   massRange?: [number, number];
-  /** Steady working load, world, N. */
+  /** Steady working load, world, N: its components in the drawing plane. */
   force?: Vec2;
+  /** Its component out of the drawing plane (towards the reader), N, when not 0: the plane's
+   * statics do not see it (the pins hold it across); the space frame, the swivels' loads and
+   * tipping do. */
+  forceAcross?: number;
   /** The fastening that clamps it to its body. */
   fastening?: string;
   origin: Origin;

@@ -27,11 +27,12 @@ export interface RangeNode {
   readonly span: Span;
 }
 
-/** `(x, y)` */
+/** `(x, y)`, or `(x, y, z)` for a working load in three dimensions */
 export interface PointNode {
   readonly kind: "point";
   readonly x: QuantityNode;
   readonly y: QuantityNode;
+  readonly z?: QuantityNode;
   readonly span: Span;
 }
 

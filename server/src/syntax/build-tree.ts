@@ -378,9 +378,12 @@ export class TreeBuilder {
     const lparen = tokens(c, "LParen")[0]!;
     const qs = nodes(c, "quantity").map((q) => this.quantity(q));
     const comma = tokens(c, "Comma")[0];
+    const comma2 = tokens(c, "Comma")[1];
     const rparen = tokens(c, "RParen")[0];
     const x = qs[0] && (!comma || qs[0].span.start < comma.startOffset) ? qs[0] : undefined;
     const y = x ? qs[1] : qs[0];
+    const z = comma2 ? qs.find((q) => q.span.start > comma2.startOffset) : undefined;
+    if (comma2 && !z) this.error("expected the third component after `,`", tokenSpan(comma2));
     if (!x)
       this.error(
         "expected the point's x after `(`, e.g. `(40 mm, 0 mm)`",
@@ -390,7 +393,7 @@ export class TreeBuilder {
     else if (!y) this.error("expected the point's y after `,`", tokenSpan(comma));
     else if (!rparen) this.error("unclosed `(`: expected `)` after the point's y", tokenSpan(lparen));
     if (!x || !y || !comma) return undefined;
-    return { kind: "point", x, y, span: nodeSpan(node) };
+    return { kind: "point", x, y, ...(z ? { z } : {}), span: nodeSpan(node) };
   }
 
   private reference(node: CstNode): ReferenceNode {

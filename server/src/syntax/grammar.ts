@@ -187,12 +187,16 @@ export class ArmGrammar extends CstParser {
     });
   });
 
-  /** `(x, y)`; every part may be missing (the builder reports which). */
+  /** `(x, y)` or `(x, y, z)`; every part may be missing (the builder reports which). */
   public point = this.RULE("point", () => {
     this.CONSUME(LParen);
     this.OPTION(() => this.SUBRULE(this.quantity));
     this.OPTION2(() => this.CONSUME(Comma));
     this.OPTION3(() => this.SUBRULE2(this.quantity));
+    this.OPTION5(() => {
+      this.CONSUME2(Comma);
+      this.OPTION6(() => this.SUBRULE3(this.quantity));
+    });
     this.OPTION4(() => this.CONSUME(RParen));
   });
 

@@ -15,6 +15,7 @@ import type {
   ViewModel,
   ViewPart,
   ViewPose,
+  ViewSwivel,
   ViewRange,
   SafetyRow,
 } from "./view-model";
@@ -22,6 +23,7 @@ import { linesPerDof, nearestPose, thinPoses } from "./pose-lines";
 import { EMPTY_BOUNDS, payloadPaths, viewBounds } from "./envelope";
 import { buildResults } from "../checks/results";
 import { atJoint } from "../model/spring-kinds";
+import { carriedBodies } from "../model/build-swivels";
 
 /** What the view needs of an analysis (an `Analysis` fits). */
 export interface ViewInput {
@@ -257,6 +259,26 @@ export interface ViewOptions {
   maxPoses?: number;
 }
 
+/** The swivels for the top view, deepest first, the base's yaw last; undefined when no swivel
+ * turns a stage above the base (a base's yaw alone turns the arm as a whole: the side view says
+ * it all). */
+function viewSwivels(model: ArmModel): ViewSwivel[] | undefined {
+  const all = model.swivels ?? [];
+  if (!all.some((s) => s.joint)) return undefined;
+  const carried = new Map(all.map((s) => [s.id, carriedBodies(model.joints, s).bodies]));
+  const depth = (id: string) =>
+    all.filter((o) => o.id !== id && carried.get(o.id)!.has(all.find((s) => s.id === id)!.parent)).length;
+  return [...all]
+    .sort((a, b) => depth(b.id) - depth(a.id))
+    .map((s) => ({
+      id: s.id,
+      parent: s.parent,
+      local: [localLength(s.point.x), localLength(s.point.y)] as [number, number],
+      carried: [...carried.get(s.id)!],
+      heading: [angle(s.heading?.[0] ?? -Math.PI), angle(s.heading?.[1] ?? Math.PI)] as [number, number],
+    }));
+}
+
 export function buildViewModel(input: ViewInput, options: ViewOptions = {}): ViewModel {
   const index = new LineIndex(input.text);
   const model = input.model;
@@ -372,6 +394,11 @@ export function buildViewModel(input: ViewInput, options: ViewOptions = {}): Vie
     vm.dofs.map((d) => d.range[1] - d.range[0]),
   );
   vm.envelope = payloadPaths(vm);
+  const turning = viewSwivels(model);
+  if (turning) {
+    vm.swivels = turning;
+    if (model.base?.footprint) vm.footprintDepth = localLength(model.base.footprint.depth);
+  }
   vm.bounds = viewBounds(vm);
   return vm;
 }

@@ -3,6 +3,7 @@
 import type { ViewModel } from "./view-model";
 import { renderArmSvg } from "./draw-arm";
 import { renderPlotSvg, type PlotSpec } from "./draw-plot";
+import { renderTopViewSvg } from "./draw-top";
 import { torquePlot, handForcePlot } from "./plots";
 import { nearestPose } from "./pose-lines";
 import { findingsHtml, poseSummaryHtml, poseTableHtml, safetyTableHtml } from "./tables";
@@ -68,6 +69,22 @@ function atReference(vm: ViewModel, d: number, spec: PlotSpec): PlotSpec {
   };
 }
 
+/** For an arm that turns above its base: the reference pose seen from above, straight and with
+ * each swivel between stages turned a quarter turn (or as far as its range goes), where a stage
+ * across the one below twists it and bends it sideways. */
+function topViews(vm: ViewModel): string {
+  if (!vm.swivels || !vm.poses.length) return "";
+  const across: Record<string, number> = {};
+  for (const s of vm.swivels)
+    if (s.parent !== vm.bodies.find((b) => b.kind === "base")?.id)
+      across[s.id] = Math.max(s.heading[0], Math.min(s.heading[1], Math.PI / 2));
+  return [
+    `<h2>Seen from above</h2>`,
+    `<p class="note">The reference pose from above (the side view's reader at the bottom), straight and with each swivel between stages turned across; the dashed arcs are the payload's path as each swivel turns through its range. The stiffness and strength findings name the heading where each figure is worst.</p>`,
+    `<div class="drawing">${renderTopViewSvg(vm, vm.referencePose, {}, { widthPx: 370 })}${renderTopViewSvg(vm, vm.referencePose, across, { widthPx: 370 })}</div>`,
+  ].join("\n");
+}
+
 export interface ReportOptions {
   /** The spec's path as the user gave it. */
   file: string;
@@ -93,6 +110,7 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
         ]
       : []),
     rangeEnds(vm),
+    ...(vm.swivels && vm.poses.length ? [topViews(vm)] : []),
     `<h2>Torques and hand force</h2>`,
     vm.poses.length
       ? `<div class="plots">${plots}</div><p class="note">${esc(vm.torqueMethod)} Plotted along each degree of freedom with the others at the reference pose; the grey dashed upright line marks the reference pose itself (the drawing above), the shaded band the hand force <code>require balance</code> allows.</p>`

@@ -64,6 +64,18 @@ export interface ViewPayload {
   mass: number;
 }
 
+/** A swivel for the top view: it turns `carried` about the vertical through its point (the base's
+ * yaw: everything but the base, about the base's origin). */
+export interface ViewSwivel {
+  id: string;
+  /** The body that holds its axis, and the axis point on it, local m. */
+  parent: string;
+  local: [number, number];
+  carried: string[];
+  /** The range it turns through, rad (all the way round: [-pi, pi]). */
+  heading: [number, number];
+}
+
 export interface ViewDof {
   id: string;
   /** Range and reference angle, rad. */
@@ -123,6 +135,11 @@ export interface ViewModel {
   surface: number;
   /** Base footprint width along x, m, centred on x = 0, when given. */
   footprint?: number;
+  /** Base footprint depth across the drawing plane, m, when given (the top view draws it). */
+  footprintDepth?: number;
+  /** Swivels, deepest first (a swivel carried by another comes before it), when the arm turns
+   * somewhere above its base: the preview and the report then show a top view. */
+  swivels?: ViewSwivel[];
   /** World extent over every pose, m: [minX, minY, maxX, maxY]. */
   bounds: [number, number, number, number];
   parts: ViewPart[];

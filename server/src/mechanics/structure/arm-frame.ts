@@ -38,6 +38,8 @@ export interface ArmFrameOptions {
   planar?: boolean;
   /** Each swivel's heading (absent: 0, the drawing plane). */
   headings?: Headings;
+  /** Leave out the working forces' components across the drawing plane (`forceAcross`). */
+  inPlaneLoadsOnly?: boolean;
 }
 
 /** Tangent rate dT/dL of a two-point spring at `length`, N/m (its kind's law; 0 for a spring
@@ -225,7 +227,9 @@ export function buildArmFrame(
     payloadNode[p.id] = n;
     lump(n, payloadMass[p.id] ?? p.mass);
     // a working force is written in the drawing's axes and turns with the payload's stage
-    if (p.force) frame.addLoad(n, placement.direction(body.id, { x: p.force.x, y: p.force.y, z: 0 }));
+    const across = options.inPlaneLoadsOnly ? 0 : (p.forceAcross ?? 0);
+    if (p.force || across)
+      frame.addLoad(n, placement.direction(body.id, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: across }));
   }
   return { frame, payloadNode, endNode, memberBody };
 }
