@@ -75,4 +75,17 @@ describe("loads through a swivel", () => {
     expect(l.twist).toBeCloseTo(F * L2, 10);
     expect(l.moment).toBeCloseTo(P * L2, 10);
   });
+
+  it("says whether the swivel's friction holds the moment about its axis", () => {
+    const pushed = turningKnuckleArm();
+    pushed.payloads[0]!.forceAcross = 3;
+    const knuckle = pushed.swivels!.find((s) => s.id === "knuckle")!;
+    // the moment about the axis is F L2 = 0.6 N*m (r x F above): a friction of 0.5 N*m does not hold it
+    knuckle.friction = 0.5;
+    let ctx = runFamily(checkSwivels, pushed, treeSweep(pushed, [{}]));
+    expect(ctx.readouts["knuckle"]!.notes.join(" ")).toContain("turns by itself");
+    knuckle.friction = 0.7;
+    ctx = runFamily(checkSwivels, pushed, treeSweep(pushed, [{}]));
+    expect(ctx.readouts["knuckle"]!.notes.join(" ")).toContain("holds the largest moment");
+  });
 });

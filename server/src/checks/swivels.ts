@@ -105,5 +105,23 @@ function reportLoads(ctx: CheckContext): void {
         : []),
       ...fig("bearingRadial", "radial load on the more loaded of its two bearings", "force", "bearing_loads"),
     ]);
+    // A moment about the axis (a leaning axis, a sideways working load) turns the stage by itself
+    // unless the swivel's friction holds it: said in its readout, as a balance drift would be.
+    const twist = p.twist?.value ?? 0;
+    if (twist > TWIST_NOTE_NM)
+      addFigures(
+        ctx.readouts,
+        s.id,
+        "swivel",
+        [],
+        [
+          s.friction !== undefined && s.friction >= twist
+            ? `Its friction (${show(s.friction, "torque")}) holds the largest moment about its axis, ${show(twist, "torque")} (${at("twist")}).`
+            : `Up to ${show(twist, "torque")} about its axis (${at("twist")})${s.friction !== undefined ? `, more than its friction of ${show(s.friction, "torque")}` : " and no friction given"}: the stage turns by itself unless a brake holds it.`,
+        ],
+      );
   }
 }
+
+/** A moment about a swivel's axis under this is nothing to say (round-off of a vertical axis), N*m. */
+const TWIST_NOTE_NM = 1e-6;

@@ -78,6 +78,8 @@ export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, num
 export interface SpaceLoad extends PlaneLoad {
   z: number;
   fz: number;
+  /** A working torque, world axes, N*m. */
+  moment?: { x: number; y: number; z: number };
 }
 
 /** The arm's loads on the base with its swivels turned to `headings`. */
@@ -105,6 +107,7 @@ export function armLoadsTurned(
       fx: f.x,
       fy: -(masses[p.id] ?? p.mass) * model.gravity + f.y,
       fz: f.z,
+      ...(p.torque ? { moment: placement.direction(p.body, p.torque) } : {}),
     });
   }
   return out;
@@ -120,7 +123,11 @@ export function overturningToward(
   surface: number,
 ): number {
   let m = 0;
-  for (const l of loads) m += -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
+  for (const l of loads) {
+    m += -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
+    // a couple tips the base about the edge's line, y x u = (uz, 0, -ux)
+    if (l.moment) m += l.moment.x * uz - l.moment.z * ux;
+  }
   return m;
 }
 
@@ -141,7 +148,9 @@ export function checkTipping(ctx: CheckContext): void {
     | undefined;
   type Peak = { value: number; pose?: Pose; ci: number; words?: string };
   // with a working force across the plane the drawing plane's own set needs the 3D sums too
-  const turnedSets = headingCombinations(model, sweep.quick === true).slice(loadsAcross(model) ? 0 : 1);
+  const turnedSets = headingCombinations(model, sweep.quick === true).slice(
+    loadsAcross(model) || model.payloads.some((p) => p.torque) ? 0 : 1,
+  );
   let thrust: Peak = { value: 0, ci: 0 };
   let moment: Peak = { value: 0, ci: 0 };
   let radial: Peak = { value: 0, ci: 0 };

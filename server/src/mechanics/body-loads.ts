@@ -109,8 +109,14 @@ export function bodyLoads(
     const at = worldPoint(pose, bodyId, p.point, model);
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     loads.push({ kind: "payload", id: p.id, point: at, force: { x: 0, y: -mass * g }, couple: 0 });
-    if (p.force && (p.force.x !== 0 || p.force.y !== 0))
-      loads.push({ kind: "payload-force", id: p.id, point: at, force: { ...p.force }, couple: 0 });
+    if ((p.force && (p.force.x !== 0 || p.force.y !== 0)) || p.torque?.z)
+      loads.push({
+        kind: "payload-force",
+        id: p.id,
+        point: at,
+        force: { x: p.force?.x ?? 0, y: p.force?.y ?? 0 },
+        couple: p.torque?.z ?? 0,
+      });
   }
   for (const t of ix.torsions.get(bodyId) ?? []) {
     const state = pose.springs[t.spring.id];
@@ -187,8 +193,8 @@ export function localBeamLoads(
     const py = base ? ly : worldY(bp.y, c, s, lx, ly);
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     n = putLocalLoad(out, n, bp, c, s, px, py, 0, -mass * g, 0);
-    if (p.force && (p.force.x !== 0 || p.force.y !== 0))
-      n = putLocalLoad(out, n, bp, c, s, px, py, p.force.x, p.force.y, 0);
+    if ((p.force && (p.force.x !== 0 || p.force.y !== 0)) || p.torque?.z)
+      n = putLocalLoad(out, n, bp, c, s, px, py, p.force?.x ?? 0, p.force?.y ?? 0, p.torque?.z ?? 0);
   }
   for (const t of ix.torsions.get(bodyId) ?? []) {
     const state = pose.springs[t.spring.id];

@@ -175,10 +175,11 @@ export function headingSets(model: ArmModel, coarse = false): Headings[] {
   return sets;
 }
 
-/** Whether a payload's working force has a component across the drawing plane: the checks then
- * read the space frame and the 3D sums even with every heading at 0. */
+/** Whether a payload's working load has a part out of the drawing plane (a force across it, a
+ * torque about an axis in it): the checks then read the space frame and the 3D sums even with
+ * every heading at 0. */
 export function loadsAcross(model: ArmModel): boolean {
-  return model.payloads.some((p) => (p.forceAcross ?? 0) !== 0);
+  return model.payloads.some((p) => (p.forceAcross ?? 0) !== 0 || !!p.torque?.x || !!p.torque?.y);
 }
 
 /** Heading combinations at most: past this (three swivels all the way round would be 13^3 = 2197),

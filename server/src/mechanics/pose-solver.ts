@@ -483,6 +483,8 @@ export class PoseSolver {
           p.force?.x ?? 0,
           (p.force?.y ?? 0) - mass * gravity,
         );
+        // a working torque's in-plane part is a couple on the payload's body
+        if (p.torque?.z) this.qCase[3 * b + 2]! += p.torque.z;
       });
       this.luCurrent.solveTransposed(this.qCase, this.lambda);
       const holdingTorque: Record<string, number> = {};
@@ -516,6 +518,8 @@ export class PoseSolver {
           const jy = payloadJ[k]![2 * i + 1]!;
           weight += (lc.payloadMass[p.id] ?? p.mass) * gravity * jy;
           if (p.force) load -= p.force.x * jx + p.force.y * jy;
+          // a couple's virtual work along the dof: T times the body's turn per unit dof
+          if (p.torque?.z) load -= p.torque.z * this.tangents[i * n + 3 * payloadBody[k]! + 2]!;
         });
         gravityTorque[d.id] = weight;
         loadTorque[d.id] = load;

@@ -65,6 +65,7 @@ export function carriedWrench(
     addLoad(
       placement.point(p.body, p.point),
       f ? { x: weight.x + f.x, y: weight.y + f.y, z: weight.z + f.z } : weight,
+      p.torque ? placement.direction(p.body, p.torque) : undefined,
     );
   }
   return { force, moment, at };

@@ -66,6 +66,24 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
     }
     fv.finish();
   }
+  let torque: Payload["torque"];
+  const tv = p.values("torque");
+  if (tv) {
+    const node = tv.next();
+    if (!node || node.kind !== "point") {
+      if (node)
+        ctx.r.add(
+          "value.invalid",
+          node.span,
+          `\`torque\` expects \`(Tx, Ty, Tz)\`, e.g. \`torque (0 N*m, 0.2 N*m, 0 N*m)\``,
+        );
+      else tv.missing("a torque `(Tx, Ty, Tz)`");
+    } else {
+      const t = vectorValue(node, "torque", "torque", ctx.r);
+      if (t && (t.x !== 0 || t.y !== 0 || t.z !== 0)) torque = t;
+    }
+    tv.finish();
+  }
   let at: Payload["point"] | undefined;
   let body: string | undefined;
   const av = p.values("at");
@@ -85,7 +103,7 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
       }
     }
   }
-  if (mass && mass.value === 0 && !massRange && !force) {
+  if (mass && mass.value === 0 && !massRange && !force && !torque) {
     ctx.r.add(
       "payload.weightless",
       mass.span,
@@ -101,6 +119,7 @@ export function buildPayload(ctx: BuildContext, p: Props, id: string): Payload |
     ...(massRange ? { massRange } : {}),
     ...(force ? { force } : {}),
     ...(forceAcross !== undefined ? { forceAcross } : {}),
+    ...(torque ? { torque } : {}),
     origin: p.origin(),
   };
 }

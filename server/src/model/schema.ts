@@ -559,6 +559,12 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         example: "force (0 N, -5 N)",
       },
       {
+        key: "torque",
+        shape: { type: "vector", dimension: "torque" },
+        doc: "Steady working torque (Tx, Ty, Tz) in the drawing's axes, z out of the plane towards the reader (a rotary tool's reaction, a cable's twist).",
+        example: "torque (0 N*m, 0.2 N*m, 0 N*m)",
+      },
+      {
         key: "range",
         shape: { type: "range", dimension: "mass" },
         doc: "Range of masses (a holder for several tools).",

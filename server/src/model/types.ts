@@ -264,6 +264,9 @@ export interface Payload {
    * statics do not see it (the pins hold it across); the space frame, the swivels' loads and
    * tipping do. */
   forceAcross?: number;
+  /** Steady working torque (a rotary tool's reaction, a cable's twist), N*m, in the drawing's axes
+   * (z out of the plane: the in-plane couple the plane's statics take). */
+  torque?: { x: number; y: number; z: number };
   /** The fastening that clamps it to its body. */
   fastening?: string;
   origin: Origin;

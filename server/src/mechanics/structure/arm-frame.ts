@@ -38,7 +38,8 @@ export interface ArmFrameOptions {
   planar?: boolean;
   /** Each swivel's heading (absent: 0, the drawing plane). */
   headings?: Headings;
-  /** Leave out the working forces' components across the drawing plane (`forceAcross`). */
+  /** Leave out the working loads' parts out of the drawing plane (`forceAcross`, a torque's x and
+   * y): the plane's own loads. */
   inPlaneLoadsOnly?: boolean;
 }
 
@@ -228,8 +229,13 @@ export function buildArmFrame(
     lump(n, payloadMass[p.id] ?? p.mass);
     // a working force is written in the drawing's axes and turns with the payload's stage
     const across = options.inPlaneLoadsOnly ? 0 : (p.forceAcross ?? 0);
-    if (p.force || across)
-      frame.addLoad(n, placement.direction(body.id, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: across }));
+    const t = p.torque ? (options.inPlaneLoadsOnly ? { x: 0, y: 0, z: p.torque.z } : p.torque) : undefined;
+    if (p.force || across || t)
+      frame.addLoad(
+        n,
+        placement.direction(body.id, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: across }),
+        t ? placement.direction(body.id, t) : undefined,
+      );
   }
   return { frame, payloadNode, endNode, memberBody };
 }
