@@ -151,7 +151,8 @@ function render(): void {
   if (!vm) {
     $("title").textContent = "No arm to show";
     $("status").textContent = "Open a .poise file to see its arm.";
-    for (const id of ["drawing", "sliders", "top", "plots", "safety", "figures", "findings"]) $(id).textContent = "";
+    for (const id of ["drawing", "sliders", "top", "plots", "safety", "figures", "findings"])
+      $(id).textContent = "";
     return;
   }
   $("title").textContent = vm.title;
