@@ -1,4 +1,4 @@
-// `poise check` as cli.md fixes it: one line per diagnostic `path:line:column: severity code:
+// `poise check` as docs/cli.md fixes it: one line per diagnostic `path:line:column: severity code:
 // message` (1-based), a one-line summary, or a JSON array; exit 0 / 1 / 2.
 import { beforeAll, describe, expect, it } from "vitest";
 import { readdirSync } from "node:fs";
@@ -43,7 +43,7 @@ describe("poise check", () => {
     expect(r.stdout).toContain(`${file}:2:3: error syntax.error: `);
   });
 
-  it("prints one JSON array with cli.md's fields instead", () => {
+  it("prints one JSON array with docs/cli.md's fields instead", () => {
     const file = specFile("broken.poise", 'arm "x" {\n  link {\n');
     const r = poise("check", file, "samples/camera-arm.poise", "--json");
     const parsed = JSON.parse(r.stdout) as Record<string, unknown>[];

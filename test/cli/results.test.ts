@@ -1,5 +1,5 @@
-// `poise results` as cli.md fixes it (issue 10 item 8): every figure behind the checks, pass or
-// fail, in cli.md's JSON shape, in the units it names; checked against closed forms on a held
+// `poise results` as docs/cli.md fixes it (issue 10 item 8): every figure behind the checks, pass or
+// fail, in docs/cli.md's JSON shape, in the units it names; checked against closed forms on a held
 // cantilever, and on every sample for its shape and exit status.
 import { beforeAll, describe, expect, it } from "vitest";
 import { readdirSync, readFileSync } from "node:fs";
@@ -116,7 +116,7 @@ describe("poise results", { timeout: 120_000 }, () => {
     expect(us.frequency).toBe(si.frequency);
   });
 
-  it("has cli.md's keys for every sample, and exits 1 exactly when the spec has errors", () => {
+  it("has docs/cli.md's keys for every sample, and exits 1 exactly when the spec has errors", () => {
     // The record in process for every sample (spawning one command each is slow on a busy machine),
     // the command itself for one sample without errors and one with.
     for (const name of readdirSync("samples").filter((f) => f.endsWith(".poise"))) {

@@ -1,4 +1,4 @@
-// `poise sweep` as cli.md fixes it: the pose table in JSON (default) or CSV, in fixed units
+// `poise sweep` as docs/cli.md fixes it: the pose table in JSON (default) or CSV, in fixed units
 // (angles deg, lengths mm, forces N, torques N*m), parallelogram bodies as `reach.lower` etc.
 import { beforeAll, describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
@@ -24,11 +24,11 @@ interface SweepJson {
 }
 
 describe("poise sweep", () => {
-  it("gives the camera arm's poses in cli.md's JSON shape and units", () => {
+  it("gives the camera arm's poses in docs/cli.md's JSON shape and units", () => {
     const r = poise("sweep", "samples/camera-arm.poise");
     const table = JSON.parse(r.stdout) as SweepJson;
     expect(table.dofs).toEqual(["reach"]);
-    // The fixed units cli.md gives, named in the output.
+    // The fixed units docs/cli.md gives, named in the output.
     expect((table as unknown as { units: unknown }).units).toEqual({
       angle: "deg",
       length: "mm",

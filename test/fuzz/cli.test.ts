@@ -71,7 +71,7 @@ describe("poise on fuzzed files", () => {
         outside.push(`${e.file}: not one of the files given`);
         continue;
       }
-      // 1-based lines and columns (cli.md); a column may sit one past the line's last character.
+      // 1-based lines and columns (docs/cli.md); a column may sit one past the line's last character.
       const ok = (line: number, col: number) =>
         Number.isInteger(line) &&
         Number.isInteger(col) &&

@@ -42,7 +42,7 @@ describe("analysis log", () => {
     await session.open("file:///work/camera%20arm.poise", CAMERA, 3);
     const line = await logLine((m) => m.message.includes("camera arm.poise"));
     expect(line.type).toBe(MessageType.Info);
-    // The pose count the `poise sweep` command reports for the same text (cli.md, `poise sweep`).
+    // The pose count the `poise sweep` command reports for the same text (docs/cli.md, `poise sweep`).
     const poses = (
       JSON.parse(poise("sweep", "--json", "samples/camera-arm.poise").stdout) as { poses: unknown[] }
     ).poses.length;

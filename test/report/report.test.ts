@@ -1,6 +1,6 @@
 // `poise report`: the page renders with scripts switched off and nothing fetched, shows the
 // drawing with the failing part marked, the plots, the tables, the limits and the cautions; the
-// command's exit status follows cli.md (0 no errors, 1 errors, 2 could not run).
+// command's exit status follows docs/cli.md (0 no errors, 1 errors, 2 could not run).
 import { afterAll, beforeAll, describe, expect, it } from "vitest";
 import { mkdtempSync, readFileSync, existsSync } from "node:fs";
 import { tmpdir } from "node:os";

@@ -41,7 +41,7 @@ interface Section {
   listed?: (model: ArmModel) => string[];
 }
 
-/** The sections of the record, in the order of cli.md. The `safety` key of a section is the
+/** The sections of the record, in the order of docs/cli.md. The `safety` key of a section is the
  * part's least safety factor when no figure fills it. */
 export const RESULT_SECTIONS: readonly Section[] = [
   {
@@ -187,7 +187,7 @@ function unitsOf(record: ResultsRecord, system: UnitSystem): Record<string, stri
   return Object.fromEntries([...used].map((d) => [d, tableUnit(d, system)]));
 }
 
-/** The record as `poise results --json` prints it (cli.md): figures in the table units of
+/** The record as `poise results --json` prints it (docs/cli.md): figures in the table units of
  * `system`, named in `units`; safety factors plain numbers; null where a figure is not computed
  * for a part, or is unlimited (a part that carries no load). */
 export function resultsJson(record: ResultsRecord, system: UnitSystem): Record<string, unknown> {

@@ -1,5 +1,5 @@
 // `poise results FILE [--json] [--units si|us]`: every figure behind the checks, pass or fail
-// (checks/results.ts builds the record), as JSON in cli.md's shape or as lines to read.
+// (checks/results.ts builds the record), as JSON in docs/cli.md's shape or as lines to read.
 // Exit 0 no errors, 1 the spec has errors, 2 the command could not run.
 import { analyse } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";

@@ -1,5 +1,5 @@
 // `poise sweep FILE [--json|--csv]`: the pose table behind the checks, in the fixed units of
-// cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa), which the
+// docs/cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa), which the
 // JSON names under `units` and each CSV column in brackets after its path.
 import { analyse, type Pose, type SweepResult } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
@@ -33,7 +33,7 @@ export interface SweepTablePose {
 }
 
 export interface SweepTable {
-  /** The fixed units of cli.md, named (a key added to its shape): a torsion spring's `force` is
+  /** The fixed units of docs/cli.md, named (a key added to its shape): a torsion spring's `force` is
    * its torque, in the torque unit. */
   units: { angle: "deg"; length: "mm"; force: "N"; torque: "N*m" };
   dofs: string[];
@@ -42,7 +42,7 @@ export interface SweepTable {
 
 const UNITS: SweepTable["units"] = { angle: "deg", length: "mm", force: "N", torque: "N*m" };
 
-/** One pose in cli.md's shape, for the nominal load case (the first). Torsion springs have no
+/** One pose in docs/cli.md's shape, for the nominal load case (the first). Torsion springs have no
  * length (null) and give their torque, N*m, as `force`. */
 function tablePose(pose: Pose): SweepTablePose {
   const statics = pose.cases[0];
