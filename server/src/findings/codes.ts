@@ -114,6 +114,11 @@ export const CODES = {
     words: "spring on one body",
     explanation: "Both hooks of a spring are on one body: it pulls the body on itself and does nothing.",
   },
+  "adjust.no-range": {
+    severity: "warning",
+    words: "adjuster with no mass range",
+    explanation: "An `adjust` line gives a setting per payload mass, but no payload has a mass range.",
+  },
   "joint.unheld": {
     severity: "error",
     words: "joint not held",
@@ -150,6 +155,11 @@ export const CODES = {
     severity: "warning",
     words: "drifts",
     explanation: "A pivot's friction does not hold the arm over part of its range.",
+  },
+  "balance.out-of-travel": {
+    severity: "error",
+    explanation:
+      "Part of a payload's mass range cannot be balanced within `require balance` anywhere in an adjuster's travel.",
   },
   // geometry checks
   "geometry.spring-toggle": {

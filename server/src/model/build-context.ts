@@ -13,9 +13,9 @@ export interface Declared {
   decl: DeclarationNode;
 }
 
-/** Keys that may be given more than once: each `point` names another point; a requirement may be
- * given once per payload. */
-const REPEATABLE_KEYS = new Set(["point"]);
+/** Keys that may be given more than once: each `point` names another point, each `tune` or
+ * `adjust` line frees another thing; a requirement may be given once per payload. */
+const REPEATABLE_KEYS = new Set(["point", "tune", "adjust"]);
 const REPEATABLE_PER_PAYLOAD = new Set(["balance", "tilt", "deflection"]);
 
 /** Names are identifiers: ASCII letters, digits and `_`, not starting with a digit. */

@@ -275,6 +275,14 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       }
     }
     const material = materialOf(ctx, p, "material", "the cord's material");
+    const strands = q("strands", "dimensionless", { positive: true });
+    if (strands && !Number.isInteger(strands.value)) {
+      ctx.r.add(
+        "value.impossible",
+        strands.span,
+        `\`strands\` is a count of cords: a whole number, got ${ctx.r.quote(strands.span)}`,
+      );
+    } else if (strands && area !== undefined) area *= strands.value;
     const stretch = q("max_stretch", "dimensionless", { positive: true });
     if (stretch && stretch.value <= 1)
       ctx.r.add(
@@ -291,6 +299,7 @@ export function buildSpring(ctx: BuildContext, p: Props, id: string): Spring | u
       freeLength: free?.value ?? 0,
       area: area ?? 0,
       material: material ?? "",
+      ...(strands && Number.isInteger(strands.value) && strands.value > 1 ? { strands: strands.value } : {}),
       ...(stretch && stretch.value > 1 ? { maxStretch: stretch.value } : {}),
     };
   }

@@ -32,6 +32,7 @@ import {
 } from "./build-parts";
 import { buildSpring } from "./build-springs";
 import { baseSwivel, buildSwivel, checkSwivelCuts } from "./build-swivels";
+import { readTunings, reportAdjustWithoutRange } from "./build-tuning";
 import {
   buildPayload,
   buildRequirements,
@@ -249,6 +250,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   for (const d of of("spring")) {
     const s = r.about(d.id, () => buildSpring(ctx, d.props, d.id));
     if (s) r.about(d.id, () => readUses(ctx, d.props, { keyword: "spring", spring: s }));
+    if (s) r.about(d.id, () => readTunings(ctx, d.props, s));
     if (s) springs.push(s);
   }
   const payloads: Payload[] = [];
@@ -262,6 +264,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   }
 
   checkSwivelCuts(ctx, joints, swivels, springs);
+  reportAdjustWithoutRange(ctx, springs, payloads);
 
   // 6. Limits and sweep settings.
   const require: Requirements = requireDecl ? buildRequirements(ctx, requireDecl) : defaultRequirements();

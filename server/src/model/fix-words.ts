@@ -39,6 +39,8 @@ export function quantitiesIn(v: ValueNode): QuantityNode[] {
       return [v.low, v.high];
     case "point":
       return [v.x, v.y];
+    case "region":
+      return [v.low.x, v.low.y, v.high.x, v.high.y];
     case "dims":
       return [v.first, v.second];
     case "reference":

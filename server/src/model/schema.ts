@@ -24,7 +24,8 @@ export type ValueShape =
   | { type: "material" }
   | { type: "word"; words: string[] }
   | { type: "flag" } // the key alone, e.g. `fixed`, `yaw`, `extension`
-  | { type: "sequence"; items: (ValueShape | { type: "keyword"; word: string })[] };
+  | { type: "sequence"; items: (ValueShape | { type: "keyword"; word: string })[] }
+  | { type: "tuning" }; // WHAT LO .. HI: `anchor`/`hook` and a region, or a property and its range
 
 export interface PropertySpec {
   key: string;
@@ -536,6 +537,25 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
         springKinds: kindsTaking("hook_fastening"),
         doc: "How the second end's lug or eyelet is held to its body.",
         example: "hook_fastening lug_screws",
+      },
+      {
+        key: "strands",
+        shape: q("dimensionless"),
+        springKinds: ["elastic"],
+        doc: "Number of equal cords side by side (default 1): the cross-section is this many times `area` or `tube`.",
+        example: "strands 2",
+      },
+      {
+        key: "tune",
+        shape: { type: "tuning" },
+        doc: "Frees one thing for the design search (`poise tune`) within bounds: `anchor` or `hook` in a rectangle of its body's frame, or a numeric property in a range. One line each.",
+        example: "tune anchor (-10 mm, 40 mm) .. (10 mm, 120 mm)",
+      },
+      {
+        key: "adjust",
+        shape: { type: "tuning" },
+        doc: "An adjuster set in service (a slot for the anchor, a preload screw, a strut's setting): the analysis gives its setting for each payload mass. Same shape as `tune`.",
+        example: "adjust initial_tension 0 N .. 20 N",
       },
     ],
   },

@@ -2,6 +2,7 @@
 // No editor or protocol types. Every object keeps the span of the text it came from so that any
 // result can be reported on the right words.
 import type { Span } from "../syntax/span";
+import type { DimensionName } from "../units/dimension";
 
 export interface Vec2 {
   x: number;
@@ -182,9 +183,32 @@ export interface CoilGeometry {
   material: string;
 }
 
+/** A spring's `tune` or `adjust` line: one thing the design search may change, within bounds, SI.
+ * `tune`: the search picks one value; `adjust`: an adjuster set in service, one setting per
+ * payload mass. */
+export interface Tuning {
+  mode: "tune" | "adjust";
+  /** `anchor` (the first point of `between`), `hook` (the second), or a property's key. */
+  what: string;
+  /** Anchor and hook: the rectangle in the end's body's frame, least x and y first. */
+  region?: { low: Vec2; high: Vec2 };
+  /** A property: its bounds, SI, low first. */
+  range?: [number, number];
+  /** The dimension the bounds are written in (a torsion preload: an angle or a torque). */
+  dimension?: DimensionName;
+  /** Counts only (strands): whole numbers. */
+  integer?: boolean;
+  /** The whole line, the word after `tune`, and the bounds. */
+  span: Span;
+  whatSpan: Span;
+  boundsSpan: Span;
+}
+
 interface SpringCommon {
   id: string;
   origin: Origin;
+  /** Its `tune` and `adjust` lines, in the order written (absent: none). */
+  tunings?: Tuning[];
   /** How a two-point spring's ends are held: `a` the anchor (first point of `between`), `b` the
    * hook (second point); fastening ids. */
   fastenings?: { a?: string; b?: string };
@@ -215,8 +239,11 @@ export interface ElasticCord extends SpringCommon {
   a: Attachment;
   b: Attachment;
   freeLength: number;
-  /** Unstretched cross-section area, m^2 (from `area` or `tube OD x wall`). */
+  /** Unstretched cross-section area of all its strands together, m^2 (from `area` or `tube OD x
+   * wall`, times `strands`). */
   area: number;
+  /** Equal cords side by side (`strands`; absent: one). */
+  strands?: number;
   material: string;
   maxStretch?: number;
 }

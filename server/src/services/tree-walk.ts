@@ -19,6 +19,8 @@ function quantitiesOf(v: ValueNode): QuantityNode[] {
       return [v.first, v.second];
     case "point":
       return [v.x, v.y];
+    case "region":
+      return [v.low.x, v.low.y, v.high.x, v.high.y];
     case "reference":
       return v.point ? [v.point.x, v.point.y] : [];
     default:

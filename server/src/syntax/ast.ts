@@ -36,6 +36,14 @@ export interface PointNode {
   readonly span: Span;
 }
 
+/** `(x1, y1) .. (x2, y2)`: a rectangle between two corners (a `tune anchor` region). */
+export interface RegionNode {
+  readonly kind: "region";
+  readonly low: PointNode;
+  readonly high: PointNode;
+  readonly span: Span;
+}
+
 /** `a x b`: two quantities joined by `x` (a section's sides, a footprint, a tube's OD x wall). */
 export interface DimsNode {
   readonly kind: "dims";
@@ -64,7 +72,14 @@ export interface StringNode {
   readonly span: Span;
 }
 
-export type ValueNode = QuantityNode | RangeNode | PointNode | DimsNode | ReferenceNode | StringNode;
+export type ValueNode =
+  | QuantityNode
+  | RangeNode
+  | PointNode
+  | RegionNode
+  | DimsNode
+  | ReferenceNode
+  | StringNode;
 
 /** `key value value ...` on one line (or up to `;`). Connective words such as `to`, `and`,
  * `at` stay in `values` as one-part references; the model builder reads them by position. */

@@ -6,6 +6,7 @@ import type {
   DeclarationNode,
   PointNode,
   PropertyNode,
+  RegionNode,
   QuantityNode,
   ReferenceNode,
   StringNode,
@@ -310,10 +311,7 @@ export class TreeBuilder {
 
   private property(item: CstNode, head: IToken): PropertyNode {
     const values: ValueNode[] = [];
-    for (const v of nodes(item.children, "value")) {
-      const node = this.value(v);
-      if (node) values.push(node);
-    }
+    for (const v of nodes(item.children, "value")) values.push(...this.valueNodes(v));
     for (const j of nodes(item.children, "junk")) this.junk(j, head);
     return {
       kind: "property",
@@ -324,11 +322,36 @@ export class TreeBuilder {
   }
 
   private value(v: CstNode): ValueNode | undefined {
+    return this.valueNodes(v)[0];
+  }
+
+  /** A value's nodes: one, except `word (x1, y1) .. (x2, y2)` (a `tune anchor` line), which reads
+   * as the word and the region after it. */
+  private valueNodes(v: CstNode): ValueNode[] {
+    const c = v.children as Children;
+    const ref = nodes(c, "reference")[0];
+    const tail = ref && nodes(ref.children as Children, "regionTail")[0];
+    if (ref && tail) {
+      const word = this.reference(ref, false);
+      const low = this.point(nodes(ref.children as Children, "point")[0]!);
+      const region = low ? this.region(low, tail) : undefined;
+      return region ? [word, region] : [word];
+    }
+    const one = this.singleValue(v);
+    return one ? [one] : [];
+  }
+
+  private singleValue(v: CstNode): ValueNode | undefined {
     const c = v.children as Children;
     const qf = nodes(c, "quantityForm")[0];
     if (qf) return this.quantityForm(qf);
-    const pt = nodes(c, "point")[0];
-    if (pt) return this.point(pt);
+    const pf = nodes(c, "pointForm")[0];
+    if (pf) {
+      const pc = pf.children as Children;
+      const low = this.point(nodes(pc, "point")[0]!);
+      const tail = nodes(pc, "regionTail")[0];
+      return low && tail ? this.region(low, tail) : low;
+    }
     const ref = nodes(c, "reference")[0];
     if (ref) return this.reference(ref);
     const str = tokens(c, "StringLiteral")[0];
@@ -396,7 +419,21 @@ export class TreeBuilder {
     return { kind: "point", x, y, ...(z ? { z } : {}), span: nodeSpan(node) };
   }
 
-  private reference(node: CstNode): ReferenceNode {
+  /** `(x1, y1) .. (x2, y2)` from its first point and the `.. (x2, y2)` after it. */
+  private region(low: PointNode, tail: CstNode): RegionNode | undefined {
+    const tc = tail.children as Children;
+    const dots = tokens(tc, "DotDot")[0]!;
+    const pt = nodes(tc, "point")[0];
+    if (!pt) {
+      this.error("expected the region's far corner `(x, y)` after `..`", tokenSpan(dots));
+      return undefined;
+    }
+    const high = this.point(pt);
+    if (!high) return undefined;
+    return { kind: "region", low, high, span: span(low.span.start, high.span.end) };
+  }
+
+  private reference(node: CstNode, withPoint = true): ReferenceNode {
     const c = node.children as Children;
     const ids = tokens(c, "Identifier").map((t) => ({ text: t.image, span: tokenSpan(t) }));
     const dots = tokens(c, "Dot");
@@ -407,6 +444,11 @@ export class TreeBuilder {
         `expected a point name after \`${this.textOf(span(ids[0]!.span.start, dangling.endOffset! + 1))}\``,
         tokenSpan(dangling),
       );
+    if (!withPoint) {
+      // The point after the name starts a region: the reference is the name alone.
+      const last = dots.length >= ids.length ? dots[dots.length - 1]!.endOffset! + 1 : ids[ids.length - 1]!.span.end;
+      return { kind: "reference", parts: ids, span: span(ids[0]!.span.start, last) };
+    }
     const pt = nodes(c, "point")[0];
     const point = pt ? this.point(pt) : undefined;
     const whole = nodeSpan(node);

@@ -149,7 +149,7 @@ export class ArmGrammar extends CstParser {
     this.lookAtClock();
     this.OR([
       { ALT: () => this.SUBRULE(this.quantityForm) },
-      { ALT: () => this.SUBRULE(this.point) },
+      { ALT: () => this.SUBRULE(this.pointForm) },
       { ALT: () => this.SUBRULE(this.reference) },
       { ALT: () => this.CONSUME(StringLiteral) },
       { ALT: () => this.CONSUME(UnclosedString) },
@@ -175,6 +175,18 @@ export class ArmGrammar extends CstParser {
         },
       ]);
     });
+  });
+
+  /** A point, or a region `(x1, y1) .. (x2, y2)`; the second point may be missing. */
+  public pointForm = this.RULE("pointForm", () => {
+    this.SUBRULE(this.point);
+    this.OPTION(() => this.SUBRULE(this.regionTail));
+  });
+
+  /** `.. (x2, y2)` after a point (also after an inline point: `anchor (x1, y1) .. (x2, y2)`). */
+  public regionTail = this.RULE("regionTail", () => {
+    this.CONSUME(DotDot);
+    this.OPTION(() => this.SUBRULE(this.point));
   });
 
   public quantity = this.RULE("quantity", () => {
@@ -207,7 +219,10 @@ export class ArmGrammar extends CstParser {
       this.CONSUME(Dot);
       this.OPTION(() => this.CONSUME2(Identifier));
     });
-    this.OPTION2(() => this.SUBRULE(this.point));
+    this.OPTION2(() => {
+      this.SUBRULE(this.point);
+      this.OPTION3(() => this.SUBRULE(this.regionTail));
+    });
   });
 }
 

@@ -32,6 +32,7 @@ import { guarded } from "../safe";
 import type { SyntaxView } from "../session/syntax-view";
 import { UNITS_BY_DIMENSION } from "../../services/unit-words";
 import { isSpringKind, SPRING_KIND_TABLE } from "../../model/spring-kinds";
+import { tuningWant } from "../../services/tuning-words";
 
 const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 const NUMBER_THEN_UNIT = /^([-+]?(?:\d+\.?\d*|\.\d+)(?:[eE][-+]?\d+)?)([A-Za-z].*)$/;
@@ -86,6 +87,7 @@ function wantAfter(
   done: string[],
   springKind: string | undefined,
 ): Want | undefined {
+  if (spec.shape.type === "tuning") return tuningWant(done, springKind);
   const last = done[done.length - 1];
   const prevIsNumber = last !== undefined && NUMBER.test(last);
   if (prevIsNumber) return { kind: "units", dimensions: dimensionsFor(spec, springKind) };
