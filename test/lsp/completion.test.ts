@@ -98,6 +98,18 @@ describe("completion", () => {
     expect(at(inside("joint lens_tilt", "connects stage.lower.|")).sort()).toEqual(["end", "start"]);
   });
 
+  it("offers what a `tune` line may free, then `..` and the property's units", () => {
+    // language.md, tuning: `tune anchor|hook REGION` or a numeric property of that kind within bounds
+    const cord = at(inside("spring cord", "tune |"));
+    expect(cord).toEqual(expect.arrayContaining(["anchor", "hook", "free_length", "strands"]));
+    expect(cord).not.toContain("max_stretch"); // a limit the search keeps
+    const torsion = at(inside("spring lens_return", "adjust |"));
+    expect(torsion).toContain("preload");
+    expect(torsion).not.toContain("anchor"); // a torsion spring acts at a joint: no ends to place
+    expect(at(inside("spring cord", "tune free_length 80 |"))).toEqual([...UNITS_BY_DIMENSION.length]);
+    expect(at(inside("spring cord", "tune free_length 80 mm |"))).toEqual([".."]);
+  });
+
   it("stays quiet in comments and strings", () => {
     expect(at(inside("link lens_arm", "# length 90 |"))).toEqual([]);
     expect(at('arm "a |" {\n}')).toEqual([]);

@@ -153,6 +153,21 @@ describe("values", () => {
     });
   });
 
+  test("region: a word and two corners (`tune anchor`), and a missing far corner", () => {
+    const { text, values } = valuesOf("tune anchor (-10 mm, 40 mm) .. (10 mm, 120 mm)");
+    expect(values.map((v) => v.kind)).toEqual(["reference", "region"]);
+    expect(values[0]).toMatchObject({ span: at(text, "anchor") });
+    expect(values[1]).toMatchObject({
+      span: at(text, "(-10 mm, 40 mm) .. (10 mm, 120 mm)"),
+      low: { x: { value: -10 }, y: { value: 40 } },
+      high: { x: { value: 10 }, y: { value: 120 } },
+    });
+    const broken = wrap("  spring s { tune hook (0 mm, 0 mm) .. }");
+    expect(parse(broken).errors).toEqual([
+      { message: "expected the region's far corner `(x, y)` after `..`", span: at(broken, "..") },
+    ]);
+  });
+
   test("sections and dims", () => {
     const rect = valuesOf("section rect 20 mm x 6 mm");
     expect(rect.values.map((v) => v.kind)).toEqual(["reference", "dims"]);

@@ -156,11 +156,6 @@ export const CODES = {
     words: "drifts",
     explanation: "A pivot's friction does not hold the arm over part of its range.",
   },
-  "balance.out-of-travel": {
-    severity: "error",
-    explanation:
-      "Part of a payload's mass range cannot be balanced within `require balance` anywhere in an adjuster's travel.",
-  },
   // geometry checks
   "geometry.spring-toggle": {
     severity: "warning",

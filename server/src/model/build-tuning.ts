@@ -8,7 +8,13 @@ import type { DimensionName } from "../units/dimension";
 import type { Payload, Spring, Tuning } from "./types";
 import { isWord, pointValue, quantityValue, type Values } from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
-import { hasEnds, TUNABLE_ENDS, TUNING_LIMIT_KEYS, tunableProperties, type TunableProperty } from "./tunables";
+import {
+  hasEnds,
+  TUNABLE_ENDS,
+  TUNING_LIMIT_KEYS,
+  tunableProperties,
+  type TunableProperty,
+} from "./tunables";
 import { parseUnit, sameDimension } from "../units/quantity";
 import { DIMENSIONS } from "../units/dimension";
 
@@ -68,7 +74,10 @@ function readTuning(
       ctx.r.add(
         "value.invalid",
         first.span,
-        `${p.what} acts at a joint: it has no ${what} to place; it can ${mode} ${listWords(tunables.map((t) => `\`${t.key}\``), "or")}`,
+        `${p.what} acts at a joint: it has no ${what} to place; it can ${mode} ${listWords(
+          tunables.map((t) => `\`${t.key}\``),
+          "or",
+        )}`,
       );
       return undefined;
     }
@@ -79,7 +88,10 @@ function readTuning(
     ctx.r.add(
       "value.invalid",
       first.span,
-      `${p.what} cannot ${mode} \`${what}\`: ${whyNot(what, spring, has)}; it can ${mode} ${listWords([...ends, ...tunables.map((t) => t.key)].map((k) => `\`${k}\``), "or")}`,
+      `${p.what} cannot ${mode} \`${what}\`: ${whyNot(what, spring, has)}; it can ${mode} ${listWords(
+        [...ends, ...tunables.map((t) => t.key)].map((k) => `\`${k}\``),
+        "or",
+      )}`,
     );
     return undefined;
   }

@@ -65,7 +65,10 @@ export function tunableProperties(s: Spring, has: (key: string) => boolean): Tun
 /** Every numeric property a spring of this kind may tune, however it is given (for completion
  * while the text is being typed). */
 export function tunablePropertiesOfKind(kind: Spring["kind"]): TunableProperty[] {
-  const all = [...tunableProperties({ kind } as Spring, () => true), ...tunableProperties({ kind } as Spring, () => false)];
+  const all = [
+    ...tunableProperties({ kind } as Spring, () => true),
+    ...tunableProperties({ kind } as Spring, () => false),
+  ];
   return all.filter((t, i) => all.findIndex((u) => u.key === t.key) === i);
 }
 

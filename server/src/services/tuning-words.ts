@@ -8,9 +8,7 @@ const NUMBER = /^[-+]?(\d+\.?\d*|\.\d+)([eE][-+]?\d+)?$/;
 const SPRING_KINDS: readonly string[] = ["extension", "zero_length", "elastic", "gas", "torsion"];
 
 export type TuningWant =
-  | { kind: "words"; words: string[] }
-  | { kind: "units"; dimensions: DimensionName[] }
-  | undefined;
+  { kind: "words"; words: string[] } | { kind: "units"; dimensions: DimensionName[] } | undefined;
 
 /** What may come next after the complete words `done` that follow `tune` (or `adjust`). */
 export function tuningWant(done: string[], springKind: string | undefined): TuningWant {

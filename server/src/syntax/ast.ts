@@ -73,13 +73,7 @@ export interface StringNode {
 }
 
 export type ValueNode =
-  | QuantityNode
-  | RangeNode
-  | PointNode
-  | RegionNode
-  | DimsNode
-  | ReferenceNode
-  | StringNode;
+  QuantityNode | RangeNode | PointNode | RegionNode | DimsNode | ReferenceNode | StringNode;
 
 /** `key value value ...` on one line (or up to `;`). Connective words such as `to`, `and`,
  * `at` stay in `values` as one-part references; the model builder reads them by position. */

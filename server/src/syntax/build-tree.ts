@@ -446,7 +446,8 @@ export class TreeBuilder {
       );
     if (!withPoint) {
       // The point after the name starts a region: the reference is the name alone.
-      const last = dots.length >= ids.length ? dots[dots.length - 1]!.endOffset! + 1 : ids[ids.length - 1]!.span.end;
+      const last =
+        dots.length >= ids.length ? dots[dots.length - 1]!.endOffset! + 1 : ids[ids.length - 1]!.span.end;
       return { kind: "reference", parts: ids, span: span(ids[0]!.span.start, last) };
     }
     const pt = nodes(c, "point")[0];
