@@ -114,6 +114,9 @@ export class PoseSolver {
   constructor(
     readonly linkage: Linkage,
     readonly loadCases: LoadCase[],
+    /** Record each body's velocity per dof in every pose (`Pose.bodyVelocities`), for the design
+     * search, which moves spring ends to points no sweep has seen. */
+    private readonly keepBodyVelocities = false,
   ) {
     const n = linkage.cs.n;
     this.model = linkage.model;
@@ -554,7 +557,25 @@ export class PoseSolver {
       payloadJacobian,
       springTorquePerUnit,
       springTorque,
+      ...(this.keepBodyVelocities ? { bodyVelocities: this.bodyVelocities() } : {}),
     };
+  }
+
+  /** Each moving body's (dx/dtheta, dy/dtheta, dphi/dtheta) per dof, dof after dof. */
+  private bodyVelocities(): Record<string, Float64Array> {
+    const g = this.linkage.graph;
+    const n = this.n;
+    const out: Record<string, Float64Array> = {};
+    g.bodyIds.forEach((id, b) => {
+      const v = new Float64Array(3 * this.ndof);
+      for (let d = 0; d < this.ndof; d++) {
+        v[3 * d] = this.tangents[d * n + 3 * b]!;
+        v[3 * d + 1] = this.tangents[d * n + 3 * b + 1]!;
+        v[3 * d + 2] = this.tangents[d * n + 3 * b + 2]!;
+      }
+      out[id] = v;
+    });
+    return out;
   }
 
   /** Adds a spring of force `force` whose unit generalized force is in `this.unit`: to the

@@ -22,6 +22,9 @@ import {
 export interface SolveOptions extends SweepDensity {
   /** performance.now() value past which the sweep stops early (partial result). */
   deadline?: number;
+  /** Keep each body's velocity per dof in every pose (`Pose.bodyVelocities`): the design search
+   * needs it; a sweep for the checks does not. */
+  bodyVelocities?: boolean;
 }
 
 export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepResult {
@@ -34,7 +37,7 @@ export function solveSweep(model: ArmModel, options: SolveOptions = {}): SweepRe
   const dofs = linkage.dofs;
   if (!linkage.ok) return { dofs, loadCases: cases, poses: [], steps: 0, grid, findings };
 
-  const solver = new PoseSolver(linkage, cases);
+  const solver = new PoseSolver(linkage, cases, options.bodyVelocities ?? false);
   const refAngles = Float64Array.from(dofs, (d) => d.reference);
   if (!solver.setCurrent(linkage.qReference, refAngles)) {
     const j = linkage.graph.joints[linkage.driveJoint[linkage.dofDrive[0] ?? 0] ?? 0];

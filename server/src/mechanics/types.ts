@@ -82,6 +82,10 @@ export interface Pose {
    * spring then dof id; the same in every load case, since a spring's force depends on the pose
    * alone. Added by the mechanics core. */
   springTorque?: Record<string, Record<string, number>>;
+  /** Each moving body's velocity per unit of each dof: (dx/dtheta, dy/dtheta, dphi/dtheta) of its
+   * frame's origin, dof after dof in `SweepResult.dofs` order, by body id (the base has none).
+   * Only when the sweep was asked for it (the design search). */
+  bodyVelocities?: Record<string, Float64Array>;
 }
 
 export interface SweepResult {

@@ -1,0 +1,244 @@
+// The design search's measure of a candidate: the worst hand force over every pose, load case
+// and payload, and how far it breaks the limits the search must keep (spring lengths, stretch,
+// stroke and wind-up; coil body stress; friction that held before), from one solved sweep.
+// Springs do not move the arm, so the poses stay; only the tuned springs' parts of the holding
+// torque change. A spring's holding torque per newton of tension is dL/dtheta (virtual work),
+// from its ends' velocities; the rest of the holding torque is the sweep's own.
+import type { ArmModel, Spring } from "../model/types";
+import type { Pose, SweepResult } from "../mechanics/types";
+import { springTension, torsionSpringTorque } from "../mechanics/forces";
+import { handForceVector } from "../mechanics/hand-force";
+import { springWireStrength } from "../checks/spring-strength";
+import { coilBodyShearStress } from "../mechanics/structure/spring-stress";
+import type { CheckContext } from "../checks/index";
+
+export interface Measure {
+  /** Worst hand force over every pose, case and payload, N. */
+  worst: number;
+  /** Per payload, N. */
+  byPayload: Record<string, number>;
+  /** How far the candidate breaks a kept limit, summed as fractions of each limit (0: keeps all). */
+  violation: number;
+  /** What it breaks, in a few words each (for a result that cannot keep them). */
+  broken: string[];
+}
+
+/** Relative slack on a limit (lengths at a limit to rounding). */
+const LIMIT_SLACK = 1e-9;
+
+export class HandForceMeasure {
+  private readonly ndof: number;
+  private readonly dofIds: string[];
+  /** Per pose, per case: the holding torque without the tuned springs' parts, dof after dof. */
+  private readonly baseTorque: Float64Array[][];
+  /** Per pose, per payload: the payload Jacobian (x, y per dof). */
+  private readonly jacobians: (Float64Array | undefined)[][];
+  private readonly poses: Pose[];
+  private readonly add: Float64Array;
+  private readonly tau: Float64Array;
+  private readonly friction: { dof: number; friction: number; before: number }[] = [];
+  /** Each tuned spring's body stress safety before (coil-defined extension springs). */
+  private readonly safetyBefore = new Map<string, number>();
+  private readonly required: number;
+
+  constructor(
+    private readonly model: ArmModel,
+    private readonly sweep: SweepResult,
+    private readonly tuned: readonly Spring[],
+  ) {
+    this.ndof = sweep.dofs.length;
+    this.dofIds = sweep.dofs.map((d) => d.id);
+    this.poses = sweep.poses;
+    this.add = new Float64Array(Math.max(1, this.ndof));
+    this.tau = new Float64Array(Math.max(1, this.ndof));
+    this.required = model.require.safety;
+    const ids = new Set(tuned.map((s) => s.id));
+    this.baseTorque = this.poses.map((pose) =>
+      pose.cases.map((c) => {
+        const t = new Float64Array(Math.max(1, this.ndof));
+        this.dofIds.forEach((d, i) => {
+          let v = c.holdingTorque[d] ?? 0;
+          for (const id of ids) v -= pose.springTorque?.[id]?.[d] ?? 0;
+          t[i] = v;
+        });
+        return t;
+      }),
+    );
+    this.jacobians = this.poses.map((pose) =>
+      model.payloads.map((p) => {
+        const pj = pose.payloadJacobian?.[p.id];
+        if (!pj) return undefined;
+        const j = new Float64Array(2 * Math.max(1, this.ndof));
+        this.dofIds.forEach((d, i) => {
+          j[2 * i] = pj[d]?.x ?? 0;
+          j[2 * i + 1] = pj[d]?.y ?? 0;
+        });
+        return j;
+      }),
+    );
+    // Friction that holds a joint: the tuned design must hold wherever it held before, and drift
+    // no further where it did not (its worst excess over friction, as a fraction, may not grow).
+    sweep.dofs.forEach((d, i) => {
+      const joint = model.joints.find((j) => j.id === d.jointId);
+      if (!joint?.friction) return;
+      let before = 0;
+      for (const pose of this.poses)
+        for (const c of pose.cases)
+          before = Math.max(before, (Math.abs(c.holdingTorque[d.id] ?? 0) - joint.friction) / joint.friction);
+      this.friction.push({ dof: i, friction: joint.friction, before: Math.max(0, before) });
+    });
+    for (const s of tuned) {
+      const sf = this.bodySafety(s, this.largestForce(s));
+      if (sf !== undefined) this.safetyBefore.set(s.id, sf);
+    }
+  }
+
+  /** The measure of the design with `springs` in place of the tuned ones (same order). */
+  measure(springs: readonly Spring[]): Measure {
+    const byPayload: Record<string, number> = {};
+    let worst = 0;
+    let violation = 0;
+    const broken = new Set<string>();
+    const ndof = this.ndof;
+    const payloads = this.model.payloads;
+    const frictionExcess = this.friction.map(() => 0);
+    const largest = springs.map(() => 0);
+    for (let pi = 0; pi < this.poses.length; pi++) {
+      const pose = this.poses[pi]!;
+      this.add.fill(0);
+      springs.forEach((s, k) => {
+        const f = this.springPart(s, pose);
+        if (!f) return;
+        if (Math.abs(f.force) > largest[k]!) largest[k] = Math.abs(f.force);
+        if (f.over > 0) {
+          violation += f.over;
+          broken.add(f.limit);
+        }
+      });
+      const cases = this.baseTorque[pi]!;
+      for (let ci = 0; ci < cases.length; ci++) {
+        const base = cases[ci]!;
+        for (let d = 0; d < ndof; d++) this.tau[d] = base[d]! + this.add[d]!;
+        this.friction.forEach((fr, k) => {
+          const e = (Math.abs(this.tau[fr.dof]!) - fr.friction) / fr.friction;
+          if (e > frictionExcess[k]!) frictionExcess[k] = e;
+        });
+        for (let k = 0; k < payloads.length; k++) {
+          const j = this.jacobians[pi]![k];
+          if (!j) continue;
+          const v = handForceVector(j, this.tau, ndof);
+          const h = Math.hypot(v.x, v.y);
+          const id = payloads[k]!.id;
+          if (!(h <= (byPayload[id] ?? 0))) byPayload[id] = h;
+          if (!(h <= worst)) worst = h;
+        }
+      }
+    }
+    this.friction.forEach((fr, k) => {
+      const grew = frictionExcess[k]! - fr.before;
+      if (frictionExcess[k]! > LIMIT_SLACK && grew > LIMIT_SLACK) {
+        violation += grew;
+        broken.add(`the friction at ${this.dofIds[fr.dof]} no longer holds`);
+      }
+    });
+    springs.forEach((s, k) => {
+      const sf = this.bodySafety(s, largest[k]!);
+      if (sf === undefined) return;
+      const before = this.safetyBefore.get(s.id) ?? Infinity;
+      const need = Math.min(this.required, before);
+      if (sf < need * (1 - LIMIT_SLACK)) {
+        violation += need / sf - 1;
+        broken.add(`spring ${s.id}'s coil body stress`);
+      }
+    });
+    return { worst, byPayload, violation, broken: [...broken] };
+  }
+
+  /** Adds a spring's part of the holding torque at a pose to `this.add`; its force, and how far
+   * it passes a limit there. */
+  private springPart(s: Spring, pose: Pose): { force: number; over: number; limit: string } | undefined {
+    const ndof = this.ndof;
+    if (s.kind === "torsion") {
+      const j = this.model.joints.find((x) => x.id === s.joint);
+      const perUnit = pose.springTorquePerUnit?.[s.id];
+      if (!j || !perUnit) return undefined;
+      const theta = pose.jointAngles[j.id] ?? j.angle;
+      const torque = torsionSpringTorque(s, theta, j.angle);
+      for (let d = 0; d < ndof; d++) this.add[d]! += torque * (perUnit[this.dofIds[d]!] ?? 0);
+      const windUp = s.rate !== 0 ? Math.abs(torque / s.rate) : 0;
+      const over = s.maxAngle !== undefined ? windUp / s.maxAngle - 1 : 0;
+      return { force: torque, over: over > LIMIT_SLACK ? over : 0, limit: `spring ${s.id}'s max_angle` };
+    }
+    const a = this.end(pose, s.a.body, s.a.point.x, s.a.point.y);
+    const b = this.end(pose, s.b.body, s.b.point.x, s.b.point.y);
+    if (!a || !b) return undefined;
+    const dx = b.x - a.x;
+    const dy = b.y - a.y;
+    const length = Math.hypot(dx, dy);
+    const tension = springTension(this.model, s, length);
+    if (length > 0) {
+      const ux = dx / length;
+      const uy = dy / length;
+      // dL/dtheta_d = (vB - vA) . u: the holding torque per newton of tension.
+      for (let d = 0; d < ndof; d++) {
+        const dl = (b.v[2 * d]! - a.v[2 * d]!) * ux + (b.v[2 * d + 1]! - a.v[2 * d + 1]!) * uy;
+        this.add[d]! += tension * dl;
+      }
+    }
+    let over = 0;
+    let limit = "";
+    if (s.kind === "extension" && s.maxLength !== undefined) {
+      over = length / s.maxLength - 1;
+      limit = `spring ${s.id}'s max_length`;
+    } else if (s.kind === "elastic" && s.maxStretch !== undefined && s.freeLength > 0) {
+      over = length / s.freeLength / s.maxStretch - 1;
+      limit = `cord ${s.id}'s max_stretch`;
+    } else if (s.kind === "gas") {
+      const closed = s.extendedLength - s.stroke;
+      over = Math.max(length / s.extendedLength - 1, closed > 0 ? 1 - length / closed : 0);
+      limit = `strut ${s.id}'s stroke`;
+    }
+    return { force: tension, over: over > LIMIT_SLACK ? over : 0, limit };
+  }
+
+  /** A point of a body at a pose, world, and its velocity per dof (x, y per dof). */
+  private end(
+    pose: Pose,
+    body: string,
+    lx: number,
+    ly: number,
+  ): { x: number; y: number; v: Float64Array } | undefined {
+    const f = pose.bodies[body];
+    if (!f) return undefined;
+    const c = Math.cos(f.phi);
+    const s = Math.sin(f.phi);
+    const rx = c * lx - s * ly;
+    const ry = s * lx + c * ly;
+    const v = new Float64Array(2 * Math.max(1, this.ndof));
+    const bv = pose.bodyVelocities?.[body];
+    if (bv)
+      for (let d = 0; d < this.ndof; d++) {
+        const w = bv[3 * d + 2]!;
+        v[2 * d] = bv[3 * d]! - ry * w;
+        v[2 * d + 1] = bv[3 * d + 1]! + rx * w;
+      }
+    return { x: f.x + rx, y: f.y + ry, v };
+  }
+
+  /** The largest force a spring pulls with over the sweep now, N (torsion: N*m). */
+  private largestForce(s: Spring): number {
+    let m = 0;
+    for (const pose of this.poses) m = Math.max(m, Math.abs(pose.cases[0]?.springForce[s.id] ?? 0));
+    return m;
+  }
+
+  /** Coil body safety of an extension spring given by its coil at its largest force (Shigley
+   * eq. 10-7 with the Bergstraesser factor, against the share of S_ut the strength check uses). */
+  private bodySafety(s: Spring, force: number): number | undefined {
+    if (s.kind !== "extension" || !s.coil || !(force > 0)) return undefined;
+    const wire = springWireStrength({ model: this.model } as CheckContext, s.coil);
+    if (!wire) return undefined;
+    const tau = coilBodyShearStress(force, s.coil.meanDiameter, s.coil.wireDiameter);
+    return tau > 0 ? (wire.allowables.extensionBodyTorsion * wire.tensile) / tau : undefined;
+  }
+}
