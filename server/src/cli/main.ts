@@ -1,9 +1,10 @@
-// The `poise` command (bundled to dist/cli.js; bin/poise.js launches it): check, sweep, results, report,
+// The `poise` command (bundled to dist/cli.js; bin/poise.js launches it): check, sweep, results, tune, report,
 // and the language server over stdio for editors other than VS Code.
 import { runCheck } from "./check";
 import { runSweep } from "./sweep";
 import { runReport } from "./report";
 import { runResults } from "./results";
+import { runTune } from "./tune";
 import { processOutput, type Output } from "./io";
 import packageJson from "../../../package.json";
 
@@ -14,6 +15,8 @@ usage:
   poise sweep FILE [--json|--csv]  the pose table: angles deg, lengths mm, forces N, torques N*m
   poise results FILE [--json] [--units si|us]
                                    every figure behind the checks, pass or fail
+  poise tune FILE [--json] [--write]
+                                   the spring settings and places that balance best (tune lines)
   poise report FILE [-o OUT.html] [--units si|us]
                                    a self-contained HTML report
   poise lsp --stdio                the language server over stdin/stdout, for any editor
@@ -57,6 +60,8 @@ export async function main(argv: string[], out: Output = processOutput): Promise
       return runResults(rest, out);
     case "report":
       return runReport(rest, out);
+    case "tune":
+      return runTune(rest, out);
     case "lsp":
       return runLsp(rest, out);
     case "--version":

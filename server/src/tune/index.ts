@@ -15,7 +15,7 @@ import { withStop, cancelled } from "../stop";
 import { applyValues, searchVariables, type Variable } from "./variables";
 import { HandForceMeasure, type Measure } from "./evaluate";
 import { minimise } from "./search";
-import { applyEdits, tunedEdits, type WrittenValue } from "./write";
+import { anglePreloadsOf, applyEdits, tunedEdits, type WrittenValue } from "./write";
 
 /** What the search reads of an analysis (the core's `Analysis` fits). */
 export interface TuneAnalysis {
@@ -136,7 +136,8 @@ function tuneWithin(text: string, options: TuneOptions, deadline: number): TuneR
         : "the arm could not be solved over its range",
     );
   }
-  const variables = searchVariables(model).filter((v) => v.hi > v.lo || v.integer);
+  const anglePreloads = anglePreloadsOf(before.tree);
+  const variables = searchVariables(model, anglePreloads).filter((v) => v.hi > v.lo || v.integer);
   const worstBefore = worstHandForce(before.sweep);
   if (variables.length === 0)
     return emptyResult(
@@ -154,7 +155,7 @@ function tuneWithin(text: string, options: TuneOptions, deadline: number): TuneR
     return emptyResult("the arm could not be solved over its range", { worstBefore });
   const measure = new HandForceMeasure(model, sweep, tunedSprings);
   const springsAt = (x: readonly number[]): Spring[] =>
-    tunedSprings.map((s) => applyValues(model, s, variables, x));
+    tunedSprings.map((s) => applyValues(model, s, variables, x, anglePreloads));
   const now = measure.measure(tunedSprings);
   // A broken limit costs more than any hand force it could buy.
   const penalty = 100 * (now.worst + model.gravity * totalMass(model) + 1);

@@ -83,9 +83,14 @@ export function variablesOfLine(s: Spring, t: Tuning): Variable[] {
 }
 
 /** A default variable around the present value (cli.md: with no `tune` line, every spring's rate
- * and tension). */
-function defaultVariable(model: ArmModel, s: Spring, key: string): Variable | undefined {
-  const dimension = dimensionOf(s, key);
+ * and tension). A torsion preload written as an angle is searched as an angle. */
+function defaultVariable(
+  model: ArmModel,
+  s: Spring,
+  key: string,
+  anglePreloads: ReadonlySet<string>,
+): Variable | undefined {
+  const dimension = key === "preload" && anglePreloads.has(s.id) ? "angle" : dimensionOf(s, key);
   const now = presentValue(s, key, dimension);
   if (now === undefined || !Number.isFinite(now)) return undefined;
   let lo: number;
@@ -101,7 +106,8 @@ function defaultVariable(model: ArmModel, s: Spring, key: string): Variable | un
       break;
     }
     case "preload": {
-      const span = Math.max(DEFAULT_FACTOR * Math.abs(now), s.kind === "torsion" ? s.rate * Math.PI : 0);
+      const turn = dimension === "angle" ? Math.PI : s.kind === "torsion" ? s.rate * Math.PI : 0;
+      const span = Math.max(DEFAULT_FACTOR * Math.abs(now), turn);
       lo = now - span;
       hi = now + span;
       break;
@@ -139,14 +145,18 @@ function defaultVariable(model: ArmModel, s: Spring, key: string): Variable | un
 
 /** The variables of the whole search, `tune` lines only (`adjust` lines are set per payload mass,
  * elsewhere). With no `tune` line in the spec, each spring's defaults. */
-export function searchVariables(model: ArmModel, springIds?: readonly string[]): Variable[] {
+export function searchVariables(
+  model: ArmModel,
+  anglePreloads: ReadonlySet<string> = new Set(),
+  springIds?: readonly string[],
+): Variable[] {
   const springs = model.springs.filter((s) => !springIds || springIds.includes(s.id));
   const written = springs.flatMap((s) =>
     (s.tunings ?? []).filter((t) => t.mode === "tune").flatMap((t) => variablesOfLine(s, t)),
   );
   if (model.springs.some((s) => s.tunings?.some((t) => t.mode === "tune"))) return written;
   return springs.flatMap((s) =>
-    defaultTunedKeys(s, springHas(s)).flatMap((k) => defaultVariable(model, s, k) ?? []),
+    defaultTunedKeys(s, springHas(s)).flatMap((k) => defaultVariable(model, s, k, anglePreloads) ?? []),
   );
 }
 
@@ -156,6 +166,9 @@ export function applyValues(
   s: Spring,
   vars: readonly Variable[],
   values: ArrayLike<number>,
+  /** The torsion springs whose `preload` is written as an angle (its wind-up stays when the
+   * rate changes). */
+  anglePreloads: ReadonlySet<string> = new Set(),
 ): Spring {
   const set = new Map<string, number>();
   vars.forEach((v, i) => {
@@ -238,7 +251,7 @@ export function applyValues(
       const preloadVar = vars.find((v) => v.spring === s.id && v.what === "preload");
       const preloadTorque = !set.has("preload")
         ? // a preload written as an angle winds the new rate up by the same angle
-          "preload" in s.origin.properties && s.rate !== 0 && presetAsAngle(s)
+          anglePreloads.has(s.id) && s.rate !== 0
           ? (s.preloadTorque / s.rate) * rate
           : s.preloadTorque
         : preloadVar?.dimension === "angle"
@@ -247,12 +260,6 @@ export function applyValues(
       return { ...s, rate, preloadTorque, ...(coil ? { coil } : {}) };
     }
   }
-}
-
-/** Whether a torsion spring's `preload` is written as an angle (its wind-up stays when the rate
- * changes). Read from the tuning line's dimension when there is one, else assumed a torque. */
-function presetAsAngle(s: Spring): boolean {
-  return s.tunings?.some((t) => t.what === "preload" && t.dimension === "angle") ?? false;
 }
 
 function moved<A extends { point: Vec2 }>(a: A, set: Map<string, number>, what: string): A {

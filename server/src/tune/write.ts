@@ -14,6 +14,8 @@ import {
   writeInDimension,
 } from "../model/fix-words";
 import { formatNumber } from "../units/format";
+import { parseUnit, sameDimension } from "../units/quantity";
+import { DIMENSIONS } from "../units/dimension";
 import type { Variable } from "./variables";
 
 export interface WrittenValue {
@@ -145,4 +147,17 @@ function endEdit(
   if (uses <= 1) return { edit: { span: point.span, newText: t }, text: t };
   // Shared with a joint or another part: the spring gets its own inline point instead.
   return { edit: { span: ref.span, newText: `${body}${t}` }, text: `${body}${t}` };
+}
+
+/** The torsion springs whose `preload` is written as an angle (`preload 200 deg`). */
+export function anglePreloadsOf(tree: SyntaxTree): Set<string> {
+  const out = new Set<string>();
+  for (const d of declarations(tree)) {
+    if (d.keyword.text !== "spring" || !d.name) continue;
+    const v = propertyOf(d, "preload")?.values[0];
+    const unit = v?.kind === "quantity" ? v.unit?.text : undefined;
+    const parsed = unit ? parseUnit(unit) : undefined;
+    if (parsed?.ok && sameDimension(parsed.unit.dimension, DIMENSIONS.angle)) out.add(d.name.text);
+  }
+  return out;
 }
