@@ -36,6 +36,11 @@ export class HandForceMeasure {
   private readonly poses: Pose[];
   private readonly add: Float64Array;
   private readonly tau: Float64Array;
+  /** Scratch: the two ends' velocities (x, y per dof). */
+  private readonly va: Float64Array;
+  private readonly vb: Float64Array;
+  /** Each tuned torsion spring's joint. */
+  private readonly jointOf = new Map<string, { id: string; angle: number }>();
   private readonly friction: { dof: number; friction: number; before: number }[] = [];
   /** Each tuned spring's body stress safety before (coil-defined extension springs). */
   private readonly safetyBefore = new Map<string, number>();
@@ -51,6 +56,13 @@ export class HandForceMeasure {
     this.poses = sweep.poses;
     this.add = new Float64Array(Math.max(1, this.ndof));
     this.tau = new Float64Array(Math.max(1, this.ndof));
+    this.va = new Float64Array(2 * Math.max(1, this.ndof));
+    this.vb = new Float64Array(2 * Math.max(1, this.ndof));
+    for (const s of tuned)
+      if (s.kind === "torsion") {
+        const j = model.joints.find((x) => x.id === s.joint);
+        if (j) this.jointOf.set(s.id, { id: j.id, angle: j.angle });
+      }
     this.required = model.require.safety;
     const ids = new Set(tuned.map((s) => s.id));
     this.baseTorque = this.poses.map((pose) =>
@@ -159,7 +171,7 @@ export class HandForceMeasure {
   private springPart(s: Spring, pose: Pose): { force: number; over: number; limit: string } | undefined {
     const ndof = this.ndof;
     if (s.kind === "torsion") {
-      const j = this.model.joints.find((x) => x.id === s.joint);
+      const j = this.jointOf.get(s.id);
       const perUnit = pose.springTorquePerUnit?.[s.id];
       if (!j || !perUnit) return undefined;
       const theta = pose.jointAngles[j.id] ?? j.angle;
@@ -169,8 +181,8 @@ export class HandForceMeasure {
       const over = s.maxAngle !== undefined ? windUp / s.maxAngle - 1 : 0;
       return { force: torque, over: over > LIMIT_SLACK ? over : 0, limit: `spring ${s.id}'s max_angle` };
     }
-    const a = this.end(pose, s.a.body, s.a.point.x, s.a.point.y);
-    const b = this.end(pose, s.b.body, s.b.point.x, s.b.point.y);
+    const a = this.end(pose, s.a.body, s.a.point.x, s.a.point.y, this.va);
+    const b = this.end(pose, s.b.body, s.b.point.x, s.b.point.y, this.vb);
     if (!a || !b) return undefined;
     const dx = b.x - a.x;
     const dy = b.y - a.y;
@@ -201,12 +213,13 @@ export class HandForceMeasure {
     return { force: tension, over: over > LIMIT_SLACK ? over : 0, limit };
   }
 
-  /** A point of a body at a pose, world, and its velocity per dof (x, y per dof). */
+  /** A point of a body at a pose, world, and its velocity per dof (x, y per dof) into `v`. */
   private end(
     pose: Pose,
     body: string,
     lx: number,
     ly: number,
+    v: Float64Array,
   ): { x: number; y: number; v: Float64Array } | undefined {
     const f = pose.bodies[body];
     if (!f) return undefined;
@@ -214,7 +227,7 @@ export class HandForceMeasure {
     const s = Math.sin(f.phi);
     const rx = c * lx - s * ly;
     const ry = s * lx + c * ly;
-    const v = new Float64Array(2 * Math.max(1, this.ndof));
+    v.fill(0);
     const bv = pose.bodyVelocities?.[body];
     if (bv)
       for (let d = 0; d < this.ndof; d++) {
