@@ -163,6 +163,8 @@ const NEGLIGIBLE_TENSION_N = 0.01;
 
 /** How each end of a spring between hooks is fastened (issue 12's fastenings). */
 const HOOK_FASTENINGS = ["anchor_fastening", "hook_fastening"];
+/** Every kind takes `tune` and `adjust` lines (what each may free: model/tunables.ts). */
+const TUNING = ["tune", "adjust"];
 
 const rate = <S extends ExtensionSpring | ZeroLengthSpring>(): FitSetting<S> => ({
   key: "rate",
@@ -206,7 +208,7 @@ const EXTENSION: SpringKindDescriptor<"extension"> = {
   properties: {
     required: ["between", "free_length"],
     oneOf: [["rate"], ["wire", "coil", "coils", "material"]],
-    optional: ["initial_tension", "max_length", ...HOOK_FASTENINGS],
+    optional: ["initial_tension", "max_length", ...HOOK_FASTENINGS, ...TUNING],
   },
   balanceKeys: ["rate"],
   fit: [rate(), initialTension(false)],
@@ -229,7 +231,7 @@ const ZERO_LENGTH: SpringKindDescriptor<"zero_length"> = {
   doc: "Ideal zero-free-length spring (e.g. led over a pulley).",
   words: { withArticle: "a zero-length spring", name: "zero-free-length spring" },
   actsAt: "hooks",
-  properties: { required: ["between", "rate"], optional: ["initial_tension", ...HOOK_FASTENINGS] },
+  properties: { required: ["between", "rate"], optional: ["initial_tension", ...HOOK_FASTENINGS, ...TUNING] },
   balanceKeys: ["rate"],
   fit: [rate(), initialTension(true)],
   slackBelowFreeLength: false,
@@ -249,7 +251,7 @@ const ELASTIC: SpringKindDescriptor<"elastic"> = {
   properties: {
     required: ["between", "free_length", "material"],
     oneOf: [["area"], ["tube"]],
-    optional: ["max_stretch", ...HOOK_FASTENINGS],
+    optional: ["max_stretch", "strands", ...HOOK_FASTENINGS, ...TUNING],
   },
   balanceKeys: ["area", "tube"],
   fit: [
@@ -297,7 +299,7 @@ const GAS: SpringKindDescriptor<"gas"> = {
   actsAt: "hooks",
   properties: {
     required: ["between", "force", "progression", "stroke", "extended_length"],
-    optional: [...HOOK_FASTENINGS],
+    optional: [...HOOK_FASTENINGS, ...TUNING],
   },
   balanceKeys: ["force"],
   fit: [
@@ -346,7 +348,7 @@ const TORSION: SpringKindDescriptor<"torsion"> = {
   properties: {
     required: ["at"],
     oneOf: [["rate"], ["coils", "wire", "coil", "material"]],
-    optional: ["preload", "max_angle"],
+    optional: ["preload", "max_angle", ...TUNING],
   },
   balanceKeys: ["rate"],
   fit: [
