@@ -25,3 +25,18 @@ export const REANALYSE_REQUEST = "counterpoise/reanalyse";
 export interface ReanalyseParams {
   uri: string;
 }
+
+/** The tune command (workspace/executeCommand, arguments `[uri]`): runs the design search over the
+ * document's `tune` lines (each spring's rate and tension when it has none) and writes the
+ * re-checked values into it. Offered as the quick fix TUNE_FIX_TITLE. */
+export const TUNE_COMMAND = "counterpoise.tuneSprings";
+export const TUNE_FIX_TITLE = "Search the spring settings that balance best (tune)";
+
+/** What the tune command answers. */
+export interface TuneCommandResult {
+  /** A better design was found and passed its re-check. */
+  improved: boolean;
+  /** Its values were written into the document. */
+  applied: boolean;
+  message: string;
+}

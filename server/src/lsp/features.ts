@@ -11,6 +11,7 @@ import { formattingFeature } from "./features/formatting";
 import { inlayHintsFeature } from "./features/inlay-hints";
 import { codeActionsFeature } from "./features/code-actions";
 import { previewFeature } from "./features/preview-request";
+import { tuneCommandFeature } from "./features/tune-command";
 
 export const FEATURES: ServerFeature[] = [
   documentSymbolsFeature,
@@ -25,4 +26,5 @@ export const FEATURES: ServerFeature[] = [
   // ---- ./code-actions, the preview's requests from ./preview-*).
   codeActionsFeature,
   previewFeature,
+  tuneCommandFeature,
 ];

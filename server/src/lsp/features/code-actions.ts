@@ -16,6 +16,30 @@ import { guarded } from "../safe";
 import { LineIndex } from "../../syntax/span";
 import { CODES } from "../../findings/codes";
 import type { FixRequest, TextFix } from "../../findings/fix";
+import { TUNE_COMMAND, TUNE_FIX_TITLE } from "../custom-protocol";
+import type { DeclarationNode, SyntaxTree } from "../../syntax/ast";
+
+/** The tune command as a code action: on a balance diagnostic (a quick fix), or anywhere in a
+ * spring that has a `tune` line. It runs the search when chosen, not when the lightbulb asks. */
+function tuneAction(uri: string, diagnostics: Diagnostic[]): CodeAction {
+  return {
+    title: TUNE_FIX_TITLE,
+    kind: CodeActionKind.QuickFix,
+    ...(diagnostics.length > 0 ? { diagnostics } : {}),
+    command: { title: TUNE_FIX_TITLE, command: TUNE_COMMAND, arguments: [uri] },
+  };
+}
+
+/** The spring declaration with a `tune` line whose text holds `offset`. */
+function tunedSpringAt(tree: SyntaxTree, offset: number): DeclarationNode | undefined {
+  return tree.arms[0]?.declarations.find(
+    (d) =>
+      d.keyword.text === "spring" &&
+      d.span.start <= offset &&
+      offset <= d.span.end &&
+      d.properties.some((p) => p.key.text === "tune"),
+  );
+}
 
 /** The re-checks of one request may take this many analyses' budgets in all: the text as it is,
  * and a candidate or two (common practice, no source). */
@@ -95,7 +119,14 @@ export const codeActionsFeature: ServerFeature = {
           const request = requestOf(index, diagnostic);
           if (request) asked.push({ diagnostic, request });
         }
-        if (asked.length === 0) return [];
+        // The tune command: on a balance diagnostic, or inside a spring with a `tune` line.
+        const balance = asked.filter((a) => a.request.code === "balance.unbalanced").map((a) => a.diagnostic);
+        const tree = ctx.syntax(doc.uri)?.tree;
+        const tune =
+          balance.length > 0 || (tree && tunedSpringAt(tree, index.offset(params.range.start)))
+            ? [tuneAction(doc.uri, balance)]
+            : [];
+        if (asked.length === 0) return tune;
         const fixes = await checkedFixesOf(
           ctx,
           text,
@@ -103,9 +134,10 @@ export const codeActionsFeature: ServerFeature = {
         );
         // The text may have changed while the worker checked: edits of an older text are stale.
         if (ctx.documents.get(doc.uri)?.getText() !== text) return [];
-        return asked.flatMap((a, i) =>
-          (fixes[i] ?? []).map((f) => toAction(doc.uri, index, f, a.diagnostic)),
-        );
+        return [
+          ...asked.flatMap((a, i) => (fixes[i] ?? []).map((f) => toAction(doc.uri, index, f, a.diagnostic))),
+          ...tune,
+        ];
       }),
     );
   },

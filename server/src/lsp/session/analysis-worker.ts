@@ -10,10 +10,27 @@ import { AnalysisCache } from "./analysis-cache";
 import { serverCopy } from "./server-copy";
 import { checkedFixes } from "../../recheck";
 import type { WorkerRequest, WorkerReply } from "./worker-protocol";
+import { runTune } from "./tune-run";
 
 const cache = new AnalysisCache();
 
 function answer(request: WorkerRequest): WorkerReply {
+  if (request.kind === "tune") {
+    let shown = -1;
+    const reply = runTune(
+      request.text,
+      request.options.budgetMs ?? 60_000,
+      request.cancel,
+      (fraction, message) => {
+        // A message a percent, at most: the server forwards each one to the editor.
+        const step = Math.floor(fraction * 100);
+        if (step === shown) return;
+        shown = step;
+        parentPort?.postMessage({ id: request.id, progress: fraction, message } satisfies WorkerReply);
+      },
+    );
+    return { id: request.id, tune: reply };
+  }
   const options = { ...request.options, cancel: request.cancel };
   if (request.kind === "fixes") {
     const current = cache.get(request.text, request.options);

@@ -12,6 +12,7 @@ import type { FixJob, WorkerReply, WorkerRequest } from "./worker-protocol";
 import type { TextFix } from "../../findings/fix";
 import { checkedFixes } from "../../recheck";
 import { AnalysisCache } from "./analysis-cache";
+import { runTune, type TuneReply } from "./tune-run";
 
 export type RunOutcome =
   | { kind: "done"; analysis: Analysis }
@@ -24,6 +25,17 @@ export type ViewOutcome =
   | { kind: "cancelled" }
   | { kind: "timeout" }
   | { kind: "failed"; message: string };
+
+export type TuneOutcome =
+  | { kind: "done"; tune: TuneReply }
+  | { kind: "cancelled" }
+  | { kind: "timeout" }
+  | { kind: "failed"; message: string };
+
+export interface TuneHandle {
+  readonly outcome: Promise<TuneOutcome>;
+  cancel(): void;
+}
 
 export interface RunHandle {
   readonly outcome: Promise<RunOutcome>;
@@ -50,6 +62,14 @@ export interface AnalysisRunner {
   /** The view model of `text` analysed with `options` (reusing that analysis when the worker
    * still has it), built off the request thread. */
   view(text: string, options: AnalysisOptions, view: ViewOptions, hardLimitMs: number): Promise<ViewOutcome>;
+  /** The design search over the text's `tune` lines, within `budgetMs` (cooperative) and
+   * `hardLimitMs`, reporting progress now and then; cancellable like a run. */
+  tune?(
+    text: string,
+    budgetMs: number,
+    hardLimitMs: number,
+    onProgress: (fraction: number, message: string) => void,
+  ): TuneHandle;
   dispose(): void;
 }
 
@@ -72,7 +92,8 @@ type Outcome =
 type QueuedRequest =
   | { kind: "analyse"; text: string; options: AnalysisOptions }
   | { kind: "view"; text: string; options: AnalysisOptions; view: ViewOptions }
-  | { kind: "fixes"; text: string; options: AnalysisOptions; fixes: FixJob };
+  | { kind: "fixes"; text: string; options: AnalysisOptions; fixes: FixJob }
+  | { kind: "tune"; text: string; options: AnalysisOptions };
 
 interface Job {
   id: number;
@@ -81,6 +102,7 @@ interface Job {
   startedAt?: number;
   settle: (o: Outcome) => void;
   settled: boolean;
+  onProgress?: (fraction: number, message: string) => void;
 }
 
 /** Where the bundled worker sits: beside the bundle that is running (dist/). */
@@ -157,6 +179,20 @@ export class WorkerRunner implements AnalysisRunner, FixChecker {
   ): Promise<TextFix[][] | undefined> {
     const { outcome } = this.enqueue({ kind: "fixes", text, options, fixes }, hardLimitMs);
     return outcome.then((o) => (o.kind === "done" ? (o.value as TextFix[][]) : undefined));
+  }
+
+  tune(
+    text: string,
+    budgetMs: number,
+    hardLimitMs: number,
+    onProgress: (fraction: number, message: string) => void,
+  ): TuneHandle {
+    const { job, outcome } = this.enqueue({ kind: "tune", text, options: { budgetMs } }, hardLimitMs);
+    job.onProgress = onProgress;
+    return {
+      outcome: outcome.then((o) => (o.kind === "done" ? { kind: "done", tune: o.value as TuneReply } : o)),
+      cancel: () => this.cancel(job),
+    };
   }
 
   /** Starts the worker now, so that it has loaded by the time the first document arrives. */
@@ -293,6 +329,10 @@ export class WorkerRunner implements AnalysisRunner, FixChecker {
     }
     const busy = this.busy;
     if (worker !== this.worker || !busy || busy.job.id !== reply.id) return;
+    if ("progress" in reply) {
+      if (!busy.job.settled) busy.job.onProgress?.(reply.progress, reply.message);
+      return;
+    }
     this.faults = 0;
     this.clearBusy();
     const job = busy.job;
@@ -300,7 +340,14 @@ export class WorkerRunner implements AnalysisRunner, FixChecker {
     else
       this.settle(job, {
         kind: "done",
-        value: "analysis" in reply ? reply.analysis : "view" in reply ? reply.view : reply.fixes,
+        value:
+          "analysis" in reply
+            ? reply.analysis
+            : "view" in reply
+              ? reply.view
+              : "tune" in reply
+                ? reply.tune
+                : reply.fixes,
       });
     this.pump();
   }
@@ -384,6 +431,29 @@ export class InThreadRunner implements AnalysisRunner, FixChecker {
     );
   }
 
+  tune(
+    text: string,
+    budgetMs: number,
+    hardLimitMs: number,
+    onProgress: (fraction: number, message: string) => void,
+  ): TuneHandle {
+    // In this thread nothing else is answered while it runs: the in-thread limit holds.
+    const cancel = new Int32Array(new SharedArrayBuffer(4));
+    const outcome = new Promise<TuneOutcome>((resolve) =>
+      setImmediate(() => {
+        if (Atomics.load(cancel, 0) !== 0) return resolve({ kind: "cancelled" });
+        try {
+          const budget = Math.min(budgetMs, hardLimitMs, IN_THREAD_LIMIT_MS);
+          const tune = runTune(text, budget, cancel, onProgress);
+          resolve(tune.cancelled ? { kind: "cancelled" } : { kind: "done", tune });
+        } catch (err) {
+          resolve({ kind: "failed", message: String(err) });
+        }
+      }),
+    );
+    return { outcome, cancel: () => Atomics.store(cancel, 0, 1) };
+  }
+
   /** The run's budget within the in-thread limit and its own hard limit. */
   private bounded(options: AnalysisOptions, hardLimitMs: number): AnalysisOptions {
     return { ...options, budgetMs: Math.min(options.budgetMs ?? Infinity, hardLimitMs, IN_THREAD_LIMIT_MS) };
@@ -445,6 +515,16 @@ export class FallbackRunner implements AnalysisRunner, FixChecker {
     return this.useThread()
       ? this.inThread.checkFixes(text, options, fixes, hardLimitMs)
       : this.worker.checkFixes(text, options, fixes, hardLimitMs);
+  }
+
+  tune(
+    text: string,
+    budgetMs: number,
+    hardLimitMs: number,
+    onProgress: (fraction: number, message: string) => void,
+  ): TuneHandle {
+    if (!this.useThread()) return this.worker.tune(text, budgetMs, hardLimitMs, onProgress);
+    return this.inThread.tune(text, budgetMs, hardLimitMs, onProgress);
   }
 
   private useThread(): boolean {

@@ -4,7 +4,8 @@
 import type { Analysis, AnalysisOptions } from "../../analysis";
 import { finding } from "../../findings/finding";
 import type { SyntaxTree } from "../../syntax/ast";
-import type { AnalysisRunner, RunHandle } from "./runner";
+import type { AnalysisRunner, RunHandle, TuneHandle } from "./runner";
+import { EDITOR_TUNE_BUDGET_MS } from "./tune-run";
 import type { ViewModel, ViewOptions } from "../../view";
 import type { Settings } from "./settings";
 import { reportFault } from "../safe";
@@ -121,6 +122,19 @@ export class AnalysisScheduler {
       return { failed: `the drawing was not ready within ${this.hardLimit()} ms` };
     if (outcome.kind === "failed") return { failed: outcome.message };
     return undefined;
+  }
+
+  /** The design search over `text` (the editor's tune command), in the worker like an analysis,
+   * queued behind the run in progress; cancel it through the handle. */
+  tune(text: string, onProgress: (fraction: number, message: string) => void): TuneHandle {
+    const tune = this.runner.tune?.bind(this.runner);
+    if (!tune)
+      return {
+        outcome: Promise.resolve({ kind: "failed", message: "this runner cannot tune" }),
+        cancel: () => {},
+      };
+    // A little past the cooperative budget: the search stops at it and answers with the best so far.
+    return tune(text, EDITOR_TUNE_BUDGET_MS, EDITOR_TUNE_BUDGET_MS + 5000, onProgress);
   }
 
   dispose(): void {

@@ -3,6 +3,7 @@
 import type { Analysis, AnalysisOptions } from "../../analysis";
 import type { FixRequest, TextFix } from "../../findings/fix";
 import type { ViewModel, ViewOptions } from "../../view";
+import type { TuneReply } from "./tune-run";
 
 interface Request {
   id: number;
@@ -18,7 +19,9 @@ export type WorkerRequest =
   | (Request & { kind: "view"; view: ViewOptions })
   /** The fixes of each request that survive their re-check on copies of `text`, analysed with
    * `options` (the text's own analysis reused when the worker has it). */
-  | (Request & { kind: "fixes"; fixes: FixJob });
+  | (Request & { kind: "fixes"; fixes: FixJob })
+  /** The design search over the text's `tune` lines (issue 13), its answer as text edits. */
+  | (Request & { kind: "tune" });
 
 /** What a fixes request asks: the findings' requests and the time for every re-check together. */
 export interface FixJob {
@@ -34,4 +37,7 @@ export type WorkerReply =
   | { id: number; analysis: Analysis }
   | { id: number; view: ViewModel }
   | { id: number; fixes: TextFix[][] }
+  | { id: number; tune: TuneReply }
+  /** Now and then while a search runs: the fraction done and what it is doing. */
+  | { id: number; progress: number; message: string }
   | { id: number; error: string };
