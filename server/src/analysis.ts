@@ -16,6 +16,7 @@ import { withStop } from "./stop";
 import { inMessageUnits } from "./units/format";
 import type { UnitSystem } from "./units/unit-table";
 import { writtenUnitSystem } from "./model/written-units";
+import { adjustChecks } from "./tune/adjust";
 
 /** The result types the shells read (so they need not reach into the layers for them). */
 export type { Pose, SweepResult } from "./mechanics/types";
@@ -145,6 +146,10 @@ function analyseTree(
         ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}),
         ...(options.quickSteps !== undefined ? { quickSteps: options.quickSteps } : {}),
         deadline,
+        // An adjuster that moves a spring's end needs the bodies' velocities (tune/adjust.ts).
+        bodyVelocities: built.model!.springs.some((s) =>
+          s.tunings?.some((t) => t.mode === "adjust" && t.region),
+        ),
       }),
     findings,
     "solving the poses",
@@ -160,6 +165,13 @@ function analyseTree(
   if (checked) {
     findings.push(...checked.findings);
     result.readouts = checked.readouts;
+    // `adjust` lines: the setting per payload mass, and the masses no setting balances.
+    const adjusted = guard(
+      () => adjustChecks(built.model!, sweep, checked.readouts, deadline),
+      findings,
+      "finding the adjusters' settings",
+    );
+    if (adjusted) findings.push(...adjusted);
   }
   return result;
 }

@@ -156,6 +156,11 @@ export const CODES = {
     words: "drifts",
     explanation: "A pivot's friction does not hold the arm over part of its range.",
   },
+  "balance.out-of-travel": {
+    severity: "error",
+    explanation:
+      "Part of a payload's mass range cannot be held within `require balance` at any setting in an adjuster's travel (`adjust`).",
+  },
   // geometry checks
   "geometry.spring-toggle": {
     severity: "warning",

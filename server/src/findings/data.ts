@@ -76,6 +76,20 @@ export interface CannotReachData extends About {
   deadPoint?: boolean;
 }
 
+/** `balance.out-of-travel`: with an `adjust` line, part of a payload's mass range cannot be
+ * held within `require balance` at any setting inside the adjuster's travel. */
+export interface OutOfTravelData extends AboutPart {
+  payload: string;
+  /** What the adjuster sets: `anchor`, `hook` or a property's key. */
+  adjuster: string;
+  /** The payload masses that cannot be balanced, kg, as runs [low, high] of the sampled masses. */
+  masses: [number, number][];
+  /** The hand force `require balance` allows, N. */
+  limit: number;
+  /** The least worst hand force any setting reaches over those masses, N. */
+  worstHandForce: number;
+}
+
 /** `balance.unbalanced`: a payload takes more hand force than `require balance` allows. */
 export interface UnbalancedData extends AboutPart {
   /** The spring whose retuning helps most when there is one (the finding is then on it and
@@ -357,6 +371,7 @@ export interface FindingDataMap {
   "geometry.cannot-reach": CannotReachData;
   "balance.unbalanced": UnbalancedData;
   "balance.drifts": DriftsData;
+  "balance.out-of-travel": OutOfTravelData;
   "geometry.spring-toggle": ToggleData;
   "geometry.spring-leverage": LeverageData;
   "geometry.spring-slack": SlackData;

@@ -105,8 +105,11 @@ export class HandForceMeasure {
     }
   }
 
-  /** The measure of the design with `springs` in place of the tuned ones (same order). */
-  measure(springs: readonly Spring[]): Measure {
+  /** The measure of the design with `springs` in place of the tuned ones (same order). With
+   * `mass`, one payload at that mass and the others at their nominal ones (the nominal case's
+   * holding torque plus the weight's change, m g dy/dtheta by virtual work), instead of every
+   * load case. */
+  measure(springs: readonly Spring[], mass?: { payload: string; kg: number }): Measure {
     const byPayload: Record<string, number> = {};
     let worst = 0;
     let violation = 0;
@@ -127,10 +130,11 @@ export class HandForceMeasure {
           broken.add(f.limit);
         }
       });
-      const cases = this.baseTorque[pi]!;
+      const cases = mass ? this.baseTorque[pi]!.slice(0, 1) : this.baseTorque[pi]!;
+      const shift = mass ? this.weightShift(pi, mass) : undefined;
       for (let ci = 0; ci < cases.length; ci++) {
         const base = cases[ci]!;
-        for (let d = 0; d < ndof; d++) this.tau[d] = base[d]! + this.add[d]!;
+        for (let d = 0; d < ndof; d++) this.tau[d] = base[d]! + this.add[d]! + (shift ? shift[d]! : 0);
         this.friction.forEach((fr, k) => {
           const e = (Math.abs(this.tau[fr.dof]!) - fr.friction) / fr.friction;
           if (e > frictionExcess[k]!) frictionExcess[k] = e;
@@ -164,6 +168,17 @@ export class HandForceMeasure {
       }
     });
     return { worst, byPayload, violation, broken: [...broken] };
+  }
+
+  /** The change of the nominal case's holding torque when one payload weighs `kg`, per dof. */
+  private weightShift(pi: number, mass: { payload: string; kg: number }): Float64Array {
+    const out = new Float64Array(Math.max(1, this.ndof));
+    const k = this.model.payloads.findIndex((p) => p.id === mass.payload);
+    const j = k >= 0 ? this.jacobians[pi]![k] : undefined;
+    const nominal = this.sweep.loadCases[0]?.payloadMass[mass.payload] ?? this.model.payloads[k]?.mass ?? 0;
+    if (j)
+      for (let d = 0; d < this.ndof; d++) out[d] = (mass.kg - nominal) * this.model.gravity * j[2 * d + 1]!;
+    return out;
   }
 
   /** Adds a spring's part of the holding torque at a pose to `this.add`; its force, and how far
