@@ -158,6 +158,7 @@ export const CODES = {
   },
   "balance.out-of-travel": {
     severity: "error",
+    words: "adjuster cannot reach",
     explanation:
       "Part of a payload's mass range cannot be held within `require balance` at any setting in an adjuster's travel (`adjust`).",
   },

@@ -298,8 +298,12 @@ export function compare(
   worstAfter: number | undefined,
 ): string | undefined {
   if (!after.sweep || after.sweep.poses.length === 0) return "the tuned arm cannot be solved";
-  const key = (f: Finding) =>
-    `${f.code}|${"subject" in f.data ? (f.data as { subject?: string }).subject : ""}`;
+  // A finding by its code, its part and, where it has one, which check of the part (a hook, the
+  // body, a pin): a tuned spring that trades one failing check of a part for another is worse.
+  const key = (f: Finding) => {
+    const d = f.data as { subject?: string; check?: string };
+    return `${f.code}|${d.subject ?? ""}|${d.check ?? ""}`;
+  };
   const counts = (fs: readonly Finding[]) => {
     const m = new Map<string, number>();
     for (const f of fs)
