@@ -177,7 +177,9 @@ export function checkStiffness(ctx: CheckContext): void {
   const turnedSets = headingSets(model, sweep.quick === true);
   const farthest = turnedPoses(poses)[1];
   for (const pose of poses) {
-    const sets = pose === poses[0] || pose === farthest ? turnedSets : turnedSets.slice(0, 1);
+    // while typing, the swivels are turned at the farthest pose only
+    const turnedHere = sweep.quick ? pose === (farthest ?? poses[0]) : pose === poses[0] || pose === farthest;
+    const sets = turnedHere ? turnedSets : turnedSets.slice(0, 1);
     for (const headings of sets)
       for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
         if (pastDeadline(ctx.options.deadline)) break;

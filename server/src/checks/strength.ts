@@ -235,9 +235,10 @@ function turnedStrength(
   const across = loadsAcross(model);
   if ((sets.length <= 1 && !across) || tables.length === 0) return;
   const byBody = new Map(tables.map((t) => [t.body.id, t]));
-  // while typing, only the poses the stiffness check turns the swivels at
+  // While typing, only the pose that reaches farthest: the frame solves grow with the swivels'
+  // headings, and the quick pass must not grow with them as much (docs/checks.md).
   const poses = representativePoses(sweep);
-  for (const pose of sweep.quick ? turnedPoses(poses) : poses) {
+  for (const pose of sweep.quick ? turnedPoses(poses).slice(-1) : poses) {
     for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
       if (pastDeadline(ctx.options.deadline)) return;
       const masses = payloadMasses(model, sweep, ci);
