@@ -1,5 +1,6 @@
 // Builds the arm view model (view-model.ts) from an analysis: model + sweep + findings + readouts.
 // Pure: no IO; the preview request and `poise report` both call it.
+import { handForceVector, signedHandForce } from "../mechanics/hand-force";
 import type { ArmModel, Body, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import type { Finding } from "../findings/finding";
@@ -208,7 +209,31 @@ function exactReference(model: ArmModel, sweep: SweepResult): ViewPose | undefin
 /** Angles closer than this are the reference angle itself (round-off of the sweep's steps). */
 const AT_REFERENCE_RAD = 1e-9;
 
+/** The hand force the pose solver found (beyond what the pivots' friction holds), signed:
+ * positive where the arm sinks (the hand lifts), negative where it rises. */
+function signedBeyondFriction(c: SweepResult["poses"][number]["cases"][number], payloadId: string): number {
+  const vector = c.handForceVector?.[payloadId];
+  return vector ? signedHandForce(vector) : (c.handForce[payloadId] ?? NaN);
+}
+
+/** The same hand force as if no pivot had friction: from the whole holding torques. */
+function signedWithoutFriction(
+  pose: SweepResult["poses"][number],
+  c: SweepResult["poses"][number]["cases"][number],
+  payloadId: string,
+  dofIds: readonly string[],
+): number {
+  const columns = pose.payloadJacobian?.[payloadId];
+  if (!columns) return NaN;
+  const jacobian = dofIds.flatMap((id) => [columns[id]?.x ?? 0, columns[id]?.y ?? 0]);
+  const torque = dofIds.map((id) => c.holdingTorque[id] ?? 0);
+  return signedHandForce(handForceVector(jacobian, torque, dofIds.length));
+}
+
 function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
+  const dofIds = sweep.dofs.map((d) => d.id);
+  // Friction at a degree of freedom's joint: the plots then show the hand force without it too.
+  const hasFriction = model.joints.some((j) => (j.friction ?? 0) > 0);
   return sweep.poses.map((pose) => {
     const bodies: ViewPose["bodies"] = {};
     for (const [id, b] of Object.entries(pose.bodies))
@@ -218,8 +243,12 @@ function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
       springs[id] = [position(s.a.x), position(s.a.y), position(s.b.x), position(s.b.y)];
     const handForce: ViewPose["handForce"] = {};
     for (const payload of model.payloads)
-      handForce[payload.id] = pose.cases.map((c) => r4(c.handForce[payload.id] ?? NaN));
+      handForce[payload.id] = pose.cases.map((c) => r4(signedBeyondFriction(c, payload.id)));
     const nominal = pose.cases[0];
+    const handForceFree: ViewPose["handForceFree"] = {};
+    if (nominal && hasFriction)
+      for (const payload of model.payloads)
+        handForceFree[payload.id] = r4(signedWithoutFriction(pose, nominal, payload.id, dofIds));
     return {
       angles: sweep.dofs.map((d) => angle(pose.angles[d.id] ?? d.reference)),
       bodies,
@@ -229,6 +258,7 @@ function viewPoses(model: ArmModel, sweep: SweepResult): ViewPose[] {
       springTorque: sweep.dofs.map((d) => r4(springsPart(pose, d.id))),
       loadTorque: sweep.dofs.map((d) => r4(nominal?.loadTorque?.[d.id] ?? NaN)),
       handForce,
+      ...(hasFriction ? { handForceFree } : {}),
       springForce: Object.fromEntries(Object.entries(nominal?.springForce ?? {}).map(([k, v]) => [k, r4(v)])),
     };
   });

@@ -45,27 +45,45 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
   };
 }
 
-/** Hand force at every payload against dof d, with the `require balance` band. */
+/** Hand force at every payload against dof d, signed (positive where the arm sinks), with the
+ * `require balance` band either side of zero and, when pivots have friction, the force without
+ * it dashed: the gap between the two is what friction holds. */
 export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
   const series: PlotSpec["series"] = [];
+  const x = (p: number) => angleShown(vm, vm.poses[p]!.angles[d]!);
   let k = 0;
   for (const payload of vm.payloads) {
+    const colour = SERIES_CYCLE[k % SERIES_CYCLE.length]!;
     vm.loadCases.forEach((lc, c) => {
       const name = vm.loadCases.length > 1 ? `${payload.id} (${lc.label})` : payload.id;
       series.push({
         name,
-        colour: SERIES_CYCLE[k++ % SERIES_CYCLE.length]!,
+        colour: c === 0 ? colour : SERIES_CYCLE[(k + c) % SERIES_CYCLE.length]!,
         ...(c > 0 ? { dashed: true } : {}),
         points: run.map(
           (p) =>
-            [
-              angleShown(vm, vm.poses[p]!.angles[d]!),
-              inDisplayUnit(vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN, "force", vm.units),
-            ] as [number, number],
+            [x(p), inDisplayUnit(vm.poses[p]!.handForce[payload.id]?.[c] ?? NaN, "force", vm.units)] as [
+              number,
+              number,
+            ],
         ),
       });
     });
+    if (vm.poses[run[0] ?? 0]?.handForceFree?.[payload.id] !== undefined)
+      series.push({
+        name: `${payload.id} without friction`,
+        colour,
+        dashed: true,
+        points: run.map(
+          (p) =>
+            [x(p), inDisplayUnit(vm.poses[p]!.handForceFree?.[payload.id] ?? NaN, "force", vm.units)] as [
+              number,
+              number,
+            ],
+        ),
+      });
+    k += Math.max(vm.loadCases.length, 1);
   }
   const limits = Object.values(vm.balanceLimit);
   const limit = limits.length ? Math.min(...limits) : undefined;
@@ -73,12 +91,12 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
     id: `hand-${vm.dofs[d]!.id}`,
     title: `Hand force against ${vm.dofs[d]!.id}`,
     xLabel: `${vm.dofs[d]!.id} angle, ${unitLabel("angle", vm.units)}`,
-    yLabel: `hand force, ${unitLabel("force", vm.units)}`,
+    yLabel: `hand force, ${unitLabel("force", vm.units)} (+ sinks, − rises)`,
     series,
     ...(limit !== undefined
       ? {
           band: {
-            from: 0,
+            from: -inDisplayUnit(limit, "force", vm.units),
             to: inDisplayUnit(limit, "force", vm.units),
             label: `require balance ${formatFigureWithUnit(limit, "force", vm.units)}`,
           },

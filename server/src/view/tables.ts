@@ -97,9 +97,10 @@ export function poseSummaryHtml(vm: ViewModel): string {
 }
 
 /** The largest finite value (JSON turns a missing NaN into null), NaN if none. */
+/** The value of largest size, with its sign (a signed hand force: sinks +, rises −). */
 function largest(values: readonly (number | null)[] | undefined): number {
   const finite = (values ?? []).filter((v): v is number => typeof v === "number" && Number.isFinite(v));
-  return finite.length ? Math.max(...finite) : NaN;
+  return finite.length ? finite.reduce((a, b) => (Math.abs(b) > Math.abs(a) ? b : a)) : NaN;
 }
 
 /** At most this many rows of the pose list go in a report: enough to follow the curves by hand. */

@@ -100,8 +100,12 @@ export interface ViewPose {
   gravityTorque: number[];
   springTorque: number[];
   loadTorque: number[];
-  /** Hand force per payload, N, one value per load case. */
+  /** Hand force per payload beyond what the pivots' friction holds, N, one value per load case;
+   * signed: positive where the arm sinks (the hand lifts), negative where it rises. */
   handForce: Record<string, number[]>;
+  /** The nominal case's hand force per payload as if no pivot had friction, N, signed; only when
+   * some joint has friction. */
+  handForceFree?: Record<string, number>;
   /** Spring tension N (torsion: torque N*m), by spring id, nominal case. */
   springForce: Record<string, number>;
 }
