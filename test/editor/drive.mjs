@@ -691,6 +691,94 @@ function extensionHostLog() {
   );
 }
 
+async function tuneFix() {
+  // The design search offered as a quick fix on the unbalanced arm: chosen, it runs in the
+  // server's worker and writes spring settings after which `poise check` finds no balance error.
+  const file = join(WS, "tune-fix.poise");
+  const before = readFileSync(file, "utf8");
+  const found = check(file);
+  const unbalanced = found.find((d) => d.code === "balance.unbalanced");
+  if (!unbalanced)
+    return verdict(false, "tune quick fix", `poise check finds no balance.unbalanced in ${file}`);
+  await openFile("tune-fix.poise");
+  await waitForDiagnostics("tune-fix.poise", found);
+  await goTo(unbalanced.line, unbalanced.column);
+  await page.keyboard.press("Control+Period");
+  const isTune = (x) => /\(tune\)/.test(x);
+  const titles = await until(
+    () =>
+      page.$$eval(".action-widget .monaco-list-row", (els) =>
+        els.map((e) => e.innerText.replace(/\s+/g, " ").trim()),
+      ),
+    (t) => t.some(isTune),
+    WAIT_MS,
+  );
+  await shot("10-tune-quick-fix");
+  if (!titles.some(isTune)) {
+    await page.keyboard.press("Escape");
+    return verdict(
+      false,
+      "the tune quick fix is offered on the balance error",
+      `quick fixes: ${JSON.stringify(titles)}`,
+    );
+  }
+  const focused = () =>
+    page.$eval(".action-widget .monaco-list-row.focused", (e) => e.innerText).catch(() => "");
+  for (let i = 0; i < titles.length && !isTune(oneLine(await focused())); i++)
+    await page.keyboard.press("ArrowDown");
+  await page.keyboard.press("Enter");
+  const gone = await until(
+    async () => (await problems()).get("tune-fix.poise") ?? [],
+    (ds) => !ds.some((d) => d.code === "balance.unbalanced"),
+    60_000,
+  );
+  await focusEditor();
+  await page.keyboard.press("Control+S");
+  const after = await until(
+    () => readFileSync(file, "utf8"),
+    (t) => t !== before,
+    10_000,
+  );
+  const checked = check(file);
+  verdict(
+    after !== before &&
+      !gone.some((d) => d.code === "balance.unbalanced") &&
+      !checked.some((d) => d.code === "balance.unbalanced"),
+    "the tune quick fix runs the search and writes settings after which `poise check` finds no balance error",
+    `offered "${titles.find(isTune)}"; editor now: ${JSON.stringify(gone.map(diagnosticKey))}; file changed: ${after !== before}; poise check: ${JSON.stringify(checked.map((d) => d.code))}`,
+  );
+  await shot("11-after-tune");
+}
+
+async function headingSlider() {
+  // An arm that turns: the drawing panel has a slider per swivel, and moving it turns the arm in
+  // the top view.
+  await openFile("two-stage-arm.poise");
+  await focusEditor();
+  await palette("Counterpoise: Show Arm Drawing");
+  const frame = await until(
+    () => webviewFrame("input[id^='heading-']"),
+    (f) => !!f,
+  );
+  if (!frame) return verdict(false, "the drawing panel has a heading slider per swivel", "no heading slider");
+  const read = () =>
+    frame.evaluate(() => ({
+      sliders: [...document.querySelectorAll("input[id^='heading-']")].map((e) => e.id),
+      top: document.querySelector("#top svg")?.innerHTML ?? "",
+      shown: document.querySelector("input[id^='heading-'] + output")?.textContent ?? "",
+    }));
+  const first = await read();
+  await frame.focus("input[id^='heading-']");
+  await page.keyboard.press("End");
+  const last = await until(read, (r) => r.top !== first.top && r.shown !== first.shown, 5000);
+  verdict(
+    first.sliders.length > 0 && first.top.length > 0 && last.top !== first.top,
+    "the drawing panel has a heading slider per swivel, and moving it turns the arm in the top view",
+    `sliders ${JSON.stringify(first.sliders)}; heading ${first.shown} -> ${last.shown}; top view changed: ${last.top !== first.top}`,
+  );
+  await shot("12-heading-slider");
+}
+
 async function main() {
   const browser = await chromium.launch({
     executablePath: CHROMIUM,
@@ -717,6 +805,8 @@ async function main() {
     drawing,
     typing,
     balanceFix,
+    tuneFix,
+    headingSlider,
     manifest,
     logChannel,
     extensionHostLog,

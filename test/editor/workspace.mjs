@@ -23,6 +23,7 @@ export function layOut(folder) {
   for (const f of readdirSync(join(ROOT, "samples")).filter((f) => f.endsWith(".poise")))
     copyFileSync(join(ROOT, "samples", f), join(folder, f));
   writeFileSync(join(folder, "balance-fix.poise"), unbalancedCameraArm());
+  writeFileSync(join(folder, "tune-fix.poise"), unbalancedCameraArm());
 
   const manifest = readFileSync(join(ROOT, "package.json"), "utf8");
   mkdirSync(join(folder, "manifest"), { recursive: true });
