@@ -47,7 +47,7 @@ describe("poise tune", () => {
     const file = specFile("lamp.poise", LAMP);
     const r = poise("tune", file, "--write");
     expect(r.status).toBe(0);
-    // Streit and Gilmore 1989 (references.md): k a b = m g l, here 1 kg, l = 0.4 m, a = 0.05 m, b = 0.1 m
+    // Streit and Gilmore 1989 (docs/formulas.md): k a b = m g l, here 1 kg, l = 0.4 m, a = 0.05 m, b = 0.1 m
     const k = (1 * G0 * 0.4) / (0.05 * 0.1);
     const written = `${Number((k / 1000).toPrecision(4))} N/mm`;
     expect(r.stdout).toContain(`spring lift: rate 0.5 N/mm -> ${written}`);
@@ -76,7 +76,7 @@ describe("poise tune", () => {
     expect(json.written).toBe(false);
     const rate = json.springs[0]!.values[0]!;
     expect(rate.before).toBeCloseTo(500, 9);
-    // k a b = m g l (references.md)
+    // k a b = m g l (docs/formulas.md)
     expect(rate.after).toBeCloseTo((1 * G0 * 0.4) / (0.05 * 0.1), 3);
     // Before: the residual (m g l - k a b) cos(theta) over l, worst at theta = 0
     expect(json.worst_hand_force.before).toBeCloseTo((G0 * 0.4 - 500 * 0.05 * 0.1) / 0.4, 6);

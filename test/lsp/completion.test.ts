@@ -99,7 +99,7 @@ describe("completion", () => {
   });
 
   it("offers what a `tune` line may free, then `..` and the property's units", () => {
-    // language.md, tuning: `tune anchor|hook REGION` or a numeric property of that kind within bounds
+    // docs/language.md, "Tuning": `tune anchor|hook REGION` or a numeric property of that kind within bounds
     const cord = at(inside("spring cord", "tune |"));
     expect(cord).toEqual(expect.arrayContaining(["anchor", "hook", "free_length", "strands"]));
     expect(cord).not.toContain("max_stretch"); // a limit the search keeps

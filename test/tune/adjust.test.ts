@@ -1,5 +1,5 @@
 // `adjust` lines: the setting per payload mass against the exact zero-free-length condition
-// (references.md), and the masses no setting in the travel balances.
+// (docs/formulas.md), and the masses no setting in the travel balances.
 import { describe, expect, it } from "vitest";
 import { readFileSync } from "node:fs";
 import { join } from "node:path";
@@ -24,7 +24,7 @@ describe("adjust", () => {
     for (const m of masses) {
       const grams = Math.round(m * 1000);
       const y = figures.find((f) => f.label === `setting of anchor y for tool at ${grams} g`)!;
-      // Streit and Gilmore 1989 (references.md): a = m g l / (k b), clamped to the slot's travel
+      // Streit and Gilmore 1989 (docs/formulas.md): a = m g l / (k b), clamped to the slot's travel
       const ideal = (m * G0 * l) / (k * b);
       expect(y.value - 0.6, `${grams} g`).toBeCloseTo(Math.min(aHi, Math.max(aLo, ideal)), 6);
       const worst = figures.find((f) => f.label === `worst hand force at that setting (tool at ${grams} g)`)!;

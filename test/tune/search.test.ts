@@ -1,5 +1,5 @@
-// The design search (mechanics.md section 12) against the published exact conditions of
-// gravity balance (references.md): it must find them where they exist, and keep what the checks
+// The design search (docs/tuning.md) against the published exact conditions of
+// gravity balance (docs/formulas.md): it must find them where they exist, and keep what the checks
 // keep (friction that holds).
 import { describe, expect, it } from "vitest";
 import { analyse } from "../../server/src/analysis";
@@ -12,7 +12,7 @@ import { solveSweep } from "../../server/src/mechanics/sweep";
 const G0 = 9.80665;
 
 /** A pivoting link carrying a mass m at l, a zero-free-length spring from a above the pivot to b
- * along the link (references.md, gravity balancing). Lengths in mm, mass in kg. */
+ * along the link (docs/formulas.md, gravity balancing). Lengths in mm, mass in kg. */
 function pivotSpec(o: {
   a: number;
   b: number;
@@ -67,7 +67,7 @@ describe("design search", () => {
     const r = tuneDesign(text, { analyse });
     expect(r.improved).toBe(true);
     const rate = r.springs[0]!.values.find((v) => v.what === "rate")!;
-    // Streit and Gilmore 1989; Herder 2001 (references.md): exact balance iff k a b = m g l
+    // Streit and Gilmore 1989; Herder 2001 (docs/formulas.md): exact balance iff k a b = m g l
     expect(rate.after).toBeCloseTo((m * G0 * l) / (a * b), 1);
     expect(Math.abs(rate.after / ((m * G0 * l) / (a * b)) - 1)).toBeLessThan(1e-6);
     // Written in the spec's own unit (N/mm), to four figures: 784.5 N/m
@@ -100,12 +100,12 @@ describe("design search", () => {
     );
   });
 
-  it("finds the parallelogram's rate of references.md (Agrawal and Fattah 2004)", () => {
+  it("finds the parallelogram's rate of docs/formulas.md (Agrawal and Fattah 2004)", () => {
     // Worked case: L = 0.35 m, bars 0.080 kg each, head 0.050 kg, payload 0.600 kg, a = 0.05 m,
     // b = 0.10 m. Bars rect 10 mm x 4 mm of a declared material whose density makes 0.080 kg.
     const [L, bar, head, payload, a, b] = [0.35, 0.08, 0.05, 0.6, 0.05, 0.1];
     const density = bar / (0.01 * 0.004 * L);
-    const text = `# Invented for the tests: the worked parallelogram of references.md.
+    const text = `# Invented for the tests: the worked parallelogram of docs/formulas.md.
 arm "Stage" {
   material dense { density ${density} kg/m^3; modulus 70 GPa; strength 200 MPa }
   base clamp {
@@ -137,7 +137,7 @@ arm "Stage" {
     expect(before.model!.bodies.find((x) => x.id === "reach.lower")!.mass).toBeCloseTo(bar, 9);
     const r = tuneDesign(text, { analyse, before });
     expect(r.improved).toBe(true);
-    // Agrawal and Fattah 2004 (references.md): M = g (L (m_payload + m_head) + 2 m_bar L / 2) cos(theta),
+    // Agrawal and Fattah 2004 (docs/formulas.md): M = g (L (m_payload + m_head) + 2 m_bar L / 2) cos(theta),
     // balanced by k a b = M / cos(theta)
     const k = (G0 * (L * (payload + head) + 2 * bar * (L / 2))) / (a * b);
     expect(Math.abs(r.springs[0]!.values[0]!.after / k - 1)).toBeLessThan(1e-6);
@@ -158,7 +158,7 @@ arm "Stage" {
     const measure = new HandForceMeasure(an.model!, sweep, an.model!.springs);
     // The springs as they are: the worst hand force of the checks' own sweep
     expect(measure.measure(an.model!.springs).worst).toBeCloseTo(worstHandForce(sweep)!, 9);
-    // Residual torque (m g l - k a b) cos(theta) over the lever l: worst at theta = 0 (references.md)
+    // Residual torque (m g l - k a b) cos(theta) over the lever l: worst at theta = 0 (docs/formulas.md)
     expect(measure.measure(an.model!.springs).worst).toBeCloseTo((1 * G0 * 0.4 - 500 * 0.05 * 0.1) / 0.4, 6);
   });
 
@@ -217,7 +217,7 @@ arm "Elbow" {
     expect(loose.improved).toBe(true);
     expect(elbowPeak(applyEdits(free, loose.edits))).toBeGreaterThan(FRICTION);
     // ...held by friction, the search keeps every holding torque at the elbow within it
-    // (mechanics.md section 6: balance.drifts where the holding torque exceeds the friction)
+    // (docs/checks.md, balance: balance.drifts where the holding torque exceeds the friction)
     const held = elbowSpec(`\n    friction ${FRICTION} N*m`);
     const r = tuneDesign(held, { analyse });
     expect(r.improved).toBe(true);

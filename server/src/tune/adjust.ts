@@ -1,4 +1,4 @@
-// `adjust` lines (language.md, tuning): an adjuster the user sets in service (a slot for the
+// `adjust` lines (docs/language.md, "Tuning"): an adjuster the user sets in service (a slot for the
 // anchor, a preload screw on the initial tension, a strut's force setting). For each payload with a
 // mass `range`, the setting that balances best at each of a few masses across the range (a table
 // on the spring's readout: hover, report, `poise results`), and `balance.out-of-travel` where part

@@ -1,4 +1,4 @@
-// The design search end to end (mechanics.md section 12): from a spec's text, the values of what
+// The design search end to end (docs/tuning.md): from a spec's text, the values of what
 // its `tune` lines free that make the worst hand force over every pose and payload mass least
 // while every other check still passes; each candidate is written into the text in the spec's own
 // units and the edited text analysed again, and only a design whose re-analysis is no worse than
