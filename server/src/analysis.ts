@@ -140,11 +140,14 @@ function analyseTree(
   if (options.modelOnly || blocksSolving(findings)) return result;
 
   t = performance.now();
+  const density = {
+    ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}),
+    ...(options.quickSteps !== undefined ? { quickSteps: options.quickSteps } : {}),
+  };
   const sweep = guard(
     () =>
       solveSweep(built.model!, {
-        ...(options.stepsOverride !== undefined ? { stepsOverride: options.stepsOverride } : {}),
-        ...(options.quickSteps !== undefined ? { quickSteps: options.quickSteps } : {}),
+        ...density,
         deadline,
         // An adjuster that moves a spring's end needs the bodies' velocities (tune/adjust.ts).
         bodyVelocities: built.model!.springs.some((s) =>
@@ -160,7 +163,7 @@ function analyseTree(
   findings.push(...sweep.findings);
 
   t = performance.now();
-  const checked = guard(() => runChecks(built.model!, sweep, { deadline }), findings, "running the checks");
+  const checked = guard(() => runChecks(built.model!, sweep, { deadline, solve: density }), findings, "running the checks");
   timings.checks = performance.now() - t;
   if (checked) {
     findings.push(...checked.findings);

@@ -15,10 +15,14 @@ import { checkSpringLeverage } from "./spring-leverage";
 import { checkTipping } from "./tipping";
 import { checkStiffness } from "./stiffness";
 import { checkSwivels } from "./swivels";
+import { checkAgedCase } from "./aged";
+import type { SolveOptions } from "../mechanics/sweep";
 
 export interface CheckOptions {
   /** performance.now() value past which checks should stop early. */
   deadline: number;
+  /** The sweep's density, for the aged case's own sweep (the spec's own when absent). */
+  solve?: Omit<SolveOptions, "deadline">;
 }
 
 export interface CheckContext {
@@ -53,5 +57,7 @@ export function runChecks(
 ): { findings: Finding[]; readouts: Readouts } {
   const ctx: CheckContext = { model, sweep, options, findings: [], readouts: {} };
   for (const family of FAMILIES) family(ctx);
+  // The aged case last: it solves the arm again and repeats no finding the arm as built has.
+  checkAgedCase(ctx, options.solve ?? {});
   return { findings: ctx.findings, readouts: ctx.readouts };
 }

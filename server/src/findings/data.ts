@@ -15,6 +15,8 @@ export interface About {
    * Absent when the finding is about no one part (the file, the arm as a whole, `require`, `sweep`).
    */
   subject?: string;
+  /** Set on a finding of the aged load case (`aged`): how long the arm has held its load, s. */
+  agedAfter?: number;
 }
 
 /** A finding that is always about one part. */

@@ -1,6 +1,6 @@
 // Builds payloads, the `require` block (acceptance limits, defaults filled in) and the `sweep`
-// settings (steps capped).
-import type { Payload, Requirements, SweepSettings, Vec2 } from "./types";
+// settings (steps capped), and the aged load case.
+import type { AgedSettings, Payload, Requirements, SweepSettings, Vec2 } from "./types";
 import { REQUIREMENT_DEFAULTS, SWEEP_DEFAULTS } from "./schema";
 import {
   isWord,
@@ -237,4 +237,43 @@ export function buildSweep(ctx: BuildContext, p: Props): SweepSettings {
   }
   sweep.origin = p.origin();
   return sweep;
+}
+
+/** `aged { after T; relaxation R; creep C }`: undefined when the time is missing or impossible
+ * (its finding says why). */
+export function buildAged(ctx: BuildContext, p: Props): AgedSettings | undefined {
+  if (!p.has("after")) p.missing("after");
+  let after: number | undefined;
+  const tv = p.values("after");
+  if (tv) {
+    const q = readQuantity(tv, ["time"]);
+    tv.finish();
+    if (q && !(q.value > 0))
+      ctx.r.add("value.impossible", q.span, `after must be a positive time, got ${ctx.r.quote(q.span)}`);
+    else if (q) after = q.value;
+  }
+  const share = (key: "relaxation" | "creep", what: string): number | undefined => {
+    const v = p.values(key);
+    if (!v) return undefined;
+    const q = readQuantity(v, ["dimensionless"]);
+    v.finish();
+    if (q && !(q.value >= 0 && q.value < 1)) {
+      ctx.r.add(
+        "value.impossible",
+        q.span,
+        `${key} is the share of ${what} lost, from 0 up to (not including) 1, got ${ctx.r.quote(q.span)}`,
+      );
+      return undefined;
+    }
+    return q?.value;
+  };
+  const relaxation = share("relaxation", "a rubber cord's force");
+  const creep = share("creep", "printed parts' stiffness");
+  if (after === undefined) return undefined;
+  return {
+    after,
+    ...(relaxation !== undefined ? { relaxation } : {}),
+    ...(creep !== undefined ? { creep } : {}),
+    origin: p.origin(),
+  };
 }

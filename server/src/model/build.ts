@@ -36,6 +36,7 @@ import { readTunings, reportAdjustWithoutRange } from "./build-tuning";
 import {
   buildPayload,
   buildRequirements,
+  buildAged,
   buildSweep,
   defaultRequirements,
   defaultSweep,
@@ -92,6 +93,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   const declared: { decl: DeclarationNode; props: Props; id: string; keyword: string }[] = [];
   let requireDecl: Props | undefined;
   let sweepDecl: Props | undefined;
+  let agedDecl: Props | undefined;
   for (const decl of arm.declarations) {
     let spec = declarationSpec(decl.keyword.text);
     if (!spec) {
@@ -127,6 +129,12 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
             related: [{ span: requireDecl.decl.keyword.span, message: "the first one" }],
           });
         else requireDecl = props;
+      } else if (spec.keyword === "aged") {
+        if (agedDecl)
+          r.add("property.repeated", decl.keyword.span, "a second `aged` block: state one aged case", {
+            related: [{ span: agedDecl.decl.keyword.span, message: "the first one" }],
+          });
+        else agedDecl = props;
       } else if (sweepDecl)
         r.add("property.repeated", decl.keyword.span, "a second `sweep` block: put every setting in one", {
           related: [{ span: sweepDecl.decl.keyword.span, message: "the first one" }],
@@ -269,10 +277,12 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
   // 6. Limits and sweep settings.
   const require: Requirements = requireDecl ? buildRequirements(ctx, requireDecl) : defaultRequirements();
   const sweep: SweepSettings = sweepDecl ? buildSweep(ctx, sweepDecl) : defaultSweep();
+  const aged = agedDecl ? buildAged(ctx, agedDecl) : undefined;
 
   for (const d of declared) r.about(d.id, () => d.props.flushMissing());
   requireDecl?.flushMissing();
   sweepDecl?.flushMissing();
+  agedDecl?.flushMissing();
 
   // 7. What holds each joint, and what is connected at all.
   if (!ctx.jointGraphIncomplete) reportMobility(ctx, bodies, base, joints, parallelograms);
@@ -292,6 +302,7 @@ function buildArm(ctx: BuildContext, arm: ArmNode): ArmModel {
     fastenings,
     require,
     sweep,
+    ...(aged ? { aged } : {}),
     span: arm.span,
   };
 }

@@ -143,6 +143,7 @@ const DIMENSION_WORDS: Record<DimensionName, string> = {
   density: "a density",
   acceleration: "an acceleration",
   frequency: "a frequency",
+  time: "a time",
   dimensionless: "a number",
 };
 

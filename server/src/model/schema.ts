@@ -806,6 +806,32 @@ export const DECLARATIONS: readonly DeclarationSpec[] = [
       },
     ],
   },
+  {
+    keyword: "aged",
+    named: false,
+    doc: "An aged load case: the arm after a time under its load, rubber cords relaxed and printed parts crept; balance and stiffness are checked on it too.",
+    properties: [
+      {
+        key: "after",
+        shape: q("time"),
+        required: true,
+        doc: "How long the arm has held its load.",
+        example: "after 1 year",
+      },
+      {
+        key: "relaxation",
+        shape: q("dimensionless"),
+        doc: "Share of a rubber cord's force lost by then, 0 to 1 (default from the relaxation rule in docs/checks.md).",
+        example: "relaxation 0.2",
+      },
+      {
+        key: "creep",
+        shape: q("dimensionless"),
+        doc: "Share of printed parts' stiffness lost by then, 0 to 1 (default from the creep rule in docs/checks.md).",
+        example: "creep 0.4",
+      },
+    ],
+  },
 ];
 
 /** Properties allowed directly inside `arm { }`. */

@@ -390,6 +390,17 @@ export interface SweepSettings {
   origin?: Origin;
 }
 
+/** `aged`: the load case after a time under load (rubber cords relaxed, printed parts crept). */
+export interface AgedSettings {
+  /** How long the arm has held its load, s. */
+  after: number;
+  /** Share of a rubber cord's force lost by then, as written (else the relaxation rule). */
+  relaxation?: number;
+  /** Share of printed parts' stiffness lost by then, as written (else the creep rule). */
+  creep?: number;
+  origin: Origin;
+}
+
 export interface ArmModel {
   title: string;
   /** m/s^2 (default standard gravity 9.80665, SI Brochure 9th ed.). */
@@ -410,6 +421,8 @@ export interface ArmModel {
   fastenings: Record<string, Fastening>;
   require: Requirements;
   sweep: SweepSettings;
+  /** The aged load case, when the spec asks for one. */
+  aged?: AgedSettings;
   /** Span of the `arm` block. */
   span: Span;
 }

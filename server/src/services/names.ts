@@ -16,7 +16,7 @@ import type { SymbolTable } from "../model/symbols";
 import { HEAD_POINTS } from "../model/build-parts";
 
 /** What a name names: a declaration (the named keywords), a parallelogram's bar or head, a point. */
-export type NameKind = Exclude<DeclarationKeyword, "require" | "sweep"> | "bar" | "head" | "point";
+export type NameKind = Exclude<DeclarationKeyword, "require" | "sweep" | "aged"> | "bar" | "head" | "point";
 
 export interface NameSymbol {
   /** Model id: a declaration's name, `reach.lower` for generated bodies, `body.point` for points. */
@@ -228,7 +228,7 @@ export function nameIndexFromSymbols(
   const occurrences: Occurrence[] = [];
   const bodies = new Set<string>();
   for (const d of table.declarations) {
-    if (d.kind === "require" || d.kind === "sweep" || symbols.has(d.id)) continue;
+    if (d.kind === "require" || d.kind === "sweep" || d.kind === "aged" || symbols.has(d.id)) continue;
     const kind: NameKind = d.kind === "body" ? (d.id.endsWith(".head") ? "head" : "bar") : d.kind;
     const implicit = d.implicit === true;
     const name = d.kind === "body" ? d.id.slice(d.id.lastIndexOf(".") + 1) : d.name;

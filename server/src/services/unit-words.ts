@@ -15,5 +15,6 @@ export const UNITS_BY_DIMENSION: Readonly<Record<DimensionName, readonly string[
   density: ["g/cm^3", "kg/m^3", "lb/in^3"],
   acceleration: ["m/s^2"],
   frequency: ["Hz"],
+  time: ["days", "weeks", "months", "years", "hours"],
   dimensionless: [],
 };

@@ -96,7 +96,8 @@ export type DeclarationKeyword =
   | "bearing"
   | "fastening"
   | "require"
-  | "sweep";
+  | "sweep"
+  | "aged";
 
 /** `keyword name { properties }`; `require` and `sweep` have no name. */
 export interface DeclarationNode {

@@ -15,10 +15,11 @@ export const DECLARATION_KEYWORDS: readonly DeclarationKeyword[] = [
   "fastening",
   "require",
   "sweep",
+  "aged",
 ];
 
 /** Declarations written without a name. */
-export const UNNAMED_DECLARATIONS: readonly DeclarationKeyword[] = ["require", "sweep"];
+export const UNNAMED_DECLARATIONS: readonly DeclarationKeyword[] = ["require", "sweep", "aged"];
 
 export function isDeclarationKeyword(word: string): word is DeclarationKeyword {
   return (DECLARATION_KEYWORDS as readonly string[]).includes(word);

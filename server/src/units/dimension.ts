@@ -14,6 +14,7 @@ export type DimensionName =
   | "density"
   | "acceleration"
   | "frequency"
+  | "time" // how long a load is held (the aged case)
   | "dimensionless";
 
 /** Exponents of the base dimensions: mass, length, time, angle. */
@@ -37,6 +38,7 @@ export const DIMENSIONS: Readonly<Record<DimensionName, DimensionVector>> = {
   density: { mass: 1, length: -3, time: 0, angle: 0 },
   acceleration: { mass: 0, length: 1, time: -2, angle: 0 },
   frequency: { mass: 0, length: 0, time: -1, angle: 0 },
+  time: { mass: 0, length: 0, time: 1, angle: 0 },
   dimensionless: { mass: 0, length: 0, time: 0, angle: 0 },
 };
 
@@ -54,5 +56,6 @@ export const DIMENSION_WITH_ARTICLE: Readonly<Record<DimensionName, string>> = {
   density: "a density",
   acceleration: "an acceleration",
   frequency: "a frequency",
+  time: "a time",
   dimensionless: "a plain number",
 };

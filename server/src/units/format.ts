@@ -51,6 +51,7 @@ const UNITS: Readonly<Record<UnitSystem, Readonly<Record<DimensionName, UnitChoi
     density: { unit: "g/cm^3" },
     acceleration: { unit: "m/s^2" },
     frequency: { unit: "Hz" },
+    time: { unit: "days", large: { unit: "years", fromSI: factorOf("years") } },
     dimensionless: { unit: "" },
   },
   us: {
@@ -66,6 +67,7 @@ const UNITS: Readonly<Record<UnitSystem, Readonly<Record<DimensionName, UnitChoi
     density: { unit: "lb/in^3" },
     acceleration: { unit: "ft/s^2" },
     frequency: { unit: "Hz" },
+    time: { unit: "days", large: { unit: "years", fromSI: factorOf("years") } },
     dimensionless: { unit: "" },
   },
 };

@@ -84,6 +84,7 @@ export const USUAL_UNIT: Readonly<Record<DimensionName, string>> = {
   density: "g/cm^3",
   acceleration: "m/s^2",
   frequency: "Hz",
+  time: "days",
   dimensionless: "",
 };
 

@@ -40,6 +40,10 @@ export const STANDARD_GRAVITY = 9.80665;
 export const POUND_FORCE_N = POUND_KG * STANDARD_GRAVITY;
 /** 1 psi = 1 lbf/in^2 (NIST SP 811, B.8: 6.894757 kPa). */
 export const PSI_PA = POUND_FORCE_N / (INCH_M * INCH_M);
+/** 1 d = 86 400 s (SI Brochure, 9th ed., table 8). */
+export const DAY_S = 86400;
+/** The Julian year, 365.25 d exactly (IAU). */
+export const JULIAN_YEAR_S = 365.25 * DAY_S;
 /** 1 deg = pi/180 rad (SI Brochure, 9th ed., table 8). */
 export const DEGREE_RAD = Math.PI / 180;
 
@@ -69,7 +73,19 @@ const TABLE: UnitSymbol[] = [
   // Spring wire moduli are tabulated in Mpsi (Shigley, table 10-5).
   { symbol: "Mpsi", factor: 1e6 * PSI_PA, dimension: PRESSURE, system: "us" },
   { symbol: "Hz", factor: 1, dimension: FREQUENCY, system: "both" },
+  // How long a load is held (the aged case), singular and plural. Hour and day: SI Brochure, 9th
+  // ed., table 8 (1 h = 3600 s, 1 d = 86 400 s); a week is 7 days; a year is the Julian year of
+  // 365.25 days (IAU); a month a twelfth of it (common practice, no source).
+  ...timeUnits("hour", 3600),
+  ...timeUnits("day", DAY_S),
+  ...timeUnits("week", 7 * DAY_S),
+  ...timeUnits("month", JULIAN_YEAR_S / 12),
+  ...timeUnits("year", JULIAN_YEAR_S),
 ];
+
+function timeUnits(word: string, seconds: number): UnitSymbol[] {
+  return [word, `${word}s`].map((symbol) => ({ symbol, factor: seconds, dimension: TIME, system: "both" }));
+}
 
 export const UNIT_SYMBOLS: ReadonlyMap<string, UnitSymbol> = new Map(TABLE.map((u) => [u.symbol, u]));
 

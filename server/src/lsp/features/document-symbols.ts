@@ -16,6 +16,7 @@ const KIND_OF_DECLARATION: Record<string, SymbolKind> = {
   payload: SymbolKind.Object,
   require: SymbolKind.Namespace,
   sweep: SymbolKind.Namespace,
+  aged: SymbolKind.Namespace,
 };
 
 function propertySymbol(p: PropertyNode, lines: LineIndex, text: string): DocumentSymbol {
