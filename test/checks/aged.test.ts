@@ -200,6 +200,22 @@ arm "Printed boom" {
     expect(asBuilt.findings.some((f) => f.code === "stiffness.deflection")).toBe(false);
   });
 
+  it("two findings of the arm as built at the same words each get their own aged figure", () => {
+    const text = boom("aged { after 1 month }", 0.001).replace(
+      "deflection 0.001 mm",
+      "deflection 0.001 mm\n    tilt 0.001 deg",
+    );
+    const aged = analyse(text);
+    for (const [code, word] of [
+      ["stiffness.deflection", "deflects"],
+      ["stiffness.tilt", "tilts"],
+    ] as const) {
+      const f = aged.findings.find((x) => x.code === code)!;
+      const agedRelated = f.related.filter((r) => /^Aged case/.test(r.message));
+      expect(agedRelated.map((r) => r.message.includes(word))).toEqual([true]);
+    }
+  });
+
   it("an arm with nothing that ages says so", () => {
     const text = boom("aged { after 1 year }", 0.001).replace("material pla", "material aluminium_6061_t6");
     const aged = analyse(text);
