@@ -51,8 +51,9 @@ describe("name index", () => {
   });
 
   it("finds built-in materials in every material position", () => {
-    // `bars rect 8 mm x 4 mm petg` and `material petg`.
-    expect(textsOf(MAGNIFIER, "petg")).toEqual(["petg", "petg"]);
+    // `bars rect 8 mm x 4 mm petg`, `material petg`, a fastening's `into petg` and a bearing's
+    // `material petg`.
+    expect(textsOf(MAGNIFIER, "petg")).toEqual(["petg", "petg", "petg", "petg"]);
     // `pins 3 mm stainless_304` and `pin 3 mm stainless_304`.
     expect(textsOf(MAGNIFIER, "stainless_304")).toEqual(["stainless_304", "stainless_304"]);
   });
