@@ -15,6 +15,7 @@ import { checkSpringLeverage } from "./spring-leverage";
 import { checkTipping } from "./tipping";
 import { checkStiffness } from "./stiffness";
 import { checkSwivels } from "./swivels";
+import { checkSwivelBearings } from "./swivel-bearings";
 import { checkAgedCase } from "./aged";
 import type { SolveOptions } from "../mechanics/sweep";
 
@@ -48,6 +49,7 @@ const FAMILIES: CheckFamily[] = [
   checkTipping,
   checkStiffness,
   checkSwivels,
+  checkSwivelBearings,
 ];
 
 export function runChecks(

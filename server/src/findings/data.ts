@@ -206,7 +206,8 @@ export interface OverstressData extends SafetyData {
 }
 
 /** `strength.bearing`: a bearing under the load of the part that turns on it. Subject: that part
- * (the joint); the words are its `bearing`. */
+ * (the joint, or the swivel: the base's id for its yaw); the words are its `bearing` (a swivel's
+ * `bearings` or `thrust`). */
 export interface BearingData extends SafetyData {
   bearing: string;
   /** What limits it: the most loaded ball's contact, a thrust ring tipping, the rating, the bore. */
