@@ -121,6 +121,14 @@ describe("aged case: a rubber cord relaxes and the arm sinks", () => {
     expect(f.code === "balance.unbalanced" && f.data.worstHandForce).toBeCloseTo(worst(cordKept(YEAR_S)), 6);
   });
 
+  it("a quick pass while typing leaves the aged case to the full pass", () => {
+    const text = corded("aged { after 1 year }", 100).replace("steps 3", "steps 5");
+    const quick = analyse(text, { quickSteps: 3 });
+    expect(quick.sweep!.quick).toBe(true);
+    expect(figure(quick, "lamp", "hand force range, aged 1 year")).toBeUndefined();
+    expect(figure(analyse(text), "lamp", "hand force range, aged 1 year")).toBeDefined();
+  });
+
   it("a relaxation written in the spec overrides the rule", () => {
     const aged = analyse(corded("aged { after 2 weeks; relaxation 0.25 }", 100));
     expect(figure(aged, "lamp", "hand force range, aged 2 weeks")!.high).toBeCloseTo(worst(0.75), 6);

@@ -16,7 +16,9 @@ import { addFigures, type Figure, type Readouts } from "./readout";
 /** Runs the aged case when the model states one; adds its findings and figures to `ctx`. */
 export function checkAgedCase(ctx: CheckContext, solve: SolveOptions): void {
   const aged = ctx.model.aged;
-  if (!aged || pastDeadline(ctx.options.deadline)) return;
+  // A quick pass while typing leaves it to the full pass that follows (sweep.quick says one is
+  // still to run): it would double the typing-time work of every spec that states one.
+  if (!aged || ctx.sweep.quick || pastDeadline(ctx.options.deadline)) return;
   const factors = agedFactors(aged);
   const model = agedModel(ctx.model, factors);
   const sweep = solveSweep(model, { ...solve, deadline: ctx.options.deadline });
