@@ -102,6 +102,7 @@ export const USUAL_UNIT_US: Readonly<Record<DimensionName, string>> = {
   density: "lb/in^3",
   acceleration: "ft/s^2",
   frequency: "Hz",
+  time: "days",
   dimensionless: "",
 };
 
