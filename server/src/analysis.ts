@@ -163,7 +163,11 @@ function analyseTree(
   findings.push(...sweep.findings);
 
   t = performance.now();
-  const checked = guard(() => runChecks(built.model!, sweep, { deadline, solve: density }), findings, "running the checks");
+  const checked = guard(
+    () => runChecks(built.model!, sweep, { deadline, solve: density }),
+    findings,
+    "running the checks",
+  );
   timings.checks = performance.now() - t;
   if (checked) {
     findings.push(...checked.findings);

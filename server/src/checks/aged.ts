@@ -32,7 +32,8 @@ export function checkAgedCase(ctx: CheckContext, solve: SolveOptions): void {
     const asBuilt = ctx.findings.find((g) => g.code === f.code && sameSpan(g, f));
     // Already a finding of the arm as built: the aged figures go with it, one finding at the words.
     // (a new array: findings of one check may share theirs)
-    if (asBuilt) asBuilt.related = [...asBuilt.related, { span: at, message: `Aged case, ${words}: ${f.message}` }];
+    if (asBuilt)
+      asBuilt.related = [...asBuilt.related, { span: at, message: `Aged case, ${words}: ${f.message}` }];
     else ctx.findings.push(agedFinding(f, words, at, factors.afterS));
   }
   addAgedFigures(ctx, agedCtx.readouts, factors);
