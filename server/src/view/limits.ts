@@ -8,7 +8,7 @@ export const MODEL_LIMITS: readonly string[] = [
   "Pins without clearance: play in the holes adds droop the figures do not show.",
   "Friction only as a holding torque at the pivots that declare it.",
   "No fatigue life: a part that passes here can still crack after many cycles.",
-  "No creep: printed plastic and rubber slowly give under constant load and springs relax.",
+  "Creep and relaxation only as an optional aged case (`aged { after ... }`), by rough rules whose values are from memory: printed plastic and rubber slowly give under constant load and springs relax; without an aged block they are not modelled.",
   "A check that passes is no substitute for a test of the real arm.",
 ];
 
