@@ -64,6 +64,10 @@ export function representativePoses(sweep: SweepResult): Pose[] {
  * seconds there); beyond this, the poses that reach farthest are kept. */
 const MAX_STIFFNESS_POSES = 7;
 
+/** Figures closer than this share are one figure: the subspace iteration stops at 1e-10 relative,
+ * and a different order of the frame's equations changes the last digits. */
+const SAME_FIGURE_RATIO = 1e-9;
+
 /** The `count` poses whose bodies reach farthest from the base horizontally (summed over the
  * bodies' frame origins): bending deflection and the lowest mode grow with reach. */
 function mostExtended(poses: Pose[], count: number): Pose[] {
@@ -250,7 +254,9 @@ export function checkStiffness(ctx: CheckContext): void {
         if (modes) {
           const f = Math.sqrt(modes.omega2[0]!) / (2 * Math.PI);
           const shape = modes.shapes[0]!;
-          if (!lowest || f < lowest.f)
+          // equal frequencies (a symmetric arm at both ends of a range) keep the first pose visited,
+          // whatever the solve's last digits say
+          if (!lowest || f < lowest.f * (1 - SAME_FIGURE_RATIO))
             lowest = {
               f,
               pose,
