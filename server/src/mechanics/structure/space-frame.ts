@@ -6,6 +6,7 @@
 // member's own weight; masses: consistent member masses plus point masses. SI units.
 import { DofConstraints, type DofTransform, type Term } from "./dof-constraints";
 import { SkylineMatrix } from "./skyline";
+import { graphOfGroups, reverseCuthillMcKee } from "./ordering";
 import { lowestModes } from "./subspace";
 import {
   localConsistentMass,
@@ -70,9 +71,10 @@ export class SpaceFrame {
   private readonly loadRaw: number[] = [];
   private readonly massRaw: number[] = [];
   private factorCache?: { factor: SkylineMatrix; diagonal: Float64Array } | null;
+  private orderedTransform?: DofTransform;
 
   addNode(p: Vec3): number {
-    this.factorCache = undefined;
+    this.changed();
     this.nodes.push({ ...p });
     for (let k = 0; k < NODE_DOFS; k++) {
       this.loadRaw.push(0);
@@ -88,6 +90,7 @@ export class SpaceFrame {
 
   private changed(): void {
     this.factorCache = undefined;
+    this.orderedTransform = undefined;
   }
 
   /** Ground: no movement at all. */
@@ -250,6 +253,27 @@ export class SpaceFrame {
     return out;
   }
 
+  /** The constraints' transform with its equations numbered along the frame (reverse
+   * Cuthill-McKee over the couplings, ordering.ts), so that every skyline row stays short. */
+  private transform(): DofTransform {
+    if (this.orderedTransform) return this.orderedTransform;
+    const t = this.constraints.transform();
+    const groups = this.connections().map((raw) => {
+      const eqs: number[] = [];
+      for (const d of raw) for (let k = t.start[d]!; k < t.start[d + 1]!; k++) eqs.push(t.eq[k]!);
+      return eqs;
+    });
+    const order = reverseCuthillMcKee(graphOfGroups(t.count, groups));
+    const number = new Int32Array(t.count);
+    for (let k = 0; k < t.count; k++) number[order[k]!] = k;
+    const raw = new Int32Array(t.count);
+    for (let k = 0; k < t.count; k++) raw[k] = t.raw[order[k]!]!;
+    const eq = new Int32Array(t.eq.length);
+    for (let k = 0; k < eq.length; k++) eq[k] = number[t.eq[k]!]!;
+    this.orderedTransform = { count: t.count, raw, start: t.start, eq, coef: t.coef };
+    return this.orderedTransform;
+  }
+
   /** The skyline of the reduced matrices: each equation's row reaches back to the lowest
    * equation any connection couples it with. */
   private profile(t: DofTransform): Int32Array {
@@ -346,13 +370,19 @@ export class SpaceFrame {
   }
 
   private factor(): { factor: SkylineMatrix; diagonal: Float64Array; t: DofTransform } | undefined {
-    const t = this.constraints.transform();
+    const t = this.transform();
     if (this.factorCache === undefined) {
       const K = this.assembleStiffness(t, this.profile(t));
       const diagonal = K.diagonal();
       this.factorCache = K.factor() ? { factor: K, diagonal } : null;
     }
     return this.factorCache ? { ...this.factorCache, t } : undefined;
+  }
+
+  /** Entries the factored stiffness matrix stores (its skyline), or undefined for a mechanism:
+   * what the factorisation's cost grows with. */
+  storedEntries(): number | undefined {
+    return this.factor()?.factor.data.length;
   }
 
   /** Raw dof values from equation values. */
