@@ -11,6 +11,8 @@ import { buildViewModel } from "../../server/src/view/build-view-model";
 import { renderReportHtml } from "../../server/src/view/report-page";
 import { CODES } from "../../server/src/findings/codes";
 import { ARTIFACTS, openBrowser, type Browser } from "../view/browser";
+import { reportHtml } from "../../server/src/cli/report";
+import { TUNED_PIVOT } from "../view/tuned-pivot";
 
 const ORIGIN = "http://labels.test";
 const SAMPLES = readdirSync("samples")
@@ -24,6 +26,11 @@ for (const name of SAMPLES) {
       file: `samples/${name}.poise`,
     });
 }
+
+// A spec with `tune` lines: the page lays the search's design over the drawing, with its legend
+// and labels, and the tuned curves on the plots.
+for (const units of ["si", "us"] as const)
+  pages[`tuned-pivot-${units}`] = reportHtml(TUNED_PIVOT, "tuned-pivot.poise", units).html;
 
 let browser: Browser;
 let page: Page;

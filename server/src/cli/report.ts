@@ -3,7 +3,12 @@
 import { analyse } from "../analysis";
 import { CLI_BUDGET_MS } from "../limits";
 import { reportPage } from "../view";
+import { tuneDesign } from "../tune/index";
+import { tunePreview } from "../tune/preview";
 import { overwritesSpec, readSpec, writeTextFile, type Output } from "./io";
+
+/** The tune overlay's own sweeps may take this long, ms. */
+const PREVIEW_MS = 5000;
 
 const USAGE = "usage: poise report FILE [-o OUT.html] [--units si|us]   (without -o the page goes to stdout)";
 
@@ -45,9 +50,18 @@ export function reportHtml(
   units?: "si" | "us",
 ): { html: string; errors: number } {
   // Figures and messages in the system asked for, else the one the spec is written in.
+  const start = performance.now();
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS, ...(units ? { units } : {}) });
+  // A spec with `tune` lines: the page shows the search's design beside the present one
+  // (docs/tuning.md, "The preview"), within what is left of the command's budget.
+  const tunes = analysis.model?.springs.some((s) => s.tunings?.some((t) => t.mode === "tune")) ?? false;
+  const left = CLI_BUDGET_MS - (performance.now() - start);
+  const run = tunes && left > 0 ? tuneDesign(text, { analyse, before: analysis, budgetMs: left }) : undefined;
+  const tune = run?.improved
+    ? tunePreview(analysis, run, { deadline: performance.now() + PREVIEW_MS })
+    : undefined;
   return {
-    html: reportPage(analysis, { file, units: units ?? analysis.units ?? "si" }),
+    html: reportPage(analysis, { file, units: units ?? analysis.units ?? "si", ...(tune ? { tune } : {}) }),
     errors: analysis.findings.filter((f) => f.severity === "error").length,
   };
 }

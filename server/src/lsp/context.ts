@@ -13,6 +13,15 @@ import type { FixJob } from "./session/worker-protocol";
 import type { AnalysisScheduler } from "./session/scheduler";
 import type { Settings } from "./session/settings";
 import type { SyntaxView } from "./session/syntax-view";
+import type { TuneReply } from "./session/tune-run";
+
+/** The last tune run the user asked for on a document: the text it ran on, the text with the
+ * tuned values written, and what the drawing shows of it. */
+export interface TuneRun {
+  presentText: string;
+  tunedText: string;
+  preview: NonNullable<TuneReply["preview"]>;
+}
 
 export interface FeatureContext {
   connection: Connection;
@@ -28,6 +37,9 @@ export interface FeatureContext {
    * analysis worker; undefined when that could not be done in time (offer none then). */
   checkFixes(text: string, job: FixJob): Promise<TextFix[][] | undefined>;
   log(message: string): void;
+  /** The last tune run per document uri (the drawing lays it over whichever of its two texts the
+   * editor holds); forgotten when the document closes. */
+  tuneRuns: Map<string, TuneRun>;
 }
 
 /** One editor feature: the capabilities it announces and the handlers it installs. Handlers must

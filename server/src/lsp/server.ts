@@ -81,6 +81,7 @@ export function startServer(connection: Connection): void {
         job.budgetMs + FIX_CHECK_HARD_MARGIN_MS,
       ),
     log,
+    tuneRuns: new Map(),
   };
 
   function publish({ uri, version, analysis }: PublishedAnalysis): void {
@@ -165,6 +166,7 @@ export function startServer(connection: Connection): void {
       justOpened.delete(e.document.uri);
       scheduler.close(e.document.uri);
       views.forget(e.document.uri);
+      ctx.tuneRuns.delete(e.document.uri);
       void connection.sendDiagnostics({ uri: e.document.uri, diagnostics: [] });
     }),
   );

@@ -181,6 +181,23 @@ export class HandForceMeasure {
     return { worst, byPayload, violation, broken: [...broken] };
   }
 
+  /** The nominal case's holding torque at pose `pi` with `springs` in place of the tuned ones
+   * (same order), per dof, N*m (a fresh array). */
+  holdingTorque(springs: readonly Spring[], pi: number): Float64Array {
+    const pose = this.poses[pi]!;
+    this.add.fill(0);
+    for (const s of springs) this.springPart(s, pose);
+    const base = this.baseTorque[pi]![0]!;
+    const out = new Float64Array(Math.max(1, this.ndof));
+    for (let d = 0; d < this.ndof; d++) out[d] = base[d]! + this.add[d]!;
+    return out;
+  }
+
+  /** Index of a dof in the holding torque's order (-1: none). */
+  dofIndex(id: string): number {
+    return this.dofIds.indexOf(id);
+  }
+
   /** The change of the nominal case's holding torque when one payload weighs `kg`, per dof. */
   private weightShift(pi: number, mass: { payload: string; kg: number }): Float64Array {
     const out = new Float64Array(Math.max(1, this.ndof));

@@ -380,9 +380,133 @@ function drawLabels(labels: readonly PendingLabel[], f: Frame, reserved: readonl
   return out + "</g>";
 }
 
+/** A tune run's overlay (docs/tuning.md, "The preview"): each tuned spring at the other
+ * design's place, dashed in the overlay's colour; the anchor points that float the arm at the
+ * reference pose, dotted; those that balance it at every pose, as diamonds. */
+function tuneMarks(vm: ViewModel, pose: ViewPose, f: Frame, labels: PendingLabel[]): string {
+  const tune = vm.tune;
+  if (!tune) return "";
+  let out = `<g class="tune" data-text-is="${tune.textIs}">`;
+  for (const l of tune.locus) {
+    if (l.reason) continue;
+    for (const line of l.atReference) {
+      const placed = line
+        .map((p) => at(pose, l.body, p))
+        .filter((w): w is [number, number] => w !== undefined);
+      if (placed.length > 1)
+        out += `<polyline class="locus" data-spring="${esc(l.spring)}" points="${pts(placed)}" fill="none" stroke="${PALETTE.locus}" stroke-width="${c2(1.4 * f.u)}" stroke-dasharray="${c2(1.2 * f.u)} ${c2(2.4 * f.u)}" stroke-linecap="round"/>`;
+    }
+    for (const p of l.exact) {
+      const w = at(pose, l.body, p);
+      if (w)
+        out += `<path class="locus-exact" data-spring="${esc(l.spring)}" d="${diamond(w, 4.5 * f.u)}" fill="${PALETTE.locus}" stroke="${PALETTE.ink}" stroke-width="${c2(0.8 * f.u)}"/>`;
+    }
+  }
+  for (const s of tune.springs) {
+    if (!s.other || !s.moved) continue;
+    const a = at(pose, s.other[0].body, s.other[0].local);
+    const b = at(pose, s.other[1].body, s.other[1].local);
+    if (!a || !b) continue;
+    const dash = `stroke-dasharray="${c2(4 * f.u)} ${c2(2.5 * f.u)}"`;
+    const w = 1.8 * f.u;
+    out += `<g class="tuned-spring" data-spring="${esc(s.id)}"><title>${esc(`${s.id} ${tune.otherLabel}: ${s.changes.join(", ")}`)}</title>`;
+    if (s.kind === "elastic")
+      out += `<polyline points="${cordPath(a, b, f)}" fill="none" stroke="${PALETTE.tuned}" stroke-width="${c2(w * 1.4)}" ${dash}/>`;
+    else if (s.kind === "gas")
+      out += `<line x1="${c2(a[0])}" y1="${c2(Y(a[1]))}" x2="${c2(b[0])}" y2="${c2(Y(b[1]))}" stroke="${PALETTE.tuned}" stroke-width="${c2(4 * f.u)}" ${dash}/>`;
+    else
+      out += `<polyline points="${coilPath(a, b, f)}" fill="none" stroke="${PALETTE.tuned}" stroke-width="${c2(w)}" stroke-linejoin="round" ${dash}/>`;
+    for (const h of [a, b])
+      out += `<circle cx="${c2(h[0])}" cy="${c2(Y(h[1]))}" r="${c2(2.4 * f.u)}" fill="${PALETTE.paper}" stroke="${PALETTE.tuned}" stroke-width="${c2(1.2 * f.u)}"/>`;
+    out += "</g>";
+    labels.push({
+      text: `${s.id} ${tune.otherLabel}`,
+      at: [(a[0] + b[0]) / 2, Y((a[1] + b[1]) / 2)],
+      gap: 8 * f.u,
+      fontSize: 10 * f.u,
+      fill: PALETTE.tuned,
+      className: "tune-label",
+      part: s.id,
+    });
+  }
+  return out + "</g>";
+}
+
+function diamond(w: [number, number], r: number): string {
+  const [x, y] = [w[0], Y(w[1])];
+  return `M${c2(x)} ${c2(y - r)}L${c2(x + r)} ${c2(y)}L${c2(x)} ${c2(y + r)}L${c2(x - r)} ${c2(y)}Z`;
+}
+
+/** The overlay's legend in words, one entry a line under the pose caption, each with a swatch
+ * of its mark; lines that would leave the frame are left out (their words stay in the marks'
+ * tooltips and the panel's tune section). */
+function tuneLegend(vm: ViewModel, f: Frame, below: number): { svg: string; boxes: Box[] } {
+  const tune = vm.tune;
+  if (!tune) return { svg: "", boxes: [] };
+  const entries: { text: string; swatch: (x: number, y: number) => string }[] = [];
+  const swatchLine = (colour: string, dash: string) => (x: number, y: number) =>
+    `<line x1="${c2(x)}" y1="${c2(y)}" x2="${c2(x + 16 * f.u)}" y2="${c2(y)}" stroke="${colour}" stroke-width="${c2(1.8 * f.u)}" stroke-dasharray="${dash}"/>`;
+  for (const s of tune.springs) {
+    const moved = s.other !== undefined && s.moved;
+    const place = moved ? "" : ", same place";
+    entries.push({
+      text:
+        tune.textIs === "present"
+          ? `${s.id} as tuned${place}: ${s.changes.join(", ")}`
+          : `${s.id} before tuning${place} (now ${s.changes.join(", ")})`,
+      swatch: moved ? swatchLine(PALETTE.tuned, `${c2(4 * f.u)} ${c2(2.5 * f.u)}`) : () => "",
+    });
+  }
+  const worst = (n: number | undefined) =>
+    n === undefined ? "?" : formatFigureWithUnit(n, "force", vm.units);
+  if (tune.worstBefore !== undefined || tune.worstAfter !== undefined)
+    entries.push({
+      text: `worst hand force ${worst(tune.worstBefore)} before tuning, ${worst(tune.worstAfter)} tuned`,
+      swatch: () => "",
+    });
+  for (const l of tune.locus) {
+    if (l.reason) continue;
+    if (l.atReference.length)
+      entries.push({
+        text: `${l.spring}'s anchor here floats the arm at the reference pose`,
+        swatch: swatchLine(PALETTE.locus, `${c2(1.2 * f.u)} ${c2(2.4 * f.u)}`),
+      });
+    entries.push(
+      l.exact.length
+        ? {
+            text: `${l.spring}'s anchor here balances every pose at its present rate`,
+            swatch: (x, y) =>
+              `<path d="${diamond([x + 8 * f.u, -y], 4 * f.u)}" fill="${PALETTE.locus}" stroke="${PALETTE.ink}" stroke-width="${c2(0.8 * f.u)}"/>`,
+          }
+        : {
+            text: `no anchor place in reach balances every pose at ${l.spring}'s present rate`,
+            swatch: () => "",
+          },
+    );
+  }
+  const [minX, minY, maxX] = f.bounds;
+  const size = 10 * f.u;
+  const x = minX + 8 * f.u;
+  let baseline = below + 14 * f.u;
+  let svg = `<g class="tune-legend">`;
+  const boxes: Box[] = [];
+  for (const e of entries) {
+    const box = fixedTextBox(e.text, x + 20 * f.u, baseline, size);
+    if (box.x + box.w > maxX - 4 * f.u || box.y + box.h > Y(minY) - 24 * f.u) continue;
+    svg += e.swatch(x, baseline - size * 0.35);
+    svg += haloText(x + 20 * f.u, baseline, e.text, size, PALETTE.ink);
+    boxes.push({ ...box, x: x, w: box.w + 20 * f.u });
+    baseline += 13 * f.u;
+  }
+  return { svg: svg + "</g>", boxes };
+}
+
 export interface DrawOptions {
   /** Rendered width in CSS pixels (the height follows the arm's proportions). */
   widthPx?: number;
+  /** Draw a tune run's overlay when the view model has one (default true; small figures leave
+   * it out). */
+  tuneOverlay?: boolean;
 }
 
 /** The arm in pose `poseIndex` (or at its exact reference pose) as an SVG string. */
@@ -417,8 +541,14 @@ export function renderArmSvg(
   const labels: PendingLabel[] = [];
   const flags = trouble(vm, pose, f, labels);
   const weights = payloads(vm, pose, status, f, labels);
+  const overlay = options.tuneOverlay === false ? undefined : vm;
+  const tuned = overlay ? tuneMarks(overlay, pose, f, labels) : "";
   const scale = scaleBar(vm, f);
   const top = caption(vm, pose, f);
+  const lastCaption = top.boxes[top.boxes.length - 1];
+  const legend = overlay
+    ? tuneLegend(overlay, f, lastCaption ? lastCaption.y + lastCaption.h : -bounds[3] + 4 * f.u)
+    : { svg: "", boxes: [] };
   return (
     head +
     ground +
@@ -426,12 +556,14 @@ export function renderArmSvg(
     envelope(vm, f) +
     bodies(vm, pose, status, f) +
     springs +
+    tuned +
     pivots(vm, pose, status, f) +
     weights +
     flags +
     scale.svg +
     top.svg +
-    drawLabels(labels, f, [scale.box, ...top.boxes]) +
+    legend.svg +
+    drawLabels(labels, f, [scale.box, ...top.boxes, ...legend.boxes]) +
     "</svg>"
   );
 }

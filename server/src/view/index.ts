@@ -2,6 +2,7 @@
 // for it) and the self-contained report page (`poise report`). Pure: strings and plain values.
 import { buildViewModel, type ViewInput, type ViewOptions } from "./build-view-model";
 import { renderReportHtml } from "./report-page";
+import { withTuneOverlay, type TuneOverlayInput } from "./tune-overlay";
 
 export { buildViewModel, type ViewInput, type ViewOptions } from "./build-view-model";
 export type { ViewModel } from "./view-model";
@@ -11,6 +12,8 @@ export interface ReportPageOptions {
   file: string;
   /** Unit system of the figures (default SI). */
   units?: "si" | "us";
+  /** A tune run of this text, laid over the drawing and the hand-force curves. */
+  tune?: TuneOverlayInput;
 }
 
 /** The report page of an analysis: drawing, curves, tables, diagnostics, limits and cautions. */
@@ -19,5 +22,9 @@ export function reportPage(analysis: ViewInput, options: ReportPageOptions): str
   // traces the payload's path along each run of them, so a grid of many degrees of freedom drawn
   // whole made pages of hundreds of megabytes.
   const viewOptions: ViewOptions = options.units ? { units: options.units } : {};
-  return renderReportHtml(buildViewModel(analysis, viewOptions), { file: options.file });
+  const vm = buildViewModel(analysis, viewOptions);
+  return renderReportHtml(options.tune ? withTuneOverlay(vm, options.tune, "present") : vm, {
+    file: options.file,
+  });
 }
+export { withTuneOverlay, type TuneOverlayInput } from "./tune-overlay";

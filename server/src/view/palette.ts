@@ -27,6 +27,9 @@ export const PALETTE = {
   load: "#84406f",
   net: "#23292e",
   band: "#cfe6d6",
+  // a tune run's overlay: the other design's springs and curves, and the anchor locus
+  tuned: "#4a56b8",
+  locus: "#8a6bbf",
 } as const;
 
 /** Colours for hand-force series of several payloads and load cases. */

@@ -47,7 +47,8 @@ export function torquePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpe
 
 /** Hand force at every payload against dof d, signed (positive where the arm sinks), with the
  * `require balance` band either side of zero and, when pivots have friction, the force without
- * it dashed: the gap between the two is what friction holds. */
+ * it dashed: the gap between the two is what friction holds. With a tune run over the drawing,
+ * the other design's hand force too (nominal case), in the overlay's colour. */
 export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): PlotSpec {
   const run = along(vm, d, poseIndex);
   const series: PlotSpec["series"] = [];
@@ -55,8 +56,10 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
   let k = 0;
   for (const payload of vm.payloads) {
     const colour = SERIES_CYCLE[k % SERIES_CYCLE.length]!;
+    // With a tune run over the drawing, the text's own design is "now".
+    const own = vm.tune ? `${payload.id} now` : payload.id;
     vm.loadCases.forEach((lc, c) => {
-      const name = vm.loadCases.length > 1 ? `${payload.id} (${lc.label})` : payload.id;
+      const name = vm.loadCases.length > 1 ? `${own} (${lc.label})` : own;
       series.push({
         name,
         colour: c === 0 ? colour : SERIES_CYCLE[(k + c) % SERIES_CYCLE.length]!,
@@ -81,6 +84,15 @@ export function handForcePlot(vm: ViewModel, d: number, poseIndex: number): Plot
               number,
               number,
             ],
+        ),
+      });
+    const other = vm.tune?.otherHandForce;
+    if (other && run.some((p) => other[p]?.[payload.id] !== undefined))
+      series.push({
+        name: `${payload.id} ${vm.tune!.otherLabel}`,
+        colour: PALETTE.tuned,
+        points: run.map(
+          (p) => [x(p), inDisplayUnit(other[p]?.[payload.id] ?? NaN, "force", vm.units)] as [number, number],
         ),
       });
     k += Math.max(vm.loadCases.length, 1);

@@ -11,7 +11,7 @@ import { MODEL_LIMITS, SAFETY_CAUTIONS } from "./limits";
 import { resultsTableHtml } from "./results-table";
 import { PALETTE } from "./palette";
 import { esc } from "./text";
-import { formatNumber, inDisplayUnit } from "../units/format";
+import { formatFigureWithUnit, formatNumber, inDisplayUnit } from "../units/format";
 
 const REPORT_CSS = `
 body { font: 14px/1.45 system-ui, -apple-system, "Segoe UI", sans-serif; color: ${PALETTE.ink}; background: #fbf9f4; margin: 0; }
@@ -44,6 +44,15 @@ function verdict(vm: ViewModel): string {
   return `<span class="verdict ok">no errors or warnings</span>`;
 }
 
+/** The tune run's result in words under the drawing (the spec's `tune` lines). */
+function tuneNote(vm: ViewModel): string {
+  const t = vm.tune!;
+  const force = (n: number | undefined) =>
+    n === undefined ? "?" : formatFigureWithUnit(n, "force", vm.units);
+  const springs = t.springs.map((s) => `${s.id}: ${s.changes.join(", ")}`).join("; ");
+  return `<p class="note tune-note">The design search over the spec's <code>tune</code> lines found ${esc(springs)}; worst hand force over every pose and payload mass ${esc(force(t.worstBefore))} now, ${esc(force(t.worstAfter))} tuned, with every check re-run on the tuned design. The tuned springs are drawn dashed beside the present ones and their hand force is plotted ${esc(`"${t.otherLabel}"`)}; the values are not written into the spec (<code>poise tune --write</code> writes them). A starting point to build and measure, not a certificate.</p>`;
+}
+
 /** Small drawings at each end of every dof's range, the others as near their reference as the sweep has. */
 function rangeEnds(vm: ViewModel): string {
   if (vm.poses.length < 2) return "";
@@ -54,7 +63,7 @@ function rangeEnds(vm: ViewModel): string {
     for (const end of [d.values[0]!, d.values[d.values.length - 1]!]) {
       const target = vm.dofs.map((o, k) => (k === i ? end : o.reference));
       const p = nearestPose(angles, target, spans);
-      out += `<figure>${renderArmSvg(vm, p, { widthPx: 260 })}<figcaption>${esc(d.id)} at ${formatNumber(inDisplayUnit(end, "angle", vm.units))}°</figcaption></figure>`;
+      out += `<figure>${renderArmSvg(vm, p, { widthPx: 260, tuneOverlay: false })}<figcaption>${esc(d.id)} at ${formatNumber(inDisplayUnit(end, "angle", vm.units))}°</figcaption></figure>`;
     }
   });
   return out + "</div>";
@@ -104,6 +113,7 @@ export function renderReportHtml(vm: ViewModel, options: ReportOptions): string 
     `<h2>The arm</h2>`,
     `<p class="note">Drawn to scale in its plane at the reference pose; bodies as thick as their section depth, the dashed line the payload's path over the range. Parts flagged red fail a check; amber ones carry a warning.</p>`,
     `<div class="drawing">${renderArmSvg(vm, "reference", { widthPx: 760 })}</div>`,
+    ...(vm.tune ? [tuneNote(vm)] : []),
     ...(vm.thinned
       ? [
           `<p class="note">Drawn and plotted from ${vm.thinned.shown} of the ${vm.thinned.solved} poses solved (every few values of each degree of freedom, both ends kept); the checks used them all.</p>`,

@@ -110,6 +110,59 @@ export interface ViewPose {
   springForce: Record<string, number>;
 }
 
+/** A spring end on a body, local m. */
+export interface ViewEnd {
+  body: string;
+  local: [number, number];
+}
+
+/** A tuned spring in the drawing: the design the text holds is drawn as every spring is; `other`
+ * is the other design's place (dashed), absent for a spring at a joint. */
+export interface ViewTuneSpring {
+  id: string;
+  kind: ViewSpring["kind"];
+  other?: [ViewEnd, ViewEnd];
+  /** Whether the tune run moves an end (else only its rate, tension or size change, and the
+   * drawing names it in the legend without drawing it again on top of itself). */
+  moved: boolean;
+  /** What the tune run changes, in the spec's own units (`rate 0.7845 N/mm`). */
+  changes: string[];
+}
+
+/** Anchor points at which the arm balances with the spring as the text has it (its rate kept),
+ * local m on `body`: along rays from `pivot`. */
+export interface ViewTuneLocus {
+  spring: string;
+  body: string;
+  pivot: [number, number];
+  /** Where the arm floats at the reference pose (polylines). */
+  atReference: [number, number][][];
+  /** Where it balances at every pose (within `tolerance`, N); empty when nowhere in reach. */
+  exact: [number, number][];
+  tolerance: number;
+  /** Why there is no locus at all. */
+  reason?: string;
+}
+
+/** The result of a tune run the user asked for, laid over the drawing of either text: the
+ * present one (the tuned values not written yet) or the tuned one (written). */
+export interface ViewTune {
+  /** Which design the text holds: "present" (the other is the tuned proposal) or "tuned" (the
+   * other is the design before tuning). */
+  textIs: "present" | "tuned";
+  /** Words for the other design in legends: "as tuned" or "before tuning". */
+  otherLabel: string;
+  springs: ViewTuneSpring[];
+  /** The other design's signed hand force per payload (nominal case, beyond friction, N), for
+   * each pose of `poses` (same index); null where the other design has no such pose. */
+  otherHandForce: (Record<string, number> | null)[];
+  /** Worst hand force over every pose and payload mass, N: before and after tuning. */
+  worstBefore?: number;
+  worstAfter?: number;
+  /** For the design the text holds. */
+  locus: ViewTuneLocus[];
+}
+
 export interface SafetyRow {
   partId: string;
   /** The readout's id (a parallelogram's bar or pin may be listed under its own id). */
@@ -177,6 +230,8 @@ export interface ViewModel {
   emptyReason?: string;
   /** Set when the sweep had more poses than the view carries (every k-th value of each dof kept). */
   thinned?: { shown: number; solved: number };
+  /** A tune run's result over this drawing, when the user asked for one (docs/tuning.md). */
+  tune?: ViewTune;
   /** Set when the drawing is of an earlier text than the editor's (the current one builds no arm). */
   staleNote?: string;
 }

@@ -6,6 +6,17 @@ import type { FeatureContext, ServerFeature } from "../context";
 import { guarded } from "../safe";
 import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "../preview-protocol";
 import type { Analysis } from "../../analysis";
+import { withTuneOverlay, type ViewModel } from "../../view/index";
+
+/** The drawing with the document's last tune run over it, when the text drawn is the one the run
+ * searched from or the one with its values written (docs/tuning.md, "The preview"). */
+function overlaid(ctx: FeatureContext, uri: string, text: string, vm: ViewModel): ViewModel {
+  const run = ctx.tuneRuns.get(uri);
+  if (!run) return vm;
+  if (text === run.presentText) return withTuneOverlay(vm, run.preview, "present");
+  if (text === run.tunedText) return withTuneOverlay(vm, run.preview, "tuned");
+  return vm;
+}
 
 /** How long the request waits for the current text's analysis before answering with an older
  * one: a little over the usual typing debounce plus a sweep (common practice, no source). */
@@ -42,7 +53,7 @@ export const previewFeature: ServerFeature = {
           ctx.log(`Counterpoise: the arm drawing could not be built: ${built.failed}`);
           return null;
         }
-        const vm = built.view;
+        const vm = overlaid(ctx, doc.uri, analysis.text, built.view);
         if (analysis.text !== doc.getText())
           vm.staleNote =
             "Showing the last text that described an arm; the current text does not build one yet.";

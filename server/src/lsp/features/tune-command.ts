@@ -1,8 +1,10 @@
 // The editor's tune command (issue 13): runs the design search over a document's `tune` lines in
 // the analysis worker (cancellable from the editor's progress), reports LSP work-done progress,
 // and writes the re-checked values into the document in its own units (a versioned edit, so a
-// text changed meanwhile is never overwritten). The quick fix that runs it lives with the other
-// code actions (code-actions.ts).
+// text changed meanwhile is never overwritten); with `{ write: false }` as its second argument it
+// only shows the result in the arm drawing and offers to write it. Either way the run is kept for
+// the drawing (ctx.tuneRuns). The quick fix that runs it lives with the other code actions
+// (code-actions.ts).
 import {
   TextDocumentEdit,
   WorkDoneProgressReporter,
@@ -14,6 +16,9 @@ import type { FeatureContext, ServerFeature } from "../context";
 import { guarded } from "../safe";
 import { LineIndex } from "../../syntax/span";
 import { TUNE_COMMAND, type TuneCommandResult } from "../custom-protocol";
+
+/** The action of the message that offers to write values only shown. */
+const WRITE_ACTION = "Write the tuned values";
 
 /** Hand forces to the hundredth of a newton. */
 const newtons = (n: number | undefined) => (n === undefined ? "-" : `${n.toFixed(2)} N`);
@@ -33,6 +38,7 @@ async function reporterFor(
 async function tuneDocument(
   ctx: FeatureContext,
   uri: string,
+  write: boolean,
   token: CancellationToken,
   workDone: WorkDoneProgressReporter | undefined,
 ): Promise<TuneCommandResult> {
@@ -61,6 +67,10 @@ async function tuneDocument(
     void ctx.connection.window.showInformationMessage(message);
     return { improved: false, applied: false, message };
   }
+  // The drawing lays the run over whichever of the two texts the editor holds (before the edit
+  // below lands, so the drawing's refresh after it finds the run).
+  if (r.preview && r.tunedText !== undefined)
+    ctx.tuneRuns.set(uri, { presentText: text, tunedText: r.tunedText, preview: r.preview });
   const now = ctx.documents.get(uri);
   if (!now || now.version !== version) {
     const message = "The text changed while tuning: run the tune command again.";
@@ -75,10 +85,29 @@ async function tuneDocument(
   const summary = `Tuned ${r.changes.join("; ")}: worst hand force ${newtons(r.worstBefore)} → ${newtons(r.worstAfter)}${
     r.errors > 0 ? ` (the design still has ${r.errors} error${r.errors === 1 ? "" : "s"})` : ""
   }${r.stopped ? " (the search stopped at its time budget: the best found by then)" : ""}.`;
-  const applied = await ctx.connection.workspace.applyEdit({
-    label: "Tune springs",
-    edit: { documentChanges: [TextDocumentEdit.create({ uri, version }, edits)] },
-  });
+  const writeEdit = () =>
+    ctx.connection.workspace.applyEdit({
+      label: "Tune springs",
+      edit: { documentChanges: [TextDocumentEdit.create({ uri, version }, edits)] },
+    });
+  if (!write) {
+    // Shown, not written: the drawing has the tuned design beside the present one; the values go
+    // into the text only when asked (and only into the text they were found for).
+    const message = `${summary} Shown in the arm drawing, not written.`;
+    void ctx.connection.window
+      .showInformationMessage(message, { title: WRITE_ACTION })
+      .then(async (choice) => {
+        if (choice?.title !== WRITE_ACTION) return;
+        if (ctx.documents.get(uri)?.version !== version)
+          return void ctx.connection.window.showWarningMessage(
+            "The text changed since the search: run it again.",
+          );
+        await writeEdit();
+      })
+      .catch(() => undefined);
+    return { improved: true, applied: false, message };
+  }
+  const applied = await writeEdit();
   if (applied.applied) void ctx.connection.window.showInformationMessage(summary);
   return {
     improved: true,
@@ -106,7 +135,9 @@ export const tuneCommandFeature: ServerFeature = {
           const uri = params.arguments?.[0];
           if (typeof uri !== "string")
             return { improved: false, applied: false, message: "no document named" };
-          return tuneDocument(ctx, uri, token, workDone);
+          const options = params.arguments?.[1] as { write?: unknown } | undefined;
+          const write = !(typeof options === "object" && options !== null && options.write === false);
+          return tuneDocument(ctx, uri, write, token, workDone);
         },
       ),
     );
