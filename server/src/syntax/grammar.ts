@@ -50,9 +50,17 @@ export class ArmGrammar extends CstParser {
   /** Rules entered since the last look at the clock. */
   private sinceLook = 0;
 
-  constructor() {
+  /** `validate`: run Chevrotain's grammar validations (ambiguities, left recursion), which
+   * throw on a faulty grammar. The tests do (test/syntax/definitions.test.ts); the server and
+   * the command skip them, since they cost tens of milliseconds at every start. */
+  constructor(validate = false) {
     // Node locations let the tree builder take spans without walking every node's tokens.
-    super(ALL_TOKENS, { recoveryEnabled: true, maxLookahead: 3, nodeLocationTracking: "onlyOffset" });
+    super(ALL_TOKENS, {
+      recoveryEnabled: true,
+      maxLookahead: 3,
+      nodeLocationTracking: "onlyOffset",
+      skipValidations: !validate,
+    });
     this.performSelfAnalysis();
   }
 
