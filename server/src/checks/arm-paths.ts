@@ -15,13 +15,25 @@ export function placingJoint(model: ArmModel, bodyId: string): Joint | undefined
   return best;
 }
 
-/** Joints from `bodyId` back to the base, nearest first (stops on a cycle or a missing link). */
-export function chainToBase(model: ArmModel, bodyId: string): Joint[] {
+/** The placing joint of every body that has one, by body id: one pass over the joints, for
+ * callers that walk many bodies' chains (placingJoint scans every joint each time). */
+export function placingJoints(model: ArmModel): Map<string, Joint> {
+  const out = new Map<string, Joint>();
+  for (const j of model.joints) {
+    const best = out.get(j.child);
+    if (!best || MODE_ORDER[j.mode] < MODE_ORDER[best.mode]) out.set(j.child, j);
+  }
+  return out;
+}
+
+/** Joints from `bodyId` back to the base, nearest first (stops on a cycle or a missing link).
+ * `placing`: placingJoints(model), when the caller walks many chains. */
+export function chainToBase(model: ArmModel, bodyId: string, placing?: Map<string, Joint>): Joint[] {
   const out: Joint[] = [];
   const seen = new Set<string>([bodyId]);
   let id = bodyId;
   for (;;) {
-    const j = placingJoint(model, id);
+    const j = placing ? placing.get(id) : placingJoint(model, id);
     if (!j || seen.has(j.parent)) return out;
     out.push(j);
     seen.add(j.parent);

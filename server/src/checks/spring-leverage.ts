@@ -3,12 +3,12 @@
 // hooks and anchor, the pin it works about and the bar it hooks on. The toggle check measures the
 // lever arm against the hook radius, so an anchor a few millimetres from the pivot with a long
 // hook radius passes it (issue 10 item 2); this check measures the force against the weight.
-import type { ArmModel, Joint, Spring } from "../model/types";
+import type { ArmModel, Body, Joint, Payload, Spring } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
-import { chainToBase } from "./arm-paths";
+import { chainToBase, placingJoints } from "./arm-paths";
 import { workingJoint } from "./geometry";
 import { bodyWord, describePose, pastDeadline, payloadMasses, show, spanOf } from "./part-words";
 import { atJoint } from "../model/spring-kinds";
@@ -37,13 +37,28 @@ const NEGLIGIBLE_WEIGHT_N = 1e-6;
 type TwoEnded = Exclude<Spring, { kind: "torsion" }>;
 
 /** Bodies the joint carries: its child and every body whose chain to the base passes through it. */
-function carried(model: ArmModel, joint: Joint): Set<string> {
+function carried(model: ArmModel, joint: Joint, placing: Map<string, Joint>): Set<string> {
   const out = new Set<string>();
   for (const b of model.bodies) {
     if (b.kind === "base") continue;
-    if (b.id === joint.child || chainToBase(model, b.id).some((j) => j.id === joint.id)) out.add(b.id);
+    if (b.id === joint.child || chainToBase(model, b.id, placing).some((j) => j.id === joint.id))
+      out.add(b.id);
   }
   return out;
+}
+
+/** The carried bodies that weigh anything and the payloads on carried bodies, in the model's
+ * order (so that the sums below add in the same order as over the whole model). */
+interface Carried {
+  bodies: Body[];
+  payloads: Payload[];
+}
+
+function carriedParts(model: ArmModel, bodies: Set<string>): Carried {
+  return {
+    bodies: model.bodies.filter((b) => bodies.has(b.id) && b.mass > 0),
+    payloads: model.payloads.filter((p) => bodies.has(p.body)),
+  };
 }
 
 interface Weighed {
@@ -55,7 +70,7 @@ interface Weighed {
 function weighAt(
   model: ArmModel,
   pose: Pose,
-  bodies: Set<string>,
+  parts: Carried,
   masses: Record<string, number>,
   pivot: { x: number },
 ): Weighed {
@@ -65,24 +80,25 @@ function weighAt(
     w += m * model.gravity;
     moment += m * model.gravity * (x - pivot.x);
   };
-  for (const b of model.bodies)
-    if (bodies.has(b.id) && pose.bodies[b.id] && b.mass > 0)
-      add(b.mass, worldPoint(pose, b.id, b.centreOfMass, model).x);
-  for (const p of model.payloads)
-    if (bodies.has(p.body) && pose.bodies[p.body])
-      add(masses[p.id] ?? p.mass, worldPoint(pose, p.body, p.point, model).x);
+  for (const b of parts.bodies)
+    if (pose.bodies[b.id]) add(b.mass, worldPoint(pose, b.id, b.centreOfMass, model).x);
+  for (const p of parts.payloads)
+    if (pose.bodies[p.body]) add(masses[p.id] ?? p.mass, worldPoint(pose, p.body, p.point, model).x);
   return { weight: w, arm: w > 0 ? Math.abs(moment / w) : 0 };
 }
 
 export function checkSpringLeverage(ctx: CheckContext): void {
-  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s);
+  const placing = placingJoints(ctx.model);
+  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s, placing);
 }
 
-function checkSpring(ctx: CheckContext, s: TwoEnded): void {
+function checkSpring(ctx: CheckContext, s: TwoEnded, placing: Map<string, Joint>): void {
   const { model, sweep } = ctx;
   const joint = workingJoint(model, sweep, s);
   if (!joint) return;
-  const bodies = carried(model, joint);
+  const bodies = carried(model, joint, placing);
+  const parts = carriedParts(model, bodies);
+  const masses = sweep.loadCases.map((_, ci) => payloadMasses(model, sweep, ci));
   // The hook is the end on a carried body; the other end is the anchor.
   const hookEnd = bodies.has(s.b.body) ? "b" : bodies.has(s.a.body) ? "a" : undefined;
   if (!hookEnd) return;
@@ -111,7 +127,7 @@ function checkSpring(ctx: CheckContext, s: TwoEnded): void {
     const reach = Math.hypot(toPivot.x, toPivot.y);
     pose.cases.forEach((c, ci) => {
       const tension = c.springForce[s.id] ?? 0;
-      const weighed = weighAt(model, pose, bodies, payloadMasses(model, sweep, ci), pivot);
+      const weighed = weighAt(model, pose, parts, masses[ci] ?? payloadMasses(model, sweep, ci), pivot);
       weightArm = Math.max(weightArm, weighed.arm);
       const r = c.reactions[joint.id];
       if (r) reaction = Math.max(reaction, Math.hypot(r.x, r.y));
