@@ -53,19 +53,19 @@ export function tiltShares(
   headings: Headings = {},
 ): { rotation: number; byBody: Map<string, number> } | undefined {
   const loaded = buildArmFrame(model, pose, statics, payloadMass, { headings });
-  const probe = buildArmFrame(model, pose, statics, payloadMass, { headings });
-  const node = probe.payloadNode[payloadId];
+  const node = loaded.payloadNode[payloadId];
   const body = model.payloads.find((p) => p.id === payloadId)?.body;
   if (node === undefined || body === undefined) return undefined;
   // the tilt is the turn about the payload's pins' axis: the drawing's z turned with its swivels
   const axis = new Placement(model, pose, headings).direction(body, { x: 0, y: 0, z: 1 });
   const u = loaded.frame.solveStatic();
-  const base = probe.frame.solveStatic();
-  probe.frame.addLoad(node, { x: 0, y: 0, z: 0 }, axis);
-  const withMoment = probe.frame.solveStatic();
-  if (!u || !base || !withMoment) return undefined;
+  if (!u) return undefined;
+  // A load leaves the stiffness alone, so the second solve reuses the frame's factorisation.
+  loaded.frame.addLoad(node, { x: 0, y: 0, z: 0 }, axis);
+  const withMoment = loaded.frame.solveStatic();
+  if (!withMoment) return undefined;
   // The frame is linear: the unit moment's own displacements are the difference of the two solves.
-  const v: Displacements = { raw: withMoment.raw.map((x, d) => x - base.raw[d]!) };
+  const v: Displacements = { raw: withMoment.raw.map((x, d) => x - u.raw[d]!) };
   const byBody = new Map<string, number>();
   loaded.memberBody.forEach((id, k) => {
     if (!id) return;
