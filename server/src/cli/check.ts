@@ -2,6 +2,7 @@
 // message` (1-based), then a one-line summary; or one JSON array, each diagnostic with its figures
 // (`data`: subject and SI numbers). Exit 0 no errors, 1 errors, 2 the command could not run.
 import { analyse } from "../analysis";
+import { optimiseFor } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
 import type { Finding } from "../findings/finding";
 import { LineIndex } from "../syntax/span";
@@ -21,6 +22,7 @@ export interface JsonDiagnostic {
 }
 
 export function diagnosticsOf(file: string, text: string): JsonDiagnostic[] {
+  optimiseFor(text);
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
   const lines = new LineIndex(text);
   return [...analysis.findings]

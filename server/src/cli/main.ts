@@ -6,6 +6,7 @@ import { runReport } from "./report";
 import { runResults } from "./results";
 import { runTune } from "./tune";
 import { processOutput, type Output } from "./io";
+import { switchOptimiserPerSpec } from "./optimiser";
 import packageJson from "../../../package.json";
 
 const HELP = `poise — checks spring-balanced arm specs (*.poise)
@@ -83,6 +84,7 @@ export async function main(argv: string[], out: Output = processOutput): Promise
   }
 }
 
+switchOptimiserPerSpec();
 main(process.argv.slice(2)).then(
   (code) => {
     process.exitCode = code;

@@ -1,6 +1,7 @@
 // `poise report FILE [-o OUT] [--units si|us]`: the arm's drawing, curves, safety factors, diagnostics, limits and
 // cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
 import { analyse } from "../analysis";
+import { optimiseFor } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
 import { reportPage } from "../view";
 import { tuneDesign } from "../tune/index";
@@ -51,6 +52,7 @@ export function reportHtml(
 ): { html: string; errors: number } {
   // Figures and messages in the system asked for, else the one the spec is written in.
   const start = performance.now();
+  optimiseFor(text);
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS, ...(units ? { units } : {}) });
   // A spec with `tune` lines: the page shows the search's design beside the present one
   // (docs/tuning.md, "The preview"), within what is left of the command's budget.

@@ -2,6 +2,7 @@
 // (checks/results.ts builds the record), as JSON in docs/cli.md's shape or as lines to read.
 // Exit 0 no errors, 1 the spec has errors, 2 the command could not run.
 import { analyse } from "../analysis";
+import { optimiseFor } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
 import { buildResults, resultsJson, type FigureMap, type ResultsRecord } from "../checks/results";
 import { formatNumber } from "../units/format";
@@ -49,6 +50,7 @@ export function resultsOf(
   units: UnitSystem;
 } {
   // Figures and messages in the system asked for, else the one the spec is written in.
+  optimiseFor(text);
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS, ...(units ? { units } : {}) });
   const record = buildResults(analysis);
   const system = units ?? analysis.units ?? "si";

@@ -2,6 +2,7 @@
 // docs/cli.md: angles deg, lengths and positions mm, forces N, torques N*m (stresses MPa), which the
 // JSON names under `units` and each CSV column in brackets after its path.
 import { analyse, type Pose, type SweepResult } from "../analysis";
+import { optimiseFor } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
 import { readSpec, type Output } from "./io";
 
@@ -133,6 +134,7 @@ export function runSweep(args: string[], out: Output): number {
   const file = files[0]!;
   const text = readSpec(file, out, "sweep");
   if (text === undefined) return 2;
+  optimiseFor(text);
   const analysis = analyse(text, { budgetMs: CLI_BUDGET_MS });
   const errors = analysis.findings.filter((f) => f.severity === "error");
   if (!analysis.sweep) {
