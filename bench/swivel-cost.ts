@@ -8,6 +8,9 @@ import { existsSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { analyse, type AnalysisOptions } from "../server/src/analysis";
 import { headingCombinations, headingSets } from "../server/src/mechanics/headings";
+import { turnedLoadsAt, turnedPassPoses } from "../server/src/checks/turned-loads";
+import type { ArmModel } from "../server/src/model/types";
+import type { SweepResult } from "../server/src/mechanics/types";
 
 const WRIST = `
   link holder {
@@ -64,6 +67,29 @@ export function runSwivelCost(
     log(
       `  ${n} swivel${n === 1 ? "" : "s"}: ${full.toFixed(1)} ms (checks ${a.timings.checks.toFixed(1)}), while typing ${quick.toFixed(1)} ms; ${sets} heading sets one at a time, ${combos} combinations${bad.length ? `; ERRORS: ${bad.map((f) => f.code).join(", ")}` : ""}`,
     );
+    if (n > 0 && a.model && a.sweep) log(`    ${turnedPassCost(a.model, a.sweep)}`);
   }
   return true;
+}
+
+/** The turned pass (strength with torsion, columns, pins and bearings in 3D) at the poses its
+ * rule picks against every pose of the sweep (docs/checks.md, "Which poses each check visits"):
+ * one run each, the frame solves being the cost. */
+function turnedPassCost(model: ArmModel, sweep: SweepResult): string {
+  const ctx = {
+    model,
+    sweep,
+    options: { deadline: Infinity },
+    findings: [],
+    readouts: {},
+  };
+  const picked = turnedPassPoses(model, sweep);
+  const once = (f: () => void) => {
+    const t = performance.now();
+    f();
+    return performance.now() - t;
+  };
+  const rule = once(() => turnedLoadsAt(ctx, picked));
+  const every = once(() => turnedLoadsAt(ctx, sweep.poses));
+  return `turned pass: ${picked.length} poses by the rule ${rule.toFixed(0)} ms, every pose (${sweep.poses.length}) ${every.toFixed(0)} ms`;
 }

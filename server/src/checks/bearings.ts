@@ -14,7 +14,9 @@ import {
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety, type Figure } from "./readout";
-import { describePose, pastDeadline, show, showSafety, spanOf } from "./part-words";
+import { describePose, describeStation, pastDeadline, show, showSafety, spanOf } from "./part-words";
+import type { PinLoad } from "../mechanics/structure/joint-wrench";
+import { turnedLoads, worseThanLevel } from "./turned-loads";
 
 /** The bearing with its materials resolved, for bearingSafety; undefined when a material is
  * missing (its name was reported by the model). */
@@ -102,11 +104,24 @@ export function checkBearings(ctx: CheckContext): void {
     if (!worst) continue;
     const w: { force: number; pose: Pose; ci: number } = worst;
     const role: BearingRole = "radial";
-    const load: BearingLoad = { radial: w.force, axial: 0, moment: 0 };
-    const r = bearingSafety(bm, load, role);
-    const where = describePose(sweep, w.pose, w.ci);
+    let load: BearingLoad = { radial: w.force, axial: 0, moment: 0 };
+    let r = bearingSafety(bm, load, role);
+    let where = describePose(sweep, w.pose, w.ci);
+    const turned = turnedBearing(ctx, j.id, bm, r.safety);
+    if (turned.worst) ({ load, r, where } = turned.worst);
     addFigures(ctx.readouts, bearing.id, "bearing", bearingFigures(`at ${j.id}: `, load, r, where), r.notes);
     addFigures(ctx.readouts, j.id, "joint", [
+      ...(turned.moment && turned.moment.value > 1e-6
+        ? [
+            {
+              label: "largest tilting moment on its bearing",
+              value: turned.moment.value,
+              dimension: "torque" as const,
+              where: turned.moment.where,
+              result: { key: "bearing_tilting_moment" },
+            },
+          ]
+        : []),
       { label: "bearing safety factor", value: r.safety, dimension: "dimensionless", where },
     ]);
     noteSafety(ctx.readouts, bearing.id, "bearing", r.safety, `bearing at ${j.id}`, where);
@@ -117,7 +132,7 @@ export function checkBearings(ctx: CheckContext): void {
         finding(
           "strength.bearing",
           spanOf(j.origin, "bearing"),
-          `bearing ${bearing.id} of joint ${j.id}: ${bearingWords(bearing, r)}: safety ${showSafety(r.safety)} < ${showSafety(need)} required (reaction ${show(w.force, "force")} ${where})`,
+          `bearing ${bearing.id} of joint ${j.id}: ${bearingWords(bearing, r)}: safety ${showSafety(r.safety)} < ${showSafety(need)} required (${turned.worst ? `radial load ${show(load.radial, "force")}, ${show(load.axial, "force")} along its axis and a tilting moment of ${show(load.moment, "torque")}` : `reaction ${show(w.force, "force")}`} ${where})`,
           {
             related: [
               { span: bearing.origin.name ?? bearing.origin.declaration, message: `bearing ${bearing.id}` },
@@ -141,4 +156,40 @@ export function checkBearings(ctx: CheckContext): void {
         ),
       );
   }
+}
+
+/** A joint's bearing with stages turned across (docs/checks.md, Bearings): the turned pass's load
+ * on the joint (turned-loads.ts), its force across the pin axis as the radial load, along it as
+ * the axial load and its moment across the axis as the tilting moment. A heading counts where it
+ * makes the bearing's safety lower than the frame gives with every heading at 0 at that pose, and
+ * then replaces the planar worst when lower still; the largest tilting moment is a figure. */
+function turnedBearing(
+  ctx: CheckContext,
+  jointId: string,
+  bm: BearingModel,
+  planarSafety: number,
+): {
+  worst?: { load: BearingLoad; r: BearingSafety; where: string };
+  moment?: { value: number; where: string };
+} {
+  const out: ReturnType<typeof turnedBearing> = {};
+  let least = planarSafety;
+  const asLoad = (p: PinLoad): BearingLoad => ({ radial: p.radial, axial: p.axial, moment: p.momentAcross });
+  for (const { pose, caseIndex, level, turned } of turnedLoads(ctx)) {
+    const lv = level.joints.get(jointId);
+    const levelSafety = lv ? bearingSafety(bm, asLoad(lv), "radial").safety : Infinity;
+    for (const visit of turned) {
+      const p = visit.joints.get(jointId);
+      if (!p) continue;
+      const where = () => describeStation(ctx.sweep, pose, caseIndex, visit.headings);
+      if (p.momentAcross > (out.moment?.value ?? 0)) out.moment = { value: p.momentAcross, where: where() };
+      const load = asLoad(p);
+      const r = bearingSafety(bm, load, "radial");
+      if (worseThanLevel(1 / r.safety, 1 / levelSafety) && r.safety < least) {
+        least = r.safety;
+        out.worst = { load, r, where: where() };
+      }
+    }
+  }
+  return out;
 }

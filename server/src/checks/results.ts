@@ -39,6 +39,9 @@ interface Section {
   keys: readonly string[];
   /** The model's parts of this section, listed even when no readout has figures for them. */
   listed?: (model: ArmModel) => string[];
+  /** A part enters only with a figure tagged for this section, and the section is left out of
+   * the record's JSON and lines when no part has one (figures that only some arms have). */
+  onlyTagged?: boolean;
 }
 
 /** The sections of the record, in the order of docs/cli.md. The `safety` key of a section is the
@@ -57,6 +60,13 @@ export const RESULT_SECTIONS: readonly Section[] = [
     listed: (m) => (m.swivels ?? []).filter((s) => s.joint).map((s) => s.id),
   },
   { name: "fastenings", kinds: ["fastening"], keys: ["safety"] },
+  {
+    // pins and joint bearings loaded out of the drawing plane (a stage turned across)
+    name: "joints",
+    kinds: ["joint"],
+    keys: ["force_along_pin", "moment_across_pin", "bearing_tilting_moment"],
+    onlyTagged: true,
+  },
   {
     name: "springs",
     kinds: ["spring"],
@@ -120,10 +130,11 @@ export function buildResults(input: ResultsInput): ResultsRecord {
   }
   for (const r of Object.values(readouts)) {
     const section = sectionOf.get(r.kind);
+    const entered = section && (!section.onlyTagged || r.figures.some((f) => f.result && !f.result.arm));
     const target =
       r.kind === "base"
         ? record.base
-        : section
+        : section && entered
           ? (record.sections[section.name]![r.id] ??= withKeys(section.keys))
           : undefined;
     for (const f of r.figures) {
@@ -210,6 +221,8 @@ export function resultsJson(record: ResultsRecord, system: UnitSystem): Record<s
   out["payloads"] = section("payloads");
   for (const [k, f] of Object.entries(record.arm)) out[k] = jsonFigure(f, system);
   out["base"] = jsonFigures(record.base, system);
-  for (const s of RESULT_SECTIONS) if (s.name !== "payloads") out[s.name] = section(s.name);
+  for (const s of RESULT_SECTIONS)
+    if (s.name !== "payloads" && !(s.onlyTagged && Object.keys(record.sections[s.name] ?? {}).length === 0))
+      out[s.name] = section(s.name);
   return out;
 }

@@ -9,11 +9,18 @@ import { sectionProperties, type SectionProperties } from "../model/section";
 import { beamStress, type BeamPointLoad } from "../mechanics/structure/beam";
 import { localBeamLoads } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
-import { bearingStress, pinShearStress, shearYieldStrength } from "../mechanics/structure/pin";
-import { buildArmFrame } from "../mechanics/structure/arm-frame";
-import { combinedStress } from "../mechanics/structure/combined-stress";
-import { headingSets, loadsAcross, type Headings } from "../mechanics/headings";
-import { representativePoses, turnedPoses } from "./stiffness";
+import {
+  bearingStress,
+  bearingStressWithMoment,
+  doubleShearStressWithCouple,
+  pinBendingStress,
+  pinShearStress,
+  shearYieldStrength,
+  tubeBearingStressWithMoment,
+} from "../mechanics/structure/pin";
+import type { PinLoad } from "../mechanics/structure/joint-wrench";
+import type { Headings } from "../mechanics/headings";
+import { turnedLoads, worseThanLevel } from "./turned-loads";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety, type Figure } from "./readout";
@@ -212,80 +219,54 @@ export function checkStrength(ctx: CheckContext): void {
       }
     }
   }
-  turnedStrength(ctx, tables, stressWorst, largestStress);
+  const pin3d = new Map<string, PinFigures3d>();
+  turnedStrength(ctx, tables, pins, {
+    stress: stressWorst,
+    largest: largestStress,
+    column: columnWorst,
+    pin: pinWorst,
+    pin3d,
+  });
   reportBodies(ctx, beams, stressWorst, columnWorst, largestStress);
-  reportPins(ctx, pinned, pinWorst, reactionMax);
+  reportPins(ctx, pinned, pinWorst, reactionMax, pin3d);
 }
 
-/** Stress with stages turned across (docs/checks.md, Swivels): at the stiffness check's poses, for
- * each load case and each heading searched one swivel at a time, the space frame's member end
- * forces give axial force, torsion and bending both ways at each station (combined-stress.ts:
- * von Mises for metals, the largest principal stress against the layer strength for prints). A
- * heading counts where it makes a body's stress worse than the frame gives with every heading at
- * 0 at that pose, so that the frame's own small departures from the statics do not pass for an
- * effect of turning; it then replaces the planar worst when its safety is lower. */
+/** Stress, buckling and pins with stages turned across (docs/checks.md, "Stages turned across"):
+ * the turned pass's frame solves (turned-loads.ts) give each bar's combined stress (von Mises for
+ * metals, the largest principal stress against the layer strength for prints) and compression,
+ * and each pin's load along and across its axis. A heading counts where it makes a figure worse
+ * than the frame gives with every heading at 0 at that pose (worseThanLevel), and then replaces
+ * the planar worst when its safety is lower: an arm that does not turn keeps its planar figures. */
 function turnedStrength(
   ctx: CheckContext,
   tables: BeamTable[],
-  stressWorst: Map<string, Worst>,
-  largest: Map<string, Worst>,
+  pins: PinTable[],
+  worst: {
+    stress: Map<string, Worst>;
+    largest: Map<string, Worst>;
+    column: Map<string, Worst>;
+    pin: Map<string, Worst>;
+    pin3d: Map<string, PinFigures3d>;
+  },
 ): void {
-  const { model, sweep } = ctx;
-  const sets = headingSets(model, sweep.quick === true);
-  const across = loadsAcross(model);
-  if ((sets.length <= 1 && !across) || tables.length === 0) return;
+  const groups = turnedLoads(ctx);
+  if (groups.length === 0) return;
   const byBody = new Map(tables.map((t) => [t.body.id, t]));
-  // While typing, only the pose that reaches farthest: the frame solves grow with the swivels'
-  // headings, and the quick pass must not grow with them as much (docs/checks.md).
-  const poses = representativePoses(sweep);
-  for (const pose of sweep.quick ? turnedPoses(poses).slice(-1) : poses) {
-    for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
-      if (pastDeadline(ctx.options.deadline)) return;
-      const masses = payloadMasses(model, sweep, ci);
-      let level: Map<string, number> | undefined;
-      // the level: every heading at 0 and, with working forces across the plane, those left out
-      const runs = across ? [{}, ...sets] : sets;
-      for (const [k, headings] of runs.entries()) {
-        const af = buildArmFrame(model, pose, pose.cases[ci], masses, {
-          headings,
-          inPlaneLoadsOnly: across && k === 0,
-        });
-        const sol = af.frame.solveStatic();
-        if (!sol) break;
-        const worstHere = new Map<
-          string,
-          { stress: number; at: ReturnType<typeof combinedStress>; t: BeamTable }
-        >();
-        af.memberBody.forEach((id, m) => {
-          const t = id ? byBody.get(id) : undefined;
-          if (!t) return;
-          const round = t.body.section!.shape !== "rect";
-          const f = sol.endForces(m);
-          for (const e of [f.i, f.j]) {
-            const c = combinedStress(t.sec, round, {
-              axial: e.fx,
-              torque: e.mx,
-              momentInPlane: e.mz,
-              momentAcross: e.my,
-            });
-            const stress = t.mat.printed ? c.principal : c.vonMises;
-            const prev = worstHere.get(t.body.id);
-            if (!prev || stress > prev.stress) worstHere.set(t.body.id, { stress, at: c, t });
-          }
-        });
-        if (!level) {
-          level = new Map([...worstHere].map(([id, w]) => [id, w.stress]));
-          continue;
-        }
-        for (const [id, w] of worstHere) {
-          if (!(w.stress > (level.get(id) ?? 0) * (1 + 1e-9))) continue;
-          const allow = w.t.allowBending;
+  for (const { pose, caseIndex: ci, level, turned } of groups) {
+    for (const visit of turned) {
+      const headings = visit.headings;
+      for (const [id, w] of visit.bodies) {
+        const t = byBody.get(id);
+        if (!t) continue;
+        const lv = level.bodies.get(id);
+        if (worseThanLevel(w.stress, lv?.stress)) {
+          const allow = t.allowBending;
           const safety = w.stress > 0 ? allow.value / w.stress : Infinity;
           const c = w.at;
-          const mat = w.t.mat;
-          const prev = stressWorst.get(id);
+          const mat = t.mat;
+          const prev = worst.stress.get(id);
           if (!prev || safety < prev.safety)
-            stressWorst.set(id, {
+            worst.stress.set(id, {
               safety,
               pose,
               caseIndex: ci,
@@ -294,20 +275,140 @@ function turnedStrength(
                 `(${mat.printed ? "largest principal stress" : "von Mises"} of ${show(c.normal, "pressure")} from bending both ways and axial force, with ${show(c.shear, "pressure")} of torsion) against the ${strengthWords(mat, allow)}`,
               figure: w.stress,
             });
-          const big = largest.get(id);
+          const big = worst.largest.get(id);
           if (!big || w.stress > big.figure)
-            largest.set(id, { safety, pose, caseIndex: ci, headings, detail: NO_DETAIL, figure: w.stress });
+            worst.largest.set(id, {
+              safety,
+              pose,
+              caseIndex: ci,
+              headings,
+              detail: NO_DETAIL,
+              figure: w.stress,
+            });
         }
+        if (w.compression > 0 && worseThanLevel(w.compression, lv?.compression)) {
+          const col = columnOf(t);
+          const csf = col.criticalLoad / w.compression;
+          const P = w.compression;
+          const K = t.K;
+          const L = t.body.length;
+          const prev = worst.column.get(id);
+          if (!prev || csf < prev.safety)
+            worst.column.set(id, {
+              safety: csf,
+              pose,
+              caseIndex: ci,
+              headings,
+              detail: () =>
+                `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * L, "length")})`,
+              figure: P,
+            });
+        }
+      }
+      for (const pt of pins) {
+        const id = pt.joint.id;
+        const load = visit.joints.get(id);
+        if (!load) continue;
+        const fig = worst.pin3d.get(id) ?? { axial: undefined, momentAcross: undefined };
+        if (load.axial > (fig.axial?.value ?? 0))
+          fig.axial = { value: load.axial, where: describeStation(ctx.sweep, pose, ci, headings) };
+        if (load.momentAcross > (fig.momentAcross?.value ?? 0))
+          fig.momentAcross = {
+            value: load.momentAcross,
+            where: describeStation(ctx.sweep, pose, ci, headings),
+          };
+        worst.pin3d.set(id, fig);
+        const lv = level.joints.get(id);
+        const r = pinSafety3d(pt, load);
+        const levelSafety = lv ? pinSafety3d(pt, lv).safety : Infinity;
+        if (!worseThanLevel(1 / r.safety, 1 / levelSafety)) continue;
+        const prev = worst.pin.get(id);
+        if (!prev || r.safety < prev.safety)
+          worst.pin.set(id, {
+            safety: r.safety,
+            pose,
+            caseIndex: ci,
+            headings,
+            detail: r.detail,
+            figure: load.radial,
+          });
       }
     }
   }
+}
+
+/** The largest force along a pin and moment across it over the turned pass, for the readouts. */
+interface PinFigures3d {
+  axial?: { value: number; where: string };
+  momentAcross?: { value: number; where: string };
+}
+
+/** A bar's column capacity, computed on first use. */
+function columnOf(t: BeamTable): ReturnType<typeof columnCriticalLoad> {
+  return (t.col ??= columnCriticalLoad(
+    t.mat.modulus,
+    t.sec.area,
+    leastSecondMoment(t.body.section!),
+    t.allowBending.value,
+    t.K * t.body.length,
+  ));
+}
+
+/** A pin's safety under a load in three dimensions (docs/checks.md, Pins and holes): the shear of
+ * the force across its axis, with the moment across it carried as a couple, a double-shear pin's
+ * by shear forces M / s at its two planes (s the thinner hole wall it passes through, else its
+ * diameter), a single-shear pin's by bending at its one plane (von Mises of the bending and the
+ * shear against the pin's strength); the holes' bearing with the moment tilting the pin in them.
+ * With no moment across it, the same arithmetic as pinTableSafety. */
+function pinSafety3d(pt: PinTable, load: PinLoad): { safety: number; detail: () => string } {
+  const pin = pt.joint.pin!;
+  const F = load.radial;
+  const M = load.momentAcross;
+  const d = pin.diameter;
+  const arm = pt.holes.length > 0 ? Math.min(...pt.holes.map((h) => h.tubeSpacing ?? h.t)) : d;
+  let safety: number;
+  let detail: () => string;
+  const alongWords = () =>
+    load.axial > 0 ? `; ${show(load.axial, "force")} along the pin on its head or clip` : "";
+  if (pin.shearPlanes === 2) {
+    const tau = doubleShearStressWithCouple(F, M, d, arm);
+    safety = tau > 0 ? pt.shearAllow / tau : Infinity;
+    detail = () =>
+      `double-shear stress ${show(tau, "pressure")} (${show(F, "force")} across the pin, and ${show(M, "torque")} across its axis as a couple over ${show(arm, "length")}) against ${show(pt.shearAllow, "pressure")}${alongWords()}`;
+  } else {
+    const tau = pinShearStress(F, d, 1);
+    const sigma = pinBendingStress(M, d);
+    const vm = Math.sqrt(sigma * sigma + 3 * tau * tau);
+    safety = M > 0 ? (vm > 0 ? pt.strength / vm : Infinity) : tau > 0 ? pt.shearAllow / tau : Infinity;
+    detail = () =>
+      M > 0
+        ? `von Mises ${show(vm, "pressure")} of single-shear stress ${show(tau, "pressure")} and bending ${show(sigma, "pressure")} (${show(M, "torque")} across its axis) against ${show(pt.strength, "pressure")}${alongWords()}`
+        : `single-shear stress ${show(tau, "pressure")} against ${show(pt.shearAllow, "pressure")}${alongWords()}`;
+  }
+  for (const h of pt.holes) {
+    const sigma =
+      h.tubeSpacing !== undefined
+        ? tubeBearingStressWithMoment(F, M, d, h.t / 2, h.tubeSpacing)
+        : bearingStressWithMoment(F, M, d, h.t);
+    const sf = sigma > 0 ? h.allow / sigma : Infinity;
+    if (sf < safety) {
+      safety = sf;
+      detail = () =>
+        `bearing stress ${show(sigma, "pressure")} in the ${show(h.t, "length")} ${h.tubeSpacing !== undefined ? "walls" : "wall"} of ${bodyWord(h.body)} (${show(F, "force")} across the pin, tilted in the hole by ${show(M, "torque")}) against ${show(h.allow, "pressure")}${alongWords()}`;
+    }
+  }
+  return { safety, detail };
 }
 
 /** A pin's constants for the pose loop: what pinSafety looks up, looked up once. */
 interface PinTable {
   joint: Joint;
   shearAllow: number;
-  holes: { t: number; allow: number }[];
+  /** The pin material's tensile strength, Pa. */
+  strength: number;
+  /** Each body's hole: its wall `t` (a tube's two walls together), and for a tube without
+   * `holes` the spacing of its two walls' mid-planes, the arm of a couple across the pin. */
+  holes: { t: number; allow: number; body: Body; tubeSpacing?: number }[];
 }
 
 function pinTable(model: ArmModel, j: Joint): PinTable {
@@ -319,9 +420,14 @@ function pinTable(model: ArmModel, j: Joint): PinTable {
     const t = b.holeThickness ?? (b.section ? sectionProperties(b.section).width : undefined);
     const bm = b.material ? model.materials[b.material] : undefined;
     if (!t || !bm) continue;
-    holes.push({ t, allow: Math.min(pinMat.strength, normalStrength(bm, true).value) });
+    const sec = b.section;
+    const tube =
+      b.holeThickness === undefined && sec?.shape === "tube" && 2 * sec.wall < sec.outerDiameter
+        ? { tubeSpacing: sec.outerDiameter - sec.wall }
+        : {};
+    holes.push({ t, allow: Math.min(pinMat.strength, normalStrength(bm, true).value), body: b, ...tube });
   }
-  return { joint: j, shearAllow: shearYieldStrength(pinMat.strength), holes };
+  return { joint: j, shearAllow: shearYieldStrength(pinMat.strength), strength: pinMat.strength, holes };
 }
 
 /** pinSafety's safety figure, with the same arithmetic, from the table. */
@@ -439,6 +545,7 @@ function reportPins(
   pinned: Joint[],
   pinWorst: Map<string, Worst>,
   reactionMax: Map<string, Worst>,
+  pin3d: Map<string, PinFigures3d>,
 ): void {
   const { model, sweep } = ctx;
   const need = model.require.safety;
@@ -447,7 +554,7 @@ function reportPins(
     const r = reactionMax.get(j.id);
     if (!w || !r) continue;
     const pin = j.pin!;
-    const where = describePose(sweep, w.pose, w.caseIndex);
+    const where = describeStation(sweep, w.pose, w.caseIndex, w.headings ?? {});
     let bearing = 0;
     for (const b of [bodyOf(model, j.parent), bodyOf(model, j.child)]) {
       const t =
@@ -471,6 +578,7 @@ function reportPins(
       ...(bearing > 0
         ? [{ label: "largest hole bearing stress", value: bearing, dimension: "pressure" as const }]
         : []),
+      ...turnedPinFigures(pin3d.get(j.id)),
       { label: "pin safety factor", value: w.safety, dimension: "dimensionless", where },
     ]);
     noteSafety(ctx.readouts, j.id, "joint", w.safety, "pin", where);
@@ -486,10 +594,35 @@ function reportPins(
         finding(
           "strength.overstress",
           pinSpan(model, j),
-          `pin of joint ${j.id}: ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (reaction ${show(w.figure, "force")} ${where})`,
+          `pin of joint ${j.id}: ${w.detail()}: safety ${showSafety(w.safety)} < ${showSafety(need)} required (${w.headings ? "force across the pin" : "reaction"} ${show(w.figure, "force")} ${where})`,
           { related, data: { subject: j.id, check: "pin", safety: w.safety, required: need } },
         ),
       );
     }
   }
+}
+
+/** A pin's figures out of the drawing plane, where the turned pass found any (a stage turned
+ * across, a working load across the plane): the largest force along the pin (on its head or clip)
+ * and the largest moment across its axis (the couple its holes carry). Left out below a
+ * micronewton and a micronewton-metre: nought by symmetry, not a figure. */
+function turnedPinFigures(f: PinFigures3d | undefined): Figure[] {
+  const out: Figure[] = [];
+  if (f?.axial && f.axial.value > 1e-6)
+    out.push({
+      label: "largest force along the pin",
+      value: f.axial.value,
+      dimension: "force",
+      where: f.axial.where,
+      result: { key: "force_along_pin" },
+    });
+  if (f?.momentAcross && f.momentAcross.value > 1e-6)
+    out.push({
+      label: "largest moment across the pin",
+      value: f.momentAcross.value,
+      dimension: "torque",
+      where: f.momentAcross.where,
+      result: { key: "moment_across_pin" },
+    });
+  return out;
 }

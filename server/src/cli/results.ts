@@ -4,7 +4,13 @@
 import { analyse } from "../analysis";
 import { optimiseFor } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
-import { buildResults, resultsJson, type FigureMap, type ResultsRecord } from "../checks/results";
+import {
+  buildResults,
+  RESULT_SECTIONS,
+  resultsJson,
+  type FigureMap,
+  type ResultsRecord,
+} from "../checks/results";
 import { formatNumber } from "../units/format";
 import { tableUnit, toTableUnit } from "../units/format";
 import type { UnitSystem } from "../units/unit-table";
@@ -105,7 +111,9 @@ export function resultsText(record: ResultsRecord, system: UnitSystem): string {
   section("payloads");
   lines.push(figureText(record.arm, system));
   lines.push(`base: ${figureText(record.base, system)}`);
-  for (const name of Object.keys(record.sections)) if (name !== "payloads") section(name);
+  for (const s of RESULT_SECTIONS)
+    if (s.name !== "payloads" && !(s.onlyTagged && Object.keys(record.sections[s.name] ?? {}).length === 0))
+      section(s.name);
   const units = (["length", "force", "torque", "angle", "frequency"] as const)
     .map((d) => `${d} ${tableUnit(d, system)}`)
     .join(", ");

@@ -30,6 +30,14 @@ export interface ArmFrame {
   endNode: Record<string, number>;
   /** Body id of each member; undefined for the mass carriers of rigid parts. */
   memberBody: (string | undefined)[];
+  /** Each joint's two nodes (on its parent and on its child) and its pin axis as turned, by joint
+   * id, for the joint's load (joint-wrench.ts). */
+  joints: Record<string, { parent: number; child: number; axis: Vec3 }>;
+  /** The rigid group of each node: nodes tied by rigid offsets (one rigid part, a hook off a
+   * bar's axis) share the lowest node's index. */
+  rigidGroup: Int32Array;
+  /** How many joint ends and supports each rigid group holds, by group. */
+  groupAttachments: Map<number, number>;
 }
 
 export interface ArmFrameOptions {
@@ -97,6 +105,7 @@ export function buildArmFrame(
   /** The pins' axis for a body: the drawing plane's normal, turned with its swivels. */
   const normalOf = (bodyId: string) => placement.direction(bodyId, PLANE_NORMAL);
   const nodes = new Map<string, number>();
+  const fixedNodes: number[] = [];
   const key = (body: string, p: Vec2) => `${body}|${p.x.toFixed(7)}|${p.y.toFixed(7)}`;
   // a point on a link's axis within the merge distance of a station is that station's node
   const stationsOf = new Map<string, number[]>();
@@ -113,15 +122,24 @@ export function buildArmFrame(
     if (n === undefined) {
       n = frame.addNode(placement.point(body.id, p));
       nodes.set(k, n);
-      if (body.kind === "base") frame.fix(n);
+      if (body.kind === "base") (frame.fix(n), fixedNodes.push(n));
       else if (options.planar) for (const dof of [2, 3, 4]) frame.hold(n, dof);
     }
     return n;
   };
   /** `slave` rigidly carried by `master` (two points of one rigid part, or a hook off an axis);
    * two points of one body at the same place are one node in effect. */
+  const groupParent: number[] = [];
+  const groupOf = (n: number): number => {
+    while (groupParent[n] !== undefined && groupParent[n] !== n) n = groupParent[n]!;
+    return n;
+  };
   const rigid = (master: number, slave: number) => {
-    if (master !== slave) frame.rigidOffset(master, slave);
+    if (master === slave) return;
+    frame.rigidOffset(master, slave);
+    const a = groupOf(master);
+    const b = groupOf(slave);
+    if (a !== b) groupParent[Math.max(a, b)] = Math.min(a, b);
   };
   const memberBody: (string | undefined)[] = [];
   const weight = (index: number, massPerLength: number) =>
@@ -181,12 +199,14 @@ export function buildArmFrame(
     }
   }
   const bodyById = new Map(model.bodies.map((b) => [b.id, b]));
+  const joints: ArmFrame["joints"] = {};
   for (const j of model.joints) {
     const parent = bodyById.get(j.parent);
     const child = bodyById.get(j.child);
     if (!parent || !child || !placed(parent.id) || !placed(child.id)) continue;
     const a = nodeAt(parent, j.parentPoint);
     const b = nodeAt(child, j.childPoint);
+    joints[j.id] = { parent: a, child: b, axis: normalOf(parent.id) };
     // a swivel is held at its heading like any degree of freedom (by hand, brake or friction)
     if (j.mode === "passive") frame.pin(a, b, normalOf(parent.id));
     else frame.weld(a, b);
@@ -237,5 +257,14 @@ export function buildArmFrame(
         t ? placement.direction(body.id, t) : undefined,
       );
   }
-  return { frame, payloadNode, endNode, memberBody };
+  const rigidGroup = new Int32Array(frame.nodeCount);
+  const groupAttachments = new Map<number, number>();
+  const attach = (n: number) => {
+    const g = groupOf(n);
+    groupAttachments.set(g, (groupAttachments.get(g) ?? 0) + 1);
+  };
+  for (let n = 0; n < frame.nodeCount; n++) rigidGroup[n] = groupOf(n);
+  for (const e of Object.values(joints)) (attach(e.parent), attach(e.child));
+  for (const n of fixedNodes) attach(n);
+  return { frame, payloadNode, endNode, memberBody, joints, rigidGroup, groupAttachments };
 }

@@ -445,6 +445,50 @@ export class SpaceFrame {
   naturalFrequencies(count = 1): number[] | undefined {
     return this.naturalModes(count)?.omega2;
   }
+
+  // ---- end-force recovery (kept apart from assembly and solution) ----------------------------
+
+  /** What the constraints (supports, pins, welds, rigid offsets) apply to `node` under the raw
+   * displacements `u`, global axes, [Fx, Fy, Fz, Mx, My, Mz]: R = K u - f at its six dofs, the
+   * members' end forces (k u less their work-equivalent loads) and the springs' forces at the node
+   * less the loads put on it. */
+  constraintForceAt(node: number, u: Float64Array): Float64Array {
+    const r = new Float64Array(NODE_DOFS);
+    const o = node * NODE_DOFS;
+    for (let k = 0; k < NODE_DOFS; k++) r[k] = -this.loadRaw[o + k]!;
+    this.members.forEach((m, index) => {
+      if (m.i !== node && m.j !== node) return;
+      const at = m.i === node ? 0 : 6;
+      if (!m.massOnly) {
+        const kg = this.memberStiffness(index);
+        for (let p = 0; p < 6; p++) {
+          let s = 0;
+          for (let q = 0; q < 12; q++) {
+            const d = (q < 6 ? m.i : m.j) * NODE_DOFS + (q % 6);
+            s += kg[(at + p) * 12 + q]! * u[d]!;
+          }
+          r[p] = r[p]! + s;
+        }
+      }
+      if (m.load.x !== 0 || m.load.y !== 0 || m.load.z !== 0) {
+        const g = toGlobalVector(localUniformLoad(toLocal3(m.load, m.axes), m.length), m.axes);
+        for (let p = 0; p < 6; p++) r[p] = r[p]! - g[at + p]!;
+      }
+    });
+    const springAt = (sp: Spring, offset: number) => {
+      if (sp.i !== node && sp.j !== node) return;
+      const a = [sp.axis.x, sp.axis.y, sp.axis.z];
+      let stretch = 0;
+      for (let k = 0; k < 3; k++)
+        stretch += a[k]! * (u[sp.j * NODE_DOFS + offset + k]! - u[sp.i * NODE_DOFS + offset + k]!);
+      // the spring pulls i towards j by rate x stretch: the node pushes back on it by as much
+      const sign = sp.i === node ? -1 : 1;
+      for (let k = 0; k < 3; k++) r[offset + k] = r[offset + k]! + sign * sp.rate * stretch * a[k]!;
+    };
+    for (const sp of this.axialSprings) springAt(sp, 0);
+    for (const sp of this.rotationalSprings) springAt(sp, 3);
+    return r;
+  }
 }
 
 export class SpaceFrameSolution {
@@ -494,6 +538,12 @@ export class SpaceFrameSolution {
       mz: f[o + 5]!,
     });
     return { i: end(0), j: end(6) };
+  }
+
+  /** What the constraints apply to `node`, global axes [Fx, Fy, Fz, Mx, My, Mz]
+   * (SpaceFrame.constraintForceAt). */
+  constraintForce(node: number): Float64Array {
+    return this.frame.constraintForceAt(node, this.raw);
   }
 
   /** Strain energy of member `index`, J: 1/2 u^T K u over its twelve end dofs. */
