@@ -31,17 +31,24 @@ let uri = "";
 /** Slider value per dof id, rad: kept across updates so editing does not snap the pose back, and
  * in the webview's state so that hiding and showing the panel keeps the pose. */
 const sliderAngle = new Map<string, number>();
-const saved = host.getState() as { uri?: string; sliderAngles?: Record<string, number> } | undefined;
+/** Heading per swivel id, rad, for the top view: kept like the pose (0 is the drawing plane). */
+const heading = new Map<string, number>();
+const saved = host.getState() as
+  { uri?: string; sliderAngles?: Record<string, number>; headings?: Record<string, number> } | undefined;
 if (saved?.uri) uri = saved.uri;
 for (const [id, rad] of Object.entries(saved?.sliderAngles ?? {}))
   if (typeof rad === "number") sliderAngle.set(id, rad);
+for (const [id, rad] of Object.entries(saved?.headings ?? {}))
+  if (typeof rad === "number" && Number.isFinite(rad)) heading.set(id, rad);
 
 function saveState(): void {
-  host.setState({ uri, sliderAngles: Object.fromEntries(sliderAngle) });
+  host.setState({
+    uri,
+    sliderAngles: Object.fromEntries(sliderAngle),
+    headings: Object.fromEntries(heading),
+  });
 }
 let pose = 0;
-/** Heading per swivel id, rad, for the top view (not kept across panels: 0 is the drawing plane). */
-const heading = new Map<string, number>();
 /** The heading sliders' step, deg. */
 const HEADING_STEP_DEG = 5;
 
@@ -120,6 +127,8 @@ function renderSliders(model: ViewModel): void {
     input.max = String(toDeg(s.heading[1]));
     input.step = String(HEADING_STEP_DEG);
     const h = Math.min(s.heading[1], Math.max(s.heading[0], heading.get(s.id) ?? 0));
+    // a kept heading the spec's range no longer reaches turns to its nearest end
+    if (heading.has(s.id)) heading.set(s.id, h);
     input.value = String(toDeg(h));
     const out = document.createElement("output");
     const shown = (rad: number) => `${formatFigure(rad, "angle", model.units)}°`;
@@ -127,6 +136,7 @@ function renderSliders(model: ViewModel): void {
     input.addEventListener("input", () => {
       const rad = (Number(input.value) * Math.PI) / 180;
       heading.set(s.id, rad);
+      saveState();
       out.textContent = shown(rad);
       renderPose(model);
     });

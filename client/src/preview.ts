@@ -26,42 +26,61 @@ class ArmPanel {
     private readonly client: LanguageClient,
   ) {}
 
+  private roots(): vscode.Uri[] {
+    return [
+      vscode.Uri.joinPath(this.context.extensionUri, "dist"),
+      vscode.Uri.joinPath(this.context.extensionUri, "client", "media"),
+    ];
+  }
+
   show(uri: vscode.Uri): void {
     this.uri = uri;
     if (this.panel) {
       this.panel.reveal(vscode.ViewColumn.Beside, true);
     } else {
-      const roots = [
-        vscode.Uri.joinPath(this.context.extensionUri, "dist"),
-        vscode.Uri.joinPath(this.context.extensionUri, "client", "media"),
-      ];
-      this.panel = vscode.window.createWebviewPanel(
-        VIEW_TYPE,
-        "Arm drawing",
-        { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true },
-        { enableScripts: true, localResourceRoots: roots },
+      this.attach(
+        vscode.window.createWebviewPanel(
+          VIEW_TYPE,
+          "Arm drawing",
+          { viewColumn: vscode.ViewColumn.Beside, preserveFocus: true },
+          { enableScripts: true, localResourceRoots: this.roots() },
+        ),
       );
-      const webview = this.panel.webview;
-      webview.html = previewHtml({
-        cspSource: webview.cspSource,
-        nonce: makeNonce(),
-        scriptUri: webview
-          .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "dist", "preview-page.js"))
-          .toString(),
-        styleUri: webview
-          .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "client", "media", "preview.css"))
-          .toString(),
-      });
-      webview.onDidReceiveMessage((msg) => this.onMessage(msg), undefined, this.context.subscriptions);
-      this.panel.onDidChangeViewState(
-        () => this.panel?.visible && this.refresh(),
-        undefined,
-        this.context.subscriptions,
-      );
-      this.panel.onDidDispose(() => (this.panel = undefined), undefined, this.context.subscriptions);
     }
-    this.panel.title = `Arm: ${uri.path.split("/").pop() ?? ""}`;
+    this.panel!.title = `Arm: ${uri.path.split("/").pop() ?? ""}`;
     this.refresh();
+  }
+
+  /** A panel the editor kept over a window reload: its page's saved state names the file (and
+   * keeps the sliders' pose and headings), so it shows that file again. */
+  restore(panel: vscode.WebviewPanel, state: unknown): void {
+    const saved = (state as { uri?: unknown } | undefined)?.uri;
+    if (this.panel || typeof saved !== "string") return void panel.dispose();
+    panel.webview.options = { enableScripts: true, localResourceRoots: this.roots() };
+    this.attach(panel);
+    this.show(vscode.Uri.parse(saved));
+  }
+
+  private attach(panel: vscode.WebviewPanel): void {
+    this.panel = panel;
+    const webview = this.panel.webview;
+    webview.html = previewHtml({
+      cspSource: webview.cspSource,
+      nonce: makeNonce(),
+      scriptUri: webview
+        .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "dist", "preview-page.js"))
+        .toString(),
+      styleUri: webview
+        .asWebviewUri(vscode.Uri.joinPath(this.context.extensionUri, "client", "media", "preview.css"))
+        .toString(),
+    });
+    webview.onDidReceiveMessage((msg) => this.onMessage(msg), undefined, this.context.subscriptions);
+    this.panel.onDidChangeViewState(
+      () => this.panel?.visible && this.refresh(),
+      undefined,
+      this.context.subscriptions,
+    );
+    this.panel.onDidDispose(() => (this.panel = undefined), undefined, this.context.subscriptions);
   }
 
   /** The active editor moved to another .poise file: follow it if the panel is open. */
@@ -137,5 +156,8 @@ export function registerArmPreview(context: vscode.ExtensionContext, client: Lan
       (e) => e.contentChanges.length && panel.diagnosticsChanged([e.document.uri]),
     ),
     vscode.window.onDidChangeActiveTextEditor((e) => panel.follow(e)),
+    vscode.window.registerWebviewPanelSerializer(VIEW_TYPE, {
+      deserializeWebviewPanel: async (restored, state) => panel.restore(restored, state),
+    }),
   );
 }

@@ -24,8 +24,13 @@ describe("extension manifest", () => {
       expect(existsSync(join(root, path)), path).toBe(true);
     expect(manifest.main).toBe("./dist/client.js"); // built by scripts/build.mjs
     // VS Code (1.74 and later) activates on the contributed language and commands by itself and
-    // flags these events as redundant; vsce still wants the property, so it stays, empty.
-    expect(manifest.activationEvents).toEqual([]);
+    // flags those events as redundant; a webview panel is no contribution, so restoring the arm
+    // drawing after a reload needs its own event (VS Code's webview guide, "Serialization"), named
+    // by the panel's view type in client/src/preview.ts.
+    expect(manifest.activationEvents).toEqual(["onWebviewPanel:counterpoise.armView"]);
+    expect(readFileSync(join(root, "client", "src", "preview.ts"), "utf8")).toContain(
+      'const VIEW_TYPE = "counterpoise.armView";',
+    );
   });
 
   it("declares exactly the server's settings, with the same defaults", () => {

@@ -29,7 +29,9 @@ export interface Preview {
   show(vm: ViewModel, uri?: string): Promise<void>;
 }
 
-export async function openPreview(): Promise<Preview> {
+/** `state`: what the webview's getState returns at first, as the editor keeps it for a panel
+ * hidden and shown again or restored after a reload; setState replaces it (`window.__state`). */
+export async function openPreview(state?: unknown): Promise<Preview> {
   const html = previewHtml({
     cspSource: ORIGIN,
     nonce: NONCE,
@@ -51,7 +53,8 @@ export async function openPreview(): Promise<Preview> {
       window.__sent = [];
       window.__violations = [];
       document.addEventListener("securitypolicyviolation", (e) => window.__violations.push(e.violatedDirective + " " + e.blockedURI));
-      window.acquireVsCodeApi = () => ({ postMessage: (m) => window.__sent.push(m), getState: () => undefined, setState: () => undefined });`,
+      window.__state = ${JSON.stringify(state ?? null)} ?? undefined;
+      window.acquireVsCodeApi = () => ({ postMessage: (m) => window.__sent.push(m), getState: () => window.__state, setState: (s) => { window.__state = s; } });`,
   });
   await page.goto(`${ORIGIN}/index.html`);
   await page.waitForFunction("window.__sent.some((m) => m.type === 'ready')");

@@ -46,4 +46,24 @@ describe("preview of an arm that turns", () => {
     expect(barrel.heading[1]).toBeGreaterThan(Math.PI / 2);
     await page.screenshot({ path: `${ARTIFACTS}/preview-two-stage-top.png`, fullPage: true });
   });
+
+  it("keeps the headings in the panel's saved state, and a panel shown again turns to them", async () => {
+    await page.locator("#heading-barrel").fill("60");
+    const state = (await page.evaluate("window.__state")) as { headings?: Record<string, number> };
+    // 60 deg in radians, the SI angle (SI Brochure, 9th ed., table 4)
+    expect(state.headings?.["barrel"]).toBeCloseTo((60 * Math.PI) / 180, 9);
+    const turned = { cx: await tool().getAttribute("cx"), cy: await tool().getAttribute("cy") };
+    // the editor rebuilds a hidden panel's page (and a reloaded window's) from that state
+    const again = await openPreview(state);
+    try {
+      await again.show(vm, "file:///work/two-stage-arm.poise");
+      await again.page.waitForSelector("svg.top-view");
+      expect(await again.page.locator("#heading-barrel").inputValue()).toBe("60");
+      const t = again.page.locator('svg.top-view circle[data-part="tool"]');
+      expect(await t.getAttribute("cx")).toBe(turned.cx);
+      expect(await t.getAttribute("cy")).toBe(turned.cy);
+    } finally {
+      await again.browser.close();
+    }
+  });
 });
