@@ -5,7 +5,9 @@
 // the pin's and the bearing's safety against Shigley's formulas with the moment across the pin
 // carried as a couple; then the knuckle arm, whose second link swings sideways on a swivel.
 import { describe, expect, it } from "vitest";
+import { analyse } from "../../server/src/analysis";
 import { checkStrength } from "../../server/src/checks/strength";
+import { columnCriticalLoad } from "../../server/src/mechanics/structure/column";
 import { checkBearings } from "../../server/src/checks/bearings";
 import { buildArmFrame } from "../../server/src/mechanics/structure/arm-frame";
 import { jointWrench, pinLoadOf } from "../../server/src/mechanics/structure/joint-wrench";
@@ -186,5 +188,63 @@ describe("a stage swung sideways on a swivel", () => {
     // the moment across the root pin (about the boom's axis) is P L2 |sin h|, largest at 90 deg
     // (statics, Beer and Johnston ch. 4); the heading search visits 90 deg
     expect(rel(figure(ctx, "shoulder", "largest moment across the pin")!, P * L2)).toBeLessThan(1e-6);
+  });
+});
+
+describe("a bar pushed by a stage swung back over it", () => {
+  // An invented level parallelogram, locked, with a weightless reach on a swivel at its head and
+  // 1 kg at the reach's end. Its upper bar is a two-force member (pinned at both ends, loads only
+  // across it): the head's moments about the lower far pin give its axial force,
+  // P (Lc cos h) / s, in tension with the reach straight out and in compression with it turned
+  // back (h = 180 deg), which the planar sweep never sees.
+  const Lc = 0.4;
+  const s = 0.05;
+  const L = 0.3;
+  const text = `# Invented: a locked parallelogram with a reach that swings all the way round.
+arm "Reach swung back" {
+  base post {
+    point root (0 mm, 300 mm)
+  }
+  parallelogram stage {
+    on post.root
+    length ${L * 1000} mm
+    spacing ${s * 1000} mm
+    angle 0 deg
+    fixed
+    bars rect 10 mm x 4 mm aluminium_6061_t6
+    head_mass 0 g
+    pins 5 mm steel_1018
+    shear double
+  }
+  link reach {
+    length ${Lc * 1000} mm
+    mass 0 g
+  }
+  swivel knuckle {
+    connects stage.head to reach.start
+  }
+  payload tool {
+    mass 1 kg
+    at reach.end
+  }
+}
+`;
+  it("meets the column's critical load at the heading that compresses it (Shigley, columns)", () => {
+    const a = analyse(text);
+    const buckling = a.readouts["stage.upper"]?.figures.find((f) => f.label === "buckling safety factor");
+    expect(buckling, JSON.stringify(a.findings.map((f) => f.message))).toBeDefined();
+    const P = 1 * G;
+    // statics of the head about the lower far pin (Beer and Johnston ch. 4), h = 180 deg
+    const compression = (P * Lc) / s;
+    // Shigley 10th ed., section 4-16 (Euler, pinned ends K = 1) and 4-17 (Johnson), about the bar's
+    // weaker axis: I = depth width^3 / 12 of the 10 x 4 mm flat
+    const depth = 0.01;
+    const width = 0.004;
+    const col = columnCriticalLoad(al.modulus, depth * width, (depth * width ** 3) / 12, al.strength, L);
+    expect(col.method).toBe("Euler");
+    const euler = (Math.PI ** 2 * al.modulus * ((depth * width ** 3) / 12)) / (L * L);
+    expect(rel(buckling!.value, euler / compression)).toBeLessThan(1e-3);
+    // -180 and 180 deg are the same heading
+    expect(buckling!.where).toMatch(/knuckle turned -?180 deg/);
   });
 });
