@@ -583,8 +583,15 @@ function reportPins(
     ]);
     noteSafety(ctx.readouts, j.id, "joint", w.safety, "pin", where);
     const own = owningOrigin(model, j.origin);
-    if (own.parallelogram)
+    if (own.parallelogram) {
       noteSafety(ctx.readouts, own.parallelogram, "parallelogram", w.safety, `pin of ${j.id}`, where);
+      // a stage's joints have no name of their own in the text: its hover shows their figures
+      const turned = turnedPinFigures(pin3d.get(j.id)).map(({ result: _, ...f }) => ({
+        ...f,
+        label: `pin of ${j.id}: ${f.label}`,
+      }));
+      if (turned.length) addFigures(ctx.readouts, own.parallelogram, "parallelogram", turned);
+    }
     if (w.safety < need) {
       const related = [j.parent, j.child]
         .map((id) => model.bodies.find((b) => b.id === id))
