@@ -2,7 +2,15 @@
 // (docs/formulas.md): sections, pins, columns, extension-spring bodies.
 import { describe, expect, it } from "vitest";
 import { sectionProperties } from "../../server/src/model/section";
-import { bearingStress, pinShearStress, shearYieldStrength } from "../../server/src/mechanics/structure/pin";
+import {
+  bearingStress,
+  bearingStressWithMoment,
+  doubleShearStressWithCouple,
+  pinBendingStress,
+  pinShearStress,
+  shearYieldStrength,
+  tubeBearingStressWithMoment,
+} from "../../server/src/mechanics/structure/pin";
 import {
   columnCriticalLoad,
   eulerCriticalLoad,
@@ -51,6 +59,28 @@ describe("pins and holes", () => {
   it("bearing in a 3 mm plate", () => {
     // bearing stress F / (d t); docs/formulas.md worked 41.67 MPa
     expect(bearingStress(F, d, 0.003) / 1e6).toBeCloseTo(41.67, 2);
+  });
+  it("a moment across the pin, carried as a couple (docs/formulas.md worked values)", () => {
+    const f = 20;
+    const M = 0.5;
+    const pin = 0.005;
+    const t = 0.003;
+    const A = (Math.PI * pin * pin) / 4;
+    // double shear: (F / 2 + M / s) / A, s the wall between the planes; worked 8.998 MPa
+    expect(doubleShearStressWithCouple(f, M, pin, t)).toBeCloseTo((f / 2 + M / t) / A, 6);
+    expect(doubleShearStressWithCouple(f, M, pin, t) / 1e6).toBeCloseTo(8.998, 3);
+    // linear pressure along a rigid pin: F / (d t) + 6 M / (d t^2); worked 68.00 MPa
+    expect(bearingStressWithMoment(f, M, pin, t) / 1e6).toBeCloseTo(68.0, 2);
+    // Shigley table A-18: a solid round's section modulus pi d^3 / 32
+    expect(pinBendingStress(M, pin)).toBeCloseTo(M / ((Math.PI * pin ** 3) / 32), 6);
+    // a tube's two walls 2 mm thick, 23 mm apart: F / (2 d w) + M / (spacing d w)
+    expect(tubeBearingStressWithMoment(f, M, pin, 0.002, 0.023)).toBeCloseTo(
+      f / (2 * pin * 0.002) + M / 0.023 / (pin * 0.002),
+      6,
+    );
+    // no moment: the planar figures exactly
+    expect(doubleShearStressWithCouple(f, 0, pin, t)).toBe(pinShearStress(f, pin, 2));
+    expect(bearingStressWithMoment(f, 0, pin, t)).toBe(bearingStress(f, pin, t));
   });
   it("distortion-energy shear strength", () => {
     // Shigley ch. 5: S_sy = 0.577 S_y (1018 CD, S_y = 370 MPa, Shigley table A-20)
