@@ -12,6 +12,7 @@ import { checkBearings } from "../../server/src/checks/bearings";
 import { buildArmFrame } from "../../server/src/mechanics/structure/arm-frame";
 import { jointWrench, pinLoadOf } from "../../server/src/mechanics/structure/joint-wrench";
 import type { ArmModel, Bearing, Pin } from "../../server/src/model/types";
+import { sectionProperties } from "../../server/src/model/section";
 import {
   armModel,
   baseBody,
@@ -36,11 +37,15 @@ const d = 0.006; // m, the pins
 const steel = MATERIALS["steel_1018"]!;
 const al = MATERIALS["aluminium_6061_t6"]!;
 
-function lArm(opts: { across?: number; shear?: 1 | 2; bearing?: Bearing } = {}): ArmModel {
+function lArm(
+  opts: { across?: number; shear?: 1 | 2; bearing?: Bearing; section?: Parameters<typeof linkBody>[2] } = {},
+): ArmModel {
   const pin: Pin = { diameter: d, material: "steel_1018", shearPlanes: opts.shear ?? 2 };
   const post = baseBody("post", { top: { x: 0, y: 0.4 } });
-  const a = linkBody("a", La, bar, "aluminium_6061_t6");
-  const b = linkBody("b", Lb, bar, "aluminium_6061_t6");
+  const a = linkBody("a", La, opts.section ?? bar, "aluminium_6061_t6");
+  const b = linkBody("b", Lb, opts.section ?? bar, "aluminium_6061_t6");
+  // the model gives a link with a section a hole as thick as its width (a tube: both walls)
+  for (const body of [a, b]) body.holeThickness = sectionProperties(body.section!).width;
   for (const body of [a, b]) Object.assign(body, { mass: 0, massGiven: true });
   const model = armModel({
     bodies: [post, a, b],
@@ -138,6 +143,19 @@ describe("a pin loaded across the plane", () => {
     const pinSafety = steel.strength / Math.sqrt(sigmaBend ** 2 + 3 * tau ** 2);
     const sigmaHole = Fr / (d * t) + (6 * M) / (d * t * t);
     const expected = Math.min(pinSafety, Math.min(steel.strength, al.strength) / sigmaHole);
+    expect(rel(figure(ctx, "elbow", "pin safety factor")!, expected)).toBeLessThan(1e-9);
+  });
+
+  it("through tubes: each tube's two walls take the couple at their spacing", () => {
+    const tube = { shape: "tube" as const, outerDiameter: 0.02, wall: 0.002 };
+    const model = lArm({ across: F, section: tube });
+    const ctx = runFamily(checkStrength, model, treeSweep(model, [{}]));
+    const spacing = tube.outerDiameter - tube.wall; // between the walls' mid-planes
+    // Shigley 10th ed., section 5-5; the couple's arm the walls' spacing
+    const tau = (Fr / 2 + M / spacing) / A;
+    // each wall w thick: the force shared by two, the couple M / spacing on one (common practice)
+    const sigma = Fr / (2 * d * tube.wall) + M / spacing / (d * tube.wall);
+    const expected = Math.min((0.577 * steel.strength) / tau, Math.min(steel.strength, al.strength) / sigma);
     expect(rel(figure(ctx, "elbow", "pin safety factor")!, expected)).toBeLessThan(1e-9);
   });
 

@@ -421,8 +421,9 @@ function pinTable(model: ArmModel, j: Joint): PinTable {
     const bm = b.material ? model.materials[b.material] : undefined;
     if (!t || !bm) continue;
     const sec = b.section;
+    // a tube's hole is its two walls (the model's default `holes`, 2 x wall) far apart
     const tube =
-      b.holeThickness === undefined && sec?.shape === "tube" && 2 * sec.wall < sec.outerDiameter
+      sec?.shape === "tube" && 2 * sec.wall < sec.outerDiameter && t === 2 * sec.wall
         ? { tubeSpacing: sec.outerDiameter - sec.wall }
         : {};
     holes.push({ t, allow: Math.min(pinMat.strength, normalStrength(bm, true).value), body: b, ...tube });
