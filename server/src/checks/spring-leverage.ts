@@ -3,7 +3,7 @@
 // hooks and anchor, the pin it works about and the bar it hooks on. The toggle check measures the
 // lever arm against the hook radius, so an anchor a few millimetres from the pivot with a long
 // hook radius passes it (issue 10 item 2); this check measures the force against the weight.
-import type { ArmModel, Body, Joint, Payload, Spring } from "../model/types";
+import type { ArmModel, Joint, Spring } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
 import type { CheckContext } from "./index";
@@ -47,18 +47,36 @@ function carried(model: ArmModel, joint: Joint, placing: Map<string, Joint>): Se
   return out;
 }
 
-/** The carried bodies that weigh anything and the payloads on carried bodies, in the model's
- * order (so that the sums below add in the same order as over the whole model). */
+/** The carried bodies that weigh anything and the payloads on carried bodies, as indices into
+ * model.bodies and model.payloads, in the model's order (so that the sums below add in the same
+ * order as over the whole model). */
 interface Carried {
-  bodies: Body[];
-  payloads: Payload[];
+  bodies: number[];
+  payloads: number[];
 }
 
 function carriedParts(model: ArmModel, bodies: Set<string>): Carried {
-  return {
-    bodies: model.bodies.filter((b) => bodies.has(b.id) && b.mass > 0),
-    payloads: model.payloads.filter((p) => bodies.has(p.body)),
-  };
+  const out: Carried = { bodies: [], payloads: [] };
+  model.bodies.forEach((b, i) => bodies.has(b.id) && b.mass > 0 && out.bodies.push(i));
+  model.payloads.forEach((p, k) => bodies.has(p.body) && out.payloads.push(k));
+  return out;
+}
+
+/** World x of every body's centre of mass and every payload's point at one pose (NaN where the
+ * pose does not place the body): the same for every spring, so worked out once a pose. */
+interface PlacedX {
+  body: Float64Array;
+  payload: Float64Array;
+}
+
+function placedX(model: ArmModel, pose: Pose): PlacedX {
+  const body = Float64Array.from(model.bodies, (b) =>
+    pose.bodies[b.id] ? worldPoint(pose, b.id, b.centreOfMass, model).x : NaN,
+  );
+  const payload = Float64Array.from(model.payloads, (p) =>
+    pose.bodies[p.body] ? worldPoint(pose, p.body, p.point, model).x : NaN,
+  );
+  return { body, payload };
 }
 
 interface Weighed {
@@ -69,30 +87,49 @@ interface Weighed {
 
 function weighAt(
   model: ArmModel,
-  pose: Pose,
+  at: PlacedX,
   parts: Carried,
   masses: Record<string, number>,
   pivot: { x: number },
 ): Weighed {
   let w = 0;
   let moment = 0;
-  const add = (m: number, x: number) => {
-    w += m * model.gravity;
-    moment += m * model.gravity * (x - pivot.x);
-  };
-  for (const b of parts.bodies)
-    if (pose.bodies[b.id]) add(b.mass, worldPoint(pose, b.id, b.centreOfMass, model).x);
-  for (const p of parts.payloads)
-    if (pose.bodies[p.body]) add(masses[p.id] ?? p.mass, worldPoint(pose, p.body, p.point, model).x);
+  const g = model.gravity;
+  for (const i of parts.bodies) {
+    const x = at.body[i]!;
+    if (Number.isNaN(x)) continue;
+    const m = model.bodies[i]!.mass;
+    w += m * g;
+    moment += m * g * (x - pivot.x);
+  }
+  for (const k of parts.payloads) {
+    const x = at.payload[k]!;
+    if (Number.isNaN(x)) continue;
+    const p = model.payloads[k]!;
+    const m = masses[p.id] ?? p.mass;
+    w += m * g;
+    moment += m * g * (x - pivot.x);
+  }
   return { weight: w, arm: w > 0 ? Math.abs(moment / w) : 0 };
 }
 
 export function checkSpringLeverage(ctx: CheckContext): void {
   const placing = placingJoints(ctx.model);
-  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s, placing);
+  const xs = new Map<Pose, PlacedX>();
+  const placedAt = (pose: Pose) => {
+    let at = xs.get(pose);
+    if (!at) xs.set(pose, (at = placedX(ctx.model, pose)));
+    return at;
+  };
+  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s, placing, placedAt);
 }
 
-function checkSpring(ctx: CheckContext, s: TwoEnded, placing: Map<string, Joint>): void {
+function checkSpring(
+  ctx: CheckContext,
+  s: TwoEnded,
+  placing: Map<string, Joint>,
+  placedAt: (pose: Pose) => PlacedX,
+): void {
   const { model, sweep } = ctx;
   const joint = workingJoint(model, sweep, s);
   if (!joint) return;
@@ -125,9 +162,10 @@ function checkSpring(ctx: CheckContext, s: TwoEnded, placing: Map<string, Joint>
     // Unit vector from the hook toward the pivot: the part of the pull along it squeezes the bar.
     const toPivot = { x: pivot.x - hook.x, y: pivot.y - hook.y };
     const reach = Math.hypot(toPivot.x, toPivot.y);
+    const at = placedAt(pose);
     pose.cases.forEach((c, ci) => {
       const tension = c.springForce[s.id] ?? 0;
-      const weighed = weighAt(model, pose, parts, masses[ci] ?? payloadMasses(model, sweep, ci), pivot);
+      const weighed = weighAt(model, at, parts, masses[ci] ?? payloadMasses(model, sweep, ci), pivot);
       weightArm = Math.max(weightArm, weighed.arm);
       const r = c.reactions[joint.id];
       if (r) reaction = Math.max(reaction, Math.hypot(r.x, r.y));
