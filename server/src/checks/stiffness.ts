@@ -40,20 +40,26 @@ export function representativePoses(sweep: SweepResult): Pose[] {
   const out: Pose[] = [];
   const add = (p: Pose | undefined) => p && !out.includes(p) && out.push(p);
   add(sweep.reference ?? sweep.poses[0]);
-  for (const d of sweep.dofs) {
+  // Each pose's distance from the reference, dof by dof, read once (not once per dof and end:
+  // that was dofs^2 x poses lookups by name); the score adds them in the same order as before.
+  const { dofs } = sweep;
+  const away = sweep.poses.map((p) =>
+    Float64Array.from(dofs, (o) => Math.abs((p.angles[o.id] ?? o.reference) - o.reference)),
+  );
+  dofs.forEach((d, di) => {
     for (const end of [d.range[0], d.range[1]]) {
       let best: { pose: Pose; score: number } | undefined;
-      for (const p of sweep.poses) {
+      sweep.poses.forEach((p, pi) => {
         const a = p.angles[d.id];
-        if (a === undefined) continue;
+        if (a === undefined) return;
         let score = Math.abs(a - end) * 1e3;
-        for (const o of sweep.dofs)
-          if (o !== d) score += Math.abs((p.angles[o.id] ?? o.reference) - o.reference);
+        const off = away[pi]!;
+        for (let oi = 0; oi < dofs.length; oi++) if (oi !== di) score += off[oi]!;
         if (!best || score < best.score) best = { pose: p, score };
-      }
+      });
       add(best?.pose);
     }
-  }
+  });
   return out.length <= MAX_STIFFNESS_POSES
     ? out
     : [out[0]!, ...mostExtended(out.slice(1), MAX_STIFFNESS_POSES - 1)];
