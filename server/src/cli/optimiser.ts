@@ -28,3 +28,11 @@ export function optimiseFor(text: string): void {
   setFlagsFromString(want ? "--opt" : "--no-opt");
   optimising = want;
 }
+
+/** Turns the optimising compiler on for a search that analyses the spec many times over (the
+ * tune preview of `poise report`), which runs long enough to pay for it. */
+export function optimiseForSearch(): void {
+  if (!switching || optimising) return;
+  setFlagsFromString("--opt");
+  optimising = true;
+}

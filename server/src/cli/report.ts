@@ -1,7 +1,7 @@
 // `poise report FILE [-o OUT] [--units si|us]`: the arm's drawing, curves, safety factors, diagnostics, limits and
 // cautions as one self-contained HTML page. Exit 0 no errors, 1 the spec has errors, 2 could not run.
 import { analyse } from "../analysis";
-import { optimiseFor } from "./optimiser";
+import { optimiseFor, optimiseForSearch } from "./optimiser";
 import { CLI_BUDGET_MS } from "../limits";
 import { reportPage } from "../view";
 import { tuneDesign } from "../tune/index";
@@ -58,6 +58,7 @@ export function reportHtml(
   // (docs/tuning.md, "The preview"), within what is left of the command's budget.
   const tunes = analysis.model?.springs.some((s) => s.tunings?.some((t) => t.mode === "tune")) ?? false;
   const left = CLI_BUDGET_MS - (performance.now() - start);
+  if (tunes) optimiseForSearch();
   const run = tunes && left > 0 ? tuneDesign(text, { analyse, before: analysis, budgetMs: left }) : undefined;
   const tune = run?.improved
     ? tunePreview(analysis, run, { deadline: performance.now() + PREVIEW_MS })
