@@ -8,6 +8,7 @@ import { solveSweep } from "../../server/src/mechanics/sweep";
 import { bodyLoads, resultant } from "../../server/src/mechanics/body-loads";
 import { elasticCordTension, gasStrutTension } from "../../server/src/mechanics/forces";
 import { ArmBuilder, deg, G0, seededRandom } from "./arm-builder";
+import { springDofValue, sumOverSprings } from "../../server/src/mechanics/spring-table";
 
 function world(pose: Pose, model: ArmModel, body: string, p: { x: number; y: number }) {
   if (body === model.bodies[0]!.id) return p;
@@ -226,7 +227,7 @@ describe("the holding torque's parts equal dV/dtheta of their own potentials", (
         const slope = (v: (p: Pose) => number) => (v(hi) - v(lo)) / (2 * h);
         for (const s of model.springs) {
           // Principle of virtual work (Haug 1989, ch. 6): each spring's part is dV_spring/dtheta
-          expect(mid.springTorque![s.id]![dof.id]).toBeCloseTo(
+          expect(springDofValue(mid.springTorque, s.id, dof.id)).toBeCloseTo(
             slope((p) => springEnergy(model, s, p)),
             5,
           );
@@ -241,7 +242,7 @@ describe("the holding torque's parts equal dV/dtheta of their own potentials", (
             5,
           );
           expect(statics.loadTorque![dof.id]).toBeCloseTo(load, 5);
-          const springs = Object.values(mid.springTorque!).reduce((sum, t) => sum + t[dof.id]!, 0);
+          const springs = sumOverSprings(mid.springTorque!, dof.id);
           // The parts of one linear system's right-hand side add up to its solution (superposition).
           expect(statics.gravityTorque![dof.id]! + springs + statics.loadTorque![dof.id]!).toBeCloseTo(
             statics.holdingTorque[dof.id]!,

@@ -184,7 +184,11 @@ export function pendulumPose(index: number, theta: number, rate: number): Pose {
         loadTorque: { shoulder: 0 },
       },
     ],
-    springTorque: { lift: { shoulder: -rate * A * B * Math.cos(theta) } },
+    springTorque: {
+      springIndex: new Map([["lift", 0]]),
+      dofIndex: new Map([["shoulder", 0]]),
+      values: Float64Array.of(-rate * A * B * Math.cos(theta)),
+    },
   };
 }
 

@@ -14,6 +14,7 @@ import { signedHandForce } from "../mechanics/hand-force";
 import { formatAngle, formatForce, formatTorque } from "../mechanics/format";
 import { formatResult, messageUnits } from "../units/format";
 import type { DimensionName } from "../units/dimension";
+import { springRow } from "../mechanics/spring-table";
 
 const formatQuantityFor = (valueSI: number, dimension: DimensionName): string =>
   formatResult(valueSI, dimension, messageUnits());
@@ -106,8 +107,8 @@ export function balanceChecks(ctx: CheckContext): void {
     // The spring that should balance it: the one whose best fit lowers the worst hand force most.
     let chosen: { spring: Spring; fit: SpringFit } | undefined;
     for (const s of model.springs) {
-      const acts = sweep.poses.some((pose) =>
-        Object.values(pose.springTorquePerUnit?.[s.id] ?? {}).some((v) => v !== 0),
+      const acts = sweep.poses.some(
+        (pose) => springRow(pose.springTorquePerUnit, s.id)?.some((v) => v !== 0) ?? false,
       );
       if (!acts) continue;
       const fit = fitOf(s.id);

@@ -13,6 +13,7 @@ import { addFigures } from "./readout";
 import { carrierHead, jointsBetween, parallelogramOfHead } from "./arm-paths";
 import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from "./part-words";
 import { atJoint, goesSlack, type HookSpring } from "../model/spring-kinds";
+import { springDofValue } from "../mechanics/spring-table";
 
 /** A spring toggles where its lever arm about the pivot falls below this share of its shorter
  * hook radius: the line of action is then within about 6 degrees of the dead-centre line
@@ -71,7 +72,7 @@ export function workingJoint(model: ArmModel, sweep: SweepResult, s: HookSpring)
 /** |holding torque the dof would need without this spring| (largest over load cases), N m:
  * the torque the spring is there to supply. 0 when the sweep gives no per-spring share. */
 function torqueWithoutSpring(pose: Pose, springId: string, dofId: string): number {
-  const perUnit = pose.springTorquePerUnit?.[springId]?.[dofId];
+  const perUnit = springDofValue(pose.springTorquePerUnit, springId, dofId);
   if (perUnit === undefined) return 0;
   let most = 0;
   for (const c of pose.cases) {

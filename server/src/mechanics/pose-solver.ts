@@ -7,7 +7,7 @@
 // One class (past the usual file length) because continuation and statics share the buffers and
 // the factorization of the current pose.
 import type { ArmModel, Spring, Vec2 } from "../model/types";
-import type { LoadCase, Pose, PoseStatics, SpringState } from "./types";
+import type { LoadCase, Pose, PoseStatics, SpringDofTable, SpringState } from "./types";
 import { SparseLu } from "./sparse-lu";
 import {
   constraintJacobianInto,
@@ -23,6 +23,7 @@ import type { Linkage } from "./linkage";
 import { pastDeadline } from "../stop";
 import { turnedX, turnedY, worldX, worldY } from "./plane";
 import { atJoint } from "../model/spring-kinds";
+import { indexOf, springDofTable } from "./spring-table";
 
 /** Converged when every constraint is met within 1e-10 (m, or rad for drives): a tenth of a
  * nanometre, far below any displayed digit and about 1e4 x the round-off of arm-sized numbers. */
@@ -84,6 +85,9 @@ export class PoseSolver {
   private readonly nonZeroAt: Int32Array;
   private readonly holdingScratch: Float64Array;
   private readonly dofIds: string[];
+  /** Rows and columns of the poses' spring tables (shared by every pose). */
+  private springRows: ReadonlyMap<string, number> = new Map();
+  private dofColumns: ReadonlyMap<string, number> = new Map();
   readonly angles: Float64Array;
   private readonly moveStart: Float64Array;
   private readonly trialAngles: Float64Array;
@@ -171,6 +175,9 @@ export class PoseSolver {
         by: s.b.point.y,
       });
     }
+    // record() visits the point springs first, then the torsion springs: the rows' order
+    this.springRows = indexOf(this.activeSprings().map((sp) => sp.id));
+    this.dofColumns = indexOf(this.dofIds);
   }
 
   /** Springs the solver applies (both ends on bodies the base reaches). */
@@ -394,8 +401,8 @@ export class PoseSolver {
     // Springs: state, tension, generalized force and the holding torque per unit of tension.
     const springs: Record<string, SpringState> = {};
     const springForce: Record<string, number> = {};
-    const springTorquePerUnit: Record<string, Record<string, number>> = {};
-    const springTorque: Record<string, Record<string, number>> = {};
+    const springTorquePerUnit = springDofTable(this.springRows, this.dofColumns);
+    const springTorque = springDofTable(this.springRows, this.dofColumns);
     this.qSprings.fill(0);
     for (const ps of this.pointSprings) {
       const wa = this.world(ps.a, ps.ax, ps.ay);
@@ -581,25 +588,16 @@ export class PoseSolver {
   /** Adds a spring of force `force` whose unit generalized force is in `this.unit`: to the
    * springs' generalized force, and its holding torque per unit of force and its share of the
    * holding torque to the pose's records. */
-  private addSpring(
-    id: string,
-    force: number,
-    perUnit: Record<string, Record<string, number>>,
-    share: Record<string, Record<string, number>>,
-  ): void {
+  private addSpring(id: string, force: number, perUnit: SpringDofTable, share: SpringDofTable): void {
     const count = this.nonZerosOf(this.unit);
     const at = this.nonZeroAt;
     for (let m = 0; m < count; m++) this.qSprings[at[m]!]! += force * this.unit[at[m]!]!;
     const torque = this.holdingAt(this.unit, count);
-    const unitRecord: Record<string, number> = {};
-    const shareRecord: Record<string, number> = {};
-    const ids = this.dofIds;
+    const o = this.springRows.get(id)! * this.ndof;
     for (let d = 0; d < this.ndof; d++) {
-      unitRecord[ids[d]!] = torque[d]!;
-      shareRecord[ids[d]!] = torque[d]! * force;
+      perUnit.values[o + d] = torque[d]!;
+      share.values[o + d] = torque[d]! * force;
     }
-    perUnit[id] = unitRecord;
-    share[id] = shareRecord;
   }
 
   /** Where Q is non-zero, into this.nonZeroAt; returns how many. */

@@ -16,6 +16,7 @@ import { atJoint, springKind } from "../model/spring-kinds";
 import { handForceVector, torqueBeyondFriction } from "./hand-force";
 import { rotate } from "./plane";
 import { pastDeadline } from "../stop";
+import { springDofValue } from "./spring-table";
 
 /** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 30 reach
  * 5e-7 of the bracket, past the four significant digits a quick fix writes. */
@@ -81,9 +82,9 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
   const basis = new Float64Array(2);
   const turnOrLength = springTurnOrLength(model, s);
   for (const pose of sweep.poses) {
-    const perUnit = pose.springTorquePerUnit?.[s.id];
-    if (!perUnit) continue;
-    for (let i = 0; i < ndof; i++) g[i] = perUnit[dofIds[i]!] ?? 0;
+    const perUnit = pose.springTorquePerUnit;
+    if (!perUnit?.springIndex.has(s.id)) continue;
+    for (let i = 0; i < ndof; i++) g[i] = springDofValue(perUnit, s.id, dofIds[i]!) ?? 0;
     springForceBasis(model, s, turnOrLength(pose), basis);
     for (const p of model.payloads) {
       const pj = pose.payloadJacobian?.[p.id];
@@ -468,7 +469,7 @@ export function idealZeroLengthRate(
         if (!st || !child) continue;
         let t = st.holdingTorque[dof.id] ?? 0;
         for (const sp of model.springs)
-          t -= (pose.springTorquePerUnit?.[sp.id]?.[dof.id] ?? 0) * (st.springForce[sp.id] ?? 0);
+          t -= (springDofValue(pose.springTorquePerUnit, sp.id, dof.id) ?? 0) * (st.springForce[sp.id] ?? 0);
         const c = Math.cos(child.phi + hookAngle);
         pts.push({ t, c });
         sc += t * c;

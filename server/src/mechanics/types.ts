@@ -60,6 +60,19 @@ export interface PoseStatics {
   loadTorque?: Record<string, number>;
 }
 
+/** A figure per spring and degree of freedom, one typed array a pose: row `springIndex.get(id)`,
+ * column `dofIndex.get(id)` (rows in the order the solver applies the springs, columns in
+ * `SweepResult.dofs` order); the two maps are shared by every pose of a sweep. An object per
+ * spring keyed by dof ids made springs x dofs boxed numbers a pose (3,200 at 120 bodies), whose
+ * copying by the garbage collector was a fifth of the analysis. Read it with
+ * mechanics/spring-table.ts. */
+export interface SpringDofTable {
+  springIndex: ReadonlyMap<string, number>;
+  dofIndex: ReadonlyMap<string, number>;
+  /** springIndex.size x dofIndex.size, row by row. */
+  values: Float64Array;
+}
+
 export interface Pose {
   /** Position in `poses`. */
   index: number;
@@ -75,13 +88,13 @@ export interface Pose {
    * Added by the mechanics core. */
   payloadJacobian?: Record<string, Record<string, Vec2>>;
   /** Change of each dof's holding torque per unit of a spring's force (N*m per N of tension;
-   * torsion: per N*m of its torque T), by spring then dof id: holding torque is affine in each
+   * torsion: per N*m of its torque T), by spring and dof: holding torque is affine in each
    * spring's force, which the best-fit readouts use. Added by the mechanics core. */
-  springTorquePerUnit?: Record<string, Record<string, number>>;
+  springTorquePerUnit?: SpringDofTable;
   /** Each spring's part of the holding torque (its force times `springTorquePerUnit`), N*m, by
-   * spring then dof id; the same in every load case, since a spring's force depends on the pose
+   * spring and dof; the same in every load case, since a spring's force depends on the pose
    * alone. Added by the mechanics core. */
-  springTorque?: Record<string, Record<string, number>>;
+  springTorque?: SpringDofTable;
   /** Each moving body's velocity per unit of each dof: (dx/dtheta, dy/dtheta, dphi/dtheta) of its
    * frame's origin, dof after dof in `SweepResult.dofs` order, by body id (the base has none).
    * Only when the sweep was asked for it (the design search). */

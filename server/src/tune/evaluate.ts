@@ -18,6 +18,7 @@ import {
   torsionSpringWireStress,
 } from "../mechanics/hardware/spring-ends";
 import type { CheckContext } from "../checks/index";
+import { springDofValue, springRow } from "../mechanics/spring-table";
 
 export interface Measure {
   /** Worst hand force over every pose, case and payload, N. */
@@ -79,7 +80,7 @@ export class HandForceMeasure {
         const t = new Float64Array(Math.max(1, this.ndof));
         this.dofIds.forEach((d, i) => {
           let v = c.holdingTorque[d] ?? 0;
-          for (const id of ids) v -= pose.springTorque?.[id]?.[d] ?? 0;
+          for (const id of ids) v -= springDofValue(pose.springTorque, id, d) ?? 0;
           t[i] = v;
         });
         return t;
@@ -215,11 +216,12 @@ export class HandForceMeasure {
     const ndof = this.ndof;
     if (s.kind === "torsion") {
       const j = this.jointOf.get(s.id);
-      const perUnit = pose.springTorquePerUnit?.[s.id];
+      const perUnit = springRow(pose.springTorquePerUnit, s.id);
       if (!j || !perUnit) return undefined;
       const theta = pose.jointAngles[j.id] ?? j.angle;
       const torque = torsionSpringTorque(s, theta, j.angle);
-      for (let d = 0; d < ndof; d++) this.add[d]! += torque * (perUnit[this.dofIds[d]!] ?? 0);
+      for (let d = 0; d < ndof; d++)
+        this.add[d]! += torque * (springDofValue(pose.springTorquePerUnit, s.id, this.dofIds[d]!) ?? 0);
       const windUp = s.rate !== 0 ? Math.abs(torque / s.rate) : 0;
       const over = s.maxAngle !== undefined ? windUp / s.maxAngle - 1 : 0;
       return { force: torque, over: over > LIMIT_SLACK ? over : 0, limit: `spring ${s.id}'s max_angle` };

@@ -25,6 +25,7 @@ import { EMPTY_BOUNDS, payloadPaths, viewBounds } from "./envelope";
 import { buildResults } from "../checks/results";
 import { atJoint } from "../model/spring-kinds";
 import { carriedBodies } from "../model/build-swivels";
+import { sumOverSprings } from "../mechanics/spring-table";
 
 /** What the view needs of an analysis (an `Analysis` fits). */
 export interface ViewInput {
@@ -187,9 +188,7 @@ function viewBody(model: ArmModel, body: Body, partOf: (id: string) => string): 
 /** The springs' part of a pose's holding torque at a dof: the sum of each spring's part. */
 function springsPart(pose: Pose, dofId: string): number {
   if (!pose.springTorque) return NaN;
-  let sum = 0;
-  for (const perDof of Object.values(pose.springTorque)) sum += perDof[dofId] ?? 0;
-  return sum;
+  return sumOverSprings(pose.springTorque, dofId);
 }
 
 /** The reference pose itself, drawn when the sweep's steps miss the written angles (a grid), so
