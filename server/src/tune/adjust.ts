@@ -62,7 +62,7 @@ export function adjustTables(model: ArmModel, sweep: SweepResult, deadline = Inf
       const kg = lo + ((hi - lo) * i) / (ADJUST_MASSES - 1);
       const f = (x: readonly number[]) => {
         const m = measure.measure(springsAt(x), { payload: p.id, kg });
-        return m.worst + 1e6 * m.violation;
+        return m.worst + 1e-3 * m.worstFree + 1e6 * m.violation;
       };
       let values: number[];
       if (vars.length === 1) {

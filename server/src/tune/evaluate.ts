@@ -1,5 +1,5 @@
 // The design search's measure of a candidate: the worst hand force over every pose, load case
-// and payload, and how far it breaks the limits the search must keep (spring lengths, stretch,
+// and payload (beyond what the pivots' friction holds, as the balance check has it), and how far it breaks the limits the search must keep (spring lengths, stretch,
 // stroke and wind-up; coil body stress; friction that held before), from one solved sweep.
 // Springs do not move the arm, so the poses stay; only the tuned springs' parts of the holding
 // torque change. A spring's holding torque per newton of tension is dL/dtheta (virtual work),
@@ -7,7 +7,7 @@
 import type { ArmModel, Spring } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { springTension, torsionSpringTorque } from "../mechanics/forces";
-import { handForceVector } from "../mechanics/hand-force";
+import { handForceVector, torqueBeyondFriction } from "../mechanics/hand-force";
 import { springWireStrength } from "../checks/spring-strength";
 import { coilBodyShearStress } from "../mechanics/structure/spring-stress";
 import {
@@ -21,8 +21,12 @@ import type { CheckContext } from "../checks/index";
 import { springDofValue, springRow } from "../mechanics/spring-table";
 
 export interface Measure {
-  /** Worst hand force over every pose, case and payload, N. */
+  /** Worst hand force over every pose, case and payload, N: beyond what the pivots' friction
+   * holds, as the balance check judges it (a pose friction holds needs no hand). */
   worst: number;
+  /** The same as if no pivot had friction, N (the search's tie-break: of two designs friction
+   * holds alike, the one that leans on it less). */
+  worstFree: number;
   /** Per payload, N. */
   byPayload: Record<string, number>;
   /** How far the candidate breaks a kept limit, summed as fractions of each limit (0: keeps all). */
@@ -46,6 +50,10 @@ export class HandForceMeasure {
   private readonly poses: Pose[];
   private readonly add: Float64Array;
   private readonly tau: Float64Array;
+  /** Scratch: the holding torque beyond each dof's friction. */
+  private readonly beyond: Float64Array;
+  /** Each dof's pivot friction, N*m (0: none), in dof order. */
+  private readonly dofFriction: Float64Array;
   /** Scratch: the two ends' velocities (x, y per dof). */
   private readonly va: Float64Array;
   private readonly vb: Float64Array;
@@ -66,6 +74,12 @@ export class HandForceMeasure {
     this.poses = sweep.poses;
     this.add = new Float64Array(Math.max(1, this.ndof));
     this.tau = new Float64Array(Math.max(1, this.ndof));
+    this.beyond = new Float64Array(Math.max(1, this.ndof));
+    // The pose solver's own rule (mechanics/hand-force.ts): each dof's joint friction.
+    this.dofFriction = Float64Array.from(
+      sweep.dofs,
+      (d) => model.joints.find((j) => j.id === d.jointId)?.friction ?? 0,
+    );
     this.va = new Float64Array(2 * Math.max(1, this.ndof));
     this.vb = new Float64Array(2 * Math.max(1, this.ndof));
     for (const s of tuned)
@@ -122,6 +136,7 @@ export class HandForceMeasure {
   measure(springs: readonly Spring[], mass?: { payload: string; kg: number }): Measure {
     const byPayload: Record<string, number> = {};
     let worst = 0;
+    let worstFree = 0;
     let violation = 0;
     const broken = new Set<string>();
     const ndof = this.ndof;
@@ -149,10 +164,14 @@ export class HandForceMeasure {
           const e = (Math.abs(this.tau[fr.dof]!) - fr.friction) / fr.friction;
           if (e > frictionExcess[k]!) frictionExcess[k] = e;
         });
+        torqueBeyondFriction(this.tau, this.dofFriction, this.beyond, ndof);
         for (let k = 0; k < payloads.length; k++) {
           const j = this.jacobians[pi]![k];
           if (!j) continue;
-          const v = handForceVector(j, this.tau, ndof);
+          const free = handForceVector(j, this.tau, ndof);
+          const hf = Math.hypot(free.x, free.y);
+          if (!(hf <= worstFree)) worstFree = hf;
+          const v = handForceVector(j, this.beyond, ndof);
           const h = Math.hypot(v.x, v.y);
           const id = payloads[k]!.id;
           if (!(h <= (byPayload[id] ?? 0))) byPayload[id] = h;
@@ -179,7 +198,7 @@ export class HandForceMeasure {
         broken.add(`spring ${s.id}'s wire stress`);
       }
     });
-    return { worst, byPayload, violation, broken: [...broken] };
+    return { worst, worstFree, byPayload, violation, broken: [...broken] };
   }
 
   /** The nominal case's holding torque at pose `pi` with `springs` in place of the tuned ones

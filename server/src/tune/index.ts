@@ -81,6 +81,11 @@ const RECHECKS = 5;
  * a newton is below what a hand feels: common practice, no source). */
 const IMPROVEMENT_N = 0.005;
 
+/** Weight of the hand force as if no pivot had friction in the search's score: a tie-break only
+ * (a thousandth), so that of designs friction holds alike the search takes the one that leans on
+ * friction least, without trading away any hand force the balance check counts (docs/tuning.md). */
+const FREE_TIE_BREAK = 1e-3;
+
 /** Worst hand force over every pose, load case and payload of an analysis, N. */
 export function worstHandForce(sweep: SweepResult | undefined): number | undefined {
   if (!sweep || sweep.poses.length === 0) return undefined;
@@ -159,7 +164,7 @@ function tuneWithin(text: string, options: TuneOptions, deadline: number): TuneR
   const now = measure.measure(tunedSprings);
   // A broken limit costs more than any hand force it could buy.
   const penalty = 100 * (now.worst + model.gravity * totalMass(model) + 1);
-  const score = (m: Measure) => m.worst + penalty * m.violation;
+  const score = (m: Measure) => m.worst + FREE_TIE_BREAK * m.worstFree + penalty * m.violation;
 
   const result = minimise((x) => score(measure.measure(springsAt(x))), boxOf(variables), {
     maxEvaluations: options.maxEvaluations ?? SEARCH_EVALUATIONS,
