@@ -12,10 +12,22 @@ import {
 import {
   SPEC_SUMMARY_NOTIFICATION,
   REANALYSE_REQUEST,
+  TUNE_COMMAND,
   type SpecSummary,
 } from "../../server/src/lsp/custom-protocol";
 import { createStatusBar } from "./status-bar";
-import { registerArmPreview } from "./preview";
+import { registerArmPreview, SHOW_ARM_COMMAND } from "./preview";
+
+/** Runs the server's tune command without writing, with the arm drawing open to show the run. */
+const TUNE_AND_SHOW_COMMAND = "counterpoise.tuneAndShow";
+
+/** The active editor's spec, or a word saying to open one. */
+function activeSpec(): vscode.Uri | undefined {
+  const doc = vscode.window.activeTextEditor?.document;
+  if (doc?.languageId === "counterpoise") return doc.uri;
+  void vscode.window.showInformationMessage("Open a .poise file to tune its springs.");
+  return undefined;
+}
 
 let client: LanguageClient | undefined;
 
@@ -36,6 +48,15 @@ function clientOptions(output: vscode.LogOutputChannel): LanguageClientOptions {
     synchronize: { configurationSection: "counterpoise" },
     initializationOptions: { settings: vscode.workspace.getConfiguration("counterpoise") },
     outputChannel: output,
+    middleware: {
+      // The language client registers the server's tune command itself; from the command palette
+      // it comes with no arguments, and then tunes the active spec.
+      executeCommand: (command, args, next) => {
+        if (command !== TUNE_COMMAND || args.length > 0) return next(command, args);
+        const uri = activeSpec();
+        return uri ? next(command, [uri.toString()]) : undefined;
+      },
+    },
   };
 }
 
@@ -62,6 +83,14 @@ export async function activate(context: vscode.ExtensionContext): Promise<void> 
       else await start();
     }),
     vscode.commands.registerCommand("counterpoise.showServerLog", () => output.show(true)),
+    vscode.commands.registerCommand(TUNE_AND_SHOW_COMMAND, async () => {
+      const uri = activeSpec();
+      if (!uri) return;
+      await vscode.commands.executeCommand(SHOW_ARM_COMMAND, uri);
+      await vscode.commands.executeCommand(TUNE_COMMAND, uri.toString(), { write: false });
+      // The run changed no text: draw again so that it shows.
+      await vscode.commands.executeCommand(SHOW_ARM_COMMAND, uri);
+    }),
     vscode.commands.registerCommand("counterpoise.reanalyse", async () => {
       const doc = vscode.window.activeTextEditor?.document;
       if (client && doc?.languageId === "counterpoise")

@@ -7,6 +7,8 @@ import { existsSync, readdirSync, readFileSync } from "node:fs";
 import { join } from "node:path";
 import { DEFAULT_SETTINGS } from "../../server/src/lsp/session/settings";
 import { ensureBuilt } from "./protocol-client";
+import { tuneCommandFeature } from "../../server/src/lsp/features/tune-command";
+import { TUNE_COMMAND } from "../../server/src/lsp/custom-protocol";
 
 const root = join(__dirname, "..", "..");
 const manifest = JSON.parse(readFileSync(join(root, "package.json"), "utf8"));
@@ -46,8 +48,33 @@ describe("extension manifest", () => {
   });
 
   it("registers every command it declares", () => {
+    // The language client registers the server's own commands (executeCommandProvider) itself.
+    const serverCommands = new Set(
+      tuneCommandFeature.capabilities({}).executeCommandProvider?.commands ?? [],
+    );
     for (const c of manifest.contributes.commands as { command: string }[])
-      expect(clientSource, c.command).toContain(`"${c.command}"`);
+      if (!serverCommands.has(c.command)) expect(clientSource, c.command).toContain(`"${c.command}"`);
+  });
+
+  it("puts the tune command in the command palette in plain words, for a .poise editor", () => {
+    const commands = manifest.contributes.commands as {
+      command: string;
+      title: string;
+      enablement?: string;
+    }[];
+    const palette = manifest.contributes.menus.commandPalette as { command: string; when?: string }[];
+    for (const id of [TUNE_COMMAND, "counterpoise.tuneAndShow"]) {
+      const c = commands.find((x) => x.command === id)!;
+      expect(c, id).toBeDefined();
+      expect(c.title).toMatch(/^[A-Z][A-Za-z ]+$/); // words, no code names
+      expect(c.enablement).toBe("editorLangId == counterpoise");
+      expect(palette.find((m) => m.command === id)?.when).toBe("editorLangId == counterpoise");
+    }
+    // The server declares the command the manifest names, and the client passes the active spec
+    // to it when the palette gives no arguments
+    expect(tuneCommandFeature.capabilities({}).executeCommandProvider?.commands).toEqual([TUNE_COMMAND]);
+    expect(clientSource).toContain("executeCommand: (command, args, next)");
+    expect(clientSource).toContain("command !== TUNE_COMMAND || args.length > 0");
   });
 
   it("packs only the bundles and the editor files into the .vsix", () => {
