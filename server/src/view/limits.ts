@@ -2,7 +2,7 @@
 // of a spring-loaded arm can fall or fly off. Shared by the panel and the report.
 
 export const MODEL_LIMITS: readonly string[] = [
-  "Balance and statics in each stage's vertical plane; loads out of it (a stage turned on a swivel, a sideways working force or torque) are checked for stiffness and stress at a few representative poses only, and pins and joint bearings take the planar reactions.",
+  "Balance and statics in each stage's vertical plane; loads out of it (a stage turned on a swivel, a sideways working force or torque) are checked for stiffness at a few representative poses, and for stress with torsion, buckling, pins and joint bearings at those and where each swivel's stage reaches out most, not at every pose; fastenings, spring ends and clearances take the planar loads only.",
   "Quasi-static motion: no inertia, no impact, no shock when the arm is let go or bumped.",
   "Small elastic deflections about the rigid-body pose.",
   "Pins without clearance: play in the holes adds droop the figures do not show.",
