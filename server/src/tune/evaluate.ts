@@ -13,6 +13,8 @@ import { coilBodyShearStress } from "../mechanics/structure/spring-stress";
 import {
   defaultHook,
   hookBendingStress,
+  initialStressRange,
+  initialTensionStress,
   hookTorsionStress,
   shortestFreeLength,
   torsionSpringWireStress,
@@ -37,6 +39,9 @@ export interface Measure {
 
 /** Relative slack on a limit (lengths at a limit to rounding). */
 const LIMIT_SLACK = 1e-9;
+/** The values are written to four figures, which moves one by up to 5e-4 of itself: a fit the
+ * re-check must find (coils and hooks within the free length) is kept with this much to spare. */
+const WRITTEN_ROUNDING = 1e-3;
 /** A safety already short of the requirement may not fall: kept this much above where it is. */
 const SAFETY_MARGIN = 0.01;
 
@@ -63,6 +68,8 @@ export class HandForceMeasure {
   /** Each tuned spring's body stress safety before (coil-defined extension springs). */
   private readonly safetyBefore = new Map<string, number>();
   private readonly required: number;
+  /** Each tuned coil extension spring's initial stress over the windable most, now. */
+  private readonly initialBefore = new Map<string, number>();
 
   constructor(
     private readonly model: ArmModel,
@@ -124,6 +131,8 @@ export class HandForceMeasure {
       this.friction.push({ dof: i, friction: joint.friction, before: Math.max(0, before) });
     });
     for (const s of tuned) {
+      const ratio = this.initialStressRatio(s);
+      if (ratio !== undefined) this.initialBefore.set(s.id, ratio);
       const sf = this.bodySafety(s, this.largestForce(s));
       if (sf !== undefined) this.safetyBefore.set(s.id, sf);
     }
@@ -198,6 +207,17 @@ export class HandForceMeasure {
         broken.add(`spring ${s.id}'s wire stress`);
       }
     });
+    springs.forEach((s) => {
+      const ratio = this.initialStressRatio(s);
+      if (ratio === undefined) return;
+      // More than a maker can wind (the spring-end check's warning): not past the preferred
+      // range, or where the present spring is past it already, no further.
+      const allowed = Math.max(1 - WRITTEN_ROUNDING, this.initialBefore.get(s.id) ?? 0);
+      if (ratio > allowed) {
+        violation += ratio / allowed - 1;
+        broken.add(`spring ${s.id}'s initial tension`);
+      }
+    });
     return { worst, worstFree, byPayload, violation, broken: [...broken] };
   }
 
@@ -266,8 +286,8 @@ export class HandForceMeasure {
     if (s.kind === "extension" && s.coil) {
       // The body and its hooks must fit in the free length (the spring-end check's body room).
       const shortest = shortestFreeLength(s.coil.bodyCoils, s.coil.meanDiameter, s.coil.wireDiameter);
-      if (shortest > s.freeLength * (1 + LIMIT_SLACK)) {
-        over += shortest / s.freeLength - 1;
+      if (shortest > s.freeLength * (1 - WRITTEN_ROUNDING)) {
+        over += shortest / (s.freeLength * (1 - WRITTEN_ROUNDING)) - 1;
         limit = `spring ${s.id}'s coils fit in its free length`;
       }
     }
@@ -308,6 +328,15 @@ export class HandForceMeasure {
         v[2 * d + 1] = bv[3 * d + 1]! + rx * w;
       }
     return { x: f.x + rx, y: f.y + ry, v };
+  }
+
+  /** A coil-defined extension spring's initial stress over the most a maker can wind into its
+   * index (Shigley 10th ed., section 10-11, as the spring-end check has it); undefined for others. */
+  private initialStressRatio(s: Spring): number | undefined {
+    if (s.kind !== "extension" || !s.coil || !(s.initialTension > 0)) return undefined;
+    const D = s.coil.meanDiameter;
+    const d = s.coil.wireDiameter;
+    return initialTensionStress(s.initialTension, D, d) / initialStressRange(D / d).high;
   }
 
   /** The largest force a spring pulls with over the sweep now, N (torsion: N*m). */

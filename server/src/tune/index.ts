@@ -15,6 +15,7 @@ import { withStop, cancelled } from "../stop";
 import { applyValues, searchVariables, type Variable } from "./variables";
 import { HandForceMeasure, type Measure } from "./evaluate";
 import { minimise } from "./search";
+import { nearestStock, stockWithin } from "./wire-sizes";
 import { anglePreloadsOf, applyEdits, tunedEdits, type WrittenValue } from "./write";
 
 /** What the search reads of an analysis (the core's `Analysis` fits). */
@@ -159,8 +160,13 @@ function tuneWithin(text: string, options: TuneOptions, deadline: number): TuneR
   if (sweep.poses.length === 0)
     return emptyResult("the arm could not be solved over its range", { worstBefore });
   const measure = new HandForceMeasure(model, sweep, tunedSprings);
+  // A coil's wire is wound from stock: each candidate is measured with its wire rounded to the
+  // nearest stock diameter within the bounds (none within them: the value as searched).
+  const stock = variables.map((v) => (v.what === "wire" ? stockWithin(v.lo, v.hi) : []));
+  const toStock = (x: readonly number[]): number[] =>
+    x.map((xi, i) => (stock[i]!.length > 0 ? nearestStock(xi, stock[i]!) : xi));
   const springsAt = (x: readonly number[]): Spring[] =>
-    tunedSprings.map((s) => applyValues(model, s, variables, x, anglePreloads));
+    tunedSprings.map((s) => applyValues(model, s, variables, toStock(x), anglePreloads));
   const now = measure.measure(tunedSprings);
   // A broken limit costs more than any hand force it could buy.
   const penalty = 100 * (now.worst + model.gravity * totalMass(model) + 1);
@@ -186,9 +192,9 @@ function tuneWithin(text: string, options: TuneOptions, deadline: number): TuneR
   // present design (a smaller change often keeps a check the full one breaks).
   const present = variables.map((v) => clampTo(v, v.current));
   const halfway = result.best.map((x, i) => roundIf(variables[i]!, (x + present[i]!) / 2));
-  const candidates = [result.best, ...result.others.map((o) => o.point), halfway].filter(
-    (c, i, all) => all.findIndex((d) => d.every((x, k) => x === c[k])) === i,
-  );
+  const candidates = [result.best, ...result.others.map((o) => o.point), halfway]
+    .map(toStock)
+    .filter((c, i, all) => all.findIndex((d) => d.every((x, k) => x === c[k])) === i);
   let broken = measure.measure(springsAt(result.best)).broken;
   let tried = 0;
   for (const c of candidates) {
