@@ -691,6 +691,35 @@ function extensionHostLog() {
   );
 }
 
+async function tuneShow() {
+  // The tune command from the palette, shown before it is written: the drawing gets the tuned
+  // springs and its legend, and the file stays as it was until the user asks to write.
+  const file = join(WS, "tune-fix.poise");
+  const before = readFileSync(file, "utf8");
+  await openFile("tune-fix.poise");
+  await focusEditor();
+  await palette("Counterpoise: Tune the Springs and Show the Result in the Arm Drawing");
+  const frame = await until(
+    () => webviewFrame("svg g.tune-legend text"),
+    (f) => !!f,
+    60_000,
+  );
+  const legend = frame
+    ? oneLine(
+        await frame.$$eval("svg g.tune-legend text", (els) => els.map((e) => e.textContent).join(" | ")),
+      )
+    : "";
+  await sleep(600);
+  await shot("10-tune-shown");
+  verdict(
+    !!frame && /as tuned/.test(legend) && readFileSync(file, "utf8") === before,
+    "the palette's tune command shows the tuned design in the drawing, named in its legend, without writing the file",
+    `legend: "${legend}"; file unchanged: ${readFileSync(file, "utf8") === before}`,
+  );
+  // The offer to write stays in a notification: leave it unanswered.
+  await page.keyboard.press("Escape").catch(() => {});
+}
+
 async function tuneFix() {
   // The design search offered as a quick fix on the unbalanced arm: chosen, it runs in the
   // server's worker and writes spring settings after which `poise check` finds no balance error.
@@ -805,6 +834,7 @@ async function main() {
     drawing,
     typing,
     balanceFix,
+    tuneShow,
     tuneFix,
     headingSlider,
     manifest,
