@@ -190,10 +190,14 @@ export function checkStiffness(ctx: CheckContext): void {
     // while typing, the swivels are turned at the farthest pose only
     const turnedHere = sweep.quick ? pose === (farthest ?? poses[0]) : pose === poses[0] || pose === farthest;
     const sets = turnedHere ? turnedSets : turnedSets.slice(0, 1);
-    for (const headings of sets)
+    for (const headings of sets) {
+      // the load cases of one pose and heading differ in loads and masses only: one factorisation
+      let firstCase: ArmFrame | undefined;
       for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
         if (pastDeadline(ctx.options.deadline)) break;
         const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci), { headings });
+        if (firstCase) af.frame.shareFactorisationOf(firstCase.frame);
+        else firstCase = af;
         const sol = af.frame.solveStatic();
         if (!sol) {
           if (!unsolved.includes(pose)) unsolved.push(pose);
@@ -273,6 +277,7 @@ export function checkStiffness(ctx: CheckContext): void {
             };
         }
       }
+    }
   }
   if (unsolved.length > 0) reportUnsolved(ctx, unsolved, solvedAny);
   if (solvedAny && !flexible)

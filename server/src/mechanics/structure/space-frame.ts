@@ -379,6 +379,32 @@ export class SpaceFrame {
     return this.factorCache ? { ...this.factorCache, t } : undefined;
   }
 
+  /** Takes `other`'s equation numbering and factorisation when the two frames have the same
+   * stiffness: the same nodes, members, springs and constraints, compared exactly (loads and
+   * masses may differ, as between the load cases of one pose). Identical inputs give an identical
+   * factor, so every figure is what this frame's own factorisation would give. Returns whether it
+   * took them. */
+  shareFactorisationOf(other: SpaceFrame): boolean {
+    if (other === this || !sameStiffness(this, other)) return false;
+    other.factor();
+    this.orderedTransform = other.transform();
+    this.factorCache = other.factorCache;
+    return true;
+  }
+
+  /** The parts of the stiffness matrix, for sameStiffness. */
+  stiffnessInputs(): {
+    springs: readonly Spring[];
+    rotational: readonly Spring[];
+    transform: DofTransform;
+  } {
+    return {
+      springs: this.axialSprings,
+      rotational: this.rotationalSprings,
+      transform: this.constraints.transform(),
+    };
+  }
+
   /** Entries the factored stiffness matrix stores (its skyline), or undefined for a mechanism:
    * what the factorisation's cost grows with. */
   storedEntries(): number | undefined {
@@ -555,6 +581,60 @@ export class SpaceFrameSolution {
     for (let p = 0; p < 12; p++) for (let q = 0; q < 12; q++) e += u[p]! * k[p * 12 + q]! * u[q]!;
     return e / 2;
   }
+}
+
+/** Whether two frames have the same stiffness matrix, entry for entry: every input to it equal. */
+function sameStiffness(a: SpaceFrame, b: SpaceFrame): boolean {
+  if (a.nodes.length !== b.nodes.length || a.members.length !== b.members.length) return false;
+  for (let k = 0; k < a.nodes.length; k++) if (!sameVec(a.nodes[k]!, b.nodes[k]!)) return false;
+  for (let k = 0; k < a.members.length; k++) if (!sameMember(a.members[k]!, b.members[k]!)) return false;
+  const x = a.stiffnessInputs();
+  const y = b.stiffnessInputs();
+  return (
+    sameSprings(x.springs, y.springs) &&
+    sameSprings(x.rotational, y.rotational) &&
+    x.transform.count === y.transform.count &&
+    sameArray(x.transform.raw, y.transform.raw) &&
+    sameArray(x.transform.start, y.transform.start) &&
+    sameArray(x.transform.eq, y.transform.eq) &&
+    sameArray(x.transform.coef, y.transform.coef)
+  );
+}
+
+function sameVec(a: Vec3, b: Vec3): boolean {
+  return a.x === b.x && a.y === b.y && a.z === b.z;
+}
+
+function sameArray(a: ArrayLike<number>, b: ArrayLike<number>): boolean {
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) if (a[k] !== b[k]) return false;
+  return true;
+}
+
+function sameMember(a: SpaceMember, b: SpaceMember): boolean {
+  const p = a.props;
+  const q = b.props;
+  return (
+    a.i === b.i &&
+    a.j === b.j &&
+    a.length === b.length &&
+    a.massOnly === b.massOnly &&
+    sameArray(a.axes, b.axes) &&
+    p.axialRigidity === q.axialRigidity &&
+    p.torsionalRigidity === q.torsionalRigidity &&
+    p.bendingRigidityY === q.bendingRigidityY &&
+    p.bendingRigidityZ === q.bendingRigidityZ
+  );
+}
+
+function sameSprings(a: readonly Spring[], b: readonly Spring[]): boolean {
+  if (a.length !== b.length) return false;
+  for (let k = 0; k < a.length; k++) {
+    const s = a[k]!;
+    const t = b[k]!;
+    if (s.i !== t.i || s.j !== t.j || s.rate !== t.rate || !sameVec(s.axis, t.axis)) return false;
+  }
+  return true;
 }
 
 function sub(a: Vec3, b: Vec3): Vec3 {
