@@ -13,37 +13,20 @@ import {
 import { ProtocolSession, ensureBuilt } from "./protocol-client";
 import { TUNE_COMMAND, type TuneCommandResult } from "../../server/src/lsp/custom-protocol";
 import { ARM_VIEW_REQUEST, type ArmViewResult } from "../../server/src/lsp/preview-protocol";
+import { pivotSpec } from "../tune/pivot-spec";
 
 /** Standard gravity, m/s^2 (SI Brochure, 9th ed.; the language's default `gravity`). */
 const G0 = 9.80665;
 const [A, B, L, M, K] = [0.05, 0.1, 0.4, 1, 500];
 
-const LAMP = `# Invented for the tests: a desk lamp on a boom whose spring anchor may move up the post.
-arm "Lamp" {
-  base post {
-    point pivot (0 mm, 300 mm)
-    point anchor (0 mm, ${300 + A * 1000} mm)
-  }
-  link boom {
-    length 450 mm
-    mass 0 kg
-  }
-  joint shoulder {
-    connects post.pivot to boom.start
-    range -50 deg .. 50 deg
-  }
-  spring lift {
-    zero_length
-    between post.anchor and boom(${B * 1000} mm, 0 mm)
-    rate ${K / 1000} N/mm
-    tune anchor (0 mm, 310 mm) .. (0 mm, 450 mm)
-  }
-  payload shade {
-    mass ${M} kg
-    at boom(${L * 1000} mm, 0 mm)
-  }
-}
-`;
+const LAMP = pivotSpec({
+  a: A * 1000,
+  b: B * 1000,
+  l: L * 1000,
+  m: M,
+  rate: `${K / 1000} N/mm`,
+  tune: "tune anchor (0 mm, 310 mm) .. (0 mm, 450 mm)",
+});
 
 let session: ProtocolSession;
 let edits = 0;
@@ -102,7 +85,7 @@ describe("the tune run in the arm drawing", () => {
     const a = Number((0.3 + exactA).toPrecision(4)) - 0.3;
     vm!.poses.forEach((pose, i) => {
       const expected = ((M * G0 * L - K * a * B) * Math.cos(pose.angles[0]!)) / L;
-      expect(tune.otherHandForce[i]!.shade).toBeCloseTo(expected, 3);
+      expect(tune.otherHandForce[i]!.weight).toBeCloseTo(expected, 3);
     });
     // The present design's locus: the exact point straight above the pivot at a = m g l / (k b)
     const locus = tune.locus.find((l) => l.spring === "lift")!;
@@ -125,7 +108,7 @@ describe("the tune run in the arm drawing", () => {
     const lift = vm!.tune!.springs.find((s) => s.id === "lift")!;
     expect(lift.other![0].local[1]).toBeCloseTo(0.3 + A, 9);
     vm!.poses.forEach((pose, i) =>
-      expect(vm!.tune!.otherHandForce[i]!.shade).toBeCloseTo(
+      expect(vm!.tune!.otherHandForce[i]!.weight).toBeCloseTo(
         ((M * G0 * L - K * A * B) * Math.cos(pose.angles[0]!)) / L,
         3,
       ),

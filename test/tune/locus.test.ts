@@ -6,39 +6,10 @@ import { describe, expect, it } from "vitest";
 import { analyse } from "../../server/src/analysis";
 import { anchorLocus, type AnchorLocus } from "../../server/src/tune/locus";
 import { solveSweep } from "../../server/src/mechanics/sweep";
+import { pivotSpec } from "./pivot-spec";
 
 /** Standard gravity, m/s^2 (SI Brochure, 9th ed.; the language's default `gravity`). */
 const G0 = 9.80665;
-
-/** A massless link pivoting at (0, 300 mm) carrying m at l, a zero-free-length spring of rate k
- * from an anchor on the post to b along the link. */
-function pivotSpec(o: { a: number; b: number; l: number; m: number; rate: string; angle?: string }) {
-  return `# Invented for the tests: a pivoting link balanced by a zero-free-length spring.
-arm "Pivot" {
-  base post {
-    point pivot (0 mm, 300 mm)
-    point anchor (0 mm, ${300 + o.a} mm)
-  }
-  link boom {
-    length ${o.l + 50} mm
-    mass 0 kg
-  }
-  joint shoulder {
-    connects post.pivot to boom.start${o.angle ? `\n    angle ${o.angle}` : ""}
-    range -60 deg .. 60 deg
-  }
-  spring lift {
-    zero_length
-    between post.anchor and boom(${o.b} mm, 0 mm)
-    rate ${o.rate}
-  }
-  payload weight {
-    mass ${o.m} kg
-    at boom(${o.l} mm, 0 mm)
-  }
-}
-`;
-}
 
 function locusOf(text: string): AnchorLocus {
   const an = analyse(text);

@@ -7,51 +7,10 @@ import { tuneDesign, worstHandForce } from "../../server/src/tune/index";
 import { applyEdits } from "../../server/src/tune/write";
 import { HandForceMeasure } from "../../server/src/tune/evaluate";
 import { solveSweep } from "../../server/src/mechanics/sweep";
+import { pivotSpec } from "./pivot-spec";
 
 /** Standard gravity, m/s^2 (SI Brochure, 9th ed.; the language's default `gravity`). */
 const G0 = 9.80665;
-
-/** A pivoting link carrying a mass m at l, a zero-free-length spring from a above the pivot to b
- * along the link (docs/formulas.md, gravity balancing). Lengths in mm, mass in kg. */
-function pivotSpec(o: {
-  a: number;
-  b: number;
-  l: number;
-  m: number;
-  rate: string;
-  tune: string;
-  friction?: string;
-}) {
-  return `# Invented for the tests: a pivoting link balanced by a zero-free-length spring.
-arm "Pivot" {
-  base post {
-    point pivot (0 mm, 300 mm)
-    point anchor (0 mm, ${300 + o.a} mm)
-  }
-  link boom {
-    length ${o.l + 50} mm
-    mass 0 kg
-  }
-  joint shoulder {
-    connects post.pivot to boom.start
-    range -60 deg .. 60 deg${o.friction ? `\n    friction ${o.friction}` : ""}
-  }
-  spring lift {
-    zero_length
-    between post.anchor and boom(${o.b} mm, 0 mm)
-    rate ${o.rate}
-    ${o.tune}
-  }
-  payload weight {
-    mass ${o.m} kg
-    at boom(${o.l} mm, 0 mm)
-  }
-  require {
-    balance 0.5 N
-  }
-}
-`;
-}
 
 describe("design search", () => {
   it("finds k a b = m g l for a pivot with a zero-free-length spring", () => {

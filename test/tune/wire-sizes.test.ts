@@ -5,6 +5,7 @@ import { describe, expect, it } from "vitest";
 import { analyse } from "../../server/src/analysis";
 import { tuneDesign } from "../../server/src/tune/index";
 import { applyEdits } from "../../server/src/tune/write";
+import { arm } from "./lamp-boom";
 
 /** Nominal diameters of spring-steel wire from 0.5 mm to 3 mm, mm: the series of EN 10270-1
  * (patented cold-drawn unalloyed spring steel wire), from memory. */
@@ -12,32 +13,6 @@ const EN_10270_MM = [
   0.5, 0.53, 0.56, 0.6, 0.63, 0.65, 0.7, 0.75, 0.8, 0.85, 0.9, 0.95, 1.0, 1.05, 1.1, 1.2, 1.25, 1.3, 1.4, 1.5,
   1.6, 1.7, 1.8, 1.9, 2.0, 2.1, 2.25, 2.4, 2.5, 2.6, 2.8, 3.0,
 ];
-
-function arm(spring: string): string {
-  return `# Invented for the tests: a lamp boom on a post, held by a coil spring wound from stock wire.
-arm "Stock wire" {
-  base post {
-    point pivot (0 mm, 600 mm)
-    point anchor (0 mm, 700 mm)
-  }
-  link boom {
-    length 450 mm
-    mass 0 kg
-  }
-  joint shoulder {
-    connects post.pivot to boom.start
-    range -30 deg .. 30 deg
-  }
-  spring lift {
-${spring}
-  }
-  payload lamp {
-    mass 500 g
-    at boom(400 mm, 0 mm)
-  }
-}
-`;
-}
 
 /** The wire diameter the tuned text gives, mm. */
 function wireOf(text: string): number {
