@@ -8,6 +8,7 @@ import { coarsePitch, COARSE_SIZES_MM } from "./metric-threads";
 import { quantityValue, readChoice, readQuantity, readWord, type Read, type Values } from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
 import { materialOf } from "./build-parts";
+import { positiveQuantity } from "./read-props";
 import { atJoint } from "./spring-kinds";
 
 /** The screws' class when `screws` names none: plain machine screws are commonly class 4.8 (the
@@ -76,22 +77,14 @@ function kindOf(
   return kind;
 }
 
-/** A quantity that must be positive. */
+/** A quantity that must be positive, named by its key in the message. */
 function positive(
   ctx: BuildContext,
   p: Props,
   key: string,
   dim: "length" | "force" | "area",
 ): Read<number> | undefined {
-  const v = p.values(key);
-  if (!v) return undefined;
-  const q = readQuantity(v, [dim]);
-  v.finish();
-  if (q && q.value <= 0) {
-    ctx.r.add("value.impossible", q.span, `\`${key}\` must be positive, got ${ctx.r.quote(q.span)}`);
-    return undefined;
-  }
-  return q;
+  return positiveQuantity(ctx, p, key, dim, `\`${key}\``);
 }
 
 /** `N x SIZE` then, where `material` is not "none", a material word (optional when "optional"). */

@@ -8,7 +8,6 @@ import {
   readChoice,
   readDims,
   readFlag,
-  readKeyword,
   readPoint,
   readQuantity,
   readRange,
@@ -18,6 +17,7 @@ import {
   type Read,
 } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
+import { nonNegativeQuantity, positiveQuantity, readConnects } from "./read-props";
 import type { Span } from "../syntax/span";
 import { MAX_JOINT_ANGLE_RAD } from "../limits";
 
@@ -73,33 +73,7 @@ export function buildMaterial(ctx: BuildContext, p: Props, id: string): Material
 
 /** A quantity that must be positive (sizes, lengths); reports zero or negative values. */
 function positiveLength(ctx: BuildContext, p: Props, key: string, what: string): Read<number> | undefined {
-  const v = p.values(key);
-  if (!v) return undefined;
-  const q = readQuantity(v, ["length"]);
-  v.finish();
-  if (q && q.value <= 0) {
-    ctx.r.add("value.impossible", q.span, `${what} must be positive, got ${ctx.r.quote(q.span)}`);
-    return undefined;
-  }
-  return q;
-}
-
-function nonNegative(
-  ctx: BuildContext,
-  p: Props,
-  key: string,
-  dim: "mass" | "torque" | "force",
-  what: string,
-): Read<number> | undefined {
-  const v = p.values(key);
-  if (!v) return undefined;
-  const q = readQuantity(v, [dim]);
-  v.finish();
-  if (q && q.value < 0) {
-    ctx.r.add("value.impossible", q.span, `${what} cannot be negative, got ${ctx.r.quote(q.span)}`);
-    return undefined;
-  }
-  return q;
+  return positiveQuantity(ctx, p, key, "length", what);
 }
 
 /** `point NAME (x, y)` properties (also written `point NAME(x, y)`). */
@@ -254,7 +228,7 @@ function readMode(ctx: BuildContext, p: Props): { angle: number; mode: JointMode
 // ---- base ----
 
 export function buildBase(ctx: BuildContext, p: Props, id: string): { body: Body; base: Base } {
-  const mass = nonNegative(ctx, p, "mass", "mass", "a mass");
+  const mass = nonNegativeQuantity(ctx, p, "mass", "mass", "a mass");
   let footprint: Base["footprint"];
   const fv = p.values("footprint");
   if (fv) {
@@ -312,7 +286,7 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
     sv.finish();
   }
   const material = materialOf(ctx, p, "material");
-  const mass = nonNegative(ctx, p, "mass", "mass", "a mass");
+  const mass = nonNegativeQuantity(ctx, p, "mass", "mass", "a mass");
   if (!p.has("mass") && (!p.has("section") || !p.has("material"))) {
     for (const k of ["section", "material"]) if (!p.has(k)) p.missing(k, " (or `mass`)");
   }
@@ -356,33 +330,16 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
 export function buildJoint(ctx: BuildContext, p: Props, id: string): Joint | undefined {
   const { angle, mode, range } = readMode(ctx, p);
   const pin = readPin(ctx, p, "pin", "shear");
-  const friction = nonNegative(ctx, p, "friction", "torque", "friction");
-  const cv = p.values("connects");
-  if (!cv) {
-    p.missing("connects");
-    return undefined;
-  }
-  const parentRef = readReference(cv, "the parent's point");
-  const hasTo = parentRef ? readKeyword(cv, "to", "and the child's point") : false;
-  const childRef = hasTo ? readReference(cv, "the child's point") : undefined;
-  cv.finish();
-  const parent = parentRef
-    ? ctx.resolvePoint(parentRef, "connects", { keepBodyOnBadPoint: true })
-    : undefined;
-  const child = childRef ? ctx.resolvePoint(childRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
-  if (!parent || !child) return undefined;
-  if (parent.body === child.body) {
-    ctx.r.add("value.impossible", childRef!.span, `${p.what} connects ${parent.body} to itself`);
-    return undefined;
-  }
-  if (ctx.bodies.get(child.body)?.kind === "base") {
-    ctx.r.add(
-      "value.invalid",
-      childRef!.span,
-      `the base cannot be a joint's child: write the base first, \`connects ${ctx.r.quote(childRef!.span)} to ...\` (the parent comes first)`,
-    );
-    return undefined;
-  }
+  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction");
+  const ends = readConnects(
+    ctx,
+    p,
+    "the parent's point",
+    (child) =>
+      `the base cannot be a joint's child: write the base first, \`connects ${child} to ...\` (the parent comes first)`,
+  );
+  if (!ends) return undefined;
+  const { parent, child } = ends;
   return {
     id,
     parent: parent.body,
@@ -435,10 +392,10 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
     bv.finish();
     material = m ? ctx.resolveMaterial(m) : undefined;
   }
-  const headMass = nonNegative(ctx, p, "head_mass", "mass", "a mass");
+  const headMass = nonNegativeQuantity(ctx, p, "head_mass", "mass", "a mass");
   const { angle, mode, range } = readMode(ctx, p);
   const pin = readPin(ctx, p, "pins", "shear");
-  const friction = nonNegative(ctx, p, "friction", "torque", "friction");
+  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction");
   const origin = p.origin(id);
   const density = material ? (ctx.materials[material]?.density ?? 0) : 0;
   const area = section ? sectionProperties(section).area : 0;

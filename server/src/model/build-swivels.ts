@@ -3,8 +3,9 @@
 // orientation, or its `angle`); its heading range, bearings and friction are kept for the checks
 // that turn the arm. The base's `yaw` is a swivel at the base's origin.
 import type { Base, Joint, Spring, Swivel } from "./types";
-import { readKeyword, readQuantity, readRange, readReference, readWord, type Values } from "./read-values";
+import { readQuantity, readRange, readWord, type Values } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
+import { nonNegativeQuantity, readConnects } from "./read-props";
 
 /** A heading range wider than a full turn says nothing more than a full turn. */
 const FULL_TURN = 2 * Math.PI;
@@ -65,41 +66,15 @@ export function buildSwivel(
   }
   const heading = readHeading(ctx, p);
   const bearings = readSwivelBearings(ctx, p);
-  let friction: number | undefined;
-  const fv = p.values("friction");
-  if (fv) {
-    const q = readQuantity(fv, ["torque"]);
-    fv.finish();
-    if (q && q.value < 0)
-      ctx.r.add("value.impossible", q.span, `friction cannot be negative, got ${ctx.r.quote(q.span)}`);
-    else if (q) friction = q.value;
-  }
-  const cv = p.values("connects");
-  if (!cv) {
-    p.missing("connects");
-    return undefined;
-  }
-  const parentRef = readReference(cv, "the parent's point (on the axis)");
-  const hasTo = parentRef ? readKeyword(cv, "to", "and the child's point") : false;
-  const childRef = hasTo ? readReference(cv, "the child's point") : undefined;
-  cv.finish();
-  const parent = parentRef
-    ? ctx.resolvePoint(parentRef, "connects", { keepBodyOnBadPoint: true })
-    : undefined;
-  const child = childRef ? ctx.resolvePoint(childRef, "connects", { keepBodyOnBadPoint: true }) : undefined;
-  if (!parent || !child) return undefined;
-  if (parent.body === child.body) {
-    ctx.r.add("value.impossible", childRef!.span, `${p.what} connects ${parent.body} to itself`);
-    return undefined;
-  }
-  if (ctx.bodies.get(child.body)?.kind === "base") {
-    ctx.r.add(
-      "value.invalid",
-      childRef!.span,
-      `the base cannot be a swivel's child: the parent, which carries the axis, comes first`,
-    );
-    return undefined;
-  }
+  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction")?.value;
+  const ends = readConnects(
+    ctx,
+    p,
+    "the parent's point (on the axis)",
+    () => "the base cannot be a swivel's child: the parent, which carries the axis, comes first",
+  );
+  if (!ends) return undefined;
+  const { parent, child } = ends;
   const origin = p.origin();
   const joint: Joint = {
     id,
