@@ -146,6 +146,12 @@ export function checkTipping(ctx: CheckContext): void {
   let worst:
     | { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string }
     | undefined;
+  /** Keeps the least safety against tipping over an edge `edge` from the pivot line. */
+  const tryEdge = (pose: Pose, ci: number, over: number, edge: number, heading: string): void => {
+    const restoring = restoringMoment(base.mass, model.gravity, edge);
+    const safety = over > 0 ? restoring / over : Infinity;
+    if (!worst || safety < worst.safety) worst = { safety, pose, ci, overturning: over, restoring, heading };
+  };
   type Peak = { value: number; pose?: Pose; ci: number; words?: string };
   // with a working force across the plane the drawing plane's own set needs the 3D sums too
   const turnedSets = headingCombinations(model, sweep.quick === true).slice(
@@ -176,17 +182,7 @@ export function checkTipping(ctx: CheckContext): void {
       for (const e of edges) {
         for (const sign of [1, -1] as const) {
           const over = overturningMoment(loads, e.edge, sign, base.surface);
-          const restoring = restoringMoment(base.mass, model.gravity, e.edge);
-          const safety = over > 0 ? restoring / over : Infinity;
-          if (!worst || safety < worst.safety)
-            worst = {
-              safety,
-              pose,
-              ci,
-              overturning: over,
-              restoring,
-              heading: e.heading ? `${e.heading}, ` : "",
-            };
+          tryEdge(pose, ci, over, e.edge, e.heading ? `${e.heading}, ` : "");
         }
       }
       // the swivels above the base turned, all together (the drawing plane's set was just done)
@@ -224,20 +220,8 @@ export function checkTipping(ctx: CheckContext): void {
               },
             ];
         for (const t of tries) {
-          const over = t.lever + t.edge * fyTurned;
-          const restoring = restoringMoment(base.mass, model.gravity, t.edge);
-          const safety = over > 0 ? restoring / over : Infinity;
-          if (!worst || safety < worst.safety)
-            worst = {
-              safety,
-              pose,
-              ci,
-              overturning: over,
-              restoring,
-              heading:
-                [t.heading, words].filter((x) => x).join(", ") +
-                ([t.heading, words].some((x) => x) ? ", " : ""),
-            };
+          const said = [t.heading, words].filter((x) => x);
+          tryEdge(pose, ci, t.lever + t.edge * fyTurned, t.edge, said.length ? `${said.join(", ")}, ` : "");
         }
       }
     }

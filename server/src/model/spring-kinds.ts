@@ -166,33 +166,42 @@ const HOOK_FASTENINGS = ["anchor_fastening", "hook_fastening"];
 /** Every kind takes `tune` and `adjust` lines (what each may free: model/tunables.ts). */
 const TUNING = ["tune", "adjust"];
 
-const rate = <S extends ExtensionSpring | ZeroLengthSpring>(): FitSetting<S> => ({
-  key: "rate",
-  dimension: "stiffness",
-  value: (s) => s.rate,
-  words: "rate",
-  messageWords: "rate",
-  label: "best-fit rate",
-  mustExist: true,
-  positive: true,
-  signed: false,
-});
+/** A fit setting: its messages and label say `words` unless told otherwise; by default it must be
+ * written already, a fix writes it only when positive, and the fit keeps it unsigned. */
+function fitSetting<S extends Spring>(
+  key: string,
+  dimension: DimensionName,
+  value: (s: S) => number,
+  words: string,
+  opts: Partial<Omit<FitSetting<S>, "key" | "dimension" | "value" | "words">> = {},
+): FitSetting<S> {
+  const messageWords = opts.messageWords ?? words;
+  return {
+    key,
+    dimension,
+    value,
+    words,
+    messageWords,
+    label: `best-fit ${messageWords}`,
+    mustExist: true,
+    positive: true,
+    signed: false,
+    ...opts,
+  };
+}
+
+const rate = <S extends ExtensionSpring | ZeroLengthSpring>(): FitSetting<S> =>
+  fitSetting<S>("rate", "stiffness", (s) => s.rate, "rate");
 
 const initialTension = <S extends ExtensionSpring | ZeroLengthSpring>(
   omitNegligible: boolean,
-): FitSetting<S> => ({
-  key: "initial_tension",
-  dimension: "force",
-  value: (s) => s.initialTension,
-  words: "initial tension",
-  messageWords: "initial tension",
-  label: "best-fit initial tension",
-  mustExist: false,
-  positive: false,
-  signed: false,
-  negligible: NEGLIGIBLE_TENSION_N,
-  omitNegligible,
-});
+): FitSetting<S> =>
+  fitSetting<S>("initial_tension", "force", (s) => s.initialTension, "initial tension", {
+    mustExist: false,
+    positive: false,
+    negligible: NEGLIGIBLE_TENSION_N,
+    omitNegligible,
+  });
 
 /** Force = Fi + k x where taut: coefficients (x, 1), or (0, 0) where slack. */
 function rateAndTensionBasis(stretch: number, taut: boolean, out: Float64Array): void {
@@ -254,19 +263,7 @@ const ELASTIC: SpringKindDescriptor<"elastic"> = {
     optional: ["max_stretch", "strands", ...HOOK_FASTENINGS, ...TUNING],
   },
   balanceKeys: ["area", "tube"],
-  fit: [
-    {
-      key: "area",
-      dimension: "area",
-      value: (s) => s.area,
-      words: "cross-section",
-      messageWords: "cross-section",
-      label: "best-fit cross-section",
-      mustExist: true,
-      positive: true,
-      signed: false,
-    },
-  ],
+  fit: [fitSetting<ElasticCord>("area", "area", (s) => s.area, "cross-section")],
   slackBelowFreeLength: true,
   lineRate: false,
   load: (s, length, arm) => elasticCordTension(s, cordShearModulus(arm, s), length),
@@ -303,17 +300,10 @@ const GAS: SpringKindDescriptor<"gas"> = {
   },
   balanceKeys: ["force"],
   fit: [
-    {
-      key: "force",
-      dimension: "force",
-      value: (s) => s.force,
-      words: "force",
+    fitSetting<GasStrut>("force", "force", (s) => s.force, "force", {
       messageWords: "extended force",
-      label: "best-fit extended force",
-      mustExist: true,
       positive: false,
-      signed: false,
-    },
+    }),
   ],
   slackBelowFreeLength: false,
   lineRate: false,
@@ -352,28 +342,12 @@ const TORSION: SpringKindDescriptor<"torsion"> = {
   },
   balanceKeys: ["rate"],
   fit: [
-    {
-      key: "rate",
-      dimension: "angular_stiffness",
-      value: (s) => s.rate,
-      words: "rate",
-      messageWords: "rate",
-      label: "best-fit rate",
-      mustExist: true,
-      positive: true,
-      signed: false,
-    },
-    {
-      key: "preload",
-      dimension: "torque",
-      value: (s) => s.preloadTorque,
-      words: "preload",
-      messageWords: "preload",
-      label: "best-fit preload",
+    fitSetting<TorsionSpring>("rate", "angular_stiffness", (s) => s.rate, "rate"),
+    fitSetting<TorsionSpring>("preload", "torque", (s) => s.preloadTorque, "preload", {
       mustExist: false,
       positive: false,
       signed: true,
-    },
+    }),
   ],
   slackBelowFreeLength: false,
   lineRate: false,

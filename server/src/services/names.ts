@@ -12,6 +12,7 @@ import type {
   ValueNode,
 } from "../syntax/ast";
 import type { Span } from "../syntax/span";
+import { DECLARATION_KEYWORDS } from "../syntax/keywords";
 import type { SymbolTable } from "../model/symbols";
 import { HEAD_POINTS } from "../model/build-parts";
 
@@ -51,18 +52,10 @@ export interface NameIndex {
 }
 
 const BODY_KINDS: ReadonlySet<NameKind> = new Set<NameKind>(["base", "link", "bar", "head"]);
-const DECLARED_KINDS: ReadonlySet<string> = new Set([
-  "material",
-  "base",
-  "link",
-  "joint",
-  "swivel",
-  "parallelogram",
-  "spring",
-  "payload",
-  "bearing",
-  "fastening",
-]);
+/** The declarations that name a part (the rest — require, sweep, aged — name nothing). */
+const DECLARED_KINDS: ReadonlySet<string> = new Set(
+  DECLARATION_KEYWORDS.filter((k) => k !== "require" && k !== "sweep" && k !== "aged"),
+);
 export const PARALLELOGRAM_PARTS = ["lower", "upper", "head"] as const;
 export const SECTION_SHAPES: ReadonlySet<string> = new Set(["rect", "tube", "rod"]);
 /** Words that join the parts of a property (`connects A to B`, `between A and B`, `... at P`). */
