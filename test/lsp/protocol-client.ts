@@ -126,6 +126,17 @@ export class ProtocolSession {
     return new Promise((resolve) => this.waiters.push({ test, resolve }));
   }
 
+  /** The first diagnostics for `uri` that pass `test`, published from now on or already. */
+  diagnosticsWhere(
+    uri: string,
+    test: (p: PublishDiagnosticsParams) => boolean,
+  ): Promise<PublishDiagnosticsParams> {
+    const mine = (p: PublishDiagnosticsParams) => p.uri === uri && test(p);
+    const seen = this.diagnostics.find(mine);
+    if (seen) return Promise.resolve(seen);
+    return new Promise((resolve) => this.waiters.push({ test: mine, resolve }));
+  }
+
   async open(uri: string, text: string, version = 1): Promise<PublishDiagnosticsParams> {
     const published = this.diagnosticsFor(uri, version);
     await this.connection.sendNotification(DidOpenTextDocumentNotification.type, {

@@ -9,39 +9,12 @@ import { reportHtml } from "../../server/src/cli/report";
 import { resultsOf } from "../../server/src/cli/results";
 import { sweepCsv, sweepTable } from "../../server/src/cli/sweep";
 import { PENDULUM_TEXT } from "../view/pendulum-fixture";
+import { INCH_TEXT } from "./inch-boom";
 
 // Exact definitions (NIST SP 811, appendix B): 1 in = 0.0254 m, 1 lb = 0.45359237 kg,
 // 1 lbf = 0.45359237 kg x 9.80665 m/s^2 = 4.4482216152605 N.
 const LBF_N = 0.45359237 * 9.80665;
 
-/** Invented: a pivoting test boom drawn in inches (the pendulum of test/view, in US units). */
-const INCH_TEXT = `arm "Test boom in inches" {
-  base post {
-    point pivot (0 in, 12 in)
-    point anchor (0 in, 14 in)
-  }
-  link boom {
-    length 16 in
-    section rect 0.75 in x 0.25 in
-    mass 0 lb
-  }
-  joint shoulder {
-    connects post.pivot to boom.start
-    angle 0 deg
-    range -30 deg .. 30 deg
-    pin 0.125 in steel_1018
-  }
-  spring lift {
-    zero_length
-    between post.anchor and boom(4 in, 0 in)
-    rate 3 lbf/in
-  }
-  payload lamp {
-    mass 2 lb
-    at boom.end
-  }
-}
-`;
 
 describe("messages follow the spec's units", () => {
   it("a spec in inches and pounds says its hand force in lbf", () => {

@@ -136,7 +136,10 @@ export function startServer(connection: Connection): void {
           section: "counterpoise",
         });
       }
+      const before = JSON.stringify(settings);
       await pullSettings();
+      // A document opened before the settings arrived was analysed with the defaults.
+      if (JSON.stringify(settings) !== before) scheduler.refreshAll();
     }),
   );
 

@@ -21,6 +21,7 @@ import { occurrenceAt, type NameSymbol } from "../../services/names";
 import { guarded } from "../safe";
 import type { SyntaxView } from "../session/syntax-view";
 import { spotAt } from "../../services/tree-walk";
+import { shownUnits } from "../session/settings";
 
 const f = formatQuantity;
 
@@ -314,7 +315,7 @@ export const hoverFeature: ServerFeature = {
           view.lines.offset(params.position),
           ctx.figures(uri),
           ctx.scheduler.current(uri),
-          ctx.settings().displayUnits,
+          shownUnits(ctx.settings(), ctx.figures(uri)),
         );
       }),
     );

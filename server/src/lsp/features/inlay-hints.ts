@@ -5,6 +5,7 @@ import { formatNumber, formatResult } from "../../units/format";
 import type { ServerFeature } from "../context";
 import { guarded } from "../safe";
 import type { Figure, PartReadout } from "../../checks/readout";
+import { shownUnits } from "../session/settings";
 
 /** The figure most worth a glance for a part without a safety factor: a payload's hand force, a
  * spring's force, else the first the checks give. */
@@ -25,7 +26,7 @@ export const inlayHintsFeature: ServerFeature = {
         const view = ctx.syntax(uri);
         const analysis = ctx.figures(uri);
         if (!view || !analysis) return [];
-        const system = ctx.settings().displayUnits;
+        const system = shownUnits(ctx.settings(), analysis);
         const hints: InlayHint[] = [];
         for (const d of view.tree.arms[0]?.declarations ?? []) {
           if (!d.name) continue;

@@ -6,6 +6,7 @@ import type { FeatureContext, ServerFeature } from "../context";
 import { guarded } from "../safe";
 import { ARM_VIEW_REQUEST, type ArmViewParams, type ArmViewResult } from "../preview-protocol";
 import type { Analysis } from "../../analysis";
+import { shownUnits } from "../session/settings";
 import { withTuneOverlay, type ViewModel } from "../../view/index";
 
 /** The drawing with the document's last tune run over it, when the text drawn is the one the run
@@ -47,7 +48,9 @@ export const previewFeature: ServerFeature = {
         );
         const analysis = current?.model ? current : (ctx.scheduler.latest(doc.uri) ?? current);
         if (!analysis) return null;
-        const built = await ctx.scheduler.viewModel(analysis, { units: ctx.settings().displayUnits });
+        const built = await ctx.scheduler.viewModel(analysis, {
+          units: shownUnits(ctx.settings(), analysis),
+        });
         if (!built) return null;
         if ("failed" in built) {
           ctx.log(`Counterpoise: the arm drawing could not be built: ${built.failed}`);

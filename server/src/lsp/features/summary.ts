@@ -3,7 +3,7 @@
 import type { Analysis } from "../../analysis";
 import type { SpecSummary } from "../custom-protocol";
 import { formatNumber, formatQuantity } from "../../units/format";
-import type { Settings } from "../session/settings";
+import { shownUnits, type Settings } from "../session/settings";
 import { REQUIREMENT_DEFAULTS } from "../../model/schema";
 
 export function worstHandForce(analysis: Analysis): { valueN: number; payload: string } | undefined {
@@ -47,10 +47,11 @@ export function specSummary(
       ? (model.require.balance.byPayload[hand.payload] ?? model.require.balance.default)
       : REQUIREMENT_DEFAULTS.balanceN;
     summary.worstHandForce = { ...hand, limitN: limit };
-    const shown = formatQuantity(hand.valueN, "force", settings.displayUnits);
+    const units = shownUnits(settings, analysis);
+    const shown = formatQuantity(hand.valueN, "force", units);
     parts.push(`hand ${shown}`);
     tips.push(
-      `Worst hand force: ${shown} at ${hand.payload} (limit ${formatQuantity(limit, "force", settings.displayUnits)})`,
+      `Worst hand force: ${shown} at ${hand.payload} (limit ${formatQuantity(limit, "force", units)})`,
     );
   }
   if (safety) {

@@ -8,8 +8,15 @@ import type { Analysis, AnalysisOptions } from "../../analysis";
 const KEPT = 2;
 
 export function cacheKey(text: string, options: AnalysisOptions): string {
-  const { stepsOverride, quickSteps, budgetMs, modelOnly } = options;
-  const key = [stepsOverride ?? null, quickSteps ?? null, budgetMs ?? null, modelOnly ?? false];
+  const { stepsOverride, quickSteps, budgetMs, modelOnly, units } = options;
+  // The units are part of the result: the messages are written in them.
+  const key = [
+    stepsOverride ?? null,
+    quickSteps ?? null,
+    budgetMs ?? null,
+    modelOnly ?? false,
+    units ?? null,
+  ];
   return `${JSON.stringify(key)}\n${text}`;
 }
 

@@ -8,6 +8,7 @@ import type { AnalysisRunner, RunHandle, TuneHandle } from "./runner";
 import { EDITOR_TUNE_BUDGET_MS } from "./tune-run";
 import type { ViewModel, ViewOptions } from "../../view";
 import type { Settings } from "./settings";
+import { cacheKey } from "./analysis-cache";
 import { reportFault } from "../safe";
 
 /** After a quick while-typing run, the spec's own sweep density is run once typing pauses this
@@ -31,7 +32,8 @@ interface DocEntry {
   density: Density;
   debounce?: ReturnType<typeof setTimeout>;
   idle?: ReturnType<typeof setTimeout>;
-  running?: { version: number; density: Density; handle: RunHandle };
+  /** The run in flight; `options` keyed as the cache keys them (a settings change alters them). */
+  running?: { version: number; density: Density; options: string; handle: RunHandle };
   /** The analysis of the current version, once it has arrived. */
   current?: Analysis;
   /** The newest analysis that built a model (answers hover figures while the text is broken). */
@@ -164,6 +166,8 @@ export class AnalysisScheduler {
   private options(entry: DocEntry): AnalysisOptions {
     const s = this.settings();
     const options: AnalysisOptions = { budgetMs: s.analysisBudgetMs };
+    // A chosen system writes the messages too; "auto" leaves them in the spec's own.
+    if (s.displayUnits !== "auto") options.units = s.displayUnits;
     // The sweep planner decides from the model how dense a quick pass is, and whether it is one.
     if (entry.density === "typing") options.quickSteps = s.stepsWhileTyping;
     return options;
@@ -181,18 +185,20 @@ export class AnalysisScheduler {
   private start(entry: DocEntry): void {
     entry.debounce = undefined;
     if (this.docs.get(entry.uri) !== entry) return;
-    if (entry.running) {
-      if (entry.running.version === entry.version && entry.running.density === entry.density) return;
-      // A run of the same text at another density, or of an older text: replaced.
-      entry.running.handle.cancel();
-      entry.running = undefined;
-    }
     const version = entry.version;
     const density = entry.density;
     const options = this.options(entry);
+    const optionsKey = cacheKey("", options);
+    if (entry.running) {
+      const same = entry.running;
+      if (same.version === version && same.density === density && same.options === optionsKey) return;
+      // A run of the same text at another density or with other settings, or of an older text: replaced.
+      entry.running.handle.cancel();
+      entry.running = undefined;
+    }
     const hardLimit = (options.budgetMs ?? 0) + HARD_LIMIT_MARGIN_MS;
     const handle = this.runner.run(entry.text, options, hardLimit);
-    entry.running = { version, density, handle };
+    entry.running = { version, density, options: optionsKey, handle };
     void handle.outcome.then(async (outcome) => {
       if (entry.running?.handle === handle) entry.running = undefined;
       if (this.docs.get(entry.uri) !== entry) return;

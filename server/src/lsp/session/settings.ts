@@ -3,8 +3,12 @@
 
 import type { UnitSystem } from "../../units/unit-table";
 
+/** "auto" shows figures in the system the spec is written in (model/written-units.ts); "si" or
+ * "us" shows every figure, messages included, in that system. */
+export type DisplayUnits = UnitSystem | "auto";
+
 export interface Settings {
-  displayUnits: UnitSystem;
+  displayUnits: DisplayUnits;
   /** Poses per degree of freedom while typing; 0 means the spec's own density. */
   stepsWhileTyping: number;
   diagnosticsDelayMs: number;
@@ -13,7 +17,7 @@ export interface Settings {
 }
 
 export const DEFAULT_SETTINGS: Readonly<Settings> = {
-  displayUnits: "si",
+  displayUnits: "auto",
   stepsWhileTyping: 13,
   diagnosticsDelayMs: 200,
   inlayHints: true,
@@ -32,6 +36,19 @@ function clampInt(value: unknown, [lo, hi]: readonly [number, number], fallback:
   return Math.min(hi, Math.max(lo, Math.round(value)));
 }
 
+function readDisplayUnits(value: unknown, fallback: DisplayUnits): DisplayUnits {
+  return value === "us" || value === "si" || value === "auto" ? value : fallback;
+}
+
+/** The system figures are shown in: the setting's, or with "auto" the one the analysis wrote its
+ * messages in (the spec's own), SI when there is none yet. */
+export function shownUnits(
+  settings: Pick<Settings, "displayUnits">,
+  analysis?: { units?: UnitSystem },
+): UnitSystem {
+  return settings.displayUnits === "auto" ? (analysis?.units ?? "si") : settings.displayUnits;
+}
+
 /** Reads settings from whatever shape arrives (a `counterpoise` section, or the section itself);
  * anything missing or malformed keeps its default. */
 export function readSettings(raw: unknown): Settings {
@@ -43,8 +60,7 @@ export function readSettings(raw: unknown): Settings {
   }
   const d = DEFAULT_SETTINGS;
   return {
-    displayUnits:
-      section["displayUnits"] === "us" ? "us" : section["displayUnits"] === "si" ? "si" : d.displayUnits,
+    displayUnits: readDisplayUnits(section["displayUnits"], d.displayUnits),
     stepsWhileTyping: clampInt(section["stepsWhileTyping"], LIMITS.stepsWhileTyping, d.stepsWhileTyping),
     diagnosticsDelayMs: clampInt(
       section["diagnosticsDelayMs"],
