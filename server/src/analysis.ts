@@ -4,6 +4,7 @@ import { parse } from "./syntax/parser";
 import { buildModel } from "./model/build";
 import { solveSweep } from "./mechanics/sweep";
 import { runChecks } from "./checks/index";
+import type { AgedReadouts } from "./checks/aged";
 import type { SyntaxTree } from "./syntax/ast";
 import type { ArmModel } from "./model/types";
 import type { SweepResult } from "./mechanics/types";
@@ -48,6 +49,8 @@ export interface Analysis {
   sweep?: SweepResult;
   findings: Finding[];
   readouts: Readouts;
+  /** The aged case's readouts, when the spec states one. */
+  aged?: AgedReadouts;
   /** The system its messages are written in (the reader's choice, else the spec's own). */
   units?: UnitSystem;
   /** Milliseconds spent in each phase. */
@@ -172,6 +175,7 @@ function analyseTree(
   if (checked) {
     findings.push(...checked.findings);
     result.readouts = checked.readouts;
+    if (checked.aged) result.aged = checked.aged;
     // `adjust` lines: the setting per payload mass, and the masses no setting balances.
     const adjusted = guard(
       () => adjustChecks(built.model!, sweep, checked.readouts, deadline),

@@ -7,6 +7,7 @@
 import { describe, expect, it } from "vitest";
 import { analyse, type Analysis } from "../../server/src/analysis";
 import { sectionProperties } from "../../server/src/model/section";
+import { resultsOf, resultsText } from "../../server/src/cli/results";
 
 const g = 9.80665;
 // Julian year of 365.25 days of 86 400 s (IAU; SI Brochure, 9th ed., table 8 for the day)
@@ -147,6 +148,49 @@ describe("aged case: a rubber cord relaxes and the arm sinks", () => {
     expect(found).toHaveLength(1);
     expect(found[0]!.message).not.toMatch(/Aged case/);
     expect(found[0]!.related.some((r) => /^Aged case, after 1 year/.test(r.message))).toBe(true);
+  });
+});
+
+describe("aged case in the results record (`poise results`)", () => {
+  const G = analyse(corded("", 100)).model!.materials["natural_latex"]!.shearModulus;
+  const forces = (kept: number) => ANGLES.map((t) => handForce(t, G, kept));
+  const { json, record } = resultsOf(corded("aged { after 1 year }", 100));
+  const aged = json["aged"] as {
+    after: number;
+    payloads: Record<string, { hand_force: [number, number] }>;
+    springs: Record<string, { force: [number, number] }>;
+  };
+
+  it("states how long, in days (the table unit of time), named in `units`", () => {
+    // 1 year = 365.25 d (IAU Julian year)
+    expect(aged.after).toBeCloseTo(365.25, 6);
+    expect((json["units"] as Record<string, string>)["time"]).toBe("days");
+  });
+
+  it("carries the aged payload's hand force beside the arm as built's", () => {
+    const builtHand = (json["payloads"] as Record<string, { hand_force: [number, number] }>)["lamp"]!
+      .hand_force;
+    // the pivoting link's law with the cord force as built and after a year (values from memory)
+    expect(builtHand[1]).toBeCloseTo(Math.max(...forces(1)), 4);
+    expect(aged.payloads["lamp"]!.hand_force[0]).toBeCloseTo(Math.min(...forces(cordKept(YEAR_S))), 4);
+    expect(aged.payloads["lamp"]!.hand_force[1]).toBeCloseTo(Math.max(...forces(cordKept(YEAR_S))), 4);
+  });
+
+  it("carries the aged cord's force: the relaxation rule times the force as built at each length", () => {
+    const built = (json["springs"] as Record<string, { force: [number, number] }>)["cord"]!.force;
+    // F(t) = F(t0) (1 - r log10(t / t0)) at every length (relaxation at a fixed stretch)
+    expect(aged.springs["cord"]!.force[0]).toBeCloseTo(built[0] * cordKept(YEAR_S), 3);
+    expect(aged.springs["cord"]!.force[1]).toBeCloseTo(built[1] * cordKept(YEAR_S), 3);
+  });
+
+  it("prints the aged case after the arm as built in the lines to read", () => {
+    const text = resultsText(record, "si");
+    expect(text).toMatch(/aged case, after 1 year[^\n]*\n  lamp +hand force/);
+    expect(text.indexOf("aged case")).toBeGreaterThan(text.indexOf("springs:"));
+  });
+
+  it("a spec without an aged case has no aged section", () => {
+    expect(resultsOf(corded("", 100)).json["aged"]).toBeUndefined();
   });
 });
 

@@ -15,7 +15,6 @@ import { INCH_TEXT } from "./inch-boom";
 // 1 lbf = 0.45359237 kg x 9.80665 m/s^2 = 4.4482216152605 N.
 const LBF_N = 0.45359237 * 9.80665;
 
-
 describe("messages follow the spec's units", () => {
   it("a spec in inches and pounds says its hand force in lbf", () => {
     const a = analyse(INCH_TEXT);

@@ -13,6 +13,14 @@ import { balanceChecks } from "./balance";
 import { checkStiffness } from "./stiffness";
 import { addFigures, type Figure, type Readouts } from "./readout";
 
+/** The aged case's readouts as its own checks wrote them (results tags kept), for the results
+ * record's `aged` section. */
+export interface AgedReadouts {
+  /** How long the load was held, s. */
+  afterS: number;
+  readouts: Readouts;
+}
+
 /** Runs the aged case when the model states one; adds its findings and figures to `ctx`. */
 export function checkAgedCase(ctx: CheckContext, solve: SolveOptions): void {
   const aged = ctx.model.aged;
@@ -37,6 +45,7 @@ export function checkAgedCase(ctx: CheckContext, solve: SolveOptions): void {
     else ctx.findings.push(agedFinding(f, words, at, factors.afterS));
   }
   addAgedFigures(ctx, agedCtx.readouts, factors);
+  ctx.aged = { afterS: factors.afterS, readouts: agedCtx.readouts };
 }
 
 /** "after 1 year (rubber cords' force 17 % lower, printed parts 49 % less stiff)". */

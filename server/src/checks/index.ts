@@ -16,7 +16,7 @@ import { checkTipping } from "./tipping";
 import { checkStiffness } from "./stiffness";
 import { checkSwivels } from "./swivels";
 import { checkSwivelBearings } from "./swivel-bearings";
-import { checkAgedCase } from "./aged";
+import { checkAgedCase, type AgedReadouts } from "./aged";
 import type { SolveOptions } from "../mechanics/sweep";
 
 export interface CheckOptions {
@@ -32,6 +32,8 @@ export interface CheckContext {
   options: CheckOptions;
   findings: Finding[];
   readouts: Readouts;
+  /** The aged case's own readouts, when the spec states one (checks/aged.ts). */
+  aged?: AgedReadouts;
 }
 
 export type CheckFamily = (ctx: CheckContext) => void;
@@ -56,10 +58,10 @@ export function runChecks(
   model: ArmModel,
   sweep: SweepResult,
   options: CheckOptions,
-): { findings: Finding[]; readouts: Readouts } {
+): { findings: Finding[]; readouts: Readouts; aged?: AgedReadouts } {
   const ctx: CheckContext = { model, sweep, options, findings: [], readouts: {} };
   for (const family of FAMILIES) family(ctx);
   // The aged case last: it solves the arm again and repeats no finding the arm as built has.
   checkAgedCase(ctx, options.solve ?? {});
-  return { findings: ctx.findings, readouts: ctx.readouts };
+  return { findings: ctx.findings, readouts: ctx.readouts, ...(ctx.aged ? { aged: ctx.aged } : {}) };
 }

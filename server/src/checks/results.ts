@@ -8,6 +8,7 @@ import type { DimensionName } from "../units/dimension";
 import type { UnitSystem } from "../units/unit-table";
 import { tableUnit, toTableUnit } from "../units/format";
 import { checkOf, type Figure, type PartKind, type Readouts } from "./readout";
+import type { AgedReadouts } from "./aged";
 
 /** A figure of the record, SI: a value, or a [least, greatest] pair. */
 export interface ResultFigure {
@@ -90,12 +91,25 @@ export interface ResultsRecord {
   baseId?: string;
   /** Figures of the arm as a whole (the lowest natural frequency). */
   arm: FigureMap;
+  /** The aged case's figures, when the spec states one: the payloads' and springs' sections and
+   * the arm's, as the aged case's checks give them (its parts' safety factors are not computed:
+   * the aged case re-checks balance and stiffness only). */
+  aged?: AgedResults;
+}
+
+export interface AgedResults {
+  /** How long the load was held, s. */
+  afterS: number;
+  payloads: Record<string, FigureMap>;
+  springs: Record<string, FigureMap>;
+  arm: FigureMap;
 }
 
 /** What the record needs of an analysis (an `Analysis` fits). */
 export interface ResultsInput {
   model?: ArmModel;
   readouts: Readouts;
+  aged?: AgedReadouts;
 }
 
 function toResult(f: Figure): ResultFigure {
@@ -114,7 +128,20 @@ function withKeys(keys: readonly string[]): FigureMap {
 }
 
 export function buildResults(input: ResultsInput): ResultsRecord {
-  const { model, readouts } = input;
+  const record = buildRecord(input.model, input.readouts);
+  if (input.aged) {
+    const aged = buildRecord(input.model, input.aged.readouts);
+    record.aged = {
+      afterS: input.aged.afterS,
+      payloads: aged.sections["payloads"] ?? {},
+      springs: aged.sections["springs"] ?? {},
+      arm: aged.arm,
+    };
+  }
+  return record;
+}
+
+function buildRecord(model: ArmModel | undefined, readouts: Readouts): ResultsRecord {
   const record: ResultsRecord = {
     ...(model?.base ? { baseId: model.base.bodyId } : {}),
     parts: {},
@@ -195,6 +222,11 @@ function unitsOf(record: ResultsRecord, system: UnitSystem): Record<string, stri
   visit(record.base);
   visit(record.arm);
   for (const section of Object.values(record.sections)) for (const m of Object.values(section)) visit(m);
+  if (record.aged) {
+    used.add("time");
+    visit(record.aged.arm);
+    for (const m of [...Object.values(record.aged.payloads), ...Object.values(record.aged.springs)]) visit(m);
+  }
   return Object.fromEntries([...used].map((d) => [d, tableUnit(d, system)]));
 }
 
@@ -224,5 +256,18 @@ export function resultsJson(record: ResultsRecord, system: UnitSystem): Record<s
   for (const s of RESULT_SECTIONS)
     if (s.name !== "payloads" && !(s.onlyTagged && Object.keys(record.sections[s.name] ?? {}).length === 0))
       out[s.name] = section(s.name);
+  if (record.aged) out["aged"] = agedJson(record.aged, system);
   return out;
+}
+
+/** The aged case's section: `after` in the table unit of time (named in `units`, as `time`). */
+function agedJson(aged: AgedResults, system: UnitSystem): Record<string, unknown> {
+  const sectionJson = (m: Record<string, FigureMap>) =>
+    Object.fromEntries(Object.entries(m).map(([id, f]) => [id, jsonFigures(f, system)]));
+  return {
+    after: jsonFigure({ value: aged.afterS, dimension: "time" }, system),
+    payloads: sectionJson(aged.payloads),
+    ...Object.fromEntries(Object.entries(aged.arm).map(([k, f]) => [k, jsonFigure(f, system)])),
+    springs: sectionJson(aged.springs),
+  };
 }

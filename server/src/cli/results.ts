@@ -8,6 +8,7 @@ import {
   buildResults,
   RESULT_SECTIONS,
   resultsJson,
+  type AgedResults,
   type FigureMap,
   type ResultsRecord,
 } from "../checks/results";
@@ -15,6 +16,7 @@ import { formatNumber } from "../units/format";
 import { tableUnit, toTableUnit } from "../units/format";
 import type { UnitSystem } from "../units/unit-table";
 import { readSpec, type Output } from "./io";
+import { durationWords } from "../model/ageing";
 
 const USAGE = "poise results FILE [--json] [--units si|us]";
 
@@ -117,8 +119,26 @@ export function resultsText(record: ResultsRecord, system: UnitSystem): string {
   const units = (["length", "force", "torque", "angle", "frequency"] as const)
     .map((d) => `${d} ${tableUnit(d, system)}`)
     .join(", ");
+  if (record.aged) agedLines(record.aged, system, lines, width);
   lines.push(`units: ${units}; safety factors are plain numbers; - where not computed or unlimited`);
   return `${lines.join("\n")}\n`;
+}
+
+/** The aged case's figures, after the arm as built's. */
+function agedLines(
+  aged: AgedResults,
+  system: UnitSystem,
+  lines: string[],
+  width: (ids: string[]) => number,
+): void {
+  lines.push(`aged case, after ${durationWords(aged.afterS)} (balance and stiffness re-checked):`);
+  const ids = [...Object.keys(aged.payloads), ...Object.keys(aged.springs)];
+  const w = width(ids);
+  for (const [id, map] of Object.entries(aged.payloads))
+    lines.push(`  ${id.padEnd(w)}  ${figureText(map, system)}`);
+  lines.push(`  ${figureText(aged.arm, system)}`);
+  for (const [id, map] of Object.entries(aged.springs))
+    lines.push(`  ${id.padEnd(w)}  ${figureText(map, system)}`);
 }
 
 export function runResults(args: string[], out: Output): number {
