@@ -64,6 +64,19 @@ describe("a pivoting link with friction that sinks low and rises high", () => {
   });
 });
 
+describe("a pivot whose friction holds the whole range", () => {
+  // With friction above the largest |holding torque| over the range (closed form above), the hand
+  // supplies nothing anywhere: the readout says so instead of naming one pose for both ends.
+  const angles = Array.from({ length: 121 }, (_, i) => ((-60 + i) * Math.PI) / 180);
+  const most = Math.max(...angles.map((t) => Math.abs(holdingTorque(t))));
+  const held = analyse(spec.replace(/friction [\d.]+ N\*m/, `friction ${(most * 1.5).toFixed(4)} N*m`));
+  it("reads 0 .. 0, none needed at any pose", () => {
+    const fig = held.readouts["lamp"]!.figures.find((f) => f.result?.key === "hand_force")!;
+    expect([fig.value, fig.high]).toEqual([0, 0]);
+    expect(fig.where).toBe("none needed at any pose");
+  });
+});
+
 describe("the best fit counts friction as free", () => {
   // Zero-length spring at half the ideal rate, friction f at the pivot: tau = (m g l - k a b)
   // cos(theta) (Streit and Gilmore 1989). Any rate with |m g l - k a b| <= f holds the arm

@@ -450,7 +450,14 @@ function payloadReadouts(ctx: CheckContext): void {
           key: "hand_force",
           limit: model.require.balance.byPayload[p.id] ?? model.require.balance.default,
         },
-        where: `least ${poseWhere(sweep, lo.pose, lo.ci)}; greatest ${poseWhere(sweep, hi.pose, hi.ci)}`,
+        // The least is the greatest only when every pose gives the same figure (friction holding
+        // the whole range, or nothing to hold, gives 0 everywhere): naming one pose for both misleads.
+        where:
+          lo.v === hi.v
+            ? lo.v === 0
+              ? "none needed at any pose"
+              : "the same at every pose"
+            : `least ${poseWhere(sweep, lo.pose, lo.ci)}; greatest ${poseWhere(sweep, hi.pose, hi.ci)}`,
       });
     if (figures.length > 0) addFigures(ctx.readouts, p.id, "payload", figures);
   }
