@@ -9,6 +9,7 @@ import type { UnitSystem } from "../units/unit-table";
 import { tableUnit, toTableUnit } from "../units/format";
 import { checkOf, type Figure, type PartKind, type Readouts } from "./readout";
 import type { AgedReadouts } from "./aged";
+import { durationWords } from "../model/ageing";
 
 /** A figure of the record, SI: a value, or a [least, greatest] pair. */
 export interface ResultFigure {
@@ -98,8 +99,9 @@ export interface ResultsRecord {
 }
 
 export interface AgedResults {
-  /** How long the load was held, s. */
+  /** How long the load was held, s, and in words ("1 year"). */
   afterS: number;
+  afterWords: string;
   payloads: Record<string, FigureMap>;
   springs: Record<string, FigureMap>;
   arm: FigureMap;
@@ -133,6 +135,7 @@ export function buildResults(input: ResultsInput): ResultsRecord {
     const aged = buildRecord(input.model, input.aged.readouts);
     record.aged = {
       afterS: input.aged.afterS,
+      afterWords: durationWords(input.aged.afterS),
       payloads: aged.sections["payloads"] ?? {},
       springs: aged.sections["springs"] ?? {},
       arm: aged.arm,

@@ -16,7 +16,6 @@ import { formatNumber } from "../units/format";
 import { tableUnit, toTableUnit } from "../units/format";
 import type { UnitSystem } from "../units/unit-table";
 import { readSpec, type Output } from "./io";
-import { durationWords } from "../model/ageing";
 
 const USAGE = "poise results FILE [--json] [--units si|us]";
 
@@ -131,7 +130,7 @@ function agedLines(
   lines: string[],
   width: (ids: string[]) => number,
 ): void {
-  lines.push(`aged case, after ${durationWords(aged.afterS)} (balance and stiffness re-checked):`);
+  lines.push(`aged case, after ${aged.afterWords} (balance and stiffness re-checked):`);
   const ids = [...Object.keys(aged.payloads), ...Object.keys(aged.springs)];
   const w = width(ids);
   for (const [id, map] of Object.entries(aged.payloads))
