@@ -8,7 +8,7 @@ import { coarsePitch, COARSE_SIZES_MM } from "./metric-threads";
 import { quantityValue, readChoice, readQuantity, readWord, type Read, type Values } from "./read-values";
 import { listWords, type BuildContext, type Props } from "./build-context";
 import { materialOf } from "./build-parts";
-import { positiveQuantity } from "./read-props";
+import { boundedQuantity } from "./read-props";
 import { atJoint } from "./spring-kinds";
 
 /** The screws' class when `screws` names none: plain machine screws are commonly class 4.8 (the
@@ -84,7 +84,7 @@ function positive(
   key: string,
   dim: "length" | "force" | "area",
 ): Read<number> | undefined {
-  return positiveQuantity(ctx, p, key, dim, `\`${key}\``);
+  return boundedQuantity(ctx, p, key, dim, `\`${key}\``, "positive");
 }
 
 /** `N x SIZE` then, where `material` is not "none", a material word (optional when "optional"). */

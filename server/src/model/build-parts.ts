@@ -17,7 +17,7 @@ import {
   type Read,
 } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
-import { nonNegativeQuantity, positiveQuantity, readConnects } from "./read-props";
+import { boundedQuantity, readConnects } from "./read-props";
 import type { Span } from "../syntax/span";
 import { MAX_JOINT_ANGLE_RAD } from "../limits";
 
@@ -73,7 +73,7 @@ export function buildMaterial(ctx: BuildContext, p: Props, id: string): Material
 
 /** A quantity that must be positive (sizes, lengths); reports zero or negative values. */
 function positiveLength(ctx: BuildContext, p: Props, key: string, what: string): Read<number> | undefined {
-  return positiveQuantity(ctx, p, key, "length", what);
+  return boundedQuantity(ctx, p, key, "length", what, "positive");
 }
 
 /** `point NAME (x, y)` properties (also written `point NAME(x, y)`). */
@@ -228,7 +228,7 @@ function readMode(ctx: BuildContext, p: Props): { angle: number; mode: JointMode
 // ---- base ----
 
 export function buildBase(ctx: BuildContext, p: Props, id: string): { body: Body; base: Base } {
-  const mass = nonNegativeQuantity(ctx, p, "mass", "mass", "a mass");
+  const mass = boundedQuantity(ctx, p, "mass", "mass", "a mass", "non-negative");
   let footprint: Base["footprint"];
   const fv = p.values("footprint");
   if (fv) {
@@ -286,7 +286,7 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
     sv.finish();
   }
   const material = materialOf(ctx, p, "material");
-  const mass = nonNegativeQuantity(ctx, p, "mass", "mass", "a mass");
+  const mass = boundedQuantity(ctx, p, "mass", "mass", "a mass", "non-negative");
   if (!p.has("mass") && (!p.has("section") || !p.has("material"))) {
     for (const k of ["section", "material"]) if (!p.has(k)) p.missing(k, " (or `mass`)");
   }
@@ -330,7 +330,7 @@ export function buildLink(ctx: BuildContext, p: Props, id: string): Body {
 export function buildJoint(ctx: BuildContext, p: Props, id: string): Joint | undefined {
   const { angle, mode, range } = readMode(ctx, p);
   const pin = readPin(ctx, p, "pin", "shear");
-  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction");
+  const friction = boundedQuantity(ctx, p, "friction", "torque", "friction", "non-negative");
   const ends = readConnects(
     ctx,
     p,
@@ -392,10 +392,10 @@ export function buildParallelogram(ctx: BuildContext, p: Props, id: string): Par
     bv.finish();
     material = m ? ctx.resolveMaterial(m) : undefined;
   }
-  const headMass = nonNegativeQuantity(ctx, p, "head_mass", "mass", "a mass");
+  const headMass = boundedQuantity(ctx, p, "head_mass", "mass", "a mass", "non-negative");
   const { angle, mode, range } = readMode(ctx, p);
   const pin = readPin(ctx, p, "pins", "shear");
-  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction");
+  const friction = boundedQuantity(ctx, p, "friction", "torque", "friction", "non-negative");
   const origin = p.origin(id);
   const density = material ? (ctx.materials[material]?.density ?? 0) : 0;
   const area = section ? sectionProperties(section).area : 0;

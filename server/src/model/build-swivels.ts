@@ -5,7 +5,7 @@
 import type { Base, Joint, Spring, Swivel } from "./types";
 import { readQuantity, readRange, readWord, type Values } from "./read-values";
 import type { BuildContext, Props } from "./build-context";
-import { nonNegativeQuantity, readConnects } from "./read-props";
+import { boundedQuantity, readConnects } from "./read-props";
 
 /** A heading range wider than a full turn says nothing more than a full turn. */
 const FULL_TURN = 2 * Math.PI;
@@ -66,7 +66,7 @@ export function buildSwivel(
   }
   const heading = readHeading(ctx, p);
   const bearings = readSwivelBearings(ctx, p);
-  const friction = nonNegativeQuantity(ctx, p, "friction", "torque", "friction")?.value;
+  const friction = boundedQuantity(ctx, p, "friction", "torque", "friction", "non-negative")?.value;
   const ends = readConnects(
     ctx,
     p,

@@ -5,46 +5,26 @@ import type { BuildContext, Props } from "./build-context";
 import type { Attachment } from "./types";
 import type { DimensionName } from "../units/dimension";
 
-/** A single quantity under `key` that must be above zero (`allowZero` false) or not below it;
- * `what` names it in the message. A value out of bounds is said and dropped. */
-function boundedQuantity(
+/** A single quantity under `key` that must be above zero ("positive") or not below it
+ * ("non-negative"); `what` names it in the message. A value out of bounds is said and dropped. */
+export function boundedQuantity(
   ctx: BuildContext,
   p: Props,
   key: string,
   dim: DimensionName,
   what: string,
-  allowZero: boolean,
+  bound: "positive" | "non-negative",
 ): Read<number> | undefined {
   const v = p.values(key);
   if (!v) return undefined;
   const q = readQuantity(v, [dim]);
   v.finish();
-  if (q && (allowZero ? q.value < 0 : q.value <= 0)) {
-    const rule = allowZero ? "cannot be negative" : "must be positive";
+  if (q && (bound === "non-negative" ? q.value < 0 : q.value <= 0)) {
+    const rule = bound === "non-negative" ? "cannot be negative" : "must be positive";
     ctx.r.add("value.impossible", q.span, `${what} ${rule}, got ${ctx.r.quote(q.span)}`);
     return undefined;
   }
   return q;
-}
-
-export function positiveQuantity(
-  ctx: BuildContext,
-  p: Props,
-  key: string,
-  dim: DimensionName,
-  what: string,
-): Read<number> | undefined {
-  return boundedQuantity(ctx, p, key, dim, what, false);
-}
-
-export function nonNegativeQuantity(
-  ctx: BuildContext,
-  p: Props,
-  key: string,
-  dim: DimensionName,
-  what: string,
-): Read<number> | undefined {
-  return boundedQuantity(ctx, p, key, dim, what, true);
 }
 
 /** `connects PARENT.POINT to CHILD.POINT`, resolved; undefined (after saying why) when it is
