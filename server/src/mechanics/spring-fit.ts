@@ -17,6 +17,7 @@ import { handForceVector, torqueBeyondFriction } from "./hand-force";
 import { rotate } from "./plane";
 import { pastDeadline } from "../stop";
 import { springDofValue } from "./spring-table";
+import { narrowBracket } from "./golden-section";
 
 /** Golden-section iterations per parameter: the bracket shrinks by 0.618 each, so 30 reach
  * 5e-7 of the bracket, past the four significant digits a quick fix writes. */
@@ -285,28 +286,7 @@ function worstFirst(s: FitSamples, p0: number, p1: number): number[] {
 }
 
 function golden(f: (x: number) => number, lo: number, hi: number): number {
-  const r = (Math.sqrt(5) - 1) / 2;
-  let a = lo;
-  let b = hi;
-  let x1 = b - r * (b - a);
-  let x2 = a + r * (b - a);
-  let f1 = f(x1);
-  let f2 = f(x2);
-  for (let i = 0; i < GOLDEN_ITERATIONS; i++) {
-    if (f1 <= f2) {
-      b = x2;
-      x2 = x1;
-      f2 = f1;
-      x1 = b - r * (b - a);
-      f1 = f(x1);
-    } else {
-      a = x1;
-      x1 = x2;
-      f1 = f2;
-      x2 = a + r * (b - a);
-      f2 = f(x2);
-    }
-  }
+  const [a, b] = narrowBracket(f, lo, hi, (_width, step) => step < GOLDEN_ITERATIONS);
   // The minimum often sits on the bracket's low end (no initial tension, no spring): golden
   // section only creeps towards an end, so look at it.
   const mid = (a + b) / 2;

@@ -9,6 +9,7 @@
 // an anchor creates. Bounded: by evaluations, and by the cooperative stop (stop.ts), which
 // is asked before every evaluation.
 import { pastDeadline } from "../stop";
+import { narrowBracket } from "../mechanics/golden-section";
 
 export interface SearchOptions {
   /** The most evaluations (the search ends with the best found so far). */
@@ -40,7 +41,6 @@ export interface Box {
   start: number[];
 }
 
-const GOLDEN = (Math.sqrt(5) - 1) / 2;
 /** Normalised size below which a simplex or bracket counts as converged. */
 const TOLERANCE = 1e-9;
 
@@ -196,27 +196,7 @@ export function goldenSection(
   hi: number,
   tolerance = TOLERANCE,
 ): number {
-  let a = lo;
-  let b = hi;
-  let c = b - GOLDEN * (b - a);
-  let d = a + GOLDEN * (b - a);
-  let fc = f(c);
-  let fd = f(d);
-  while (b - a > tolerance) {
-    if (fc <= fd) {
-      b = d;
-      d = c;
-      fd = fc;
-      c = b - GOLDEN * (b - a);
-      fc = f(c);
-    } else {
-      a = c;
-      c = d;
-      fc = fd;
-      d = a + GOLDEN * (b - a);
-      fd = f(d);
-    }
-  }
+  const [a, b] = narrowBracket(f, lo, hi, (width) => width > tolerance);
   const m = (a + b) / 2;
   return f(m) <= Math.min(f(lo), f(hi)) ? m : f(lo) <= f(hi) ? lo : hi;
 }
