@@ -196,26 +196,113 @@ function affineHandAt(d: Float64Array, i: number, p0: number, p1: number): numbe
   return Math.hypot(d[o]! + d[o + 2]! * df, d[o + 1]! + d[o + 3]! * df);
 }
 
-/** Squares of the hand forces of the last worstOf call (reused: the search is single-threaded). */
-let squares = new Float64Array(256);
 /** Below this squared force (N^2) a square may have underflowed, and above the largest finite
- * double it has overflowed: there worstOf falls back to Math.hypot on every sample. */
+ * double it has overflowed: there the scans fall back to Math.hypot on every sample. */
 const SQUARE_FLOOR = 1e-280;
 /** Samples whose squared force lies within this fraction of the largest square are re-measured
  * with Math.hypot: hypot and a sum of squares rank two forces alike unless they agree to a few
  * ulps (1e-15), so the sample hypot ranks first is always among them. */
 const SQUARE_MARGIN = 1e-12;
+const NEAR_TOP = 1 - SQUARE_MARGIN;
 
-/** The worst hand force over the first `count` samples of `d`: exactly the largest handAt (its
- * Math.hypot), found by ranking squares first and calling hypot only near the top. */
-function worstOf(s: FitSamples, p0: number, p1: number): number {
+/** c0 p0 of every sample, for the last samples and p0 asked: the inner search holds p0 over its
+ * thirty-odd evaluations, so the product is formed once per sample, not once per evaluation. It
+ * is the same double, and the spring-force change stays (c0 p0 + c1 p1) - force, in that order. */
+let firstTerms = new Float64Array(256);
+let firstTermsSamples: FitSamples | undefined;
+let firstTermsP0 = NaN;
+
+function firstTermsOf(s: FitSamples, p0: number): Float64Array {
+  if (s === firstTermsSamples && Object.is(p0, firstTermsP0)) return firstTerms;
   const { data: d, count } = s;
-  if (s.friction) {
-    let w = 0;
-    for (let i = 0; i < count; i++) w = Math.max(w, handAt(s, i, p0, p1));
-    return w;
+  if (firstTerms.length < count) firstTerms = new Float64Array(2 * count);
+  for (let i = 0, o = 5; i < count; i++, o += 7) firstTerms[i] = d[o]! * p0;
+  firstTermsSamples = s;
+  firstTermsP0 = p0;
+  return firstTerms;
+}
+
+/** The samples of the last scan whose square came within SQUARE_MARGIN of the running largest,
+ * with their squares and force components (typed arrays, reused: the search is single-threaded;
+ * in the untuned tier a second pass over every sample costs as much as a third of the first). */
+let nearCount = 0;
+let nearSquare = new Float64Array(256);
+let nearX = new Float64Array(256);
+let nearY = new Float64Array(256);
+
+function reserveNear(count: number): void {
+  if (nearSquare.length >= count) return;
+  nearSquare = new Float64Array(2 * count);
+  nearX = new Float64Array(2 * count);
+  nearY = new Float64Array(2 * count);
+}
+
+/** The largest Math.hypot among the kept samples whose square is within SQUARE_MARGIN of `top`
+ * (the largest square of the scan): every sample that can rank first by hypot is kept, because
+ * the running largest never exceeds `top`. */
+function largestNearTop(top: number): number {
+  const threshold = top * NEAR_TOP;
+  let w = 0;
+  for (let k = 0; k < nearCount; k++) {
+    if (!(nearSquare[k]! >= threshold)) continue;
+    const x = nearX[k]!;
+    const y = nearY[k]!;
+    const v = x === 0 && y === 0 ? 0 : Math.hypot(x, y);
+    if (v > w) w = v;
   }
-  return worstWithoutFriction(s, p0, p1);
+  return w;
+}
+
+/** The worst hand force over the samples: exactly the largest handAt (its Math.hypot, and NaN
+ * with friction when a sample is NaN, as Math.max gives it), found by ranking squares in one pass
+ * and calling hypot only near the top. */
+function worstOf(s: FitSamples, p0: number, p1: number): number {
+  if (!s.friction) return worstWithoutFriction(s, p0, p1);
+  const top = keepNearTopWithFriction(s, s.friction, firstTermsOf(s, p0), p1);
+  // A largest square of 0 (friction holds every sample, the usual case) kept every sample.
+  if ((top > SQUARE_FLOOR || top === 0) && top < Infinity) return largestNearTop(top);
+  let w = 0;
+  for (let i = 0; i < s.count; i++) w = Math.max(w, handAt(s, i, p0, p1));
+  return w;
+}
+
+/** One pass with friction: the hand force's components of every sample (handAtWithFriction's
+ * arithmetic, inline: no calls per sample), keeping those near the running largest square.
+ * Returns the largest square, NaN when some sample's is NaN. */
+function keepNearTopWithFriction(
+  s: FitSamples,
+  f: NonNullable<FitSamples["friction"]>,
+  first: Float64Array,
+  p1: number,
+): number {
+  const { data: d, count } = s;
+  const { ndof: n, perDof, torques: T } = f;
+  const fw = frictionWidth(n);
+  reserveNear(count);
+  let top = 0;
+  let keep = 0;
+  let kept = 0;
+  let nan = false;
+  for (let i = 0, o = 0, t = 0; i < count; i++, o += 7, t += fw) {
+    const df = first[i]! + d[o + 6]! * p1 - d[o + 4]!;
+    let x = 0;
+    let y = 0;
+    for (let k = 0; k < n; k++) {
+      const torque = T[t + 2 * n + k]! + T[t + 3 * n + k]! * df;
+      const fr = perDof[k]!;
+      // torqueBeyondFriction (hand-force.ts), per dof.
+      const beyond = torque > fr ? torque - fr : torque < -fr ? torque + fr : 0;
+      x += T[t + k]! * beyond;
+      y += T[t + n + k]! * beyond;
+    }
+    const v = x * x + y * y;
+    if (v >= keep) {
+      if (v > top) ((top = v), (keep = top * NEAR_TOP));
+      ((nearSquare[kept] = v), (nearX[kept] = x), (nearY[kept++] = y));
+    } else if (!(v < keep)) nan = true;
+  }
+  nearCount = kept;
+  return nan ? NaN : top;
 }
 
 /** What the search minimises: the worst hand force, and with friction a small share of the worst
@@ -232,32 +319,30 @@ function objective(s: FitSamples, p0: number, p1: number): number {
  * inside a band where friction holds everything (common practice, no source). */
 const FRICTION_TIE_BREAK = 1e-3;
 
-/** The worst hand force of the affine parts a + b df (no friction). */
+/** The worst hand force of the affine parts a + b df (no friction): exactly the largest
+ * affineHandAt, from one pass that keeps the samples near the running largest square. A NaN
+ * sample never counts. */
 function worstWithoutFriction(s: FitSamples, p0: number, p1: number): number {
   const { data: d, count } = s;
-  if (squares.length < count) squares = new Float64Array(2 * count);
-  const sq = squares;
+  const first = firstTermsOf(s, p0);
+  reserveNear(count);
   let top = 0;
-  for (let i = 0; i < count; i++) {
-    const o = 7 * i;
-    const df = d[o + 5]! * p0 + d[o + 6]! * p1 - d[o + 4]!;
+  let keep = 0;
+  let kept = 0;
+  for (let i = 0, o = 0; i < count; i++, o += 7) {
+    const df = first[i]! + d[o + 6]! * p1 - d[o + 4]!;
     const x = d[o]! + d[o + 2]! * df;
     const y = d[o + 1]! + d[o + 3]! * df;
     const v = x * x + y * y;
-    sq[i] = v;
-    if (v > top) top = v;
-  }
-  let w = 0;
-  if (!(top > SQUARE_FLOOR && top < Infinity)) {
-    for (let i = 0; i < count; i++) {
-      const v = affineHandAt(d, i, p0, p1);
-      if (v > w) w = v;
+    if (v >= keep) {
+      if (v > top) ((top = v), (keep = top * NEAR_TOP));
+      ((nearSquare[kept] = v), (nearX[kept] = x), (nearY[kept++] = y));
     }
-    return w;
   }
-  const threshold = top * (1 - SQUARE_MARGIN);
+  nearCount = kept;
+  if (top > SQUARE_FLOOR && top < Infinity) return largestNearTop(top);
+  let w = 0;
   for (let i = 0; i < count; i++) {
-    if (!(sq[i]! >= threshold)) continue;
     const v = affineHandAt(d, i, p0, p1);
     if (v > w) w = v;
   }
@@ -277,12 +362,29 @@ function gather(s: FitSamples, idx: ArrayLike<number>): FitSamples {
   return { count: idx.length, data: out, friction: { ...s.friction, torques } };
 }
 
-/** Sample indices, worst hand force first. */
-function worstFirst(s: FitSamples, p0: number, p1: number): number[] {
+/** The `k` sample indices of the largest hand force, largest first and ties in sample order: the
+ * first k of a stable sort, picked by insertion into a short list instead of sorting every sample
+ * (a non-finite force takes the sort itself, whose order the comparator then decides). */
+function worstFirst(s: FitSamples, p0: number, p1: number, k: number): number[] {
   const count = s.count;
   const v = new Float64Array(count);
   for (let i = 0; i < count; i++) v[i] = handAt(s, i, p0, p1);
-  return Array.from({ length: count }, (_, i) => i).sort((i, j) => v[j]! - v[i]!);
+  const picked: number[] = [];
+  for (let i = 0; i < count; i++) {
+    const vi = v[i]!;
+    if (!(vi >= 0 && vi < Infinity)) return sortedWorstFirst(v).slice(0, k);
+    if (picked.length === k && !(vi > v[picked[k - 1]!]!)) continue;
+    // After every picked force at least as large: ties keep sample order.
+    let at = picked.length;
+    while (at > 0 && v[picked[at - 1]!]! < vi) at--;
+    picked.splice(at, 0, i);
+    if (picked.length > k) picked.pop();
+  }
+  return picked;
+}
+
+function sortedWorstFirst(v: Float64Array): number[] {
+  return Array.from({ length: v.length }, (_, i) => i).sort((i, j) => v[j]! - v[i]!);
 }
 
 function golden(f: (x: number) => number, lo: number, hi: number): number {
@@ -341,7 +443,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   const hi1 = span1;
 
   // Active set: the worst poses now, plus an even spread.
-  const active = new Set<number>(worstFirst(samples, c0, c1).slice(0, ACTIVE_SEED));
+  const active = new Set<number>(worstFirst(samples, c0, c1, ACTIVE_SEED));
   const stride = Math.max(1, Math.floor(count / ACTIVE_SEED));
   for (let i = 0; i < count; i += stride) active.add(i);
   let best: [number, number] = [c0, c1];
@@ -354,7 +456,7 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
     const activeWorst = worstOf(act, best[0], best[1]);
     const fullWorst = worstOf(samples, best[0], best[1]);
     if (fullWorst <= activeWorst * (1 + 1e-9) + 1e-12) break;
-    for (const i of worstFirst(samples, best[0], best[1]).slice(0, ACTIVE_ADD)) active.add(i);
+    for (const i of worstFirst(samples, best[0], best[1], ACTIVE_ADD)) active.add(i);
   }
   let after = worstOf(samples, best[0], best[1]);
   // No better than the settings as written (friction may already hold everything): keep them.
