@@ -3,7 +3,11 @@
 // first); at heading 0 it is a straight cantilever (Roark). The turned placement moves only what
 // the swivel carries.
 import { describe, expect, it } from "vitest";
-import { buildArmFrame } from "../../server/src/mechanics/structure/arm-frame";
+import {
+  armStructure,
+  buildArmFrame,
+  loadArmFrame,
+} from "../../server/src/mechanics/structure/arm-frame";
 import { Placement } from "../../server/src/mechanics/headings";
 import { sectionProperties } from "../../server/src/model/section";
 import { G, treeSweep } from "./arm-fixture";
@@ -57,5 +61,21 @@ describe("the space frame with a swivel turned", () => {
     expect(tip.x).toBeCloseTo(L1, 12);
     expect(tip.y).toBeCloseTo(0.3, 12);
     expect(tip.z).toBeCloseTo(-L2, 12);
+  });
+
+  it("one structure loaded case by case gives each case's own frame to the last bit", () => {
+    const headings = { knuckle: Math.PI / 3 };
+    const structure = armStructure(model, pose, { headings });
+    for (const mass of [P / G, (2 * P) / G]) {
+      const own = buildArmFrame(model, pose, pose.cases[0], { tool: mass }, { headings });
+      const shared = loadArmFrame(model, structure, pose.cases[0], { tool: mass });
+      expect(Array.from(shared.frame.solveStatic()!.raw)).toEqual(Array.from(own.frame.solveStatic()!.raw));
+      expect(shared.frame.naturalFrequencies(1)).toEqual(own.frame.naturalFrequencies(1));
+      // twice the payload, twice the tip deflection (the frame is linear; Hooke)
+      const u = shared.frame.solveStatic()!.displacement(shared.payloadNode["tool"]!).translation;
+      const u1 = loadArmFrame(model, structure, pose.cases[0], { tool: P / G }).frame.solveStatic()!;
+      const ratio = u.y / u1.displacement(shared.payloadNode["tool"]!).translation.y;
+      expect(ratio).toBeCloseTo(mass / (P / G), 9);
+    }
   });
 });

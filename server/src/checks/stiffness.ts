@@ -7,7 +7,12 @@ import type { ArmModel, Body, Parallelogram } from "../model/types";
 import type { Span } from "../findings/span";
 import { tiltShares } from "../mechanics/structure/tilt-share";
 import type { Pose, SweepResult } from "../mechanics/types";
-import { buildArmFrame, type ArmFrame } from "../mechanics/structure/arm-frame";
+import {
+  armStructure,
+  loadArmFrame,
+  type ArmFrame,
+  type ArmStructure,
+} from "../mechanics/structure/arm-frame";
 import {
   headingSets,
   isQuarterTurn,
@@ -191,13 +196,13 @@ export function checkStiffness(ctx: CheckContext): void {
     const turnedHere = sweep.quick ? pose === (farthest ?? poses[0]) : pose === poses[0] || pose === farthest;
     const sets = turnedHere ? turnedSets : turnedSets.slice(0, 1);
     for (const headings of sets) {
-      // the load cases of one pose and heading differ in loads and masses only: one factorisation
-      let firstCase: ArmFrame | undefined;
+      // the load cases of one pose and heading differ in loads and masses only: one structure,
+      // one factorisation
+      let structure: ArmStructure | undefined;
       for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
         if (pastDeadline(ctx.options.deadline)) break;
-        const af = buildArmFrame(model, pose, pose.cases[ci], payloadMasses(model, sweep, ci), { headings });
-        if (firstCase) af.frame.shareFactorisationOf(firstCase.frame);
-        else firstCase = af;
+        structure ??= armStructure(model, pose, { headings });
+        const af = loadArmFrame(model, structure, pose.cases[ci], payloadMasses(model, sweep, ci));
         const sol = af.frame.solveStatic();
         if (!sol) {
           if (!unsolved.includes(pose)) unsolved.push(pose);

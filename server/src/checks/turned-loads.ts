@@ -8,7 +8,7 @@
 import type { ArmModel, Body, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
-import { buildArmFrame } from "../mechanics/structure/arm-frame";
+import { armStructure, loadArmFrame, type ArmStructure } from "../mechanics/structure/arm-frame";
 import { combinedStress, type CombinedStress } from "../mechanics/structure/combined-stress";
 import { jointWrench, pinLoadOf, type PinLoad } from "../mechanics/structure/joint-wrench";
 import { headingSets, loadsAcross, turningSwivels, type Headings } from "../mechanics/headings";
@@ -132,21 +132,22 @@ export function turnedLoadsAt(
     tables.set(b.id, { body: b, sec: sectionProperties(b.section), mat, round: b.section.shape !== "rect" });
   }
   const jointIds = model.joints.filter((j) => j.pin || j.bearing).map((j) => j.id);
+  // the level: every heading at 0 and, with working forces across the plane, those left out
+  const runs: { headings: Headings; inPlane: boolean }[] = [
+    ...(across ? [{ headings: {}, inPlane: true }] : []),
+    ...sets.map((headings) => ({ headings, inPlane: false })),
+  ];
   for (const pose of poses) {
+    // each run's frame at this pose, shared by the load cases (they differ in loads only)
+    const structures: ArmStructure[] = [];
     for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
       if (pastDeadline(ctx.options.deadline)) return groups;
       const masses = payloadMasses(model, sweep, ci);
-      // the level: every heading at 0 and, with working forces across the plane, those left out
-      const runs: { headings: Headings; inPlane: boolean }[] = [
-        ...(across ? [{ headings: {}, inPlane: true }] : []),
-        ...sets.map((headings) => ({ headings, inPlane: false })),
-      ];
       const visits: TurnedVisit[] = [];
-      for (const run of runs) {
-        const af = buildArmFrame(model, pose, pose.cases[ci], masses, {
-          headings: run.headings,
-          inPlaneLoadsOnly: run.inPlane,
-        });
+      for (let ri = 0; ri < runs.length; ri++) {
+        const run = runs[ri]!;
+        const structure = (structures[ri] ??= armStructure(model, pose, { headings: run.headings }));
+        const af = loadArmFrame(model, structure, pose.cases[ci], masses, { inPlaneLoadsOnly: run.inPlane });
         const sol = af.frame.solveStatic();
         if (!sol) break;
         const bodies = new Map<string, TurnedBody>();

@@ -90,6 +90,20 @@ function memberProperties(model: ArmModel, body: Body): MemberProperties | undef
   };
 }
 
+/** The arm's frame at one pose and headings before any load case's loads: its stiffness, its
+ * own weight and the rigid parts' masses. The load cases of the pose add theirs to a copy
+ * (loadArmFrame), sharing one factorisation. */
+export interface ArmStructure extends Omit<ArmFrame, "frame"> {
+  /** The frame with the loads every load case has (never solved itself: copies are). */
+  frame: SpaceFrame;
+  /** The two-point springs the frame holds, in the model's order: their hook nodes and the line
+   * between them, for their tensions. */
+  springLines: { id: string; na: number; nb: number; d: Vec3; length: number }[];
+  /** Each payload's body, for its working loads' directions. */
+  payloadBody: Record<string, string>;
+  placement: Placement;
+}
+
 /** Builds the frame of the arm at `pose` with the loads of `statics` (spring tensions) and the
  * given payload masses. */
 export function buildArmFrame(
@@ -99,6 +113,57 @@ export function buildArmFrame(
   payloadMass: Record<string, number>,
   options: ArmFrameOptions = {},
 ): ArmFrame {
+  return loadArmFrame(model, armStructure(model, pose, options), statics, payloadMass, options);
+}
+
+/** The frame of `structure` under one load case: the spring tensions of `statics`, the payloads'
+ * weights at the given masses and their working loads, added in the order buildArmFrame always
+ * added them (so the figures are the same to the last bit). */
+export function loadArmFrame(
+  model: ArmModel,
+  structure: ArmStructure,
+  statics: PoseStatics | undefined,
+  payloadMass: Record<string, number>,
+  options: Pick<ArmFrameOptions, "inPlaneLoadsOnly"> = {},
+): ArmFrame {
+  const frame = new SpaceFrame(structure.frame);
+  const g = model.gravity;
+  for (const { id, na, nb, d, length: L } of structure.springLines) {
+    const T = statics?.springForce[id] ?? 0;
+    frame.addLoad(na, { x: (T * d.x) / L, y: (T * d.y) / L, z: (T * d.z) / L });
+    frame.addLoad(nb, { x: (-T * d.x) / L, y: (-T * d.y) / L, z: (-T * d.z) / L });
+  }
+  const placement = structure.placement;
+  for (const p of model.payloads) {
+    const n = structure.payloadNode[p.id];
+    const bodyId = structure.payloadBody[p.id];
+    if (n === undefined || bodyId === undefined) continue;
+    const mass = payloadMass[p.id] ?? p.mass;
+    if (mass > 0) {
+      frame.addMass(n, mass);
+      frame.addLoad(n, { x: 0, y: -mass * g, z: 0 });
+    }
+    // a working force is written in the drawing's axes and turns with the payload's stage
+    const across = options.inPlaneLoadsOnly ? 0 : (p.forceAcross ?? 0);
+    const t = p.torque ? (options.inPlaneLoadsOnly ? { x: 0, y: 0, z: p.torque.z } : p.torque) : undefined;
+    if (p.force || across || t)
+      frame.addLoad(
+        n,
+        placement.direction(bodyId, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: across }),
+        t ? placement.direction(bodyId, t) : undefined,
+      );
+  }
+  const { springLines: _, payloadBody: __, placement: ___, ...parts } = structure;
+  return { ...parts, frame };
+}
+
+/** The arm's frame at `pose` and the given headings with the loads every load case has
+ * (ArmStructure). */
+export function armStructure(
+  model: ArmModel,
+  pose: Pose,
+  options: Pick<ArmFrameOptions, "planar" | "headings"> = {},
+): ArmStructure {
   const frame = new SpaceFrame();
   const g = model.gravity;
   const placement = new Placement(model, pose, options.headings);
@@ -211,6 +276,7 @@ export function buildArmFrame(
     if (j.mode === "passive") frame.pin(a, b, normalOf(parent.id));
     else frame.weld(a, b);
   }
+  const springLines: ArmStructure["springLines"] = [];
   for (const sp of model.springs) {
     if (atJoint(sp)) {
       const j = model.joints.find((jj) => jj.id === sp.joint);
@@ -236,26 +302,15 @@ export function buildArmFrame(
     const L = Math.hypot(d.x, d.y, d.z);
     if (!(L > 0)) continue;
     frame.addAxialSpring(na, nb, springTangentRate(model, sp, L));
-    const T = statics?.springForce[sp.id] ?? 0;
-    frame.addLoad(na, { x: (T * d.x) / L, y: (T * d.y) / L, z: (T * d.z) / L });
-    frame.addLoad(nb, { x: (-T * d.x) / L, y: (-T * d.y) / L, z: (-T * d.z) / L });
+    springLines.push({ id: sp.id, na, nb, d, length: L });
   }
   const payloadNode: Record<string, number> = {};
+  const payloadBody: Record<string, string> = {};
   for (const p of model.payloads) {
     const body = bodyById.get(p.body);
     if (!body || !placed(body.id)) continue;
-    const n = nodeAt(body, p.point);
-    payloadNode[p.id] = n;
-    lump(n, payloadMass[p.id] ?? p.mass);
-    // a working force is written in the drawing's axes and turns with the payload's stage
-    const across = options.inPlaneLoadsOnly ? 0 : (p.forceAcross ?? 0);
-    const t = p.torque ? (options.inPlaneLoadsOnly ? { x: 0, y: 0, z: p.torque.z } : p.torque) : undefined;
-    if (p.force || across || t)
-      frame.addLoad(
-        n,
-        placement.direction(body.id, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: across }),
-        t ? placement.direction(body.id, t) : undefined,
-      );
+    payloadNode[p.id] = nodeAt(body, p.point);
+    payloadBody[p.id] = body.id;
   }
   const rigidGroup = new Int32Array(frame.nodeCount);
   const groupAttachments = new Map<number, number>();
@@ -266,5 +321,16 @@ export function buildArmFrame(
   for (let n = 0; n < frame.nodeCount; n++) rigidGroup[n] = groupOf(n);
   for (const e of Object.values(joints)) (attach(e.parent), attach(e.child));
   for (const n of fixedNodes) attach(n);
-  return { frame, payloadNode, endNode, memberBody, joints, rigidGroup, groupAttachments };
+  return {
+    frame,
+    payloadNode,
+    endNode,
+    memberBody,
+    joints,
+    rigidGroup,
+    groupAttachments,
+    springLines,
+    payloadBody,
+    placement,
+  };
 }

@@ -119,3 +119,77 @@ export class SkylineMatrix {
     }
   }
 }
+
+/** A skyline matrix's non-zero entries below the diagonal, row by row (compressed rows), and its
+ * diagonal: a frame's profile holds many exact zeros (in-plane and sideways dofs do not couple
+ * while the arm does not turn, and a mass matrix couples only along each member), and in the
+ * untuned tier each term skipped is work saved. Products and solves visit the same entries in the
+ * same order as the skyline's own, less the zero terms (a zero term adds nothing to a finite sum). */
+export class CompressedRows {
+  readonly n: number;
+  /** Row i's entries are at rowStart[i] .. rowStart[i+1]-1. */
+  readonly rowStart: Int32Array;
+  readonly column: Int32Array;
+  readonly value: Float64Array;
+  readonly diagonal: Float64Array;
+
+  constructor(m: SkylineMatrix) {
+    const { n, first, offset, data } = m;
+    let count = 0;
+    for (let i = 0; i < n; i++) for (let k = offset[i]!; k < offset[i + 1]! - 1; k++) if (data[k] !== 0) count++;
+    this.n = n;
+    this.rowStart = new Int32Array(n + 1);
+    this.column = new Int32Array(count);
+    this.value = new Float64Array(count);
+    this.diagonal = new Float64Array(n);
+    let p = 0;
+    for (let i = 0; i < n; i++) {
+      const o = offset[i]! - first[i]!;
+      for (let j = first[i]!; j < i; j++) {
+        const v = data[o + j]!;
+        if (v === 0) continue;
+        this.column[p] = j;
+        this.value[p] = v;
+        p++;
+      }
+      this.rowStart[i + 1] = p;
+      this.diagonal[i] = data[o + i]!;
+    }
+  }
+
+  /** y = A x (SkylineMatrix.multiply without the zero terms). */
+  multiply(x: Float64Array, y: Float64Array): void {
+    y.fill(0);
+    const { n, rowStart, column, value, diagonal } = this;
+    for (let i = 0; i < n; i++) {
+      const xi = x[i]!;
+      let s = 0;
+      for (let p = rowStart[i]!; p < rowStart[i + 1]!; p++) {
+        const j = column[p]!;
+        const a = value[p]!;
+        s += a * x[j]!;
+        y[j] = y[j]! + a * xi;
+      }
+      y[i] = y[i]! + s + diagonal[i]! * xi;
+    }
+  }
+
+  /** Solves L L^T x = b in place for the factor L these rows hold (SkylineMatrix.solve without the
+   * zero terms). */
+  solve(b: Float64Array): void {
+    const { n, rowStart, column, value, diagonal } = this;
+    for (let i = 0; i < n; i++) {
+      let s = b[i]!;
+      for (let p = rowStart[i]!; p < rowStart[i + 1]!; p++) s -= value[p]! * b[column[p]!]!;
+      b[i] = s / diagonal[i]!;
+    }
+    for (let i = n - 1; i >= 0; i--) {
+      const xi = b[i]! / diagonal[i]!;
+      b[i] = xi;
+      for (let p = rowStart[i]!; p < rowStart[i + 1]!; p++) {
+        const k = column[p]!;
+        b[k] = b[k]! - value[p]! * xi;
+      }
+    }
+  }
+}

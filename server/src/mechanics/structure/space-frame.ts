@@ -5,7 +5,7 @@
 // own axis) and rigid offsets. Loads: node forces and moments and the work-equivalent loads of a
 // member's own weight; masses: consistent member masses plus point masses. SI units.
 import { DofConstraints, type DofTransform, type Term } from "./dof-constraints";
-import { SkylineMatrix } from "./skyline";
+import { CompressedRows, SkylineMatrix } from "./skyline";
 import { graphOfGroups, reverseCuthillMcKee } from "./ordering";
 import { lowestModes } from "./subspace";
 import {
@@ -62,16 +62,36 @@ interface Spring {
   axis: Vec3;
 }
 
+/** What a frame's stiffness gives, computed on first use: its equation numbering and its
+ * factorisation (null for a mechanism). Frames of one structure hold the same object. */
+interface Solved {
+  factor?: { factor: SkylineMatrix; rows: CompressedRows; diagonal: Float64Array } | null;
+  transform?: DofTransform;
+}
+
 export class SpaceFrame {
-  readonly nodes: Vec3[] = [];
-  readonly members: SpaceMember[] = [];
-  private readonly axialSprings: Spring[] = [];
-  private readonly rotationalSprings: Spring[] = [];
-  private readonly constraints = new DofConstraints();
-  private readonly loadRaw: number[] = [];
-  private readonly massRaw: number[] = [];
-  private factorCache?: { factor: SkylineMatrix; diagonal: Float64Array } | null;
-  private orderedTransform?: DofTransform;
+  readonly nodes: Vec3[];
+  readonly members: SpaceMember[];
+  private readonly axialSprings: Spring[];
+  private readonly rotationalSprings: Spring[];
+  private readonly constraints: DofConstraints;
+  private readonly loadRaw: number[];
+  private readonly massRaw: number[];
+  private solved: Solved = {};
+
+  /** An empty frame; or, `from` another, one that shares its nodes, members, springs and
+   * constraints (and the factorisation, once either computes it) with copies of its loads and
+   * masses: another load case of one structure. Neither may then change its structure. */
+  constructor(from?: SpaceFrame) {
+    this.nodes = from ? from.nodes : [];
+    this.members = from ? from.members : [];
+    this.axialSprings = from ? from.axialSprings : [];
+    this.rotationalSprings = from ? from.rotationalSprings : [];
+    this.constraints = from ? from.constraints : new DofConstraints();
+    this.loadRaw = from ? from.loadRaw.slice() : [];
+    this.massRaw = from ? from.massRaw.slice() : [];
+    if (from) this.solved = from.solved;
+  }
 
   addNode(p: Vec3): number {
     this.changed();
@@ -89,8 +109,8 @@ export class SpaceFrame {
   }
 
   private changed(): void {
-    this.factorCache = undefined;
-    this.orderedTransform = undefined;
+    // a fresh object: a frame that shares the old one keeps it
+    this.solved = {};
   }
 
   /** Ground: no movement at all. */
@@ -256,7 +276,7 @@ export class SpaceFrame {
   /** The constraints' transform with its equations numbered along the frame (reverse
    * Cuthill-McKee over the couplings, ordering.ts), so that every skyline row stays short. */
   private transform(): DofTransform {
-    if (this.orderedTransform) return this.orderedTransform;
+    if (this.solved.transform) return this.solved.transform;
     const t = this.constraints.transform();
     const groups = this.connections().map((raw) => {
       const eqs: number[] = [];
@@ -270,8 +290,8 @@ export class SpaceFrame {
     for (let k = 0; k < t.count; k++) raw[k] = t.raw[order[k]!]!;
     const eq = new Int32Array(t.eq.length);
     for (let k = 0; k < eq.length; k++) eq[k] = number[t.eq[k]!]!;
-    this.orderedTransform = { count: t.count, raw, start: t.start, eq, coef: t.coef };
-    return this.orderedTransform;
+    this.solved.transform = { count: t.count, raw, start: t.start, eq, coef: t.coef };
+    return this.solved.transform;
   }
 
   /** The skyline of the reduced matrices: each equation's row reaches back to the lowest
@@ -369,14 +389,16 @@ export class SpaceFrame {
     return f;
   }
 
-  private factor(): { factor: SkylineMatrix; diagonal: Float64Array; t: DofTransform } | undefined {
+  private factor():
+    | { factor: SkylineMatrix; rows: CompressedRows; diagonal: Float64Array; t: DofTransform }
+    | undefined {
     const t = this.transform();
-    if (this.factorCache === undefined) {
+    if (this.solved.factor === undefined) {
       const K = this.assembleStiffness(t, this.profile(t));
       const diagonal = K.diagonal();
-      this.factorCache = K.factor() ? { factor: K, diagonal } : null;
+      this.solved.factor = K.factor() ? { factor: K, rows: new CompressedRows(K), diagonal } : null;
     }
-    return this.factorCache ? { ...this.factorCache, t } : undefined;
+    return this.solved.factor ? { ...this.solved.factor, t } : undefined;
   }
 
   /** Takes `other`'s equation numbering and factorisation when the two frames have the same
@@ -387,8 +409,7 @@ export class SpaceFrame {
   shareFactorisationOf(other: SpaceFrame): boolean {
     if (other === this || !sameStiffness(this, other)) return false;
     other.factor();
-    this.orderedTransform = other.transform();
-    this.factorCache = other.factorCache;
+    this.solved = other.solved;
     return true;
   }
 
@@ -426,14 +447,14 @@ export class SpaceFrame {
   solveStatic(): SpaceFrameSolution | undefined {
     const f = this.factor();
     if (!f) return undefined;
-    const { factor, t } = f;
+    const { rows, t } = f;
     const raw = this.rawLoads();
     const q = new Float64Array(t.count);
     raw.forEach((v, d) => {
       if (v !== 0)
         for (let k = t.start[d]!; k < t.start[d + 1]!; k++) q[t.eq[k]!] = q[t.eq[k]!]! + t.coef[k]! * v;
     });
-    if (t.count > 0) factor.solve(q);
+    if (t.count > 0) rows.solve(q);
     return new SpaceFrameSolution(this, this.expand(t, q));
   }
 
@@ -442,14 +463,14 @@ export class SpaceFrame {
   naturalModes(count = 1): { omega2: number[]; shapes: SpaceFrameSolution[] } | undefined {
     const f = this.factor();
     if (!f || f.t.count === 0) return undefined;
-    const M = this.assembleMass(f.t, f.factor);
+    const M = new CompressedRows(this.assembleMass(f.t, f.factor));
     const modes = lowestModes(
       {
         n: f.t.count,
-        solve: (b) => f.factor.solve(b),
+        solve: (b) => f.rows.solve(b),
         multiplyMass: (x, y) => M.multiply(x, y),
         stiffnessDiagonal: f.diagonal,
-        massDiagonal: M.diagonal(),
+        massDiagonal: M.diagonal,
         // the free translations along y (down), z (sideways) and x: their first step gives the
         // static shapes under steady acceleration each way, close to the lowest modes
         start: [1, 2, 0].map((axis) => {
