@@ -3,11 +3,7 @@
 // first); at heading 0 it is a straight cantilever (Roark). The turned placement moves only what
 // the swivel carries.
 import { describe, expect, it } from "vitest";
-import {
-  armStructure,
-  buildArmFrame,
-  loadArmFrame,
-} from "../../server/src/mechanics/structure/arm-frame";
+import { armStructure, buildArmFrame, loadArmFrame } from "../../server/src/mechanics/structure/arm-frame";
 import { Placement } from "../../server/src/mechanics/headings";
 import { sectionProperties } from "../../server/src/model/section";
 import { G, treeSweep } from "./arm-fixture";

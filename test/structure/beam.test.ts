@@ -41,6 +41,24 @@ describe("beam free body", () => {
     expect(r.moment).toBeCloseTo((w * L * L) / 8, 12);
     expect(r.at.s).toBeCloseTo(L / 2, 12);
   });
+  it("a point load at mid-span: the moment peaks under it, the shear changes side there", () => {
+    const r = beamStress(
+      [
+        { s: 0, offset: 0, fx: 0, fy: P / 2, couple: 0 },
+        { s: L / 2, offset: 0, fx: 0, fy: -P, couple: 0 },
+        { s: L, offset: 0, fx: 0, fy: P / 2, couple: 0 },
+      ],
+      { qx: 0, qy: 0 },
+      L,
+      tube,
+    );
+    // Roark 8th ed., table 8.1 case 2a (simple supports, centre load): M_max = W l / 4 at mid-span
+    expect(r.moment).toBeCloseTo((P * L) / 4, 12);
+    expect(r.at.s).toBe(L / 2);
+    // the section just before the load carries the shear of the left support (+W/2 upward
+    // reaction: internal shear -W/2 by the sign convention of sectionLoadAt)
+    expect(r.at.shear).toBeCloseTo(-P / 2, 12);
+  });
   it("axial compression and an offset hook", () => {
     // a two-force member pushed end to end through hooks 10 mm off its axis
     const F = 100;

@@ -6,8 +6,8 @@
 import type { ArmModel, Body, Joint, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
-import { beamStress, type BeamPointLoad } from "../mechanics/structure/beam";
-import { localBeamLoads } from "../mechanics/body-loads";
+import { beamStressInto, type BeamPointLoad, type BeamStressResult } from "../mechanics/structure/beam";
+import { beamLoadSources, localBeamLoads, type BeamLoadSources } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
 import {
   bearingStress,
@@ -107,6 +107,12 @@ interface BeamTable {
   /** Effective-length factor and the column's critical load (filled on the first compression). */
   K: number;
   col?: ReturnType<typeof columnCriticalLoad>;
+  /** What loads it, resolved once. */
+  sources: BeamLoadSources;
+  /** The pose loop's worst so far (fields, not maps by id: the loop's lookups stay cheap). */
+  stress?: Worst;
+  largest?: Worst;
+  column?: Worst;
 }
 
 export function checkStrength(ctx: CheckContext): void {
@@ -120,11 +126,6 @@ export function checkStrength(ctx: CheckContext): void {
       b.length > 0,
   );
   const pinned = model.joints.filter((j) => j.pin && model.materials[j.pin.material]);
-  const stressWorst = new Map<string, Worst>();
-  const columnWorst = new Map<string, Worst>();
-  const largestStress = new Map<string, Worst>();
-  const pinWorst = new Map<string, Worst>();
-  const reactionMax = new Map<string, Worst>();
   const tables: BeamTable[] = beams.map((body) => {
     const mat = model.materials[body.material!]!;
     return {
@@ -135,89 +136,92 @@ export function checkStrength(ctx: CheckContext): void {
       allowBending: normalStrength(mat, true),
       allowAxial: normalStrength(mat, false),
       K: lengthFactor(model, body),
+      sources: beamLoadSources(model, body.id),
     };
   });
   const pins = pinned.map((j) => pinTable(model, j));
   const dofJoints = new Set(sweep.dofs.map((d) => d.jointId));
   const loads: BeamPointLoad[] = [];
+  const r: BeamStressResult = {
+    stress: 0,
+    at: { s: 0, axial: 0, shear: 0, moment: 0 },
+    bendingShare: 0,
+    compression: 0,
+    moment: 0,
+  };
+  const g = model.gravity;
 
   outer: for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break outer;
     for (let ci = 0; ci < pose.cases.length; ci++) {
-      for (const t of tables) {
+      for (let ti = 0; ti < tables.length; ti++) {
+        const t = tables[ti]!;
         const body = t.body;
         const bp = pose.bodies[body.id];
         if (!bp) continue;
-        const { sec, mat, w } = t;
+        const { sec, w } = t;
         // Its own weight is spread along it, not among the point loads.
-        const count = localBeamLoads(model, sweep.loadCases, dofJoints, pose, ci, body.id, loads);
-        const r = beamStress(
-          loads,
-          { qx: -w * Math.sin(bp.phi), qy: -w * Math.cos(bp.phi) },
-          body.length,
-          sec,
-          count,
-        );
+        const count = localBeamLoads(t.sources, g, sweep.loadCases, dofJoints, pose, ci, bp, loads);
+        beamStressInto(loads, count, -w * Math.sin(bp.phi), -w * Math.cos(bp.phi), body.length, sec, r);
         const allow = r.bendingShare > 0 ? t.allowBending : t.allowAxial;
         const sf = r.stress > 0 ? allow.value / r.stress : Infinity;
-        const prevWorst = stressWorst.get(body.id);
-        if (!prevWorst || sf < prevWorst.safety) {
-          const at = r.at;
-          stressWorst.set(body.id, {
-            safety: sf,
-            pose,
-            caseIndex: ci,
-            detail: () =>
-              `(bending moment ${show(Math.abs(at.moment), "torque")}, axial ${at.axial < 0 ? "compression" : "tension"} ${show(Math.abs(at.axial), "force")}, ${show(at.s, "length")} from its start) against the ${strengthWords(mat, allow)}`,
-            figure: r.stress,
-          });
+        if (!t.stress || sf < t.stress.safety) t.stress = stressWorstAt(t, r, allow, sf, pose, ci);
+        const largest = t.largest;
+        if (!largest) t.largest = { safety: sf, pose, caseIndex: ci, detail: NO_DETAIL, figure: r.stress };
+        else if (r.stress > largest.figure) {
+          largest.safety = sf;
+          largest.pose = pose;
+          largest.caseIndex = ci;
+          largest.figure = r.stress;
         }
-        const prevLargest = largestStress.get(body.id);
-        if (!prevLargest || r.stress > prevLargest.figure)
-          largestStress.set(body.id, {
-            safety: sf,
-            pose,
-            caseIndex: ci,
-            detail: NO_DETAIL,
-            figure: r.stress,
-          });
         if (r.compression > 0) {
-          const K = t.K;
-          const col = (t.col ??= columnCriticalLoad(
-            mat.modulus,
-            sec.area,
-            leastSecondMoment(body.section!),
-            t.allowBending.value,
-            K * body.length,
-          ));
+          const col = columnOf(t);
           const csf = col.criticalLoad / r.compression;
-          const P = r.compression;
-          const prevCol = columnWorst.get(body.id);
-          if (!prevCol || csf < prevCol.safety)
-            columnWorst.set(body.id, {
-              safety: csf,
-              pose,
-              caseIndex: ci,
-              detail: () =>
-                `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * body.length, "length")})`,
-              figure: P,
-            });
+          if (!t.column || csf < t.column.safety)
+            t.column = columnWorstAt(t, col, r.compression, csf, pose, ci);
         }
       }
-      for (const pt of pins) {
+      const reactions = pose.cases[ci]?.reactions;
+      if (!reactions) continue;
+      for (let pi = 0; pi < pins.length; pi++) {
+        const pt = pins[pi]!;
         const j = pt.joint;
-        const reaction = pose.cases[ci]?.reactions[j.id];
+        const reaction = reactions[j.id];
         if (!reaction) continue;
         const F = Math.hypot(reaction.x, reaction.y);
-        const prevR = reactionMax.get(j.id);
-        if (!prevR || F > prevR.figure)
-          reactionMax.set(j.id, { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F });
-        const prevPin = pinWorst.get(j.id);
+        const prevR = pt.reactionMax;
+        if (!prevR) pt.reactionMax = { safety: 0, pose, caseIndex: ci, detail: NO_DETAIL, figure: F };
+        else if (F > prevR.figure) {
+          prevR.pose = pose;
+          prevR.caseIndex = ci;
+          prevR.figure = F;
+        }
         const safety = pinTableSafety(pt, F);
-        if (!prevPin || safety < prevPin.safety)
-          pinWorst.set(j.id, { ...pinSafety(model, j, F), pose, caseIndex: ci, figure: F });
+        // pinSafety gives the same safety with the words; they are built only for a finding
+        if (!pt.worst || safety < pt.worst.safety)
+          pt.worst = {
+            safety,
+            pose,
+            caseIndex: ci,
+            detail: () => pinSafety(model, j, F).detail(),
+            figure: F,
+          };
       }
     }
+  }
+  const stressWorst = new Map<string, Worst>();
+  const columnWorst = new Map<string, Worst>();
+  const largestStress = new Map<string, Worst>();
+  for (const t of tables) {
+    if (t.stress) stressWorst.set(t.body.id, t.stress);
+    if (t.column) columnWorst.set(t.body.id, t.column);
+    if (t.largest) largestStress.set(t.body.id, t.largest);
+  }
+  const pinWorst = new Map<string, Worst>();
+  const reactionMax = new Map<string, Worst>();
+  for (const pt of pins) {
+    if (pt.worst) pinWorst.set(pt.joint.id, pt.worst);
+    if (pt.reactionMax) reactionMax.set(pt.joint.id, pt.reactionMax);
   }
   const pin3d = new Map<string, PinFigures3d>();
   turnedStrength(ctx, tables, pins, {
@@ -229,6 +233,49 @@ export function checkStrength(ctx: CheckContext): void {
   });
   reportBodies(ctx, beams, stressWorst, columnWorst, largestStress);
   reportPins(ctx, pinned, pinWorst, reactionMax, pin3d);
+}
+
+/** A beam's new worst stress, its words kept for a finding (the section's loads copied: the
+ * result object is reused). */
+function stressWorstAt(
+  t: BeamTable,
+  r: BeamStressResult,
+  allow: { value: number; layer: boolean },
+  safety: number,
+  pose: Pose,
+  caseIndex: number,
+): Worst {
+  const { moment, axial, s } = r.at;
+  const mat = t.mat;
+  return {
+    safety,
+    pose,
+    caseIndex,
+    detail: () =>
+      `(bending moment ${show(Math.abs(moment), "torque")}, axial ${axial < 0 ? "compression" : "tension"} ${show(Math.abs(axial), "force")}, ${show(s, "length")} from its start) against the ${strengthWords(mat, allow)}`,
+    figure: r.stress,
+  };
+}
+
+/** A beam's new worst buckling safety. */
+function columnWorstAt(
+  t: BeamTable,
+  col: ReturnType<typeof columnCriticalLoad>,
+  P: number,
+  safety: number,
+  pose: Pose,
+  caseIndex: number,
+): Worst {
+  const K = t.K;
+  const L = t.body.length;
+  return {
+    safety,
+    pose,
+    caseIndex,
+    detail: () =>
+      `compression ${show(P, "force")} against a ${col.method} buckling load of ${show(col.criticalLoad, "force")} (K L = ${show(K * L, "length")})`,
+    figure: P,
+  };
 }
 
 /** Stress, buckling and pins with stages turned across (docs/checks.md, "Stages turned across"):
@@ -400,9 +447,12 @@ function pinSafety3d(pt: PinTable, load: PinLoad): { safety: number; detail: () 
   return { safety, detail };
 }
 
-/** A pin's constants for the pose loop: what pinSafety looks up, looked up once. */
+/** A pin's constants for the pose loop: what pinSafety looks up, looked up once; and the loop's
+ * worst so far. */
 interface PinTable {
   joint: Joint;
+  worst?: Worst;
+  reactionMax?: Worst;
   shearAllow: number;
   /** The pin material's tensile strength, Pa. */
   strength: number;
@@ -436,7 +486,9 @@ function pinTableSafety(pt: PinTable, force: number): number {
   const pin = pt.joint.pin!;
   const tau = pinShearStress(force, pin.diameter, pin.shearPlanes);
   let safety = tau > 0 ? pt.shearAllow / tau : Infinity;
-  for (const h of pt.holes) {
+  const holes = pt.holes;
+  for (let k = 0; k < holes.length; k++) {
+    const h = holes[k]!;
     const sigma = bearingStress(force, pin.diameter, h.t);
     const sf = sigma > 0 ? h.allow / sigma : Infinity;
     if (sf < safety) safety = sf;

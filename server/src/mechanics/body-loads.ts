@@ -6,7 +6,7 @@
 import type { ArmModel, Body, Joint, Payload, Spring, Vec2 } from "../model/types";
 import type { Pose, SweepResult } from "./types";
 import type { BeamPointLoad } from "./structure/beam";
-import { toWorld, unturnedX, unturnedY, worldX, worldY } from "./plane";
+import { toWorld } from "./plane";
 import { atJoint } from "../model/spring-kinds";
 
 export type LoadKind =
@@ -162,65 +162,100 @@ export function bodyLoads(
   return loads;
 }
 
+/** What loads one body, resolved once from the model's index (the strength check asks at every
+ * pose and load case). */
+export interface BeamLoadSources {
+  bodyId: string;
+  /** The base's points are world points as given (worldPoint). */
+  base: boolean;
+  payloads: readonly Payload[];
+  torsions: readonly { spring: Spring; joint: Joint; side: 1 | -1 }[];
+  springEnds: readonly { spring: Spring; end: "a" | "b" }[];
+  joints: readonly { joint: Joint; side: 1 | -1 }[];
+}
+
+const NONE: readonly never[] = [];
+
+export function beamLoadSources(model: ArmModel, bodyId: string): BeamLoadSources {
+  const ix = bodyIndex(model);
+  return {
+    bodyId,
+    base: ix.bodies.get(bodyId)?.kind === "base",
+    payloads: ix.payloads.get(bodyId) ?? NONE,
+    torsions: ix.torsions.get(bodyId) ?? NONE,
+    springEnds: ix.springEnds.get(bodyId) ?? NONE,
+    joints: ix.joints.get(bodyId) ?? NONE,
+  };
+}
+
 /** The loads of `bodyLoads` except the body's own weight, in the body's local axes, written into
  * `out` (grown as needed, its objects reused) in the same order and with the same arithmetic as
  * mapping `bodyLoads` through the body's rotation: the strength check's hot loop (every beam at
- * every pose and load case) without an object per load. Returns how many were written. */
+ * every pose and load case) without an object per load. `sources` are the body's
+ * (beamLoadSources), `bp` its place at the pose (pose.bodies of its id). Returns how many were
+ * written. */
 export function localBeamLoads(
-  model: ArmModel,
+  sources: BeamLoadSources,
+  g: number,
   loadCases: SweepResult["loadCases"],
   dofJoints: ReadonlySet<string>,
   pose: Pose,
   caseIndex: number,
-  bodyId: string,
+  bp: { x: number; y: number; phi: number },
   out: BeamPointLoad[],
 ): number {
   const statics = pose.cases[caseIndex];
   const loadCase = loadCases[caseIndex];
-  const bp = pose.bodies[bodyId];
-  if (!statics || !loadCase || !bp) return 0;
-  const ix = bodyIndex(model);
-  const g = model.gravity;
+  if (!statics || !loadCase) return 0;
   const c = Math.cos(bp.phi);
   const s = Math.sin(bp.phi);
-  // World points of this body's local points as worldPoint gives them (the base: as given).
-  const base = ix.bodies.get(bodyId)?.kind === "base";
+  // World points of this body's local points as worldPoint gives them (the base: as given),
+  // worldX and worldY written out; indexed loops: for-of and calls are dear in the untuned tier.
+  const base = sources.base;
+  const ox = bp.x;
+  const oy = bp.y;
   let n = 0;
-  for (const p of ix.payloads.get(bodyId) ?? []) {
+  const { payloads, torsions, springEnds, joints } = sources;
+  for (let k = 0; k < payloads.length; k++) {
+    const p = payloads[k]!;
     const lx = p.point.x;
     const ly = p.point.y;
-    const px = base ? lx : worldX(bp.x, c, s, lx, ly);
-    const py = base ? ly : worldY(bp.y, c, s, lx, ly);
+    const px = base ? lx : ox + c * lx - s * ly;
+    const py = base ? ly : oy + s * lx + c * ly;
     const mass = loadCase.payloadMass[p.id] ?? p.mass;
     n = putLocalLoad(out, n, bp, c, s, px, py, 0, -mass * g, 0);
     if ((p.force && (p.force.x !== 0 || p.force.y !== 0)) || p.torque?.z)
       n = putLocalLoad(out, n, bp, c, s, px, py, p.force?.x ?? 0, p.force?.y ?? 0, p.torque?.z ?? 0);
   }
-  for (const t of ix.torsions.get(bodyId) ?? []) {
+  for (let k = 0; k < torsions.length; k++) {
+    const t = torsions[k]!;
     const state = pose.springs[t.spring.id];
     const torque = statics.springForce[t.spring.id];
     if (!state || torque === undefined) continue;
     n = putLocalLoad(out, n, bp, c, s, state.a.x, state.a.y, 0, 0, t.side * torque);
   }
-  for (const { spring: sp, end } of ix.springEnds.get(bodyId) ?? []) {
+  for (let k = 0; k < springEnds.length; k++) {
+    const { spring: sp, end } = springEnds[k]!;
     const state = pose.springs[sp.id];
     const force = statics.springForce[sp.id];
     if (!state || force === undefined || !hookForce(state, force, end, HOOK)) continue;
     const at = end === "a" ? state.a : state.b;
     n = putLocalLoad(out, n, bp, c, s, at.x, at.y, HOOK.x, HOOK.y, 0);
   }
-  for (const { joint: j, side } of ix.joints.get(bodyId) ?? []) {
-    const r = statics.reactions[j.id];
+  const { reactions, holdingTorque, lockedTorque } = statics;
+  for (let k = 0; k < joints.length; k++) {
+    const { joint: j, side } = joints[k]!;
+    const r = reactions[j.id];
     if (!r) continue;
     // The pivot on this body: its child point when it is the child, else its parent point.
     const lp = side === 1 ? j.childPoint : j.parentPoint;
-    const px = base ? lp.x : worldX(bp.x, c, s, lp.x, lp.y);
-    const py = base ? lp.y : worldY(bp.y, c, s, lp.x, lp.y);
+    const px = base ? lp.x : ox + c * lp.x - s * lp.y;
+    const py = base ? lp.y : oy + s * lp.x + c * lp.y;
     n = putLocalLoad(out, n, bp, c, s, px, py, side * r.x, side * r.y, 0);
-    const hold = statics.holdingTorque[j.id];
+    const hold = holdingTorque[j.id];
     if (hold !== undefined && dofJoints.has(j.id))
       n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * hold);
-    const locked = statics.lockedTorque[j.id];
+    const locked = lockedTorque[j.id];
     if (locked !== undefined) n = putLocalLoad(out, n, bp, c, s, px, py, 0, 0, side * locked);
   }
   return n;
@@ -265,10 +300,11 @@ function putLocalLoad(
   const dy = py - bp.y;
   let l = out[n];
   if (!l) out[n] = l = { s: 0, offset: 0, fx: 0, fy: 0, couple: 0 };
-  l.s = unturnedX(c, s, dx, dy);
-  l.offset = unturnedY(c, s, dx, dy);
-  l.fx = unturnedX(c, s, forceX, forceY);
-  l.fy = unturnedY(c, s, forceX, forceY);
+  // unturnedX and unturnedY written out (a call each is dear in the untuned tier)
+  l.s = c * dx + s * dy;
+  l.offset = -s * dx + c * dy;
+  l.fx = c * forceX + s * forceY;
+  l.fy = -s * forceX + c * forceY;
   l.couple = couple;
   return n + 1;
 }

@@ -61,89 +61,136 @@ export function beamStress(
   /** Loads to use from the front of `loads` (a reused buffer may hold more). */
   count = loads.length,
 ): BeamStressResult {
+  const out: BeamStressResult = {
+    stress: 0,
+    at: { s: 0, axial: 0, shear: 0, moment: 0 },
+    bendingShare: 0,
+    compression: 0,
+    moment: 0,
+  };
+  beamStressInto(loads, count, distributed.qx, distributed.qy, length, section, out);
+  return out;
+}
+
+/** beamStress written into `out` (its `at` too): the strength check's hot loop, every body at
+ * every pose and load case, with no object per call. */
+export function beamStressInto(
+  loads: readonly BeamPointLoad[],
+  count: number,
+  qx: number,
+  qy: number,
+  length: number,
+  section: { area: number; secondMoment: number; extremeFibre: number },
+  out: BeamStressResult,
+): void {
   // Stations where the moment can peak: the ends, every load, and where the shear changes sign
-  // between loads (the moment is piecewise quadratic). Hot loop: every body at every pose.
-  if (stationBuffer.length < count + 2) stationBuffer = new Float64Array(2 * (count + 2));
-  const pos = stationBuffer.subarray(0, count + 2);
+  // between loads (the moment is piecewise quadratic).
+  const n = count + 2;
+  if (stationBuffer.length < n) stationBuffer = new Float64Array(2 * n);
+  const pos = stationBuffer;
   pos[0] = 0;
   pos[1] = length;
   for (let k = 0; k < count; k++) pos[k + 2] = Math.max(0, Math.min(length, loads[k]!.s));
-  pos.sort();
-  const st = scan;
-  st.bestStress = -1;
-  st.bestBending = 0;
-  st.compression = 0;
-  st.moment = 0;
-  const best = st.best;
+  sortAscending(pos, n);
+  // One function for the whole scan, the section sums and the folding written out: a call per
+  // station and side is dear in the untuned tier. The sums run over the loads in their order, as
+  // sectionLoadAt's do, so the figures are the same to the last bit.
+  const { area, secondMoment, extremeFibre } = section;
+  let bestStress = -1;
+  let bestBending = 0;
+  let compression = 0;
+  let largestMoment = 0;
+  const best = out.at;
   best.s = 0;
   best.axial = 0;
   best.shear = 0;
   best.moment = 0;
-  for (let k = 0; k < pos.length; k++) {
-    const s = pos[k]!;
+  for (let k = 0; k < n; k++) {
+    let s = pos[k]!;
     if (k > 0 && s === pos[k - 1]) continue;
-    visitStation(loads, count, distributed, length, section, s, false);
-    visitStation(loads, count, distributed, length, section, s, true);
-    const shearAfter = st.scratch.shear;
     let next = -1;
-    for (let m = k + 1; m < pos.length; m++)
+    for (let m = k + 1; m < n; m++)
       if (pos[m]! > s) {
         next = pos[m]!;
         break;
       }
-    if (next > s && distributed.qy !== 0) {
+    // at a station: first with the loads exactly at s not yet counted, then counted; then, where
+    // the shear changes sign before the next station, at that point s* (counted)
+    let both = true;
+    for (;;) {
+      let fxBefore = 0;
+      let fyBefore = 0;
+      let mBefore = 0;
+      let fx = 0;
+      let fy = 0;
+      let m = 0;
+      for (let i = 0; i < count; i++) {
+        const p = loads[i]!;
+        const ps = p.s;
+        if (ps < s) {
+          const pfx = p.fx;
+          const pfy = p.fy;
+          const dm = (ps - s) * pfy - p.offset * pfx + p.couple;
+          fxBefore += pfx;
+          fyBefore += pfy;
+          mBefore += dm;
+          fx += pfx;
+          fy += pfy;
+          m += dm;
+        } else if (ps === s) {
+          const pfx = p.fx;
+          const pfy = p.fy;
+          fx += pfx;
+          fy += pfy;
+          m += (ps - s) * pfy - p.offset * pfx + p.couple;
+        }
+      }
+      const w = Math.max(0, Math.min(s, length));
+      const dfx = qx * w;
+      const dfy = qy * w;
+      const dmq = qy * (w * (w / 2 - s));
+      for (let side = both ? 0 : 1; side < 2; side++) {
+        const axial = side === 0 ? -(fxBefore + dfx) : -(fx + dfx);
+        const moment = side === 0 ? -(mBefore + dmq) : -(m + dmq);
+        const axialStress = Math.abs(axial) / area;
+        const bendingStress = (Math.abs(moment) * extremeFibre) / secondMoment;
+        const stress = axialStress + bendingStress;
+        compression = Math.max(compression, -axial);
+        largestMoment = Math.max(largestMoment, Math.abs(moment));
+        if (stress > bestStress) {
+          bestStress = stress;
+          best.s = s;
+          best.axial = axial;
+          best.shear = side === 0 ? -(fyBefore + dfy) : -(fy + dfy);
+          best.moment = moment;
+          bestBending = bendingStress;
+        }
+      }
+      if (!both || !(next > s && qy !== 0)) break;
       // the shear V(s') = V(s) - qy (s' - s) is linear between loads: it vanishes at s*
-      const sStar = s + shearAfter / distributed.qy;
-      if (sStar > s && sStar < next) visitStation(loads, count, distributed, length, section, sStar, true);
+      const sStar = s + -(fy + dfy) / qy;
+      if (!(sStar > s && sStar < next)) break;
+      s = sStar;
+      both = false;
     }
   }
-  const bestStress = st.bestStress;
-  return {
-    stress: bestStress,
-    at: { ...best },
-    bendingShare: bestStress > 0 ? st.bestBending / bestStress : 0,
-    compression: st.compression,
-    moment: st.moment,
-  };
+  out.stress = bestStress;
+  out.bendingShare = bestStress > 0 ? bestBending / bestStress : 0;
+  out.compression = compression;
+  out.moment = largestMoment;
 }
 
-/** The running state of the current beamStress call (one body at a time; nothing keeps it). */
-const scan = {
-  scratch: { s: 0, axial: 0, shear: 0, moment: 0 } as SectionLoad,
-  best: { s: 0, axial: 0, shear: 0, moment: 0 } as SectionLoad,
-  bestStress: -1,
-  bestBending: 0,
-  compression: 0,
-  moment: 0,
-};
-
-/** Internal loads at one station, folded into `scan`: the largest stress so far and where, the
- * largest compression and moment. */
-function visitStation(
-  loads: readonly BeamPointLoad[],
-  count: number,
-  distributed: { qx: number; qy: number },
-  length: number,
-  section: { area: number; secondMoment: number; extremeFibre: number },
-  s: number,
-  includeAt: boolean,
-): void {
-  const st = scan;
-  const scratch = st.scratch;
-  evaluateSection(loads, count, distributed, length, s, includeAt, scratch);
-  const axialStress = Math.abs(scratch.axial) / section.area;
-  const bendingStress = (Math.abs(scratch.moment) * section.extremeFibre) / section.secondMoment;
-  const stress = axialStress + bendingStress;
-  st.compression = Math.max(st.compression, -scratch.axial);
-  st.moment = Math.max(st.moment, Math.abs(scratch.moment));
-  if (stress > st.bestStress) {
-    st.bestStress = stress;
-    const best = st.best;
-    best.s = scratch.s;
-    best.axial = scratch.axial;
-    best.shear = scratch.shear;
-    best.moment = scratch.moment;
-    st.bestBending = bendingStress;
+/** The first n entries of `a` in ascending order, NaN last (as a typed array's sort puts them):
+ * a handful of stations, so insertion in place, without the subarray a sort() needs. */
+function sortAscending(a: Float64Array, n: number): void {
+  for (let i = 1; i < n; i++) {
+    const v = a[i]!;
+    let j = i;
+    while (j > 0 && (a[j - 1]! > v || (a[j - 1]! !== a[j - 1]! && v === v))) {
+      a[j] = a[j - 1]!;
+      j--;
+    }
+    a[j] = v;
   }
 }
 

@@ -136,7 +136,8 @@ export class CompressedRows {
   constructor(m: SkylineMatrix) {
     const { n, first, offset, data } = m;
     let count = 0;
-    for (let i = 0; i < n; i++) for (let k = offset[i]!; k < offset[i + 1]! - 1; k++) if (data[k] !== 0) count++;
+    for (let i = 0; i < n; i++)
+      for (let k = offset[i]!; k < offset[i + 1]! - 1; k++) if (data[k] !== 0) count++;
     this.n = n;
     this.rowStart = new Int32Array(n + 1);
     this.column = new Int32Array(count);

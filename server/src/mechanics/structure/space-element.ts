@@ -149,24 +149,44 @@ export function localUniformLoad(q: Vec3, L: number): Float64Array {
   return f;
 }
 
-/** T^T k T for T = diag(R, R, R, R), R the rows of `axes` (McGuire et al., 2nd ed., eq. 5.9). */
+/** Scratch of toGlobalMatrix (one block at a time; nothing keeps it). */
+const blockScratch = new Float64Array(9);
+
+/** T^T k T for T = diag(R, R, R, R), R the rows of `axes` (McGuire et al., 2nd ed., eq. 5.9).
+ * Most of a member's local entries are zero (two thirds of them): their products are left out of
+ * the sums, which with finite axes leaves every sum as it was to the last bit (a sum that starts
+ * at +0 never becomes -0, and adding a zero product to it changes nothing). */
 export function toGlobalMatrix(local: Float64Array, axes: Float64Array): Float64Array {
   const out = new Float64Array(144);
-  const tmp = new Float64Array(9);
+  const tmp = blockScratch;
   for (let bi = 0; bi < 4; bi++)
     for (let bj = 0; bj < 4; bj++) {
       // tmp = k_block R
-      for (let r = 0; r < 3; r++)
+      let any = false;
+      for (let r = 0; r < 3; r++) {
+        const row = (bi * 3 + r) * 12 + bj * 3;
+        const k0 = local[row]!;
+        const k1 = local[row + 1]!;
+        const k2 = local[row + 2]!;
         for (let c = 0; c < 3; c++) {
           let s = 0;
-          for (let m = 0; m < 3; m++) s += local[(bi * 3 + r) * 12 + bj * 3 + m]! * axes[m * 3 + c]!;
+          if (k0 !== 0) s += k0 * axes[c]!;
+          if (k1 !== 0) s += k1 * axes[3 + c]!;
+          if (k2 !== 0) s += k2 * axes[6 + c]!;
           tmp[r * 3 + c] = s;
+          if (s !== 0) any = true;
         }
+      }
+      // a zero block stays zero (out is zero-filled)
+      if (!any) continue;
       // out_block = R^T tmp
       for (let r = 0; r < 3; r++)
         for (let c = 0; c < 3; c++) {
           let s = 0;
-          for (let m = 0; m < 3; m++) s += axes[m * 3 + r]! * tmp[m * 3 + c]!;
+          for (let m = 0; m < 3; m++) {
+            const t = tmp[m * 3 + c]!;
+            if (t !== 0) s += axes[m * 3 + r]! * t;
+          }
           out[(bi * 3 + r) * 12 + bj * 3 + c] = s;
         }
     }
