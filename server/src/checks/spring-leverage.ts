@@ -10,7 +10,14 @@ import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { chainToBase, placingJoints } from "./arm-paths";
 import { workingJoint } from "./geometry";
-import { bodyWord, describePose, pastDeadline, payloadMasses, show, spanOf } from "./part-words";
+import {
+  bodyWord,
+  describePose,
+  pastDeadline,
+  payloadMasses,
+  show,
+  spanOf,
+} from "./part-words";
 import { atJoint } from "../model/spring-kinds";
 
 /** A spring pulling more than this many times the weight it balances is flagged. A balancer of
@@ -37,11 +44,18 @@ const NEGLIGIBLE_WEIGHT_N = 1e-6;
 type TwoEnded = Exclude<Spring, { kind: "torsion" }>;
 
 /** Bodies the joint carries: its child and every body whose chain to the base passes through it. */
-function carried(model: ArmModel, joint: Joint, placing: Map<string, Joint>): Set<string> {
+function carried(
+  model: ArmModel,
+  joint: Joint,
+  placing: Map<string, Joint>,
+): Set<string> {
   const out = new Set<string>();
   for (const b of model.bodies) {
     if (b.kind === "base") continue;
-    if (b.id === joint.child || chainToBase(model, b.id, placing).some((j) => j.id === joint.id))
+    if (
+      b.id === joint.child ||
+      chainToBase(model, b.id, placing).some((j) => j.id === joint.id)
+    )
       out.add(b.id);
   }
   return out;
@@ -57,7 +71,9 @@ interface Carried {
 
 function carriedParts(model: ArmModel, bodies: Set<string>): Carried {
   const out: Carried = { bodies: [], payloads: [] };
-  model.bodies.forEach((b, i) => bodies.has(b.id) && b.mass > 0 && out.bodies.push(i));
+  model.bodies.forEach(
+    (b, i) => bodies.has(b.id) && b.mass > 0 && out.bodies.push(i),
+  );
   model.payloads.forEach((p, k) => bodies.has(p.body) && out.payloads.push(k));
   return out;
 }
@@ -85,32 +101,39 @@ interface Weighed {
   arm: number;
 }
 
+/** The weight carried and its arm about the pivot at x `pivotX`, written into `out` (no object
+ * per pose and load case: the untuned tier pays for each). */
 function weighAt(
   model: ArmModel,
   at: PlacedX,
   parts: Carried,
   masses: Record<string, number>,
-  pivot: { x: number },
-): Weighed {
+  pivotX: number,
+  out: Weighed,
+): void {
   let w = 0;
   let moment = 0;
   const g = model.gravity;
-  for (const i of parts.bodies) {
+  const { bodies, payloads } = parts;
+  for (let n = 0; n < bodies.length; n++) {
+    const i = bodies[n]!;
     const x = at.body[i]!;
     if (Number.isNaN(x)) continue;
     const m = model.bodies[i]!.mass;
     w += m * g;
-    moment += m * g * (x - pivot.x);
+    moment += m * g * (x - pivotX);
   }
-  for (const k of parts.payloads) {
+  for (let n = 0; n < payloads.length; n++) {
+    const k = payloads[n]!;
     const x = at.payload[k]!;
     if (Number.isNaN(x)) continue;
     const p = model.payloads[k]!;
     const m = masses[p.id] ?? p.mass;
     w += m * g;
-    moment += m * g * (x - pivot.x);
+    moment += m * g * (x - pivotX);
   }
-  return { weight: w, arm: w > 0 ? Math.abs(moment / w) : 0 };
+  out.weight = w;
+  out.arm = w > 0 ? Math.abs(moment / w) : 0;
 }
 
 export function checkSpringLeverage(ctx: CheckContext): void {
@@ -121,7 +144,8 @@ export function checkSpringLeverage(ctx: CheckContext): void {
     if (!at) xs.set(pose, (at = placedX(ctx.model, pose)));
     return at;
   };
-  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s, placing, placedAt);
+  for (const s of ctx.model.springs)
+    if (!atJoint(s)) checkSpring(ctx, s, placing, placedAt);
 }
 
 function checkSpring(
@@ -135,16 +159,25 @@ function checkSpring(
   if (!joint) return;
   const bodies = carried(model, joint, placing);
   const parts = carriedParts(model, bodies);
-  const masses = sweep.loadCases.map((_, ci) => payloadMasses(model, sweep, ci));
+  const masses = sweep.loadCases.map((_, ci) =>
+    payloadMasses(model, sweep, ci),
+  );
   // The hook is the end on a carried body; the other end is the anchor.
-  const hookEnd = bodies.has(s.b.body) ? "b" : bodies.has(s.a.body) ? "a" : undefined;
+  const hookEnd = bodies.has(s.b.body)
+    ? "b"
+    : bodies.has(s.a.body)
+      ? "a"
+      : undefined;
   if (!hookEnd) return;
   const hookBody = model.bodies.find((b) => b.id === s[hookEnd].body);
-  let worst: { ratio: number; force: number; weight: number; pose: Pose; ci: number } | undefined;
+  let worst:
+    | { ratio: number; force: number; weight: number; pose: Pose; ci: number }
+    | undefined;
   let springArm = 0;
   let weightArm = 0;
   let reaction = 0;
   let compression = 0;
+  const weighed: Weighed = { weight: 0, arm: 0 };
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     const st = pose.springs[s.id];
@@ -152,39 +185,59 @@ function checkSpring(
     const pivot = worldPoint(pose, joint.parent, joint.parentPoint, model);
     const hook = hookEnd === "b" ? st.b : st.a;
     const anchor = hookEnd === "b" ? st.a : st.b;
-    const along = { x: anchor.x - hook.x, y: anchor.y - hook.y };
-    const length = Math.hypot(along.x, along.y);
+    const alongX = anchor.x - hook.x;
+    const alongY = anchor.y - hook.y;
+    const length = Math.hypot(alongX, alongY);
     if (length > 0)
       springArm = Math.max(
         springArm,
-        Math.abs(along.x * (pivot.y - hook.y) - along.y * (pivot.x - hook.x)) / length,
+        Math.abs(alongX * (pivot.y - hook.y) - alongY * (pivot.x - hook.x)) /
+          length,
       );
     // Unit vector from the hook toward the pivot: the part of the pull along it squeezes the bar.
-    const toPivot = { x: pivot.x - hook.x, y: pivot.y - hook.y };
-    const reach = Math.hypot(toPivot.x, toPivot.y);
+    const toPivotX = pivot.x - hook.x;
+    const toPivotY = pivot.y - hook.y;
+    const reach = Math.hypot(toPivotX, toPivotY);
     const at = placedAt(pose);
-    pose.cases.forEach((c, ci) => {
+    for (let ci = 0; ci < pose.cases.length; ci++) {
+      const c = pose.cases[ci]!;
       const tension = c.springForce[s.id] ?? 0;
-      const weighed = weighAt(model, at, parts, masses[ci] ?? payloadMasses(model, sweep, ci), pivot);
+      weighAt(
+        model,
+        at,
+        parts,
+        masses[ci] ?? payloadMasses(model, sweep, ci),
+        pivot.x,
+        weighed,
+      );
       weightArm = Math.max(weightArm, weighed.arm);
       const r = c.reactions[joint.id];
       if (r) reaction = Math.max(reaction, Math.hypot(r.x, r.y));
       if (length > 0 && reach > 0)
         compression = Math.max(
           compression,
-          (tension * (along.x * toPivot.x + along.y * toPivot.y)) / (length * reach),
+          (tension * (alongX * toPivotX + alongY * toPivotY)) /
+            (length * reach),
         );
-      if (!(weighed.weight > NEGLIGIBLE_WEIGHT_N)) return;
+      if (!(weighed.weight > NEGLIGIBLE_WEIGHT_N)) continue;
       const ratio = Math.abs(tension) / weighed.weight;
       if (!worst || ratio > worst.ratio)
-        worst = { ratio, force: Math.abs(tension), weight: weighed.weight, pose, ci };
-    });
+        worst = {
+          ratio,
+          force: Math.abs(tension),
+          weight: weighed.weight,
+          pose,
+          ci,
+        };
+    }
   }
   if (!worst) return;
   const leverShare = weightArm > 0 ? springArm / weightArm : Infinity;
   const forceTooBig = worst.ratio > SPRING_FORCE_RATIO_LIMIT;
   const leverTooSmall =
-    leverShare < SPRING_LEVER_SHARE_LIMIT && springArm >= ON_PIVOT_M && worst.ratio >= LEVER_RULE_LEAST_RATIO;
+    leverShare < SPRING_LEVER_SHARE_LIMIT &&
+    springArm >= ON_PIVOT_M &&
+    worst.ratio >= LEVER_RULE_LEAST_RATIO;
   if (!forceTooBig && !leverTooSmall) return;
   const where = describePose(sweep, worst.pose, worst.ci);
   const why = `its lever arm about ${joint.id} is at most ${show(springArm, "length")} against the ${show(weightArm, "length")} of the weight's`;
@@ -226,7 +279,9 @@ function checkSpring(
           leverArm: springArm,
           weightArm,
           pinReaction: reaction,
-          ...(hookBody && compression > 0 ? { body: hookBody.id, compression } : {}),
+          ...(hookBody && compression > 0
+            ? { body: hookBody.id, compression }
+            : {}),
         },
       },
     ),

@@ -4,10 +4,15 @@
 // can face any heading, so the worst edge is the nearest one in every direction. Swivels above the
 // base turn stages out of the drawing plane: every combination of their headings is visited
 // together (mechanics/headings.ts), the loads then in three dimensions.
-import type { ArmModel } from "../model/types";
+import type { ArmModel, Payload, Vec2 } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
-import { headingCombinations, loadsAcross, Placement, type Headings } from "../mechanics/headings";
+import {
+  headingCombinations,
+  loadsAcross,
+  Placement,
+  type Headings,
+} from "../mechanics/headings";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
@@ -36,9 +41,12 @@ export function overturningMoment(
   edge: number,
   sign: 1 | -1,
   surface: number,
+  /** Loads to use from the front of `loads` (a reused list may hold more). */
+  count = loads.length,
 ): number {
   let m = 0;
-  for (const l of loads) {
+  for (let k = 0; k < count; k++) {
+    const l = loads[k]!;
     const u = sign * l.x; // distance along the heading
     const fu = sign * l.fx;
     // clockwise moment (seen with the heading to the right) about the edge point (edge, surface)
@@ -48,13 +56,21 @@ export function overturningMoment(
 }
 
 /** Restoring moment of the base's weight about an edge `edge` from its centre of gravity. */
-export function restoringMoment(baseMass: number, gravity: number, edge: number): number {
+export function restoringMoment(
+  baseMass: number,
+  gravity: number,
+  edge: number,
+): number {
   return baseMass * gravity * edge;
 }
 
 /** Every load the arm puts on the base at a pose: weights of moving bodies and payloads, and
  * the payloads' working forces (springs and pins between base and arm are internal). */
-export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, number>): PlaneLoad[] {
+export function armLoads(
+  model: ArmModel,
+  pose: Pose,
+  masses: Record<string, number>,
+): PlaneLoad[] {
   const out: PlaneLoad[] = [];
   for (const b of model.bodies) {
     if (b.kind === "base" || !pose.bodies[b.id] || !(b.mass > 0)) continue;
@@ -72,6 +88,80 @@ export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, num
     });
   }
   return out;
+}
+
+/** What armLoads reads of the model, once per check run: the moving bodies with mass and the
+ * payloads, with whether their points are the base's own (worldPoint gives those as written). */
+interface ArmLoadSources {
+  bodies: { id: string; point: Vec2; mass: number }[];
+  payloads: { payload: Payload; onBase: boolean }[];
+}
+
+function armLoadSources(model: ArmModel): ArmLoadSources {
+  const isBase = (id: string) =>
+    model.bodies.find((b) => b.id === id)?.kind === "base";
+  return {
+    bodies: model.bodies
+      .filter((b) => b.kind !== "base" && b.mass > 0)
+      .map((b) => ({ id: b.id, point: b.centreOfMass, mass: b.mass })),
+    payloads: model.payloads.map((p) => ({
+      payload: p,
+      onBase: isBase(p.body),
+    })),
+  };
+}
+
+/** armLoads into `out` (its objects reused), with the same arithmetic (worldPoint's written
+ * out); returns how many loads it wrote. */
+function armLoadsInto(
+  src: ArmLoadSources,
+  gravity: number,
+  pose: Pose,
+  masses: Record<string, number>,
+  out: PlaneLoad[],
+): number {
+  let n = 0;
+  const put = (x: number, y: number, fx: number, fy: number) => {
+    let l = out[n];
+    if (!l) out[n] = l = { x: 0, y: 0, fx: 0, fy: 0 };
+    l.x = x;
+    l.y = y;
+    l.fx = fx;
+    l.fy = fy;
+    n++;
+  };
+  for (let k = 0; k < src.bodies.length; k++) {
+    const b = src.bodies[k]!;
+    const bp = pose.bodies[b.id];
+    if (!bp) continue;
+    const c = Math.cos(bp.phi);
+    const s = Math.sin(bp.phi);
+    const lx = b.point.x;
+    const ly = b.point.y;
+    put(bp.x + c * lx - s * ly, bp.y + s * lx + c * ly, 0, -b.mass * gravity);
+  }
+  for (let k = 0; k < src.payloads.length; k++) {
+    const { payload: p, onBase } = src.payloads[k]!;
+    const bp = pose.bodies[p.body];
+    if (!bp) continue;
+    const lx = p.point.x;
+    const ly = p.point.y;
+    let x = lx;
+    let y = ly;
+    if (!onBase) {
+      const c = Math.cos(bp.phi);
+      const s = Math.sin(bp.phi);
+      x = bp.x + c * lx - s * ly;
+      y = bp.y + s * lx + c * ly;
+    }
+    put(
+      x,
+      y,
+      p.force?.x ?? 0,
+      -(masses[p.id] ?? p.mass) * gravity + (p.force?.y ?? 0),
+    );
+  }
+  return n;
 }
 
 /** A load of the arm on the base in three dimensions (z out of the drawing plane). */
@@ -94,12 +184,23 @@ export function armLoadsTurned(
   for (const b of model.bodies) {
     if (b.kind === "base" || !pose.bodies[b.id] || !(b.mass > 0)) continue;
     const c = placement.point(b.id, b.centreOfMass);
-    out.push({ x: c.x, y: c.y, z: c.z, fx: 0, fy: -b.mass * model.gravity, fz: 0 });
+    out.push({
+      x: c.x,
+      y: c.y,
+      z: c.z,
+      fx: 0,
+      fy: -b.mass * model.gravity,
+      fz: 0,
+    });
   }
   for (const p of model.payloads) {
     if (!pose.bodies[p.body]) continue;
     const c = placement.point(p.body, p.point);
-    const f = placement.direction(p.body, { x: p.force?.x ?? 0, y: p.force?.y ?? 0, z: p.forceAcross ?? 0 });
+    const f = placement.direction(p.body, {
+      x: p.force?.x ?? 0,
+      y: p.force?.y ?? 0,
+      z: p.forceAcross ?? 0,
+    });
     out.push({
       x: c.x,
       y: c.y,
@@ -124,7 +225,8 @@ export function overturningToward(
 ): number {
   let m = 0;
   for (const l of loads) {
-    m += -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
+    m +=
+      -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
     // a couple tips the base about the edge's line, y x u = (uz, 0, -ux)
     if (l.moment) m += l.moment.x * uz - l.moment.z * ux;
   }
@@ -133,8 +235,14 @@ export function overturningToward(
 
 /** The largest of `overturningToward` over every horizontal direction: the length of the
  * horizontal moment vector (a base that turns faces its worst direction). */
-export function overturningAnyWay(loads: readonly SpaceLoad[], surface: number): number {
-  return Math.hypot(overturningToward(loads, 1, 0, surface), overturningToward(loads, 0, 1, surface));
+export function overturningAnyWay(
+  loads: readonly SpaceLoad[],
+  surface: number,
+): number {
+  return Math.hypot(
+    overturningToward(loads, 1, 0, surface),
+    overturningToward(loads, 0, 1, surface),
+  );
 }
 
 export function checkTipping(ctx: CheckContext): void {
@@ -144,13 +252,27 @@ export function checkTipping(ctx: CheckContext): void {
   const baseBody = model.bodies.find((b) => b.id === base.bodyId);
   if (!baseBody) return;
   let worst:
-    | { safety: number; pose: Pose; ci: number; overturning: number; restoring: number; heading: string }
+    | {
+        safety: number;
+        pose: Pose;
+        ci: number;
+        overturning: number;
+        restoring: number;
+        heading: string;
+      }
     | undefined;
   /** Keeps the least safety against tipping over an edge `edge` from the pivot line. */
-  const tryEdge = (pose: Pose, ci: number, over: number, edge: number, heading: string): void => {
+  const tryEdge = (
+    pose: Pose,
+    ci: number,
+    over: number,
+    edge: number,
+    heading: string,
+  ): void => {
     const restoring = restoringMoment(base.mass, model.gravity, edge);
     const safety = over > 0 ? restoring / over : Infinity;
-    if (!worst || safety < worst.safety) worst = { safety, pose, ci, overturning: over, restoring, heading };
+    if (!worst || safety < worst.safety)
+      worst = { safety, pose, ci, overturning: over, restoring, heading };
   };
   type Peak = { value: number; pose?: Pose; ci: number; words?: string };
   // with a working force across the plane the drawing plane's own set needs the 3D sums too
@@ -163,31 +285,70 @@ export function checkTipping(ctx: CheckContext): void {
   const edges = base.footprint
     ? base.yaw
       ? [
-          { edge: base.footprint.width / 2, heading: "facing along the footprint's width" },
-          { edge: base.footprint.depth / 2, heading: "turned to face across the footprint's depth" },
+          {
+            edge: base.footprint.width / 2,
+            heading: "facing along the footprint's width",
+          },
+          {
+            edge: base.footprint.depth / 2,
+            heading: "turned to face across the footprint's depth",
+          },
         ]
       : [{ edge: base.footprint.width / 2, heading: "" }]
     : [];
+  // Hoisted out of the pose loop (the untuned tier pays for every object and call): each load
+  // case's payload masses, each edge's words, and the plane loads' objects, reused pose to pose.
+  const massesByCase = sweep.loadCases.map((_, ci) =>
+    payloadMasses(model, sweep, ci),
+  );
+  const edgeWords = edges.map((e) => (e.heading ? `${e.heading}, ` : ""));
+  const planeLoads = armLoadSources(model);
+  const loads: PlaneLoad[] = [];
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     for (let ci = 0; ci < pose.cases.length; ci++) {
-      const loads = armLoads(model, pose, payloadMasses(model, sweep, ci));
-      const fy = loads.reduce((s, l) => s + l.fy, 0);
-      const fx = loads.reduce((s, l) => s + l.fx, 0);
+      const count = armLoadsInto(
+        planeLoads,
+        model.gravity,
+        pose,
+        massesByCase[ci] ?? {},
+        loads,
+      );
+      let fy = 0;
+      let fx = 0;
+      for (let k = 0; k < count; k++) fy += loads[k]!.fy;
+      for (let k = 0; k < count; k++) fx += loads[k]!.fx;
       // moment about the base's origin (the bearing's centre): the edge at 0
-      const m0 = Math.abs(overturningMoment(loads, 0, 1, 0));
+      const m0 = Math.abs(overturningMoment(loads, 0, 1, 0, count));
       if (-fy > thrust.value) thrust = { value: -fy, pose, ci };
       if (m0 > moment.value) moment = { value: m0, pose, ci };
-      if (Math.abs(fx) > radial.value) radial = { value: Math.abs(fx), pose, ci };
-      for (const e of edges) {
-        for (const sign of [1, -1] as const) {
-          const over = overturningMoment(loads, e.edge, sign, base.surface);
-          tryEdge(pose, ci, over, e.edge, e.heading ? `${e.heading}, ` : "");
-        }
+      if (Math.abs(fx) > radial.value)
+        radial = { value: Math.abs(fx), pose, ci };
+      for (let ei = 0; ei < edges.length; ei++) {
+        const edge = edges[ei]!.edge;
+        tryEdge(
+          pose,
+          ci,
+          overturningMoment(loads, edge, 1, base.surface, count),
+          edge,
+          edgeWords[ei]!,
+        );
+        tryEdge(
+          pose,
+          ci,
+          overturningMoment(loads, edge, -1, base.surface, count),
+          edge,
+          edgeWords[ei]!,
+        );
       }
       // the swivels above the base turned, all together (the drawing plane's set was just done)
       for (const headings of turnedSets) {
-        const turned = armLoadsTurned(model, pose, payloadMasses(model, sweep, ci), headings);
+        const turned = armLoadsTurned(
+          model,
+          pose,
+          payloadMasses(model, sweep, ci),
+          headings,
+        );
         const words = headingWords(headings);
         const mAny = overturningAnyWay(turned, 0);
         if (mAny > moment.value) moment = { value: mAny, pose, ci, words };
@@ -202,12 +363,28 @@ export function checkTipping(ctx: CheckContext): void {
         const Dp = base.footprint.depth / 2;
         const tries = base.yaw
           ? [
-              { edge: W, lever: overturningAnyWay(turned, base.surface), heading: edges[0]!.heading },
-              { edge: Dp, lever: overturningAnyWay(turned, base.surface), heading: edges[1]!.heading },
+              {
+                edge: W,
+                lever: overturningAnyWay(turned, base.surface),
+                heading: edges[0]!.heading,
+              },
+              {
+                edge: Dp,
+                lever: overturningAnyWay(turned, base.surface),
+                heading: edges[1]!.heading,
+              },
             ]
           : [
-              { edge: W, lever: overturningToward(turned, 1, 0, base.surface), heading: "" },
-              { edge: W, lever: overturningToward(turned, -1, 0, base.surface), heading: "" },
+              {
+                edge: W,
+                lever: overturningToward(turned, 1, 0, base.surface),
+                heading: "",
+              },
+              {
+                edge: W,
+                lever: overturningToward(turned, -1, 0, base.surface),
+                heading: "",
+              },
               {
                 edge: Dp,
                 lever: overturningToward(turned, 0, 1, base.surface),
@@ -221,17 +398,40 @@ export function checkTipping(ctx: CheckContext): void {
             ];
         for (const t of tries) {
           const said = [t.heading, words].filter((x) => x);
-          tryEdge(pose, ci, t.lever + t.edge * fyTurned, t.edge, said.length ? `${said.join(", ")}, ` : "");
+          tryEdge(
+            pose,
+            ci,
+            t.lever + t.edge * fyTurned,
+            t.edge,
+            said.length ? `${said.join(", ")}, ` : "",
+          );
         }
       }
     }
   }
   const at = (p: Peak) =>
-    p.pose ? `${describePose(sweep, p.pose, p.ci)}${p.words ? `, ${p.words}` : ""}` : "";
+    p.pose
+      ? `${describePose(sweep, p.pose, p.ci)}${p.words ? `, ${p.words}` : ""}`
+      : "";
   addFigures(ctx.readouts, base.bodyId, "base", [
-    { label: "vertical thrust on the base", value: thrust.value, dimension: "force", where: at(thrust) },
-    { label: "overturning moment at the base", value: moment.value, dimension: "torque", where: at(moment) },
-    { label: "radial load on the base", value: radial.value, dimension: "force", where: at(radial) },
+    {
+      label: "vertical thrust on the base",
+      value: thrust.value,
+      dimension: "force",
+      where: at(thrust),
+    },
+    {
+      label: "overturning moment at the base",
+      value: moment.value,
+      dimension: "torque",
+      where: at(moment),
+    },
+    {
+      label: "radial load on the base",
+      value: radial.value,
+      dimension: "force",
+      where: at(radial),
+    },
   ]);
   if (!base.footprint) {
     addFigures(
@@ -239,7 +439,9 @@ export function checkTipping(ctx: CheckContext): void {
       base.bodyId,
       "base",
       [],
-      ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."],
+      [
+        "No footprint given: tipping is not checked (a base clamped or screwed down does not tip).",
+      ],
     );
     return;
   }
@@ -251,7 +453,11 @@ export function checkTipping(ctx: CheckContext): void {
       value: worst.safety,
       dimension: "dimensionless",
       where,
-      result: { key: "tipping_safety", limit: model.require.tipping, atLeast: true },
+      result: {
+        key: "tipping_safety",
+        limit: model.require.tipping,
+        atLeast: true,
+      },
     },
   ]);
   noteSafety(ctx.readouts, base.bodyId, "base", worst.safety, "tipping", where);
