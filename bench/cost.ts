@@ -115,19 +115,27 @@ export function runCostBench(log: Log, root: string): boolean {
     `60-body chain: ${((sweepMs / poses) * 1000).toFixed(0)} us a pose (${poses} poses), one sparse factorisation ${(factorMs * 1000).toFixed(1)} us (n = ${cs.n}, ${lu.nonZeros} non-zeros in L and U of ${cs.n * cs.n}): ratio ${ratio.toFixed(1)} (target <= ${COST_TARGETS.poseOverSparseFactor})`,
   );
 
-  // `poise check` of the engraver sample as a whole process: start-up, reading, analysis, output.
+  // `poise check` of the engraver sample as a whole process, as a user runs it (the launcher
+  // bin/poise.js with the build's code cache): start-up, reading, analysis, output. The bundle
+  // run bare (no cache) is printed beside it.
+  const launcher = join(root, "bin", "poise.js");
   const cli = join(root, "dist", "cli.js");
   const sample = join(root, "samples", "engraver-arm.poise");
   if (existsSync(cli) && existsSync(sample) && childrenCpuMs() !== undefined) {
-    let least = Infinity;
-    for (let i = 0; i < 5; i++) {
-      const before = childrenCpuMs()!;
-      spawnSync(process.execPath, [cli, "check", sample], { encoding: "utf8" });
-      least = Math.min(least, childrenCpuMs()! - before);
-    }
+    const leastProcessMs = (script: string) => {
+      let least = Infinity;
+      for (let i = 0; i < 7; i++) {
+        const before = childrenCpuMs()!;
+        spawnSync(process.execPath, [script, "check", sample], { encoding: "utf8" });
+        least = Math.min(least, childrenCpuMs()! - before);
+      }
+      return least;
+    };
+    const least = leastProcessMs(launcher);
+    const bare = leastProcessMs(cli);
     say(
       least <= COST_TARGETS.checkProcessMs,
-      `poise check samples/engraver-arm.poise, whole process: ${least.toFixed(0)} ms CPU (target <= ${COST_TARGETS.checkProcessMs})`,
+      `poise check samples/engraver-arm.poise, whole process: ${least.toFixed(0)} ms CPU (target <= ${COST_TARGETS.checkProcessMs}; the bundle without the launcher's code cache ${bare.toFixed(0)} ms)`,
     );
   } else log("  poise check: dist/cli.js or the sample missing (npm run build), or no /proc: not measured");
 

@@ -35,7 +35,7 @@ function where(text: string, needle: string): { line: number; column: number } {
 function poiseInHeap(heapMb: number, ...args: string[]): CliResult {
   const r = spawnSync(
     process.execPath,
-    [`--max-old-space-size=${heapMb}`, join(ROOT, "dist", "cli.js"), ...args],
+    [`--max-old-space-size=${heapMb}`, join(ROOT, "bin", "poise.js"), ...args],
     {
       cwd: ROOT,
       encoding: "utf8",

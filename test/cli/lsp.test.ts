@@ -10,7 +10,7 @@ beforeAll(() => ensureBuilt());
 
 describe("poise lsp", () => {
   it("serves diagnostics and hover over stdio", async () => {
-    const session = new ProtocolSession({}, [join(ROOT, "dist", "cli.js"), "lsp", "--stdio"]);
+    const session = new ProtocolSession({}, [join(ROOT, "bin", "poise.js"), "lsp", "--stdio"]);
     const init = await session.initialize();
     expect(init.serverInfo?.name).toBe("counterpoise");
     const text = readFileSync(join(ROOT, "samples", "mistakes.poise"), "utf8");

@@ -1,4 +1,5 @@
-// Runs the bundled `poise` command (dist/cli.js) as a child process, as a terminal or CI would.
+// Runs the `poise` command (bin/poise.js, the launcher of dist/cli.js) as a child process, as a
+// terminal or CI would.
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, writeFileSync } from "node:fs";
 import { tmpdir } from "node:os";
@@ -14,7 +15,7 @@ export interface CliResult {
 }
 
 export function poise(...args: string[]): CliResult {
-  const r = spawnSync(process.execPath, [join(ROOT, "dist", "cli.js"), ...args], {
+  const r = spawnSync(process.execPath, [join(ROOT, "bin", "poise.js"), ...args], {
     cwd: ROOT,
     encoding: "utf8",
     timeout: 60_000,

@@ -1,4 +1,4 @@
-// What the `poise` command (dist/cli.js, the same build as the .vsix) says about a file: the
+// What the `poise` command (bin/poise.js over dist/cli.js, the same build as the .vsix) says about a file: the
 // expectations the editor test holds the editor's diagnostics, hover, status bar and drawing to.
 import { spawnSync } from "node:child_process";
 import { mkdtempSync, rmSync, writeFileSync } from "node:fs";
@@ -6,7 +6,7 @@ import { tmpdir } from "node:os";
 import { join } from "node:path";
 import { ROOT } from "./workspace.mjs";
 
-const CLI = join(ROOT, "dist", "cli.js");
+const CLI = join(ROOT, "bin", "poise.js");
 
 function run(args) {
   const r = spawnSync(process.execPath, [CLI, ...args], { encoding: "utf8", timeout: 60_000 });

@@ -11,6 +11,8 @@ import { protocolLines } from "./lsp-client";
 
 const root = join(__dirname, "..", "..");
 const cli = join(root, "dist", "cli.js");
+/** The command as a user runs it: the launcher over the bundle (bin/poise.js). */
+const poise = join(root, "bin", "poise.js");
 /** Files per family: each run of the command analyses them all at once. */
 const PER_FAMILY = 12;
 
@@ -46,7 +48,7 @@ afterAll(() => {
 
 describe("poise on fuzzed files", () => {
   it("check --json: exit 0 or 1, one JSON array, every line and column inside its file", () => {
-    const run = spawnSync(process.execPath, [cli, "check", "--json", ...files.map((f) => f.path)], {
+    const run = spawnSync(process.execPath, [poise, "check", "--json", ...files.map((f) => f.path)], {
       encoding: "utf8",
       timeout: 120_000,
       maxBuffer: 1 << 28,
@@ -89,7 +91,7 @@ describe("poise on fuzzed files", () => {
 
   it("sweep --json on each valid file: exit 0 or 1 and a JSON pose table with no NaN", () => {
     for (const f of files.filter((x) => x.path.includes("/valid-")).slice(0, 6)) {
-      const run = spawnSync(process.execPath, [cli, "sweep", "--json", f.path], {
+      const run = spawnSync(process.execPath, [poise, "sweep", "--json", f.path], {
         encoding: "utf8",
         timeout: 60_000,
         maxBuffer: 1 << 28,

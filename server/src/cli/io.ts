@@ -1,6 +1,7 @@
-// The command's only contact with the outside: reading spec files and writing to the streams.
-import { closeSync, openSync, readSync, realpathSync, statSync, writeFileSync } from "node:fs";
-import { resolve } from "node:path";
+// The command's only contact with the outside: reading spec files, writing to the streams, and
+// loading the language server's bundle for `poise lsp`.
+import { closeSync, existsSync, openSync, readSync, realpathSync, statSync, writeFileSync } from "node:fs";
+import { join, resolve } from "node:path";
 import { MAX_SPEC_CHARS } from "../limits";
 
 /** Longest spec file read, bytes: the core's limit (1 MiB; a file of no more bytes holds no more
@@ -100,4 +101,15 @@ export function writeTextFile(file: string, text: string, out: Output, command: 
     out.err(`poise ${command}: cannot write ${file}${code ? ` (${code})` : ""}\n`);
     return false;
   }
+}
+
+/** Loads the language server's own bundle beside the command's (dist/server.js, from
+ * lsp/main.ts), which starts the server on load. It is kept out of the command's bundle so that
+ * `poise check` does not load (parse) the protocol libraries, a third of the bundle. False when
+ * the bundle is missing. */
+export function startBundledServer(): boolean {
+  const server = join(__dirname, "server.js");
+  if (!existsSync(server)) return false;
+  require(server);
+  return true;
 }

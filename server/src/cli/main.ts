@@ -5,7 +5,7 @@ import { runSweep } from "./sweep";
 import { runReport } from "./report";
 import { runResults } from "./results";
 import { runTune } from "./tune";
-import { processOutput, type Output } from "./io";
+import { processOutput, startBundledServer, type Output } from "./io";
 import { switchOptimiserPerSpec } from "./optimiser";
 import packageJson from "../../../package.json";
 
@@ -31,11 +31,13 @@ async function runLsp(args: string[], out: Output): Promise<number> {
     out.err("poise lsp: only --stdio is supported (poise lsp --stdio)\n");
     return 2;
   }
-  const { createServerConnection } = await import("../lsp/transport");
-  const { startServer } = await import("../lsp/server");
-  // `--stdio` on the command line: the connection reads stdin (behind the frame guard), writes
-  // stdout and sends console output to the client's log, so nothing stray corrupts the stream.
-  startServer(createServerConnection());
+  // The server's own bundle (io.ts). `--stdio` on the command line: the connection reads stdin
+  // (behind the frame guard), writes stdout and sends console output to the client's log, so
+  // nothing stray corrupts the stream.
+  if (!startBundledServer()) {
+    out.err("poise lsp: dist/server.js is missing; run `npm run build` first\n");
+    return 2;
+  }
   return new Promise<number>(() => {}); // runs until the client ends it (exit notification)
 }
 
