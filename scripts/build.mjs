@@ -10,7 +10,8 @@ const entries = [
   { in: "server/src/lsp/main.ts", out: "server" },
   // The analysis runs off the server's request path in this worker (server/src/lsp/session/runner.ts).
   { in: "server/src/lsp/session/analysis-worker.ts", out: "analysis-worker" },
-  { in: "server/src/cli/main.ts", out: "cli" },
+  // `poise lsp` requires the server's own bundle beside it (cli/io.ts).
+  { in: "server/src/cli/main.ts", out: "cli", external: ["./server.js"] },
   { in: "bench/bench.ts", out: "bench" },
 ];
 

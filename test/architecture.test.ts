@@ -83,7 +83,7 @@ describe("layer rules", () => {
       .filter((f) => !relative(src, f).startsWith("lsp"))
       .flatMap((f) =>
         importsOf(readFileSync(f, "utf8"))
-          .filter((s) => PROTOCOL.some((re) => re.test(s)) && !isCliServerLaunch(f, s))
+          .filter((s) => PROTOCOL.some((re) => re.test(s)))
           .map((s) => `${relative(root, f)}: ${s}`),
       );
     expect(offenders).toEqual([]);
@@ -131,12 +131,6 @@ describe("layer rules", () => {
     expect(offenders).toEqual([]);
   });
 });
-
-/** `poise lsp --stdio` starts the same server: the CLI's main may load the protocol library for
- * that one command, and nothing else in cli/ may. */
-function isCliServerLaunch(file: string, spec: string): boolean {
-  return relative(src, file) === join("cli", "main.ts") && spec === "vscode-languageserver/node";
-}
 
 /** Path from the repository root with forward slashes. */
 const repoPath = (file: string) => relative(root, file).split(sep).join("/");

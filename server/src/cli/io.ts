@@ -108,8 +108,9 @@ export function writeTextFile(file: string, text: string, out: Output, command: 
  * `poise check` does not load (parse) the protocol libraries, a third of the bundle. False when
  * the bundle is missing. */
 export function startBundledServer(): boolean {
-  const server = join(__dirname, "server.js");
-  if (!existsSync(server)) return false;
-  require(server);
+  if (!existsSync(join(__dirname, "server.js"))) return false;
+  // A literal name that scripts/build.mjs leaves outside the bundle: dist/cli.js requires
+  // dist/server.js beside it.
+  require("./server.js");
   return true;
 }
