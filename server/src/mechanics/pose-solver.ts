@@ -389,14 +389,15 @@ export class PoseSolver {
     const gravity = model.gravity;
     updateAngles(cs, this.q);
 
+    // Plain loops rather than forEach here and below: `poise` runs a small spec without the
+    // optimising compiler, where a callback a pose and item costs a call each.
     const angles: Record<string, number> = {};
-    L.dofs.forEach((d, i) => (angles[d.id] = this.angles[i]!));
+    for (let i = 0; i < ndof; i++) angles[L.dofs[i]!.id] = this.angles[i]!;
     const jointAngles: Record<string, number> = {};
-    g.joints.forEach((j, i) => (jointAngles[j.id] = this.jointAngle(i)));
+    for (let i = 0; i < g.joints.length; i++) jointAngles[g.joints[i]!.id] = this.jointAngle(i);
     const bodies: Pose["bodies"] = { [g.baseId]: { x: 0, y: 0, phi: 0 } };
-    g.bodyIds.forEach(
-      (id, b) => (bodies[id] = { x: this.q[3 * b]!, y: this.q[3 * b + 1]!, phi: this.q[3 * b + 2]! }),
-    );
+    for (let b = 0; b < g.bodyIds.length; b++)
+      bodies[g.bodyIds[b]!] = { x: this.q[3 * b]!, y: this.q[3 * b + 1]!, phi: this.q[3 * b + 2]! };
 
     // Springs: state, tension, generalized force and the holding torque per unit of tension.
     const springs: Record<string, SpringState> = {};
@@ -473,87 +474,12 @@ export class PoseSolver {
         }
       }
       const rec: Record<string, Vec2> = {};
-      L.dofs.forEach((d, i) => (rec[d.id] = { x: jac[2 * i]!, y: jac[2 * i + 1]! }));
+      for (let i = 0; i < ndof; i++) rec[L.dofs[i]!.id] = { x: jac[2 * i]!, y: jac[2 * i + 1]! };
       payloadJacobian[p.id] = rec;
     }
 
-    const tau = this.tau;
-    const cases: PoseStatics[] = this.loadCases.map((lc) => {
-      this.qCase.set(this.qSprings);
-      for (let i = 0; i < n; i++) this.qCase[i]! += this.qBodies[i]!;
-      model.payloads.forEach((p, k) => {
-        const b = payloadBody[k]!;
-        if (b < 0) return;
-        const mass = lc.payloadMass[p.id] ?? p.mass;
-        this.addForce(
-          this.qCase,
-          b,
-          p.point.x,
-          p.point.y,
-          p.force?.x ?? 0,
-          (p.force?.y ?? 0) - mass * gravity,
-        );
-        // a working torque's in-plane part is a couple on the payload's body
-        if (p.torque?.z) this.qCase[3 * b + 2]! += p.torque.z;
-      });
-      this.luCurrent.solveTransposed(this.qCase, this.lambda);
-      const holdingTorque: Record<string, number> = {};
-      L.dofs.forEach((d, i) => {
-        const v = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!;
-        tau[i] = v;
-        holdingTorque[d.id] = v;
-      });
-      const lockedTorque: Record<string, number> = {};
-      L.driveKind.forEach((k, di) => {
-        if (k === "dof") return;
-        lockedTorque[g.joints[L.driveJoint[di]!]!.id] = -this.lambda[L.driveRow[di]!]!;
-      });
-      const reactions: Record<string, Vec2> = {};
-      g.joints.forEach((j, ji) => {
-        const rx = L.revRow[2 * ji]!;
-        const ry = L.revRow[2 * ji + 1]!;
-        reactions[j.id] = { x: rx >= 0 ? this.lambda[rx]! : 0, y: ry >= 0 ? this.lambda[ry]! : 0 };
-      });
-      // The parts of that torque. Holding torque is the generalized force's virtual work along
-      // each dof's tangent (lambda_d = t_d . Q), so a force F at a payload's centre adds
-      // -(dp/dtheta) . F: the payload Jacobian gives the payloads' weights and steady forces.
-      const gravityTorque: Record<string, number> = {};
-      const loadTorque: Record<string, number> = {};
-      L.dofs.forEach((d, i) => {
-        let weight = bodiesGravityTorque[d.id]!;
-        let load = 0;
-        model.payloads.forEach((p, k) => {
-          if (payloadBody[k]! < 0) return;
-          const jx = payloadJ[k]![2 * i]!;
-          const jy = payloadJ[k]![2 * i + 1]!;
-          weight += (lc.payloadMass[p.id] ?? p.mass) * gravity * jy;
-          if (p.force) load -= p.force.x * jx + p.force.y * jy;
-          // a couple's virtual work along the dof: T times the body's turn per unit dof
-          if (p.torque?.z) load -= p.torque.z * this.tangents[i * n + 3 * payloadBody[k]! + 2]!;
-        });
-        gravityTorque[d.id] = weight;
-        loadTorque[d.id] = load;
-      });
-      const handForce: Record<string, number> = {};
-      const handForceVectorRec: Record<string, Vec2> = {};
-      const beyond = torqueBeyondFriction(tau, this.friction, this.tauBeyond, ndof);
-      model.payloads.forEach((p, k) => {
-        if (payloadBody[k]! < -1) return;
-        const f = handForceVector(payloadJ[k]!, beyond, ndof);
-        handForce[p.id] = Math.hypot(f.x, f.y);
-        handForceVectorRec[p.id] = f;
-      });
-      return {
-        holdingTorque,
-        handForce,
-        handForceVector: handForceVectorRec,
-        reactions,
-        lockedTorque,
-        springForce,
-        gravityTorque,
-        loadTorque,
-      };
-    });
+    const cases: PoseStatics[] = [];
+    for (const lc of this.loadCases) cases.push(this.caseStatics(lc, springForce, bodiesGravityTorque));
     return {
       index,
       angles,
@@ -565,6 +491,95 @@ export class PoseSolver {
       springTorquePerUnit,
       springTorque,
       ...(this.keepBodyVelocities ? { bodyVelocities: this.bodyVelocities() } : {}),
+    };
+  }
+
+  /** The statics of load case `lc` at the current pose (record() has set the springs' and the
+   * bodies' generalized forces and the payloads' Jacobians). */
+  private caseStatics(
+    lc: LoadCase,
+    springForce: Record<string, number>,
+    bodiesGravityTorque: Record<string, number>,
+  ): PoseStatics {
+    const L = this.linkage;
+    const g = L.graph;
+    const n = this.n;
+    const ndof = this.ndof;
+    const model = this.model;
+    const gravity = model.gravity;
+    const payloadJ = this.payloadJ;
+    const payloadBody = this.payloadBody;
+    const tau = this.tau;
+    this.qCase.set(this.qSprings);
+    for (let i = 0; i < n; i++) this.qCase[i]! += this.qBodies[i]!;
+    for (let k = 0; k < model.payloads.length; k++) {
+      const p = model.payloads[k]!;
+      const b = payloadBody[k]!;
+      if (b < 0) continue;
+      const mass = lc.payloadMass[p.id] ?? p.mass;
+      this.addForce(this.qCase, b, p.point.x, p.point.y, p.force?.x ?? 0, (p.force?.y ?? 0) - mass * gravity);
+      // a working torque's in-plane part is a couple on the payload's body
+      if (p.torque?.z) this.qCase[3 * b + 2]! += p.torque.z;
+    }
+    this.luCurrent.solveTransposed(this.qCase, this.lambda);
+    const holdingTorque: Record<string, number> = {};
+    for (let i = 0; i < ndof; i++) {
+      const v = -this.lambda[L.driveRow[L.dofDrive[i]!]!]!;
+      tau[i] = v;
+      holdingTorque[L.dofs[i]!.id] = v;
+    }
+    const lockedTorque: Record<string, number> = {};
+    for (let di = 0; di < L.driveKind.length; di++) {
+      if (L.driveKind[di] === "dof") continue;
+      lockedTorque[g.joints[L.driveJoint[di]!]!.id] = -this.lambda[L.driveRow[di]!]!;
+    }
+    const reactions: Record<string, Vec2> = {};
+    for (let ji = 0; ji < g.joints.length; ji++) {
+      const rx = L.revRow[2 * ji]!;
+      const ry = L.revRow[2 * ji + 1]!;
+      reactions[g.joints[ji]!.id] = { x: rx >= 0 ? this.lambda[rx]! : 0, y: ry >= 0 ? this.lambda[ry]! : 0 };
+    }
+    // The parts of that torque. Holding torque is the generalized force's virtual work along
+    // each dof's tangent (lambda_d = t_d . Q), so a force F at a payload's centre adds
+    // -(dp/dtheta) . F: the payload Jacobian gives the payloads' weights and steady forces.
+    const gravityTorque: Record<string, number> = {};
+    const loadTorque: Record<string, number> = {};
+    for (let i = 0; i < ndof; i++) {
+      const d = L.dofs[i]!;
+      let weight = bodiesGravityTorque[d.id]!;
+      let load = 0;
+      for (let k = 0; k < model.payloads.length; k++) {
+        const p = model.payloads[k]!;
+        if (payloadBody[k]! < 0) continue;
+        const jx = payloadJ[k]![2 * i]!;
+        const jy = payloadJ[k]![2 * i + 1]!;
+        weight += (lc.payloadMass[p.id] ?? p.mass) * gravity * jy;
+        if (p.force) load -= p.force.x * jx + p.force.y * jy;
+        // a couple's virtual work along the dof: T times the body's turn per unit dof
+        if (p.torque?.z) load -= p.torque.z * this.tangents[i * n + 3 * payloadBody[k]! + 2]!;
+      }
+      gravityTorque[d.id] = weight;
+      loadTorque[d.id] = load;
+    }
+    const handForce: Record<string, number> = {};
+    const handForceVectorRec: Record<string, Vec2> = {};
+    const beyond = torqueBeyondFriction(tau, this.friction, this.tauBeyond, ndof);
+    for (let k = 0; k < model.payloads.length; k++) {
+      if (payloadBody[k]! < -1) continue;
+      const p = model.payloads[k]!;
+      const f = handForceVector(payloadJ[k]!, beyond, ndof);
+      handForce[p.id] = Math.hypot(f.x, f.y);
+      handForceVectorRec[p.id] = f;
+    }
+    return {
+      holdingTorque,
+      handForce,
+      handForceVector: handForceVectorRec,
+      reactions,
+      lockedTorque,
+      springForce,
+      gravityTorque,
+      loadTorque,
     };
   }
 

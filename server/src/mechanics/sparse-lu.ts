@@ -60,6 +60,19 @@ export class SparseLu {
   private stamp = 0;
   /** How many columns of L the last solveColumn applied (their indices sorted in `order`). */
   private pivotalCount = 0;
+  /** Each column's pattern from the last factorization (its reach, then its pivotal columns in
+   * order, at patternStart[k]..; the reach's length in reachLength[k]) and the pivot row it took.
+   * A column's pattern depends only on A's structure and the pivots of the columns before it, so
+   * while a factorization of the same structure takes the same pivots (the sweep's next pose,
+   * nearly always) each column's pattern is copied instead of searched for again. */
+  private patternStart: Int32Array;
+  private patternStore: Int32Array;
+  private readonly reachLength: Int32Array;
+  private readonly patternPivotRow: Int32Array;
+  /** Leading columns whose stored pattern fits the matrix structure below. */
+  private patternColumns = 0;
+  private patternColStart?: Int32Array;
+  private patternRowIndex?: Int32Array;
   /** Smallest |pivot| over the largest |entry| of the last factorization (0 when singular). */
   pivotRatio = 0;
   /** Sign of the determinant of the last factored matrix (+1 or -1; 0 when singular): a change
@@ -89,6 +102,10 @@ export class SparseLu {
     this.edge = new Int32Array(n);
     this.mark = new Int32Array(n);
     this.order = new Int32Array(n);
+    this.patternStart = new Int32Array(n + 1);
+    this.patternStore = new Int32Array(2 * cap);
+    this.reachLength = new Int32Array(n);
+    this.patternPivotRow = new Int32Array(n);
   }
 
   /** Non-zeros held in L and U (the bench compares them with n^2). */
@@ -118,6 +135,12 @@ export class SparseLu {
     }
     if (scale === 0) return this.singular();
     for (let i = 0; i < n; i++) this.rowAt[i] = this.positionOf[i] = i;
+    // Stored patterns serve while the structure is the same and the pivots repeat.
+    let storedColumns =
+      a.colStart === this.patternColStart && a.rowIndex === this.patternRowIndex ? this.patternColumns : 0;
+    this.patternColumns = 0;
+    this.patternColStart = a.colStart;
+    this.patternRowIndex = a.rowIndex;
     let lnz = 0;
     let unz = 0;
     let minPivot = Infinity;
@@ -128,7 +151,8 @@ export class SparseLu {
       // Room for a full column of each before this one is written.
       if (lnz + n > this.lRow.length) this.growL(2 * this.lRow.length + n);
       if (unz + n > this.uRow.length) this.growU(2 * this.uRow.length + n);
-      const top = this.solveColumn(a, k);
+      const top = k < storedColumns ? this.storedPattern(k) : this.searchPattern(a, k);
+      this.applyColumnsOfL(a, k, top);
       const reach = this.reach;
       let pivotRow = -1;
       let best = 0;
@@ -158,6 +182,8 @@ export class SparseLu {
       this.uVal[unz++] = pivot;
       pinv[pivotRow] = k;
       this.pivotRowOf[k] = pivotRow;
+      if (k < storedColumns && pivotRow !== this.patternPivotRow[k]) storedColumns = k + 1;
+      this.patternPivotRow[k] = pivotRow;
       const displaced = this.rowAt[k]!;
       const from = this.positionOf[pivotRow]!;
       if (displaced !== pivotRow) {
@@ -180,6 +206,7 @@ export class SparseLu {
     }
     this.lStart[n] = lnz;
     this.uStart[n] = unz;
+    this.patternColumns = n;
     for (let p = 0; p < lnz; p++) this.lRow[p] = pinv[this.lRow[p]!]!;
     this.sortColumnsOfL();
     this.buildRowsOfU();
@@ -194,24 +221,62 @@ export class SparseLu {
     return false;
   }
 
-  /** x = L \ A(:, k) on the rows reached from column k's pattern; returns where the reach starts
-   * in `this.reach` (it runs to n - 1). The columns of L are applied in pivot order, as the dense
-   * algorithm's updates come, so each entry sees the same subtractions in the same order. */
-  private solveColumn(a: SparseColumns, k: number): number {
+  /** Column k's pattern found afresh: the rows x = L \ A(:, k) can reach, at reach[top .. n - 1],
+   * and the columns of L to apply, in pivot order (in `order`); stored for the next
+   * factorization. Returns top. */
+  private searchPattern(a: SparseColumns, k: number): number {
     const top = this.reachOf(a, k);
+    const n = this.n;
+    const reach = this.reach;
+    const order = this.order;
+    let count = 0;
+    for (let p = top; p < n; p++) {
+      const col = this.pinv[reach[p]!]!;
+      if (col < 0) continue;
+      // Insertion into ascending order: a column has a few pivotal entries.
+      let q = count++;
+      while (q > 0 && order[q - 1]! > col) {
+        order[q] = order[q - 1]!;
+        q--;
+      }
+      order[q] = col;
+    }
+    this.pivotalCount = count;
+    const length = n - top;
+    const at = this.patternStart[k]!;
+    if (at + length + count > this.patternStore.length)
+      this.patternStore = grownInt(this.patternStore, 2 * (at + length + count));
+    this.patternStore.set(reach.subarray(top, n), at);
+    this.patternStore.set(order.subarray(0, count), at + length);
+    this.reachLength[k] = length;
+    this.patternStart[k + 1] = at + length + count;
+    return top;
+  }
+
+  /** Column k's pattern as the last factorization stored it (see patternStart). Returns top. */
+  private storedPattern(k: number): number {
+    const n = this.n;
+    const at = this.patternStart[k]!;
+    const length = this.reachLength[k]!;
+    const count = this.patternStart[k + 1]! - at - length;
+    const top = n - length;
+    const store = this.patternStore;
+    for (let m = 0; m < length; m++) this.reach[top + m] = store[at + m]!;
+    for (let m = 0; m < count; m++) this.order[m] = store[at + length + m]!;
+    this.pivotalCount = count;
+    return top;
+  }
+
+  /** x = L \ A(:, k) on column k's pattern. The columns of L are applied in pivot order, as the
+   * dense algorithm's updates come, so each entry sees the same subtractions in the same order. */
+  private applyColumnsOfL(a: SparseColumns, k: number, top: number): void {
     const x = this.x;
     const reach = this.reach;
     const n = this.n;
     for (let p = top; p < n; p++) x[reach[p]!] = 0;
     for (let p = a.colStart[k]!; p < a.colStart[k + 1]!; p++) x[a.rowIndex[p]!] = a.values[p]!;
-    let count = 0;
-    for (let p = top; p < n; p++) {
-      const col = this.pinv[reach[p]!]!;
-      if (col >= 0) this.order[count++] = col;
-    }
-    const order = this.order.subarray(0, count).sort();
-    this.pivotalCount = count;
-    for (let m = 0; m < count; m++) {
+    const order = this.order;
+    for (let m = 0; m < this.pivotalCount; m++) {
       const col = order[m]!;
       // L's diagonal is 1: no division.
       const xj = x[this.pivotRowOf[col]!]!;
@@ -219,7 +284,6 @@ export class SparseLu {
       for (let p = this.lStart[col]! + 1; p < this.lStart[col + 1]!; p++)
         x[this.lRow[p]!]! -= this.lVal[p]! * xj;
     }
-    return top;
   }
 
   /** The rows a sparse solve with the columns of L factored so far can reach from column k of A,
