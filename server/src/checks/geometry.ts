@@ -11,14 +11,7 @@ import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures } from "./readout";
 import { carrierHead, jointsBetween, parallelogramOfHead } from "./arm-paths";
-import {
-  bodyWord,
-  describePose,
-  pastDeadline,
-  relatedBody,
-  show,
-  spanOf,
-} from "./part-words";
+import { bodyWord, describePose, pastDeadline, relatedBody, show, spanOf } from "./part-words";
 import { atJoint, goesSlack, type HookSpring } from "../model/spring-kinds";
 import { springDofValue } from "../mechanics/spring-table";
 
@@ -57,23 +50,15 @@ export function leverArm(
   const dx = b.x - a.x;
   const dy = b.y - a.y;
   const L = Math.hypot(dx, dy);
-  return L > 0
-    ? Math.abs(dx * (p.y - a.y) - dy * (p.x - a.x)) / L
-    : Math.hypot(p.x - a.x, p.y - a.y);
+  return L > 0 ? Math.abs(dx * (p.y - a.y) - dy * (p.x - a.x)) / L : Math.hypot(p.x - a.x, p.y - a.y);
 }
 
 /** The degree of freedom the spring mainly works about: of the dof joints on the chain between
  * its two bodies, the one with the longest lever arm at the reference pose. */
-export function workingJoint(
-  model: ArmModel,
-  sweep: SweepResult,
-  s: HookSpring,
-) {
+export function workingJoint(model: ArmModel, sweep: SweepResult, s: HookSpring) {
   const ref = sweep.reference ?? sweep.poses[0];
   if (!ref) return undefined;
-  const candidates = jointsBetween(model, s.a.body, s.b.body).filter(
-    (j) => j.mode === "range",
-  );
+  const candidates = jointsBetween(model, s.a.body, s.b.body).filter((j) => j.mode === "range");
   let best: { joint: (typeof candidates)[number]; arm: number } | undefined;
   const st = ref.springs[s.id];
   for (const j of candidates) {
@@ -86,21 +71,14 @@ export function workingJoint(
 
 /** |holding torque the dof would need without this spring| (largest over load cases), N m:
  * the torque the spring is there to supply. 0 when the sweep gives no per-spring share. */
-function torqueWithoutSpring(
-  pose: Pose,
-  springId: string,
-  dofId: string,
-): number {
+function torqueWithoutSpring(pose: Pose, springId: string, dofId: string): number {
   const perUnit = springDofValue(pose.springTorquePerUnit, springId, dofId);
   if (perUnit === undefined) return 0;
   let most = 0;
   for (const c of pose.cases) {
     const tau = c.holdingTorque[dofId];
     if (tau === undefined) continue;
-    most = Math.max(
-      most,
-      Math.abs(tau - (c.springForce[springId] ?? 0) * perUnit),
-    );
+    most = Math.max(most, Math.abs(tau - (c.springForce[springId] ?? 0) * perUnit));
   }
   return most;
 }
@@ -109,9 +87,7 @@ function checkToggle(ctx: CheckContext, s: HookSpring): void {
   const { model, sweep } = ctx;
   const j = workingJoint(model, sweep, s);
   if (!j) return;
-  let worst:
-    | { share: number; arm: number; radius: number; pose: Pose; duty: number }
-    | undefined;
+  let worst: { share: number; arm: number; radius: number; pose: Pose; duty: number } | undefined;
   let smallest: { arm: number; pose: Pose } | undefined;
   let largestDuty = 0;
   let hookOnAxisPoses = 0;
@@ -120,23 +96,17 @@ function checkToggle(ctx: CheckContext, s: HookSpring): void {
     if (pastDeadline(ctx.options.deadline)) break;
     const st = pose.springs[s.id];
     if (!st) continue;
-    const working = pose.cases.some(
-      (c) => Math.abs(c.springForce[s.id] ?? 0) > IDLE_SPRING_N,
-    );
+    const working = pose.cases.some((c) => Math.abs(c.springForce[s.id] ?? 0) > IDLE_SPRING_N);
     if (!working) continue;
     workingPoses++;
     const p = worldPoint(pose, j.parent, j.parentPoint, model);
     const arm = leverArm(st.a, st.b, p);
-    const radius = Math.min(
-      Math.hypot(st.a.x - p.x, st.a.y - p.y),
-      Math.hypot(st.b.x - p.x, st.b.y - p.y),
-    );
+    const radius = Math.min(Math.hypot(st.a.x - p.x, st.a.y - p.y), Math.hypot(st.b.x - p.x, st.b.y - p.y));
     if (radius < HOOK_ON_AXIS_M) hookOnAxisPoses++;
     const share = radius > 0 ? arm / radius : 1;
     const duty = torqueWithoutSpring(pose, s.id, j.id);
     largestDuty = Math.max(largestDuty, duty);
-    if (!worst || share < worst.share)
-      worst = { share, arm, radius, pose, duty };
+    if (!worst || share < worst.share) worst = { share, arm, radius, pose, duty };
     if (!smallest || arm < smallest.arm) smallest = { arm, pose };
   }
   if (workingPoses > 0 && hookOnAxisPoses === workingPoses) {
@@ -168,8 +138,7 @@ function checkToggle(ctx: CheckContext, s: HookSpring): void {
       },
     ]);
   if (!worst || worst.share >= TOGGLE_LEVER_SHARE) return;
-  if (largestDuty > 0 && worst.duty < HARMLESS_TORQUE_SHARE * largestDuty)
-    return;
+  if (largestDuty > 0 && worst.duty < HARMLESS_TORQUE_SHARE * largestDuty) return;
   ctx.findings.push(
     finding(
       "geometry.spring-toggle",
@@ -189,10 +158,7 @@ function checkToggle(ctx: CheckContext, s: HookSpring): void {
 }
 
 /** Extension springs and rubber cords pull only above their free length. */
-function checkSlack(
-  ctx: CheckContext,
-  s: Extract<Spring, { freeLength: number }>,
-): void {
+function checkSlack(ctx: CheckContext, s: Extract<Spring, { freeLength: number }>): void {
   const { sweep } = ctx;
   const slack: Pose[] = [];
   let shortest = Infinity;
@@ -208,9 +174,7 @@ function checkSlack(
   const first = describePose(sweep, slack[0]!);
   const last = describePose(sweep, slack[slack.length - 1]!);
   const span =
-    slack.length === 1
-      ? first
-      : `from ${first.replace(/^at /, "")} to ${last.replace(/^at /, "")}`;
+    slack.length === 1 ? first : `from ${first.replace(/^at /, "")} to ${last.replace(/^at /, "")}`;
   ctx.findings.push(
     finding(
       "geometry.spring-slack",
@@ -236,13 +200,9 @@ interface TiltRange {
 }
 
 /** Range of a body's world orientation over the sweep. */
-export function orientationRange(
-  sweep: SweepResult,
-  bodyId: string,
-): TiltRange | undefined {
+export function orientationRange(sweep: SweepResult, bodyId: string): TiltRange | undefined {
   const ref =
-    sweep.reference?.bodies[bodyId]?.phi ??
-    sweep.poses.find((p) => p.bodies[bodyId])?.bodies[bodyId]?.phi;
+    sweep.reference?.bodies[bodyId]?.phi ?? sweep.poses.find((p) => p.bodies[bodyId])?.bodies[bodyId]?.phi;
   if (ref === undefined) return undefined;
   let low: TiltRange["low"] | undefined;
   let high: TiltRange["high"] | undefined;
@@ -257,10 +217,7 @@ export function orientationRange(
 }
 
 /** The tilt limit for a head: the tightest `require tilt` of the payloads it carries. */
-function tiltLimitForHead(
-  model: ArmModel,
-  headId: string,
-): { limit: number; payload?: string } {
+function tiltLimitForHead(model: ArmModel, headId: string): { limit: number; payload?: string } {
   let limit = model.require.tilt.default;
   let payload: string | undefined;
   for (const p of model.payloads) {
@@ -295,9 +252,7 @@ function checkTilt(ctx: CheckContext): void {
           related: payload
             ? [
                 {
-                  span:
-                    model.payloads.find((p) => p.id === payload)!.origin.name ??
-                    par.origin.declaration,
+                  span: model.payloads.find((p) => p.id === payload)!.origin.name ?? par.origin.declaration,
                   message: `payload ${payload} rides on the head`,
                 },
               ]
@@ -354,11 +309,7 @@ function segmentDistanceXY(
   const d2 = (q2x - q1x) * (p2y - q1y) - (q2y - q1y) * (p2x - q1x);
   const d3 = (p2x - p1x) * (q1y - p1y) - (p2y - p1y) * (q1x - p1x);
   const d4 = (p2x - p1x) * (q2y - p1y) - (p2y - p1y) * (q2x - p1x);
-  if (
-    ((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) &&
-    ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))
-  )
-    return 0;
+  if (((d1 > 0 && d2 < 0) || (d1 < 0 && d2 > 0)) && ((d3 > 0 && d4 < 0) || (d3 < 0 && d4 > 0))) return 0;
   const e = offsets;
   toSegment(p1x, p1y, q1x, q1y, q2x, q2y, e, 0);
   toSegment(p2x, p2y, q1x, q1y, q2x, q2y, e, 2);
@@ -382,8 +333,7 @@ function segmentDistanceXY(
   const threshold = least * (1 + SQUARE_MARGIN);
   let d = Infinity;
   for (let k = 0; k < 4; k++)
-    if (squares[k]! <= threshold)
-      d = Math.min(d, Math.hypot(e[2 * k]!, e[2 * k + 1]!));
+    if (squares[k]! <= threshold) d = Math.min(d, Math.hypot(e[2 * k]!, e[2 * k + 1]!));
   return d;
 }
 const offsets = new Float64Array(8);
@@ -403,24 +353,17 @@ function toSegment(
   const dx = bx - ax;
   const dy = by - ay;
   const L2 = dx * dx + dy * dy;
-  const t =
-    L2 > 0
-      ? Math.max(0, Math.min(1, ((px - ax) * dx + (py - ay) * dy) / L2))
-      : 0;
+  const t = L2 > 0 ? Math.max(0, Math.min(1, ((px - ax) * dx + (py - ay) * dy) / L2)) : 0;
   out[o] = px - (ax + t * dx);
   out[o + 1] = py - (ay + t * dy);
 }
 
 /** Pairs of bodies that meet by design: joined directly, or both pinned to a third body at the
  * same point (a shared pivot). Their segments touch and say nothing about clearance. */
-function joinedPairs<K>(
-  model: ArmModel,
-  key: (a: string, b: string) => K,
-): Set<K> {
+function joinedPairs<K>(model: ArmModel, key: (a: string, b: string) => K): Set<K> {
   const pairs = new Set<K>();
   const sites = new Map<string, string[]>();
-  const site = (body: string, p: { x: number; y: number }) =>
-    `${body}|${p.x.toFixed(5)}|${p.y.toFixed(5)}`;
+  const site = (body: string, p: { x: number; y: number }) => `${body}|${p.x.toFixed(5)}|${p.y.toFixed(5)}`;
   for (const j of model.joints) {
     pairs.add(key(j.parent, j.child));
     for (const [on, other, p] of [
@@ -434,8 +377,7 @@ function joinedPairs<K>(
   }
   for (const list of sites.values())
     for (let i = 0; i < list.length; i++)
-      for (let k = i + 1; k < list.length; k++)
-        pairs.add(key(list[i]!, list[k]!));
+      for (let k = i + 1; k < list.length; k++) pairs.add(key(list[i]!, list[k]!));
   addLayeredPairs(model, pairs, key);
   return pairs;
 }
@@ -443,19 +385,12 @@ function joinedPairs<K>(
 /** Two bodies pinned to one body closer together than their own half depths overlap there in
  * every pose, so the designer has put them in different layers (e.g. two stages on opposite
  * faces of a head plate): their segments say nothing about clearance. */
-function addLayeredPairs<K>(
-  model: ArmModel,
-  pairs: Set<K>,
-  key: (a: string, b: string) => K,
-): void {
+function addLayeredPairs<K>(model: ArmModel, pairs: Set<K>, key: (a: string, b: string) => K): void {
   const halfDepth = (id: string) => {
     const b = model.bodies.find((x) => x.id === id);
     return b?.section ? sectionProperties(b.section).depth / 2 : 0;
   };
-  const pinsOn = new Map<
-    string,
-    { other: string; at: { x: number; y: number } }[]
-  >();
+  const pinsOn = new Map<string, { other: string; at: { x: number; y: number } }[]>();
   for (const j of model.joints) {
     for (const [on, other, at] of [
       [j.parent, j.child, j.parentPoint],
@@ -473,8 +408,7 @@ function addLayeredPairs<K>(
         const b = list[k]!;
         if (a.other === b.other) continue;
         const pinGap = Math.hypot(a.at.x - b.at.x, a.at.y - b.at.y);
-        if (pinGap < halfDepth(a.other) + halfDepth(b.other))
-          pairs.add(key(a.other, b.other));
+        if (pinGap < halfDepth(a.other) + halfDepth(b.other)) pairs.add(key(a.other, b.other));
       }
     }
   }
@@ -491,12 +425,10 @@ interface SegmentShape {
 
 function segmentShape(body: Body): SegmentShape {
   const half = body.section ? sectionProperties(body.section).depth / 2 : 0;
-  if (body.length > 0)
-    return { body, farX: body.length, farY: 0, halfThickness: half };
+  if (body.length > 0) return { body, farX: body.length, farY: 0, halfThickness: half };
   // a head: from its origin to its farthest named point
   let far = { x: 0, y: 0 };
-  for (const p of Object.values(body.points))
-    if (Math.hypot(p.x, p.y) > Math.hypot(far.x, far.y)) far = p;
+  for (const p of Object.values(body.points)) if (Math.hypot(p.x, p.y) > Math.hypot(far.x, far.y)) far = p;
   return { body, farX: far.x, farY: far.y, halfThickness: half };
 }
 
@@ -521,9 +453,7 @@ function checkClearance(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   const need = model.require.clearance;
   const surface = model.base?.surface ?? 0;
-  const shapes = model.bodies
-    .filter((b) => b.kind !== "base")
-    .map(segmentShape);
+  const shapes = model.bodies.filter((b) => b.kind !== "base").map(segmentShape);
   const m = shapes.length;
   // A pair of shapes i < k is the number i * m + k: no per-pair strings (a spec of thousands of
   // bodies would need millions), and pairs are only looked at where their boxes come near.
@@ -531,9 +461,7 @@ function checkClearance(ctx: CheckContext): void {
   const joined = joinedPairs(model, (a, b) => {
     const i = indexOf.get(a);
     const k = indexOf.get(b);
-    return i === undefined || k === undefined
-      ? -1
-      : Math.min(i, k) * m + Math.max(i, k);
+    return i === undefined || k === undefined ? -1 : Math.min(i, k) * m + Math.max(i, k);
   });
   let thickest = 0;
   for (const sh of shapes) thickest = Math.max(thickest, sh.halfThickness);
@@ -541,10 +469,7 @@ function checkClearance(ctx: CheckContext): void {
   const ends = new Float64Array(4 * m);
   const present = new Uint8Array(m);
   const order: number[] = [];
-  const pairWorst = new Map<
-    number,
-    { gap: number; pose: Pose; a: Body; b: Body }
-  >();
+  const pairWorst = new Map<number, { gap: number; pose: Pose; a: Body; b: Body }>();
   const belowWorst = new Map<
     string,
     {
@@ -633,8 +558,7 @@ function checkClearance(ctx: CheckContext): void {
           th.halfThickness;
         if (!(gap < need)) continue;
         const prev = pairWorst.get(key);
-        if (!prev || gap < prev.gap)
-          pairWorst.set(key, { gap, pose, a: sh.body, b: th.body });
+        if (!prev || gap < prev.gap) pairWorst.set(key, { gap, pose, a: sh.body, b: th.body });
       }
     }
     for (const p of model.payloads) {
@@ -661,15 +585,10 @@ function checkClearance(ctx: CheckContext): void {
         ? `${bodyWord(w.b)} runs into ${bodyWord(w.a)} (they overlap by ${show(-w.gap, "length")}) ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`
         : `${bodyWord(w.b)} comes within ${show(w.gap, "length")} of ${bodyWord(w.a)} ${describePose(sweep, w.pose)}; ${show(need, "length")} clearance required`;
     ctx.findings.push(
-      finding(
-        "geometry.clearance",
-        w.b.origin.name ?? w.b.origin.declaration,
-        msg,
-        {
-          related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)],
-          data: { subject: w.b.id, other: w.a.id, gap: w.gap },
-        },
-      ),
+      finding("geometry.clearance", w.b.origin.name ?? w.b.origin.declaration, msg, {
+        related: [relatedBody(w.a, `${bodyWord(w.a)} is the other part`)],
+        data: { subject: w.b.id, other: w.a.id, gap: w.gap },
+      }),
     );
   }
   for (const w of belowWorst.values()) {

@@ -10,14 +10,7 @@ import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { chainToBase, placingJoints } from "./arm-paths";
 import { workingJoint } from "./geometry";
-import {
-  bodyWord,
-  describePose,
-  pastDeadline,
-  payloadMasses,
-  show,
-  spanOf,
-} from "./part-words";
+import { bodyWord, describePose, pastDeadline, payloadMasses, show, spanOf } from "./part-words";
 import { atJoint } from "../model/spring-kinds";
 
 /** A spring pulling more than this many times the weight it balances is flagged. A balancer of
@@ -44,18 +37,11 @@ const NEGLIGIBLE_WEIGHT_N = 1e-6;
 type TwoEnded = Exclude<Spring, { kind: "torsion" }>;
 
 /** Bodies the joint carries: its child and every body whose chain to the base passes through it. */
-function carried(
-  model: ArmModel,
-  joint: Joint,
-  placing: Map<string, Joint>,
-): Set<string> {
+function carried(model: ArmModel, joint: Joint, placing: Map<string, Joint>): Set<string> {
   const out = new Set<string>();
   for (const b of model.bodies) {
     if (b.kind === "base") continue;
-    if (
-      b.id === joint.child ||
-      chainToBase(model, b.id, placing).some((j) => j.id === joint.id)
-    )
+    if (b.id === joint.child || chainToBase(model, b.id, placing).some((j) => j.id === joint.id))
       out.add(b.id);
   }
   return out;
@@ -71,9 +57,7 @@ interface Carried {
 
 function carriedParts(model: ArmModel, bodies: Set<string>): Carried {
   const out: Carried = { bodies: [], payloads: [] };
-  model.bodies.forEach(
-    (b, i) => bodies.has(b.id) && b.mass > 0 && out.bodies.push(i),
-  );
+  model.bodies.forEach((b, i) => bodies.has(b.id) && b.mass > 0 && out.bodies.push(i));
   model.payloads.forEach((p, k) => bodies.has(p.body) && out.payloads.push(k));
   return out;
 }
@@ -144,8 +128,7 @@ export function checkSpringLeverage(ctx: CheckContext): void {
     if (!at) xs.set(pose, (at = placedX(ctx.model, pose)));
     return at;
   };
-  for (const s of ctx.model.springs)
-    if (!atJoint(s)) checkSpring(ctx, s, placing, placedAt);
+  for (const s of ctx.model.springs) if (!atJoint(s)) checkSpring(ctx, s, placing, placedAt);
 }
 
 function checkSpring(
@@ -159,20 +142,12 @@ function checkSpring(
   if (!joint) return;
   const bodies = carried(model, joint, placing);
   const parts = carriedParts(model, bodies);
-  const masses = sweep.loadCases.map((_, ci) =>
-    payloadMasses(model, sweep, ci),
-  );
+  const masses = sweep.loadCases.map((_, ci) => payloadMasses(model, sweep, ci));
   // The hook is the end on a carried body; the other end is the anchor.
-  const hookEnd = bodies.has(s.b.body)
-    ? "b"
-    : bodies.has(s.a.body)
-      ? "a"
-      : undefined;
+  const hookEnd = bodies.has(s.b.body) ? "b" : bodies.has(s.a.body) ? "a" : undefined;
   if (!hookEnd) return;
   const hookBody = model.bodies.find((b) => b.id === s[hookEnd].body);
-  let worst:
-    | { ratio: number; force: number; weight: number; pose: Pose; ci: number }
-    | undefined;
+  let worst: { ratio: number; force: number; weight: number; pose: Pose; ci: number } | undefined;
   let springArm = 0;
   let weightArm = 0;
   let reaction = 0;
@@ -191,8 +166,7 @@ function checkSpring(
     if (length > 0)
       springArm = Math.max(
         springArm,
-        Math.abs(alongX * (pivot.y - hook.y) - alongY * (pivot.x - hook.x)) /
-          length,
+        Math.abs(alongX * (pivot.y - hook.y) - alongY * (pivot.x - hook.x)) / length,
       );
     // Unit vector from the hook toward the pivot: the part of the pull along it squeezes the bar.
     const toPivotX = pivot.x - hook.x;
@@ -202,22 +176,14 @@ function checkSpring(
     for (let ci = 0; ci < pose.cases.length; ci++) {
       const c = pose.cases[ci]!;
       const tension = c.springForce[s.id] ?? 0;
-      weighAt(
-        model,
-        at,
-        parts,
-        masses[ci] ?? payloadMasses(model, sweep, ci),
-        pivot.x,
-        weighed,
-      );
+      weighAt(model, at, parts, masses[ci] ?? payloadMasses(model, sweep, ci), pivot.x, weighed);
       weightArm = Math.max(weightArm, weighed.arm);
       const r = c.reactions[joint.id];
       if (r) reaction = Math.max(reaction, Math.hypot(r.x, r.y));
       if (length > 0 && reach > 0)
         compression = Math.max(
           compression,
-          (tension * (alongX * toPivotX + alongY * toPivotY)) /
-            (length * reach),
+          (tension * (alongX * toPivotX + alongY * toPivotY)) / (length * reach),
         );
       if (!(weighed.weight > NEGLIGIBLE_WEIGHT_N)) continue;
       const ratio = Math.abs(tension) / weighed.weight;
@@ -235,9 +201,7 @@ function checkSpring(
   const leverShare = weightArm > 0 ? springArm / weightArm : Infinity;
   const forceTooBig = worst.ratio > SPRING_FORCE_RATIO_LIMIT;
   const leverTooSmall =
-    leverShare < SPRING_LEVER_SHARE_LIMIT &&
-    springArm >= ON_PIVOT_M &&
-    worst.ratio >= LEVER_RULE_LEAST_RATIO;
+    leverShare < SPRING_LEVER_SHARE_LIMIT && springArm >= ON_PIVOT_M && worst.ratio >= LEVER_RULE_LEAST_RATIO;
   if (!forceTooBig && !leverTooSmall) return;
   const where = describePose(sweep, worst.pose, worst.ci);
   const why = `its lever arm about ${joint.id} is at most ${show(springArm, "length")} against the ${show(weightArm, "length")} of the weight's`;
@@ -279,9 +243,7 @@ function checkSpring(
           leverArm: springArm,
           weightArm,
           pinReaction: reaction,
-          ...(hookBody && compression > 0
-            ? { body: hookBody.id, compression }
-            : {}),
+          ...(hookBody && compression > 0 ? { body: hookBody.id, compression } : {}),
         },
       },
     ),

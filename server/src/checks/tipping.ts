@@ -7,12 +7,7 @@
 import type { ArmModel, Payload, Vec2 } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { worldPoint } from "../mechanics/body-loads";
-import {
-  headingCombinations,
-  loadsAcross,
-  Placement,
-  type Headings,
-} from "../mechanics/headings";
+import { headingCombinations, loadsAcross, Placement, type Headings } from "../mechanics/headings";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
@@ -56,21 +51,13 @@ export function overturningMoment(
 }
 
 /** Restoring moment of the base's weight about an edge `edge` from its centre of gravity. */
-export function restoringMoment(
-  baseMass: number,
-  gravity: number,
-  edge: number,
-): number {
+export function restoringMoment(baseMass: number, gravity: number, edge: number): number {
   return baseMass * gravity * edge;
 }
 
 /** Every load the arm puts on the base at a pose: weights of moving bodies and payloads, and
  * the payloads' working forces (springs and pins between base and arm are internal). */
-export function armLoads(
-  model: ArmModel,
-  pose: Pose,
-  masses: Record<string, number>,
-): PlaneLoad[] {
+export function armLoads(model: ArmModel, pose: Pose, masses: Record<string, number>): PlaneLoad[] {
   const out: PlaneLoad[] = [];
   for (const b of model.bodies) {
     if (b.kind === "base" || !pose.bodies[b.id] || !(b.mass > 0)) continue;
@@ -98,8 +85,7 @@ interface ArmLoadSources {
 }
 
 function armLoadSources(model: ArmModel): ArmLoadSources {
-  const isBase = (id: string) =>
-    model.bodies.find((b) => b.id === id)?.kind === "base";
+  const isBase = (id: string) => model.bodies.find((b) => b.id === id)?.kind === "base";
   return {
     bodies: model.bodies
       .filter((b) => b.kind !== "base" && b.mass > 0)
@@ -154,12 +140,7 @@ function armLoadsInto(
       x = bp.x + c * lx - s * ly;
       y = bp.y + s * lx + c * ly;
     }
-    put(
-      x,
-      y,
-      p.force?.x ?? 0,
-      -(masses[p.id] ?? p.mass) * gravity + (p.force?.y ?? 0),
-    );
+    put(x, y, p.force?.x ?? 0, -(masses[p.id] ?? p.mass) * gravity + (p.force?.y ?? 0));
   }
   return n;
 }
@@ -225,8 +206,7 @@ export function overturningToward(
 ): number {
   let m = 0;
   for (const l of loads) {
-    m +=
-      -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
+    m += -(ux * l.x + uz * l.z) * l.fy + (l.y - surface) * (ux * l.fx + uz * l.fz);
     // a couple tips the base about the edge's line, y x u = (uz, 0, -ux)
     if (l.moment) m += l.moment.x * uz - l.moment.z * ux;
   }
@@ -235,14 +215,8 @@ export function overturningToward(
 
 /** The largest of `overturningToward` over every horizontal direction: the length of the
  * horizontal moment vector (a base that turns faces its worst direction). */
-export function overturningAnyWay(
-  loads: readonly SpaceLoad[],
-  surface: number,
-): number {
-  return Math.hypot(
-    overturningToward(loads, 1, 0, surface),
-    overturningToward(loads, 0, 1, surface),
-  );
+export function overturningAnyWay(loads: readonly SpaceLoad[], surface: number): number {
+  return Math.hypot(overturningToward(loads, 1, 0, surface), overturningToward(loads, 0, 1, surface));
 }
 
 export function checkTipping(ctx: CheckContext): void {
@@ -262,17 +236,10 @@ export function checkTipping(ctx: CheckContext): void {
       }
     | undefined;
   /** Keeps the least safety against tipping over an edge `edge` from the pivot line. */
-  const tryEdge = (
-    pose: Pose,
-    ci: number,
-    over: number,
-    edge: number,
-    heading: string,
-  ): void => {
+  const tryEdge = (pose: Pose, ci: number, over: number, edge: number, heading: string): void => {
     const restoring = restoringMoment(base.mass, model.gravity, edge);
     const safety = over > 0 ? restoring / over : Infinity;
-    if (!worst || safety < worst.safety)
-      worst = { safety, pose, ci, overturning: over, restoring, heading };
+    if (!worst || safety < worst.safety) worst = { safety, pose, ci, overturning: over, restoring, heading };
   };
   type Peak = { value: number; pose?: Pose; ci: number; words?: string };
   // with a working force across the plane the drawing plane's own set needs the 3D sums too
@@ -298,22 +265,14 @@ export function checkTipping(ctx: CheckContext): void {
     : [];
   // Hoisted out of the pose loop (the untuned tier pays for every object and call): each load
   // case's payload masses, each edge's words, and the plane loads' objects, reused pose to pose.
-  const massesByCase = sweep.loadCases.map((_, ci) =>
-    payloadMasses(model, sweep, ci),
-  );
+  const massesByCase = sweep.loadCases.map((_, ci) => payloadMasses(model, sweep, ci));
   const edgeWords = edges.map((e) => (e.heading ? `${e.heading}, ` : ""));
   const planeLoads = armLoadSources(model);
   const loads: PlaneLoad[] = [];
   for (const pose of sweep.poses) {
     if (pastDeadline(ctx.options.deadline)) break;
     for (let ci = 0; ci < pose.cases.length; ci++) {
-      const count = armLoadsInto(
-        planeLoads,
-        model.gravity,
-        pose,
-        massesByCase[ci] ?? {},
-        loads,
-      );
+      const count = armLoadsInto(planeLoads, model.gravity, pose, massesByCase[ci] ?? {}, loads);
       let fy = 0;
       let fx = 0;
       for (let k = 0; k < count; k++) fy += loads[k]!.fy;
@@ -322,33 +281,15 @@ export function checkTipping(ctx: CheckContext): void {
       const m0 = Math.abs(overturningMoment(loads, 0, 1, 0, count));
       if (-fy > thrust.value) thrust = { value: -fy, pose, ci };
       if (m0 > moment.value) moment = { value: m0, pose, ci };
-      if (Math.abs(fx) > radial.value)
-        radial = { value: Math.abs(fx), pose, ci };
+      if (Math.abs(fx) > radial.value) radial = { value: Math.abs(fx), pose, ci };
       for (let ei = 0; ei < edges.length; ei++) {
         const edge = edges[ei]!.edge;
-        tryEdge(
-          pose,
-          ci,
-          overturningMoment(loads, edge, 1, base.surface, count),
-          edge,
-          edgeWords[ei]!,
-        );
-        tryEdge(
-          pose,
-          ci,
-          overturningMoment(loads, edge, -1, base.surface, count),
-          edge,
-          edgeWords[ei]!,
-        );
+        tryEdge(pose, ci, overturningMoment(loads, edge, 1, base.surface, count), edge, edgeWords[ei]!);
+        tryEdge(pose, ci, overturningMoment(loads, edge, -1, base.surface, count), edge, edgeWords[ei]!);
       }
       // the swivels above the base turned, all together (the drawing plane's set was just done)
       for (const headings of turnedSets) {
-        const turned = armLoadsTurned(
-          model,
-          pose,
-          payloadMasses(model, sweep, ci),
-          headings,
-        );
+        const turned = armLoadsTurned(model, pose, payloadMasses(model, sweep, ci), headings);
         const words = headingWords(headings);
         const mAny = overturningAnyWay(turned, 0);
         if (mAny > moment.value) moment = { value: mAny, pose, ci, words };
@@ -398,21 +339,13 @@ export function checkTipping(ctx: CheckContext): void {
             ];
         for (const t of tries) {
           const said = [t.heading, words].filter((x) => x);
-          tryEdge(
-            pose,
-            ci,
-            t.lever + t.edge * fyTurned,
-            t.edge,
-            said.length ? `${said.join(", ")}, ` : "",
-          );
+          tryEdge(pose, ci, t.lever + t.edge * fyTurned, t.edge, said.length ? `${said.join(", ")}, ` : "");
         }
       }
     }
   }
   const at = (p: Peak) =>
-    p.pose
-      ? `${describePose(sweep, p.pose, p.ci)}${p.words ? `, ${p.words}` : ""}`
-      : "";
+    p.pose ? `${describePose(sweep, p.pose, p.ci)}${p.words ? `, ${p.words}` : ""}` : "";
   addFigures(ctx.readouts, base.bodyId, "base", [
     {
       label: "vertical thrust on the base",
@@ -439,9 +372,7 @@ export function checkTipping(ctx: CheckContext): void {
       base.bodyId,
       "base",
       [],
-      [
-        "No footprint given: tipping is not checked (a base clamped or screwed down does not tip).",
-      ],
+      ["No footprint given: tipping is not checked (a base clamped or screwed down does not tip)."],
     );
     return;
   }

@@ -390,8 +390,7 @@ export class SpaceFrame {
   }
 
   private factor():
-    | { factor: SkylineMatrix; rows: CompressedRows; diagonal: Float64Array; t: DofTransform }
-    | undefined {
+    { factor: SkylineMatrix; rows: CompressedRows; diagonal: Float64Array; t: DofTransform } | undefined {
     const t = this.transform();
     if (this.solved.factor === undefined) {
       const K = this.assembleStiffness(t, this.profile(t));
