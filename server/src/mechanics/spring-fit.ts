@@ -51,7 +51,7 @@ export interface SpringFit {
 interface FitSamples {
   count: number;
   data: Float64Array; // ax ay bx by force c0 c1 per sample
-  friction?: { ndof: number; perDof: Float64Array; torques: Float64Array };
+  friction?: { ndof: number; perDof: Float64Array; torques: Float64Array; finiteColumns: boolean };
 }
 
 const frictionWidth = (ndof: number) => 4 * ndof;
@@ -143,19 +143,30 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
   return {
     count,
     data: rows.subarray(0, 7 * count),
-    ...(withFriction ? { friction: { ndof, perDof, torques: torques.subarray(0, fw * count) } } : {}),
+    ...(withFriction ? { friction: frictionPart(ndof, perDof, torques.subarray(0, fw * count)) } : {}),
   };
+}
+
+/** The friction part of the samples; `finiteColumns` when every hand force per unit holding
+ * torque is finite, so a dof that friction holds adds nothing (a zero torque times a finite
+ * column) and the scans may skip it. */
+function frictionPart(ndof: number, perDof: Float64Array, torques: Float64Array): FitSamples["friction"] {
+  let finiteColumns = true;
+  for (let t = 0; t < torques.length; t += frictionWidth(ndof))
+    for (let k = 0; k < 2 * ndof; k++) if (!Number.isFinite(torques[t + k]!)) finiteColumns = false;
+  return { ndof, perDof, torques, finiteColumns };
 }
 
 /** The hand force of the raw holding torques (no friction), from the per-torque columns. */
 function affinePart(P: Vec2[], dofIds: string[], holdingTorque: Record<string, number>): Vec2 {
   let x = 0;
   let y = 0;
-  P.forEach((col, i) => {
+  for (let i = 0; i < P.length; i++) {
+    const col = P[i]!;
     const t = holdingTorque[dofIds[i]!] ?? 0;
     x += col.x * t;
     y += col.y * t;
-  });
+  }
   return { x, y };
 }
 
@@ -226,6 +237,7 @@ function firstTermsOf(s: FitSamples, p0: number): Float64Array {
  * with their squares and force components (typed arrays, reused: the search is single-threaded;
  * in the untuned tier a second pass over every sample costs as much as a third of the first). */
 let nearCount = 0;
+let nearIndex = new Int32Array(256);
 let nearSquare = new Float64Array(256);
 let nearX = new Float64Array(256);
 let nearY = new Float64Array(256);
@@ -276,7 +288,7 @@ function keepNearTopWithFriction(
   p1: number,
 ): number {
   const { data: d, count } = s;
-  const { ndof: n, perDof, torques: T } = f;
+  const { ndof: n, perDof, torques: T, finiteColumns } = f;
   const fw = frictionWidth(n);
   reserveNear(count);
   let top = 0;
@@ -292,6 +304,8 @@ function keepNearTopWithFriction(
       const fr = perDof[k]!;
       // torqueBeyondFriction (hand-force.ts), per dof.
       const beyond = torque > fr ? torque - fr : torque < -fr ? torque + fr : 0;
+      // Held: adds a signed zero at most, which no square or hypot sees.
+      if (beyond === 0 && finiteColumns) continue;
       x += T[t + k]! * beyond;
       y += T[t + n + k]! * beyond;
     }
@@ -347,6 +361,108 @@ function worstWithoutFriction(s: FitSamples, p0: number, p1: number): number {
     if (v > w) w = v;
   }
   return w;
+}
+
+/** How far the lines' hand-force component can be from the exact arithmetic's, per unit roundoff
+ * (2^-53) and newton of the magnitudes of its terms: each way's rounding stays below 5 units
+ * (five roundings along the terms; Higham, Accuracy and Stability of Numerical Algorithms, 2nd
+ * ed., ch. 3), so the two differ by 10 at most; 64 leaves room. */
+const LINE_ROUNDING = 64 * 2 ** -53;
+/** The lines are used only where neither way can overflow (terms below this many newtons) and
+ * their largest square is far above underflow (this many N^2); elsewhere the exact scan runs. */
+const LINE_TERMS_LIMIT = 1e150;
+const LINE_SQUARE_FLOOR = 1e-200;
+
+/** The samples' frictionless hand-force components as lines in p1 for one p0 (x = x0 + x1 p1,
+ * y = y0 + y1 p1; four numbers per sample instead of seven, and four operations fewer per
+ * evaluation), for the inner search. They round differently from the exact arithmetic, by at most
+ * `slack` newtons in the hand force for |p1| <= `p1Bound`: so they only choose the samples that
+ * can be the worst, and those are then computed exactly. */
+interface LinesInP1 {
+  samples: FitSamples;
+  p0: number;
+  p1Bound: number;
+  lines: Float64Array;
+  slack: number;
+}
+
+function linesInP1(s: FitSamples, p0: number, p1Bound: number): LinesInP1 {
+  const { data: d, count } = s;
+  const first = firstTermsOf(s, p0);
+  const lines = new Float64Array(4 * count);
+  let largestTerms = 0;
+  for (let i = 0, o = 0; i < count; i++, o += 7) {
+    const q = first[i]!;
+    const free = q - d[o + 4]!;
+    lines[4 * i] = d[o]! + d[o + 2]! * free;
+    lines[4 * i + 1] = d[o + 2]! * d[o + 6]!;
+    lines[4 * i + 2] = d[o + 1]! + d[o + 3]! * free;
+    lines[4 * i + 3] = d[o + 3]! * d[o + 6]!;
+    const spread = Math.abs(q) + Math.abs(d[o + 4]!) + Math.abs(d[o + 6]!) * p1Bound;
+    const terms =
+      Math.abs(d[o]!) + Math.abs(d[o + 1]!) + (Math.abs(d[o + 2]!) + Math.abs(d[o + 3]!)) * spread;
+    if (!(terms < LINE_TERMS_LIMIT)) largestTerms = Infinity;
+    else if (terms > largestTerms) largestTerms = terms;
+  }
+  return { samples: s, p0, p1Bound, lines, slack: LINE_ROUNDING * largestTerms };
+}
+
+/** worstWithoutFriction(samples, p0, p1), the same double: the lines pick the samples within
+ * twice the slack (and the square margin) of their largest, and worstWithoutFriction's own
+ * arithmetic and rule decide among them. */
+function worstOnLines(L: LinesInP1, p1: number): number {
+  const s = L.samples;
+  const slack2 = 2 * L.slack;
+  if (!(Math.abs(p1) <= L.p1Bound) || !(slack2 < Infinity)) return worstWithoutFriction(s, L.p0, p1);
+  const l = L.lines;
+  const count = s.count;
+  if (nearIndex.length < count) nearIndex = new Int32Array(2 * count);
+  let top = 0;
+  let cut = 0;
+  let kept = 0;
+  for (let k = 0, i = 0; i < count; i++, k += 4) {
+    const x = l[k]! + l[k + 1]! * p1;
+    const y = l[k + 2]! + l[k + 3]! * p1;
+    const v = x * x + y * y;
+    if (v >= cut) {
+      if (v > top) {
+        top = v;
+        const r = Math.sqrt(top) * NEAR_TOP - slack2;
+        cut = r > 0 ? r * r * NEAR_TOP : 0;
+      }
+      nearIndex[kept++] = i;
+    }
+  }
+  if (!(top > LINE_SQUARE_FLOOR && top < Infinity)) return worstWithoutFriction(s, L.p0, p1);
+  return worstOfKept(s, L.p0, p1, kept);
+}
+
+/** worstWithoutFriction over the samples `nearIndex[0..kept)`, which hold every sample within the
+ * square margin of the largest: its arithmetic and rule, the same double. */
+function worstOfKept(s: FitSamples, p0: number, p1: number, kept: number): number {
+  const { data: d, count } = s;
+  const first = firstTermsOf(s, p0);
+  reserveNear(count);
+  let top = 0;
+  for (let k = 0; k < kept; k++) {
+    const i = nearIndex[k]!;
+    const o = 7 * i;
+    const df = first[i]! + d[o + 6]! * p1 - d[o + 4]!;
+    const x = d[o]! + d[o + 2]! * df;
+    const y = d[o + 1]! + d[o + 3]! * df;
+    const v = x * x + y * y;
+    ((nearSquare[k] = v), (nearX[k] = x), (nearY[k] = y));
+    if (v > top) top = v;
+  }
+  nearCount = kept;
+  return top > SQUARE_FLOOR && top < Infinity ? largestNearTop(top) : worstWithoutFriction(s, p0, p1);
+}
+
+/** objective(s, lines.p0, p1), the same double, its frictionless worst taken on the lines. */
+function objectiveOnLines(s: FitSamples, lines: LinesInP1, p1: number): number {
+  const w = s.friction ? worstOf(s, lines.p0, p1) : 0;
+  const withoutFriction = worstOnLines(lines, p1);
+  return s.friction ? w + FRICTION_TIE_BREAK * withoutFriction : withoutFriction;
 }
 
 /** The samples `idx`, copied next to each other (the active set, scanned many times). */
@@ -450,7 +566,12 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   for (let round = 0; round < ACTIVE_ROUNDS; round++) {
     if (pastDeadline()) return undefined; // out of budget or cancelled: no fit offered
     const act = gather(samples, Int32Array.from(active));
-    const inner = (p0: number): number => (two ? golden((p1) => objective(act, p0, p1), lo1, hi1) : 0);
+    const p1Bound = Math.max(Math.abs(lo1), Math.abs(hi1));
+    const inner = (p0: number): number => {
+      if (!two) return 0;
+      const lines = linesInP1(act, p0, p1Bound);
+      return golden((p1) => objectiveOnLines(act, lines, p1), lo1, hi1);
+    };
     const p0 = golden((x) => objective(act, x, inner(x)), 0, hi0);
     best = [p0, inner(p0)];
     const activeWorst = worstOf(act, best[0], best[1]);
