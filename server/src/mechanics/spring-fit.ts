@@ -363,78 +363,80 @@ function worstWithoutFriction(s: FitSamples, p0: number, p1: number): number {
   return w;
 }
 
-/** How far the lines' hand-force component can be from the exact arithmetic's, per unit roundoff
- * (2^-53) and newton of the magnitudes of its terms: each way's rounding stays below 5 units
- * (five roundings along the terms; Higham, Accuracy and Stability of Numerical Algorithms, 2nd
- * ed., ch. 3), so the two differ by 10 at most; 64 leaves room. */
-const LINE_ROUNDING = 64 * 2 ** -53;
-/** The lines are used only where neither way can overflow (terms below this many newtons) and
+/** How far a sample's squared hand force on the quadratics can be from the exact arithmetic's
+ * square, per unit roundoff (2^-53) and square newton of the magnitudes of its terms: each
+ * component rounds by 5 units of its terms at most either way (five roundings; Higham, Accuracy
+ * and Stability of Numerical Algorithms, 2nd ed., ch. 3), the squares, their sum and Horner's
+ * rule add some 40 more; 256 leaves room, also for the rounding of the cut itself. The last
+ * term covers underflow (each operation's absolute error is below 2^-1074 there). */
+const QUADRATIC_ROUNDING = 256 * 2 ** -53;
+const QUADRATIC_UNDERFLOW = 1e-300;
+/** The quadratics are used only where nothing can overflow (terms below this many newtons) and
  * their largest square is far above underflow (this many N^2); elsewhere the exact scan runs. */
-const LINE_TERMS_LIMIT = 1e150;
-const LINE_SQUARE_FLOOR = 1e-200;
+const QUADRATIC_TERMS_LIMIT = 1e150;
+const QUADRATIC_SQUARE_FLOOR = 1e-200;
+const WIDE_NEAR_TOP = 1 - 2 * SQUARE_MARGIN;
 
-/** The samples' frictionless hand-force components as lines in p1 for one p0 (x = x0 + x1 p1,
- * y = y0 + y1 p1; four numbers per sample instead of seven, and four operations fewer per
- * evaluation), for the inner search. They round differently from the exact arithmetic, by at most
- * `slack` newtons in the hand force for |p1| <= `p1Bound`: so they only choose the samples that
- * can be the worst, and those are then computed exactly. */
-interface LinesInP1 {
+/** The samples' squared frictionless hand forces as quadratics in p1 for one p0, for the inner
+ * search: |(x0, y0) + (x1, y1) p1|^2 = a + p1 (b + c p1), three numbers and four operations per
+ * evaluation instead of seven and ten. They round differently from the exact arithmetic, by at
+ * most `slack` N^2 for |p1| <= `p1Bound`, so they only pick the samples that can be the worst, and
+ * those are then computed exactly. */
+interface SquaresInP1 {
   samples: FitSamples;
   p0: number;
   p1Bound: number;
-  lines: Float64Array;
+  abc: Float64Array;
   slack: number;
 }
 
-function linesInP1(s: FitSamples, p0: number, p1Bound: number): LinesInP1 {
+function squaresInP1(s: FitSamples, p0: number, p1Bound: number): SquaresInP1 {
   const { data: d, count } = s;
   const first = firstTermsOf(s, p0);
-  const lines = new Float64Array(4 * count);
+  const abc = new Float64Array(3 * count);
   let largestTerms = 0;
   for (let i = 0, o = 0; i < count; i++, o += 7) {
     const q = first[i]!;
     const free = q - d[o + 4]!;
-    lines[4 * i] = d[o]! + d[o + 2]! * free;
-    lines[4 * i + 1] = d[o + 2]! * d[o + 6]!;
-    lines[4 * i + 2] = d[o + 1]! + d[o + 3]! * free;
-    lines[4 * i + 3] = d[o + 3]! * d[o + 6]!;
+    const x0 = d[o]! + d[o + 2]! * free;
+    const x1 = d[o + 2]! * d[o + 6]!;
+    const y0 = d[o + 1]! + d[o + 3]! * free;
+    const y1 = d[o + 3]! * d[o + 6]!;
+    abc[3 * i] = x0 * x0 + y0 * y0;
+    abc[3 * i + 1] = 2 * (x0 * x1 + y0 * y1);
+    abc[3 * i + 2] = x1 * x1 + y1 * y1;
     const spread = Math.abs(q) + Math.abs(d[o + 4]!) + Math.abs(d[o + 6]!) * p1Bound;
     const terms =
       Math.abs(d[o]!) + Math.abs(d[o + 1]!) + (Math.abs(d[o + 2]!) + Math.abs(d[o + 3]!)) * spread;
-    if (!(terms < LINE_TERMS_LIMIT)) largestTerms = Infinity;
+    if (!(terms < QUADRATIC_TERMS_LIMIT)) largestTerms = Infinity;
     else if (terms > largestTerms) largestTerms = terms;
   }
-  return { samples: s, p0, p1Bound, lines, slack: LINE_ROUNDING * largestTerms };
+  const slack = QUADRATIC_ROUNDING * largestTerms * largestTerms + QUADRATIC_UNDERFLOW;
+  return { samples: s, p0, p1Bound, abc, slack };
 }
 
-/** worstWithoutFriction(samples, p0, p1), the same double: the lines pick the samples within
+/** worstWithoutFriction(samples, p0, p1), the same double: the quadratics pick the samples within
  * twice the slack (and the square margin) of their largest, and worstWithoutFriction's own
  * arithmetic and rule decide among them. */
-function worstOnLines(L: LinesInP1, p1: number): number {
-  const s = L.samples;
-  const slack2 = 2 * L.slack;
-  if (!(Math.abs(p1) <= L.p1Bound) || !(slack2 < Infinity)) return worstWithoutFriction(s, L.p0, p1);
-  const l = L.lines;
+function worstOnSquares(Q: SquaresInP1, p1: number): number {
+  const s = Q.samples;
+  const slack2 = 2 * Q.slack;
+  if (!(Math.abs(p1) <= Q.p1Bound) || !(slack2 < Infinity)) return worstWithoutFriction(s, Q.p0, p1);
+  const abc = Q.abc;
   const count = s.count;
   if (nearIndex.length < count) nearIndex = new Int32Array(2 * count);
   let top = 0;
-  let cut = 0;
+  let cut = -slack2;
   let kept = 0;
-  for (let k = 0, i = 0; i < count; i++, k += 4) {
-    const x = l[k]! + l[k + 1]! * p1;
-    const y = l[k + 2]! + l[k + 3]! * p1;
-    const v = x * x + y * y;
+  for (let k = 0, i = 0; i < count; i++, k += 3) {
+    const v = abc[k]! + p1 * (abc[k + 1]! + abc[k + 2]! * p1);
     if (v >= cut) {
-      if (v > top) {
-        top = v;
-        const r = Math.sqrt(top) * NEAR_TOP - slack2;
-        cut = r > 0 ? r * r * NEAR_TOP : 0;
-      }
+      if (v > top) ((top = v), (cut = top * WIDE_NEAR_TOP - slack2));
       nearIndex[kept++] = i;
     }
   }
-  if (!(top > LINE_SQUARE_FLOOR && top < Infinity)) return worstWithoutFriction(s, L.p0, p1);
-  return worstOfKept(s, L.p0, p1, kept);
+  if (!(top > QUADRATIC_SQUARE_FLOOR && top < Infinity)) return worstWithoutFriction(s, Q.p0, p1);
+  return worstOfKept(s, Q.p0, p1, kept);
 }
 
 /** worstWithoutFriction over the samples `nearIndex[0..kept)`, which hold every sample within the
@@ -458,10 +460,10 @@ function worstOfKept(s: FitSamples, p0: number, p1: number, kept: number): numbe
   return top > SQUARE_FLOOR && top < Infinity ? largestNearTop(top) : worstWithoutFriction(s, p0, p1);
 }
 
-/** objective(s, lines.p0, p1), the same double, its frictionless worst taken on the lines. */
-function objectiveOnLines(s: FitSamples, lines: LinesInP1, p1: number): number {
-  const w = s.friction ? worstOf(s, lines.p0, p1) : 0;
-  const withoutFriction = worstOnLines(lines, p1);
+/** objective(s, squares.p0, p1), the same double, its frictionless worst taken on the quadratics. */
+function objectiveOnSquares(s: FitSamples, squares: SquaresInP1, p1: number): number {
+  const w = s.friction ? worstOf(s, squares.p0, p1) : 0;
+  const withoutFriction = worstOnSquares(squares, p1);
   return s.friction ? w + FRICTION_TIE_BREAK * withoutFriction : withoutFriction;
 }
 
@@ -569,8 +571,8 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
     const p1Bound = Math.max(Math.abs(lo1), Math.abs(hi1));
     const inner = (p0: number): number => {
       if (!two) return 0;
-      const lines = linesInP1(act, p0, p1Bound);
-      return golden((p1) => objectiveOnLines(act, lines, p1), lo1, hi1);
+      const squares = squaresInP1(act, p0, p1Bound);
+      return golden((p1) => objectiveOnSquares(act, squares, p1), lo1, hi1);
     };
     const p0 = golden((x) => objective(act, x, inner(x)), 0, hi0);
     best = [p0, inner(p0)];
