@@ -47,6 +47,19 @@ function asRows(dense: Float64Array, n: number): number[][] {
   return Array.from({ length: n }, (_, i) => Array.from(dense.subarray(i * n, (i + 1) * n)));
 }
 
+/** The sparse factor solves A x = b and A^T x = b to the dense factor's last bit. */
+function expectSolvesOf(sparse: SparseLu, dense: DenseLu, n: number): void {
+  const b = Float64Array.from({ length: n }, (_, i) => Math.cos(3 * i));
+  const xs = new Float64Array(n);
+  const xd = new Float64Array(n);
+  sparse.solve(b, xs);
+  dense.solve(b, xd);
+  expect(Array.from(xs)).toEqual(Array.from(xd));
+  sparse.solveTransposed(b, xs);
+  dense.solveTransposed(b, xd);
+  expect(Array.from(xs)).toEqual(Array.from(xd));
+}
+
 describe("sparse LU", () => {
   for (const [n, seed] of [
     [5, 1],
@@ -88,15 +101,7 @@ describe("sparse LU", () => {
       expect(a.factor(sparse)).toBe(d.factor(dense));
       expect(a.determinantSign).toBe(d.determinantSign);
       expect(a.pivotRatio).toBe(d.pivotRatio);
-      const b = Float64Array.from({ length: n }, (_, i) => Math.cos(3 * i));
-      const xs = new Float64Array(n);
-      const xd = new Float64Array(n);
-      a.solve(b, xs);
-      d.solve(b, xd);
-      expect(Array.from(xs)).toEqual(Array.from(xd));
-      a.solveTransposed(b, xs);
-      d.solveTransposed(b, xd);
-      expect(Array.from(xs)).toEqual(Array.from(xd));
+      expectSolvesOf(a, d, n);
     }
   });
 
@@ -127,15 +132,7 @@ describe("sparse LU", () => {
         expect(reused.factor({ ...sparse, values })).toBe(ok);
         if (!ok) continue;
         expect(reused.determinantSign).toBe(d.determinantSign);
-        const b = Float64Array.from({ length: n }, (_, i) => Math.cos(3 * i));
-        const xs = new Float64Array(n);
-        const xd = new Float64Array(n);
-        reused.solve(b, xs);
-        d.solve(b, xd);
-        expect(Array.from(xs)).toEqual(Array.from(xd));
-        reused.solveTransposed(b, xs);
-        d.solveTransposed(b, xd);
-        expect(Array.from(xs)).toEqual(Array.from(xd));
+        expectSolvesOf(reused, d, n);
       }
     }
   });

@@ -6,7 +6,12 @@
 import type { ArmModel, Body, Joint, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
-import { beamStressInto, type BeamPointLoad, type BeamStressResult } from "../mechanics/structure/beam";
+import {
+  beamStressInto,
+  emptyBeamStress,
+  type BeamPointLoad,
+  type BeamStressResult,
+} from "../mechanics/structure/beam";
 import { beamLoadSources, localBeamLoads, type BeamLoadSources } from "../mechanics/body-loads";
 import { columnCriticalLoad, leastSecondMoment } from "../mechanics/structure/column";
 import {
@@ -142,13 +147,7 @@ export function checkStrength(ctx: CheckContext): void {
   const pins = pinned.map((j) => pinTable(model, j));
   const dofJoints = new Set(sweep.dofs.map((d) => d.jointId));
   const loads: BeamPointLoad[] = [];
-  const r: BeamStressResult = {
-    stress: 0,
-    at: { s: 0, axial: 0, shear: 0, moment: 0 },
-    bendingShare: 0,
-    compression: 0,
-    moment: 0,
-  };
+  const r = emptyBeamStress();
   const g = model.gravity;
 
   outer: for (const pose of sweep.poses) {

@@ -53,6 +53,17 @@ export interface BeamStressResult {
   moment: number;
 }
 
+/** A result for beamStressInto to fill (one can serve many calls). */
+export function emptyBeamStress(): BeamStressResult {
+  return {
+    stress: 0,
+    at: { s: 0, axial: 0, shear: 0, moment: 0 },
+    bendingShare: 0,
+    compression: 0,
+    moment: 0,
+  };
+}
+
 export function beamStress(
   loads: readonly BeamPointLoad[],
   distributed: { qx: number; qy: number },
@@ -61,13 +72,7 @@ export function beamStress(
   /** Loads to use from the front of `loads` (a reused buffer may hold more). */
   count = loads.length,
 ): BeamStressResult {
-  const out: BeamStressResult = {
-    stress: 0,
-    at: { s: 0, axial: 0, shear: 0, moment: 0 },
-    bendingShare: 0,
-    compression: 0,
-    moment: 0,
-  };
+  const out = emptyBeamStress();
   beamStressInto(loads, count, distributed.qx, distributed.qy, length, section, out);
   return out;
 }
