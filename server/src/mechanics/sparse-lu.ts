@@ -108,6 +108,12 @@ export class SparseLu {
     this.patternPivotRow = new Int32Array(n);
   }
 
+  /** Drops the stored column patterns: the next factor searches every column afresh (the
+   * benchmark times a factorisation from scratch against one that reuses them). */
+  forgetPatterns(): void {
+    this.patternColumns = 0;
+  }
+
   /** Non-zeros held in L and U (the bench compares them with n^2). */
   get nonZeros(): number {
     return this.lStart[this.n]! + this.uStart[this.n]!;
