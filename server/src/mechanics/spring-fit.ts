@@ -74,9 +74,14 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
   );
   const withFriction = perDof.some((f) => f > 0);
   const fw = frictionWidth(ndof);
-  let torques = new Float64Array(withFriction ? fw * 64 : 0);
+  // One sample per pose, payload and case at most: sized once (a typed array's growth is dear in
+  // the untuned tier).
+  let capacity = 0;
+  for (const pose of sweep.poses) capacity += pose.cases.length;
+  capacity *= model.payloads.length;
+  const torques = new Float64Array(withFriction ? fw * capacity : 0);
   const unitTorque = new Float64Array(Math.max(ndof, 1));
-  let rows = new Float64Array(7 * 64);
+  const rows = new Float64Array(7 * capacity);
   let count = 0;
   const jac = new Float64Array(2 * Math.max(ndof, 1));
   const g = new Float64Array(Math.max(ndof, 1));
@@ -110,16 +115,6 @@ function collectSamples(model: ArmModel, sweep: SweepResult, s: Spring): FitSamp
         // Without friction the sweep's hand force is the affine part; with friction it is not,
         // and the affine part (for the least-squares bracket) is taken from the raw torques.
         const a = withFriction ? affinePart(P, dofIds, c.holdingTorque) : c.handForceVector[p.id]!;
-        if (rows.length < 7 * (count + 1)) {
-          const grown = new Float64Array(2 * rows.length);
-          grown.set(rows);
-          rows = grown;
-          if (withFriction) {
-            const t = new Float64Array(2 * torques.length);
-            t.set(torques);
-            torques = t;
-          }
-        }
         if (withFriction) {
           const t = fw * count;
           for (let i = 0; i < ndof; i++) {
@@ -390,14 +385,34 @@ interface SquaresInP1 {
   slack: number;
 }
 
-function squaresInP1(s: FitSamples, p0: number, p1Bound: number): SquaresInP1 {
+/** The parameters' bounds of one round's searches and the largest sum of the magnitudes of a
+ * sample's terms within them (N; |c0 p0| taken as |c0| p0Bound, its rounding well inside the
+ * slack's room): computed once per round, not per inner search. */
+interface TermBounds {
+  p0Bound: number;
+  p1Bound: number;
+  largestTerms: number;
+}
+
+function termBounds(s: FitSamples, p0Bound: number, p1Bound: number): TermBounds {
+  const { data: d, count } = s;
+  let largestTerms = 0;
+  for (let o = 0; o < 7 * count; o += 7) {
+    const spread = Math.abs(d[o + 5]!) * p0Bound + Math.abs(d[o + 4]!) + Math.abs(d[o + 6]!) * p1Bound;
+    const terms =
+      Math.abs(d[o]!) + Math.abs(d[o + 1]!) + (Math.abs(d[o + 2]!) + Math.abs(d[o + 3]!)) * spread;
+    if (!(terms < QUADRATIC_TERMS_LIMIT)) largestTerms = Infinity;
+    else if (terms > largestTerms) largestTerms = terms;
+  }
+  return { p0Bound, p1Bound, largestTerms };
+}
+
+function squaresInP1(s: FitSamples, p0: number, bounds: TermBounds): SquaresInP1 {
   const { data: d, count } = s;
   const first = firstTermsOf(s, p0);
   const abc = new Float64Array(3 * count);
-  let largestTerms = 0;
   for (let i = 0, o = 0; i < count; i++, o += 7) {
-    const q = first[i]!;
-    const free = q - d[o + 4]!;
+    const free = first[i]! - d[o + 4]!;
     const x0 = d[o]! + d[o + 2]! * free;
     const x1 = d[o + 2]! * d[o + 6]!;
     const y0 = d[o + 1]! + d[o + 3]! * free;
@@ -405,14 +420,10 @@ function squaresInP1(s: FitSamples, p0: number, p1Bound: number): SquaresInP1 {
     abc[3 * i] = x0 * x0 + y0 * y0;
     abc[3 * i + 1] = 2 * (x0 * x1 + y0 * y1);
     abc[3 * i + 2] = x1 * x1 + y1 * y1;
-    const spread = Math.abs(q) + Math.abs(d[o + 4]!) + Math.abs(d[o + 6]!) * p1Bound;
-    const terms =
-      Math.abs(d[o]!) + Math.abs(d[o + 1]!) + (Math.abs(d[o + 2]!) + Math.abs(d[o + 3]!)) * spread;
-    if (!(terms < QUADRATIC_TERMS_LIMIT)) largestTerms = Infinity;
-    else if (terms > largestTerms) largestTerms = terms;
   }
-  const slack = QUADRATIC_ROUNDING * largestTerms * largestTerms + QUADRATIC_UNDERFLOW;
-  return { samples: s, p0, p1Bound, abc, slack };
+  const terms = Math.abs(p0) <= bounds.p0Bound ? bounds.largestTerms : Infinity;
+  const slack = QUADRATIC_ROUNDING * terms * terms + QUADRATIC_UNDERFLOW;
+  return { samples: s, p0, p1Bound: bounds.p1Bound, abc, slack };
 }
 
 /** worstWithoutFriction(samples, p0, p1), the same double: the quadratics pick the samples within
@@ -568,10 +579,10 @@ export function bestSpringFit(model: ArmModel, sweep: SweepResult, springId: str
   for (let round = 0; round < ACTIVE_ROUNDS; round++) {
     if (pastDeadline()) return undefined; // out of budget or cancelled: no fit offered
     const act = gather(samples, Int32Array.from(active));
-    const p1Bound = Math.max(Math.abs(lo1), Math.abs(hi1));
+    const bounds = termBounds(act, hi0, Math.max(Math.abs(lo1), Math.abs(hi1)));
     const inner = (p0: number): number => {
       if (!two) return 0;
-      const squares = squaresInP1(act, p0, p1Bound);
+      const squares = squaresInP1(act, p0, bounds);
       return golden((p1) => objectiveOnSquares(act, squares, p1), lo1, hi1);
     };
     const p0 = golden((x) => objective(act, x, inner(x)), 0, hi0);
