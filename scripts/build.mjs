@@ -53,7 +53,7 @@ rmSync(cache, { force: true });
 if (existsSync(cli)) {
   const id = createHash("sha256").update(readFileSync(cli)).digest("hex");
   appendFileSync(cli, `//# poise-bundle-id ${id}\n`);
-  const samples = readdirSync("samples")
+  const samples = (existsSync("samples") ? readdirSync("samples") : [])
     .filter((name) => name.endsWith(".poise"))
     .map((name) => join("samples", name));
   const run = spawnSync(process.execPath, ["bin/poise.js", "check", ...samples], {

@@ -38,6 +38,13 @@ function check(launcher: string): { status: number | null; stdout: string; cache
   return { status: r.status, stdout: r.stdout, cacheSays: r.stderr.trim() };
 }
 
+/** The launcher at `launcher` says what the bundle says without it, and this of its cache. */
+function expectSameCheckSaying(launcher: string, cacheSays: string): void {
+  const run = check(launcher);
+  expect(run.cacheSays).toBe(cacheSays);
+  expect(run.stdout).toBe(checkWithoutLauncher());
+}
+
 /** What the bundle says run directly by Node, with no launcher and no cache. */
 function checkWithoutLauncher(): string {
   return spawnSync(process.execPath, [join(ROOT, "dist", "cli.js"), "check", SAMPLE], { encoding: "utf8" })
@@ -60,9 +67,7 @@ describe("the poise launcher's code cache", () => {
     const bytes = readFileSync(cache);
     bytes.write("0".repeat(64), 0, "latin1"); // another bundle's id
     writeFileSync(cache, bytes);
-    const run = check(launcher);
-    expect(run.cacheSays).toBe("poise: code cache not used: built for another bundle");
-    expect(run.stdout).toBe(checkWithoutLauncher());
+    expectSameCheckSaying(launcher, "poise: code cache not used: built for another bundle");
   });
 
   it("is left alone when V8 refuses it", () => {
@@ -71,16 +76,12 @@ describe("the poise launcher's code cache", () => {
     // Spoil V8's own header and checksum region, after the bundle id.
     for (let i = 64; i < 160; i++) bytes[i] = bytes[i]! ^ 0xff;
     writeFileSync(cache, bytes);
-    const run = check(launcher);
-    expect(run.cacheSays).toBe("poise: code cache refused by V8");
-    expect(run.stdout).toBe(checkWithoutLauncher());
+    expectSameCheckSaying(launcher, "poise: code cache refused by V8");
   });
 
   it("is not needed", () => {
     const { launcher, cache } = copyOfCommand();
     rmSync(cache);
-    const run = check(launcher);
-    expect(run.cacheSays).toBe("poise: code cache not used: none beside the bundle");
-    expect(run.stdout).toBe(checkWithoutLauncher());
+    expectSameCheckSaying(launcher, "poise: code cache not used: none beside the bundle");
   });
 });
