@@ -60,6 +60,13 @@ function expectSolvesOf(sparse: SparseLu, dense: DenseLu, n: number): void {
   expect(Array.from(xs)).toEqual(Array.from(xd));
 }
 
+/** Sizes and seeds of the matrices checked against the dense factor to the last bit. */
+const AGAINST_DENSE = [
+  [12, 7],
+  [40, 3],
+  [90, 11],
+] as const;
+
 describe("sparse LU", () => {
   for (const [n, seed] of [
     [5, 1],
@@ -90,11 +97,7 @@ describe("sparse LU", () => {
   }
 
   it("gives the dense factor's numbers to the last bit, ties and all", () => {
-    for (const [n, seed] of [
-      [12, 7],
-      [40, 3],
-      [90, 11],
-    ] as const) {
+    for (const [n, seed] of AGAINST_DENSE) {
       const { dense, sparse } = randomSparse(n, seed);
       const a = new SparseLu(n);
       const d = new DenseLu(n);
@@ -110,11 +113,7 @@ describe("sparse LU", () => {
     // column's pattern while the pivots repeat. New values that keep the pivots, then values that
     // change them (the same structure, each column's entries in reverse order of size), must
     // still give the dense factor (Golub and Van Loan 3.4.1) to the last bit.
-    for (const [n, seed] of [
-      [12, 7],
-      [40, 3],
-      [90, 11],
-    ] as const) {
+    for (const [n, seed] of AGAINST_DENSE) {
       const { dense, sparse } = randomSparse(n, seed);
       const reused = new SparseLu(n);
       expect(reused.factor(sparse)).toBe(true);
