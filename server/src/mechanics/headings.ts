@@ -24,7 +24,12 @@ interface Motion {
   t: Vec3;
 }
 
-const IDENTITY = (): Motion => ({ r: Float64Array.of(1, 0, 0, 0, 1, 0, 0, 0, 1), t: { x: 0, y: 0, z: 0 } });
+/** No motion (Float64Array.of is a slow builtin call: the array is filled in place). */
+function identity(): Motion {
+  const r = new Float64Array(9);
+  r[0] = r[4] = r[8] = 1;
+  return { r, t: { x: 0, y: 0, z: 0 } };
+}
 
 function apply(m: Motion, p: Vec3): Vec3 {
   const r = m.r;
@@ -48,12 +53,14 @@ export function axisRotation(a: Vec3, angle: number): Float64Array {
   const c = Math.cos(angle);
   const s = Math.sin(angle);
   const k = 1 - c;
+  const r = new Float64Array(9);
   // prettier-ignore
-  return Float64Array.of(
+  r.set([
     c + a.x * a.x * k, a.x * a.y * k - a.z * s, a.x * a.z * k + a.y * s,
     a.y * a.x * k + a.z * s, c + a.y * a.y * k, a.y * a.z * k - a.x * s,
     a.z * a.x * k - a.y * s, a.z * a.y * k + a.x * s, c + a.z * a.z * k,
-  );
+  ]);
+  return r;
 }
 
 /** m2 after m1. */
@@ -104,7 +111,7 @@ export class Placement {
       const at = { x: p.x, y: p.y, z: 0 };
       const rp = rotate(r, at);
       const turn: Motion = { r, t: { x: at.x - rp.x, y: at.y - rp.y, z: at.z - rp.z } };
-      for (const b of carried) this.motion.set(b, compose(turn, this.motion.get(b) ?? IDENTITY()));
+      for (const b of carried) this.motion.set(b, compose(turn, this.motion.get(b) ?? identity()));
     }
   }
 

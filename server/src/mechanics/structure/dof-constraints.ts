@@ -27,11 +27,37 @@ export interface DofTransform {
   coef: Float64Array;
 }
 
+/** A linear expression in raw dofs: dof[k] times coef[k], in the order the terms arrived (a sum
+ * taken in that order rounds as it always has). Short: a rigid offset or a pin has a few terms. */
+interface Expression {
+  dof: number[];
+  coef: number[];
+}
+
+/** The term's index for `dof`, or -1. */
+function termOf(e: Expression, dof: number): number {
+  const dofs = e.dof;
+  for (let k = 0; k < dofs.length; k++) if (dofs[k] === dof) return k;
+  return -1;
+}
+
+function removeTerm(e: Expression, k: number): void {
+  e.dof.splice(k, 1);
+  e.coef.splice(k, 1);
+}
+
+/** Adds c to the term of `dof` (a new term at the end). */
+function accumulate(e: Expression, dof: number, c: number): void {
+  const k = termOf(e, dof);
+  if (k < 0) (e.dof.push(dof), e.coef.push(0 + c));
+  else e.coef[k] = e.coef[k]! + c;
+}
+
 export class DofConstraints {
   /** For a dependent dof, its expression in independent raw dofs; undefined when independent. */
-  private readonly expression: (Map<number, number> | undefined)[] = [];
-  /** For an independent dof, the dependent dofs whose expressions use it. */
-  private readonly users = new Map<number, Set<number>>();
+  private readonly expression: (Expression | undefined)[] = [];
+  /** For an independent dof, the dependent dofs whose expressions use it (no repeats, any order). */
+  private readonly users: (number[] | undefined)[] = [];
   private cached?: DofTransform;
 
   /** Makes room for raw dofs 0 .. count - 1. */
@@ -55,63 +81,79 @@ export class DofConstraints {
     this.cached = undefined;
     let largest = 0;
     for (const [, c] of terms) largest = Math.max(largest, Math.abs(c));
-    const reduced = new Map<number, number>();
-    const accumulate = (d: number, c: number) => reduced.set(d, (reduced.get(d) ?? 0) + c);
+    const reduced: Expression = { dof: [], coef: [] };
     for (const [d, c] of terms) {
       const e = this.expression[d];
-      if (e === undefined) accumulate(d, c);
-      else for (const [k, v] of e) accumulate(k, c * v);
+      if (e === undefined) accumulate(reduced, d, c);
+      else for (let k = 0; k < e.dof.length; k++) accumulate(reduced, e.dof[k]!, c * e.coef[k]!);
     }
+    // drop what the others already imply, keeping the order of the rest
+    const kept: Expression = { dof: [], coef: [] };
     let pivot = -1;
     let pivotAbs = 0;
-    for (const [d, c] of reduced) {
-      if (Math.abs(c) <= REDUNDANT_RATIO * largest) reduced.delete(d);
-      else if (Math.abs(c) > pivotAbs) ((pivot = d), (pivotAbs = Math.abs(c)));
+    for (let k = 0; k < reduced.dof.length; k++) {
+      const d = reduced.dof[k]!;
+      const c = reduced.coef[k]!;
+      if (Math.abs(c) <= REDUNDANT_RATIO * largest) continue;
+      kept.dof.push(d);
+      kept.coef.push(c);
+      if (Math.abs(c) > pivotAbs) ((pivot = d), (pivotAbs = Math.abs(c)));
     }
     if (pivot < 0) return false;
     let preferred = -1;
     let preferredAbs = 0;
     for (const d of prefer) {
-      const c = reduced.get(d);
-      if (c !== undefined && Math.abs(c) > preferredAbs) ((preferred = d), (preferredAbs = Math.abs(c)));
+      const k = termOf(kept, d);
+      if (k >= 0 && Math.abs(kept.coef[k]!) > preferredAbs)
+        ((preferred = d), (preferredAbs = Math.abs(kept.coef[k]!)));
     }
     if (preferred >= 0 && preferredAbs >= PREFERRED_PIVOT_RATIO * pivotAbs) pivot = preferred;
-    const cp = reduced.get(pivot)!;
-    const expr = new Map<number, number>();
-    for (const [d, c] of reduced) if (d !== pivot) expr.set(d, -c / cp);
+    const cp = kept.coef[termOf(kept, pivot)]!;
+    const expr: Expression = { dof: [], coef: [] };
+    for (let k = 0; k < kept.dof.length; k++)
+      if (kept.dof[k] !== pivot) (expr.dof.push(kept.dof[k]!), expr.coef.push(-kept.coef[k]! / cp));
     this.eliminate(pivot, expr);
     return true;
   }
 
   /** Makes `pivot` dependent with the given expression and substitutes it wherever it was used. */
-  private eliminate(pivot: number, expr: Map<number, number>): void {
-    const dependents = this.users.get(pivot);
-    this.users.delete(pivot);
+  private eliminate(pivot: number, expr: Expression): void {
+    const dependents = this.users[pivot];
+    this.users[pivot] = undefined;
     this.expression[pivot] = expr;
-    for (const k of expr.keys()) this.usersOf(k).add(pivot);
+    for (const k of expr.dof) this.addUser(k, pivot);
     if (!dependents) return;
     for (const q of dependents) {
       const eq = this.expression[q]!;
-      const weight = eq.get(pivot);
-      if (weight === undefined) continue;
-      eq.delete(pivot);
-      for (const [k, v] of expr) {
-        const sum = (eq.get(k) ?? 0) + weight * v;
+      const at = termOf(eq, pivot);
+      if (at < 0) continue;
+      const weight = eq.coef[at]!;
+      removeTerm(eq, at);
+      for (let t = 0; t < expr.dof.length; t++) {
+        const k = expr.dof[t]!;
+        const i = termOf(eq, k);
+        const sum = (i < 0 ? 0 : eq.coef[i]!) + weight * expr.coef[t]!;
         if (sum === 0) {
-          eq.delete(k);
-          this.users.get(k)?.delete(q);
+          if (i >= 0) removeTerm(eq, i);
+          this.removeUser(k, q);
         } else {
-          eq.set(k, sum);
-          this.usersOf(k).add(q);
+          if (i >= 0) eq.coef[i] = sum;
+          else (eq.dof.push(k), eq.coef.push(sum));
+          this.addUser(k, q);
         }
       }
     }
   }
 
-  private usersOf(dof: number): Set<number> {
-    let s = this.users.get(dof);
-    if (!s) this.users.set(dof, (s = new Set()));
-    return s;
+  private addUser(dof: number, user: number): void {
+    const list = (this.users[dof] ??= []);
+    if (!list.includes(user)) list.push(user);
+  }
+
+  private removeUser(dof: number, user: number): void {
+    const list = this.users[dof];
+    const k = list ? list.indexOf(user) : -1;
+    if (k >= 0) ((list![k] = list![list!.length - 1]!), list!.pop());
   }
 
   /** Equation numbers of the independent dofs (raw order, so a frame numbered along the arm
@@ -125,7 +167,7 @@ export class DofConstraints {
     for (let d = 0; d < n; d++) {
       const e = this.expression[d];
       if (e === undefined) ((number[d] = count++), total++);
-      else total += e.size;
+      else total += e.dof.length;
     }
     const raw = new Int32Array(count);
     for (let d = 0; d < n; d++) if (number[d]! >= 0) raw[number[d]!] = d;
@@ -137,7 +179,7 @@ export class DofConstraints {
       start[d] = k;
       const e = this.expression[d];
       if (e === undefined) ((eq[k] = number[d]!), (coef[k] = 1), k++);
-      else for (const [dof, v] of e) ((eq[k] = number[dof]!), (coef[k] = v), k++);
+      else for (let t = 0; t < e.dof.length; t++) ((eq[k] = number[e.dof[t]!]!), (coef[k] = e.coef[t]!), k++);
     }
     start[n] = k;
     this.cached = { count, raw, start, eq, coef };

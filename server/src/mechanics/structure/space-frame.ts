@@ -69,6 +69,41 @@ interface Solved {
   transform?: DofTransform;
 }
 
+/** The last few numberings computed, by their graph written out flat (the count, then each group's
+ * size and equations). Frames of one arm at other poses and headings mostly couple the same
+ * equations, and the numbering depends on nothing else: an exact match reuses it. */
+const recentOrderings: { graph: Int32Array; order: Int32Array }[] = [];
+const RECENT_ORDERINGS = 8;
+
+function flatGraph(count: number, groups: readonly (readonly number[])[]): Int32Array {
+  let size = 1;
+  for (const g of groups) size += 1 + g.length;
+  const flat = new Int32Array(size);
+  let k = 0;
+  flat[k++] = count;
+  for (const g of groups) {
+    flat[k++] = g.length;
+    for (const e of g) flat[k++] = e;
+  }
+  return flat;
+}
+
+function sameInts(a: Int32Array, b: Int32Array): boolean {
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}
+
+/** reverseCuthillMcKee over the groups' graph, reused when a recent frame had the same graph. */
+function orderingOf(count: number, groups: readonly (readonly number[])[]): Int32Array {
+  const graph = flatGraph(count, groups);
+  for (const known of recentOrderings) if (sameInts(known.graph, graph)) return known.order;
+  const order = reverseCuthillMcKee(graphOfGroups(count, groups));
+  recentOrderings.unshift({ graph, order });
+  if (recentOrderings.length > RECENT_ORDERINGS) recentOrderings.pop();
+  return order;
+}
+
 export class SpaceFrame {
   readonly nodes: Vec3[];
   readonly members: SpaceMember[];
@@ -283,7 +318,7 @@ export class SpaceFrame {
       for (const d of raw) for (let k = t.start[d]!; k < t.start[d + 1]!; k++) eqs.push(t.eq[k]!);
       return eqs;
     });
-    const order = reverseCuthillMcKee(graphOfGroups(t.count, groups));
+    const order = orderingOf(t.count, groups);
     const number = new Int32Array(t.count);
     for (let k = 0; k < t.count; k++) number[order[k]!] = k;
     const raw = new Int32Array(t.count);
