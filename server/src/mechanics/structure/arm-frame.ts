@@ -157,18 +157,51 @@ export function loadArmFrame(
   return { ...parts, frame };
 }
 
-/** The arm's frame at `pose` and the given headings with the loads every load case has
- * (ArmStructure). */
-export function armStructure(
-  model: ArmModel,
-  pose: Pose,
-  options: Pick<ArmFrameOptions, "planar" | "headings"> = {},
-): ArmStructure {
-  const frame = new SpaceFrame();
-  const g = model.gravity;
-  const placement = new Placement(model, pose, options.headings);
-  /** The pins' axis for a body: the drawing plane's normal, turned with its swivels. */
-  const normalOf = (bodyId: string) => placement.direction(bodyId, PLANE_NORMAL);
+/** One step of building an arm's frame, in the order the frame is given them (the constraints'
+ * elimination and every sum depend on that order). Nodes are numbered in the order of the "node"
+ * steps. */
+type LayoutStep =
+  | { op: "node"; bodyId: string; local: Vec2; base: boolean }
+  | { op: "member"; i: number; j: number; props: MemberProperties; bodyId: string }
+  | { op: "massOnly"; i: number; j: number; massPerLength: number }
+  | { op: "rigid"; master: number; slave: number }
+  | { op: "lump"; node: number; mass: number }
+  | { op: "joint"; id: string; a: number; b: number; parentId: string; pinned: boolean }
+  | { op: "rotationalSpring"; a: number; b: number; rate: number; parentId: string }
+  | { op: "axialSpring"; na: number; nb: number; spring: Spring };
+
+/** What an arm's frame is made of, the same at every pose and heading of a sweep: its nodes
+ * (which body and local point), members, rigid parts, joints and springs, and what is read off
+ * by node number. Only the placement (where each node is, which way each pin points) and the
+ * springs' tangent rates differ between poses. */
+interface ArmLayout {
+  steps: LayoutStep[];
+  payloadNode: Record<string, number>;
+  payloadBody: Record<string, string>;
+  endNode: Record<string, number>;
+  memberBody: (string | undefined)[];
+  rigidGroup: Int32Array;
+  groupAttachments: Map<number, number>;
+}
+
+/** Layouts by model, then by which bodies the pose places and whether the frame is planar. */
+const layouts = new WeakMap<ArmModel, Map<string, ArmLayout>>();
+
+function layoutFor(model: ArmModel, pose: Pose, planar: boolean): ArmLayout {
+  const placed = (id: string) => id === model.base?.bodyId || pose.bodies[id] !== undefined;
+  let byKey = layouts.get(model);
+  if (!byKey) layouts.set(model, (byKey = new Map()));
+  let key = planar ? "p" : "s";
+  for (const b of model.bodies) key += placed(b.id) ? "1" : "0";
+  let layout = byKey.get(key);
+  if (!layout) byKey.set(key, (layout = armLayout(model, placed)));
+  return layout;
+}
+
+/** The layout of the arm's frame over the bodies `placed` says are there. */
+function armLayout(model: ArmModel, placed: (id: string) => boolean): ArmLayout {
+  const steps: LayoutStep[] = [];
+  let nodeCount = 0;
   const nodes = new Map<string, number>();
   const fixedNodes: number[] = [];
   const key = (body: string, p: Vec2) => `${body}|${p.x.toFixed(7)}|${p.y.toFixed(7)}`;
@@ -185,10 +218,10 @@ export function armStructure(
     const k = key(body.id, p);
     let n = nodes.get(k);
     if (n === undefined) {
-      n = frame.addNode(placement.point(body.id, p));
+      n = nodeCount++;
+      steps.push({ op: "node", bodyId: body.id, local: p, base: body.kind === "base" });
       nodes.set(k, n);
-      if (body.kind === "base") (frame.fix(n), fixedNodes.push(n));
-      else if (options.planar) for (const dof of [2, 3, 4]) frame.hold(n, dof);
+      if (body.kind === "base") fixedNodes.push(n);
     }
     return n;
   };
@@ -201,22 +234,17 @@ export function armStructure(
   };
   const rigid = (master: number, slave: number) => {
     if (master === slave) return;
-    frame.rigidOffset(master, slave);
+    steps.push({ op: "rigid", master, slave });
     const a = groupOf(master);
     const b = groupOf(slave);
     if (a !== b) groupParent[Math.max(a, b)] = Math.min(a, b);
   };
   const memberBody: (string | undefined)[] = [];
-  const weight = (index: number, massPerLength: number) =>
-    frame.addMemberLoad(index, { x: 0, y: -massPerLength * g, z: 0 });
   const lump = (node: number, mass: number) => {
-    if (!(mass > 0)) return;
-    frame.addMass(node, mass);
-    frame.addLoad(node, { x: 0, y: -mass * g, z: 0 });
+    if (mass > 0) steps.push({ op: "lump", node, mass });
   };
   const endNode: Record<string, number> = {};
 
-  const placed = (id: string) => id === model.base?.bodyId || pose.bodies[id] !== undefined;
   for (const body of model.bodies) {
     if (!placed(body.id)) continue;
     const pts = interestPoints(model, body);
@@ -236,9 +264,8 @@ export function armStructure(
       stationsOf.set(body.id, stations);
       const axis = stations.map((s) => nodeAt(body, { x: s, y: 0 }));
       for (let k = 0; k + 1 < axis.length; k++) {
-        const index = frame.addMember(axis[k]!, axis[k + 1]!, props, normalOf(body.id));
+        steps.push({ op: "member", i: axis[k]!, j: axis[k + 1]!, props, bodyId: body.id });
         memberBody.push(body.id);
-        weight(index, props.massPerLength);
       }
       for (const p of pts) {
         const s = Math.max(0, Math.min(L, p.x));
@@ -252,9 +279,8 @@ export function armStructure(
       rigid(o, end);
       for (const p of pts) rigid(o, nodeAt(body, p));
       if (body.mass > 0) {
-        const index = frame.addMassOnlyMember(o, end, body.mass / body.length);
+        steps.push({ op: "massOnly", i: o, j: end, massPerLength: body.mass / body.length });
         memberBody.push(undefined);
-        weight(index, body.mass / body.length);
       }
       endNode[body.id] = end;
     } else {
@@ -264,45 +290,36 @@ export function armStructure(
     }
   }
   const bodyById = new Map(model.bodies.map((b) => [b.id, b]));
-  const joints: ArmFrame["joints"] = {};
+  const jointEnds: [number, number][] = [];
   for (const j of model.joints) {
     const parent = bodyById.get(j.parent);
     const child = bodyById.get(j.child);
     if (!parent || !child || !placed(parent.id) || !placed(child.id)) continue;
     const a = nodeAt(parent, j.parentPoint);
     const b = nodeAt(child, j.childPoint);
-    joints[j.id] = { parent: a, child: b, axis: normalOf(parent.id) };
+    jointEnds.push([a, b]);
     // a swivel is held at its heading like any degree of freedom (by hand, brake or friction)
-    if (j.mode === "passive") frame.pin(a, b, normalOf(parent.id));
-    else frame.weld(a, b);
+    steps.push({ op: "joint", id: j.id, a, b, parentId: parent.id, pinned: j.mode === "passive" });
   }
-  const springLines: ArmStructure["springLines"] = [];
   for (const sp of model.springs) {
     if (atJoint(sp)) {
       const j = model.joints.find((jj) => jj.id === sp.joint);
       const parent = j && bodyById.get(j.parent);
       const child = j && bodyById.get(j.child);
       if (j && parent && child && j.mode === "passive")
-        frame.addRotationalSpring(
-          nodeAt(parent, j.parentPoint),
-          nodeAt(child, j.childPoint),
-          sp.rate,
-          normalOf(parent.id),
-        );
+        steps.push({
+          op: "rotationalSpring",
+          a: nodeAt(parent, j.parentPoint),
+          b: nodeAt(child, j.childPoint),
+          rate: sp.rate,
+          parentId: parent.id,
+        });
       continue;
     }
     const A = bodyById.get(sp.a.body);
     const B = bodyById.get(sp.b.body);
     if (!A || !B || !placed(A.id) || !placed(B.id)) continue;
-    const na = nodeAt(A, sp.a.point);
-    const nb = nodeAt(B, sp.b.point);
-    const pa = frame.nodes[na]!;
-    const pb = frame.nodes[nb]!;
-    const d = { x: pb.x - pa.x, y: pb.y - pa.y, z: pb.z - pa.z };
-    const L = Math.hypot(d.x, d.y, d.z);
-    if (!(L > 0)) continue;
-    frame.addAxialSpring(na, nb, springTangentRate(model, sp, L));
-    springLines.push({ id: sp.id, na, nb, d, length: L });
+    steps.push({ op: "axialSpring", na: nodeAt(A, sp.a.point), nb: nodeAt(B, sp.b.point), spring: sp });
   }
   const payloadNode: Record<string, number> = {};
   const payloadBody: Record<string, string> = {};
@@ -312,25 +329,90 @@ export function armStructure(
     payloadNode[p.id] = nodeAt(body, p.point);
     payloadBody[p.id] = body.id;
   }
-  const rigidGroup = new Int32Array(frame.nodeCount);
+  const rigidGroup = new Int32Array(nodeCount);
   const groupAttachments = new Map<number, number>();
   const attach = (n: number) => {
     const g = groupOf(n);
     groupAttachments.set(g, (groupAttachments.get(g) ?? 0) + 1);
   };
-  for (let n = 0; n < frame.nodeCount; n++) rigidGroup[n] = groupOf(n);
-  for (const e of Object.values(joints)) (attach(e.parent), attach(e.child));
+  for (let n = 0; n < nodeCount; n++) rigidGroup[n] = groupOf(n);
+  for (const [a, b] of jointEnds) (attach(a), attach(b));
   for (const n of fixedNodes) attach(n);
+  return { steps, payloadNode, payloadBody, endNode, memberBody, rigidGroup, groupAttachments };
+}
+
+/** The arm's frame at `pose` and the given headings with the loads every load case has
+ * (ArmStructure): its layout (the same at every pose) placed at the pose. */
+export function armStructure(
+  model: ArmModel,
+  pose: Pose,
+  options: Pick<ArmFrameOptions, "planar" | "headings"> = {},
+): ArmStructure {
+  const layout = layoutFor(model, pose, options.planar === true);
+  const frame = new SpaceFrame();
+  const g = model.gravity;
+  const placement = new Placement(model, pose, options.headings);
+  /** The pins' axis for a body: the drawing plane's normal, turned with its swivels. */
+  const normalOf = (bodyId: string) => placement.direction(bodyId, PLANE_NORMAL);
+  const joints: ArmFrame["joints"] = {};
+  const springLines: ArmStructure["springLines"] = [];
+  for (const step of layout.steps) {
+    switch (step.op) {
+      case "node": {
+        const n = frame.addNode(placement.point(step.bodyId, step.local));
+        if (step.base) frame.fix(n);
+        else if (options.planar) for (const dof of [2, 3, 4]) frame.hold(n, dof);
+        break;
+      }
+      case "member": {
+        const index = frame.addMember(step.i, step.j, step.props, normalOf(step.bodyId));
+        frame.addMemberLoad(index, { x: 0, y: -step.props.massPerLength * g, z: 0 });
+        break;
+      }
+      case "massOnly": {
+        const index = frame.addMassOnlyMember(step.i, step.j, step.massPerLength);
+        frame.addMemberLoad(index, { x: 0, y: -step.massPerLength * g, z: 0 });
+        break;
+      }
+      case "rigid":
+        frame.rigidOffset(step.master, step.slave);
+        break;
+      case "lump":
+        frame.addMass(step.node, step.mass);
+        frame.addLoad(step.node, { x: 0, y: -step.mass * g, z: 0 });
+        break;
+      case "joint": {
+        const axis = normalOf(step.parentId);
+        joints[step.id] = { parent: step.a, child: step.b, axis };
+        if (step.pinned) frame.pin(step.a, step.b, normalOf(step.parentId));
+        else frame.weld(step.a, step.b);
+        break;
+      }
+      case "rotationalSpring":
+        frame.addRotationalSpring(step.a, step.b, step.rate, normalOf(step.parentId));
+        break;
+      case "axialSpring": {
+        const pa = frame.nodes[step.na]!;
+        const pb = frame.nodes[step.nb]!;
+        const d = { x: pb.x - pa.x, y: pb.y - pa.y, z: pb.z - pa.z };
+        const L = Math.hypot(d.x, d.y, d.z);
+        if (!(L > 0)) break;
+        frame.addAxialSpring(step.na, step.nb, springTangentRate(model, step.spring, L));
+        springLines.push({ id: step.spring.id, na: step.na, nb: step.nb, d, length: L });
+        break;
+      }
+    }
+  }
   return {
     frame,
-    payloadNode,
-    endNode,
-    memberBody,
+    payloadNode: layout.payloadNode,
+    endNode: layout.endNode,
+    memberBody: layout.memberBody,
     joints,
-    rigidGroup,
-    groupAttachments,
+    rigidGroup: layout.rigidGroup,
+    groupAttachments: layout.groupAttachments,
     springLines,
-    payloadBody,
+    payloadBody: layout.payloadBody,
     placement,
   };
 }
