@@ -118,6 +118,27 @@ describe("the sweep planner", () => {
     expect(planSweep(linkageOf(modelOf(text("camera-arm"))), { quickSteps: 0 })).toEqual(own);
   });
 
+  it("gives an arm that turns a quick pass even at its own density (its heading search is thinned)", () => {
+    // The two-stage sample: a swivel between its stages, 11 steps a degree of freedom in a grid,
+    // within the quick pass's budget, so the steps stay the spec's own.
+    const turning = text("two-stage-arm");
+    const own = Number(/steps (\d+)/.exec(turning)![1]);
+    const plan = planSweep(linkageOf(modelOf(turning)), { quickSteps: 13 });
+    expect(plan).toMatchObject({ steps: own, quick: true });
+    // The same arm with its barrel fixed: nothing to thin, so no quick pass.
+    const locked = turning.replace(
+      /swivel barrel \{[^}]*\}/,
+      "joint barrel {\n    connects first.head to block.start\n    fixed\n  }",
+    );
+    expect(planSweep(linkageOf(modelOf(locked)), { quickSteps: 13 })).toMatchObject({
+      steps: own,
+      quick: false,
+    });
+    // Without a quick pass asked for, the full analysis.
+    expect(planSweep(linkageOf(modelOf(turning)), { quickSteps: 0 }).quick).toBe(false);
+    expect(planSweep(linkageOf(modelOf(turning))).quick).toBe(false);
+  });
+
   it("is what the sweep runs: a quick pass says so in its result", () => {
     const quick = analyse(text("camera-arm"), { quickSteps: 13 }).sweep!;
     expect(quick.steps).toBe(13);

@@ -8,6 +8,7 @@ import type { Linkage } from "./linkage";
 import { SWEEP_DEFAULTS } from "../model/schema";
 import { MAX_POSE_BODIES } from "../limits";
 import { formatResult, messageUnits } from "../units/format";
+import { turningSwivels } from "./headings";
 
 /** The grid of several degrees of freedom is capped at this many poses (conventions). */
 export const MAX_GRID_POSES = 20000;
@@ -45,7 +46,8 @@ export interface SweepPlan {
   movingBodies: number;
   /** The limits that changed the plan, in the order they applied. */
   caps: SweepCap[];
-  /** True when a quick pass planned fewer steps than the spec's own: a full pass is still to come. */
+  /** True when a quick pass planned less than the full analysis (fewer steps than the spec's own,
+   * or the thinner heading search of an arm that turns): a full pass is still to come. */
   quick: boolean;
 }
 
@@ -117,6 +119,10 @@ export function planSweep(linkage: Linkage, density: SweepDensity = {}): SweepPl
       steps = q;
       quick = true;
     }
+    // The quick pass also thins the swivels' heading search (docs/checks.md, "Headings
+    // searched"), which multiplies the frame solves of an arm that turns: such an arm gets a quick
+    // pass even at its own density, and its full search once typing pauses.
+    if (turningSwivels(model).length > 0) quick = true;
   }
 
   const caps: SweepCap[] = [];
