@@ -7,12 +7,8 @@ import type { ArmModel, Body, Parallelogram } from "../model/types";
 import type { Span } from "../findings/span";
 import { tiltShares } from "../mechanics/structure/tilt-share";
 import type { Pose, SweepResult } from "../mechanics/types";
-import {
-  armStructure,
-  loadArmFrame,
-  type ArmFrame,
-  type ArmStructure,
-} from "../mechanics/structure/arm-frame";
+import { loadArmFrame, type ArmFrame, type ArmStructure } from "../mechanics/structure/arm-frame";
+import { structureAt } from "./frame-structures";
 import {
   headingSets,
   isQuarterTurn,
@@ -201,7 +197,7 @@ export function checkStiffness(ctx: CheckContext): void {
       let structure: ArmStructure | undefined;
       for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
         if (pastDeadline(ctx.options.deadline)) break;
-        structure ??= armStructure(model, pose, { headings });
+        structure ??= structureAt(ctx, pose, headings);
         const af = loadArmFrame(model, structure, pose.cases[ci], payloadMasses(model, sweep, ci));
         const sol = af.frame.solveStatic();
         if (!sol) {

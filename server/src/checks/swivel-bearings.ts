@@ -9,12 +9,12 @@
 import type { Bearing, Swivel } from "../model/types";
 import type { Pose } from "../mechanics/types";
 import { bearingSafety, type BearingLoad, type BearingRole } from "../mechanics/hardware/bearing-safety";
-import { swivelLoadsOverHeadings, type SwivelLoad } from "../mechanics/swivel-loads";
-import { headingCombinations } from "../mechanics/headings";
+import type { SwivelLoad } from "../mechanics/swivel-loads";
+import { swivelLoadsAt } from "./swivel-load-table";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, noteSafety } from "./readout";
-import { describePose, pastDeadline, payloadMasses, show, showSafety, spanOf } from "./part-words";
+import { describePose, pastDeadline, show, showSafety, spanOf } from "./part-words";
 import { bearingFigures, bearingModelOf, bearingWords } from "./bearings";
 
 /** The load on each of a swivel's bearings from what passes through it. */
@@ -52,12 +52,12 @@ export function checkSwivelBearings(ctx: CheckContext): void {
     if (list.length) uses.set(s, list);
   }
   if (uses.size === 0) return;
-  const sets = headingCombinations(model, sweep.quick === true);
   const worst = new Map<string, Worst>();
-  for (const pose of sweep.poses) {
+  for (let k = 0; k < sweep.poses.length; k++) {
     if (pastDeadline(ctx.options.deadline)) break;
+    const pose = sweep.poses[k]!;
     for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
-      const loads = swivelLoadsOverHeadings(model, pose, payloadMasses(model, sweep, ci), sets);
+      const loads = swivelLoadsAt(ctx, k, ci);
       for (const [s, list] of uses) {
         const l = loads[s.id];
         if (!l) continue;

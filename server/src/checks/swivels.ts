@@ -4,12 +4,12 @@
 // headings are in their own checks.
 import type { Swivel } from "../model/types";
 import type { Pose } from "../mechanics/types";
-import { swivelLoadsOverHeadings, type SwivelLoad } from "../mechanics/swivel-loads";
-import { headingCombinations } from "../mechanics/headings";
+import type { SwivelLoad } from "../mechanics/swivel-loads";
+import { swivelLoadsAt } from "./swivel-load-table";
 import type { CheckContext } from "./index";
 import { finding } from "../findings/finding";
 import { addFigures, type Figure } from "./readout";
-import { describePose, pastDeadline, payloadMasses, show } from "./part-words";
+import { describePose, pastDeadline, show } from "./part-words";
 
 /** An axis within this of vertical counts as vertical: a degree moves a stage's weight by under
  * 2 % of its lever sideways (sin 1 deg = 0.017), far inside the other figures' accuracy (common
@@ -65,12 +65,12 @@ function reportLoads(ctx: CheckContext): void {
   const { model, sweep } = ctx;
   const swivels = (model.swivels ?? []).filter((s) => s.joint);
   if (swivels.length === 0) return;
-  const sets = headingCombinations(model, sweep.quick === true);
   const peaks = new Map<string, Partial<Record<keyof SwivelLoad, Peak>>>();
-  for (const pose of sweep.poses) {
+  for (let k = 0; k < sweep.poses.length; k++) {
     if (pastDeadline(ctx.options.deadline)) break;
+    const pose = sweep.poses[k]!;
     for (let ci = 0; ci < Math.max(1, pose.cases.length); ci++) {
-      const loads = swivelLoadsOverHeadings(model, pose, payloadMasses(model, sweep, ci), sets);
+      const loads = swivelLoadsAt(ctx, k, ci);
       for (const s of swivels) {
         const l = loads[s.id];
         if (!l) continue;

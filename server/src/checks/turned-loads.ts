@@ -8,7 +8,8 @@
 import type { ArmModel, Body, Material } from "../model/types";
 import type { Pose, SweepResult } from "../mechanics/types";
 import { sectionProperties, type SectionProperties } from "../model/section";
-import { armStructure, loadArmFrame, type ArmStructure } from "../mechanics/structure/arm-frame";
+import { loadArmFrame, type ArmStructure } from "../mechanics/structure/arm-frame";
+import { structureAt } from "./frame-structures";
 import { combinedStress, type CombinedStress } from "../mechanics/structure/combined-stress";
 import { jointWrench, pinLoadOf, type PinLoad } from "../mechanics/structure/joint-wrench";
 import { headingSets, loadsAcross, turningSwivels, type Headings } from "../mechanics/headings";
@@ -146,7 +147,7 @@ export function turnedLoadsAt(
       const visits: TurnedVisit[] = [];
       for (let ri = 0; ri < runs.length; ri++) {
         const run = runs[ri]!;
-        const structure = (structures[ri] ??= armStructure(model, pose, { headings: run.headings }));
+        const structure = (structures[ri] ??= structureAt(ctx, pose, run.headings));
         const af = loadArmFrame(model, structure, pose.cases[ci], masses, { inPlaneLoadsOnly: run.inPlane });
         const sol = af.frame.solveStatic();
         if (!sol) break;
