@@ -66,6 +66,10 @@ export function hasTurnedLoads(model: ArmModel, quick: boolean): boolean {
 const PEAK_SHARE = 1e-3;
 /** Peak poses visited per swivel at most, spread evenly over them (both ends kept). */
 export const MAX_PEAK_POSES = 12;
+/** The same while typing, when the headings are thinned too: the two ends of each swivel's peak
+ * poses and the one between. Without them the quick pass missed what the turned stage does to
+ * the pins below it (the two-stage sample's two pin errors vanished while typing). */
+export const QUICK_PEAK_POSES = 3;
 
 /** The poses the turned pass visits (docs/checks.md, "Which poses each check visits"): the
  * stiffness check's representative poses (the reference and the ends of each range), and for each
@@ -74,13 +78,22 @@ export const MAX_PEAK_POSES = 12;
  * the parts below it is that wrench turned about the vertical, carried linearly by parts whose
  * stiffness no heading changes, so at any posture of the stages below, their stress with the stage
  * turned is largest where the wrench is; the peak poses take every posture of the stages below at
- * the carried stages' worst. While typing, only the representative pose that reaches farthest. */
+ * the carried stages' worst. While typing, the representative pose that reaches farthest and the
+ * peak poses (at most QUICK_PEAK_POSES a swivel). */
 export function turnedPassPoses(model: ArmModel, sweep: SweepResult): Pose[] {
   const poses = representativePoses(sweep);
-  if (sweep.quick) return turnedPoses(poses).slice(-1);
-  const out = [...poses];
+  const out = sweep.quick ? turnedPoses(poses).slice(-1) : [...poses];
+  for (const p of peakPoses(model, sweep, sweep.quick ? QUICK_PEAK_POSES : MAX_PEAK_POSES))
+    if (!out.includes(p)) out.push(p);
+  return out;
+}
+
+/** For each swivel between stages, the poses where the wrench it passes on tilts most (its
+ * tilting moment by statics, every pose and load case), at most `most` a swivel, spread evenly
+ * over them with both ends kept. */
+function peakPoses(model: ArmModel, sweep: SweepResult, most: number): Pose[] {
   const swivels = turningSwivels(model);
-  if (swivels.length === 0) return out;
+  if (swivels.length === 0) return [];
   const cases = Math.max(1, sweep.loadCases.length);
   const masses = Array.from({ length: cases }, (_, ci) => payloadMasses(model, sweep, ci));
   const tilt = new Map(swivels.map(({ swivel }) => [swivel.id, new Float64Array(sweep.poses.length)]));
@@ -91,12 +104,13 @@ export function turnedPassPoses(model: ArmModel, sweep: SweepResult): Pose[] {
         if (t && l.moment > t[k]!) t[k] = l.moment;
       }
   });
+  const out: Pose[] = [];
   for (const t of tilt.values()) {
     const top = Math.max(...t);
     if (!(top > 0)) continue;
     const peak = sweep.poses.filter((_, k) => t[k]! >= top * (1 - PEAK_SHARE));
-    const step = peak.length <= MAX_PEAK_POSES ? 1 : (peak.length - 1) / (MAX_PEAK_POSES - 1);
-    for (let i = 0; i < Math.min(peak.length, MAX_PEAK_POSES); i++) {
+    const step = peak.length <= most ? 1 : (peak.length - 1) / Math.max(1, most - 1);
+    for (let i = 0; i < Math.min(peak.length, most); i++) {
       const p = peak[Math.round(i * step)]!;
       if (!out.includes(p)) out.push(p);
     }
