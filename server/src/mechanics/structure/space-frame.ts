@@ -88,16 +88,10 @@ function flatGraph(count: number, groups: readonly (readonly number[])[]): Int32
   return flat;
 }
 
-function sameInts(a: Int32Array, b: Int32Array): boolean {
-  if (a.length !== b.length) return false;
-  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
-  return true;
-}
-
 /** reverseCuthillMcKee over the groups' graph, reused when a recent frame had the same graph. */
 function orderingOf(count: number, groups: readonly (readonly number[])[]): Int32Array {
   const graph = flatGraph(count, groups);
-  for (const known of recentOrderings) if (sameInts(known.graph, graph)) return known.order;
+  for (const known of recentOrderings) if (sameArray(known.graph, graph)) return known.order;
   const order = reverseCuthillMcKee(graphOfGroups(count, groups));
   recentOrderings.unshift({ graph, order });
   if (recentOrderings.length > RECENT_ORDERINGS) recentOrderings.pop();
