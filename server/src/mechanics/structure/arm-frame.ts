@@ -384,7 +384,7 @@ export function armStructure(
       case "joint": {
         const axis = normalOf(step.parentId);
         joints[step.id] = { parent: step.a, child: step.b, axis };
-        if (step.pinned) frame.pin(step.a, step.b, normalOf(step.parentId));
+        if (step.pinned) frame.pin(step.a, step.b, axis);
         else frame.weld(step.a, step.b);
         break;
       }
